@@ -1,0 +1,71 @@
+using Spectre.Console;
+using Spectre.Console.Rendering;
+using SortRig.Host.Announcing;
+using SortRig.Host.Events;
+
+namespace SortRig.Host.Live;
+
+/// <summary>
+/// The large, plain live console view: reel progress, the current cup in big letters with value
+/// and deviation, the current reading and settle state, and cup counts.
+/// </summary>
+internal static class LiveView
+{
+    public static async Task RunAsync(IAnsiConsole console, BenchEventHub hub, int partsPlanned, CancellationToken cancellationToken)
+    {
+        var model = LiveViewModel.Empty(partsPlanned);
+        await console.Live(Render(model)).AutoClear(false).StartAsync(async context =>
+        {
+            try
+            {
+                await foreach (var e in hub.SubscribeAsync(includeHistory: true, cancellationToken).ConfigureAwait(false))
+                {
+                    model = model.Apply(e);
+                    context.UpdateTarget(Render(model));
+                    if (model.Finished)
+                    {
+                        break;
+                    }
+                }
+            }
+            catch (OperationCanceledException)
+            {
+                // The session ended; leave the last view on screen.
+            }
+        }).ConfigureAwait(false);
+    }
+
+    public static IRenderable Render(LiveViewModel m)
+    {
+        var progress = m.PartsPlanned > 0
+            ? new BreakdownChart().Width(60).AddItem("done", m.PartsDone, Color.Green).AddItem("to go", Math.Max(0, m.PartsPlanned - m.PartsDone), Color.Grey)
+            : (IRenderable)new Markup($"[bold]{m.PartsDone}[/] parts");
+        var cup = m.LastAnnouncement is { } a
+            ? new Rows(
+                new FigletText(a.Cup ?? "?").Color(a.Cup == "R" ? Color.Red : Color.Yellow),
+                new Markup($"[bold]part {a.PartNumber}[/]   {Markup.Escape(OhmsText.Format(a.Value ?? double.NaN))}   {Markup.Escape(OhmsText.Ppm(a.DeviationPpm ?? double.NaN))}"))
+            : (IRenderable)new Markup("[grey]waiting for the first part[/]");
+        var reading = m.LastReading is { } r
+            ? new Markup($"[bold]{Markup.Escape(OhmsText.Format(r.Value ?? double.PositiveInfinity))}[/]  {Markup.Escape(r.State ?? "")}  {Markup.Escape(r.Text ?? "")}")
+            : new Markup("[grey]no reading yet[/]");
+        var counts = new Table().Border(TableBorder.Rounded);
+        foreach (var label in m.Counts.Keys.Order(StringComparer.Ordinal))
+        {
+            counts.AddColumn(new TableColumn(label).Centered());
+        }
+
+        if (m.Counts.Count > 0)
+        {
+            counts.AddRow(m.Counts.OrderBy(kv => kv.Key, StringComparer.Ordinal).Select(kv => kv.Value.ToString(System.Globalization.CultureInfo.InvariantCulture)).ToArray());
+        }
+
+        var notices = new Rows(m.Notices.Select(n => (IRenderable)new Markup($"[aqua]{Markup.Escape(n)}[/]")));
+        return new Rows(
+            new Panel(progress).Header("reel"),
+            new Panel(cup).Header("cup"),
+            new Panel(reading).Header("fixture"),
+            m.Counts.Count > 0 ? counts : new Text(""),
+            notices,
+            new Markup("[grey]keys: U undo last · M measure again · P pause · F finish[/]"));
+    }
+}
