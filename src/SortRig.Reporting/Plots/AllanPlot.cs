@@ -30,7 +30,7 @@ public static class AllanPlot
         {
             double[] zeros = new double[points.Count];
             double[] up = points.Select((p, i) => Math.Log10(p.Upper * 1e6) - logPpm[i]).ToArray();
-            double[] down = points.Select((p, i) => logPpm[i] - Math.Log10(p.Lower * 1e6)).ToArray();
+            double[] down = points.Select((p, i) => logPpm[i] - Math.Log10(Math.Max(p.Lower, p.Deviation * 1e-3) * 1e6)).ToArray();
             var bars = plot.Add.ErrorBar(logTau, logPpm, zeros);
             bars.YErrorPositive = up;
             bars.YErrorNegative = down;
@@ -38,8 +38,10 @@ public static class AllanPlot
             bars.LineColor = Colors.Navy;
         }
 
-        PlotLook.UseLogTicks(plot.Axes.Bottom);
-        PlotLook.UseLogTicks(plot.Axes.Left);
+        PlotLook.UseLogTicks(plot.Axes.Bottom, logTau.Min(), logTau.Max());
+        double[] yLow = errorBars ? points.Select(p => Math.Log10(Math.Max(p.Lower, p.Deviation * 1e-3) * 1e6)).ToArray() : logPpm;
+        double[] yHigh = errorBars ? points.Select(p => Math.Log10(p.Upper * 1e6)).ToArray() : logPpm;
+        PlotLook.UseLogTicks(plot.Axes.Left, yLow.Min(), yHigh.Max());
         plot.ShowLegend(Alignment.UpperRight);
         return PlotLook.Finish(plot, size, points);
     }

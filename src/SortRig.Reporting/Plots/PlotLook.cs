@@ -1,3 +1,4 @@
+using System.Globalization;
 using ScottPlot;
 
 namespace SortRig.Reporting.Plots;
@@ -30,14 +31,31 @@ internal static class PlotLook
         return new RenderedPlot<TData>(png, size, data);
     }
 
-    /// <summary>Tick labels for an axis that carries log10 of the value.</summary>
-    public static void UseLogTicks(IAxis axis)
+    /// <summary>
+    /// Limits and labelled ticks for an axis that carries log10 of the value: ticks at 1, 2, 5 x 10^k
+    /// (only 1 x 10^k when the range spans more than three decades), labelled in plain numbers.
+    /// </summary>
+    public static void UseLogTicks(IAxis axis, double logMin, double logMax)
     {
-        axis.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic
+        double lo = logMin - 0.08;
+        double hi = logMax + 0.08;
+        axis.Min = lo;
+        axis.Max = hi;
+        double[] mantissas = hi - lo > 3 ? [1] : [1, 2, 5];
+        var positions = new List<double>();
+        for (int k = (int)Math.Floor(lo); k <= (int)Math.Ceiling(hi); k++)
         {
-            IntegerTicksOnly = true,
-            MinorTickGenerator = new ScottPlot.TickGenerators.LogMinorTickGenerator(),
-            LabelFormatter = v => Math.Pow(10, v).ToString("G3", System.Globalization.CultureInfo.InvariantCulture),
-        };
+            positions.AddRange(mantissas.Select(m => k + Math.Log10(m)).Where(p => p >= lo && p <= hi));
+        }
+
+        axis.SetTicks([.. positions], [.. positions.Select(p => Plain(Math.Pow(10, p)))]);
+    }
+
+    private static string Plain(double v)
+    {
+        double rounded = double.Parse(v.ToString("G3", CultureInfo.InvariantCulture), CultureInfo.InvariantCulture);
+        return rounded is >= 1e-4 and < 1e7
+            ? rounded.ToString("0.####", CultureInfo.InvariantCulture)
+            : rounded.ToString("G3", CultureInfo.InvariantCulture);
     }
 }

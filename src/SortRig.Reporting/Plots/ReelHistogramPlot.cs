@@ -21,7 +21,7 @@ public static class ReelHistogramPlot
 
         Plot plot = PlotLook.Create(
             $"Reel {OhmsText.Format(input.NominalOhms)}: {ppm.Length} parts",
-            string.Create(CultureInfo.InvariantCulture, $"Deviation from nominal (ppm), bins of {width:G3} ppm"),
+            string.Create(CultureInfo.InvariantCulture, $"Deviation from nominal (ppm), bins of {width:0.####} ppm"),
             "Parts per bin");
         plot.Add.Histogram(histogram);
         double[] limits = input.TolerancePercent is { } tol ? [-tol * 1e4, tol * 1e4] : [];
@@ -37,7 +37,11 @@ public static class ReelHistogramPlot
             edge.LegendText = i == 0 ? "cup edges" : string.Empty;
         }
 
-        plot.Axes.Margins(bottom: 0);
+        double[] xs = [histogram.Edges[0], histogram.Edges[^1], .. limits, .. input.CupEdgesPpm];
+        double pad = 0.03 * (xs.Max() - xs.Min());
+        plot.Axes.AutoScale();
+        plot.Axes.SetLimitsX(xs.Min() - pad, xs.Max() + pad);
+        plot.Axes.SetLimitsY(0, Math.Max(1, histogram.Counts.Max()) * 1.12);
         plot.ShowLegend(Alignment.UpperRight);
         var data = new ReelHistogramData(input.NominalOhms, ppm, histogram.Edges, histogram.Counts, limits, [.. input.CupEdgesPpm]);
         return PlotLook.Finish(plot, size, data);

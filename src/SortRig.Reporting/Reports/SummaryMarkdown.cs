@@ -58,7 +58,7 @@ internal static class SummaryMarkdown
         {
             foreach (AllanPoint p in c.Adev.Where(p => adevFactors.Contains(p.AveragingFactor)))
             {
-                Row(md, $"| {c.Channel} | {p.TauSeconds:G4} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
+                Row(md, $"| {c.Channel} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
             }
 
             if (!c.EvenlySpaced && c.Adev.Count > 0)
