@@ -8,6 +8,6 @@ internal static partial class Log
     [LoggerMessage(EventId = 3001, Level = LogLevel.Information, Message = "Report written to {Folder}: {PartCount} parts, {ChannelCount} drift channels, {FileCount} files")]
     public static partial void ReportWritten(ILogger logger, string folder, int partCount, int channelCount, int fileCount);
 
-    [LoggerMessage(EventId = 3002, Level = LogLevel.Warning, Message = "Drift channel {Channel}: no joint drift/tempco fit ({Reason})")]
+    [LoggerMessage(EventId = 3002, Level = LogLevel.Information, Message = "Drift channel {Channel}: no joint drift/tempco fit ({Reason})")]
     public static partial void NoJointFit(ILogger logger, string channel, string reason);
 }
