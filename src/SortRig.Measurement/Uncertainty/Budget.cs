@@ -64,7 +64,8 @@ public sealed record Budget(IReadOnlyList<BudgetComponent> Components)
 
     /// <summary>
     /// Coverage factor k = t_p(ν_eff) from Student's t for a level of confidence p (JCGM 100:2008 G.4.1, G.6.4),
-    /// with ν_eff truncated to the next lower integer as G.4.1 allows; the normal quantile when ν_eff is infinite.
+    /// with ν_eff first stated to one decimal (as the Guide's examples state it: 16.7, 19.0) and then truncated to
+    /// the next lower integer as G.4.1 allows; the normal quantile when ν_eff is infinite.
     /// </summary>
     /// <param name="level">Level of confidence p in (0, 1); default 0.9545 (k = 2 for ν = ∞).</param>
     public double CoverageFactorAt(double level = TwoSigmaLevel)
@@ -78,7 +79,7 @@ public sealed record Budget(IReadOnlyList<BudgetComponent> Components)
         var nu = EffectiveDegreesOfFreedom;
         return double.IsPositiveInfinity(nu) || nu > 1e7
             ? Normal.InvCDF(0, 1, q)
-            : StudentT.InvCDF(0, 1, Math.Max(1.0, Math.Floor(nu)), q);
+            : StudentT.InvCDF(0, 1, Math.Max(1.0, Math.Floor(Math.Round(nu, 1))), q);
     }
 
     /// <summary>Expanded uncertainty U_p = t_p(ν_eff) u_c at a level of confidence (see <see cref="CoverageFactorAt"/>).</summary>
