@@ -13,6 +13,7 @@ public sealed record SettleOptions
     private readonly TimeSpan _bounceIgnore = TimeSpan.FromMilliseconds(50);
     private readonly TimeSpan _maxSettleTime = TimeSpan.FromSeconds(20);
     private readonly int _removalOverloads = 2;
+    private readonly int _noiseHistory = 64;
     private readonly SpecPeriod _specPeriod = SpecPeriod.Year1;
     private readonly UncertaintyModel _model = UncertaintyModel.Default;
 
@@ -63,6 +64,12 @@ public sealed record SettleOptions
 
     /// <summary>Consecutive overload readings (after the bounce) that mean the part was removed. Default 2; valid [1, 100].</summary>
     public int RemovalOverloads { get => _removalOverloads; init => _removalOverloads = Check(value, 1, 100, nameof(RemovalOverloads)); }
+
+    /// <summary>
+    /// Successive differences kept for the robust noise guard: the judged SEM is the larger of the window's s/√N
+    /// and the guard's σ/√N. Default 64; valid [0, 10000]; 0 judges the window alone.
+    /// </summary>
+    public int NoiseHistoryLength { get => _noiseHistory; init => _noiseHistory = Check(value, 0, 10_000, nameof(NoiseHistoryLength)); }
 
     /// <summary>True when the fixture is wired 4-wire (default); false adds the lead term to accepted values.</summary>
     public bool FourWire { get; init; } = true;

@@ -25,6 +25,7 @@ public sealed partial class SettleTracker
             _flickers++;
             _overloadRun = 0;
             _window.Clear();
+            _noise.Clear();
             _collected = 0;
             _stats = null;
         }
@@ -32,14 +33,17 @@ public sealed partial class SettleTracker
         _latestValue = reading.Value;
         _collected++;
         _window.Enqueue(reading);
+        _noise.Add(reading.Value);
         if (_window.Count > _options.WindowLength)
         {
             _window.Dequeue();
         }
 
         var window = _window.ToArray();
-        _stats = WindowStatistics.Of(window, _criticalT);
-        if (_collected >= _options.RequiredReadings && _window.Count == _options.WindowLength && _stats is { } s && IsStable(s))
+        _stats = WindowStatistics.Of(window, _criticalT) is { } raw
+            ? raw with { Sem = Math.Max(raw.Sem, _noise.Sigma / Math.Sqrt(window.Length)) }
+            : null;
+        if (_collected >= _options.RequiredReadings && _window.Count == _options.WindowLength && _stats is { } s && Judge(s))
         {
             var value = ResistanceUncertainty.For(window, _range, _nplc, _options.SpecPeriod, _options.FourWire, _options.Model);
             var acceptance = new SettleAcceptance(value, window, reading.Time - _insertedAt!.Value);
@@ -51,10 +55,24 @@ public sealed partial class SettleTracker
         return TimedOut(reading) ? Unstable(reading, ReasonForFailure()) : Verdict(SettleState.Settling, reading);
     }
 
-    private bool IsStable(WindowStatistics s)
+    /// <summary>Judges a full window; counts why it failed, for the reason given on timeout.</summary>
+    private bool Judge(WindowStatistics s)
     {
         var target = _options.Target.InOhms(s.Mean);
-        return !s.SlopeSignificant && s.Excursion <= _options.SlopeFractionOfTarget * target && s.Sem <= target;
+        if (s.SlopeSignificant)
+        {
+            _slopeFailures++;
+            return false;
+        }
+
+        // An insignificant slope whose estimate is still too large means the noise hides any drift: noise failure.
+        if (s.Excursion > _options.SlopeFractionOfTarget * target || s.Sem > target)
+        {
+            _noiseFailures++;
+            return false;
+        }
+
+        return true;
     }
 
     private UnstableReason ReasonForFailure()
@@ -64,15 +82,12 @@ public sealed partial class SettleTracker
             return UnstableReason.IntermittentContact;
         }
 
-        if (_stats is not { } s || _collected < _options.RequiredReadings || _window.Count < _options.WindowLength)
+        if (_slopeFailures + _noiseFailures == 0)
         {
             return UnstableReason.TooFewReadings;
         }
 
-        var target = _options.Target.InOhms(s.Mean);
-        return s.SlopeSignificant || s.Excursion > _options.SlopeFractionOfTarget * target
-            ? UnstableReason.DriftingSlope
-            : UnstableReason.NoisySem;
+        return _slopeFailures >= _noiseFailures ? UnstableReason.DriftingSlope : UnstableReason.NoisySem;
     }
 
     private bool TimedOut(Reading reading) => reading.Time - _insertedAt!.Value > _options.MaxSettleTime;
@@ -110,11 +125,14 @@ public sealed partial class SettleTracker
     private void ClearPart()
     {
         _window.Clear();
+        _noise.Clear();
         _stats = null;
         _latestValue = null;
         _collected = 0;
         _overloadRun = 0;
         _flickers = 0;
+        _slopeFailures = 0;
+        _noiseFailures = 0;
         _restartOnNextReading = false;
     }
 }

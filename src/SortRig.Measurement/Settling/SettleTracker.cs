@@ -15,6 +15,7 @@ public sealed partial class SettleTracker
     private readonly NplcSpec _nplc;
     private readonly double _criticalT;
     private readonly Queue<Reading> _window;
+    private readonly NoiseGuard _noise;
     private SettleState _state = SettleState.Empty;
     private DateTimeOffset? _insertedAt;
     private DateTimeOffset? _lastTime;
@@ -23,6 +24,8 @@ public sealed partial class SettleTracker
     private int _collected;
     private int _overloadRun;
     private int _flickers;
+    private int _slopeFailures;
+    private int _noiseFailures;
     private bool _restartOnNextReading;
 
     /// <summary>Creates a tracker for readings taken on one range at one NPLC.</summary>
@@ -36,6 +39,7 @@ public sealed partial class SettleTracker
         _options = options ?? SettleOptions.Default;
         _criticalT = WindowStatistics.CriticalT(_options.WindowLength, _options.SlopeAlpha);
         _window = new Queue<Reading>(_options.WindowLength + 1);
+        _noise = new NoiseGuard(_options.NoiseHistoryLength);
     }
 
     /// <summary>The tracker's standing state: Empty, Bouncing, Settling or AwaitingRemoval.</summary>
