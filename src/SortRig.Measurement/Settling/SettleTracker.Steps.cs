@@ -1,0 +1,138 @@
+using SortRig.Measurement.Readings;
+using SortRig.Measurement.Uncertainty;
+
+namespace SortRig.Measurement.Settling;
+
+/// <summary>The settling and removal steps of the settle rule.</summary>
+public sealed partial class SettleTracker
+{
+    private SettleVerdict Settle(Reading reading, bool overload)
+    {
+        if (overload)
+        {
+            _overloadRun++;
+            if (_overloadRun >= _options.RemovalOverloads)
+            {
+                return Removed(reading);
+            }
+
+            return TimedOut(reading) ? Unstable(reading, UnstableReason.IntermittentContact) : Verdict(SettleState.Settling, reading);
+        }
+
+        if (_overloadRun > 0)
+        {
+            // An overload flicker between finite readings: the contact changed, so start the window again.
+            _flickers++;
+            _overloadRun = 0;
+            _window.Clear();
+            _noise.Clear();
+            _collected = 0;
+            _stats = null;
+        }
+
+        _latestValue = reading.Value;
+        _collected++;
+        _window.Enqueue(reading);
+        _noise.Add(reading.Value);
+        if (_window.Count > _options.WindowLength)
+        {
+            _window.Dequeue();
+        }
+
+        var window = _window.ToArray();
+        _stats = WindowStatistics.Of(window, _criticalT) is { } raw
+            ? raw with { Sem = Math.Max(raw.Sem, _noise.Sigma / Math.Sqrt(window.Length)) }
+            : null;
+        if (_collected >= _options.RequiredReadings && _window.Count == _options.WindowLength && _stats is { } s && Judge(s))
+        {
+            var value = ResistanceUncertainty.For(window, _range, _nplc, _options.SpecPeriod, _options.FourWire, _options.Model);
+            var acceptance = new SettleAcceptance(value, window, reading.Time - _insertedAt!.Value);
+            var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
+            _state = SettleState.AwaitingRemoval;
+            return verdict;
+        }
+
+        return TimedOut(reading) ? Unstable(reading, ReasonForFailure()) : Verdict(SettleState.Settling, reading);
+    }
+
+    /// <summary>Judges a full window; counts why it failed, for the reason given on timeout.</summary>
+    private bool Judge(WindowStatistics s)
+    {
+        var target = _options.Target.InOhms(s.Mean);
+        if (s.SlopeSignificant)
+        {
+            _slopeFailures++;
+            return false;
+        }
+
+        // An insignificant slope whose estimate is still too large means the noise hides any drift: noise failure.
+        if (s.Excursion > _options.SlopeFractionOfTarget * target || s.Sem > target)
+        {
+            _noiseFailures++;
+            return false;
+        }
+
+        return true;
+    }
+
+    private UnstableReason ReasonForFailure()
+    {
+        if (_flickers > 0)
+        {
+            return UnstableReason.IntermittentContact;
+        }
+
+        if (_slopeFailures + _noiseFailures == 0)
+        {
+            return UnstableReason.TooFewReadings;
+        }
+
+        return _slopeFailures >= _noiseFailures ? UnstableReason.DriftingSlope : UnstableReason.NoisySem;
+    }
+
+    private bool TimedOut(Reading reading) => reading.Time - _insertedAt!.Value > _options.MaxSettleTime;
+
+    private SettleVerdict Unstable(Reading reading, UnstableReason reason)
+    {
+        var verdict = Verdict(SettleState.Unstable, reading) with { Failure = new SettleFailure(reason, reading.Time - _insertedAt!.Value) };
+        _state = SettleState.AwaitingRemoval;
+        _overloadRun = 0;
+        return verdict;
+    }
+
+    private SettleVerdict AwaitRemoval(Reading reading, bool overload)
+    {
+        if (!overload)
+        {
+            _overloadRun = 0;
+            _latestValue = reading.Value;
+            return Verdict(SettleState.AwaitingRemoval, reading);
+        }
+
+        _overloadRun++;
+        return _overloadRun >= _options.RemovalOverloads ? Removed(reading) : Verdict(SettleState.AwaitingRemoval, reading);
+    }
+
+    private SettleVerdict Removed(Reading reading)
+    {
+        var verdict = Verdict(SettleState.Removed, reading);
+        ClearPart();
+        _state = SettleState.Empty;
+        _insertedAt = null;
+        return verdict;
+    }
+
+    private void ClearPart()
+    {
+        _window.Clear();
+        _noise.Clear();
+        _stats = null;
+        _latestValue = null;
+        _collected = 0;
+        _overloadRun = 0;
+        _flickers = 0;
+        _slopeFailures = 0;
+        _noiseFailures = 0;
+        _restartOnNextReading = false;
+    }
+}

@@ -1,0 +1,131 @@
+using SortRig.Measurement.Readings;
+using SortRig.Measurement.Specs;
+
+namespace SortRig.Measurement.Settling;
+
+/// <summary>
+/// The settle rule: a pure state machine fed one reading at a time. Decides when a part in the fixture has
+/// settled (regression slope not significant and small, standard error of the mean within target) and
+/// accepts it once per insertion. Times come from the readings. Not thread-safe. See docs/measurement.md.
+/// </summary>
+public sealed partial class SettleTracker
+{
+    private readonly SettleOptions _options;
+    private readonly RangeSpec _range;
+    private readonly NplcSpec _nplc;
+    private readonly double _criticalT;
+    private readonly Queue<Reading> _window;
+    private readonly NoiseGuard _noise;
+    private SettleState _state = SettleState.Empty;
+    private DateTimeOffset? _insertedAt;
+    private DateTimeOffset? _lastTime;
+    private double? _latestValue;
+    private WindowStatistics? _stats;
+    private int _collected;
+    private int _overloadRun;
+    private int _flickers;
+    private int _slopeFailures;
+    private int _noiseFailures;
+    private bool _restartOnNextReading;
+
+    /// <summary>Creates a tracker for readings taken on one range at one NPLC.</summary>
+    /// <param name="range">The range the readings come from (for the uncertainty of accepted values).</param>
+    /// <param name="nplc">The integration time they are taken at.</param>
+    /// <param name="options">Settle options; <see cref="SettleOptions.Default"/> when null.</param>
+    public SettleTracker(RangeSpec range, NplcSpec nplc, SettleOptions? options = null)
+    {
+        _range = range ?? throw new ArgumentNullException(nameof(range));
+        _nplc = nplc ?? throw new ArgumentNullException(nameof(nplc));
+        _options = options ?? SettleOptions.Default;
+        _criticalT = WindowStatistics.CriticalT(_options.WindowLength, _options.SlopeAlpha);
+        _window = new Queue<Reading>(_options.WindowLength + 1);
+        _noise = new NoiseGuard(_options.NoiseHistoryLength);
+    }
+
+    /// <summary>The tracker's standing state: Empty, Bouncing, Settling or AwaitingRemoval.</summary>
+    public SettleState State => _state;
+
+    /// <summary>The options in force.</summary>
+    public SettleOptions Options => _options;
+
+    /// <summary>Feeds one reading and returns the verdict it leads to.</summary>
+    /// <exception cref="ArgumentException">The reading is older than the previous one, is finite but not a number,
+    /// or was taken on another range.</exception>
+    public SettleVerdict Add(Reading reading)
+    {
+        var overload = Validate(reading);
+        _lastTime = reading.Time;
+        if (_restartOnNextReading)
+        {
+            _restartOnNextReading = false;
+            _insertedAt = reading.Time;
+        }
+
+        switch (_state)
+        {
+            case SettleState.Empty when overload:
+                return Verdict(SettleState.Empty, reading);
+            case SettleState.Empty:
+                _insertedAt = reading.Time;
+                _state = SettleState.Bouncing;
+                goto case SettleState.Bouncing;
+            case SettleState.Bouncing:
+                if (reading.Time - _insertedAt!.Value < _options.BounceIgnore)
+                {
+                    return Verdict(SettleState.Bouncing, reading);
+                }
+
+                _state = SettleState.Settling;
+                return Settle(reading, overload);
+            case SettleState.Settling:
+                return Settle(reading, overload);
+            default:
+                return AwaitRemoval(reading, overload);
+        }
+    }
+
+    /// <summary>Operator action: discard the readings and settle again with the part still in (no bounce).
+    /// Does nothing when the fixture is empty.</summary>
+    public void Remeasure()
+    {
+        if (_state == SettleState.Empty)
+        {
+            return;
+        }
+
+        ClearPart();
+        _state = SettleState.Settling;
+        _restartOnNextReading = true;
+    }
+
+    /// <summary>Operator action: forget everything and wait for an insertion.</summary>
+    public void Reset()
+    {
+        ClearPart();
+        _state = SettleState.Empty;
+        _insertedAt = null;
+        _lastTime = null;
+    }
+
+    /// <summary>
+    /// Feeds readings until a verdict (Accepted or Unstable) or the end of the sequence. For benchmarks and replays.
+    /// </summary>
+    public static SettleRun Run(IEnumerable<Reading> readings, RangeSpec range, NplcSpec nplc, SettleOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(readings);
+        var tracker = new SettleTracker(range, nplc, options);
+        SettleVerdict? last = null;
+        var used = 0;
+        foreach (var reading in readings)
+        {
+            used++;
+            last = tracker.Add(reading);
+            if (last.State is SettleState.Accepted or SettleState.Unstable)
+            {
+                break;
+            }
+        }
+
+        return new SettleRun(last ?? tracker.Verdict(SettleState.Empty, default), used);
+    }
+}
