@@ -61,7 +61,7 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
 
         builder.DefaultTimeout = (int)Math.Ceiling(options.BusyTimeout.TotalSeconds);
         builder.ForeignKeys = true;
-        builder.Pooling = true;
+        builder.Pooling = options.SqliteMaxPageCount is null; // a size-capped test connection must not go back to the shared pool
         var log = new SqlitePrecisionLog(builder.ToString(), builder.Mode == SqliteOpenMode.ReadOnly, options, Path.GetFullPath(builder.DataSource));
         try
         {
