@@ -15,6 +15,7 @@ public sealed partial class PostgresPrecisionLogTests : PrecisionLogContractTest
 {
     private const string EnvironmentVariable = "SORTRIG_TEST_PG";
     private readonly string _schema = "t_" + Guid.NewGuid().ToString("N");
+    private readonly SemaphoreSlim _schemaGate = new(1, 1);
     private bool _schemaCreated;
 
     private protected override IReadOnlyList<Migration> EngineMigrations => MigrationCatalog.Load("postgres");
@@ -39,10 +40,18 @@ public sealed partial class PostgresPrecisionLogTests : PrecisionLogContractTest
     private async Task<string> StoreConnectionStringAsync(string extra = "")
     {
         var server = ServerConnectionString();
-        if (!_schemaCreated)
+        await _schemaGate.WaitAsync();
+        try
         {
-            await ExecuteAsync(server, $"CREATE SCHEMA {_schema}"); // name made here from a GUID, not input
-            _schemaCreated = true;
+            if (!_schemaCreated)
+            {
+                await ExecuteAsync(server, $"CREATE SCHEMA {_schema}"); // name made here from a GUID, not input
+                _schemaCreated = true;
+            }
+        }
+        finally
+        {
+            _schemaGate.Release();
         }
 
         return $"{server};Search Path={_schema}{extra}";
@@ -72,6 +81,8 @@ public sealed partial class PostgresPrecisionLogTests : PrecisionLogContractTest
         {
             await ExecuteAsync(ServerConnectionString(), $"DROP SCHEMA {_schema} CASCADE");
         }
+
+        _schemaGate.Dispose();
     }
 
     private async Task<object?> ScalarAsync(string sql, params (string Name, object Value)[] parameters)
