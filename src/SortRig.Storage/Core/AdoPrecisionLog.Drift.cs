@@ -1,5 +1,3 @@
-using System.Data.Common;
-using System.Runtime.CompilerServices;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Storage.Core;
@@ -84,42 +82,6 @@ internal abstract partial class AdoPrecisionLog
                 .With("run", runId)
                 .ListAsync(r => new DriftGap(r.GetInt64(0), ReadTime(r, 1), ReadTime(r, 2), r.GetString(3)), ct)
                 .ConfigureAwait(false), cancellationToken);
-
-    public async IAsyncEnumerable<DriftSample> ReadDriftSamplesAsync(long runId, [EnumeratorCancellation] CancellationToken cancellationToken)
-    {
-        const string operation = "read drift samples";
-        _ = await GetDriftRunAsync(runId, cancellationToken).ConfigureAwait(false) ?? throw NotFound(operation, $"Drift run {runId}");
-        var connection = await Guarded(operation, () => OpenConnectionAsync(cancellationToken).AsTask(), cancellationToken).ConfigureAwait(false);
-        await using (connection.ConfigureAwait(false))
-        {
-            var query = new DbScope(connection, null)
-                .Sql("SELECT run_id, channel, taken_at, ohms, temperature_c FROM drift_samples WHERE run_id = @run ORDER BY taken_at, channel")
-                .With("run", runId);
-            await using (query.Command.ConfigureAwait(false))
-            {
-                var reader = await Guarded(operation, () => query.Command.ExecuteReaderAsync(cancellationToken), cancellationToken).ConfigureAwait(false);
-                await using (reader.ConfigureAwait(false))
-                {
-                    while (await Guarded(operation, () => reader.ReadAsync(cancellationToken), cancellationToken).ConfigureAwait(false))
-                    {
-                        yield return ReadDriftSample(reader);
-                    }
-                }
-            }
-        }
-    }
-
-    private async Task<T> Guarded<T>(string operation, Func<Task<T>> step, CancellationToken cancellationToken)
-    {
-        try
-        {
-            return await step().ConfigureAwait(false);
-        }
-        catch (DbException e) when (!cancellationToken.IsCancellationRequested)
-        {
-            throw Fail(operation, Classify(e, out _), e);
-        }
-    }
 
     private async Task<DriftRun?> GetDriftRunCoreAsync(DbScope s, long runId, CancellationToken ct)
     {

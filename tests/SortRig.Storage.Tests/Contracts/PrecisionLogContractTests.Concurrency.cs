@@ -74,4 +74,27 @@ public abstract partial class PrecisionLogContractTests
         Assert.Equal(71, reopened.NextPartNumber);
         Assert.True((await benchA.VerifyAsync(CancellationToken.None)).IsOk);
     }
+
+    [SkippableFact]
+    public async Task CommitPart_SameKeyFromTwoBenchesAtOnce_StoresOnePartPerKey()
+    {
+        var benchA = await CreateLogAsync();
+        var benchB = await CreateLogAsync();
+        var (session, batch) = await Bench.StartAsync(benchA);
+
+        for (int round = 0; round < 25; round++)
+        {
+            // A retry racing its own first attempt (e.g. a timed-out commit resent on a second connection).
+            var commit = Bench.Part(session.Session.Id, batch, 10_000 + round, index: round);
+            var both = await Task.WhenAll(
+                Task.Run(() => benchA.CommitPartAsync(commit, CancellationToken.None)),
+                Task.Run(() => benchB.CommitPartAsync(commit, CancellationToken.None)));
+
+            Assert.Equal(both[0], both[1]);
+            Assert.Equal(round + 1, both[0].Number);
+        }
+
+        Assert.Equal(25, (await benchA.GetPartsAsync(session.Session.Id, CancellationToken.None)).Count);
+        Assert.True((await benchB.VerifyAsync(CancellationToken.None)).IsOk);
+    }
 }
