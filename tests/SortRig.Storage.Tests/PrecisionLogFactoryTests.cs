@@ -1,0 +1,55 @@
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Storage.Tests;
+
+public sealed class PrecisionLogFactoryTests
+{
+    [Theory]
+    [InlineData("Data Source=/var/lib/sortrig/precision.db", StorageEngine.Sqlite)]
+    [InlineData("DataSource=precision.db;Mode=ReadOnly", StorageEngine.Sqlite)]
+    [InlineData("Filename=bench.db", StorageEngine.Sqlite)]
+    [InlineData("/var/lib/sortrig/precision.db", StorageEngine.Sqlite)]
+    [InlineData("precision.db", StorageEngine.Sqlite)]
+    [InlineData("Host=127.0.0.1;Port=55432;Username=sortrig;Database=sortrig_test", StorageEngine.Postgres)]
+    [InlineData("host=lab-db.local;database=library", StorageEngine.Postgres)]
+    [InlineData("Server=10.0.0.5;Database=library", StorageEngine.Postgres)]
+    public void DetectEngine_ConnectionString_PicksEngine(string connectionString, StorageEngine expected) =>
+        Assert.Equal(expected, PrecisionLogFactory.DetectEngine(connectionString));
+
+    [Theory]
+    [InlineData("")]
+    [InlineData("   ")]
+    [InlineData("Database=library;Username=bench")]
+    [InlineData("Host=;=;;x")]
+    public void DetectEngine_NoEngineNamed_ThrowsArgumentSayingWhatIsExpected(string connectionString)
+    {
+        var error = Assert.Throws<ArgumentException>(() => PrecisionLogFactory.DetectEngine(connectionString));
+
+        Assert.Equal("connectionString", error.ParamName);
+        Assert.Contains("Data Source=", error.Message, StringComparison.Ordinal);
+        Assert.Contains("Host=", error.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task OpenAsync_InMemorySqlite_RefusedAsNotDurable()
+    {
+        var error = await Assert.ThrowsAsync<ArgumentException>(() =>
+            PrecisionLogFactory.OpenAsync("Data Source=:memory:", null, CancellationToken.None));
+
+        Assert.Contains("in-memory", error.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData(0.5)]
+    [InlineData(601)]
+    public void Options_BusyTimeoutOutOfRange_ThrowsNamingTheOption(double seconds)
+    {
+        var error = Assert.Throws<ArgumentOutOfRangeException>(() => new PrecisionLogOptions { BusyTimeout = TimeSpan.FromSeconds(seconds) });
+
+        Assert.Equal("BusyTimeout", error.ParamName);
+    }
+
+    [Fact]
+    public void Options_NegativeRetries_ThrowsNamingTheOption() =>
+        Assert.Equal("TransientRetries", Assert.Throws<ArgumentOutOfRangeException>(() => new PrecisionLogOptions { TransientRetries = -1 }).ParamName);
+}
