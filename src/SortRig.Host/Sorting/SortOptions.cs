@@ -48,9 +48,12 @@ public sealed class SortOptions
     /// <summary>Measure 4-wire. Default false (a two-clip fixture).</summary>
     public bool FourWire { get; set; }
 
-    /// <summary>Simulator only: parts on the demo reel. Default 60.</summary>
-    [Range(1, 1_000_000)]
-    public int ReelParts { get; set; } = 60;
+    /// <summary>
+    /// Parts to sort before the session ends by itself (the demo reel's length on the simulator);
+    /// 0 sorts until the operator finishes (a real meter) or 60 parts (the simulator). Default 0; 0..1 000 000.
+    /// </summary>
+    [Range(0, 1_000_000)]
+    public int Parts { get; set; }
 
     /// <summary>Simulator only: random seed of the demo reel. Default 2026.</summary>
     public int Seed { get; set; } = 2026;

@@ -1,0 +1,96 @@
+using System.CommandLine;
+using Microsoft.AspNetCore.Builder;
+using Microsoft.Extensions.Configuration;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Hosting;
+using SortRig.Host.Events;
+using SortRig.Host.Hosting;
+using SortRig.Host.Operator;
+using SortRig.Host.Sorting;
+using SortRig.Host.Web;
+using SortRig.Simulator;
+
+namespace SortRig.Host.Cli;
+
+/// <summary>The sort verb: hands-free sorting, on the embedded simulator when no resource is given.</summary>
+internal static class SortCommand
+{
+    public static Command Create()
+    {
+        var command = new Command("sort", "Sort parts hands-free: settle, log, announce the cup. Without --resource, runs the built-in simulator with a demo reel.");
+        var map = new FlagMap();
+        map.Add(command, new Option<string>("--resource") { Description = "Meter resource, e.g. TCPIP::192.0.2.10::5025::SOCKET or ASRL::/dev/ttyUSB0::INSTR; omit for the simulator" }, "Sort:Resource");
+        map.Add(command, new Option<string>("--profile") { Description = "Meter profile name under instruments/ or a YAML file (default simulator)" }, "Sort:Profile");
+        map.Add(command, new Option<string>("--db") { Description = "SQLite file or PostgreSQL connection string (default sortrig.db)" }, "Sort:Database");
+        map.Add(command, new Option<string>("--session") { Description = "Session name; the same name resumes an unfinished session (default bench)" }, "Sort:Session");
+        map.Add(command, new Option<double>("--nominal") { Description = "Nominal value in ohms (default 10000)" }, "Sort:Nominal");
+        map.Add(command, new Option<double>("--tolerance") { Description = "Stock tolerance as a fraction, 0.01 = 1 % (default 0.01)" }, "Sort:StockTolerance");
+        map.Add(command, new Option<double>("--match") { Description = "Match tolerance as a fraction, 0.001 = 0.1 % (default 0.001)" }, "Sort:MatchTolerance");
+        map.Add(command, new Option<int>("--cups") { Description = "Cups besides the reject cup (default 12)" }, "Sort:Cups");
+        map.Add(command, new Option<double>("--nplc") { Description = "Integration time in power-line cycles (default 1)" }, "Sort:Nplc");
+        map.Add(command, new Option<bool>("--four-wire") { Description = "Measure 4-wire" }, "Sort:FourWire");
+        map.Add(command, new Option<int>("--parts") { Description = "Stop after this many parts; on the simulator the demo reel's length (default 60)" }, "Sort:Parts");
+        map.Add(command, new Option<int>("--seed") { Description = "Simulator: seed of the demo reel (default 2026)" }, "Sort:Seed");
+        map.Add(command, new Option<double>("--speed") { Description = "Simulator: run virtual time this many times faster (default 1)" }, "Sort:Speed");
+        map.Add(command, new Option<bool>("--plain") { Description = "No live view: one plain line per announcement" }, "Sort:Live");
+        map.Add(command, new Option<bool>("--no-speech") { Description = "Do not speak announcements" }, "Sort:Speech");
+        map.Add(command, new Option<bool>("--web") { Description = "Serve the bench page (default http://127.0.0.1:5080)" }, "Web:Enabled");
+        map.Add(command, new Option<string>("--web-urls") { Description = "Where the page listens; non-loopback needs SORTRIG_Web__Token" }, "Web:Urls");
+        command.SetAction((result, ct) => RunAsync(map.Overrides(result), ct));
+        return command;
+    }
+
+    public static async Task<int> RunAsync(Dictionary<string, string?> flags, CancellationToken ct)
+    {
+        // --plain and --no-speech are negative flags: turn them into the options they negate.
+        if (flags.Remove("Sort:Live", out var plain) && plain == "True")
+        {
+            flags["Sort:Live"] = "false";
+        }
+
+        if (flags.Remove("Sort:Speech", out var mute) && mute == "True")
+        {
+            flags["Sort:Speech"] = "false";
+        }
+
+        var probe = new ConfigurationBuilder().AddInMemoryCollection(flags).Build();
+        var webEnabled = probe.GetValue<bool>("Web:Enabled");
+        IHostApplicationBuilder builder = webEnabled
+            ? WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = Environment.CurrentDirectory })
+            : Microsoft.Extensions.Hosting.Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { Args = [], ContentRootPath = Environment.CurrentDirectory });
+        var live = !flags.TryGetValue("Sort:Live", out var l) || l != "false";
+        HostSetup.Configure(builder, flags, quietConsole: live);
+        builder.Services.AddOptions<SortOptions>().Bind(builder.Configuration.GetSection(SortOptions.Section))
+            .ValidateDataAnnotations().ValidateOnStart();
+        var sort = builder.Configuration.GetSection(SortOptions.Section).Get<SortOptions>() ?? new SortOptions();
+        if (sort.Speed != 1 && !string.IsNullOrEmpty(sort.Resource))
+        {
+            throw new InvalidOperationException("--speed applies to the simulator only; a real meter runs in real time.");
+        }
+
+        TimeProvider time = sort.Speed == 1 ? TimeProvider.System : new ScaledTimeProvider(sort.Speed);
+        builder.Services.AddSingleton(time);
+        builder.Services.AddSingleton<BenchEventHub>();
+        builder.Services.AddSingleton<BenchSnapshot>();
+        builder.Services.AddSingleton<OperatorCommands>();
+        builder.Services.AddSingleton<SortWorker>();
+        builder.Services.AddHostedService(sp => sp.GetRequiredService<SortWorker>());
+        builder.Services.AddHostedService(sp => new KeyboardInput(sp.GetRequiredService<OperatorCommands>(), TimeProvider.System));
+
+        IHost host;
+        if (builder is WebApplicationBuilder web)
+        {
+            var webOptions = WebSetup.Configure(web);
+            var app = web.Build();
+            WebSetup.Use(app, webOptions);
+            host = app;
+        }
+        else
+        {
+            host = ((HostApplicationBuilder)builder).Build();
+        }
+
+        await host.RunAsync(ct).ConfigureAwait(false);
+        return host.Services.GetRequiredService<SortWorker>().ExitCode;
+    }
+}

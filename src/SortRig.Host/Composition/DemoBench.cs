@@ -1,0 +1,30 @@
+using SortRig.Host.Sorting;
+using SortRig.Simulator;
+using SortRig.Simulator.Physics;
+
+namespace SortRig.Host.Composition;
+
+/// <summary>
+/// The demo scenario of our own: a small instrument maker sorting a reel of 1 % 10 kOhm metal-film
+/// parts for R-2R DAC ladders. Builds the embedded simulator's options from the sort options.
+/// </summary>
+public static class DemoBench
+{
+    /// <summary>Parts on the demo reel when the session does not say.</summary>
+    public const int DefaultParts = 60;
+
+    /// <summary>Simulator options for a sorting demo of the given session.</summary>
+    public static SimulatedBenchOptions For(SortOptions sort, int parts) => new()
+    {
+        Seed = sort.Seed,
+        TcpPort = 0,
+        TimeScale = sort.Speed,
+        Reel = new ReelSpec
+        {
+            Count = parts,
+            Nominals = [new NominalShare(sort.Nominal, 1)],
+            TolerancePercent = sort.StockTolerance * 100,
+            Distribution = ValueDistribution.Normal(0.4),
+        },
+    };
+}

@@ -1,0 +1,92 @@
+using Microsoft.Extensions.Logging;
+using SortRig.Host.Announcing;
+using SortRig.Host.Events;
+using SortRig.Host.Operator;
+using SortRig.Host.Sorting;
+using SortRig.Instruments.Drivers;
+using SortRig.Instruments.Resources;
+using SortRig.Instruments.Transports;
+using SortRig.Planning.Cups;
+using SortRig.Simulator;
+using SortRig.Storage;
+
+namespace SortRig.Host.Composition;
+
+/// <summary>Shared services of one sorting run, owned by whoever hosts it (the sort verb or a test).</summary>
+/// <param name="Time">The clock; for the embedded simulator the same scaled clock drives both sides.</param>
+/// <param name="Hub">Event stream.</param>
+/// <param name="Snapshot">State for the page and API.</param>
+/// <param name="Commands">Operator actions.</param>
+/// <param name="Announcer">Where announcements go besides the event stream.</param>
+/// <param name="Loggers">Logging.</param>
+public sealed record SortServices(
+    TimeProvider Time,
+    BenchEventHub Hub,
+    BenchSnapshot Snapshot,
+    OperatorCommands Commands,
+    IAnnouncer Announcer,
+    ILoggerFactory Loggers);
+
+/// <summary>
+/// Assembles and runs a sorting session: the embedded simulator when no resource is given, the
+/// meter profile, the range plan, the precision log and the cup assigner.
+/// </summary>
+public static class SortRunner
+{
+    /// <summary>Runs one session to its end. The embedded simulator, if any, lives for the call.</summary>
+    /// <param name="options">Session settings.</param>
+    /// <param name="services">Shared services.</param>
+    /// <param name="onSimulatorStarted">Called with the embedded simulator once it serves (tests read its truth).</param>
+    /// <param name="ct">Stops the session.</param>
+    public static async Task<SortOutcome> RunAsync(
+        SortOptions options, SortServices services, Action<SimulatedBench>? onSimulatorStarted, CancellationToken ct)
+    {
+        var profile = ProfileLocator.Load(options.Profile);
+        var plan = SortPlan.For(options, profile.Spec);
+        SimulatedBench? bench = null;
+        IFixtureHands hands = new HumanHands();
+        var resource = options.Resource;
+        try
+        {
+            if (string.IsNullOrWhiteSpace(resource))
+            {
+                var parts = options.Parts > 0 ? options.Parts : DemoBench.DefaultParts;
+                options.Parts = parts;
+                bench = new SimulatedBench(DemoBench.For(options, parts), services.Time, services.Loggers);
+                var endpoint = await bench.StartTcpAsync(0, ct).ConfigureAwait(false);
+                resource = $"TCPIP::127.0.0.1::{endpoint.Port}::SOCKET";
+                hands = new SimulatorHands(bench.Operator);
+                onSimulatorStarted?.Invoke(bench);
+            }
+
+            var parsed = ResourceStringParser.Parse(resource);
+            var connector = new MeterConnector(new MessageLinkFactory(services.Time), services.Time, services.Loggers);
+            await using var log = await PrecisionLogFactory.OpenAsync(
+                options.Database,
+                new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
+                ct).ConfigureAwait(false);
+            var cups = new BandCupAssigner(new BandCupOptions(options.Cups, options.MatchTolerance * 1e6, options.Nominal, options.StockTolerance));
+            var context = new SortContext(
+                plan,
+                c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),
+                log,
+                cups,
+                new CompositeAnnouncer([new HubAnnouncer(services.Hub), services.Announcer]),
+                services.Hub,
+                services.Snapshot,
+                services.Commands,
+                hands,
+                services.Time,
+                services.Loggers.CreateLogger("SortRig.Host.Sorting"));
+            _ = parsed;
+            return await new SortingLoop(context).RunAsync(ct).ConfigureAwait(false);
+        }
+        finally
+        {
+            if (bench is not null)
+            {
+                await bench.DisposeAsync().ConfigureAwait(false);
+            }
+        }
+    }
+}

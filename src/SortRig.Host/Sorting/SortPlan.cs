@@ -1,0 +1,75 @@
+using System.Globalization;
+using SortRig.Measurement.Ranging;
+using SortRig.Measurement.Settling;
+using SortRig.Measurement.Specs;
+
+namespace SortRig.Host.Sorting;
+
+/// <summary>
+/// The measurement plan of a batch, fixed before the first part: the locked range and NPLC from
+/// the range rule, and the settle rule's options derived from the match tolerance.
+/// </summary>
+/// <param name="Options">The session's settings.</param>
+/// <param name="Decision">The range rule's decision (range locked for the whole batch).</param>
+/// <param name="Settle">Settle rule options.</param>
+public sealed record SortPlan(SortOptions Options, RangeDecision Decision, SettleOptions Settle)
+{
+    /// <summary>Full scale of the locked range, ohms.</summary>
+    public double Range => Decision.Range.FullScale;
+
+    /// <summary>Integration time, power-line cycles.</summary>
+    public double Nplc => Decision.Nplc.Nplc;
+
+    /// <summary>
+    /// Chooses the range and settle options for a session on a meter; throws
+    /// <see cref="SortPlanException"/> naming remedies when the match tolerance cannot be resolved.
+    /// </summary>
+    public static SortPlan For(SortOptions options, MeterSpec meter)
+    {
+        var request = new RangeRequest(options.Nominal, options.StockTolerance, options.MatchTolerance, options.Nplc, options.FourWire);
+        RangeDecision decision;
+        try
+        {
+            decision = RangeRule.Choose(meter, request);
+        }
+        catch (ArgumentException e)
+        {
+            throw new SortPlanException($"The meter '{meter.Family}' cannot take this batch: {e.Message}", []);
+        }
+
+        if (decision.Verdict == RangeVerdict.Refused)
+        {
+            var remedies = decision.Remedies.Where(r => r.Resolves).Select(Describe).ToList();
+            throw new SortPlanException(
+                string.Create(CultureInfo.InvariantCulture,
+                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm needs an expanded transfer uncertainty of at most {decision.AllowedExpanded:G3} Ohm; the {decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC gives {decision.ExpandedTransfer:G3} Ohm."),
+                remedies);
+        }
+
+        // The settle target: the standard error of the mean must be small against the match band.
+        var matchPpm = options.MatchTolerance * 1e6;
+        var settle = SettleOptions.Default with
+        {
+            Target = SettleTarget.Ppm(Math.Clamp(matchPpm / 200, 0.5, 10)),
+            FourWire = options.FourWire,
+        };
+        return new SortPlan(options, decision, settle);
+    }
+
+    private static string Describe(Remedy r) => r.Kind switch
+    {
+        RemedyKind.RaiseNplc => string.Create(CultureInfo.InvariantCulture, $"raise the integration time to {r.Setting:G} NPLC (--nplc {r.Setting:G})"),
+        RemedyKind.UseFourWire => "measure 4-wire (--four-wire) with a Kelvin fixture",
+        RemedyKind.UseRange => string.Create(CultureInfo.InvariantCulture, $"use the {r.Setting:G6} Ohm range"),
+        RemedyKind.LoosenMatch => string.Create(CultureInfo.InvariantCulture, $"loosen the match to {r.Setting * 100:0.####} % (--match {r.Setting:G4})"),
+        _ => r.Kind.ToString(),
+    };
+}
+
+/// <summary>The batch cannot be measured as asked; <see cref="Remedies"/> says what would work.</summary>
+public sealed class SortPlanException(string message, IReadOnlyList<string> remedies)
+    : Exception(remedies.Count == 0 ? message : message + " Remedies: " + string.Join("; ", remedies) + ".")
+{
+    /// <summary>Concrete changes that would make the batch measurable.</summary>
+    public IReadOnlyList<string> Remedies { get; } = remedies;
+}

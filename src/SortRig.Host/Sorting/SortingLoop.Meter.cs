@@ -1,0 +1,111 @@
+using Microsoft.Extensions.Logging;
+using SortRig.Host.Announcing;
+using SortRig.Instruments.Drivers;
+using SortRig.Measurement.Readings;
+
+namespace SortRig.Host.Sorting;
+
+public sealed partial class SortingLoop
+{
+    private static readonly TimeSpan s_firstBackoff = TimeSpan.FromMilliseconds(250);
+    private static readonly TimeSpan s_lastBackoff = TimeSpan.FromSeconds(5);
+
+    private ResistanceSetup Setup => new(_ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
+
+    // One reading, or null after a fault was recovered from (the caller simply reads again).
+    private async Task<Reading?> ReadAsync(CancellationToken ct)
+    {
+        try
+        {
+            _meter ??= await ConnectAsync(ct).ConfigureAwait(false);
+            return await _meter.ReadAsync(ct).ConfigureAwait(false);
+        }
+        catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
+        {
+            await RecoverAsync(e, ct).ConfigureAwait(false);
+            return null;
+        }
+    }
+
+    private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
+    {
+        var meter = await _ctx.ConnectAsync(ct).ConfigureAwait(false);
+        try
+        {
+            await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+            return meter;
+        }
+        catch
+        {
+            await meter.DisposeAsync().ConfigureAwait(false);
+            throw;
+        }
+    }
+
+    // A flaky cable, a garbled reply, a timeout or an instrument error: drop the session, open a
+    // fresh one with back-off, re-apply range and NPLC, and settle the part in the fixture again.
+    private async Task RecoverAsync(Exception fault, CancellationToken ct)
+    {
+        _faults++;
+        LogMeterFault(_ctx.Logger, fault.GetType().Name, fault.Message);
+        await _ctx.Announcer.AnnounceAsync(Announcement.Info($"meter: {MeterFaults.Describe(fault)}; reconnecting"), ct).ConfigureAwait(false);
+        if (_meter is not null)
+        {
+            await _meter.DisposeAsync().ConfigureAwait(false);
+            _meter = null;
+        }
+
+        if (_tracker.State.IsBusy())
+        {
+            _tracker.Remeasure();
+        }
+
+        var backoff = s_firstBackoff;
+        while (true)
+        {
+            ct.ThrowIfCancellationRequested();
+            try
+            {
+                _meter = await ConnectAsync(ct).ConfigureAwait(false);
+                return;
+            }
+            catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
+            {
+                LogMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
+                await Task.Delay(backoff, _ctx.Time, ct).ConfigureAwait(false);
+                backoff = TimeSpan.FromTicks(Math.Min(s_lastBackoff.Ticks, backoff.Ticks * 2));
+            }
+        }
+    }
+
+    private async Task<bool> VerifySetupAsync(CancellationToken ct)
+    {
+        try
+        {
+            if (_meter is not null && await _meter.VerifySetupAsync(ct).ConfigureAwait(false))
+            {
+                return true;
+            }
+
+            _faults++;
+            await _ctx.Announcer.AnnounceAsync(Announcement.Info("meter lost its range/NPLC settings (reset?): re-applied, measuring again"), ct).ConfigureAwait(false);
+            if (_meter is not null)
+            {
+                await _meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+            }
+
+            return false;
+        }
+        catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
+        {
+            await RecoverAsync(e, ct).ConfigureAwait(false);
+            return false;
+        }
+    }
+
+    [LoggerMessage(EventId = 3201, Level = LogLevel.Warning, Message = "Meter fault {Kind}: {Reason}")]
+    private static partial void LogMeterFault(ILogger logger, string kind, string reason);
+
+    [LoggerMessage(EventId = 3202, Level = LogLevel.Error, Message = "Storage fault during {Operation} ({Fault}): {Reason}")]
+    private static partial void LogStorageFault(ILogger logger, string operation, string fault, string reason);
+}

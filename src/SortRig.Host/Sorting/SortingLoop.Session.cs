@@ -1,0 +1,82 @@
+using SortRig.Host.Announcing;
+using SortRig.Host.Events;
+using SortRig.Planning.Cups;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Host.Sorting;
+
+public sealed partial class SortingLoop
+{
+    // Opens or resumes the session: numbering and cup counts continue from the log, and a part
+    // committed but never announced (a crash in between) is announced again before anything else.
+    private async Task OpenSessionAsync(CancellationToken ct)
+    {
+        var log = _ctx.Log;
+        var state = await log.OpenOrResumeSessionAsync(new SessionRequest(Options.Session), ct).ConfigureAwait(false);
+        _session = state.Session;
+        var setup = new BatchSetup(
+            Options.Nominal,
+            Options.StockTolerance * 1e6,
+            Options.MatchTolerance * 1e6,
+            _ctx.Plan.Range,
+            _ctx.Plan.Nplc,
+            Options.FourWire,
+            _ctx.Plan.Decision.Range.FullScale.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " Ohm range",
+            "");
+        _batch = state.CurrentBatch is { } current && SameBatch(current.Setup, setup)
+            ? current
+            : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
+
+        var parts = await log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
+        _partsRecorded = parts.Count;
+        var history = parts
+            .Where(p => p.IsLive && p.CupLabel is not null)
+            .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), p.CupLabel!))
+            .ToList();
+        _ctx.Cups.Restore(history);
+        foreach (var p in parts)
+        {
+            _ctx.Snapshot.Upsert(ToView(p));
+        }
+
+        _lastLive = parts.Where(p => p.IsLive).OrderBy(p => p.Number).LastOrDefault();
+        _ctx.Snapshot.SetSession(new SessionView(
+            _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
+            Options.Profile, setup.MeterFamily, _ctx.Plan.Nplc, PlannedParts, false, false));
+        PublishCounts();
+
+        if (state.Resumed)
+        {
+            await _ctx.Announcer.AnnounceAsync(
+                Announcement.Info($"resuming session '{_session.Name}' at part {state.NextPartNumber}"), ct).ConfigureAwait(false);
+        }
+
+        foreach (var p in state.Unannounced.OrderBy(p => p.Number))
+        {
+            await AnnounceStoredAsync(p, AnnouncementKind.Repeat, completesSet: false, ct).ConfigureAwait(false);
+        }
+
+        _ctx.Hands.ResumeAt(_partsRecorded);
+    }
+
+    private static bool SameBatch(BatchSetup a, BatchSetup b) =>
+        a.Nominal == b.Nominal && a.Range == b.Range && a.Nplc == b.Nplc && a.FourWire == b.FourWire
+        && a.MatchTolerancePpm == b.MatchTolerancePpm && a.StockTolerancePpm == b.StockTolerancePpm;
+
+    private void PublishCounts()
+    {
+        var counts = _ctx.Cups.Counts.ToDictionary(c => c.CupLabel, c => c.Count, StringComparer.Ordinal);
+        _ctx.Snapshot.SetCounts(counts);
+        _ctx.Hub.Publish(new BenchEvent(0, BenchEventKind.Counts, default, Counts: counts));
+    }
+
+    private static PartView ToView(PartRecord p) => new(
+        p.Number,
+        p.Nominal,
+        p.Value,
+        p.DeviationPpm,
+        p.Measured.ExpandedTransfer,
+        p.CupLabel ?? p.SlotLabel,
+        p.State.ToString(),
+        p.AcceptedAt);
+}
