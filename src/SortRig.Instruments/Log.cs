@@ -17,8 +17,8 @@ internal static partial class Log
     [LoggerMessage(EventId = 1004, Level = LogLevel.Warning, Message = "{Endpoint}: session broken after {Command}: {Reason}")]
     public static partial void SessionBroken(ILogger logger, string endpoint, string command, string reason);
 
-    [LoggerMessage(EventId = 1005, Level = LogLevel.Debug, Message = "{Endpoint}: discarded stale input before {Command}")]
-    public static partial void Resynced(ILogger logger, string endpoint, string command);
+    [LoggerMessage(EventId = 1005, Level = LogLevel.Debug, Message = "{Endpoint}: dropped stale reply {Reply} of a cancelled query before {Command}")]
+    public static partial void DroppedStaleReply(ILogger logger, string endpoint, string reply, string command);
 
     [LoggerMessage(EventId = 1006, Level = LogLevel.Information, Message = "{Endpoint}: configured {Function} range {Range} NPLC {Nplc}")]
     public static partial void Configured(ILogger logger, string endpoint, string function, double range, double nplc);

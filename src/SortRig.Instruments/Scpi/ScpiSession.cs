@@ -17,7 +17,7 @@ public sealed class ScpiSession : IAsyncDisposable
     private readonly SemaphoreSlim _gate = new(1, 1);
     private readonly List<string> _group = [];
     private string? _brokenBecause;
-    private bool _resyncNeeded;
+    private int _owedReplies;
 
     /// <summary>Creates a session over <paramref name="link"/>.</summary>
     /// <param name="link">The open link; the session takes ownership.</param>
@@ -157,6 +157,7 @@ public sealed class ScpiSession : IAsyncDisposable
 
     private async Task<string?> ExchangeLockedAsync(string command, TimeSpan? replyTimeout, CancellationToken ct, bool track = true)
     {
+        var written = false;
         if (_brokenBecause is not null)
         {
             throw new InstrumentLinkException(Endpoint, $"session is broken ({_brokenBecause}); reconnect to go on");
@@ -164,15 +165,10 @@ public sealed class ScpiSession : IAsyncDisposable
 
         try
         {
-            if (_resyncNeeded)
-            {
-                await _link.DiscardInputAsync(Options.ResyncQuietPeriod, ct).ConfigureAwait(false);
-                _resyncNeeded = false;
-                Log.Resynced(_logger, Endpoint, command);
-            }
-
+            await CollectOwedRepliesAsync(command, ct).ConfigureAwait(false);
             var started = _time.GetTimestamp();
             await _link.WriteLineAsync(command, ct).ConfigureAwait(false);
+            written = true;
             if (track)
             {
                 _group.Add(command);
@@ -198,11 +194,29 @@ public sealed class ScpiSession : IAsyncDisposable
             MarkBroken(command, ex.Message);
             throw;
         }
-        catch (OperationCanceledException) when (ct.IsCancellationRequested && replyTimeout is not null)
+        catch (OperationCanceledException) when (ct.IsCancellationRequested && written && replyTimeout is not null)
         {
-            // The reply may still come; drop it before the next exchange so replies stay in step.
-            _resyncNeeded = true;
+            // The reply may still come; it is read and dropped before the next exchange so replies stay in step.
+            _owedReplies++;
             throw;
+        }
+    }
+
+    private async Task CollectOwedRepliesAsync(string nextCommand, CancellationToken ct)
+    {
+        while (_owedReplies > 0)
+        {
+            try
+            {
+                var stale = await _link.ReadLineAsync(Options.QueryTimeout, ct).ConfigureAwait(false);
+                _owedReplies--;
+                Log.DroppedStaleReply(_logger, Endpoint, stale, nextCommand);
+            }
+            catch (InstrumentTimeoutException)
+            {
+                // The instrument dropped the cancelled query's reply; nothing more is owed.
+                _owedReplies = 0;
+            }
         }
     }
 

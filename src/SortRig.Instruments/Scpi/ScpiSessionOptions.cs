@@ -3,19 +3,17 @@ namespace SortRig.Instruments.Scpi;
 /// <summary>Timing and error-queue options of a <see cref="ScpiSession"/>. Validated at construction.</summary>
 public sealed class ScpiSessionOptions
 {
-    /// <summary>The defaults: 5 s query timeout, 32 error-queue reads, 100 ms resync quiet period, SYST:ERR?.</summary>
+    /// <summary>The defaults: 5 s query timeout, 32 error-queue reads, SYST:ERR?.</summary>
     public static ScpiSessionOptions Default { get; } = new();
 
     /// <summary>Creates validated options.</summary>
     /// <param name="queryTimeout">Time allowed for a reply; 0.01-600 s, default 5 s.</param>
     /// <param name="maxErrorQueueReads">Cap on SYST:ERR? reads per check; 1-1000, default 32.</param>
-    /// <param name="resyncQuietPeriod">Silence awaited when dropping a stale reply after a cancelled query; 0-10 s, default 100 ms.</param>
     /// <param name="errorQueryCommand">The error queue query; default "SYST:ERR?".</param>
     /// <exception cref="ArgumentOutOfRangeException">A value is outside its valid range.</exception>
     public ScpiSessionOptions(
         TimeSpan? queryTimeout = null,
         int maxErrorQueueReads = 32,
-        TimeSpan? resyncQuietPeriod = null,
         string errorQueryCommand = "SYST:ERR?")
     {
         QueryTimeout = queryTimeout ?? TimeSpan.FromSeconds(5);
@@ -27,12 +25,6 @@ public sealed class ScpiSessionOptions
         MaxErrorQueueReads = maxErrorQueueReads is >= 1 and <= 1000
             ? maxErrorQueueReads
             : throw new ArgumentOutOfRangeException(nameof(maxErrorQueueReads), maxErrorQueueReads, "maxErrorQueueReads must be 1 to 1000");
-        ResyncQuietPeriod = resyncQuietPeriod ?? TimeSpan.FromMilliseconds(100);
-        if (ResyncQuietPeriod < TimeSpan.Zero || ResyncQuietPeriod > TimeSpan.FromSeconds(10))
-        {
-            throw new ArgumentOutOfRangeException(nameof(resyncQuietPeriod), ResyncQuietPeriod, "resyncQuietPeriod must be 0 to 10 s");
-        }
-
         ErrorQueryCommand = !string.IsNullOrWhiteSpace(errorQueryCommand) && errorQueryCommand.EndsWith('?')
             ? errorQueryCommand
             : throw new ArgumentOutOfRangeException(nameof(errorQueryCommand), errorQueryCommand, "errorQueryCommand must be a query ending in '?'");
@@ -43,9 +35,6 @@ public sealed class ScpiSessionOptions
 
     /// <summary>Cap on SYST:ERR? reads per check, so a babbling instrument cannot loop us for ever.</summary>
     public int MaxErrorQueueReads { get; }
-
-    /// <summary>Silence awaited when dropping a stale reply after a cancelled query.</summary>
-    public TimeSpan ResyncQuietPeriod { get; }
 
     /// <summary>The error queue query.</summary>
     public string ErrorQueryCommand { get; }
