@@ -45,13 +45,22 @@ public static partial class MeterProfileLoader
     public static MeterProfile Parse(string yaml, string file)
     {
         var stream = new YamlStream();
+        var parser = new Parser(new StringReader(yaml));
         try
         {
-            stream.Load(new StringReader(yaml));
+            stream.Load(parser);
         }
         catch (YamlException ex)
         {
             throw new ProfileException(file, (int)ex.Start.Line, (int)ex.Start.Column, string.Empty, $"YAML error: {ex.Message}", "well-formed YAML", ex);
+        }
+        catch (InvalidOperationException ex)
+        {
+            // YamlDotNet's scanner can fail this way on some malformed input (e.g. an unclosed '[');
+            // the last event it parsed tells where.
+            var at = parser.Current?.End ?? Mark.Empty;
+            throw new ProfileException(file, (int)at.Line, (int)at.Column, string.Empty,
+                "YAML error: malformed text after this point (unclosed bracket or quote?)", "well-formed YAML", ex);
         }
 
         if (stream.Documents.Count != 1)
