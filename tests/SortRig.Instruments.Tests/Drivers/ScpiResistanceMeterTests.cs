@@ -137,15 +137,21 @@ public sealed class ScpiResistanceMeterTests
         var clock = new FakeTimeProvider(s_start);
         await using var meter = await Open(peer, TestProfiles.Simulator(settleSeconds: 0.5), clock);
         var first = meter.ConfigureAsync(new ResistanceSetup(1000, 1, false), s_none);
-        while (peer.Received.Count < 7)
+        var advanced = TimeSpan.Zero;
+        while (!first.IsCompleted && advanced < TimeSpan.FromSeconds(10))
         {
-            await Task.Delay(10);
+            await Task.Delay(20);
+            if (!first.IsCompleted)
+            {
+                clock.Advance(TimeSpan.FromMilliseconds(50));
+                advanced += TimeSpan.FromMilliseconds(50);
+            }
         }
 
-        await Task.Delay(100);
-        Assert.False(first.IsCompleted);
-        clock.Advance(TimeSpan.FromMilliseconds(500));
-        await first.WaitAsync(TimeSpan.FromSeconds(5));
+        await first;
+        Assert.True(advanced >= TimeSpan.FromMilliseconds(500), $"finished after {advanced.TotalMilliseconds} ms of virtual time");
+
+        // Same range, other NPLC: no settle wait, so it finishes without the clock moving.
         await meter.ConfigureAsync(new ResistanceSetup(1000, 10, false), s_none).WaitAsync(TimeSpan.FromSeconds(5));
     }
 
