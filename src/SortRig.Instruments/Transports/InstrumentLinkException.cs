@@ -1,0 +1,21 @@
+namespace SortRig.Instruments.Transports;
+
+/// <summary>
+/// The connection to the instrument failed (I/O fault, peer closed it, could not be opened) or
+/// a link or session already marked broken was used again. Reconnect to recover.
+/// </summary>
+public sealed class InstrumentLinkException : InstrumentException
+{
+    /// <summary>Creates the exception.</summary>
+    /// <param name="endpoint">What the link was connected to (resource text or device path).</param>
+    /// <param name="message">What went wrong.</param>
+    /// <param name="innerException">The underlying I/O fault, if any.</param>
+    public InstrumentLinkException(string endpoint, string message, Exception? innerException = null)
+        : base($"{endpoint}: {message}", innerException)
+    {
+        Endpoint = endpoint;
+    }
+
+    /// <summary>What the link was connected to (resource text or device path).</summary>
+    public string Endpoint { get; }
+}
