@@ -35,6 +35,7 @@ internal static class SortCommand
         map.Add(command, new Option<bool>("--plain") { Description = "No live view: one plain line per announcement" }, "Sort:Live");
         map.Add(command, new Option<bool>("--no-speech") { Description = "Do not speak announcements" }, "Sort:Speech");
         map.Add(command, new Option<bool>("--web") { Description = "Serve the bench page (default http://127.0.0.1:5080)" }, "Web:Enabled");
+        map.Add(command, new Option<bool>("--stay") { Description = "Keep serving the page after the session ends, until Ctrl+C" }, "Sort:StayAfterFinish");
         map.Add(command, new Option<string>("--web-urls") { Description = "Where the page listens; non-loopback needs SORTRIG_Web__Token" }, "Web:Urls");
         command.SetAction((result, ct) => RunAsync(map.Overrides(result), ct));
         return command;

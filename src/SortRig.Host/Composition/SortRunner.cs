@@ -59,13 +59,13 @@ public static class SortRunner
                 onSimulatorStarted?.Invoke(bench);
             }
 
-            var parsed = ResourceStringParser.Parse(resource);
+            ResourceStringParser.Parse(resource); // a bad resource fails here, before the log is opened
             var connector = new MeterConnector(new MessageLinkFactory(services.Time), services.Time, services.Loggers);
             await using var log = await PrecisionLogFactory.OpenAsync(
                 options.Database,
                 new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
                 ct).ConfigureAwait(false);
-            var cups = new BandCupAssigner(new BandCupOptions(options.Cups, options.MatchTolerance * 1e6, options.Nominal, options.StockTolerance));
+            var cups = new BandCupAssigner(new BandCupOptions(options.Cups, options.MatchTolerance * 1e6, options.Nominal, options.StockTolerance * 100));
             var context = new SortContext(
                 plan,
                 c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),
@@ -78,7 +78,6 @@ public static class SortRunner
                 hands,
                 services.Time,
                 services.Loggers.CreateLogger("SortRig.Host.Sorting"));
-            _ = parsed;
             return await new SortingLoop(context).RunAsync(ct).ConfigureAwait(false);
         }
         finally

@@ -69,6 +69,9 @@ public sealed class SortOptions
     /// <summary>Show the live console view (otherwise one plain line per announcement). Default true when interactive.</summary>
     public bool? Live { get; set; }
 
+    /// <summary>Keep serving the page after the session ends, until stopped (Ctrl+C). Default false.</summary>
+    public bool StayAfterFinish { get; set; }
+
     /// <summary>Speak announcements with espeak-ng when installed. Default true.</summary>
     public bool Speech { get; set; } = true;
 }

@@ -69,8 +69,15 @@ internal sealed partial class SortWorker(
         finally
         {
             await viewStop.CancelAsync().ConfigureAwait(false);
-            lifetime.StopApplication();
         }
+
+        if (sort.StayAfterFinish && ExitCode == 0)
+        {
+            // The page keeps showing the finished session until the operator stops the program.
+            await Task.Delay(Timeout.InfiniteTimeSpan, stoppingToken).ContinueWith(_ => { }, TaskScheduler.Default).ConfigureAwait(false);
+        }
+
+        lifetime.StopApplication();
     }
 
     [LoggerMessage(EventId = 3301, Level = LogLevel.Error, Message = "Sorting failed")]

@@ -1,0 +1,25 @@
+using SortRig.Host.Announcing;
+
+namespace SortRig.Host.Tests.Announcing;
+
+public sealed class OhmsTextTests
+{
+    [Theory]
+    // Engineering prefixes: 1 kOhm = 1e3 Ohm, 1 MOhm = 1e6 Ohm (SI prefixes, BIPM SI Brochure table 7).
+    [InlineData(10_003.21, "10.00321 kOhm")]
+    [InlineData(999.5, "999.5000 Ohm")]
+    [InlineData(1_234_567, "1.234567 MOhm")]
+    public void Format_UsesEngineeringPrefix(double ohms, string expected) =>
+        Assert.Equal(expected, OhmsText.Format(ohms));
+
+    [Fact]
+    public void Format_Overload_SaysOpen() => Assert.Equal("OPEN", OhmsText.Format(double.PositiveInfinity));
+
+    [Theory]
+    // 1 % = 10 000 ppm (definition of ppm, common practice, no source).
+    [InlineData(321.4, "+321 ppm")]
+    [InlineData(-12, "-12 ppm")]
+    [InlineData(25_000, "+2.50 %")]
+    public void Ppm_SwitchesToPercentAboveOnePercent(double ppm, string expected) =>
+        Assert.Equal(expected, OhmsText.Ppm(ppm));
+}
