@@ -8,7 +8,7 @@ namespace SortRig.Storage;
 /// <summary>Opens a precision log on the engine named by a connection string, applying schema migrations.</summary>
 public static class PrecisionLogFactory
 {
-    private const string s_expected =
+    private const string Expected =
         "expected a SQLite file ('Data Source=sortrig.db' or a bare path such as /var/lib/sortrig/log.db) " +
         "or PostgreSQL ('Host=127.0.0.1;Port=5432;Database=sortrig;Username=bench')";
 
@@ -21,7 +21,7 @@ public static class PrecisionLogFactory
     {
         if (string.IsNullOrWhiteSpace(connectionString))
         {
-            throw new ArgumentException($"Connection string is empty; {s_expected}.", nameof(connectionString));
+            throw new ArgumentException($"Connection string is empty; {Expected}.", nameof(connectionString));
         }
 
         if (!connectionString.Contains('=', StringComparison.Ordinal))
@@ -36,7 +36,7 @@ public static class PrecisionLogFactory
         }
         catch (ArgumentException e)
         {
-            throw new ArgumentException($"Connection string is malformed ({e.Message}); {s_expected}.", nameof(connectionString), e);
+            throw new ArgumentException($"Connection string is malformed ({e.Message}); {Expected}.", nameof(connectionString), e);
         }
 
         if (builder.ContainsKey("Host") || builder.ContainsKey("Server"))
@@ -49,7 +49,7 @@ public static class PrecisionLogFactory
             return StorageEngine.Sqlite;
         }
 
-        throw new ArgumentException($"Connection string names no database; {s_expected}.", nameof(connectionString));
+        throw new ArgumentException($"Connection string names no database; {Expected}.", nameof(connectionString));
     }
 
     /// <summary>Opens the log, creating or migrating its schema. Dispose it when done.</summary>

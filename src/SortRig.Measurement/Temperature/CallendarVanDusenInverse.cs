@@ -3,8 +3,8 @@ namespace SortRig.Measurement.Temperature;
 /// <summary>Inverse of the Callendar-Van Dusen relation, T(R).</summary>
 internal static class CallendarVanDusenInverse
 {
-    private const int s_maxIterations = 50;
-    private const double s_toleranceCelsius = 1e-10;
+    private const int MaxIterations = 50;
+    private const double ToleranceCelsius = 1e-10;
 
     public static double Solve(CallendarVanDusen cvd, double ohms)
     {
@@ -34,16 +34,16 @@ internal static class CallendarVanDusenInverse
     private static double Newton(CallendarVanDusen cvd, double ratio, double start)
     {
         double t = start;
-        for (int i = 0; i < s_maxIterations; i++)
+        for (int i = 0; i < MaxIterations; i++)
         {
             double step = (cvd.Ratio(t) - ratio) / cvd.RatioSlope(t);
             t -= step;
-            if (Math.Abs(step) < s_toleranceCelsius)
+            if (Math.Abs(step) < ToleranceCelsius)
             {
                 return t;
             }
         }
 
-        throw new InvalidOperationException($"Callendar-Van Dusen inverse did not converge for R/R0 = {ratio:R} within {s_maxIterations} iterations.");
+        throw new InvalidOperationException($"Callendar-Van Dusen inverse did not converge for R/R0 = {ratio:R} within {MaxIterations} iterations.");
     }
 }

@@ -9,7 +9,7 @@ namespace SortRig.Storage.Postgres;
 /// <summary>PostgreSQL specifics: SQLSTATE classification, array-based drift inserts, server-side checks.</summary>
 internal sealed partial class PostgresPrecisionLog
 {
-    private const int s_driftChunk = 5000;
+    private const int DriftChunk = 5000;
 
     /// <summary>SQLSTATE codes from PostgreSQL 15 manual, Appendix A.</summary>
     private protected override StorageFault Classify(DbException exception, out bool transient)
@@ -42,9 +42,9 @@ internal sealed partial class PostgresPrecisionLog
     private protected override async Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<DriftSample> samples, CancellationToken cancellationToken)
     {
         int inserted = 0;
-        for (int start = 0; start < samples.Count; start += s_driftChunk)
+        for (int start = 0; start < samples.Count; start += DriftChunk)
         {
-            int n = Math.Min(s_driftChunk, samples.Count - start);
+            int n = Math.Min(DriftChunk, samples.Count - start);
             var runs = new long[n];
             var channels = new int[n];
             var times = new DateTimeOffset[n];
