@@ -91,7 +91,8 @@ internal static class SortCommand
             host = ((HostApplicationBuilder)builder).Build();
         }
 
+        var worker = host.Services.GetRequiredService<SortWorker>();
         await host.RunAsync(ct).ConfigureAwait(false);
-        return host.Services.GetRequiredService<SortWorker>().ExitCode;
+        return worker.ExitCode;
     }
 }

@@ -1,5 +1,6 @@
 using System.Net.Sockets;
 using SortRig.Instruments;
+using SortRig.Instruments.Drivers;
 using SortRig.Instruments.Profiles;
 using SortRig.Instruments.Resources;
 using SortRig.Instruments.Scpi;
@@ -13,7 +14,7 @@ internal static class MeterFaults
     /// <summary>True for faults a reconnect can cure; false for configuration mistakes, which must stop the session.</summary>
     public static bool IsFault(Exception e) => e switch
     {
-        ResourceStringException or ProfileException => false,
+        ResourceStringException or ProfileException or InstrumentSetupException => false,
         InstrumentException => true,
         IOException or SocketException or ObjectDisposedException => true,
         _ => false,

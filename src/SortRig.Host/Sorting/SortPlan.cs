@@ -12,7 +12,8 @@ namespace SortRig.Host.Sorting;
 /// <param name="Options">The session's settings.</param>
 /// <param name="Decision">The range rule's decision (range locked for the whole batch).</param>
 /// <param name="Settle">Settle rule options.</param>
-public sealed record SortPlan(SortOptions Options, RangeDecision Decision, SettleOptions Settle)
+/// <param name="Meter">The meter family's metrology.</param>
+public sealed record SortPlan(SortOptions Options, RangeDecision Decision, SettleOptions Settle, MeterSpec Meter)
 {
     /// <summary>Full scale of the locked range, ohms.</summary>
     public double Range => Decision.Range.FullScale;
@@ -53,7 +54,7 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
             Target = SettleTarget.Ppm(Math.Clamp(matchPpm / 200, 0.5, 10)),
             FourWire = options.FourWire,
         };
-        return new SortPlan(options, decision, settle);
+        return new SortPlan(options, decision, settle, meter);
     }
 
     private static string Describe(Remedy r) => r.Kind switch

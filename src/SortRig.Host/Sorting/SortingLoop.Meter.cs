@@ -60,14 +60,18 @@ public sealed partial class SortingLoop
             _tracker.Remeasure();
         }
 
+        _meter = await ConnectWithRetryAsync(ct).ConfigureAwait(false);
+    }
+
+    private async Task<IResistanceMeter> ConnectWithRetryAsync(CancellationToken ct)
+    {
         var backoff = s_firstBackoff;
         while (true)
         {
             ct.ThrowIfCancellationRequested();
             try
             {
-                _meter = await ConnectAsync(ct).ConfigureAwait(false);
-                return;
+                return await ConnectAsync(ct).ConfigureAwait(false);
             }
             catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
             {

@@ -21,8 +21,8 @@ public sealed partial class SortingLoop
             _ctx.Plan.Range,
             _ctx.Plan.Nplc,
             Options.FourWire,
-            _ctx.Plan.Decision.Range.FullScale.ToString("G6", System.Globalization.CultureInfo.InvariantCulture) + " Ohm range",
-            "");
+            _ctx.Plan.Meter.Family,
+            _meterIdentity);
         _batch = state.CurrentBatch is { } current && SameBatch(current.Setup, setup)
             ? current
             : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
@@ -42,7 +42,7 @@ public sealed partial class SortingLoop
         _lastLive = parts.Where(p => p.IsLive).OrderBy(p => p.Number).LastOrDefault();
         _ctx.Snapshot.SetSession(new SessionView(
             _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
-            Options.Profile, setup.MeterFamily, _ctx.Plan.Nplc, PlannedParts, false, false));
+            _meterIdentity, FormattableString.Invariant($"{_ctx.Plan.Range:G6} Ohm"), _ctx.Plan.Nplc, PlannedParts, false, false));
         PublishCounts();
 
         if (state.Resumed)

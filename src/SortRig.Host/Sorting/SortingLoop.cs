@@ -25,6 +25,7 @@ public sealed partial class SortingLoop
     private bool _paused;
     private bool _finishRequested;
     private PartRecord? _lastLive;
+    private string _meterIdentity = "";
     private bool _lastLiveStillInFixture;
 
     public SortingLoop(SortContext context)
@@ -38,9 +39,13 @@ public sealed partial class SortingLoop
     /// <summary>Runs until the planned number of parts is recorded, the operator finishes, or cancellation.</summary>
     public async Task<SortOutcome> RunAsync(CancellationToken cancellationToken)
     {
-        await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
         try
         {
+            // Meet the meter first: the batch records which instrument measured it.
+            _meter = await ConnectWithRetryAsync(cancellationToken).ConfigureAwait(false);
+            var id = await _meter.IdentifyAsync(cancellationToken).ConfigureAwait(false);
+            _meterIdentity = id.ToString();
+            await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
             while (!cancellationToken.IsCancellationRequested && !Done)
             {
                 await HandleCommandsAsync(cancellationToken).ConfigureAwait(false);
