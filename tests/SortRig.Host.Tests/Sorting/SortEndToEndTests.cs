@@ -1,0 +1,123 @@
+using Microsoft.Extensions.Logging.Abstractions;
+using SortRig.Host.Announcing;
+using SortRig.Host.Composition;
+using SortRig.Host.Events;
+using SortRig.Host.Operator;
+using SortRig.Host.Sorting;
+using SortRig.Measurement.Uncertainty;
+using SortRig.Planning.Cups;
+using SortRig.Simulator;
+using SortRig.Storage;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Host.Tests.Sorting;
+
+/// <summary>
+/// The main job end to end: the embedded simulated meter on a real TCP socket, a reel with
+/// handling warm-up, the settle rule, the SQLite log and the cup assigner. The simulator's truth
+/// (its side channel) is the outside reference the cups are checked against.
+/// </summary>
+public sealed class SortEndToEndTests : IDisposable
+{
+    private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-e2e-").FullName;
+
+    public void Dispose() => Directory.Delete(_dir, recursive: true);
+
+    [Fact]
+    public async Task Sort_Reel200_EveryPartInTheCupItsTrueValueCallsFor()
+    {
+        const int parts = 200;
+        var options = new SortOptions
+        {
+            Database = Path.Combine(_dir, "e2e.db"),
+            Session = "e2e",
+            Parts = parts,
+            Seed = 4242,
+            Speed = 40,
+            Speech = false,
+            Live = false,
+        };
+        var time = new ScaledTimeProvider(options.Speed);
+        var announced = new StringWriter();
+        var services = new SortServices(time, new BenchEventHub(time), new BenchSnapshot(), new OperatorCommands(),
+            new PlainTextAnnouncer(announced), NullLoggerFactory.Instance);
+        SimulatedBench? bench = null;
+        var truth = new Dictionary<int, double>();
+        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(6));
+
+        var outcome = await SortRunner.RunAsync(options, services, b => bench = b, timeout.Token);
+        for (var i = 0; i < parts; i++)
+        {
+            truth[i + 1] = bench!.Truth(i);
+        }
+
+        Assert.Equal(parts, outcome.PartsRecorded);
+        await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
+        var stored = await log.GetPartsAsync(outcome.SessionId, default);
+        Assert.Equal(Enumerable.Range(1, parts), stored.Select(p => p.Number));
+        Assert.All(stored, p => Assert.Equal(PartState.Announced, p.State));
+
+        var misplaced = new List<string>();
+        var excused = 0;
+        foreach (var part in stored)
+        {
+            var t = truth[part.Number];
+            var expected = CupFor(options, part.Number, t);
+            if (expected == part.CupLabel)
+            {
+                continue;
+            }
+
+            // A band edge lies between the true and the measured value; it is excused only when the
+            // true value lies within the stated expanded uncertainty of that edge.
+            var edge = EdgeBetween(options, part.Number, t, part.Value);
+            if (Math.Abs(t - edge) <= part.Measured.Expanded)
+            {
+                excused++;
+                continue;
+            }
+
+            misplaced.Add($"part {part.Number}: true {t:F3} -> {expected}, measured {part.Value:F3} ± {part.Measured.Expanded:F3} -> {part.CupLabel}");
+        }
+
+        Assert.Empty(misplaced);
+        Assert.True(excused <= parts / 20, $"{excused} parts sat on a band edge");
+
+        // Every raw reading is kept, and the accepted value is the mean of the last readings logged.
+        foreach (var part in stored)
+        {
+            var readings = await log.GetReadingsAsync(part.Id, default);
+            Assert.True(readings.Count >= 8, $"part {part.Number} has {readings.Count} readings");
+            var window = readings.TakeLast(8).Select(r => r.Value).Average();
+            Assert.Equal(part.Value, window, 6);
+        }
+
+        // Announcements went out once per part, in order.
+        var said = System.Text.RegularExpressions.Regex.Matches(announced.ToString(), @"^part (\d+): cup (\S+) ", System.Text.RegularExpressions.RegexOptions.Multiline)
+            .Select(m => $"{m.Groups[1].Value}:{m.Groups[2].Value}");
+        Assert.Equal(stored.Select(p => $"{p.Number}:{p.CupLabel}"), said);
+    }
+
+    private static string CupFor(SortOptions o, long number, double ohms) =>
+        new BandCupAssigner(new BandCupOptions(o.Cups, o.MatchTolerance * 1e6, o.Nominal, o.StockTolerance * 100))
+            .Assign(new CupRequest(number, o.Nominal, new MeasuredValue(ohms, 0, 0))).CupLabel;
+
+    private static double EdgeBetween(SortOptions o, long number, double a, double b)
+    {
+        var cupA = CupFor(o, number, a);
+        for (var i = 0; i < 60; i++)
+        {
+            var mid = (a + b) / 2;
+            if (CupFor(o, number, mid) == cupA)
+            {
+                a = mid;
+            }
+            else
+            {
+                b = mid;
+            }
+        }
+
+        return (a + b) / 2;
+    }
+}
