@@ -1,0 +1,139 @@
+using SortRig.Planning.Recipes;
+
+namespace SortRig.Planning.Assembly;
+
+/// <summary>
+/// The fast path. Pass 1: singles only, by the interval sweep. Pass 2 (recipes allowing pairs): leftover parts of
+/// each pair nominal are paired lowest-with-highest (a high part and a low one make a centred pair) and swept with
+/// the leftover singles. Pass 3: singles again with the parts of unused pairs. Every set is then arranged onto
+/// positions (network form: parts nearest the common point go to the most sensitive positions) and verified.
+/// </summary>
+internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule rule, AssemblyOptions options)
+{
+    private readonly SweepGeometry _geo = new(recipe, rule);
+    private readonly bool[] _used = new bool[pool.Usable.Count];
+
+    public bool ProvenOptimal { get; private set; }
+
+    public int Dropped { get; private set; }
+
+    public List<(Option[] Fills, SetVerdict Verdict)> Run()
+    {
+        var result = new List<(Option[], SetVerdict)>();
+        var singles = Singles(exclude: null);
+        var anyPairs = recipe.Positions.Any(p => p.Pairs != PairBuilds.None);
+        ProvenOptimal = recipe.Form == RecipeForm.Matched && !anyPairs && IntervalSweep.AllProper(singles, _geo.Demand.Length);
+        Take(IntervalSweep.Run(singles, _geo.Demand, _geo.PairCaps), result);
+        if (anyPairs)
+        {
+            var paired = new bool[_used.Length];
+            var pairs = Pairs(paired);
+            Take(IntervalSweep.Run(Singles(paired).Concat(pairs).ToList(), _geo.Demand, _geo.PairCaps), result);
+            Take(IntervalSweep.Run(Singles(exclude: null), _geo.Demand, _geo.PairCaps), result);
+        }
+
+        return result;
+    }
+
+    private List<SweepItem> Singles(bool[]? exclude)
+    {
+        var items = new List<SweepItem>();
+        for (var i = 0; i < _used.Length; i++)
+        {
+            var cls = Array.FindIndex(_geo.Nominals, n => options.SameNominal(pool.Usable[i].Nominal, n));
+            if (!_used[i] && exclude?[i] != true && cls >= 0 && _geo.Item(cls, Option.Single(i, pool.Usable[i]), 0) is { } item)
+            {
+                items.Add(item);
+            }
+        }
+
+        return items;
+    }
+
+    private List<SweepItem> Pairs(bool[] paired)
+    {
+        var items = new List<SweepItem>();
+        for (var j = 0; j < _geo.Nominals.Length; j++)
+        {
+            foreach (var (build, kind) in new[] { (PositionBuild.Series, 1), (PositionBuild.Parallel, 2) })
+            {
+                if (_geo.PairCaps[j, kind - 1] + _geo.PairCaps[j, 2] == 0)
+                {
+                    continue;
+                }
+
+                var source = PositionSpec.PartNominal(_geo.Nominals[j], build);
+                var free = Enumerable.Range(0, _used.Length)
+                    .Where(i => !_used[i] && !paired[i] && options.SameNominal(pool.Usable[i].Nominal, source))
+                    .OrderBy(i => pool.Usable[i].Value.Value).ToArray();
+                for (int lo = 0, hi = free.Length - 1; lo < hi; lo++, hi--)
+                {
+                    var o = Option.Pair(build, free[lo], pool.Usable[free[lo]], free[hi], pool.Usable[free[hi]]);
+                    if (_geo.Item(j, o, kind) is { } item)
+                    {
+                        items.Add(item);
+                        paired[free[lo]] = paired[free[hi]] = true;
+                    }
+                }
+            }
+        }
+
+        return items;
+    }
+
+    private void Take(List<List<SweepItem>> sets, List<(Option[], SetVerdict)> result)
+    {
+        foreach (var set in sets)
+        {
+            var fills = Arrange(set);
+            var verdict = rule.Judge(fills);
+            if (!verdict.Meets)
+            {
+                Dropped++;
+                continue;
+            }
+
+            foreach (var f in fills)
+            {
+                _used[f.A] = true;
+                if (f.B >= 0)
+                {
+                    _used[f.B] = true;
+                }
+            }
+
+            result.Add((fills, verdict));
+        }
+    }
+
+    private Option[] Arrange(List<SweepItem> set)
+    {
+        var fills = new Option[recipe.Positions.Count];
+        var centre = (set.Max(i => i.Left) + set.Min(i => i.Right)) / 2;
+        for (var j = 0; j < _geo.Nominals.Length; j++)
+        {
+            var free = Enumerable.Range(0, fills.Length).Where(k => _geo.ClassOf[k] == j).ToList();
+            var mine = set.Where(i => i.Class == j).ToList();
+            foreach (var (kind, flag) in new[] { (1, PairBuilds.Series), (2, PairBuilds.Parallel) })
+            {
+                foreach (var it in mine.Where(i => i.Kind == kind))
+                {
+                    // Positions allowing only this build first, then those allowing both.
+                    var k = free.OrderBy(k => recipe.Positions[k].Pairs == flag ? 0 : 1)
+                        .First(k => recipe.Positions[k].Pairs.HasFlag(flag));
+                    fills[k] = it.Option;
+                    free.Remove(k);
+                }
+            }
+
+            var singles = mine.Where(i => i.Kind == 0).OrderBy(i => Math.Abs(_geo.Z(j, i.Option) - centre)).ToList();
+            var byWeight = free.OrderByDescending(k => _geo.Weights[k]).ToList();
+            for (var s = 0; s < singles.Count; s++)
+            {
+                fills[byWeight[s]] = singles[s].Option;
+            }
+        }
+
+        return fills;
+    }
+}
