@@ -5,7 +5,8 @@ namespace SortRig.Planning.Assembly;
 /// <summary>
 /// The fast path. Pass 1: singles only, by the interval sweep. Pass 2 (recipes allowing pairs): leftover parts of
 /// each pair nominal are paired lowest-with-highest (a high part and a low one make a centred pair) and swept with
-/// the leftover singles. Pass 3: singles again with the parts of unused pairs. Every set is then arranged onto
+/// the leftover singles; the share of each pool paired (from the extremes inwards) is tried in eighths and the best
+/// kept. Pass 3: singles again with the parts of unused pairs. Every set is then arranged onto
 /// positions (network form: parts nearest the common point go to the most sensitive positions) and verified.
 /// </summary>
 internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule rule, AssemblyOptions options)
@@ -26,9 +27,17 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
         Take(IntervalSweep.Run(singles, _geo.Demand, _geo.PairCaps), result);
         if (anyPairs)
         {
-            var paired = new bool[_used.Length];
-            var pairs = Pairs(paired);
-            Take(IntervalSweep.Run(Singles(paired).Concat(pairs).ToList(), _geo.Demand, _geo.PairCaps), result);
+            // Try pairing the most extreme leftovers in steps of 1/8 of each pool; keep the step with most sets.
+            List<List<SweepItem>> best = [];
+            for (var eighths = 1; eighths <= 8; eighths++)
+            {
+                var paired = new bool[_used.Length];
+                var pairs = Pairs(paired, eighths / 8.0);
+                var sets = IntervalSweep.Run(Singles(paired).Concat(pairs).ToList(), _geo.Demand, _geo.PairCaps);
+                best = sets.Count > best.Count ? sets : best;
+            }
+
+            Take(best, result);
             Take(IntervalSweep.Run(Singles(exclude: null), _geo.Demand, _geo.PairCaps), result);
         }
 
@@ -50,7 +59,7 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
         return items;
     }
 
-    private List<SweepItem> Pairs(bool[] paired)
+    private List<SweepItem> Pairs(bool[] paired, double fraction)
     {
         var items = new List<SweepItem>();
         for (var j = 0; j < _geo.Nominals.Length; j++)
@@ -66,7 +75,8 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
                 var free = Enumerable.Range(0, _used.Length)
                     .Where(i => !_used[i] && !paired[i] && options.SameNominal(pool.Usable[i].Nominal, source))
                     .OrderBy(i => pool.Usable[i].Value.Value).ToArray();
-                for (int lo = 0, hi = free.Length - 1; lo < hi; lo++, hi--)
+                var count = (int)Math.Round(free.Length * fraction / 2);
+                for (int lo = 0, hi = free.Length - 1; lo < hi && lo < count; lo++, hi--)
                 {
                     var o = Option.Pair(build, free[lo], pool.Usable[free[lo]], free[hi], pool.Usable[free[hi]]);
                     if (_geo.Item(j, o, kind) is { } item)
