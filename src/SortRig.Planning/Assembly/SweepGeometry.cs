@@ -5,13 +5,13 @@ namespace SortRig.Planning.Assembly;
 /// <summary>
 /// Maps a recipe onto the sweep's one-dimensional axis z = ln(value / position nominal). Classes are the distinct
 /// position nominals. Matched form: the interval is exact, [ln((x+U)/n) − W/2, ln((x−U)/n) + W/2] with
-/// W = ln(1 + tolerance). Network form: a sufficient linearised window of half-width h = min over outputs of
-/// (tolerance − |error at nominal|) / Σ|∂Error/∂ln R| (outputs do not change when all parts move together), so
-/// any set whose parts share a point c within h − U/x passes to first order; sets are verified afterwards.
+/// W = ln(1 + tolerance). Network form: outputs do not change when all parts move together, so a set whose parts
+/// all lie within h − U/x of a common point c meets every output to first order when
+/// h = min over outputs of (tolerance − |error at nominal|) / Σ_k |∂Error/∂ln R_k|. Sets are verified afterwards.
 /// </summary>
 internal sealed class SweepGeometry
 {
-    private readonly double _halfWidth;
+    private readonly double[] _halfWidth;
     private readonly bool _matched;
 
     public SweepGeometry(Recipe recipe, ISetRule rule)
@@ -33,25 +33,30 @@ internal sealed class SweepGeometry
 
         if (_matched)
         {
-            _halfWidth = Math.Log(1 + (recipe.MatchTolerancePpm * 1e-6)) / 2;
+            _halfWidth = Enumerable.Repeat(Math.Log(1 + (recipe.MatchTolerancePpm * 1e-6)) / 2, Nominals.Length).ToArray();
             return;
         }
 
         var network = ((NetworkRule)rule).Network;
         var outputs = network.Evaluate(recipe.Positions.Select(p => p.Nominal).ToArray());
-        _halfWidth = double.PositiveInfinity;
+        _halfWidth = Enumerable.Repeat(0.5, Nominals.Length).ToArray();
         foreach (var o in outputs)
         {
+            // One common half-width: Σ_k |∂Error/∂ln R_k| h ≤ tolerance − |error at nominal|. (An equal share per
+            // class was tried and found no better on the gap benchmark; see docs/bench-planning.md.)
             var relative = o.ErrorGradient.Select((g, k) => Math.Abs(g * recipe.Positions[k].Nominal)).ToArray();
-            var budget = o.Tolerance - Math.Abs(o.Error);
-            _halfWidth = Math.Min(_halfWidth, relative.Sum() > 0 ? budget / relative.Sum() : (budget > 0 ? double.PositiveInfinity : 0));
+            var budget = Math.Max(0, o.Tolerance - Math.Abs(o.Error));
+            var h = relative.Sum() > 0 ? budget / relative.Sum() : 0.5;
+            for (var j = 0; j < Nominals.Length; j++)
+            {
+                _halfWidth[j] = Math.Min(_halfWidth[j], h);
+            }
+
             for (var k = 0; k < Weights.Length; k++)
             {
                 Weights[k] = Math.Max(Weights[k], relative[k] / o.Tolerance);
             }
         }
-
-        _halfWidth = Math.Min(_halfWidth, 0.5);
     }
 
     public double[] Nominals { get; }
@@ -82,13 +87,13 @@ internal sealed class SweepGeometry
                 return null;
             }
 
-            left = Math.Log((o.Value + o.Uncertainty) / Nominals[cls]) - _halfWidth;
-            right = Math.Log((o.Value - o.Uncertainty) / Nominals[cls]) + _halfWidth;
+            left = Math.Log((o.Value + o.Uncertainty) / Nominals[cls]) - _halfWidth[cls];
+            right = Math.Log((o.Value - o.Uncertainty) / Nominals[cls]) + _halfWidth[cls];
         }
         else
         {
             var z = Z(cls, o);
-            var room = _halfWidth - (o.Uncertainty / o.Value);
+            var room = _halfWidth[cls] - (o.Uncertainty / o.Value);
             (left, right) = (z - room, z + room);
         }
 

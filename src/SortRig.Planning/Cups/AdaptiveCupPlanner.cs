@@ -6,9 +6,9 @@ namespace SortRig.Planning.Cups;
 
 /// <summary>
 /// Online cup planner that learns each nominal's spread. While the first <see cref="AdaptiveCupOptions.LearnCount"/>
-/// parts of a nominal arrive, a part opens a band on the centred grid (as <see cref="BandCupAssigner"/> would) for at
-/// most half the cups; once learned, the other cups get bands placed where the learned distribution is densest
-/// (<see cref="BandPlacer"/>), never overlapping a band that already holds parts; at twice, four times ... the learn
+/// parts of a nominal arrive, parts go to the centred bands of <see cref="BandCupAssigner"/>; then every cup still
+/// empty gets a new band where the learned distribution is densest (<see cref="BandPlacer"/>), never overlapping a
+/// band that already holds parts; at twice, four times ... the learn
 /// count, the bands of cups still empty are placed again with the larger sample. No band edge ever moves under parts
 /// already sorted. Each nominal has its own K cups (one reel at a time); everything else goes to "R".
 /// </summary>

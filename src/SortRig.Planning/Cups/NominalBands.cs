@@ -19,16 +19,21 @@ internal sealed class NominalBands(double nominal, AdaptiveCupOptions options)
 
     public Band? Find(double dev) => Bands.FirstOrDefault(b => dev >= b.Lo && dev < b.Hi);
 
-    /// <summary>While learning: opens the centred-grid band holding <paramref name="dev"/>, for at most half the cups.</summary>
+    /// <summary>
+    /// Before the first learning: opens the centred-grid band holding <paramref name="dev"/> (the layout of
+    /// <see cref="BandCupAssigner"/>, band i labelled as cup i); null outside the K centred bands.
+    /// </summary>
     public Band? TryOpenGridBand(double dev)
     {
-        if (Bands.Count >= (options.CupCount + 1) / 2)
+        var i = (int)Math.Floor((dev - Anchor) / Width);
+        if (i < 0 || i >= options.CupCount || Bands.Any(b => b.Index == i))
         {
             return null;
         }
 
-        var lo = Anchor + (Math.Floor((dev - Anchor) / Width) * Width);
-        return Open(lo, lo + Width);
+        var band = new Band(i, CupLabels.For(i), Anchor + (i * Width), Anchor + ((i + 1) * Width));
+        Bands.Add(band);
+        return band;
     }
 
     /// <summary>True when the sample count has reached the learn count times a power of two.</summary>

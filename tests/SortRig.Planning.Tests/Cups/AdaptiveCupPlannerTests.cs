@@ -52,7 +52,7 @@ public sealed class AdaptiveCupPlannerTests
     [Fact]
     public void Bands_AreDisjoint_NoWiderThanTheTolerance_AndCupsHoldMatchedParts()
     {
-        var reel = Reel(2, 800, 3300, gap: 0, offset: -2500);
+        var reel = Reel(2, 800, 1500, gap: 0, offset: -6000);
         var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad));
         var byCup = new Dictionary<string, List<double>>();
         for (var i = 0; i < reel.Count; i++)
@@ -68,7 +68,7 @@ public sealed class AdaptiveCupPlannerTests
         Assert.All(bands, b => Assert.True(b.HighPpm - b.LowPpm <= 1000 + 1e-9));
         Assert.All(bands.Zip(bands.Skip(1)), t => Assert.True(t.First.HighPpm <= t.Second.LowPpm + 1e-9));
         Assert.All(byCup.Values, l => Assert.True(l.Max() - l.Min() < 1000));
-        Assert.True(bands.Average(b => (b.LowPpm + b.HighPpm) / 2) < -1000, "bands follow the reel's offset");
+        Assert.True(bands.Average(b => (b.LowPpm + b.HighPpm) / 2) < -3000, "bands follow the reel's offset out of the centred layout");
     }
 
     [Fact]
