@@ -32,7 +32,7 @@ public sealed class CpSatRefereeTests
     {
         var rng = new Random(90_000 + seed);
         var recipe = RecipeLoader.Load($"recipe: cp{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}", "cp.yaml");
-        var parts = Enumerable.Range(1, rng.Next(10, 14)).Select(i =>
+        var parts = Enumerable.Range(1, rng.Next(9, 13)).Select(i =>
         {
             var n = rng.Next(3) == 0 ? 20e3 : 10e3;
             var v = n * (1 + (700e-6 * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble())));

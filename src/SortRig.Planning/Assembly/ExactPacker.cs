@@ -4,29 +4,25 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Planning.Assembly;
 
 /// <summary>
-/// Exact search for small instances: enumerates every feasible assignment (pruned by the ratio window in the matched
-/// form, identical positions taken in canonical order), keeps the best-scoring assignment per part subset, then packs
-/// subsets by memoised branching on the lowest free part (take it in some set, or leave it unused).
+/// Exact packing for small instances: from every feasible part subset (<see cref="FeasibleSets"/>), branches on the
+/// lowest free part (leave it unused, or take one set containing it), memoised on the set of free parts.
 /// Maximises the set count, then minimises the sum of set scores. Returns null when a limit is exceeded.
 /// </summary>
 internal sealed class ExactPacker(Recipe recipe, CandidatePool pool, ISetRule rule, AssemblyOptions limits)
 {
-    private readonly List<(ulong Mask, double Score, Option[] Fills, SetVerdict Verdict)> _sets = [];
-    private readonly Dictionary<ulong, int> _bestByMask = [];
     private readonly Dictionary<ulong, (int Count, double Score, int Choice)> _memo = [];
+    private List<(ulong Mask, double Score, Option[] Fills, SetVerdict Verdict)> _sets = [];
     private List<int>[] _byPart = [];
-    private long _leaves;
 
     public List<(Option[] Fills, SetVerdict Verdict)>? Solve()
     {
-        var fills = new Option[recipe.Positions.Count];
-        var symmetric = recipe.Positions.Select((p, k) => rule is MatchedRule && k > 0
-            && p.Nominal == recipe.Positions[k - 1].Nominal && p.Pairs == recipe.Positions[k - 1].Pairs).ToArray();
-        if (!Enumerate(0, 0UL, fills, symmetric, double.PositiveInfinity, double.NegativeInfinity, -1))
+        var feasible = new FeasibleSets(recipe, pool, rule, limits);
+        if (!feasible.Enumerate())
         {
             return null;
         }
 
+        _sets = feasible.Sets;
         _byPart = Enumerable.Range(0, pool.Usable.Count).Select(_ => new List<int>()).ToArray();
         for (var s = 0; s < _sets.Count; s++)
         {
@@ -61,65 +57,6 @@ internal sealed class ExactPacker(Recipe recipe, CandidatePool pool, ISetRule ru
         }
 
         return result;
-    }
-
-    private bool Enumerate(int k, ulong used, Option[] fills, bool[] symmetric, double lo, double hi, int previous)
-    {
-        if (k == fills.Length)
-        {
-            if (++_leaves > limits.ExactSetLimit)
-            {
-                return false;
-            }
-
-            var verdict = rule.Judge(fills);
-            if (!verdict.Meets)
-            {
-                return true;
-            }
-
-            var entry = (used, verdict.Score, (Option[])fills.Clone(), verdict);
-            if (!_bestByMask.TryGetValue(used, out var at))
-            {
-                _bestByMask[used] = _sets.Count;
-                _sets.Add(entry);
-            }
-            else if (verdict.Score < _sets[at].Score)
-            {
-                _sets[at] = entry;
-            }
-
-            return true;
-        }
-
-        var options = pool.Options[k];
-        for (var i = symmetric[k] ? previous + 1 : 0; i < options.Count; i++)
-        {
-            var o = options[i];
-            if ((o.Mask & used) != 0)
-            {
-                continue;
-            }
-
-            double nlo = lo, nhi = hi;
-            if (rule is MatchedRule m)
-            {
-                nlo = Math.Min(lo, m.Lo(k, o));
-                nhi = Math.Max(hi, m.Hi(k, o));
-                if (nhi - nlo > m.Window * (1 + 1e-9))
-                {
-                    continue;
-                }
-            }
-
-            fills[k] = o;
-            if (!Enumerate(k + 1, used | o.Mask, fills, symmetric, nlo, nhi, i))
-            {
-                return false;
-            }
-        }
-
-        return true;
     }
 
     private (int Count, double Score) Best(ulong avail)

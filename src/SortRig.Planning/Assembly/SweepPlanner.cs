@@ -95,7 +95,7 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
     {
         foreach (var set in sets)
         {
-            var fills = Arrange(set);
+            var fills = SweepArrangement.Arrange(recipe, _geo, set);
             var verdict = rule.Judge(fills);
             if (!verdict.Meets)
             {
@@ -114,36 +114,5 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
 
             result.Add((fills, verdict));
         }
-    }
-
-    private Option[] Arrange(List<SweepItem> set)
-    {
-        var fills = new Option[recipe.Positions.Count];
-        var centre = (set.Max(i => i.Left) + set.Min(i => i.Right)) / 2;
-        for (var j = 0; j < _geo.Nominals.Length; j++)
-        {
-            var free = Enumerable.Range(0, fills.Length).Where(k => _geo.ClassOf[k] == j).ToList();
-            var mine = set.Where(i => i.Class == j).ToList();
-            foreach (var (kind, flag) in new[] { (1, PairBuilds.Series), (2, PairBuilds.Parallel) })
-            {
-                foreach (var it in mine.Where(i => i.Kind == kind))
-                {
-                    // Positions allowing only this build first, then those allowing both.
-                    var k = free.OrderBy(k => recipe.Positions[k].Pairs == flag ? 0 : 1)
-                        .First(k => recipe.Positions[k].Pairs.HasFlag(flag));
-                    fills[k] = it.Option;
-                    free.Remove(k);
-                }
-            }
-
-            var singles = mine.Where(i => i.Kind == 0).OrderBy(i => Math.Abs(_geo.Z(j, i.Option) - centre)).ToList();
-            var byWeight = free.OrderByDescending(k => _geo.Weights[k]).ToList();
-            for (var s = 0; s < singles.Count; s++)
-            {
-                fills[byWeight[s]] = singles[s].Option;
-            }
-        }
-
-        return fills;
     }
 }
