@@ -1,3 +1,10 @@
 // Benchmarks are added by the issues that own them; each writes its results table under docs/.
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>");
+using SortRig.Bench.Planning;
+
+if (args.Length > 0 && args[0] == "planning")
+{
+    return await PlanningBenchmark.RunAsync(CancellationToken.None);
+}
+
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning)");
 return 0;

@@ -1,0 +1,118 @@
+using SortRig.Planning.Recipes;
+
+namespace SortRig.Planning.Assembly;
+
+/// <summary>
+/// The fast path. Pass 1: singles only, by the interval sweep. Pass 2 (recipes allowing pairs): leftover parts of
+/// each pair nominal are paired lowest-with-highest (a high part and a low one make a centred pair) and swept with
+/// the leftover singles; the share of each pool paired (from the extremes inwards) is tried in eighths and the best
+/// kept. Pass 3: singles again with the parts of unused pairs. Every set is then arranged onto
+/// positions (network form: parts nearest the common point go to the most sensitive positions) and verified.
+/// </summary>
+internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule rule, AssemblyOptions options)
+{
+    private readonly SweepGeometry _geo = new(recipe, rule);
+    private readonly bool[] _used = new bool[pool.Usable.Count];
+
+    public bool ProvenOptimal { get; private set; }
+
+    public int Dropped { get; private set; }
+
+    public List<(Option[] Fills, SetVerdict Verdict)> Run()
+    {
+        var result = new List<(Option[], SetVerdict)>();
+        var singles = Singles(exclude: null);
+        var anyPairs = recipe.Positions.Any(p => p.Pairs != PairBuilds.None);
+        ProvenOptimal = recipe.Form == RecipeForm.Matched && !anyPairs && IntervalSweep.AllProper(singles, _geo.Demand.Length);
+        Take(IntervalSweep.Run(singles, _geo.Demand, _geo.PairCaps), result);
+        if (anyPairs)
+        {
+            // Try pairing the most extreme leftovers in steps of 1/8 of each pool; keep the step with most sets.
+            List<List<SweepItem>> best = [];
+            for (var eighths = 1; eighths <= 8; eighths++)
+            {
+                var paired = new bool[_used.Length];
+                var pairs = Pairs(paired, eighths / 8.0);
+                var sets = IntervalSweep.Run(Singles(paired).Concat(pairs).ToList(), _geo.Demand, _geo.PairCaps);
+                best = sets.Count > best.Count ? sets : best;
+            }
+
+            Take(best, result);
+            Take(IntervalSweep.Run(Singles(exclude: null), _geo.Demand, _geo.PairCaps), result);
+        }
+
+        return result;
+    }
+
+    private List<SweepItem> Singles(bool[]? exclude)
+    {
+        var items = new List<SweepItem>();
+        for (var i = 0; i < _used.Length; i++)
+        {
+            var cls = Array.FindIndex(_geo.Nominals, n => options.SameNominal(pool.Usable[i].Nominal, n));
+            if (!_used[i] && exclude?[i] != true && cls >= 0 && _geo.Item(cls, Option.Single(i, pool.Usable[i]), 0) is { } item)
+            {
+                items.Add(item);
+            }
+        }
+
+        return items;
+    }
+
+    private List<SweepItem> Pairs(bool[] paired, double fraction)
+    {
+        var items = new List<SweepItem>();
+        for (var j = 0; j < _geo.Nominals.Length; j++)
+        {
+            foreach (var (build, kind) in new[] { (PositionBuild.Series, 1), (PositionBuild.Parallel, 2) })
+            {
+                if (_geo.PairCaps[j, kind - 1] + _geo.PairCaps[j, 2] == 0)
+                {
+                    continue;
+                }
+
+                var source = PositionSpec.PartNominal(_geo.Nominals[j], build);
+                var free = Enumerable.Range(0, _used.Length)
+                    .Where(i => !_used[i] && !paired[i] && options.SameNominal(pool.Usable[i].Nominal, source))
+                    .OrderBy(i => pool.Usable[i].Value.Value).ToArray();
+                var count = (int)Math.Round(free.Length * fraction / 2);
+                for (int lo = 0, hi = free.Length - 1; lo < hi && lo < count; lo++, hi--)
+                {
+                    var o = Option.Pair(build, free[lo], pool.Usable[free[lo]], free[hi], pool.Usable[free[hi]]);
+                    if (_geo.Item(j, o, kind) is { } item)
+                    {
+                        items.Add(item);
+                        paired[free[lo]] = paired[free[hi]] = true;
+                    }
+                }
+            }
+        }
+
+        return items;
+    }
+
+    private void Take(List<List<SweepItem>> sets, List<(Option[], SetVerdict)> result)
+    {
+        foreach (var set in sets)
+        {
+            var fills = SweepArrangement.Arrange(recipe, _geo, set);
+            var verdict = rule.Judge(fills);
+            if (!verdict.Meets)
+            {
+                Dropped++;
+                continue;
+            }
+
+            foreach (var f in fills)
+            {
+                _used[f.A] = true;
+                if (f.B >= 0)
+                {
+                    _used[f.B] = true;
+                }
+            }
+
+            result.Add((fills, verdict));
+        }
+    }
+}

@@ -1,0 +1,90 @@
+using SortRig.Planning.Cups;
+using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
+
+namespace SortRig.Planning.Tests.Cups;
+
+public sealed class AdaptiveCupPlannerTests
+{
+    private static readonly Dictionary<double, int> s_quad = new() { [10e3] = 4 };
+
+    /// <summary>Deviations in ppm: normal(σ), or with the centre (|x| &lt; gap) missing, all inside ±10 000 ppm.</summary>
+    private static List<double> Reel(int seed, int n, double sigma, double gap, double offset = 0)
+    {
+        var rng = new Random(seed);
+        var result = new List<double>();
+        while (result.Count < n)
+        {
+            var x = offset + (sigma * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble()));
+            if (Math.Abs(x) >= gap && Math.Abs(x) <= 10_000)
+            {
+                result.Add(x);
+            }
+        }
+
+        return result;
+    }
+
+    private static int Sets(ICupAssigner a, List<double> reel)
+    {
+        for (var i = 0; i < reel.Count; i++)
+        {
+            a.Assign(Part(i + 1, 10e3, reel[i]));
+        }
+
+        return a.Counts.Where(c => !c.IsReject).Sum(c => c.Count / 4);
+    }
+
+    [Fact]
+    public void BimodalReel_NoBandInTheEmptyCentre_AndMoreSetsThanFixedBands()
+    {
+        var reel = Reel(1, 1000, 5000, gap: 4000);
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(12, 1000, 1.0, s_quad));
+        var adaptive = Sets(planner, reel);
+        var fixedBands = Sets(new BandCupAssigner(new BandCupOptions(12, 1000, 10e3, 1.0)), reel);
+        var bands = planner.Bands(10e3);
+        Assert.Equal(12, bands.Count);
+        Assert.False(bands.Any(b => b.HighPpm > -4000 && b.LowPpm < 4000), string.Join(" ", bands.Select(b => $"[{b.LowPpm:0},{b.HighPpm:0})")));
+        // 12 bands of 1000 ppm can cover both humps [4000, 10000] exactly: at most 3 parts left per cup (9 sets) plus
+        // parts lost while learning, so at least 90 % of the 250 quads; centred fixed bands reach only ±6000 ppm.
+        Assert.True(adaptive >= 225 && adaptive > 1.5 * fixedBands, $"adaptive {adaptive} sets, fixed bands {fixedBands}");
+    }
+
+    [Fact]
+    public void Bands_AreDisjoint_NoWiderThanTheTolerance_AndCupsHoldMatchedParts()
+    {
+        var reel = Reel(2, 800, 1500, gap: 0, offset: -6000);
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad));
+        var byCup = new Dictionary<string, List<double>>();
+        for (var i = 0; i < reel.Count; i++)
+        {
+            var d = planner.Assign(Part(i + 1, 10e3, reel[i]));
+            if (!d.IsReject)
+            {
+                (byCup.TryGetValue(d.CupLabel, out var l) ? l : byCup[d.CupLabel] = []).Add(reel[i]);
+            }
+        }
+
+        var bands = planner.Bands(10e3);
+        Assert.All(bands, b => Assert.True(b.HighPpm - b.LowPpm <= 1000 + 1e-9));
+        Assert.All(bands.Zip(bands.Skip(1)), t => Assert.True(t.First.HighPpm <= t.Second.LowPpm + 1e-9));
+        Assert.All(byCup.Values, l => Assert.True(l.Max() - l.Min() < 1000));
+        Assert.True(bands.Average(b => (b.LowPpm + b.HighPpm) / 2) < -3000, "bands follow the reel's offset out of the centred layout");
+    }
+
+    [Fact]
+    public void CompletesSet_WhenACupReachesFourParts()
+    {
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad, learnCount: 4));
+        var flags = Enumerable.Range(1, 8).Select(n => planner.Assign(Part(n, 10e3, 300)).CompletesSet).ToList();
+        Assert.Equal([false, false, false, true, false, false, false, true], flags);
+    }
+
+    [Fact]
+    public void NominalNotInThePlan_IsRejected()
+    {
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad));
+        var d = planner.Assign(Part(1, 4.7e3, 0));
+        Assert.True(d.IsReject);
+        Assert.Contains("not in the plan", d.Reason, StringComparison.Ordinal);
+    }
+}
