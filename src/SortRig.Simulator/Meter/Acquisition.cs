@@ -115,23 +115,37 @@ internal sealed class Acquisition
     /// <summary>ABORt, *RST, CONFigure: stops a run and forgets the reading memory.</summary>
     public void Abort()
     {
+        CancellationTokenSource? cts;
         lock (_gate)
         {
-            _cts?.Cancel();
+            cts = _cts;
             _trigger?.TrySetCanceled();
             (_run, _trigger) = (null, null);
             _blockedOnBus = NewSignal();
         }
+
+        try
+        {
+            cts?.Cancel();
+        }
+        catch (ObjectDisposedException)
+        {
+            // A newer run already replaced it.
+        }
     }
 
+    /// <summary>Readings follow a schedule on the bench clock: each aperture starts when the previous one ended.</summary>
     private async Task<IReadOnlyList<double>> RunAsync(MeterSettings settings, int?[] targets, bool scanning, CancellationToken ct)
     {
         var readings = new List<double>();
+        var duration = _engine.ReadingDuration(settings);
+        var cursor = _engine.Now;
         for (var t = 0; t < settings.TriggerCount; t++)
         {
             if (settings.TriggerSource == TriggerSource.Bus)
             {
                 await WaitForBusTriggerAsync(ct).ConfigureAwait(false);
+                cursor = _engine.Now > cursor ? _engine.Now : cursor;
             }
 
             foreach (var target in targets)
@@ -139,12 +153,13 @@ internal sealed class Acquisition
                 if (scanning)
                 {
                     _state.ClosedChannel = target;
-                    await Task.Delay(IntegrationTiming.ChannelSwitch, _engine.Time, ct).ConfigureAwait(false);
+                    cursor += IntegrationTiming.ChannelSwitch;
                 }
 
                 for (var s = 0; s < settings.SampleCount; s++)
                 {
-                    readings.Add(await _engine.ReadAsync(target, ct).ConfigureAwait(false));
+                    cursor += duration;
+                    readings.Add(await _engine.ReadAtAsync(target, cursor, settings, ct).ConfigureAwait(false));
                 }
             }
         }

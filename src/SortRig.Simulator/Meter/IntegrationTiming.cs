@@ -13,7 +13,7 @@ internal static class IntegrationTiming
 
     public static TimeSpan Reading(double nplc, bool autoZero, double lineHz)
     {
-        var aperture = nplc / lineHz;
-        return TimeSpan.FromSeconds(aperture * (autoZero ? 2 : 1)) + Overhead;
+        var seconds = nplc / lineHz * (autoZero ? 2 : 1);
+        return TimeSpan.FromTicks((long)Math.Round(seconds * TimeSpan.TicksPerSecond)) + Overhead;
     }
 }

@@ -23,26 +23,42 @@ internal sealed class MeasurementEngine
         (_lineHz, _leadOhms) = (lineHz, leadOhms);
     }
 
-    public TimeProvider Time => _env.Time;
+    public DateTimeOffset Now => _env.Now;
 
     public TimeSpan ReadingDuration(MeterSettings settings) =>
         IntegrationTiming.Reading(settings.Active.Nplc, settings.AutoZero, _lineHz);
 
-    /// <summary>One reading of the front fixture (channel null) or a scanner channel, in ohms or 9.9E37.</summary>
-    public async Task<double> ReadAsync(int? channel, CancellationToken ct)
+    /// <summary>
+    /// One reading of the front fixture (channel null) or a scanner channel whose aperture ends at
+    /// <paramref name="end"/>: waits until then on the bench clock and samples the input at exactly
+    /// that instant, so that readings on a virtual clock do not depend on thread scheduling.
+    /// Returns ohms or 9.9E37.
+    /// </summary>
+    public async Task<double> ReadAtAsync(int? channel, DateTimeOffset end, MeterSettings settings, CancellationToken ct)
     {
-        var settings = _state.Settings;
-        await Task.Delay(ReadingDuration(settings), _env.Time, ct).ConfigureAwait(false);
-        var input = channel is int c ? _scanner.Sample(c, _env.Now, _bounce) : _fixture.Sample(_env.Now, _bounce);
+        await WaitUntilAsync(end, ct).ConfigureAwait(false);
+        var input = channel is int c ? _scanner.Sample(c, end, _bounce) : _fixture.Sample(end, _bounce);
         return Convert(input, settings);
+    }
+
+    /// <summary>Waits until the bench clock reaches <paramref name="until"/>, in whole milliseconds (timer resolution), never early.</summary>
+    public async Task WaitUntilAsync(DateTimeOffset until, CancellationToken ct)
+    {
+        var wait = until - _env.Now;
+        if (wait > TimeSpan.Zero)
+        {
+            var wholeMs = TimeSpan.FromMilliseconds(Math.Ceiling(wait.TotalMilliseconds));
+            await Task.Delay(wholeMs, _env.Time, ct).ConfigureAwait(false);
+        }
     }
 
     /// <summary>Converts a sampled input with the given settings; draws exactly one noise value.</summary>
     public double Convert(InputSample input, MeterSettings settings)
     {
         var active = settings.Active;
-        var range = active.AutoRange ? ResistanceRanges.AutoSelect(active.Range, input.Ohms, input.IsOpen) : active.Range;
-        if (active.AutoRange && range != active.Range)
+        var current = active.AutoRange ? _state.Settings.For(settings.Function).Range : active.Range;
+        var range = active.AutoRange ? ResistanceRanges.AutoSelect(current, input.Ohms, input.IsOpen) : active.Range;
+        if (active.AutoRange && range != current)
         {
             _state.AutoRanged(settings.Function, range);
         }

@@ -39,12 +39,13 @@ public sealed partial class VirtualOperator
     public async Task StopAsync()
     {
         Task loop;
+        CancellationTokenSource? stop;
         lock (_gate)
         {
-            _stop?.Cancel();
-            loop = _loop;
+            (stop, loop) = (_stop, _loop);
         }
 
+        stop?.Cancel();
         await loop.ConfigureAwait(false);
         lock (_gate)
         {

@@ -80,16 +80,31 @@ public sealed partial class VirtualOperator
         OptionGuard.InRange(reelIndex, 0, _reel.Count, nameof(reelIndex));
         _logger.SkippedTo(reelIndex);
         bool restart;
+        CancellationTokenSource? cycle;
         lock (_gate)
         {
             _next = reelIndex;
-            _cycle?.Cancel();
+            cycle = _cycle;
             restart = _stop is { IsCancellationRequested: false } && _loop.IsCompleted;
         }
 
+        // Cancelled outside the lock: the loop's continuation may run on this thread.
+        CancelQuietly(cycle);
         if (restart)
         {
             Start();
+        }
+    }
+
+    private static void CancelQuietly(CancellationTokenSource? source)
+    {
+        try
+        {
+            source?.Cancel();
+        }
+        catch (ObjectDisposedException)
+        {
+            // The cycle ended and was replaced meanwhile; the new cycle reads the new index.
         }
     }
 }
