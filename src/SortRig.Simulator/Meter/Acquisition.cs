@@ -5,7 +5,7 @@ namespace SortRig.Simulator.Meter;
 /// SAMPle:COUNt readings of the routed input (or of every channel in the scan list), in the
 /// background on the bench clock. FETCh? waits for the result.
 /// </summary>
-internal sealed class Acquisition
+internal sealed partial class Acquisition
 {
     private readonly MeasurementEngine _engine;
     private readonly MeterState _state;
@@ -133,49 +133,4 @@ internal sealed class Acquisition
             // A newer run already replaced it.
         }
     }
-
-    /// <summary>Readings follow a schedule on the bench clock: each aperture starts when the previous one ended.</summary>
-    private async Task<IReadOnlyList<double>> RunAsync(MeterSettings settings, int?[] targets, bool scanning, CancellationToken ct)
-    {
-        var readings = new List<double>();
-        var duration = _engine.ReadingDuration(settings);
-        var cursor = _engine.Now;
-        for (var t = 0; t < settings.TriggerCount; t++)
-        {
-            if (settings.TriggerSource == TriggerSource.Bus)
-            {
-                await WaitForBusTriggerAsync(ct).ConfigureAwait(false);
-                cursor = _engine.Now > cursor ? _engine.Now : cursor;
-            }
-
-            foreach (var target in targets)
-            {
-                if (scanning)
-                {
-                    _state.ClosedChannel = target;
-                    cursor += IntegrationTiming.ChannelSwitch;
-                }
-
-                for (var s = 0; s < settings.SampleCount; s++)
-                {
-                    cursor += duration;
-                    readings.Add(await _engine.ReadAtAsync(target, cursor, settings, ct).ConfigureAwait(false));
-                }
-            }
-        }
-
-        return readings;
-    }
-
-    private Task WaitForBusTriggerAsync(CancellationToken ct)
-    {
-        lock (_gate)
-        {
-            _trigger = NewSignal();
-            _blockedOnBus.TrySetResult();
-            return _trigger.Task.WaitAsync(ct);
-        }
-    }
-
-    private static TaskCompletionSource NewSignal() => new(TaskCreationOptions.RunContinuationsAsynchronously);
 }
