@@ -76,6 +76,17 @@ internal sealed class ScpiDispatcher
             _device.PushError(ex.Error);
             return ex.Error;
         }
+        catch (InvalidOperationException)
+        {
+            // e.g. the operator put a part in the fixture between the check and the insert.
+            _device.PushError(ScpiError.SettingsConflict);
+            return ScpiError.SettingsConflict;
+        }
+        catch (ArgumentException)
+        {
+            _device.PushError(ScpiError.DataOutOfRange);
+            return ScpiError.DataOutOfRange;
+        }
     }
 
     /// <summary>Tries the header below the current path first, then from the root (lenient, like most meters).</summary>

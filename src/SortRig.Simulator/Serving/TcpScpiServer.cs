@@ -84,6 +84,12 @@ internal sealed class TcpScpiServer : IAsyncDisposable
         {
             // Server stopping.
         }
+#pragma warning disable CA1031 // one broken connection must not take the server down; it is logged
+        catch (Exception ex)
+        {
+            _logger.ConnectionFailed(ex, name);
+        }
+#pragma warning restore CA1031
         finally
         {
             client.Dispose();
