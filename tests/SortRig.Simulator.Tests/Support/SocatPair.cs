@@ -49,6 +49,8 @@ internal sealed class SocatPair : IDisposable
         }
 
         _process.Dispose();
+        File.Delete(DeviceSide); // a killed socat leaves its pty links behind
+        File.Delete(ClientSide);
     }
 }
 
