@@ -1,0 +1,28 @@
+namespace SortRig.Simulator.Physics;
+
+/// <summary>The clock and the room: bench epoch, ambient temperature and ageing hours.</summary>
+internal sealed class BenchEnvironment
+{
+    public BenchEnvironment(TimeProvider time, AmbientSpec ambient)
+    {
+        Time = time;
+        Ambient = ambient;
+        Epoch = time.GetUtcNow();
+    }
+
+    public TimeProvider Time { get; }
+
+    public AmbientSpec Ambient { get; }
+
+    /// <summary>Bench start; the reel's true values and drift are referred to it.</summary>
+    public DateTimeOffset Epoch { get; }
+
+    public DateTimeOffset Now => Time.GetUtcNow();
+
+    public double AmbientAt(DateTimeOffset t) => Ambient.CelsiusAt(t - Epoch);
+
+    public double HoursSinceEpoch(DateTimeOffset t) => (t - Epoch).TotalHours;
+
+    /// <summary>True value of a part settled at ambient at time t, in ohms.</summary>
+    public double SettledOhms(SimulatedPart part, DateTimeOffset t) => part.OhmsAt(AmbientAt(t), HoursSinceEpoch(t));
+}

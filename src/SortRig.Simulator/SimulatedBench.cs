@@ -1,0 +1,106 @@
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Logging.Abstractions;
+using SortRig.Simulator.Faults;
+using SortRig.Simulator.Meter;
+using SortRig.Simulator.Operator;
+using SortRig.Simulator.Physics;
+using SortRig.Simulator.Scpi;
+using SortRig.Simulator.Serving;
+
+namespace SortRig.Simulator;
+
+/// <summary>
+/// A complete simulated bench: a 6½-digit resistance meter with a scanner, a fixture, a reel of
+/// parts, the room, a virtual operator and a fault injector, served as a real SCPI device over TCP
+/// and/or a serial line. Everything runs on the injected clock and is deterministic for a seed.
+/// </summary>
+public sealed partial class SimulatedBench : IAsyncDisposable
+{
+    private readonly CancellationTokenSource _lifetime = new();
+    private readonly BenchEnvironment _env;
+    private readonly ScpiDevice _device;
+    private readonly ILoggerFactory _loggers;
+
+    /// <summary>Builds the bench; nothing runs until a Start method is called.</summary>
+    /// <param name="options">Bench options; validated here (throws naming the bad option).</param>
+    /// <param name="timeProvider">The bench clock; default <see cref="TimeProvider.System"/>. Use FakeTimeProvider in tests, <see cref="ScaledTimeProvider"/> to run fast.</param>
+    /// <param name="loggerFactory">Logging; default none.</param>
+    public SimulatedBench(SimulatedBenchOptions options, TimeProvider? timeProvider = null, ILoggerFactory? loggerFactory = null)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        Options = options.Validate();
+        _loggers = loggerFactory ?? NullLoggerFactory.Instance;
+        _env = new BenchEnvironment(timeProvider ?? TimeProvider.System, options.Ambient);
+        Reel = ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel));
+        Fixture = new Fixture(_env);
+        Scanner = new Scanner(_env, options.ScannerPartChannels, options.Pt100Channel);
+        Faults = new FaultInjector(options.Faults, SeedStreams.Derive(options.Seed, SeedStreams.Faults));
+        Operator = new VirtualOperator(options.Operator, Reel, Fixture, _env.Time, SeedStreams.Derive(options.Seed, SeedStreams.Operator), _loggers.CreateLogger<VirtualOperator>());
+        var state = new MeterState();
+        var engine = new MeasurementEngine(
+            _env, Fixture, Scanner, new NoiseSource(SeedStreams.Derive(options.Seed, SeedStreams.Noise)),
+            new ContactBounce(options.ContactBounce, SeedStreams.Derive(options.Seed, SeedStreams.Bounce)), state, options.LineFrequencyHz, options.LeadResistanceOhms);
+        _device = new ScpiDevice(new DeviceContext
+        {
+            Identity = Identity,
+            Environment = _env,
+            State = state,
+            Errors = new ErrorQueue(),
+            Status = new StatusRegisters(),
+            Engine = engine,
+            Acquisition = new Acquisition(engine, state),
+            Fixture = Fixture,
+            Scanner = Scanner,
+            Reel = Reel,
+            Operator = Operator,
+            Faults = Faults,
+            Lifetime = _lifetime.Token,
+        });
+    }
+
+    /// <summary>The validated options.</summary>
+    public SimulatedBenchOptions Options { get; }
+
+    /// <summary>The *IDN? reply: "SortRig,SIM-6H,&lt;serial&gt;,1.0".</summary>
+    public string Identity => $"SortRig,SIM-6H,{Options.EffectiveSerialNumber},1.0";
+
+    /// <summary>The bench clock.</summary>
+    public TimeProvider Time => _env.Time;
+
+    /// <summary>When the bench was built (bench clock); true values and drift are referred to it.</summary>
+    public DateTimeOffset Epoch => _env.Epoch;
+
+    /// <summary>The reel, in the order the operator takes the parts.</summary>
+    public IReadOnlyList<SimulatedPart> Reel { get; }
+
+    /// <summary>The front fixture (test-side control).</summary>
+    public Fixture Fixture { get; }
+
+    /// <summary>The scanner card (test-side loading; routing is by SCPI).</summary>
+    public Scanner Scanner { get; }
+
+    /// <summary>The virtual operator.</summary>
+    public VirtualOperator Operator { get; }
+
+    /// <summary>The fault injector and its log.</summary>
+    public FaultInjector Faults { get; }
+
+    /// <summary>Ambient temperature now, in degC.</summary>
+    public double AmbientCelsius => _env.AmbientAt(_env.Now);
+
+    /// <summary>
+    /// Test-only truth: the true resistance in ohms of reel part <paramref name="index"/> settled at the
+    /// ambient now (no handling warmth), including its drift so far. Never for product logic.
+    /// </summary>
+    public double Truth(int index)
+    {
+        OptionGuard.InRange(index, 0, Reel.Count - 1, nameof(index));
+        return _env.SettledOhms(Reel[index], _env.Now);
+    }
+
+    /// <summary>In-process SCPI (tests): runs one program message as a client would; returns the reply or null.</summary>
+    internal Task<string?> ExecuteAsync(string message, CancellationToken ct = default) =>
+        _device.ExecuteAsync(message, new ScpiSession(), null, ct);
+
+    internal DeviceContext Device => _device.Context;
+}

@@ -1,0 +1,29 @@
+using SortRig.Simulator.Physics;
+using SortRig.Simulator.Tests.Support;
+
+namespace SortRig.Simulator.Tests.Physics;
+
+public sealed class DriftTests
+{
+    [Fact]
+    public async Task DriftingPart_OnAScannerChannel_ReadsItsLinearDriftOvernight()
+    {
+        var clock = Benches.FakeClock();
+        var reel = Benches.SingleNominal(10_000) with { DriftSigmaPpmPerHour = 5 };
+        await using var bench = new SimulatedBench(Benches.Manual(reel), clock);
+        var part = bench.Reel.MaxBy(p => Math.Abs(p.DriftPpmPerHour))!;
+        bench.Scanner.Load(101, part);
+        await bench.ExecuteAsync("CONF:RES 10000;:RES:NPLC 100;:ROUT:CLOS (@101)");
+        clock.Advance(TimeSpan.FromSeconds(1));
+
+        var evening = Numbers.Parse((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(1)))!);
+        clock.Advance(TimeSpan.FromHours(10));
+        var morning = Numbers.Parse((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(1)))!);
+
+        // R(t) = R23 (1 + drift t): 10 h of drift, read to 0.1 ppm at 100 NPLC.
+        var driftPpm = ((morning / evening) - 1) * 1e6;
+        Assert.Equal(part.DriftPpmPerHour * 10, driftPpm, 0.5);
+        Assert.Equal(bench.Truth(part.Index), morning, 10_000 * 0.5e-6);
+        Assert.True(Math.Abs(part.DriftPpmPerHour) > 1, "the reel has a part that visibly drifts");
+    }
+}
