@@ -53,6 +53,9 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         {
             Target = SettleTarget.Ppm(Math.Clamp(matchPpm / 200, 0.5, 10)),
             FourWire = options.FourWire,
+            // A part warmed a few kelvin by the fingers cools with a time constant of seconds
+            // (common practice, no source): allow about eight time constants before "unstable".
+            MaxSettleTime = TimeSpan.FromSeconds(40),
         };
         return new SortPlan(options, decision, settle, meter);
     }
