@@ -12,7 +12,7 @@ public static partial class ResourceStringParser
 {
     private static readonly string[] s_usbFields = ["", "vendor id", "product id", "serial number"];
 
-    private const string s_interfaces = "TCPIP[n], ASRL[n], USB[n], USBTMC or SIM";
+    private const string InterfaceKeywords = "TCPIP[n], ASRL[n], USB[n], USBTMC or SIM";
 
     /// <summary>Parses <paramref name="text"/> (surrounding white space ignored).</summary>
     /// <exception cref="ResourceStringException">The string is malformed; names the part and what was expected.</exception>
@@ -23,7 +23,7 @@ public static partial class ResourceStringParser
         var head = InterfacePattern().Match(parts.At(0).Value);
         if (!head.Success)
         {
-            throw parts.IsNot(0, $"an interface keyword {s_interfaces}");
+            throw parts.IsNot(0, $"an interface keyword {InterfaceKeywords}");
         }
 
         var keyword = head.Groups[1].Value.ToUpperInvariant();

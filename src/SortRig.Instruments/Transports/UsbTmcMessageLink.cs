@@ -7,7 +7,7 @@ namespace SortRig.Instruments.Transports;
 internal sealed class UsbTmcMessageLink : StreamMessageLink
 {
     // Linux errno ETIMEDOUT: the usbtmc driver's own bulk-in timeout expired with no data.
-    private const int s_linuxTimedOut = 110;
+    private const int LinuxTimedOut = 110;
 
     private UsbTmcMessageLink(string endpoint, Stream stream, MessageLinkOptions options, TimeProvider time)
         : base(endpoint, stream, options, time)
@@ -35,5 +35,5 @@ internal sealed class UsbTmcMessageLink : StreamMessageLink
         }
     }
 
-    protected override bool IsNoDataYet(Exception ex) => ex is IOException { HResult: s_linuxTimedOut };
+    protected override bool IsNoDataYet(Exception ex) => ex is IOException { HResult: LinuxTimedOut };
 }
