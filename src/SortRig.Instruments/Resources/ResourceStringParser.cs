@@ -10,7 +10,7 @@ namespace SortRig.Instruments.Resources;
 /// </summary>
 public static partial class ResourceStringParser
 {
-    private static readonly string[] s_usbFields = ["", "vendor id", "product id", "serial number"];
+    private static readonly string[] s_usbFields = ["vendor id", "product id", "serial number"];
 
     private const string InterfaceKeywords = "TCPIP[n], ASRL[n], USB[n], USBTMC or SIM";
 
@@ -41,7 +41,7 @@ public static partial class ResourceStringParser
         if (parts.Options is not null && keyword != "ASRL")
         {
             throw new ResourceStringException(parts.Text, 1, parts.Options, parts.OptionsOffset,
-                "is not allowed: serial options follow ASRL resources only", "no '?' options");
+                "is not allowed: serial options follow ASRL resources only", "no '?' options", isOption: true);
         }
 
         if (resourceClass == "SOCKET" && keyword != "TCPIP")

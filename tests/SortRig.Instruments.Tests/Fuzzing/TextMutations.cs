@@ -23,7 +23,8 @@ internal sealed record TextEdit(TextEditKind Kind, int Where, string Payload)
     }
 
     /// <inheritdoc/>
-    public override string ToString() => $"{Kind}@{Where}:{Escaped(Payload)}";
+    public override string ToString() =>
+        Kind is TextEditKind.Insert or TextEditKind.Replace ? $"{Kind}@{Where}:'{Escaped(Payload)}'" : $"{Kind}@{Where}";
 
     /// <summary>The text with control and non-ASCII characters as \uXXXX, for readable failure reports.</summary>
     public static string Escaped(string text) =>
