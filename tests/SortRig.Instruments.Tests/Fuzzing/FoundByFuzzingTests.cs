@@ -1,4 +1,6 @@
+using SortRig.Instruments.Profiles;
 using SortRig.Instruments.Resources;
+using SortRig.Instruments.Tests.Support;
 
 namespace SortRig.Instruments.Tests.Fuzzing;
 
@@ -37,5 +39,27 @@ public sealed class FoundByFuzzingTests
         var ex = Assert.Throws<ResourceStringException>(() => ResourceStringParser.Parse(text));
         Assert.Equal((part, field), (ex.PartNumber, ex.Expected));
         Assert.Contains($"is where the {field} should be", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    // Found as simulator.yaml with a value replaced by text holding "*|x" (replay seed 867916123302236427,2680645280397737513);
+    // reduced by hand to two aliases in a row, on which YamlDotNet 18.1 throws ArgumentException, not YamlException.
+    [InlineData("a: *x *y", 2)]
+    [InlineData("family: simulator\nover_range: *x *y\n", 3)]
+    public void Profile_TwoAliasesInARow_IsAYamlError(string yaml, int line)
+    {
+        var ex = Assert.Throws<ProfileException>(() => MeterProfileLoader.Parse(yaml, "aliases.yaml"));
+        Assert.Equal(("aliases.yaml", line, string.Empty), (ex.File, ex.Line, ex.Field));
+        Assert.StartsWith($"aliases.yaml:{line}:1: (document): YAML error", ex.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Profile_ShippedSimulatorWithTwoAliasesInAValue_IsAYamlError()
+    {
+        var path = Path.Combine(RepoPaths.Instruments, "simulator.yaml");
+        var text = File.ReadAllText(path).Replace("over_range: 1.2", "over_range: *x *y", StringComparison.Ordinal);
+        var ex = Assert.Throws<ProfileException>(() => MeterProfileLoader.Parse(text, path));
+        Assert.Contains("YAML error", ex.Problem, StringComparison.Ordinal);
+        Assert.InRange(ex.Line, 1, text.Split('\n').Length);
     }
 }
