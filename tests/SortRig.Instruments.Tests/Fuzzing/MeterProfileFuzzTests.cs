@@ -19,8 +19,7 @@ public sealed class MeterProfileFuzzTests(ITestOutputHelper output)
         {
             try
             {
-                var profile = MeterProfileLoader.Parse(c.Text, c.File);
-                Assert.Equal(c.File, profile.SourcePath);
+                AcceptedProfileRules.AssertHolds(MeterProfileLoader.Parse(c.Text, c.File), c.File);
                 tally.Accepted++;
                 return;
             }
@@ -28,7 +27,11 @@ public sealed class MeterProfileFuzzTests(ITestOutputHelper output)
             {
                 AssertNamesFileLineAndField(c, ex);
                 tally.Refused++;
-                _ = ex.Field.Length > 0 ? field++ : ex.Problem.StartsWith("YAML error", StringComparison.Ordinal) ? syntax++ : document++;
+                var kind = ex.Field.Length > 0 ? field++ : ex.Problem.StartsWith("YAML error", StringComparison.Ordinal) ? syntax++ : document++;
+                if (kind < 2)
+                {
+                    output.WriteLine("  e.g. " + TextEdit.Escaped(ex.Message));
+                }
             }
         });
         output.WriteLine($"damaged profiles: {n} inputs, {tally}; refused for: a field {field}, YAML syntax {syntax}, the document {document}");
