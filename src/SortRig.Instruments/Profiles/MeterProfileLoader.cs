@@ -54,13 +54,14 @@ public static partial class MeterProfileLoader
         {
             throw new ProfileException(file, (int)ex.Start.Line, (int)ex.Start.Column, string.Empty, $"YAML error: {ex.Message}", "well-formed YAML", ex);
         }
-        catch (InvalidOperationException ex)
+        catch (Exception ex) when (ex is InvalidOperationException or ArgumentException)
         {
-            // YamlDotNet's scanner can fail this way on some malformed input (e.g. an unclosed '[');
+            // YamlDotNet can fail this way on some malformed input (an unclosed '[' throws
+            // InvalidOperationException; two aliases in a row, "a: *x *y", ArgumentException);
             // the last event it parsed tells where.
             var at = parser.Current?.End ?? Mark.Empty;
             throw new ProfileException(file, (int)at.Line, (int)at.Column, string.Empty,
-                "YAML error: malformed text after this point (unclosed bracket or quote?)", "well-formed YAML", ex);
+                "YAML error: malformed text near this point (unclosed bracket or quote, or a misplaced alias?)", "well-formed YAML", ex);
         }
 
         if (stream.Documents.Count != 1)

@@ -52,9 +52,9 @@ internal sealed class ResourceParts
         return new ResourceParts(text, parts, query < 0 ? null : text[(query + 1)..], query + 1);
     }
 
-    /// <summary>Part by 0-based index, or an empty part just past the end when it is missing.</summary>
+    /// <summary>Part by 0-based index, or an empty part where the address ends (before any '?') when it is missing.</summary>
     public (string Value, int Offset) At(int index) =>
-        index < Parts.Count ? Parts[index] : (string.Empty, Text.Length);
+        index < Parts.Count ? Parts[index] : (string.Empty, Options is null ? Text.Length : OptionsOffset - 1);
 
     /// <summary>An error about the part at 0-based <paramref name="index"/>.</summary>
     public ResourceStringException Error(int index, string problem, string expected)

@@ -10,9 +10,9 @@ namespace SortRig.Instruments.Resources;
 /// </summary>
 public static partial class ResourceStringParser
 {
-    private static readonly string[] s_usbFields = ["", "vendor id", "product id", "serial number"];
+    private static readonly string[] s_usbFields = ["vendor id", "product id", "serial number"];
 
-    private const string Interfaces = "TCPIP[n], ASRL[n], USB[n], USBTMC or SIM";
+    private const string InterfaceKeywords = "TCPIP[n], ASRL[n], USB[n], USBTMC or SIM";
 
     /// <summary>Parses <paramref name="text"/> (surrounding white space ignored).</summary>
     /// <exception cref="ResourceStringException">The string is malformed; names the part and what was expected.</exception>
@@ -23,7 +23,7 @@ public static partial class ResourceStringParser
         var head = InterfacePattern().Match(parts.At(0).Value);
         if (!head.Success)
         {
-            throw parts.IsNot(0, $"an interface keyword {Interfaces}");
+            throw parts.IsNot(0, $"an interface keyword {InterfaceKeywords}");
         }
 
         var keyword = head.Groups[1].Value.ToUpperInvariant();
@@ -41,7 +41,7 @@ public static partial class ResourceStringParser
         if (parts.Options is not null && keyword != "ASRL")
         {
             throw new ResourceStringException(parts.Text, 1, parts.Options, parts.OptionsOffset,
-                "is not allowed: serial options follow ASRL resources only", "no '?' options");
+                "is not allowed: serial options follow ASRL resources only", "no '?' options", isOption: true);
         }
 
         if (resourceClass == "SOCKET" && keyword != "TCPIP")

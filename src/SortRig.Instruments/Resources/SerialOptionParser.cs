@@ -9,7 +9,7 @@ namespace SortRig.Instruments.Resources;
 /// </summary>
 internal static class SerialOptionParser
 {
-    private const string Keys = "baud, parity, data, stop or flow";
+    private const string OptionKeys = "baud, parity, data, stop or flow";
 
     public static SerialOverrides Parse(ResourceParts parts)
     {
@@ -42,7 +42,7 @@ internal static class SerialOptionParser
                 "data" => result with { DataBits = Int(value, 5, 8) ?? throw Bad("data=5|6|7|8") },
                 "stop" => result with { StopBits = ParseStop(value) ?? throw Bad("stop=1|1.5|2") },
                 "flow" => result with { Handshake = ParseFlow(value) ?? throw Bad("flow=none|rts|xon|rts-xon") },
-                _ => throw Bad($"a serial option key=value with key {Keys}"),
+                _ => throw Bad($"a serial option key=value with key {OptionKeys}"),
             };
             offset += item.Length + 1;
         }
