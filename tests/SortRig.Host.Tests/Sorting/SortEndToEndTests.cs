@@ -33,7 +33,7 @@ public sealed class SortEndToEndTests : IDisposable
             Session = "e2e",
             Parts = parts,
             Seed = 4242,
-            Speed = 40,
+            Speed = 25,
             Speech = false,
             Live = false,
         };
@@ -55,7 +55,14 @@ public sealed class SortEndToEndTests : IDisposable
         await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
         var stored = await log.GetPartsAsync(outcome.SessionId, default);
         Assert.Equal(Enumerable.Range(1, parts), stored.Select(p => p.Number));
-        Assert.All(stored, p => Assert.Equal(PartState.Announced, p.State));
+        foreach (var p in stored.Where(p => p.State != PartState.Announced))
+        {
+            var rs = await log.GetReadingsAsync(p.Id, default);
+            var finite = rs.Where(r => r.Kind == SortRig.Measurement.Readings.ReadingKind.Finite).Select(r => r.Value).ToList();
+            Assert.Fail($"part {p.Number} is {p.State}: {rs.Count} readings over {(rs[^1].Time - rs[0].Time).TotalSeconds:F1} s, "
+                + $"{rs.Count - finite.Count} overloads, first {finite.FirstOrDefault():F3}, last {finite.LastOrDefault():F3}, truth {truth[p.Number]:F3}; "
+                + "gaps > 1 s: " + string.Join(", ", rs.Zip(rs.Skip(1)).Where(z => (z.Second.Time - z.First.Time).TotalSeconds > 1).Select(z => $"{(z.Second.Time - z.First.Time).TotalSeconds:F1} s")));
+        }
 
         var misplaced = new List<string>();
         var excused = 0;
