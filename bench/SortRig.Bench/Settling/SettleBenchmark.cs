@@ -15,11 +15,13 @@ internal static class SettleBenchmark
         var root = RepositoryRoot.Find();
         var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
         var range = profile.FindRange(SettleCase.Range) ?? throw new InvalidOperationException("simulator profile has no 10 kOhm range");
+        var span = SettleCase.SortOptions() with { SettlingSpan = TimeSpan.FromSeconds(4) };
         var variants = new (string, SettleOptions)[]
         {
-            ("adaptive + settling span 6 s", SettleCase.SortOptions() with { SettlingSpan = TimeSpan.FromSeconds(6) }),
-            ("adaptive + settling span 8 s", SettleCase.SortOptions() with { SettlingSpan = TimeSpan.FromSeconds(8) }),
-            ("adaptive + settling span 4 s", SettleCase.SortOptions() with { SettlingSpan = TimeSpan.FromSeconds(4) }),
+            ("adaptive, before: window slope test, no residual term", SettleCase.SortOptions() with { AssumedTimeConstant = TimeSpan.Zero }),
+            ("adaptive, sort options now: + residual term (τa 5 s)", SettleCase.SortOptions()),
+            ("adaptive + settling span 4 s", span),
+            ("adaptive + settling span 4 s, window 4", span with { WindowLength = 4 }),
         };
         var sections = new List<string>();
         var clock = Stopwatch.StartNew();
@@ -37,17 +39,7 @@ internal static class SettleBenchmark
                 ct.ThrowIfCancellationRequested();
                 for (var v = 0; v < c.Variants.Count; v++)
                 {
-                    var o = AdaptiveRule.Run(insertion, range, nplc, c.Variants[v].Options);
-                    outcomes[v].Add(o);
-                    if (Environment.GetEnvironmentVariable("SETTLE_DEBUG") == "1" && v == 0 && (Math.Abs(o.ErrorPpm) > o.ExpandedTransferPpm || Math.Abs(o.ErrorPpm) > 10))
-                    {
-                        Console.WriteLine(FormattableString.Invariant($"FA part {insertion.Index} alpha {insertion.TempcoPpmPerKelvin:0.0} warm {insertion.WarmKelvin:0.00} err {o.ErrorPpm:0.00} U {o.ExpandedTransferPpm:0.00} t {o.Seconds:0.000} n {o.Readings} truth {insertion.Truth:0.000}"));
-                        for (var k = 0; k < o.Readings; k++)
-                        {
-                            var r = insertion.Reading(k);
-                            if (k < 12 || k > o.Readings - 10) Console.WriteLine(FormattableString.Invariant($"   {k} {insertion.Since(k).TotalSeconds:0.000} {r.Value:0.000} clean {insertion.Clean(k):0.000}"));
-                        }
-                    }
+                    outcomes[v].Add(AdaptiveRule.Run(insertion, range, nplc, c.Variants[v].Options));
                 }
 
                 fixedDelay.Add(FixedDelayRule.Run(insertion, range, nplc, fourWire: true));

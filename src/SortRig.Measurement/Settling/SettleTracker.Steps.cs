@@ -64,25 +64,21 @@ public sealed partial class SettleTracker
         residual = _residual.HalfWidth(s, _criticalT, window);
         if (_residual.SpanMode)
         {
-            // A slope may be detectable yet harmless: what must be small is the standard uncertainty that settling
-            // adds, the SEM and the residual (rectangular, half-width a) together. The residual's t·SE(b) term
-            // takes the place of the slope test and of the excursion limit.
-            var residualU = residual / Math.Sqrt(3);
-            if (Environment.GetEnvironmentVariable("SETTLE_BOUND") == "1" ? residual <= target && s.Sem <= target : Math.Sqrt((s.Sem * s.Sem) + (residualU * residualU)) <= target)
-            {
-                return true;
-            }
-
-            if (residualU > s.Sem)
+            // A slope may be detectable yet harmless: what must be small is the excess it implies. The bound a
+            // (with its t·SE(b) term) takes the place of the slope test and of the excursion limit.
+            if (residual > target)
             {
                 _slopeFailures++;
-            }
-            else
-            {
-                _noiseFailures++;
+                return false;
             }
 
-            return false;
+            if (s.Sem > target)
+            {
+                _noiseFailures++;
+                return false;
+            }
+
+            return true;
         }
 
         if (s.SlopeSignificant)
