@@ -6,5 +6,7 @@ if (args.Length > 0 && args[0] == "planning")
     return await PlanningBenchmark.RunAsync(CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning)");
+if (args.Length > 0 && args[0] == "settle") { return await SortRig.Bench.Settling.SettleBenchmark.RunAsync(args, CancellationToken.None); }
+
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning, settle [parts])");
 return 0;

@@ -16,6 +16,8 @@ public sealed record SettleOptions
     private readonly int _noiseHistory = 64;
     private readonly SpecPeriod _specPeriod = SpecPeriod.Year1;
     private readonly UncertaintyModel _model = UncertaintyModel.Default;
+    private readonly TimeSpan _assumedTimeConstant = TimeSpan.FromSeconds(5);
+    private readonly TimeSpan _settlingSpan = TimeSpan.Zero;
 
     /// <summary>The default options.</summary>
     public static SettleOptions Default { get; } = new();
@@ -70,6 +72,33 @@ public sealed record SettleOptions
     /// and the guard's σ/√N. Default 64; valid [0, 10000]; 0 judges the window alone.
     /// </summary>
     public int NoiseHistoryLength { get => _noiseHistory; init => _noiseHistory = Check(value, 0, 10_000, nameof(NoiseHistoryLength)); }
+
+    /// <summary>
+    /// Assumed upper bound of the time constant with which a handled part's excess temperature, and so its excess
+    /// resistance, decays (an engineering assumption, not a measured figure: it covers the simulator's 3.2–4.8 s;
+    /// set it for the parts and fixture at hand). The remaining excess of a settling exponential is |slope| × τ, so
+    /// an accepted value carries a residual-settling component, rectangular with half-width
+    /// a = (|b| + t·SE(b)) × this, b the regression slope (of the window, or of the settling span when set), in its
+    /// absolute and transfer uncertainties. Default 5 s; valid [0, 10 min]; 0 leaves the component out.
+    /// </summary>
+    public TimeSpan AssumedTimeConstant
+    {
+        get => _assumedTimeConstant;
+        init => _assumedTimeConstant = value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10) ? value : throw new ArgumentOutOfRangeException(nameof(AssumedTimeConstant), value, "AssumedTimeConstant must be in [0, 10 min].");
+    }
+
+    /// <summary>
+    /// When &gt; 0 the slope is also fitted over the finite readings of the last SettlingSpan (since the bounce or the
+    /// last flicker; never fewer than the window), and a part is accepted only when the residual half-width a of that
+    /// fit (see <see cref="AssumedTimeConstant"/>) is within the target: a bounded, budgeted residual replaces the
+    /// slope significance test. Default 0 (off: the window's slope test alone); valid [0, 10 min]; needs
+    /// AssumedTimeConstant &gt; 0.
+    /// </summary>
+    public TimeSpan SettlingSpan
+    {
+        get => _settlingSpan;
+        init => _settlingSpan = value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10) ? value : throw new ArgumentOutOfRangeException(nameof(SettlingSpan), value, "SettlingSpan must be in [0, 10 min].");
+    }
 
     /// <summary>True when the fixture is wired 4-wire (default); false adds the lead term to accepted values.</summary>
     public bool FourWire { get; init; } = true;

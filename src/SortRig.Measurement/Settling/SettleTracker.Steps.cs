@@ -26,6 +26,7 @@ public sealed partial class SettleTracker
             _overloadRun = 0;
             _window.Clear();
             _noise.Clear();
+            _residual.Clear();
             _collected = 0;
             _stats = null;
         }
@@ -34,6 +35,7 @@ public sealed partial class SettleTracker
         _collected++;
         _window.Enqueue(reading);
         _noise.Add(reading.Value);
+        _residual.Add(reading, _options.WindowLength);
         if (_window.Count > _options.WindowLength)
         {
             _window.Dequeue();
@@ -43,10 +45,10 @@ public sealed partial class SettleTracker
         _stats = WindowStatistics.Of(window, _criticalT) is { } raw
             ? raw with { Sem = Math.Max(raw.Sem, _noise.Sigma / Math.Sqrt(window.Length)) }
             : null;
-        if (_collected >= _options.RequiredReadings && _window.Count == _options.WindowLength && _stats is { } s && Judge(s))
+        if (_collected >= _options.RequiredReadings && _window.Count == _options.WindowLength && _stats is { } s && Judge(s, window, out var residual))
         {
             var value = ResistanceUncertainty.For(window, _range, _nplc, _options.SpecPeriod, _options.FourWire, _options.Model);
-            var acceptance = new SettleAcceptance(value, window, reading.Time - _insertedAt!.Value);
+            var acceptance = new SettleAcceptance(ResidualSettling.Widen(value, residual), window, reading.Time - _insertedAt!.Value, residual);
             var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
             _state = SettleState.AwaitingRemoval;
             return verdict;
@@ -55,10 +57,30 @@ public sealed partial class SettleTracker
         return TimedOut(reading) ? Unstable(reading, ReasonForFailure()) : Verdict(SettleState.Settling, reading);
     }
 
-    /// <summary>Judges a full window; counts why it failed, for the reason given on timeout.</summary>
-    private bool Judge(WindowStatistics s)
+    /// <summary>Judges a full window; counts why it failed, for the reason given on timeout. Gives the residual half-width, ohms.</summary>
+    private bool Judge(WindowStatistics s, Reading[] window, out double residual)
     {
         var target = _options.Target.InOhms(s.Mean);
+        residual = _residual.HalfWidth(s, _criticalT, window);
+        if (_residual.SpanMode)
+        {
+            // A slope may be detectable yet harmless: what must be small is the excess it implies. The bound a
+            // (with its t·SE(b) term) takes the place of the slope test and of the excursion limit.
+            if (residual > target)
+            {
+                _slopeFailures++;
+                return false;
+            }
+
+            if (s.Sem > target)
+            {
+                _noiseFailures++;
+                return false;
+            }
+
+            return true;
+        }
+
         if (s.SlopeSignificant)
         {
             _slopeFailures++;
@@ -126,6 +148,7 @@ public sealed partial class SettleTracker
     {
         _window.Clear();
         _noise.Clear();
+        _residual.Clear();
         _stats = null;
         _latestValue = null;
         _collected = 0;

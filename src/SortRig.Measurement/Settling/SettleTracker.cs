@@ -16,6 +16,7 @@ public sealed partial class SettleTracker
     private readonly double _criticalT;
     private readonly Queue<Reading> _window;
     private readonly NoiseGuard _noise;
+    private readonly ResidualSettling _residual;
     private SettleState _state = SettleState.Empty;
     private DateTimeOffset? _insertedAt;
     private DateTimeOffset? _lastTime;
@@ -40,6 +41,13 @@ public sealed partial class SettleTracker
         _criticalT = WindowStatistics.CriticalT(_options.WindowLength, _options.SlopeAlpha);
         _window = new Queue<Reading>(_options.WindowLength + 1);
         _noise = new NoiseGuard(_options.NoiseHistoryLength);
+        _residual = new ResidualSettling(_options, _nplc.ResolutionPpmOfRange * 1e-6 * _range.FullScale);
+        if (_residual.SpanMode && _options.AssumedTimeConstant == TimeSpan.Zero)
+        {
+            throw new ArgumentException(
+                $"SettleOptions.SettlingSpan ({_options.SettlingSpan.TotalSeconds:G4} s) needs SettleOptions.AssumedTimeConstant > 0: the span's residual is judged in units of it.",
+                nameof(options));
+        }
     }
 
     /// <summary>The tracker's standing state: Empty, Bouncing, Settling or AwaitingRemoval.</summary>

@@ -28,7 +28,9 @@ public sealed record SettleLive(
 /// <param name="Value">The window mean with its absolute and transfer uncertainties (k = 2).</param>
 /// <param name="Readings">The window readings the value was computed from, oldest first.</param>
 /// <param name="TimeToSettle">From insertion (first finite reading) to the accepting reading.</param>
-public sealed record SettleAcceptance(MeasuredValue Value, IReadOnlyList<Reading> Readings, TimeSpan TimeToSettle);
+/// <param name="ResidualHalfWidth">Half-width a of the residual-settling component included (rectangular) in the
+/// uncertainties of <paramref name="Value"/>, ohms; 0 when <see cref="SettleOptions.AssumedTimeConstant"/> is 0.</param>
+public sealed record SettleAcceptance(MeasuredValue Value, IReadOnlyList<Reading> Readings, TimeSpan TimeToSettle, double ResidualHalfWidth = 0);
 
 /// <summary>A part declared unstable.</summary>
 /// <param name="Reason">Why.</param>

@@ -13,7 +13,9 @@ namespace SortRig.Measurement.Settling;
 /// <param name="SlopeSignificant">True when the two-sided t test rejects slope = 0 at the level used.</param>
 /// <param name="Duration">Time from the first to the last reading of the window, seconds.</param>
 /// <param name="Sem">s/√n of the window values, ohms.</param>
-internal readonly record struct WindowStatistics(double Mean, double Slope, bool SlopeSignificant, double Duration, double Sem)
+/// <param name="SlopeStandardError">SE(b) = √(SSR/(n−2)/Sxx), ohms per second.</param>
+/// <param name="Sxx">Σ(t − t̄)² of the reading times, s².</param>
+internal readonly record struct WindowStatistics(double Mean, double Slope, bool SlopeSignificant, double Duration, double Sem, double SlopeStandardError, double Sxx)
 {
     /// <summary>|slope| × window duration, ohms: how far the value moved across the window.</summary>
     public double Excursion => Math.Abs(Slope) * Duration;
@@ -60,6 +62,6 @@ internal readonly record struct WindowStatistics(double Mean, double Slope, bool
         var seSlope = Math.Sqrt(ssr / (n - 2) / sxx);
         var significant = seSlope > 0 ? Math.Abs(slope / seSlope) > criticalT : slope != 0;
         var (meanOffset, variance) = MathNet.Numerics.Statistics.ArrayStatistics.MeanVariance(y);
-        return new WindowStatistics(v0 + meanOffset, slope, significant, duration, Math.Sqrt(variance / n));
+        return new WindowStatistics(v0 + meanOffset, slope, significant, duration, Math.Sqrt(variance / n), seSlope, sxx);
     }
 }

@@ -1,0 +1,70 @@
+using MathNet.Numerics.Distributions;
+using MathNet.Numerics.Random;
+using SortRig.Simulator;
+using SortRig.Simulator.Meter;
+using SortRig.Simulator.Operator;
+using SortRig.Simulator.Physics;
+
+namespace SortRig.Bench.Settling;
+
+/// <summary>
+/// A reel on the simulated bench, inserted part after part into the front fixture on a virtual clock. Uses the
+/// simulator in-process (its reel builder, fixture physics, contact bounce and meter conversion), not the SCPI
+/// socket: the rule under test is judged on the same readings the socket would carry, without the transport.
+/// Handling warmth is drawn U(WarmKelvinMin, WarmKelvinMax) as the virtual operator does; the meter's aperture
+/// phase at contact is drawn U(0, 1).
+/// </summary>
+internal sealed class InsertionSource
+{
+    private static readonly TimeSpan s_partSpacing = TimeSpan.FromMinutes(1);
+    private readonly SimulatedBench _bench;
+    private readonly VirtualClock _clock;
+    private readonly ContactBounce _bounce;
+    private readonly MeterSettings _settings;
+    private readonly Random _handling;
+    private readonly TimeSpan _period;
+    private readonly double _range;
+
+    public InsertionSource(ReelSpec reel, int seed, double range, double nplc)
+    {
+        _clock = new VirtualClock(new DateTimeOffset(2026, 1, 5, 8, 0, 0, TimeSpan.Zero));
+        var options = new SimulatedBenchOptions { Seed = seed, Reel = reel, Operator = new OperatorOptions { Mode = OperatorMode.Manual }, TcpPort = null };
+        _bench = new SimulatedBench(options, _clock);
+        _bounce = new ContactBounce(options.ContactBounce, SeedStreams.Derive(seed, SeedStreams.Bounce));
+        _settings = MeterSettings.Default with
+        {
+            Function = MeterFunction.FourWireResistance,
+            FourWire = new FunctionSettings(range, AutoRange: false, nplc),
+        };
+        _handling = new MersenneTwister(SeedStreams.Derive(seed, 101), threadSafe: false);
+        _period = IntegrationTiming.Reading(nplc, autoZero: true, options.LineFrequencyHz);
+        _range = range;
+    }
+
+    public int Count => _bench.Reel.Count;
+
+    /// <summary>Inserts each part in turn (the previous one is removed first); readings are generated while it is in.</summary>
+    public IEnumerable<Insertion> Insertions()
+    {
+        var env = _bench.Device.Environment;
+        var engine = _bench.Device.Engine;
+        var fixture = _bench.Fixture;
+        var op = _bench.Options.Operator;
+        for (var i = 0; i < _bench.Reel.Count; i++)
+        {
+            _clock.MoveTo(_bench.Epoch + (s_partSpacing * (i + 1)));
+            fixture.Remove();
+            var part = _bench.Reel[i];
+            var warm = ContinuousUniform.Sample(_handling, op.WarmKelvinMin, op.WarmKelvinMax);
+            var phase = _handling.NextDouble();
+            fixture.Insert(part, warm);
+            var at = fixture.InsertedAt!.Value;
+            double Read(TimeSpan since) => engine.Convert(fixture.Sample(at + since, _bounce), _settings);
+            double Presented(TimeSpan since) =>
+                part.OhmsAt(PartThermal.Celsius(env.AmbientAt(at + since), warm, since, part.ThermalTimeConstant), env.HoursSinceEpoch(at + since));
+            yield return new Insertion(i, warm, part.TempcoPpmPerKelvin, _bench.Truth(i), at, _period, phase, _range, Read, Presented);
+        }
+
+        fixture.Remove();
+    }
+}
