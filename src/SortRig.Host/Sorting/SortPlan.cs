@@ -56,6 +56,9 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
             // A part warmed a few kelvin by the fingers cools with a time constant of seconds
             // (common practice, no source): allow about eight time constants before "unstable".
             MaxSettleTime = TimeSpan.FromSeconds(40),
+            // Judge the slope over the last 4 s, not over a 0.3 s window that cannot see a cooling
+            // curve of seconds (docs/bench-settle.md: no false accepts at 1.2x the information limit).
+            SettlingSpan = TimeSpan.FromSeconds(4),
         };
         return new SortPlan(options, decision, settle, meter);
     }
