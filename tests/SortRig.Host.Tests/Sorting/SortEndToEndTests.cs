@@ -33,7 +33,7 @@ public sealed class SortEndToEndTests : IDisposable
             Session = "e2e",
             Parts = parts,
             Seed = 4242,
-            Speed = 25,
+            Speed = 30,
             Speech = false,
             Live = false,
         };
