@@ -61,7 +61,12 @@ internal static class LibraryMoves
         if (!result.Succeeded)
         {
             var why = await Refusals.DescribeAsync(log, result.Refused, cancellationToken).ConfigureAwait(false);
-            console.MarkupLine($"[red]{verb} refused, nothing changed.[/] {Markup.Escape(Needs(move))}; not so: {Markup.Escape(why)}");
+            console.MarkupLine($"[red]{verb} refused, nothing changed.[/] {Markup.Escape(Needs(move))}; not so for {why.Count} part(s):");
+            foreach (var line in why)
+            {
+                console.MarkupLine("  " + Markup.Escape(line));
+            }
+
             return VerbExit.Refused;
         }
 

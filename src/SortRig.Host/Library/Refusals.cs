@@ -5,8 +5,8 @@ namespace SortRig.Host.Library;
 /// <summary>Says why the library refused ids: unknown, not live, or in the wrong status for the change.</summary>
 internal static class Refusals
 {
-    /// <summary>"7 (unknown id), 9 (Taken by mira)" for the given ids, in order.</summary>
-    public static async Task<string> DescribeAsync(IPrecisionLog log, IReadOnlyList<long> ids, CancellationToken cancellationToken)
+    /// <summary>"7 (unknown id)", "9 (Taken by mira)": one line per id, in order.</summary>
+    public static async Task<IReadOnlyList<string>> DescribeAsync(IPrecisionLog log, IReadOnlyList<long> ids, CancellationToken cancellationToken)
     {
         var parts = new List<string>();
         foreach (var id in ids)
@@ -15,7 +15,7 @@ internal static class Refusals
             parts.Add($"{id} ({Why(part)})");
         }
 
-        return string.Join(", ", parts);
+        return parts;
     }
 
     /// <summary>Ids that name no part, in order.</summary>
