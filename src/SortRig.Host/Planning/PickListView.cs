@@ -47,15 +47,15 @@ internal static class PickListView
 
     private static Table Outputs(IReadOnlyList<OutputCheck> outputs)
     {
-        var table = new Table().Border(TableBorder.Simple);
-        foreach (var c in new[] { "output", "value", "target", "error", "worst case", "tolerance", "pass" })
+        var table = new Table().NoBorder();
+        foreach (var c in new[] { "  output", "value", "target", "error", "worst case", "tolerance", "pass" })
         {
-            table.AddColumn(c);
+            table.AddColumn(new TableColumn(c).Padding(0, 0, 2, 0));
         }
 
         foreach (var o in outputs)
         {
-            table.AddRow(Markup.Escape(o.Name), Number(o.Value, o.Unit, o.Name), Number(o.Target, o.Unit, o.Name), Error(o.Error, o.Unit),
+            table.AddRow("  " + Markup.Escape(o.Name), Number(o.Value, o.Unit, o.Name), Number(o.Target, o.Unit, o.Name), Error(o.Error, o.Unit),
                 Error(o.WorstCaseError, o.Unit), Error(o.Tolerance, o.Unit), o.Meets ? "[green]yes[/]" : "[red]no[/]");
         }
 
