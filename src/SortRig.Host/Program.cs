@@ -12,6 +12,8 @@ internal static class Program
             SortCommand.Create(),
             ProbeCommand.Create(),
             SimulateCommand.Create(),
+            PlanCommand.Create(),
+            LibraryCommand.Create(),
         };
         return await root.Parse(args).InvokeAsync().ConfigureAwait(false);
     }

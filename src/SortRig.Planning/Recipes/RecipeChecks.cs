@@ -17,13 +17,19 @@ internal static class RecipeChecks
             throw root.Required("positions", "positions").Error("a circuit that solves with nominal parts: " + e.Message);
         }
 
+        // Every output must be finite with nominal parts, with finite sensitivities: an explicit target hides a ratio
+        // whose denominator is 0 V at nominal (e.g. a gain input tied to no source), so the value is checked too.
         var items = outputsNode.Items();
+        var atNominal = network.Evaluate(recipe.Positions.Select(p => p.Nominal).ToArray());
         for (var i = 0; i < recipe.Outputs.Count; i++)
         {
             var t = network.Target(i);
-            if (!double.IsFinite(t) || (recipe.Outputs[i] is VoltageRatioSpec && t == 0))
+            var v = atNominal[i];
+            var finite = double.IsFinite(t) && double.IsFinite(v.Value) && double.IsFinite(v.Error) && v.ErrorGradient.All(double.IsFinite);
+            if (!finite || (recipe.Outputs[i] is VoltageRatioSpec && t == 0))
             {
-                throw items[i].Error($"an output whose nominal value is finite and, for a ratio, not zero (got {t})");
+                throw items[i].Error(FormattableString.Invariant(
+                    $"an output whose value with nominal parts is finite and, for a ratio, whose target and denominator are not zero (got {v.Value:G6}, target {t:G6})"));
             }
         }
     }

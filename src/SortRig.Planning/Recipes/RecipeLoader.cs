@@ -6,6 +6,9 @@ namespace SortRig.Planning.Recipes;
 /// <summary>Reads recipe YAML (our own format, see docs/planning.md) into a validated <see cref="Recipe"/>.</summary>
 public static class RecipeLoader
 {
+    /// <summary>Field path of errors about the YAML text itself rather than a field.</summary>
+    public const string Document = "(document)";
+
     /// <summary>Parses and validates a recipe. No I/O.</summary>
     /// <param name="yaml">The recipe text.</param>
     /// <param name="fileName">Name used in error messages.</param>
@@ -13,18 +16,27 @@ public static class RecipeLoader
     public static Recipe Load(string yaml, string fileName)
     {
         var stream = new YamlStream();
+        var scanner = new Scanner(new StringReader(yaml), skipComments: true);
         try
         {
-            stream.Load(new StringReader(yaml));
+            stream.Load(new Parser(scanner));
         }
         catch (YamlException e)
         {
-            throw new RecipeException(fileName, (int)e.Start.Line, (int)e.Start.Column, "(document)", "well-formed YAML: " + e.Message, e);
+            throw new RecipeException(fileName, (int)e.Start.Line, (int)e.Start.Column, Document, "well-formed YAML: " + e.Message, e);
+        }
+        catch (Exception e) when (e is InvalidOperationException or ArgumentException)
+        {
+            // YamlDotNet 18 throws these (not YamlException) on some malformed input, e.g. a byte-order mark inside a
+            // plain scalar or a tab where a key should start; the scanner's position says where it stopped.
+            var at = scanner.CurrentPosition;
+            throw new RecipeException(fileName, Math.Max(1, (int)at.Line), Math.Max(1, (int)at.Column), Document,
+                "well-formed YAML: the YAML reader stopped here (" + e.Message + ")", e);
         }
 
         if (stream.Documents.Count != 1)
         {
-            throw new RecipeException(fileName, 1, 1, "(document)", "exactly one YAML document");
+            throw new RecipeException(fileName, 1, 1, Document, "exactly one YAML document");
         }
 
         var root = new YamlCursor(stream.Documents[0].RootNode, "", fileName);
@@ -114,7 +126,14 @@ public static class RecipeLoader
         }
 
         var r = ratio!.Number(1e-6, 1e6, "a ratio > 0 (times the recipe's base)");
-        return baseValue is { } b ? r * b : throw ratio.Error("a top-level 'base' resistance for 'ratio' to multiply");
+        if (baseValue is not { } b)
+        {
+            throw ratio.Error("a top-level 'base' resistance for 'ratio' to multiply");
+        }
+
+        // A large base times a large ratio leaves the range a position may have: the product must still be a resistance.
+        var ohms = r * b;
+        return YamlCursor.IsResistance(ohms) ? ohms : throw ratio.Error(FormattableString.Invariant($"a ratio that with base {b:G6} ohms gives 1e-6 to 1e15 ohms"));
     }
 
     private static PairBuilds ReadPairs(YamlCursor? node)

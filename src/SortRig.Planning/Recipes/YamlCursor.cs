@@ -13,7 +13,10 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
     public string File { get; } = file;
 
     public RecipeException Error(string expected) =>
-        new(File, (int)Node.Start.Line, (int)Node.Start.Column, Path, expected);
+        new(File, (int)Node.Start.Line, (int)Node.Start.Column, Path.Length == 0 ? TopLevel : Path, expected);
+
+    /// <summary>Field path shown for the document's root node.</summary>
+    public const string TopLevel = "(top level)";
 
     public YamlMappingNode Map() => Node as YamlMappingNode ?? throw Error("a mapping of fields");
 
@@ -50,7 +53,9 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
             var name = (k as YamlScalarNode)?.Value ?? "";
             if (!keys.Contains(name, StringComparer.Ordinal))
             {
-                throw new YamlCursor(k, Join(name), File).Error("one of the fields " + string.Join(", ", keys));
+                // A blank or non-text key (e.g. a list used as a key) still gets a path that says where it is.
+                var shown = string.IsNullOrWhiteSpace(name) ? "(blank or non-text key)" : name;
+                throw new YamlCursor(k, Join(shown), File).Error("one of the fields " + string.Join(", ", keys));
             }
         }
     }
@@ -78,16 +83,30 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
     /// <summary>A resistance in ohms: a number, optionally with an SI suffix R, k or M ("4k99" is not accepted; "4.99k" is).</summary>
     public double Resistance()
     {
+        const string Expected = "a resistance in ohms from 1e-6 to 1e15, e.g. 10k, 4.99k, 1M or 100";
         var t = Text().Trim();
-        var scale = t[^1] switch { 'k' or 'K' => 1e3, 'M' => 1e6, 'R' or 'r' => 1.0, _ => 0.0 };
-        var digits = scale == 0.0 ? t : t[..^1];
-        if (!double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) || !(x > 0) || double.IsInfinity(x))
+        if (t.Length == 0)
         {
-            throw Error("a resistance in ohms > 0, e.g. 10k, 4.99k, 1M or 100");
+            throw Error(Expected);
         }
 
-        return x * (scale == 0.0 ? 1.0 : scale);
+        var scale = t[^1] switch { 'k' or 'K' => 1e3, 'M' => 1e6, 'R' or 'r' => 1.0, _ => 0.0 };
+        var digits = scale == 0.0 ? t : t[..^1];
+        // The suffix may overflow a finite mantissa ("1e308M"), so the scaled value is what is checked.
+        var ohms = double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) ? x * (scale == 0.0 ? 1.0 : scale) : double.NaN;
+        if (!IsResistance(ohms))
+        {
+            throw Error(Expected);
+        }
+
+        return ohms;
     }
+
+    /// <summary>
+    /// True for a resistance the solver handles: 1 µOhm to 1 POhm. Outside it (a denormal "1e-320", an overflowing
+    /// "1e308M") sensitivities ~ 1/R² are no longer finite.
+    /// </summary>
+    public static bool IsResistance(double ohms) => ohms >= 1e-6 && ohms <= 1e15;
 
     private string Join(string key) => Path.Length == 0 ? key : $"{Path}.{key}";
 }
