@@ -1,25 +1,40 @@
 using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 
 namespace SortRig.Host.Web;
 
 /// <summary>Wires the bench page into a web application.</summary>
 internal static class WebSetup
 {
+    // Logs every request line with its query string, where ?token= travels.
+    private const string RequestLineLogger = "Microsoft.AspNetCore.Hosting.Diagnostics";
+
     /// <summary>Reads and checks the Web section; throws before anything listens when the bind is unsafe.</summary>
     public static WebOptions Configure(WebApplicationBuilder builder)
     {
         var options = builder.Configuration.GetSection(WebOptions.Section).Get<WebOptions>() ?? new WebOptions();
         WebBindGuard.Check(options);
-        builder.WebHost.UseUrls(options.Urls.Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries));
+        if (options.Token.Length > 0)
+        {
+            // The token is never logged, whatever levels the configuration asks for: the request
+            // line logger is held at Warning (added last, so it overrides appsettings and flags).
+            builder.Configuration.AddInMemoryCollection([new($"Serilog:MinimumLevel:Override:{RequestLineLogger}", "Warning")]);
+            builder.Logging.AddFilter(RequestLineLogger, LogLevel.Warning);
+        }
+
+        builder.WebHost.UseUrls([.. WebBindGuard.Urls(options)]);
         builder.Services.AddSingleton(options);
         return options;
     }
 
     public static void Use(WebApplication app, WebOptions options)
     {
-        if (!string.IsNullOrEmpty(options.Token))
+        var loopbackOnly = WebBindGuard.Urls(options).All(WebBindGuard.IsLoopback);
+        app.UseMiddleware<BrowserGuard>(loopbackOnly && options.Token.Length == 0);
+        if (options.Token.Length > 0)
         {
             app.UseMiddleware<TokenGate>(options.Token);
         }
