@@ -1,4 +1,6 @@
+using System.Globalization;
 using System.Text.Json;
+using System.Text.RegularExpressions;
 using OpenQA.Selenium;
 using OpenQA.Selenium.Chrome;
 using OpenQA.Selenium.Interactions;
@@ -12,12 +14,9 @@ namespace SortRig.Host.Tests.Web;
 /// page open, an undo pressed on the page, the precision log as the outside record to check
 /// the page against, and screenshots kept as test artifacts.
 /// </summary>
+[Collection(WebSortCollection.Name)]
 public sealed class BenchPageBrowserTests(ITestOutputHelper output)
 {
-    private static readonly string s_artifacts = Path.Combine(AppContext.BaseDirectory, "artifacts");
-
-    private sealed record LogItem(int Part, string Cup, string State, string? Stored, bool Seeded);
-
     [ChromiumFact]
     public async Task SortWithPageOpen_AnnouncesInOrder_AndAnUndoOnThePageReachesThePrecisionLog()
     {
@@ -26,23 +25,26 @@ public sealed class BenchPageBrowserTests(ITestOutputHelper output)
         using var browser = HeadlessChromium.Start(Path.Combine(run.Directory, "chromium"), 1920, 1080);
         browser.Navigate().GoToUrl(run.BaseUrl + "/");
 
-        var early = await PollAsync(() => ReadLog(browser), l => l.Count >= 3, TimeSpan.FromSeconds(40), "three announcements on the page");
+        var early = await PageProbe.PollAsync(() => PageProbe.ReadLog(browser), l => l.Count >= 3, TimeSpan.FromSeconds(40), "three announcements on the page");
         browser.FindElement(By.Id("undo")).Click();
-        var undoNotice = await PollAsync(() => browser.FindElement(By.Id("notices")).Text, t => t.Contains("undone", StringComparison.Ordinal),
+        var undoNotice = await PageProbe.PollAsync(() => browser.FindElement(By.Id("notices")).Text, t => t.Contains("undone", StringComparison.Ordinal),
             TimeSpan.FromSeconds(15), "the undo notice on the page");
+        var undonePart = int.Parse(Regex.Match(undoNotice, @"part (\d+) undone").Groups[1].Value, CultureInfo.InvariantCulture);
+        await PageProbe.PollAsync(() => PageProbe.ReadLog(browser), l => l.Any(i => i.Part == undonePart && i.Stored == nameof(PartState.Undone)),
+            TimeSpan.FromSeconds(5), $"part {undonePart} shown as undone");
+        PageProbe.Save(browser, "bench-page.png", output);
 
         // The single keys: P pauses (the session says so), P again carries on.
         new Actions(browser).SendKeys("p").Perform();
-        await PollAsync(() => browser.FindElement(By.Id("progress")).Text, t => t.Contains("PAUSED", StringComparison.Ordinal), TimeSpan.FromSeconds(10), "paused");
-        Save(browser, "bench-page.png");
+        await PageProbe.PollAsync(() => browser.FindElement(By.Id("progress")).Text, t => t.Contains("PAUSED", StringComparison.Ordinal), TimeSpan.FromSeconds(10), "paused");
         new Actions(browser).SendKeys("p").Perform();
-        await PollAsync(() => browser.FindElement(By.Id("progress")).Text, t => !t.Contains("PAUSED", StringComparison.Ordinal), TimeSpan.FromSeconds(10), "carrying on");
+        await PageProbe.PollAsync(() => browser.FindElement(By.Id("progress")).Text, t => !t.Contains("PAUSED", StringComparison.Ordinal), TimeSpan.FromSeconds(10), "carrying on");
 
-        await PollAsync(() => browser.FindElement(By.Id("link")).Text, t => t == "finished", TimeSpan.FromSeconds(60), "the finished session");
-        var final = await PollAsync(() => ReadLog(browser), l => l.Any(i => i.Stored == nameof(PartState.Undone)) && l.All(i => i.Stored is not null),
+        await PageProbe.PollAsync(() => browser.FindElement(By.Id("link")).Text, t => t == "finished", TimeSpan.FromSeconds(60), "the finished session");
+        var final = await PageProbe.PollAsync(() => PageProbe.ReadLog(browser), l => l.Any(i => i.Stored == nameof(PartState.Undone)) && l.All(i => i.Stored is not null),
             TimeSpan.FromSeconds(10), "stored states on every logged part");
         Assert.True(browser.FindElement(By.Id("summary")).Displayed, "the session summary shows once the session is finished");
-        Save(browser, "bench-summary.png");
+        PageProbe.Save(browser, "bench-summary.png", output);
         var errors = browser.Manage().Logs.GetLog(LogType.Browser).Where(e => e.Level >= LogLevel.Severe).Select(e => e.Message).ToList();
         using var http = new HttpClient();
         var sessionId = JsonDocument.Parse(await http.GetStringAsync(run.BaseUrl + "/api/session")).RootElement.GetProperty("sessionId").GetInt64();
@@ -65,38 +67,6 @@ public sealed class BenchPageBrowserTests(ITestOutputHelper output)
 
         // Exactly one part is undone in the log: the one the page's notice named.
         var undone = Assert.Single(stored, p => p.State == PartState.Undone);
-        Assert.Contains($"part {undone.Number} undone", undoNotice, StringComparison.Ordinal);
-    }
-
-    private static List<LogItem> ReadLog(ChromeDriver browser)
-    {
-        const string script = "return JSON.stringify([...document.querySelectorAll('#log li')].map(li => ({ part: Number(li.dataset.part), "
-            + "cup: li.dataset.cup, state: li.dataset.state, stored: li.dataset.stored ?? null, seeded: li.dataset.seeded === 'true' })));";
-        var json = (string)browser.ExecuteScript(script)!;
-        return JsonSerializer.Deserialize<List<LogItem>>(json, JsonSerializerOptions.Web)!;
-    }
-
-    private void Save(ChromeDriver browser, string name)
-    {
-        Directory.CreateDirectory(s_artifacts);
-        var path = Path.Combine(s_artifacts, name);
-        browser.GetScreenshot().SaveAsFile(path);
-        output.WriteLine("screenshot: " + path);
-    }
-
-    private static async Task<T> PollAsync<T>(Func<T> read, Func<T, bool> done, TimeSpan timeout, string what)
-    {
-        var deadline = DateTimeOffset.UtcNow + timeout;
-        while (true)
-        {
-            var value = read();
-            if (done(value))
-            {
-                return value;
-            }
-
-            Assert.True(DateTimeOffset.UtcNow < deadline, $"waited {timeout.TotalSeconds:0} s for {what}; last seen: {JsonSerializer.Serialize(value)}");
-            await Task.Delay(100);
-        }
+        Assert.Equal(undone.Number, undonePart);
     }
 }

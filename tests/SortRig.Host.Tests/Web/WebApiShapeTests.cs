@@ -8,12 +8,13 @@ namespace SortRig.Host.Tests.Web;
 /// The JSON API answers in the shapes docs/web.md documents (field names read from the doc's
 /// tables), with the values the precision log stores.
 /// </summary>
+[Collection(WebSortCollection.Name)]
 public sealed partial class WebApiShapeTests
 {
     [Fact]
     public async Task Api_AfterAShortSort_MatchesTheDocsAndThePrecisionLog()
     {
-        await using var run = await WebSortRun.StartAsync(parts: 4, speed: 40);
+        await using var run = await WebSortRun.StartAsync(parts: 4, speed: 10);
         using var http = new HttpClient { BaseAddress = new Uri(run.BaseUrl) };
         var session = await run.WaitFinishedAsync(http, TimeSpan.FromSeconds(40));
         using var parts = JsonDocument.Parse(await http.GetStringAsync("/api/parts"));

@@ -35,8 +35,9 @@ internal sealed class WebHarness : IAsyncDisposable
 
     public HttpClient Http { get; }
 
-    public static async Task<WebHarness> StartAsync(string? token = null)
+    public static async Task<WebHarness> StartAsync(string? token = null, TimeProvider? time = null)
     {
+        time ??= TimeProvider.System;
         var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = AppContext.BaseDirectory });
         builder.Logging.ClearProviders();
         builder.Configuration.AddInMemoryCollection(new Dictionary<string, string?>
@@ -44,9 +45,9 @@ internal sealed class WebHarness : IAsyncDisposable
             ["Web:Urls"] = "http://127.0.0.1:0",
             ["Web:Token"] = token ?? "",
         });
-        var hub = new BenchEventHub(TimeProvider.System);
+        var hub = new BenchEventHub(time);
         var commands = new OperatorCommands();
-        builder.Services.AddSingleton(TimeProvider.System);
+        builder.Services.AddSingleton(time);
         builder.Services.AddSingleton(hub);
         builder.Services.AddSingleton(new BenchSnapshot());
         builder.Services.AddSingleton(commands);

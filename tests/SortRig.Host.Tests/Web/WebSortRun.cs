@@ -30,7 +30,10 @@ internal sealed class WebSortRun : IAsyncDisposable
 
     public string LogDirectory => Path.Combine(Directory, "logs");
 
-    /// <summary>Starts the sort verb and waits until the page answers (any status).</summary>
+    /// <summary>Session name, unique to the run, so the test knows the page that answers is this run's.</summary>
+    public string Session { get; } = "web-" + Guid.NewGuid().ToString("N")[..8];
+
+    /// <summary>Starts the sort verb and waits until its page answers with its session.</summary>
     public static async Task<WebSortRun> StartAsync(int parts, double speed, string? token = null, bool anyAddress = false,
         IReadOnlyDictionary<string, string?>? extra = null)
     {
@@ -43,23 +46,36 @@ internal sealed class WebSortRun : IAsyncDisposable
 
         run._run = Task.Run(() => SortCommand.RunAsync(flags, run._stop.Token));
         using var http = new HttpClient { Timeout = TimeSpan.FromSeconds(2) };
+        if (token is not null)
+        {
+            http.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", token);
+        }
+
         var deadline = DateTimeOffset.UtcNow.AddSeconds(30);
         while (true)
         {
             if (run._run.IsCompleted)
             {
-                throw new InvalidOperationException($"the sort verb ended before the page answered (exit {await run._run})");
+                var exit = await run._run;
+                throw new InvalidOperationException($"the sort verb ended before the page answered (exit {exit}); its log:\n{run.LogText()}");
             }
 
+            Assert.True(DateTimeOffset.UtcNow < deadline, "the page did not answer with its session within 30 s");
             try
             {
-                using var _ = await http.GetAsync(run.BaseUrl + "/api/cups");
-                return run;
+                using var answer = await http.GetAsync(run.BaseUrl + "/api/session");
+                if (answer.IsSuccessStatusCode
+                    && JsonDocument.Parse(await answer.Content.ReadAsStringAsync()).RootElement.GetProperty("name").GetString() == run.Session)
+                {
+                    return run;
+                }
             }
-            catch (HttpRequestException) when (DateTimeOffset.UtcNow < deadline)
+            catch (HttpRequestException)
             {
-                await Task.Delay(100);
+                // Not listening yet.
             }
+
+            await Task.Delay(100);
         }
     }
 
@@ -69,7 +85,7 @@ internal sealed class WebSortRun : IAsyncDisposable
         var flags = new Dictionary<string, string?>
         {
             ["Sort:Database"] = Database,
-            ["Sort:Session"] = "web-test",
+            ["Sort:Session"] = Session,
             ["Sort:Parts"] = parts.ToString(System.Globalization.CultureInfo.InvariantCulture),
             ["Sort:Speed"] = speed.ToString(System.Globalization.CultureInfo.InvariantCulture),
             ["Sort:Live"] = "True",
@@ -103,7 +119,11 @@ internal sealed class WebSortRun : IAsyncDisposable
                 }
             }
 
-            Assert.True(DateTimeOffset.UtcNow < deadline, $"the session did not finish within {timeout}");
+            if (DateTimeOffset.UtcNow > deadline)
+            {
+                Assert.Fail($"the session did not finish within {timeout}; its log:\n{LogText()}");
+            }
+
             await Task.Delay(100);
         }
     }
@@ -123,7 +143,9 @@ internal sealed class WebSortRun : IAsyncDisposable
     }
 
     /// <summary>All text Serilog wrote to its files.</summary>
-    public string LogText() => string.Concat(System.IO.Directory.GetFiles(LogDirectory).Order().Select(File.ReadAllText));
+    public string LogText() => System.IO.Directory.Exists(LogDirectory)
+        ? string.Concat(System.IO.Directory.GetFiles(LogDirectory).Order().Select(File.ReadAllText))
+        : "";
 
     public async ValueTask DisposeAsync()
     {
@@ -144,10 +166,23 @@ internal sealed class WebSortRun : IAsyncDisposable
         }
     }
 
-    private static int FreePort(bool anyAddress)
+    // Below Linux's ephemeral range (32768-60999), so no port 0 bind or outgoing connection
+    // elsewhere in the test run can take it between this probe and the verb's own bind.
+    public static int FreePort(bool anyAddress)
     {
-        using var probe = new TcpListener(anyAddress ? IPAddress.Any : IPAddress.Loopback, 0);
-        probe.Start();
-        return ((IPEndPoint)probe.LocalEndpoint).Port;
+        for (var attempt = 0; ; attempt++)
+        {
+            var port = Random.Shared.Next(20_000, 32_000);
+            try
+            {
+                using var probe = new TcpListener(anyAddress ? IPAddress.Any : IPAddress.Loopback, port);
+                probe.Start();
+                return port;
+            }
+            catch (SocketException) when (attempt < 50)
+            {
+                // Taken; try another.
+            }
+        }
     }
 }

@@ -11,6 +11,7 @@ namespace SortRig.Host.Tests.Web;
 /// The page off loopback: the sort verb refuses to start without a token, and with one every
 /// request without it is refused, while the token itself never reaches the log.
 /// </summary>
+[Collection(WebSortCollection.Name)]
 public sealed class WebTokenTests
 {
     [Fact]
@@ -19,13 +20,7 @@ public sealed class WebTokenTests
         var dir = Directory.CreateTempSubdirectory("sortrig-web-refuse-").FullName;
         try
         {
-            int port;
-            using (var probe = new TcpListener(IPAddress.Any, 0))
-            {
-                probe.Start();
-                port = ((IPEndPoint)probe.LocalEndpoint).Port;
-            }
-
+            var port = WebSortRun.FreePort(anyAddress: true);
             var url = $"http://0.0.0.0:{port}";
             var flags = new Dictionary<string, string?>
             {
@@ -62,7 +57,7 @@ public sealed class WebTokenTests
             ["Serilog:MinimumLevel:Override:Microsoft"] = "Verbose",
             ["Serilog:MinimumLevel:Override:System"] = "Verbose",
         };
-        await using var run = await WebSortRun.StartAsync(parts: 2, speed: 50, token, anyAddress: true, verbose);
+        await using var run = await WebSortRun.StartAsync(parts: 2, speed: 10, token, anyAddress: true, verbose);
         using var bare = new HttpClient(new HttpClientHandler { AllowAutoRedirect = false, UseCookies = false }) { BaseAddress = new Uri(run.BaseUrl) };
 
         foreach (var path in new[] { "/", "/app.js", "/api/session", "/api/parts", "/api/cups", "/api/events", "/api/events/recent" })
@@ -85,7 +80,6 @@ public sealed class WebTokenTests
 
         using var bearer = new HttpClient { BaseAddress = new Uri(run.BaseUrl) };
         bearer.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", token);
-        await run.WaitFinishedAsync(bearer, TimeSpan.FromSeconds(30));
         foreach (var path in new[] { "/", "/app.js", "/api/session", "/api/parts", "/api/cups", "/api/events/recent" })
         {
             using var answer = await bearer.GetAsync(path);

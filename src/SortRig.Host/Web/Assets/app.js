@@ -138,4 +138,7 @@ async function refreshParts() {
   drawHistogram(); showProgress();
   if (page.finished) showSummary();
 }
-function scheduleRefresh() { clearTimeout(page.refresh); page.refresh = setTimeout(refreshParts, 120); }
+// At most one fetch per 100 ms; a change while a fetch is pending is covered by that fetch.
+function scheduleRefresh() {
+  if (!page.refresh) page.refresh = setTimeout(() => { page.refresh = 0; refreshParts(); }, 100);
+}

@@ -73,7 +73,10 @@ function onDrift(e) {
   }
   c.last = e;
   $("drift").hidden = false;
-  if (!page.session) document.body.classList.add("driftonly");
+  if (!page.session) {
+    document.body.classList.add("driftonly");
+    $("session").textContent = "drift log";
+  }
   if (!page.driftFrame) page.driftFrame = requestAnimationFrame(drawDrift);
 }
 
