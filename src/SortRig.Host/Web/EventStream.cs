@@ -8,10 +8,23 @@ namespace SortRig.Host.Web;
 
 /// <summary>
 /// GET /api/events: the bench event stream as server-sent events, one JSON event per message with
-/// <c>id:</c> = sequence. A reconnecting browser sends Last-Event-ID and gets only what it missed.
+/// <c>id: &lt;run&gt;.&lt;sequence&gt;</c>. A reconnecting browser sends Last-Event-ID and gets only
+/// what it missed; an id from an earlier run of the host (sequences start again at 1 after a
+/// restart) gets the whole kept history.
 /// </summary>
 internal static class EventStream
 {
+    /// <summary>Marks this run of the host in event ids.</summary>
+    public static readonly string Run = Guid.NewGuid().ToString("N")[..8];
+
+    /// <summary>The last sequence a client saw in this run, from its Last-Event-ID; 0 when none or another run's.</summary>
+    public static long LastSeen(string lastEventId)
+    {
+        var dot = lastEventId.IndexOf('.', StringComparison.Ordinal);
+        var run = dot < 0 ? Run : lastEventId[..dot];
+        return run == Run && long.TryParse(lastEventId[(dot + 1)..], NumberStyles.None, CultureInfo.InvariantCulture, out var seen) ? seen : 0;
+    }
+
     public static async Task StreamAsync(HttpContext context, BenchEventHub hub, IHostApplicationLifetime lifetime)
     {
         // The stream ends when the browser goes away or the application stops: an open stream must
@@ -20,7 +33,7 @@ internal static class EventStream
         var ct = stop.Token;
         context.Response.Headers.ContentType = "text/event-stream";
         context.Response.Headers.CacheControl = "no-cache";
-        long.TryParse(context.Request.Headers["Last-Event-ID"].ToString(), NumberStyles.Integer, CultureInfo.InvariantCulture, out var lastSeen);
+        var lastSeen = LastSeen(context.Request.Headers["Last-Event-ID"].ToString());
         try
         {
             // Headers go out at once so the browser reports the stream open before the first event.
@@ -34,7 +47,7 @@ internal static class EventStream
                 }
 
                 var data = JsonSerializer.Serialize(e, WebEndpoints.Json);
-                await context.Response.WriteAsync($"id: {e.Sequence}\ndata: {data}\n\n", ct).ConfigureAwait(false);
+                await context.Response.WriteAsync($"id: {Run}.{e.Sequence}\ndata: {data}\n\n", ct).ConfigureAwait(false);
                 await context.Response.Body.FlushAsync(ct).ConfigureAwait(false);
             }
         }

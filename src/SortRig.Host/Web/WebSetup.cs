@@ -2,7 +2,11 @@ using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Logging;
+using SortRig.Host.Events;
+using SortRig.Host.Operator;
+using SortRig.Host.Sorting;
 
 namespace SortRig.Host.Web;
 
@@ -27,6 +31,13 @@ internal static class WebSetup
 
         builder.WebHost.UseUrls([.. WebBindGuard.Urls(options)]);
         builder.Services.AddSingleton(options);
+
+        // What the page reads; a verb that registered its own (the sort verb does) keeps them.
+        // A verb that publishes to the page (drift logging) resolves the same BenchEventHub.
+        builder.Services.TryAddSingleton(TimeProvider.System);
+        builder.Services.TryAddSingleton<BenchEventHub>();
+        builder.Services.TryAddSingleton<BenchSnapshot>();
+        builder.Services.TryAddSingleton<OperatorCommands>();
         return options;
     }
 

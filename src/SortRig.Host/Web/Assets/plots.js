@@ -19,7 +19,7 @@ const plots = (() => {
     return { g, w, h, px };
   }
 
-  function signed(x, digits) { return (x > 0 ? "+" : "") + x.toFixed(digits || 0); }
+  function signed(x, digits) { return (x > 0 ? "+" : x < 0 ? "\u2212" : "") + Math.abs(x).toFixed(digits || 0); }
 
   // groups: [{ label, values: [ppm...] }]; span: half-width of the axis in ppm; bin: bin width in ppm.
   function histogram(canvas, groups, span, bin) {
@@ -57,7 +57,7 @@ const plots = (() => {
   // channels: [{ label, points: [{ t: ms, v: ohms }] }]; each line is ppm from its first sample.
   function drift(canvas, channels) {
     const { g, w, h, px } = fit(canvas);
-    const text = px * 1.25, left = 6, top = text + 6, bottom = h - text - 6;
+    const text = px * 1.5, left = 6, top = text + 8, bottom = h - text - 6;
     const lines = channels.filter((c) => c.points.length > 0).map((c) => {
       const v0 = c.points[0].v;
       return { label: c.label, pts: c.points.map((p) => ({ t: p.t, y: v0 ? ((p.v - v0) / v0) * 1e6 : 0 })) };
@@ -78,11 +78,14 @@ const plots = (() => {
       g.stroke();
     });
     g.textBaseline = "top"; g.textAlign = "left";
+    const plain = g.font;
+    g.font = "bold " + Math.round(px * 1.5) + "px sans-serif";
     let at = left;
     lines.forEach((l, i) => {
       g.fillStyle = channelColours[i % channelColours.length];
-      g.fillText(l.label, at, 0); at += g.measureText(l.label).width + 24;
+      g.fillText(l.label, at, 0); at += g.measureText(l.label).width + 32;
     });
+    g.font = plain;
     g.fillStyle = ink.dim; g.textAlign = "right";
     g.fillText(signed(hi, 1) + " ppm", w - left, 0);
     g.textBaseline = "bottom";
