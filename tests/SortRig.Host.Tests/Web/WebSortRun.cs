@@ -1,5 +1,3 @@
-using System.Net;
-using System.Net.Sockets;
 using System.Text.Json;
 using SortRig.Host.Cli;
 using SortRig.Storage;
@@ -37,7 +35,7 @@ internal sealed class WebSortRun : IAsyncDisposable
     public static async Task<WebSortRun> StartAsync(int parts, double speed, string? token = null, bool anyAddress = false,
         IReadOnlyDictionary<string, string?>? extra = null)
     {
-        var run = new WebSortRun(System.IO.Directory.CreateTempSubdirectory("sortrig-web-").FullName, FreePort(anyAddress));
+        var run = new WebSortRun(System.IO.Directory.CreateTempSubdirectory("sortrig-web-").FullName, TestPorts.Free(anyAddress));
         var flags = run.Flags(parts, speed, anyAddress ? $"http://0.0.0.0:{run.Port}" : run.BaseUrl, token);
         foreach (var (key, value) in extra ?? new Dictionary<string, string?>())
         {
@@ -163,26 +161,6 @@ internal sealed class WebSortRun : IAsyncDisposable
         catch (IOException)
         {
             // A file still held open; the temp folder is cleaned by the system.
-        }
-    }
-
-    // Below Linux's ephemeral range (32768-60999), so no port 0 bind or outgoing connection
-    // elsewhere in the test run can take it between this probe and the verb's own bind.
-    public static int FreePort(bool anyAddress)
-    {
-        for (var attempt = 0; ; attempt++)
-        {
-            var port = Random.Shared.Next(20_000, 32_000);
-            try
-            {
-                using var probe = new TcpListener(anyAddress ? IPAddress.Any : IPAddress.Loopback, port);
-                probe.Start();
-                return port;
-            }
-            catch (SocketException) when (attempt < 50)
-            {
-                // Taken; try another.
-            }
         }
     }
 }

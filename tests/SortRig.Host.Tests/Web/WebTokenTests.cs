@@ -20,7 +20,7 @@ public sealed class WebTokenTests
         var dir = Directory.CreateTempSubdirectory("sortrig-web-refuse-").FullName;
         try
         {
-            var port = WebSortRun.FreePort(anyAddress: true);
+            var port = TestPorts.Free(anyAddress: true);
             var url = $"http://0.0.0.0:{port}";
             var flags = new Dictionary<string, string?>
             {
