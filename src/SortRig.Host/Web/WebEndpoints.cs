@@ -1,4 +1,3 @@
-using System.Globalization;
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using Microsoft.AspNetCore.Builder;
@@ -21,60 +20,33 @@ internal static class WebEndpoints
 
     public static void Map(IEndpointRouteBuilder app)
     {
-        app.MapGet("/", () => WebAssets.Serve("index.html", "text/html; charset=utf-8"));
-        app.MapGet("/app.js", () => WebAssets.Serve("app.js", "text/javascript; charset=utf-8"));
-        app.MapGet("/app.css", () => WebAssets.Serve("app.css", "text/css; charset=utf-8"));
+        app.MapGet("/", () => WebAssets.Serve("index.html"));
+        foreach (var name in WebAssets.Names.Where(n => n != "index.html"))
+        {
+            app.MapGet("/" + name, () => WebAssets.Serve(name));
+        }
 
         var api = app.MapGroup("/api");
-        api.MapGet("/session", (BenchSnapshot s) => s.Session is { } v ? Results.Json(v, Json) : Results.NotFound());
+        api.MapGet("/session", (BenchSnapshot s) => s.Session is { } v ? Results.Json(v, Json) : Results.Json(new { error = "no session is open yet" }, Json, statusCode: 404));
         api.MapGet("/parts", (BenchSnapshot s) => Results.Json(s.Parts(), Json));
         api.MapGet("/cups", (BenchSnapshot s) => Results.Json(s.Counts, Json));
         api.MapGet("/events/recent", (BenchEventHub hub) => Results.Json(hub.History(), Json));
-        api.MapGet("/events", StreamEventsAsync);
+        api.MapGet("/events", EventStream.StreamAsync);
+
+        // The only write: one of four fixed actions, queued for the sorting loop. Nothing from the
+        // request is passed on: the route value selects an enum member or the request is refused.
         api.MapPost("/actions/{action}", (string action, OperatorCommands commands) =>
         {
-            OperatorCommand? command = action switch
+            if (OperatorActions.Parse(action) is not { } command)
             {
-                "undo" => OperatorCommand.UndoLast,
-                "remeasure" => OperatorCommand.Remeasure,
-                "pause" => OperatorCommand.TogglePause,
-                "finish" => OperatorCommand.Finish,
-                _ => null,
-            };
-            if (command is null)
-            {
-                return Results.BadRequest(new { error = $"unknown action '{action}'; expected undo, remeasure, pause or finish" });
+                return Results.Json(
+                    new { error = "unknown action; expected one of " + string.Join(", ", OperatorActions.Names) },
+                    Json,
+                    statusCode: StatusCodes.Status400BadRequest);
             }
 
-            commands.Post(command.Value);
-            return Results.Accepted();
+            commands.Post(command);
+            return Results.Json(new { action, queued = command.ToString() }, Json, statusCode: StatusCodes.Status202Accepted);
         });
-    }
-
-    // Server-sent events; a reconnecting browser sends Last-Event-ID and gets only what it missed.
-    private static async Task StreamEventsAsync(HttpContext context, BenchEventHub hub)
-    {
-        var ct = context.RequestAborted;
-        context.Response.Headers.ContentType = "text/event-stream";
-        context.Response.Headers.CacheControl = "no-cache";
-        long.TryParse(context.Request.Headers["Last-Event-ID"].ToString(), NumberStyles.Integer, CultureInfo.InvariantCulture, out var lastSeen);
-        try
-        {
-            await foreach (var e in hub.SubscribeAsync(includeHistory: true, ct).ConfigureAwait(false))
-            {
-                if (e.Sequence <= lastSeen)
-                {
-                    continue;
-                }
-
-                var data = JsonSerializer.Serialize(e, Json);
-                await context.Response.WriteAsync($"id: {e.Sequence}\ndata: {data}\n\n", ct).ConfigureAwait(false);
-                await context.Response.Body.FlushAsync(ct).ConfigureAwait(false);
-            }
-        }
-        catch (OperationCanceledException) when (ct.IsCancellationRequested)
-        {
-            // The browser went away.
-        }
     }
 }

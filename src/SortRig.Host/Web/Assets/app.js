@@ -1,89 +1,144 @@
 "use strict";
-// The bench page: follows the server-sent event stream and shows the cup in very large type.
+// The bench page. State at load comes from the JSON API, everything after from the server-sent
+// event stream. Every request goes to this origin; text from the server is only ever set as text.
 const $ = (id) => document.getElementById(id);
-const state = { parts: [], counts: {}, nominal: null, done: 0 };
+const LIVE = new Set(["Accepted", "Announced"]);
+const page = {
+  session: null,
+  parts: new Map(),   // part number -> PartView (/api/parts, or provisional from an announcement)
+  logged: new Set(),  // part numbers in #log, in the order this page learned of them
+  shown: null,        // part number on the big display
+  reject: null,       // label of the reject cup, learned from a Reject announcement
+  reading: null,      // latest Reading event, drawn on the next frame
+  drift: new Map(),   // channel -> { label, points: [{ t, v }], last }
+  finished: false,
+  sessionAsked: 0,    // when /api/session was last asked while no session was open
+  frame: 0,
+  driftFrame: 0,
+  refresh: 0,
+};
 
-function ohms(v) {
-  if (v === null || v === undefined) return "–";
-  if (!isFinite(v)) return "OPEN";
-  const [s, p] = Math.abs(v) >= 1e6 ? [1e6, "M"] : Math.abs(v) >= 1e3 ? [1e3, "k"] : [1, ""];
-  return (v / s).toFixed(5) + " " + p + "Ω";
+const fmt = {
+  ohms(v) {
+    const x = Number(v);
+    if (v === null || v === undefined || Number.isNaN(x)) return "–";
+    if (!Number.isFinite(x)) return "over range";
+    const [s, p] = Math.abs(x) >= 1e6 ? [1e6, "M"] : Math.abs(x) >= 1e3 ? [1e3, "k"] : [1, ""];
+    return (x / s).toFixed(5) + " " + p + "Ω";
+  },
+  nominal(v) {
+    const [s, p] = v >= 1e6 ? [1e6, "M"] : v >= 1e3 ? [1e3, "k"] : [1, ""];
+    return parseFloat((v / s).toPrecision(6)) + " " + p + "Ω";
+  },
+  ppm(d, digits) {
+    const x = Number(d);
+    if (d === null || d === undefined || !Number.isFinite(x)) return "";
+    return (x >= 0 ? "+" : "−") + Math.abs(x).toFixed(digits || 0) + " ppm";
+  },
+  percent(f) { return parseFloat((f * 100).toPrecision(4)) + " %"; },
+};
+
+async function getJson(path) {
+  try {
+    const r = await fetch(path, { credentials: "same-origin", cache: "no-store" });
+    return r.ok ? await r.json() : null;
+  } catch { return null; }
 }
-function ppm(d) { return d === null || d === undefined ? "" : (d >= 0 ? "+" : "") + Math.round(d) + " ppm"; }
 
-function showAnnouncement(e) {
-  const cup = $("cup");
-  cup.textContent = e.state === "Unstable" ? "unstable" : (e.cup ?? "?");
-  cup.className = e.state === "Reject" ? "reject" : e.state === "Unstable" ? "unstable" : "";
-  $("part").textContent = e.partNumber ? "part " + e.partNumber : "";
-  $("value").textContent = ohms(e.value);
-  $("dev").textContent = ppm(e.deviationPpm);
+function setLink(kind, text) { const l = $("link"); l.className = "link " + kind; l.textContent = text; }
+
+function showSession(s) {
+  if (!s) return;
+  page.session = s;
+  document.body.classList.remove("driftonly");
+  $("session").textContent = s.name + " · " + fmt.nominal(s.nominal);
+  $("setup").textContent = fmt.percent(s.stockTolerance) + " stock → " + fmt.percent(s.matchTolerance)
+    + " match · " + s.meter + " · " + s.range + " · NPLC " + s.nplc;
+  $("pause").lastChild.textContent = s.paused ? " carry on" : " pause";
+  showProgress();
+}
+
+function showProgress() {
+  const s = page.session, n = page.parts.size;
+  const planned = s && s.partsPlanned > 0 ? " / " + s.partsPlanned : "";
+  $("progress").textContent = n + planned + " parts" + (s && s.paused ? " · PAUSED" : "");
+  $("progress").classList.toggle("paused", !!(s && s.paused));
+}
+
+function addLog(number, cup, kind, seeded) {
   const li = document.createElement("li");
-  li.dataset.part = e.partNumber; li.dataset.cup = e.cup ?? ""; li.dataset.state = e.state;
-  li.textContent = e.partNumber + ":" + (e.cup ?? e.state);
+  li.dataset.part = number; li.dataset.cup = cup ?? ""; li.dataset.state = kind;
+  if (seeded) li.dataset.seeded = "true";
+  li.textContent = number + ":" + (cup ?? kind);
   $("log").appendChild(li);
-  if (e.state !== "Repeat" && e.deviationPpm !== null && e.deviationPpm !== undefined) {
-    state.parts.push(e.deviationPpm); drawHistogram();
+  page.logged.add(number);
+}
+
+function showCup(number, cup, kind, value, deviation, text) {
+  page.shown = number;
+  const big = $("cup");
+  $("cupbox").classList.remove("undone");
+  if (kind === "Unstable") {
+    big.textContent = "reseat"; big.className = "unstable";
+    $("cuplabel").textContent = "not settled";
+  } else {
+    big.textContent = cup ?? "?"; big.className = kind === "Reject" ? "reject" : "";
+    $("cuplabel").textContent = kind === "Reject" ? "reject cup" : kind === "Repeat" ? "cup, said again" : "cup";
   }
-  if (e.state !== "Repeat") { state.done++; $("progress").textContent = state.done + " parts"; }
+  $("cupnote").textContent = text ?? "";
+  $("part").textContent = "part " + number;
+  $("value").textContent = fmt.ohms(value);
+  $("dev").textContent = fmt.ppm(deviation);
+  document.title = (cup ?? kind) + " · part " + number + " · SortRig";
+  markUndone();
+}
+
+// The part on the big display was taken back: say so where the cup label was.
+function markUndone() {
+  if (page.shown === null || page.parts.get(page.shown)?.state !== "Undone") return;
+  $("cupbox").classList.add("undone");
+  $("cuplabel").textContent = "undone · take it out of";
+}
+
+function onAnnouncement(e) {
+  const n = e.partNumber;
+  if (n === null || n === undefined) return;
+  if (e.state === "Reject") page.reject = e.cup;
+  if (!page.logged.has(n)) addLog(n, e.cup, e.state, false);
+  if (!page.parts.has(n)) {
+    page.parts.set(n, { number: n, nominal: page.session?.nominal ?? 0, ohms: e.value, deviationPpm: e.deviationPpm,
+      cup: e.cup, state: e.state === "Unstable" ? "Unstable" : "Announced" });
+  }
+  if (e.state === "Repeat" || page.shown === null || n >= page.shown) {
+    showCup(n, e.cup, e.state, e.value, e.deviationPpm, e.text);
+  }
+  drawHistogram(); showProgress();
 }
 
 function showCounts(counts) {
   const box = $("counts"); box.textContent = "";
+  const last = page.parts.get(page.shown)?.cup;
   Object.keys(counts).sort().forEach((k) => {
-    const d = document.createElement("div"); d.className = "count";
-    d.innerHTML = "<b></b><span></span>"; d.querySelector("b").textContent = k;
-    d.querySelector("span").textContent = counts[k]; box.appendChild(d);
+    const d = document.createElement("div");
+    d.className = "count" + (k === last ? " last" : "") + (k === page.reject ? " rej" : "");
+    const b = document.createElement("b"), v = document.createElement("span");
+    b.textContent = k; v.textContent = counts[k]; d.append(b, v); box.appendChild(d);
   });
 }
 
-function drawHistogram() {
-  const c = $("hist"), g = c.getContext("2d"), xs = state.parts;
-  g.clearRect(0, 0, c.width, c.height);
-  if (xs.length === 0) return;
-  const lo = Math.min(...xs), hi = Math.max(...xs), bins = 40, w = (hi - lo) / bins || 1;
-  const n = new Array(bins).fill(0);
-  xs.forEach((x) => { n[Math.min(bins - 1, Math.floor((x - lo) / w))]++; });
-  const top = Math.max(...n), bw = c.width / bins;
-  g.fillStyle = "#ffc93c";
-  n.forEach((k, i) => { const h = (k / top) * (c.height - 30); g.fillRect(i * bw + 1, c.height - 20 - h, bw - 2, h); });
-  g.fillStyle = "#f4f1e8"; g.font = "18px sans-serif";
-  g.fillText(Math.round(lo) + " ppm", 4, c.height - 3);
-  g.fillText(Math.round(hi) + " ppm", c.width - 90, c.height - 3);
+async function refreshParts() {
+  const parts = await getJson("/api/parts");
+  if (!parts) return;
+  page.parts = new Map(parts.map((p) => [p.number, p]));
+  document.querySelectorAll("#log li").forEach((li) => {
+    const p = page.parts.get(Number(li.dataset.part));
+    if (p) li.dataset.stored = p.state;
+  });
+  markUndone();
+  drawHistogram(); showProgress();
+  if (page.finished) showSummary();
 }
-
-function onEvent(e) {
-  switch (e.kind) {
-    case "Reading":
-      $("reading").textContent = ohms(e.value);
-      $("settle").textContent = (e.state ?? "") + " " + (e.text ?? "");
-      break;
-    case "Announcement": showAnnouncement(e); break;
-    case "Counts": state.counts = e.counts ?? {}; showCounts(state.counts); break;
-    case "Notice": {
-      const p = document.createElement("div"); p.textContent = e.text;
-      const box = $("notices"); box.appendChild(p);
-      while (box.childElementCount > 4) box.removeChild(box.firstChild);
-      break;
-    }
-    case "Finished": $("link").textContent = "finished"; break;
-    case "Drift": $("drift").hidden = false; break;
-  }
+// At most one fetch per 100 ms; a change while a fetch is pending is covered by that fetch.
+function scheduleRefresh() {
+  if (!page.refresh) page.refresh = setTimeout(() => { page.refresh = 0; refreshParts(); }, 100);
 }
-
-async function act(action) {
-  await fetch("/api/actions/" + action, { method: "POST", credentials: "same-origin" });
-}
-document.querySelectorAll("button[data-action]").forEach((b) => b.addEventListener("click", () => act(b.dataset.action)));
-document.addEventListener("keydown", (k) => {
-  const map = { u: "undo", m: "remeasure", p: "pause", " ": "pause", f: "finish" };
-  const a = map[k.key.toLowerCase()]; if (a) { k.preventDefault(); act(a); }
-});
-
-fetch("/api/session", { credentials: "same-origin" }).then((r) => r.ok ? r.json() : null).then((s) => {
-  if (s) $("session").textContent = s.name ?? "session";
-});
-const source = new EventSource("/api/events");
-source.onopen = () => { $("link").textContent = "live"; };
-source.onerror = () => { $("link").textContent = "reconnecting"; };
-source.onmessage = (m) => onEvent(JSON.parse(m.data));
