@@ -12,6 +12,8 @@ internal static class Program
             SortCommand.Create(),
             ProbeCommand.Create(),
             SimulateCommand.Create(),
+            DriftCommand.Create(),
+            ReportCommand.Create(),
         };
         return await root.Parse(args).InvokeAsync().ConfigureAwait(false);
     }
