@@ -43,6 +43,19 @@ internal sealed partial class DriftLogger
         }
     }
 
+    // A first connection before the schedule starts; a fault here is met again, and handled, by the first scan.
+    private async Task TryConnectAsync(CancellationToken ct)
+    {
+        try
+        {
+            _meter ??= await ConnectAsync(ct).ConfigureAwait(false);
+        }
+        catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
+        {
+            DriftLog.MeterFault(logger, _runId, e.GetType().Name, e.Message);
+        }
+    }
+
     private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
     {
         var meter = await connect(ct).ConfigureAwait(false);

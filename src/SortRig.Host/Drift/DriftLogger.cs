@@ -93,6 +93,7 @@ internal sealed partial class DriftLogger(
     private async Task MeasureAsync(ChannelWriter<DriftWrite> writer, CancellationToken ct)
     {
         var interval = settings.Interval;
+        await TryConnectAsync(ct).ConfigureAwait(false); // the schedule starts once the meter is set up
         var start = time.GetUtcNow();
         var end = settings.Duration is { } d ? start + d : DateTimeOffset.MaxValue;
         _lastGood = start;
