@@ -67,7 +67,7 @@ public sealed class DriftOptions
         Require(!string.IsNullOrWhiteSpace(Run) && Run.Length <= 200, "Drift.Run", "1 to 200 characters", Run);
         Require(!string.IsNullOrWhiteSpace(Database), "Drift.Database", "a SQLite path or a connection string", Database);
         Require(!string.IsNullOrWhiteSpace(Profile), "Drift.Profile", "a profile name or YAML file", Profile);
-        Require(Pt100Channel is >= 0 and <= 9999 && !channels.Contains(Pt100Channel), "Drift.Pt100Channel", "0 (none) or 1..9999 and not a part channel", Pt100Channel);
+        Require(Pt100Channel is >= 0 and <= 9999 && !channels.Contains(Pt100Channel), "Drift.Pt100Channel", "0 (none) or 1 to 9999 and not a part channel", Pt100Channel);
         Require(IntervalSeconds is >= 1 and <= 86_400, "Drift.IntervalSeconds", "1 to 86400 s", IntervalSeconds);
         Require(Hours is >= 0 and <= 8760, "Drift.Hours", "0 (until stopped) to 8760 h", Hours);
         Require(double.IsFinite(Range) && Range > 0, "Drift.Range", "a range full scale > 0 ohm", Range);
