@@ -1,4 +1,5 @@
 // Benchmarks are added by the issues that own them; each writes its results table under docs/.
+using SortRig.Bench.Drift;
 using SortRig.Bench.Planning;
 
 if (args.Length > 0 && args[0] == "planning")
@@ -6,5 +7,10 @@ if (args.Length > 0 && args[0] == "planning")
     return await PlanningBenchmark.RunAsync(CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning)");
+if (args.Length > 0 && args[0] == "drift")
+{
+    return await DriftBenchmark.RunAsync(CancellationToken.None);
+}
+
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning, drift)");
 return 0;
