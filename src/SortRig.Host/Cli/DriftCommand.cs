@@ -64,7 +64,7 @@ internal static class DriftCommand
         }
         catch (ArgumentException e)
         {
-            await Console.Error.WriteLineAsync($"drift: {e.Message}").ConfigureAwait(false);
+            await Console.Error.WriteLineAsync($"drift: {e.Message.Split(" (Parameter", 2)[0]}").ConfigureAwait(false);
             return 2;
         }
 

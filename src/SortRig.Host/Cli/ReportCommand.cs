@@ -39,7 +39,7 @@ internal static class ReportCommand
         }
         catch (ArgumentException e)
         {
-            console.MarkupLine($"[red]report:[/] {Markup.Escape(e.Message)}");
+            console.MarkupLine($"[red]report:[/] {Markup.Escape(e.Message.Split(" (Parameter", 2)[0])}");
             return 2;
         }
         catch (StorageException e)

@@ -45,7 +45,7 @@ internal sealed partial class DriftWorker(
         catch (ArgumentException e)
         {
             ExitCode = 2;
-            AnsiConsole.MarkupLine($"[red]cannot log drift with these settings:[/] {Markup.Escape(e.Message)}");
+            AnsiConsole.MarkupLine($"[red]cannot log drift with these settings:[/] {Markup.Escape(e.Message.Split(" (Parameter", 2)[0])}");
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
         {

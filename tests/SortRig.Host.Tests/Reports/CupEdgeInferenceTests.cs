@@ -16,14 +16,14 @@ public sealed class CupEdgeInferenceTests
     [Fact]
     public void InferCupCount_PartsSortedByTheBandAssigner_RecoversItsCupCount()
     {
-        // The referee is the fixed-band assigner itself: parts spread over ±1 % sorted with K cups.
+        // The referee is the fixed-band assigner itself: parts spread a little wider than its K bands, sorted with K cups.
         Prop.ForAll(Gen.Choose(1, 23).ToArbitrary(), Gen.Choose(0, 100_000).ToArbitrary(), (k, seed) =>
         {
             var rng = new Random(seed);
             var cups = new BandCupAssigner(new BandCupOptions(k, 500, 10_000, 1));
             var parts = Enumerable.Range(1, 200).Select(n =>
             {
-                var ohms = 10_000 * (1 + ((rng.NextDouble() * 2) - 1) * 0.01);
+                var ohms = 10_000 * (1 + (((rng.NextDouble() * 2) - 1) * 1.2 * k * 250e-6));
                 var cup = cups.Assign(new CupRequest(n, 10_000, new MeasuredValue(ohms, 0, 0))).CupLabel;
                 return (((ohms - 10_000) / 10_000) * 1e6, (string?)cup);
             }).ToList();
