@@ -1,4 +1,5 @@
 // Benchmarks are added by the issues that own them; each writes its results table under docs/.
+using SortRig.Bench.Drift;
 using SortRig.Bench.Planning;
 
 if (args.Length > 0 && args[0] == "planning")
@@ -6,7 +7,15 @@ if (args.Length > 0 && args[0] == "planning")
     return await PlanningBenchmark.RunAsync(CancellationToken.None);
 }
 
-if (args.Length > 0 && args[0] == "settle") { return await SortRig.Bench.Settling.SettleBenchmark.RunAsync(args, CancellationToken.None); }
+if (args.Length > 0 && args[0] == "settle")
+{
+    return await SortRig.Bench.Settling.SettleBenchmark.RunAsync(args, CancellationToken.None);
+}
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning, settle [parts])");
+if (args.Length > 0 && args[0] == "drift")
+{
+    return await DriftBenchmark.RunAsync(CancellationToken.None);
+}
+
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning, settle [parts], drift)");
 return 0;

@@ -14,6 +14,8 @@ internal static class Program
             SimulateCommand.Create(),
             PlanCommand.Create(),
             LibraryCommand.Create(),
+            DriftCommand.Create(),
+            ReportCommand.Create(),
         };
         return await root.Parse(args).InvokeAsync().ConfigureAwait(false);
     }

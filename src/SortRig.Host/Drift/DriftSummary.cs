@@ -1,0 +1,33 @@
+using System.Globalization;
+using Spectre.Console;
+using SortRig.Measurement.Drift;
+
+namespace SortRig.Host.Drift;
+
+/// <summary>Prints a drift run's outcome: counts, then drift, tempco and short-term ADEV per channel.</summary>
+internal static class DriftSummary
+{
+    public static void Write(IAnsiConsole console, DriftSettings settings, DriftOutcome outcome)
+    {
+        console.MarkupLine(string.Create(CultureInfo.InvariantCulture,
+            $"drift run [bold]{outcome.RunId}[/] '{Markup.Escape(settings.RunName)}': {outcome.Scans} scans, {outcome.SamplesStored} samples stored, " +
+            $"{outcome.Gaps} gaps, {outcome.SkippedTicks} scan times skipped, {outcome.Overloads} overloads"));
+        var table = new Table().AddColumns("channel", "samples", "drift ppm/h", "drift at const. T ppm/h", "tempco ppm/K", "ADEV at tau0 ppm");
+        foreach (var c in outcome.Channels)
+        {
+            table.AddRow(
+                Markup.Escape(c.Label),
+                c.Count.ToString(CultureInfo.InvariantCulture),
+                Coefficient(c.Drift?.PpmPerHour),
+                Coefficient(c.Joint?.PpmPerHour),
+                c.Joint is null ? Markup.Escape(c.JointNote ?? "") : Coefficient(c.Joint.PpmPerKelvin),
+                c.Adev.Count > 0 ? (c.Adev[0].Deviation * 1e6).ToString("0.000", CultureInfo.InvariantCulture) : "");
+        }
+
+        console.Write(table);
+        console.MarkupLine($"report: [bold]sortrig report --db {Markup.Escape(settings.Database)} --drift-run {outcome.RunId} --out report-drift-{outcome.RunId}[/]");
+    }
+
+    private static string Coefficient(Coefficient? c) =>
+        c is { } v ? string.Create(CultureInfo.InvariantCulture, $"{v.Value:+0.0000;-0.0000} ± {v.StandardError:0.0000}") : "";
+}
