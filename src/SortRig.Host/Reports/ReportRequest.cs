@@ -31,9 +31,9 @@ public sealed record ReportRequest(string Database, string Output, string? Sessi
             throw new ArgumentException($"--drift-run must be a run id >= 1; was {DriftRunId}.", nameof(DriftRunId));
         }
 
-        if (Cups is < 1 or > Planning.Cups.CupLabels.MaxCups)
+        if (Cups is < 1 or > global::SortRig.Planning.Cups.CupLabels.MaxCups)
         {
-            throw new ArgumentException($"--cups must be 1..{Planning.Cups.CupLabels.MaxCups}; was {Cups}.", nameof(Cups));
+            throw new ArgumentException($"--cups must be 1..{(global::SortRig.Planning.Cups.CupLabels.MaxCups)}; was {Cups}.", nameof(Cups));
         }
 
         return this;
