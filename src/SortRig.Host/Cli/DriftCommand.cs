@@ -50,11 +50,7 @@ internal static class DriftCommand
             flags["Drift:FourWire"] = "false";
         }
 
-        var probe = new ConfigurationBuilder().AddInMemoryCollection(flags).Build();
-        IHostApplicationBuilder builder = probe.GetValue<bool>("Web:Enabled")
-            ? WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = Environment.CurrentDirectory })
-            : Microsoft.Extensions.Hosting.Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { Args = [], ContentRootPath = Environment.CurrentDirectory });
-        HostSetup.Configure(builder, flags, quietConsole: false);
+        var builder = HostSetup.CreateBuilder(flags, quietConsole: false);
         builder.Services.AddOptions<DriftOptions>().Bind(builder.Configuration.GetSection(DriftOptions.Section));
         var options = builder.Configuration.GetSection(DriftOptions.Section).Get<DriftOptions>() ?? new DriftOptions();
         DriftSettings settings;
@@ -81,18 +77,7 @@ internal static class DriftCommand
         builder.Services.AddSingleton<DriftWorker>();
         builder.Services.AddHostedService(sp => sp.GetRequiredService<DriftWorker>());
 
-        IHost host;
-        if (builder is WebApplicationBuilder web)
-        {
-            var webOptions = WebSetup.Configure(web);
-            var app = web.Build();
-            WebSetup.Use(app, webOptions);
-            host = app;
-        }
-        else
-        {
-            host = ((HostApplicationBuilder)builder).Build();
-        }
+        var host = HostSetup.Build(builder);
 
         var worker = host.Services.GetRequiredService<DriftWorker>();
         await host.RunAsync(ct).ConfigureAwait(false);

@@ -54,13 +54,8 @@ internal static class SortCommand
             flags["Sort:Speech"] = "false";
         }
 
-        var probe = new ConfigurationBuilder().AddInMemoryCollection(flags).Build();
-        var webEnabled = probe.GetValue<bool>("Web:Enabled");
-        IHostApplicationBuilder builder = webEnabled
-            ? WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = Environment.CurrentDirectory })
-            : Microsoft.Extensions.Hosting.Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { Args = [], ContentRootPath = Environment.CurrentDirectory });
         var live = !flags.TryGetValue("Sort:Live", out var l) || l != "false";
-        HostSetup.Configure(builder, flags, quietConsole: live);
+        var builder = HostSetup.CreateBuilder(flags, quietConsole: live);
         builder.Services.AddOptions<SortOptions>().Bind(builder.Configuration.GetSection(SortOptions.Section))
             .ValidateDataAnnotations().ValidateOnStart();
         var sort = builder.Configuration.GetSection(SortOptions.Section).Get<SortOptions>() ?? new SortOptions();
@@ -78,18 +73,7 @@ internal static class SortCommand
         builder.Services.AddHostedService(sp => sp.GetRequiredService<SortWorker>());
         builder.Services.AddHostedService(sp => new KeyboardInput(sp.GetRequiredService<OperatorCommands>(), TimeProvider.System));
 
-        IHost host;
-        if (builder is WebApplicationBuilder web)
-        {
-            var webOptions = WebSetup.Configure(web);
-            var app = web.Build();
-            WebSetup.Use(app, webOptions);
-            host = app;
-        }
-        else
-        {
-            host = ((HostApplicationBuilder)builder).Build();
-        }
+        var host = HostSetup.Build(builder);
 
         var worker = host.Services.GetRequiredService<SortWorker>();
         await host.RunAsync(ct).ConfigureAwait(false);

@@ -1,8 +1,10 @@
+using Microsoft.AspNetCore.Builder;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
 using Serilog;
 using Serilog.Events;
+using SortRig.Host.Web;
 
 namespace SortRig.Host.Hosting;
 
@@ -15,6 +17,34 @@ internal static class HostSetup
 {
     /// <summary>Environment variable prefix: SORTRIG_Sort__Nominal=1000 sets Sort:Nominal.</summary>
     public const string EnvironmentPrefix = "SORTRIG_";
+
+    /// <summary>
+    /// A web host when the flags enable the page (Web:Enabled), else a generic host; configured
+    /// as <see cref="Configure"/> says.
+    /// </summary>
+    public static IHostApplicationBuilder CreateBuilder(IReadOnlyDictionary<string, string?> flags, bool quietConsole)
+    {
+        var probe = new ConfigurationBuilder().AddInMemoryCollection(flags).Build();
+        IHostApplicationBuilder builder = probe.GetValue<bool>("Web:Enabled")
+            ? WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = Environment.CurrentDirectory })
+            : Microsoft.Extensions.Hosting.Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { Args = [], ContentRootPath = Environment.CurrentDirectory });
+        Configure(builder, flags, quietConsole);
+        return builder;
+    }
+
+    /// <summary>Builds the host; a web host gets the bench page (which refuses an unsafe bind here).</summary>
+    public static IHost Build(IHostApplicationBuilder builder)
+    {
+        if (builder is WebApplicationBuilder web)
+        {
+            var webOptions = WebSetup.Configure(web);
+            var app = web.Build();
+            WebSetup.Use(app, webOptions);
+            return app;
+        }
+
+        return ((HostApplicationBuilder)builder).Build();
+    }
 
     public static void Configure(IHostApplicationBuilder builder, IReadOnlyDictionary<string, string?> flags, bool quietConsole)
     {
