@@ -69,7 +69,7 @@ public sealed class CrashTests(ITestOutputHelper output) : IDisposable
     }
 
     private static string[] Args(string db, int seed) =>
-        ["sort", "--plain", "--no-speech", "--speed", "100", "--parts", Parts.ToString(CultureInfo.InvariantCulture),
+        ["sort", "--plain", "--no-speech", "--speed", "100", "--nplc", "10", "--parts", Parts.ToString(CultureInfo.InvariantCulture),
          "--db", db, "--session", "crash", "--seed", seed.ToString(CultureInfo.InvariantCulture)];
 
     private async Task AssertNothingLostAsync(string db, int seed, IReadOnlyList<HostRun> runs)
@@ -103,7 +103,7 @@ public sealed class CrashTests(ITestOutputHelper output) : IDisposable
         Assert.Equal(Enumerable.Range(1, Parts), heard.Select(h => h.Part).Distinct());
 
         // The values and cups are those of the reel's true values (simulator truth, same seed).
-        var options = new SortOptions { Parts = Parts, Seed = seed };
+        var options = new SortOptions { Parts = Parts, Seed = seed, Nplc = 10 };
         await using var bench = new SimulatedBench(DemoBench.For(options, Parts));
         var (problems, onEdge) = TruthCheck.Compare(options, parts, n => bench.Truth(n - 1));
         output.WriteLine($"{heard.Count} announcements, {heard.Count(h => h.Repeated)} repeated after a restart, {onEdge} on a band edge");

@@ -73,8 +73,18 @@ internal static class FaultSoak
                     ReplyDelay = TimeSpan.FromSeconds(8), // past the 6.2 s read timeout of the simulator profile at 10 NPLC
                 },
 
-                // The operator was told to leave the part in while the meter reconnects: a patient person.
-                Operator = b.Operator with { MaxDwell = TimeSpan.FromHours(1) },
+                // The operator was told to leave the part in while the meter reconnects: a patient
+                // person; and a quick one, with parts barely warmed (the soak is about faults, not heat).
+                Operator = b.Operator with
+                {
+                    MaxDwell = TimeSpan.FromHours(1),
+                    HandlingTimeMin = TimeSpan.FromSeconds(0.3),
+                    HandlingTimeMax = TimeSpan.FromSeconds(0.8),
+                    ReactionTimeMin = TimeSpan.FromSeconds(0.2),
+                    ReactionTimeMax = TimeSpan.FromSeconds(0.5),
+                    WarmKelvinMin = 0.5,
+                    WarmKelvinMax = 1.5,
+                },
             },
             Started = b => bench = b,
             Serve = serve,
@@ -106,8 +116,14 @@ internal static class FaultSoak
             heard.ToString(), integrity, wall.Elapsed);
     }
 
-    public static string Figures(string transport, SoakResult r, int linkCuts) => string.Create(CultureInfo.InvariantCulture,
-        $"| {transport} | {r.Options.Parts} | {r.Injected.Values.Sum()} | {string.Join(" / ", s_mix.Select(m => r.Injected[m.Kind]))} | {linkCuts} | {r.Outcome.Faults} | {r.Wall.TotalSeconds:0} s |");
+    /// <summary>One row of the figures table (markdown).</summary>
+    public static string Figures(string transport, SoakResult r, int linkCuts)
+    {
+        var (lost, doubled, wrong) = SoakChecks.Tally(r);
+        var told = Announcements.Notes(r.Heard).Count(n => n.StartsWith("meter", StringComparison.Ordinal));
+        return string.Create(CultureInfo.InvariantCulture,
+            $"| {transport} | {r.Options.Parts} | {r.Injected.Values.Sum()} | {string.Join(" / ", s_mix.Select(m => r.Injected[m.Kind]))} | {linkCuts} | {told} | {lost} | {doubled} | {wrong} | {r.Wall.TotalSeconds:0} s |");
+    }
 
     private static double Rate(FaultKind kind, double total) => total * s_mix.Single(m => m.Kind == kind).Share;
 

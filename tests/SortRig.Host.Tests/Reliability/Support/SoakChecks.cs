@@ -7,6 +7,17 @@ namespace SortRig.Host.Tests.Reliability.Support;
 /// <summary>The checks every soak must pass: nothing lost, nothing doubled, every value and cup true, the operator told.</summary>
 internal static class SoakChecks
 {
+    /// <summary>The data-loss figures of a soak: parts lost, announced twice, in a cup their truth does not call for.</summary>
+    public static (int Lost, int Doubled, int Wrong) Tally(SoakResult r)
+    {
+        var stored = r.Parts.Where(p => p.State == PartState.Announced).Select(p => p.Number).ToHashSet();
+        var heard = Announcements.Cups(r.Heard);
+        var lost = Enumerable.Range(1, r.Options.Parts).Count(n => !stored.Contains(n) || heard.All(h => h.Part != n));
+        var doubled = heard.Count - heard.Select(h => h.Part).Distinct().Count();
+        var wrong = TruthCheck.Compare(r.Options, r.Parts, number => r.Truth[number]).Problems.Count;
+        return (lost, doubled, wrong);
+    }
+
     public static void AssertSurvived(SoakResult r, ITestOutputHelper output)
     {
         var n = r.Options.Parts;
@@ -36,6 +47,14 @@ internal static class SoakChecks
         {
             Assert.True(r.Injected[kind] > 0, $"no {kind} injected");
         }
+
+        // The operator was told of every recovery, and each kind of fault was heard as what it is.
+        Assert.Equal(r.Outcome.Faults, notes.Count(note => note.StartsWith("meter", StringComparison.Ordinal)));
+        Assert.Contains(notes, note => note.Contains("connection lost", StringComparison.Ordinal) || note.Contains("no answer in time", StringComparison.Ordinal));
+        Assert.Contains(notes, note => note.Contains("no answer in time", StringComparison.Ordinal));
+        Assert.Contains(notes, note => note.Contains("garbled reply", StringComparison.Ordinal));
+        Assert.Contains(notes, note => note.Contains("instrument error -310", StringComparison.Ordinal));
+        Assert.Contains(notes, note => note.Contains("lost its range/NPLC settings", StringComparison.Ordinal));
     }
 
     private static string Kind(string note) => note.Length > 60 ? note[..60] : note;
