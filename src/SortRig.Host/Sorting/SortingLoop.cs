@@ -91,6 +91,7 @@ public sealed partial class SortingLoop
 
     private async Task OnReadingAsync(Reading reading, CancellationToken ct)
     {
+        await DetectStallAsync(reading, ct).ConfigureAwait(false);
         await DetectSwapAsync(reading, ct).ConfigureAwait(false);
         var before = _tracker.State;
         if (before is SettleState.Empty && reading.IsFinite)

@@ -54,6 +54,28 @@ public sealed class LoopRecoveryTests : IDisposable
     }
 
     [Fact]
+    public async Task HostStalledWhileSettling_PartMeasuredAgainNotDeclaredUnstable()
+    {
+        // The process stalls for 1 s of wall time (50 s on the bench clock, past the 40 s allowed to
+        // settle) while a part is settling: the readings around the gap do not describe one settling.
+        var clock = new SteppedClock();
+        var sort = new InProcessSort(Options(parts: 1, speed: 50), clock);
+        using var cts = new CancellationTokenSource(s_limit);
+        var run = sort.RunAsync(null, cts.Token);
+        while (!sort.Services.Hub.History().Any(e => e.State == "Settling"))
+        {
+            await Task.Delay(1);
+        }
+
+        clock.Step(TimeSpan.FromSeconds(1));
+        var outcome = await run;
+
+        Assert.Equal(0, outcome.Unstable);
+        Assert.Equal(1, outcome.Accepted);
+        Assert.Contains("measuring the part again", sort.Ears.Text, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task MeterResetBetweenSetupAndReadBack_RetriedAndSessionCarriesOn()
     {
         // Every message resets the meter at first, so each read-back after configuring differs;

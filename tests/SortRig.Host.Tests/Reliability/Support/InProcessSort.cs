@@ -12,10 +12,10 @@ internal sealed class InProcessSort
 {
     private readonly TaskCompletionSource<SimulatedBench> _bench = new(TaskCreationOptions.RunContinuationsAsynchronously);
 
-    public InProcessSort(SortOptions options)
+    public InProcessSort(SortOptions options, TimeProvider? inner = null)
     {
         Options = options;
-        Time = new ScaledTimeProvider(options.Speed);
+        Time = new ScaledTimeProvider(options.Speed, inner);
         Services = new SortServices(Time, new BenchEventHub(Time), new BenchSnapshot(), new OperatorCommands(), Ears, NullLoggerFactory.Instance);
     }
 

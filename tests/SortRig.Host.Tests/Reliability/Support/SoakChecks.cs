@@ -21,6 +21,11 @@ internal static class SoakChecks
     public static void AssertSurvived(SoakResult r, ITestOutputHelper output)
     {
         var n = r.Options.Parts;
+        foreach (var line in r.Heard.Split('\n').Where(l => l.Contains(": unstable", StringComparison.Ordinal)))
+        {
+            output.WriteLine(line);
+        }
+
         Assert.True(r.Integrity.IsOk, string.Join("; ", r.Integrity.Problems));
         Assert.Equal(0, r.DwellTimeouts); // no part was pulled unmeasured
         Assert.Equal(n, r.Outcome.PartsRecorded);

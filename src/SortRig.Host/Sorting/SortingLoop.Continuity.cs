@@ -15,12 +15,34 @@ public sealed partial class SortingLoop
     private double? _decidedValue;
     private bool _streamBroken;
     private int _swapReadings;
+    private DateTimeOffset? _lastReadingTime;
+
+    // A gap between two readings of a settling part longer than this means the readings stopped
+    // (the process was suspended or starved): the window no longer shows one continuous settling,
+    // so the part is settled again rather than timed out as unstable. A quarter of the time allowed
+    // to settle, and at least three reading periods (our choice).
+    private TimeSpan StallGap => TimeSpan.FromTicks(Math.Max(
+        _ctx.Plan.Settle.MaxSettleTime.Ticks / 4,
+        TimeSpan.FromSeconds(3 / _ctx.Plan.Decision.Nplc.ReadingsPerSecond).Ticks));
+
+    private async Task DetectStallAsync(Reading reading, CancellationToken ct)
+    {
+        var gap = reading.Time - (_lastReadingTime ?? reading.Time);
+        _lastReadingTime = reading.Time;
+        if (gap > StallGap && _tracker.State.IsBusy())
+        {
+            _tracker.Remeasure();
+            await _ctx.Announcer.AnnounceAsync(
+                Announcement.Info(FormattableString.Invariant($"no reading for {gap.TotalSeconds:0} s: measuring the part again")), ct).ConfigureAwait(false);
+        }
+    }
 
     // The tracker learns that a part was taken out from overload readings. When a meter fault cut
     // the readings off while it waited for that, the operator may have taken the part out and put
     // the next one in meanwhile: without a check the loop would wait for a removal it already missed.
     private void NoteStreamBroken()
     {
+        _lastReadingTime = null; // the gap that follows is the fault's, already dealt with
         if (_tracker.State == SettleState.AwaitingRemoval)
         {
             _streamBroken = true;
