@@ -1,5 +1,6 @@
 using SortRig.Host.Sorting;
 using SortRig.Simulator;
+using SortRig.Simulator.Faults;
 using SortRig.Simulator.Physics;
 
 namespace SortRig.Host.Composition;
@@ -26,5 +27,20 @@ public static class DemoBench
             TolerancePercent = sort.StockTolerance * 100,
             Distribution = ValueDistribution.Normal(0.4),
         },
+        Faults = FaultsFor(sort.FaultsPerThousand),
     };
+
+    /// <summary>Spreads <see cref="SortOptions.FaultsPerThousand"/> evenly over the five fault kinds.</summary>
+    public static FaultOptions FaultsFor(double perThousand)
+    {
+        var rate = perThousand / 1000 / Enum.GetValues<FaultKind>().Length;
+        return new FaultOptions
+        {
+            DropRate = rate,
+            DelayRate = rate,
+            GarbleRate = rate,
+            SpuriousErrorRate = rate,
+            SilentResetRate = rate,
+        };
+    }
 }

@@ -38,8 +38,12 @@ public static class SortRunner
     /// <param name="services">Shared services.</param>
     /// <param name="onSimulatorStarted">Called with the embedded simulator once it serves (tests read its truth).</param>
     /// <param name="ct">Stops the session.</param>
-    public static async Task<SortOutcome> RunAsync(
-        SortOptions options, SortServices services, Action<SimulatedBench>? onSimulatorStarted, CancellationToken ct)
+    public static Task<SortOutcome> RunAsync(
+        SortOptions options, SortServices services, Action<SimulatedBench>? onSimulatorStarted, CancellationToken ct) =>
+        RunWithHooksAsync(options, services, new SimulatorHooks { Started = onSimulatorStarted }, ct);
+
+    /// <summary>Runs one session to its end with test hooks for the embedded simulator.</summary>
+    internal static async Task<SortOutcome> RunWithHooksAsync(SortOptions options, SortServices services, SimulatorHooks hooks, CancellationToken ct)
     {
         var profile = ProfileLocator.Load(options.Profile);
         var plan = SortPlan.For(options, profile.Spec);
@@ -52,11 +56,13 @@ public static class SortRunner
             {
                 var parts = options.Parts > 0 ? options.Parts : DemoBench.DefaultParts;
                 options.Parts = parts;
-                bench = new SimulatedBench(DemoBench.For(options, parts), services.Time, services.Loggers);
-                var endpoint = await bench.StartTcpAsync(0, ct).ConfigureAwait(false);
-                resource = $"TCPIP::127.0.0.1::{endpoint.Port}::SOCKET";
+                var benchOptions = DemoBench.For(options, parts);
+                bench = new SimulatedBench(hooks.Configure?.Invoke(benchOptions) ?? benchOptions, services.Time, services.Loggers);
+                resource = hooks.Serve is { } serve
+                    ? await serve(bench, ct).ConfigureAwait(false)
+                    : $"TCPIP::127.0.0.1::{(await bench.StartTcpAsync(0, ct).ConfigureAwait(false)).Port}::SOCKET";
                 hands = new SimulatorHands(bench.Operator);
-                onSimulatorStarted?.Invoke(bench);
+                hooks.Started?.Invoke(bench);
             }
 
             ResourceStringParser.Parse(resource); // a bad resource fails here, before the log is opened

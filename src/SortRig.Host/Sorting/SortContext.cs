@@ -40,4 +40,5 @@ public sealed record SortContext(
 /// <param name="Unstable">Parts declared unstable during this run.</param>
 /// <param name="Faults">Instrument faults recovered from during this run.</param>
 /// <param name="FinishedByOperator">True when the operator pressed finish.</param>
-public sealed record SortOutcome(long SessionId, int PartsRecorded, int Accepted, int Unstable, int Faults, bool FinishedByOperator);
+/// <param name="StorageFaults">Failed writes to the precision log that were retried until they went through.</param>
+public sealed record SortOutcome(long SessionId, int PartsRecorded, int Accepted, int Unstable, int Faults, bool FinishedByOperator, int StorageFaults = 0);

@@ -31,6 +31,6 @@ internal static class SortSummary
 
         console.Write(table);
         console.MarkupLine(string.Create(CultureInfo.InvariantCulture,
-            $"accepted {outcome.Accepted}, unstable {outcome.Unstable}, meter faults recovered {outcome.Faults}{(outcome.FinishedByOperator ? ", finished by the operator" : "")}"));
+            $"accepted {outcome.Accepted}, unstable {outcome.Unstable}, meter faults recovered {outcome.Faults}{(outcome.StorageFaults > 0 ? $", storage faults waited out {outcome.StorageFaults}" : "")}{(outcome.FinishedByOperator ? ", finished by the operator" : "")}"));
     }
 }

@@ -8,8 +8,6 @@ namespace SortRig.Host.Sorting;
 
 public sealed partial class SortingLoop
 {
-    private static readonly TimeSpan s_storageRetry = TimeSpan.FromSeconds(2);
-
     private async Task AcceptAsync(SettleAcceptance acceptance, CancellationToken ct)
     {
         // A meter reset to its defaults mid-part would have changed range or NPLC under us: check
@@ -20,6 +18,7 @@ public sealed partial class SortingLoop
             return;
         }
 
+        CrashPoint.Pass("read");
         var number = _partsRecorded + 1;
         var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, acceptance.Value));
         var commit = new PartCommit(
@@ -28,7 +27,7 @@ public sealed partial class SortingLoop
         PartRecord stored;
         try
         {
-            stored = await CommitAsync(commit, ct).ConfigureAwait(false);
+            stored = await DurablyAsync($"part {number}", c => _ctx.Log.CommitPartAsync(commit, c), ct).ConfigureAwait(false);
         }
         catch
         {
@@ -36,6 +35,7 @@ public sealed partial class SortingLoop
             throw;
         }
 
+        CrashPoint.Pass("commit");
         _partsRecorded++;
         _lastLive = stored;
         _lastLiveStillInFixture = true;
@@ -53,7 +53,7 @@ public sealed partial class SortingLoop
         var commit = new PartCommit(
             Guid.NewGuid(), _session.Id, _batch.Id, new MeasuredValue(mean, spread, spread), _ctx.Plan.Range, _ctx.Plan.Nplc, null,
             _ctx.Time.GetUtcNow(), null, null, [.. _partReadings], PartState.Unstable);
-        var stored = await CommitAsync(commit, ct).ConfigureAwait(false);
+        var stored = await DurablyAsync($"part {_partsRecorded + 1}", c => _ctx.Log.CommitPartAsync(commit, c), ct).ConfigureAwait(false);
         _partsRecorded++;
         _unstable++;
         _ctx.Snapshot.Upsert(ToView(stored));
@@ -66,41 +66,8 @@ public sealed partial class SortingLoop
         };
         await _ctx.Announcer.AnnounceAsync(
             new Announcement(AnnouncementKind.Unstable, stored.Number, "", mean, double.NaN, why), ct).ConfigureAwait(false);
-        await _ctx.Log.MarkAnnouncedAsync(stored.Id, ct).ConfigureAwait(false);
+        await DurablyAsync($"the announcement of part {stored.Number}", c => _ctx.Log.MarkAnnouncedAsync(stored.Id, c), ct).ConfigureAwait(false);
         _ctx.Hands.PartAnnounced();
-    }
-
-    // Durable before announced: the announcement only follows a committed part. A storage fault
-    // pauses the loop and retries the same idempotent commit until it goes through.
-    private async Task<PartRecord> CommitAsync(PartCommit commit, CancellationToken ct)
-    {
-        var told = false;
-        while (true)
-        {
-            try
-            {
-                var stored = await _ctx.Log.CommitPartAsync(commit, ct).ConfigureAwait(false);
-                if (told)
-                {
-                    await _ctx.Announcer.AnnounceAsync(Announcement.Info("storage is back: part saved, carrying on"), ct).ConfigureAwait(false);
-                }
-
-                return stored;
-            }
-            catch (StorageException e) when (!ct.IsCancellationRequested)
-            {
-                LogStorageFault(_ctx.Logger, e.Operation, e.Fault.ToString(), e.Message);
-                if (!told)
-                {
-                    told = true;
-                    await _ctx.Announcer.AnnounceAsync(
-                        Announcement.Info($"storage fault ({e.Fault}): paused, nothing lost; the part stays in the fixture until it is saved. {e.Message}"),
-                        ct).ConfigureAwait(false);
-                }
-
-                await Task.Delay(s_storageRetry, _ctx.Time, ct).ConfigureAwait(false);
-            }
-        }
     }
 
     private async Task AnnounceStoredAsync(PartRecord part, AnnouncementKind kind, bool completesSet, CancellationToken ct)
@@ -113,7 +80,8 @@ public sealed partial class SortingLoop
 
         await _ctx.Announcer.AnnounceAsync(
             new Announcement(kind, part.Number, label, part.Value, part.DeviationPpm, "", completesSet), ct).ConfigureAwait(false);
-        var announced = await _ctx.Log.MarkAnnouncedAsync(part.Id, ct).ConfigureAwait(false);
+        CrashPoint.Pass("announce");
+        var announced = await DurablyAsync($"the announcement of part {part.Number}", c => _ctx.Log.MarkAnnouncedAsync(part.Id, c), ct).ConfigureAwait(false);
         _ctx.Snapshot.Upsert(ToView(announced));
     }
 }

@@ -27,11 +27,17 @@ public sealed partial class SortingLoop
         }
     }
 
+    // Opens, identifies (once per run: the batch records the instrument) and configures a meter.
     private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
     {
         var meter = await _ctx.ConnectAsync(ct).ConfigureAwait(false);
         try
         {
+            if (_meterIdentity.Length == 0)
+            {
+                _meterIdentity = (await meter.IdentifyAsync(ct).ConfigureAwait(false)).ToString();
+            }
+
             await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
             return meter;
         }
@@ -60,12 +66,19 @@ public sealed partial class SortingLoop
             _tracker.Remeasure();
         }
 
+        NoteStreamBroken();
+
         _meter = await ConnectWithRetryAsync(ct).ConfigureAwait(false);
     }
 
+    // Every failed attempt is told to the operator. A setup read-back that differs (or a model
+    // that does not match) may be a reply garbled on the way or a reset between the commands and
+    // the read-back, so it is tried again; only when it persists is it a configuration mistake
+    // that stops the session.
     private async Task<IResistanceMeter> ConnectWithRetryAsync(CancellationToken ct)
     {
         var backoff = s_firstBackoff;
+        var mismatches = 0;
         while (true)
         {
             ct.ThrowIfCancellationRequested();
@@ -73,9 +86,18 @@ public sealed partial class SortingLoop
             {
                 return await ConnectAsync(ct).ConfigureAwait(false);
             }
-            catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
+            catch (Exception e) when (!ct.IsCancellationRequested && MeterFaults.IsRetryable(e, setupMayRetry: true))
             {
+                mismatches = e is InstrumentSetupException ? mismatches + 1 : 0;
+                if (mismatches > MeterFaults.SetupRetries)
+                {
+                    throw;
+                }
+
+                _faults++;
                 LogMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
+                await _ctx.Announcer.AnnounceAsync(
+                    Announcement.Info(FormattableString.Invariant($"meter: {MeterFaults.Describe(e)}; trying again in {backoff.TotalSeconds:0.##} s")), ct).ConfigureAwait(false);
                 await Task.Delay(backoff, _ctx.Time, ct).ConfigureAwait(false);
                 backoff = TimeSpan.FromTicks(Math.Min(s_lastBackoff.Ticks, backoff.Ticks * 2));
             }
@@ -100,7 +122,7 @@ public sealed partial class SortingLoop
 
             return false;
         }
-        catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
+        catch (Exception e) when (MeterFaults.IsRetryable(e, setupMayRetry: true) && !ct.IsCancellationRequested)
         {
             await RecoverAsync(e, ct).ConfigureAwait(false);
             return false;

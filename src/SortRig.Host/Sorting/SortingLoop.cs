@@ -22,6 +22,7 @@ public sealed partial class SortingLoop
     private int _partsRecorded;
     private int _unstable;
     private int _faults;
+    private int _storageFaults;
     private bool _paused;
     private bool _finishRequested;
     private PartRecord? _lastLive;
@@ -43,8 +44,6 @@ public sealed partial class SortingLoop
         {
             // Meet the meter first: the batch records which instrument measured it.
             _meter = await ConnectWithRetryAsync(cancellationToken).ConfigureAwait(false);
-            var id = await _meter.IdentifyAsync(cancellationToken).ConfigureAwait(false);
-            _meterIdentity = id.ToString();
             await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
             while (!cancellationToken.IsCancellationRequested && !Done)
             {
@@ -69,7 +68,7 @@ public sealed partial class SortingLoop
 
             if (Done)
             {
-                await _ctx.Log.FinishSessionAsync(_session.Id, cancellationToken).ConfigureAwait(false);
+                await DurablyAsync("the end of the session", c => _ctx.Log.FinishSessionAsync(_session.Id, c), cancellationToken).ConfigureAwait(false);
                 _ctx.Snapshot.UpdateSession(s => s with { Finished = true });
                 _ctx.Hub.Publish(new BenchEvent(0, BenchEventKind.Finished, default, Text: $"{_partsRecorded} parts"));
             }
@@ -83,7 +82,7 @@ public sealed partial class SortingLoop
         }
 
         var live = _ctx.Snapshot.Parts().Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
-        return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, _faults, _finishRequested);
+        return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, _faults, _finishRequested, _storageFaults);
     }
 
     private bool Done => _finishRequested || (PlannedParts > 0 && _partsRecorded >= PlannedParts && !_tracker.State.IsBusy());
@@ -92,6 +91,8 @@ public sealed partial class SortingLoop
 
     private async Task OnReadingAsync(Reading reading, CancellationToken ct)
     {
+        await DetectStallAsync(reading, ct).ConfigureAwait(false);
+        await DetectSwapAsync(reading, ct).ConfigureAwait(false);
         var before = _tracker.State;
         if (before is SettleState.Empty && reading.IsFinite)
         {
@@ -110,9 +111,11 @@ public sealed partial class SortingLoop
         switch (verdict.State)
         {
             case SettleState.Accepted:
+                NoteDecided(verdict.Acceptance!.Value.Value);
                 await AcceptAsync(verdict.Acceptance!, ct).ConfigureAwait(false);
                 break;
             case SettleState.Unstable:
+                NoteDecided(_partReadings.Where(r => r.IsFinite).Select(r => r.Value).DefaultIfEmpty(double.NaN).Average());
                 await RecordUnstableAsync(verdict.Failure!, ct).ConfigureAwait(false);
                 break;
             case SettleState.Removed:

@@ -1,0 +1,92 @@
+using SortRig.Host.Announcing;
+using SortRig.Measurement.Readings;
+using SortRig.Measurement.Settling;
+
+namespace SortRig.Host.Sorting;
+
+public sealed partial class SortingLoop
+{
+    // Readings in a row, all far from the part just decided, that mean another part is in the fixture.
+    private const int SwapEvidence = 2;
+
+    // A decided part no longer cools by more than a few ppm (common practice, no source).
+    private const double SwapFloorPpm = 25;
+
+    private double? _decidedValue;
+    private bool _streamBroken;
+    private int _swapReadings;
+    private DateTimeOffset? _lastReadingTime;
+
+    // A gap between two readings of a settling part longer than this means the readings stopped
+    // (the process was suspended or starved): the window no longer shows one continuous settling,
+    // so the part is settled again rather than timed out as unstable. A quarter of the time allowed
+    // to settle, and at least three reading periods (our choice).
+    private TimeSpan StallGap => TimeSpan.FromTicks(Math.Max(
+        _ctx.Plan.Settle.MaxSettleTime.Ticks / 4,
+        TimeSpan.FromSeconds(3 / _ctx.Plan.Decision.Nplc.ReadingsPerSecond).Ticks));
+
+    private async Task DetectStallAsync(Reading reading, CancellationToken ct)
+    {
+        var gap = reading.Time - (_lastReadingTime ?? reading.Time);
+        _lastReadingTime = reading.Time;
+        if (gap > StallGap && _tracker.State.IsBusy())
+        {
+            _tracker.Remeasure();
+            await _ctx.Announcer.AnnounceAsync(
+                Announcement.Info(FormattableString.Invariant($"no reading for {gap.TotalSeconds:0} s: measuring the part again")), ct).ConfigureAwait(false);
+        }
+    }
+
+    // The tracker learns that a part was taken out from overload readings. When a meter fault cut
+    // the readings off while it waited for that, the operator may have taken the part out and put
+    // the next one in meanwhile: without a check the loop would wait for a removal it already missed.
+    private void NoteStreamBroken()
+    {
+        _lastReadingTime = null; // the gap that follows is the fault's, already dealt with
+        if (_tracker.State == SettleState.AwaitingRemoval)
+        {
+            _streamBroken = true;
+            _swapReadings = 0;
+        }
+    }
+
+    private void NoteDecided(double value)
+    {
+        _decidedValue = value;
+        _streamBroken = false;
+        _swapReadings = 0;
+    }
+
+    // Called before the tracker sees the reading: after a broken stream, readings far from the
+    // decided part's value (twice in a row, so one garbled reply is not enough) are a new part.
+    private async Task DetectSwapAsync(Reading reading, CancellationToken ct)
+    {
+        if (!_streamBroken || _tracker.State != SettleState.AwaitingRemoval || _decidedValue is not { } decided)
+        {
+            _streamBroken = false;
+            return;
+        }
+
+        if (!reading.IsFinite || Math.Abs(reading.Value - decided) <= SwapThreshold(decided))
+        {
+            _swapReadings = 0;
+            return;
+        }
+
+        if (++_swapReadings < SwapEvidence)
+        {
+            return;
+        }
+
+        _tracker.Reset();
+        _streamBroken = false;
+        _swapReadings = 0;
+        _lastLiveStillInFixture = false;
+        await _ctx.Announcer.AnnounceAsync(
+            Announcement.Info("a new part went in while the meter was away: measuring it"), ct).ConfigureAwait(false);
+    }
+
+    // The larger of 25 ppm of the value and ten times the meter's reading noise at this NPLC.
+    private double SwapThreshold(double value) =>
+        Math.Max(SwapFloorPpm * 1e-6 * Math.Abs(value), 10 * _ctx.Plan.Decision.Nplc.NoisePpmOfRange * 1e-6 * _ctx.Plan.Range);
+}

@@ -1,0 +1,36 @@
+using Microsoft.Extensions.Logging.Abstractions;
+using SortRig.Host.Composition;
+using SortRig.Host.Events;
+using SortRig.Host.Operator;
+using SortRig.Host.Sorting;
+using SortRig.Simulator;
+
+namespace SortRig.Host.Tests.Reliability.Support;
+
+/// <summary>Starts a sorting session in this process on the embedded simulator, with test hooks.</summary>
+internal sealed class InProcessSort
+{
+    private readonly TaskCompletionSource<SimulatedBench> _bench = new(TaskCreationOptions.RunContinuationsAsynchronously);
+
+    public InProcessSort(SortOptions options, TimeProvider? inner = null)
+    {
+        Options = options;
+        Time = new ScaledTimeProvider(options.Speed, inner);
+        Services = new SortServices(Time, new BenchEventHub(Time), new BenchSnapshot(), new OperatorCommands(), Ears, NullLoggerFactory.Instance);
+    }
+
+    public SortOptions Options { get; }
+
+    public ScaledTimeProvider Time { get; }
+
+    public ListeningAnnouncer Ears { get; } = new();
+
+    public SortServices Services { get; }
+
+    /// <summary>The embedded bench once it serves.</summary>
+    public Task<SimulatedBench> Bench => _bench.Task;
+
+    /// <summary>Runs the session; <paramref name="configure"/> adjusts the bench options (faults, operator).</summary>
+    public Task<SortOutcome> RunAsync(Func<SimulatedBenchOptions, SimulatedBenchOptions>? configure, CancellationToken ct) =>
+        SortRunner.RunWithHooksAsync(Options, Services, new SimulatorHooks { Configure = configure, Started = b => _bench.TrySetResult(b) }, ct);
+}

@@ -1,0 +1,170 @@
+using System.Diagnostics;
+
+namespace SortRig.Host.Tests.Reliability.Support;
+
+/// <summary>A real fault of the filesystem or of SQLite's locking, put on and taken off a database file.</summary>
+internal interface IStorageFault : IAsyncDisposable
+{
+    /// <summary>Makes writes to the database fail.</summary>
+    Task InjectAsync();
+
+    /// <summary>Takes the fault away again.</summary>
+    Task ClearAsync();
+}
+
+/// <summary>Another process holds SQLite's write lock (BEGIN EXCLUSIVE) on the file until cleared.</summary>
+internal sealed class HeldLock(string db) : IStorageFault
+{
+    private Process? _holder;
+
+    public static bool Available => File.Exists("/usr/bin/python3");
+
+    public async Task InjectAsync()
+    {
+        var start = new ProcessStartInfo("python3")
+        {
+            RedirectStandardInput = true,
+            RedirectStandardOutput = true,
+            UseShellExecute = false,
+        };
+        start.ArgumentList.Add("-c");
+        start.ArgumentList.Add(
+            "import sqlite3,sys\n" +
+            "c=sqlite3.connect(sys.argv[1],isolation_level=None,timeout=30)\n" +
+            "c.execute('BEGIN EXCLUSIVE')\nprint('locked',flush=True)\nsys.stdin.readline()\nc.execute('COMMIT')\n");
+        start.ArgumentList.Add(db);
+        _holder = Process.Start(start) ?? throw new InvalidOperationException("python3 did not start");
+        var line = await _holder.StandardOutput.ReadLineAsync();
+        Assert.Equal("locked", line);
+    }
+
+    public async Task ClearAsync()
+    {
+        if (_holder is { } holder)
+        {
+            await holder.StandardInput.WriteLineAsync();
+            await holder.WaitForExitAsync();
+            holder.Dispose();
+            _holder = null;
+        }
+    }
+
+    public ValueTask DisposeAsync() => new(ClearAsync());
+}
+
+/// <summary>
+/// The database and its WAL become immutable (chattr +i): on ext4 even writes through open file
+/// handles fail (EPERM), and root cannot open them for writing; the way to make a file read-only to root.
+/// </summary>
+internal sealed class ReadOnlyFile(string db) : IStorageFault
+{
+    private readonly string[] _files = [db, db + "-wal"];
+
+    public Task InjectAsync() => Chattr("+i");
+
+    public Task ClearAsync() => Chattr("-i");
+
+    public ValueTask DisposeAsync() => new(ClearAsync());
+
+    private async Task Chattr(string flag)
+    {
+        foreach (var file in _files.Where(File.Exists))
+        {
+            var (code, text) = await Shell.RunAsync("chattr", flag, file);
+            Assert.True(code == 0, $"chattr {flag} {file}: {text}");
+        }
+    }
+}
+
+/// <summary>The small tmpfs the database lives on is filled up by another file.</summary>
+internal sealed class FullDisk(string mountPoint) : IStorageFault
+{
+    private readonly string _filler = Path.Combine(mountPoint, "filler.bin");
+
+    public async Task InjectAsync()
+    {
+        var block = new byte[64 * 1024];
+        await using var stream = new FileStream(_filler, FileMode.Create, FileAccess.Write, FileShare.None, 1, FileOptions.None);
+        try
+        {
+            while (true)
+            {
+                stream.Write(block);
+                stream.Flush();
+            }
+        }
+        catch (IOException)
+        {
+            // ENOSPC: full.
+        }
+
+        // The last partial block: fill byte by byte until nothing fits.
+        try
+        {
+            while (true)
+            {
+                stream.WriteByte(0);
+                stream.Flush();
+            }
+        }
+        catch (IOException)
+        {
+            // Full to the last byte.
+        }
+    }
+
+    public Task ClearAsync()
+    {
+        File.Delete(_filler);
+        return Task.CompletedTask;
+    }
+
+    public ValueTask DisposeAsync() => new(ClearAsync());
+}
+
+/// <summary>A small tmpfs mounted for one test (needs root), unmounted at the end.</summary>
+internal sealed class Tmpfs : IAsyncDisposable
+{
+    private Tmpfs(string path) => Path = path;
+
+    public string Path { get; }
+
+    /// <summary>Mounts, or returns null with the reason when mounting is not permitted here.</summary>
+    public static async Task<(Tmpfs? Mount, string Why)> MountAsync(string sizeSpec)
+    {
+        var path = Directory.CreateTempSubdirectory("sortrig-tmpfs-").FullName;
+        var (code, text) = await Shell.RunAsync("mount", "-t", "tmpfs", "-o", $"size={sizeSpec}", "tmpfs", path);
+        if (code == 0)
+        {
+            return (new Tmpfs(path), "");
+        }
+
+        Directory.Delete(path);
+        return (null, text);
+    }
+
+    public async ValueTask DisposeAsync()
+    {
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        await Shell.RunAsync("umount", "-l", Path);
+        Directory.Delete(Path, recursive: true);
+    }
+}
+
+/// <summary>Runs a system command, returns its exit code and output.</summary>
+internal static class Shell
+{
+    public static async Task<(int Code, string Output)> RunAsync(string file, params string[] args)
+    {
+        var start = new ProcessStartInfo(file) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        foreach (var a in args)
+        {
+            start.ArgumentList.Add(a);
+        }
+
+        using var p = Process.Start(start)!;
+        var output = await p.StandardOutput.ReadToEndAsync() + await p.StandardError.ReadToEndAsync();
+        await p.WaitForExitAsync();
+        return (p.ExitCode, output.Trim());
+    }
+}
