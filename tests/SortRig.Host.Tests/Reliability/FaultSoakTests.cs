@@ -29,7 +29,9 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
         SoakChecks.AssertSurvived(r, output);
     }
 
+    // Long: run by scripts/soak (or `dotnet test --filter Category=Soak`), not by the default test command.
     [SocatFact]
+    [Trait("Category", "Soak")]
     public async Task Soak_SerialWithCablePulled_EveryPartLoggedOnceInItsTrueCup()
     {
         var settings = SoakSettings.FromEnvironment(parts: 500, faultRate: 0.065, speed: 200, seed: 7002);
