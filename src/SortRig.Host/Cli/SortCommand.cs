@@ -27,6 +27,7 @@ internal static class SortCommand
         map.Add(command, new Option<double>("--tolerance") { Description = "Stock tolerance as a fraction, 0.01 = 1 % (default 0.01)" }, "Sort:StockTolerance");
         map.Add(command, new Option<double>("--match") { Description = "Match tolerance as a fraction, 0.001 = 0.1 % (default 0.001)" }, "Sort:MatchTolerance");
         map.Add(command, new Option<int>("--cups") { Description = "Cups besides the reject cup (default 12)" }, "Sort:Cups");
+        map.Add(command, new Option<string>("--assigner") { Description = "bands (default), adaptive (edges learned from the reel) or slots (numbered tray slots)" }, "Sort:Assigner");
         map.Add(command, new Option<double>("--nplc") { Description = "Integration time in power-line cycles (default 1)" }, "Sort:Nplc");
         map.Add(command, new Option<bool>("--four-wire") { Description = "Measure 4-wire" }, "Sort:FourWire");
         map.Add(command, new Option<int>("--parts") { Description = "Stop after this many parts; on the simulator the demo reel's length (default 60)" }, "Sort:Parts");

@@ -71,7 +71,7 @@ public static class SortRunner
                 options.Database,
                 new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
                 ct).ConfigureAwait(false);
-            var cups = new BandCupAssigner(new BandCupOptions(options.Cups, options.MatchTolerance * 1e6, options.Nominal, options.StockTolerance * 100));
+            var cups = CupAssignerFactory.Create(options);
             var context = new SortContext(
                 plan,
                 c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),

@@ -41,6 +41,18 @@ public sealed class SortOptions
     [Range(1, 26)]
     public int Cups { get; set; } = 12;
 
+    /// <summary>
+    /// How parts are placed: "bands" (fixed bands of the match width around nominal), "adaptive"
+    /// (band edges placed where the reel's values fall, learned from the first parts), or "slots"
+    /// (numbered tray slots, for exact-value set assembly with the plan verb). Default "bands".
+    /// </summary>
+    [RegularExpression("^(bands|adaptive|slots)$", ErrorMessage = "Sort:Assigner must be bands, adaptive or slots.")]
+    public string Assigner { get; set; } = "bands";
+
+    /// <summary>Parts per matched set, for the adaptive planner's "set complete" call. Default 4; 1..64.</summary>
+    [Range(1, 64)]
+    public int PartsPerSet { get; set; } = 4;
+
     /// <summary>Integration time in power-line cycles. Default 1.</summary>
     [Range(0.001, 1000)]
     public double Nplc { get; set; } = 1;

@@ -23,7 +23,10 @@ public sealed partial class SortingLoop
         var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, acceptance.Value));
         var commit = new PartCommit(
             Guid.NewGuid(), _session.Id, _batch.Id, acceptance.Value, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
-            acceptance.Readings[^1].Time, decision.CupLabel, null, [.. _partReadings], PartState.Accepted);
+            acceptance.Readings[^1].Time,
+            Composition.CupAssignerFactory.IsSlots(_ctx.Cups) ? null : decision.CupLabel,
+            Composition.CupAssignerFactory.IsSlots(_ctx.Cups) ? decision.CupLabel : null,
+            [.. _partReadings], PartState.Accepted);
         PartRecord stored;
         try
         {

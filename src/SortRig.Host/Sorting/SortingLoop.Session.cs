@@ -30,8 +30,8 @@ public sealed partial class SortingLoop
         var parts = await log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
         _partsRecorded = parts.Count;
         var history = parts
-            .Where(p => p.IsLive && p.CupLabel is not null)
-            .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), p.CupLabel!))
+            .Where(p => p.IsLive && (p.CupLabel ?? p.SlotLabel) is not null)
+            .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), (p.CupLabel ?? p.SlotLabel)!))
             .ToList();
         _ctx.Cups.Restore(history);
         foreach (var p in parts)
