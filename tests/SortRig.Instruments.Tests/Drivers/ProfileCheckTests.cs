@@ -51,7 +51,7 @@ public sealed class ProfileCheckTests
     {
         var dmm = new ScriptedDmm();
         dmm.Overrides["READ?"] = () => PeerAction.Silent;
-        var profile = TestProfiles.Simulator(queryTimeoutSeconds: 0.2);
+        var profile = TestProfiles.Simulator(queryTimeoutSeconds: 1.0  /* long enough that a loaded machine answers every other query */);
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var session = await peer.ConnectSessionAsync(new ScpiSessionOptions(profile.Comms.QueryTimeout));
         var report = await new ProfileCheck().RunAsync(session, profile, s_none);

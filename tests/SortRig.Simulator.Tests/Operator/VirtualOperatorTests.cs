@@ -100,9 +100,20 @@ public sealed class VirtualOperatorTests : IAsyncLifetime
 
         _bench.Operator.OnPartAnnounced();
         await VirtualTime.EventuallyAsync(() => _bench.Operator.State == OperatorState.Reacting, "removal");
-        _clock.Advance(TimeSpan.FromSeconds(1));
 
-        await VirtualTime.EventuallyAsync(() => _bench.Operator.State == OperatorState.Finished, "finished");
+        // Step the clock until the operator has noticed the empty reel: its reaction timer may be
+        // created just after a single Advance on a loaded machine.
+        await VirtualTime.EventuallyAsync(
+            () =>
+            {
+                if (_bench.Operator.State != OperatorState.Finished)
+                {
+                    _clock.Advance(TimeSpan.FromMilliseconds(100));
+                }
+
+                return _bench.Operator.State == OperatorState.Finished;
+            },
+            "finished");
         _clock.Advance(TimeSpan.FromMinutes(5));
         Assert.False(_bench.Fixture.IsOccupied);
         Assert.Equal(4, _bench.Operator.NextIndex);
