@@ -64,12 +64,20 @@ public sealed partial class SortingLoop
         _swapReadings = 0;
     }
 
-    // Called before the tracker sees the reading, after a broken stream: readings far from the
+    // Called before the tracker sees the reading, after a broken stream (a meter fault, or an
+    // overload, while waiting for the decided part to be taken out): readings far from the
     // decided part's value (twice in a row, so one garbled reply is not enough) are a new part; so
     // is a part that reads like it but stays in the fixture (values alone cannot tell two parts
     // closer than the threshold apart).
     private async Task DetectSwapAsync(Reading reading, CancellationToken ct)
     {
+        // One overload is not yet a removal (the tracker wants two in a row), but it shows the contact
+        // opened: a quick hand may have changed the part within one reading period.
+        if (_tracker.State == SettleState.AwaitingRemoval && !reading.IsFinite)
+        {
+            _streamBroken = true;
+        }
+
         if (!_streamBroken || _tracker.State != SettleState.AwaitingRemoval || _decidedValue is not { } decided)
         {
             _streamBroken = false;
@@ -87,7 +95,7 @@ public sealed partial class SortingLoop
         string? why = null;
         if (Math.Abs(reading.Value - decided) > SwapThreshold(decided))
         {
-            why = ++_swapReadings >= SwapEvidence ? "a new part went in while the meter was away: measuring it" : null;
+            why = ++_swapReadings >= SwapEvidence ? "a new part went in before the fixture was seen empty: measuring it" : null;
         }
         else
         {

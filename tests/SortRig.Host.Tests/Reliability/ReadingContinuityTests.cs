@@ -5,6 +5,7 @@ using SortRig.Simulator.Faults;
 using SortRig.Simulator.Operator;
 using SortRig.Simulator.Physics;
 using SortRig.Storage;
+using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Reliability;
 
@@ -13,7 +14,7 @@ namespace SortRig.Host.Tests.Reliability;
 /// stalled while a part settled. Each provoked on purpose on the real simulator.
 /// </summary>
 [Collection(ReliabilityCollection.Name)]
-public sealed class ReadingContinuityTests : IDisposable
+public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposable
 {
     private static readonly TimeSpan s_limit = TimeSpan.FromSeconds(60);
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-continuity-").FullName;
@@ -32,7 +33,7 @@ public sealed class ReadingContinuityTests : IDisposable
         var outcome = await run;
 
         Assert.Equal(2, outcome.PartsRecorded);
-        Assert.Contains("a new part went in while the meter was away", sort.Ears.Text, StringComparison.Ordinal);
+        Assert.Contains("a new part went in before the fixture was seen empty", sort.Ears.Text, StringComparison.Ordinal);
         await using var log = await PrecisionLogFactory.OpenAsync(sort.Options.Database, null, default);
         var second = (await log.GetPartsAsync(outcome.SessionId, default))[1];
         Assert.InRange(second.Value, bench.Truth(1) - second.Measured.Expanded, bench.Truth(1) + second.Measured.Expanded);
@@ -57,6 +58,35 @@ public sealed class ReadingContinuityTests : IDisposable
 
         Assert.Equal(2, outcome.PartsRecorded);
         Assert.Contains("a part is still in the fixture after the meter came back", sort.Ears.Text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task PartSwappedWithinOneReading_NewPartIsMeasured()
+    {
+        // A quick hand: the fixture is empty for one reading only (the tracker wants two overloads
+        // in a row to call it a removal) before the next part goes in. No meter fault at all.
+        var sort = new InProcessSort(Options(parts: 2, speed: 5));
+        using var cts = new CancellationTokenSource(s_limit);
+        var run = sort.RunAsync(b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual }, ContactBounce = TimeSpan.Zero }, cts.Token);
+        var bench = await sort.Bench;
+        var first = sort.Ears.HeardAsync(l => l.StartsWith("part 1: cup", StringComparison.Ordinal), s_limit);
+        await InProcessSort.UntilAsync(() => sort.Services.Snapshot.Session is not null, s_limit, "the session to open");
+        bench.Fixture.Insert(bench.Reel[0], warmKelvin: 3);
+        await first;
+
+        var seen = sort.Services.Hub.History()[^1].Sequence;
+        bench.Fixture.Remove();
+        await InProcessSort.UntilAsync(
+            () => sort.Services.Hub.History().Any(e => e.Sequence > seen && e.Value is double.PositiveInfinity), s_limit, "one overload reading");
+        bench.Fixture.Insert(bench.Reel[1], warmKelvin: 3);
+
+        var outcome = await run;
+
+        output.WriteLine(sort.Ears.Text);
+        Assert.Equal(2, outcome.PartsRecorded);
+        await using var log = await PrecisionLogFactory.OpenAsync(sort.Options.Database, null, default);
+        var second = (await log.GetPartsAsync(outcome.SessionId, default))[1];
+        Assert.InRange(second.Value, bench.Truth(1) - second.Measured.Expanded, bench.Truth(1) + second.Measured.Expanded);
     }
 
     [Fact]
