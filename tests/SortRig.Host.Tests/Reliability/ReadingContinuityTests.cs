@@ -90,6 +90,31 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
     }
 
     [Fact]
+    public async Task PartSwappedUnseenInAGapBetweenReadings_NewPartIsMeasured()
+    {
+        // The part is changed in one move (no reading ever sees the fixture empty) while the
+        // readings pause for 2.5 s of bench time (the process was busy): no fault, no overload.
+        var clock = new SteppedClock();
+        var sort = new InProcessSort(Options(parts: 2, speed: 5), clock);
+        using var cts = new CancellationTokenSource(s_limit);
+        var run = sort.RunAsync(b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual }, ContactBounce = TimeSpan.Zero }, cts.Token);
+        var bench = await sort.Bench;
+        var first = sort.Ears.HeardAsync(l => l.StartsWith("part 1: cup", StringComparison.Ordinal), s_limit);
+        await InProcessSort.UntilAsync(() => sort.Services.Snapshot.Session is not null, s_limit, "the session to open");
+        bench.Fixture.Insert(bench.Reel[0], warmKelvin: 3);
+        await first;
+
+        bench.Fixture.Remove();
+        bench.Fixture.Insert(bench.Reel[1], warmKelvin: 3);
+        clock.Step(TimeSpan.FromSeconds(0.5));
+
+        var outcome = await run;
+
+        output.WriteLine(sort.Ears.Text);
+        Assert.Equal(2, outcome.PartsRecorded);
+    }
+
+    [Fact]
     public async Task HostStalledWhileSettling_PartMeasuredAgainNotDeclaredUnstable()
     {
         // The process stalls for 1 s of wall time (50 s on the bench clock, past the 40 s allowed to
