@@ -10,8 +10,6 @@ public sealed partial class SortingLoop
     private static readonly TimeSpan s_firstBackoff = TimeSpan.FromMilliseconds(250);
     private static readonly TimeSpan s_lastBackoff = TimeSpan.FromSeconds(5);
 
-    private ResistanceSetup Setup => new(_ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
-
     // One reading, or null after a fault was recovered from (the caller simply reads again).
     private async Task<Reading?> ReadAsync(CancellationToken ct)
     {
@@ -24,27 +22,6 @@ public sealed partial class SortingLoop
         {
             await RecoverAsync(e, ct).ConfigureAwait(false);
             return null;
-        }
-    }
-
-    // Opens, identifies (once per run: the batch records the instrument) and configures a meter.
-    private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
-    {
-        var meter = await _ctx.ConnectAsync(ct).ConfigureAwait(false);
-        try
-        {
-            if (_meterIdentity.Length == 0)
-            {
-                _meterIdentity = (await meter.IdentifyAsync(ct).ConfigureAwait(false)).ToString();
-            }
-
-            await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
-            return meter;
-        }
-        catch
-        {
-            await meter.DisposeAsync().ConfigureAwait(false);
-            throw;
         }
     }
 
@@ -101,31 +78,6 @@ public sealed partial class SortingLoop
                 await Task.Delay(backoff, _ctx.Time, ct).ConfigureAwait(false);
                 backoff = TimeSpan.FromTicks(Math.Min(s_lastBackoff.Ticks, backoff.Ticks * 2));
             }
-        }
-    }
-
-    private async Task<bool> VerifySetupAsync(CancellationToken ct)
-    {
-        try
-        {
-            if (_meter is not null && await _meter.VerifySetupAsync(ct).ConfigureAwait(false))
-            {
-                return true;
-            }
-
-            _faults++;
-            await _ctx.Announcer.AnnounceAsync(Announcement.Info("meter lost its range/NPLC settings (reset?): re-applied, measuring again"), ct).ConfigureAwait(false);
-            if (_meter is not null)
-            {
-                await _meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
-            }
-
-            return false;
-        }
-        catch (Exception e) when (MeterFaults.IsRetryable(e, setupMayRetry: true) && !ct.IsCancellationRequested)
-        {
-            await RecoverAsync(e, ct).ConfigureAwait(false);
-            return false;
         }
     }
 

@@ -31,6 +31,25 @@ internal sealed class InProcessSort
     public Task<SimulatedBench> Bench => _bench.Task;
 
     /// <summary>Runs the session; <paramref name="configure"/> adjusts the bench options (faults, operator).</summary>
-    public Task<SortOutcome> RunAsync(Func<SimulatedBenchOptions, SimulatedBenchOptions>? configure, CancellationToken ct) =>
-        SortRunner.RunWithHooksAsync(Options, Services, new SimulatorHooks { Configure = configure, Started = b => _bench.TrySetResult(b) }, ct);
+    public Task<SortOutcome> RunAsync(Func<SimulatedBenchOptions, SimulatedBenchOptions>? configure, CancellationToken ct)
+    {
+        var run = SortRunner.RunWithHooksAsync(Options, Services, new SimulatorHooks { Configure = configure, Started = b => _bench.TrySetResult(b) }, ct);
+
+        // A run that fails before the bench serves must not leave a test waiting for the bench.
+        _ = run.ContinueWith(
+            t => _bench.TrySetException(t.Exception?.InnerExceptions ?? [new OperationCanceledException()]),
+            CancellationToken.None, TaskContinuationOptions.NotOnRanToCompletion, TaskScheduler.Default);
+        return run;
+    }
+
+    /// <summary>Polls until <paramref name="condition"/> holds; fails the test after <paramref name="limit"/>.</summary>
+    public static async Task UntilAsync(Func<bool> condition, TimeSpan limit, string what)
+    {
+        var deadline = DateTimeOffset.UtcNow + limit;
+        while (!condition())
+        {
+            Assert.True(DateTimeOffset.UtcNow < deadline, $"timed out waiting for {what}");
+            await Task.Delay(1);
+        }
+    }
 }

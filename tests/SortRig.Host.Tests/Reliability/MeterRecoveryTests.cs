@@ -7,73 +7,14 @@ using SortRig.Storage;
 
 namespace SortRig.Host.Tests.Reliability;
 
-/// <summary>Single recoveries of the sorting loop, each provoked on purpose on the real simulator.</summary>
+/// <summary>Meter recoveries of the sorting loop, each provoked on purpose on the real simulator.</summary>
 [Collection(ReliabilityCollection.Name)]
-public sealed class LoopRecoveryTests : IDisposable
+public sealed class MeterRecoveryTests : IDisposable
 {
     private static readonly TimeSpan s_limit = TimeSpan.FromSeconds(60);
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-recover-").FullName;
 
     public void Dispose() => Directory.Delete(_dir, recursive: true);
-
-    [Fact]
-    public async Task PartSwappedWhileMeterAway_NewPartIsMeasuredAndAnnounced()
-    {
-        var sort = new InProcessSort(Options(parts: 2, speed: 50));
-        using var cts = new CancellationTokenSource(s_limit);
-        var run = sort.RunAsync(b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual } }, cts.Token);
-        var bench = await sort.Bench;
-        var first = sort.Ears.HeardAsync(l => l.StartsWith("part 1: cup", StringComparison.Ordinal), s_limit);
-        while (sort.Services.Snapshot.Session is null)
-        {
-            await Task.Delay(5);
-        }
-
-        bench.Fixture.Insert(bench.Reel[0], warmKelvin: 3);
-        await first;
-
-        // The next reply is held back 30 s: the loop times out and reconnects. Meanwhile the part is
-        // taken out and the next one put in, so the loop never reads the empty fixture.
-        bench.Faults.ReplyDelay = TimeSpan.FromSeconds(30);
-        bench.Faults.Inject(FaultKind.DelayReply);
-        while (bench.Faults.Log.Count(FaultKind.DelayReply) == 0)
-        {
-            await Task.Delay(1);
-        }
-
-        bench.Fixture.Remove();
-        bench.Fixture.Insert(bench.Reel[1], warmKelvin: 3);
-
-        var outcome = await run;
-
-        Assert.Equal(2, outcome.PartsRecorded);
-        Assert.Contains("a new part went in while the meter was away", sort.Ears.Text, StringComparison.Ordinal);
-        await using var log = await PrecisionLogFactory.OpenAsync(sort.Options.Database, null, default);
-        var second = (await log.GetPartsAsync(outcome.SessionId, default))[1];
-        Assert.InRange(second.Value, bench.Truth(1) - second.Measured.Expanded, bench.Truth(1) + second.Measured.Expanded);
-    }
-
-    [Fact]
-    public async Task HostStalledWhileSettling_PartMeasuredAgainNotDeclaredUnstable()
-    {
-        // The process stalls for 1 s of wall time (50 s on the bench clock, past the 40 s allowed to
-        // settle) while a part is settling: the readings around the gap do not describe one settling.
-        var clock = new SteppedClock();
-        var sort = new InProcessSort(Options(parts: 1, speed: 50), clock);
-        using var cts = new CancellationTokenSource(s_limit);
-        var run = sort.RunAsync(null, cts.Token);
-        while (!sort.Services.Hub.History().Any(e => e.State == "Settling"))
-        {
-            await Task.Delay(1);
-        }
-
-        clock.Step(TimeSpan.FromSeconds(1));
-        var outcome = await run;
-
-        Assert.Equal(0, outcome.Unstable);
-        Assert.Equal(1, outcome.Accepted);
-        Assert.Contains("measuring the part again", sort.Ears.Text, StringComparison.Ordinal);
-    }
 
     [Fact]
     public async Task MeterResetBetweenSetupAndReadBack_RetriedAndSessionCarriesOn()

@@ -1,0 +1,55 @@
+using SortRig.Host.Announcing;
+using SortRig.Instruments.Drivers;
+
+namespace SortRig.Host.Sorting;
+
+public sealed partial class SortingLoop
+{
+    private ResistanceSetup Setup => new(_ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
+
+    // Opens, identifies (once per run: the batch records the instrument) and configures a meter.
+    private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
+    {
+        var meter = await _ctx.ConnectAsync(ct).ConfigureAwait(false);
+        try
+        {
+            if (_meterIdentity.Length == 0)
+            {
+                _meterIdentity = (await meter.IdentifyAsync(ct).ConfigureAwait(false)).ToString();
+            }
+
+            await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+            return meter;
+        }
+        catch
+        {
+            await meter.DisposeAsync().ConfigureAwait(false);
+            throw;
+        }
+    }
+
+    private async Task<bool> VerifySetupAsync(CancellationToken ct)
+    {
+        try
+        {
+            if (_meter is not null && await _meter.VerifySetupAsync(ct).ConfigureAwait(false))
+            {
+                return true;
+            }
+
+            _faults++;
+            await _ctx.Announcer.AnnounceAsync(Announcement.Info("meter lost its range/NPLC settings (reset?): re-applied, measuring again"), ct).ConfigureAwait(false);
+            if (_meter is not null)
+            {
+                await _meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+            }
+
+            return false;
+        }
+        catch (Exception e) when (MeterFaults.IsRetryable(e, setupMayRetry: true) && !ct.IsCancellationRequested)
+        {
+            await RecoverAsync(e, ct).ConfigureAwait(false);
+            return false;
+        }
+    }
+}
