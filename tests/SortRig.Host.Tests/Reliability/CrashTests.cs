@@ -3,6 +3,7 @@ using Microsoft.Data.Sqlite;
 using SortRig.Host.Composition;
 using SortRig.Host.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
+using SortRig.Host.Tests.Sorting;
 using SortRig.Simulator;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;

@@ -27,6 +27,7 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
         output.WriteLine(FaultSoak.Figures("tcp", r, 0));
         SoakSettings.Report(FaultSoak.Figures("tcp", r, 0));
         SoakChecks.AssertSurvived(r, output);
+        SoakSettings.AssertSuiteFloor(settings, r);
     }
 
     // Long: run by scripts/soak (or `dotnet test --filter Category=Soak`), not by the default test command.
@@ -78,6 +79,7 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
         output.WriteLine(FaultSoak.Figures("serial", r, cable.Pulls));
         SoakSettings.Report(FaultSoak.Figures("serial", r, cable.Pulls));
         SoakChecks.AssertSurvived(r, output);
+        SoakSettings.AssertSuiteFloor(settings, r);
         Assert.True(cable.Pulls > 0);
     }
 

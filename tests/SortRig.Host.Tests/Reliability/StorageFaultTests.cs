@@ -1,6 +1,7 @@
 using Microsoft.Data.Sqlite;
 using SortRig.Host.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
+using SortRig.Host.Tests.Sorting;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
 using Xunit.Abstractions;

@@ -4,8 +4,6 @@ using SortRig.Host.Composition;
 using SortRig.Host.Events;
 using SortRig.Host.Operator;
 using SortRig.Host.Sorting;
-using SortRig.Measurement.Uncertainty;
-using SortRig.Planning.Cups;
 using SortRig.Simulator;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
@@ -64,29 +62,8 @@ public sealed class SortEndToEndTests : IDisposable
                 + "gaps > 1 s: " + string.Join(", ", rs.Zip(rs.Skip(1)).Where(z => (z.Second.Time - z.First.Time).TotalSeconds > 1).Select(z => $"{(z.Second.Time - z.First.Time).TotalSeconds:F1} s")));
         }
 
-        var misplaced = new List<string>();
-        var excused = 0;
-        foreach (var part in stored)
-        {
-            var t = truth[part.Number];
-            var expected = CupFor(options, part.Number, t);
-            if (expected == part.CupLabel)
-            {
-                continue;
-            }
-
-            // A band edge lies between the true and the measured value; it is excused only when the
-            // true value lies within the stated expanded uncertainty of that edge.
-            var edge = EdgeBetween(options, part.Number, t, part.Value);
-            if (Math.Abs(t - edge) <= part.Measured.Expanded)
-            {
-                excused++;
-                continue;
-            }
-
-            misplaced.Add($"part {part.Number}: true {t:F3} -> {expected}, measured {part.Value:F3} ± {part.Measured.Expanded:F3} -> {part.CupLabel}");
-        }
-
+        // Each part in the cup its true value calls for, its value within its stated uncertainty of the truth.
+        var (misplaced, excused) = TruthCheck.Compare(options, stored, number => truth[number]);
         Assert.Empty(misplaced);
         Assert.True(excused <= parts / 20, $"{excused} parts sat on a band edge");
 
@@ -103,28 +80,5 @@ public sealed class SortEndToEndTests : IDisposable
         var said = System.Text.RegularExpressions.Regex.Matches(announced.ToString(), @"^part (\d+): cup (\S+) ", System.Text.RegularExpressions.RegexOptions.Multiline)
             .Select(m => $"{m.Groups[1].Value}:{m.Groups[2].Value}");
         Assert.Equal(stored.Select(p => $"{p.Number}:{p.CupLabel}"), said);
-    }
-
-    private static string CupFor(SortOptions o, long number, double ohms) =>
-        new BandCupAssigner(new BandCupOptions(o.Cups, o.MatchTolerance * 1e6, o.Nominal, o.StockTolerance * 100))
-            .Assign(new CupRequest(number, o.Nominal, new MeasuredValue(ohms, 0, 0))).CupLabel;
-
-    private static double EdgeBetween(SortOptions o, long number, double a, double b)
-    {
-        var cupA = CupFor(o, number, a);
-        for (var i = 0; i < 60; i++)
-        {
-            var mid = (a + b) / 2;
-            if (CupFor(o, number, mid) == cupA)
-            {
-                a = mid;
-            }
-            else
-            {
-                b = mid;
-            }
-        }
-
-        return (a + b) / 2;
     }
 }

@@ -1,3 +1,4 @@
+using SortRig.Host.Tests.Sorting;
 using SortRig.Simulator.Faults;
 using SortRig.Storage.Contracts;
 using Xunit.Abstractions;

@@ -3,7 +3,7 @@ using SortRig.Measurement.Uncertainty;
 using SortRig.Planning.Cups;
 using SortRig.Storage.Contracts;
 
-namespace SortRig.Host.Tests.Reliability.Support;
+namespace SortRig.Host.Tests.Sorting;
 
 /// <summary>
 /// Compares stored parts with the simulator's truth (its side channel, the outside reference):
