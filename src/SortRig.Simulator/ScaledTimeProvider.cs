@@ -48,11 +48,15 @@ public sealed class ScaledTimeProvider : TimeProvider
     public override ITimer CreateTimer(TimerCallback callback, object? state, TimeSpan dueTime, TimeSpan period) =>
         new ScaledTimer(_inner.CreateTimer(callback, state, ToInner(dueTime), ToInner(period)), this);
 
-    /// <summary>A scaled interval in inner time, rounded up so that timers never fire early.</summary>
+    /// <summary>
+    /// A scaled interval in inner time, rounded up, and at least one millisecond: the system timer
+    /// works in whole milliseconds and fires a shorter interval at once, which would let a
+    /// simulated meter answer many times faster than its integration time at high speed-ups.
+    /// </summary>
     private TimeSpan ToInner(TimeSpan scaled) =>
         scaled == Timeout.InfiniteTimeSpan || scaled <= TimeSpan.Zero
             ? scaled
-            : TimeSpan.FromTicks((long)Math.Ceiling(scaled.Ticks / Speed));
+            : TimeSpan.FromTicks(Math.Max(TimeSpan.TicksPerMillisecond, (long)Math.Ceiling(scaled.Ticks / Speed)));
 
     private sealed class ScaledTimer(ITimer inner, ScaledTimeProvider owner) : ITimer
     {

@@ -51,6 +51,23 @@ public sealed class ScaledTimeProviderTests
     }
 
     [Fact]
+    public void Timer_ShorterThanOneInnerMillisecond_WaitsOneMillisecond()
+    {
+        // System.Threading.Timer takes whole milliseconds and fires a 0 ms due time at once (from
+        // memory, .NET runtime timer behaviour): a 10 ms timer at speed 50 (0.2 ms inner) must not
+        // fire before 1 ms of inner time, or a simulated reading would come ~5x too early.
+        var inner = Benches.FakeClock();
+        var scaled = new ScaledTimeProvider(50, inner);
+        var fired = 0;
+        using var timer = scaled.CreateTimer(_ => fired++, null, TimeSpan.FromMilliseconds(10), Timeout.InfiniteTimeSpan);
+
+        inner.Advance(TimeSpan.FromMilliseconds(0.5));
+        Assert.Equal(0, fired);
+        inner.Advance(TimeSpan.FromMilliseconds(0.5));
+        Assert.Equal(1, fired);
+    }
+
+    [Fact]
     public async Task CancellationTokenSource_WithScaledTimeout_CancelsOnScaledTime()
     {
         var inner = Benches.FakeClock();

@@ -27,7 +27,7 @@ public sealed partial class SortingLoop
     // the next one in meanwhile: without a check the loop would wait for a removal it already missed.
     private void NoteStreamBroken()
     {
-        _lastReadingTime = null; // the gap that follows is the fault's, already dealt with
+        NoteOutage(); // the gap that follows is the fault's: it is excused, never a stall
         if (_tracker.State == SettleState.AwaitingRemoval)
         {
             _streamBroken = true;

@@ -112,7 +112,7 @@ public sealed partial class SettleTracker
         return _slopeFailures >= _noiseFailures ? UnstableReason.DriftingSlope : UnstableReason.NoisySem;
     }
 
-    private bool TimedOut(Reading reading) => reading.Time - _insertedAt!.Value > _options.MaxSettleTime;
+    private bool TimedOut(Reading reading) => reading.Time - _insertedAt!.Value - _excused > _options.MaxSettleTime;
 
     private SettleVerdict Unstable(Reading reading, UnstableReason reason)
     {
@@ -157,5 +157,6 @@ public sealed partial class SettleTracker
         _slopeFailures = 0;
         _noiseFailures = 0;
         _restartOnNextReading = false;
+        _excused = TimeSpan.Zero;
     }
 }

@@ -19,6 +19,7 @@ public sealed partial class SettleTracker
     private readonly ResidualSettling _residual;
     private SettleState _state = SettleState.Empty;
     private DateTimeOffset? _insertedAt;
+    private TimeSpan _excused;
     private DateTimeOffset? _lastTime;
     private double? _latestValue;
     private WindowStatistics? _stats;
@@ -75,6 +76,7 @@ public sealed partial class SettleTracker
                 return Verdict(SettleState.Empty, reading);
             case SettleState.Empty:
                 _insertedAt = reading.Time;
+                _excused = TimeSpan.Zero;
                 _state = SettleState.Bouncing;
                 goto case SettleState.Bouncing;
             case SettleState.Bouncing:
@@ -104,6 +106,22 @@ public sealed partial class SettleTracker
         ClearPart();
         _state = SettleState.Settling;
         _restartOnNextReading = true;
+    }
+
+    /// <summary>
+    /// The readings of the part in the fixture stopped for <paramref name="gap"/> (a link fault, a host that
+    /// was not scheduled): that time does not count against <see cref="SettleOptions.MaxSettleTime"/>, which
+    /// gives up on parts that do not settle, not on readings that did not come. Ignored unless a part is
+    /// bouncing or settling. The readings either side stay in the window: the part kept settling meanwhile.
+    /// </summary>
+    /// <param name="gap">Time without readings to leave out, &gt;= 0.</param>
+    public void Excuse(TimeSpan gap)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(gap, TimeSpan.Zero);
+        if (_state is SettleState.Bouncing or SettleState.Settling)
+        {
+            _excused += gap;
+        }
     }
 
     /// <summary>Operator action: forget everything and wait for an insertion.</summary>

@@ -35,7 +35,7 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
     [Trait("Category", "Soak")]
     public async Task Soak_SerialWithCablePulled_EveryPartLoggedOnceInItsTrueCup()
     {
-        var settings = SoakSettings.FromEnvironment(parts: 500, faultRate: 0.065, speed: 200, seed: 7002);
+        var settings = SoakSettings.FromEnvironment(parts: 500, faultRate: 0.085, speed: 200, seed: 7002);
         var options = FaultSoak.Options(_dir, settings);
         await using var cable = await SerialCable.StartAsync();
         using var stopPulling = new CancellationTokenSource();

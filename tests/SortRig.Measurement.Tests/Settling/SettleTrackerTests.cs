@@ -109,6 +109,37 @@ public sealed class SettleTrackerTests
     }
 
     [Fact]
+    public void Excuse_GapsWithoutReadings_AreNotCountedAgainstMaxTime()
+    {
+        // The same slow stream as above (a reading every 3 s), but the host says each gap beyond one
+        // reading period was an outage: the limit counts only time with readings coming, so the part
+        // settles (the limit gives up on parts, not on a link; common practice, no source).
+        var tracker = Tracker();
+        var verdicts = new List<SettleVerdict>();
+        foreach (var reading in Sampled(0, 3.0, 20, _ => 10_000.0))
+        {
+            if (tracker.State is SettleState.Bouncing or SettleState.Settling)
+            {
+                tracker.Excuse(TimeSpan.FromSeconds(3.0 - Dt));
+            }
+
+            verdicts.Add(tracker.Add(reading));
+        }
+
+        Assert.Contains(verdicts, v => v.State == SettleState.Accepted);
+        Assert.DoesNotContain(verdicts, v => v.State == SettleState.Unstable);
+    }
+
+    [Fact]
+    public void Excuse_WhenFixtureEmpty_IsForgottenByTheNextPart()
+    {
+        var tracker = Tracker();
+        tracker.Excuse(TimeSpan.FromMinutes(10));
+        var run = tracker.Feed(Sampled(0, 3.0, 20, _ => 10_000.0));
+        Assert.Equal(UnstableReason.TooFewReadings, run.First(v => v.State == SettleState.Unstable).Failure!.Reason);
+    }
+
+    [Fact]
     public void Add_MinReadingsAboveWindow_DelaysAcceptance()
     {
         var tracker = Tracker(new SettleOptions { MinReadings = 20 });
