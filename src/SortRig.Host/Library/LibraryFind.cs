@@ -29,19 +29,20 @@ internal static class LibraryFind
                 StatusArg.Parse(request.Status), request.Location, request.Limit);
             await using var log = await VerbGuard.OpenLogAsync(request.Database, cancellationToken).ConfigureAwait(false);
             var parts = await log.FindPartsAsync(query, cancellationToken).ConfigureAwait(false);
-            console.Write(Table(parts));
+            var drift = await LibraryDrift.LatestAsync(log, parts, cancellationToken).ConfigureAwait(false);
+            console.Write(Table(parts, drift));
             console.MarkupLine(parts.Count == request.Limit
                 ? $"[yellow]{parts.Count} parts (the limit): narrow the search or raise --limit.[/]"
                 : $"{parts.Count} part(s).");
             return VerbExit.Ok;
         });
 
-    /// <summary>One row per part: id, nominal, value and U (k = 2 unless marked), deviation, date, where, status. Compact
-    /// enough for an 80-column terminal; the export has every field.</summary>
-    public static Table Table(IReadOnlyList<PartRecord> parts)
+    /// <summary>One row per part: id, nominal, value and U (k = 2 unless marked), deviation, date, where, status and the drift
+    /// of its latest drift run ("—" when never logged). The export has every field.</summary>
+    public static Table Table(IReadOnlyList<PartRecord> parts, IReadOnlyDictionary<long, PartDrift> drift)
     {
         var table = new Table().NoBorder();
-        foreach (var c in new[] { "id", "nominal", "value Ohm", "U Ohm", "dev ppm", "accepted", "where", "status" })
+        foreach (var c in new[] { "id", "nominal", "value Ohm", "U Ohm", "dev ppm", "accepted", "where", "status", "drift" })
         {
             table.AddColumn(new TableColumn(c).Padding(0, 0, 1, 0));
         }
@@ -53,7 +54,8 @@ internal static class LibraryFind
             table.AddRow(
                 p.Id.ToString(CultureInfo.InvariantCulture), Markup.Escape(Format.Ohms(p.Nominal)), value, u + k, Format.Ppm(p.DeviationPpm),
                 Format.Date(p.AcceptedAt), Markup.Escape(PartWhere.Of(p, qualify: true)),
-                Markup.Escape(p.LibraryStatus + (p.TakenBy is { } by ? " " + by : "")));
+                Markup.Escape(p.LibraryStatus + (p.TakenBy is { } by ? " " + by : "")),
+                Format.DriftRate(drift.GetValueOrDefault(p.Id)?.PpmPerHour));
         }
 
         return table;

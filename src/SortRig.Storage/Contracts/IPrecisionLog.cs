@@ -88,6 +88,14 @@ public interface IPrecisionLog : IAsyncDisposable
     /// <summary>Streams the samples of a run ordered by time then channel, in constant memory.</summary>
     IAsyncEnumerable<DriftSample> ReadDriftSamplesAsync(long runId, CancellationToken cancellationToken);
 
+    /// <summary>
+    /// The drift runs each library part was logged in (one row per run and channel the part sat on), ordered by part
+    /// id, then run start, run id and channel. Parts never put on a drift channel have no rows.
+    /// </summary>
+    /// <param name="partIds">Parts to look up (any number, ids &gt; 0); null for every part on any drift channel.</param>
+    /// <param name="cancellationToken">Caller cancellation.</param>
+    Task<IReadOnlyList<PartDriftRun>> GetPartDriftRunsAsync(IReadOnlyList<long>? partIds, CancellationToken cancellationToken);
+
     /// <summary>Gaps of a run ordered by start.</summary>
     Task<IReadOnlyList<DriftGap>> GetDriftGapsAsync(long runId, CancellationToken cancellationToken);
 

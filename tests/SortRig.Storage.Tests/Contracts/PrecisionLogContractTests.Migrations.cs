@@ -16,9 +16,10 @@ public abstract partial class PrecisionLogContractTests
         var second = await CreateLogAsync();
         var report = await second.VerifyAsync(CancellationToken.None);
 
-        Assert.Equal("initial", Assert.Single(EngineMigrations).Name); // one script shipped so far: 0001_initial.sql
-        Assert.Equal(1, report.SchemaVersion);
-        Assert.Equal(1, await SchemaVersionRowsAsync());
+        // Scripts shipped so far: 0001_initial.sql, 0002_drift_by_part.sql.
+        Assert.Equal(["initial", "drift_by_part"], EngineMigrations.Select(m => m.Name));
+        Assert.Equal(2, report.SchemaVersion);
+        Assert.Equal(2, await SchemaVersionRowsAsync());
         Assert.True(report.IsOk, string.Join("; ", report.Problems));
         Assert.Equal(part, await second.GetPartAsync(part.Id, CancellationToken.None));
     }
@@ -28,8 +29,8 @@ public abstract partial class PrecisionLogContractTests
     {
         var both = await Task.WhenAll(Task.Run(() => CreateLogAsync()), Task.Run(() => CreateLogAsync()));
 
-        Assert.Equal(1, await SchemaVersionRowsAsync());
-        Assert.Equal(1, (await both[1].VerifyAsync(CancellationToken.None)).SchemaVersion);
+        Assert.Equal(EngineMigrations.Count, await SchemaVersionRowsAsync());
+        Assert.Equal(EngineMigrations.Count, (await both[1].VerifyAsync(CancellationToken.None)).SchemaVersion);
         var (a, _) = await Bench.StartAsync(both[0], "bench-A");
         var (b, _) = await Bench.StartAsync(both[1], "bench-B");
         Assert.NotEqual(a.Session.Id, b.Session.Id);
@@ -41,24 +42,28 @@ public abstract partial class PrecisionLogContractTests
         var broken = new Migration(2, "broken", "CREATE TABLE half_done (x INTEGER); CREATE TABLE this is not sql;");
 
         var error = await Assert.ThrowsAsync<StorageException>(() => OpenWithMigrationsAsync([EngineMigrations[0], broken]));
-        var log = await CreateLogAsync();
+        long versionsAfterFailure = await SchemaVersionRowsAsync();
+        bool halfDone = await TableExistsAsync("half_done");
+        var log = await CreateLogAsync(); // the shipped scripts then apply from version 1 on
 
         Assert.Equal(StorageFault.Schema, error.Fault);
         Assert.Contains("version 1", error.Message, StringComparison.Ordinal);
-        Assert.False(await TableExistsAsync("half_done"));
+        Assert.Equal(1, versionsAfterFailure);
+        Assert.False(halfDone);
         Assert.True(await TableExistsAsync("parts"));
-        Assert.Equal(1, (await log.VerifyAsync(CancellationToken.None)).SchemaVersion);
+        Assert.Equal(EngineMigrations.Count, (await log.VerifyAsync(CancellationToken.None)).SchemaVersion);
     }
 
     [SkippableFact]
     public async Task Open_StoreNewerThanBuild_ThrowsSchemaFault()
     {
-        var newer = new Migration(2, "future", "CREATE TABLE future_feature (x INTEGER);");
-        await TrackAsync(OpenWithMigrationsAsync([EngineMigrations[0], newer]));
+        int future = EngineMigrations.Count + 1;
+        var newer = new Migration(future, "future", "CREATE TABLE future_feature (x INTEGER);");
+        await TrackAsync(OpenWithMigrationsAsync([.. EngineMigrations, newer]));
 
         var error = await Assert.ThrowsAsync<StorageException>(() => CreateLogAsync());
 
         Assert.Equal(StorageFault.Schema, error.Fault);
-        Assert.Contains("version 2", error.Message, StringComparison.Ordinal);
+        Assert.Contains($"version {future}", error.Message, StringComparison.Ordinal);
     }
 }
