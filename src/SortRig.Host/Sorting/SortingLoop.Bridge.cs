@@ -7,9 +7,11 @@ namespace SortRig.Host.Sorting;
 public sealed partial class SortingLoop
 {
     // Sets the meter to the range and settles the bridging part there, with the batch's settle rule
-    // (the target no finer than half a display step at the bridge value). Meter faults reconnect and
-    // settle again; a part that does not settle is settled again after a word to the operator.
-    private async Task<MeasuredValue> SettleBridgeAsync(RangeSpec range, double bridgeNominal, CancellationToken ct)
+    // (the target no finer than half a display step at the bridge value). Once the part has cooled on
+    // the first range (thermallySettled), the second range judges the window alone: the fitted-span
+    // criterion would read the higher range's larger noise at the bridge value as residual cooling.
+    // Meter faults reconnect and settle again; a part that does not settle is settled again after a word.
+    private async Task<MeasuredValue> SettleBridgeAsync(RangeSpec range, double bridgeNominal, bool thermallySettled, CancellationToken ct)
     {
         _activeRange = range.FullScale;
         await ApplySetupAsync(ct).ConfigureAwait(false);
@@ -19,6 +21,11 @@ public sealed partial class SortingLoop
         if (settle.Target.Unit == SettleTargetUnit.Ppm && settle.Target.Value < halfStepPpm)
         {
             settle = settle with { Target = SettleTarget.Ppm(halfStepPpm) };
+        }
+
+        if (thermallySettled)
+        {
+            settle = settle with { SettlingSpan = TimeSpan.Zero };
         }
 
         var tracker = new SettleTracker(range, nplc, settle);

@@ -73,8 +73,8 @@ public sealed partial class SortingLoop
         RangeCorrection correction;
         while (true)
         {
-            var onLow = await SettleBridgeAsync(transfer.LowRange, bridge, ct).ConfigureAwait(false);
-            var onHigh = await SettleBridgeAsync(transfer.HighRange, bridge, ct).ConfigureAwait(false);
+            var onLow = await SettleBridgeAsync(transfer.LowRange, bridge, thermallySettled: false, ct).ConfigureAwait(false);
+            var onHigh = await SettleBridgeAsync(transfer.HighRange, bridge, thermallySettled: true, ct).ConfigureAwait(false);
             try
             {
                 correction = transfer.Correction(onLow, onHigh);
