@@ -8,6 +8,8 @@ internal static class SeedStreams
     public const int Bounce = 3;
     public const int Operator = 4;
     public const int Faults = 5;
+    public const int Gain = 6;
+    public const int LooseParts = 7;
 
     public static int Derive(int seed, int stream)
     {

@@ -20,6 +20,7 @@ public sealed partial class SimulatedBench : IAsyncDisposable
     private readonly BenchEnvironment _env;
     private readonly ScpiDevice _device;
     private readonly ILoggerFactory _loggers;
+    private readonly LooseParts _loose;
 
     /// <summary>Builds the bench; nothing runs until a Start method is called.</summary>
     /// <param name="options">Bench options; validated here (throws naming the bad option).</param>
@@ -33,13 +34,15 @@ public sealed partial class SimulatedBench : IAsyncDisposable
         _env = new BenchEnvironment(timeProvider ?? TimeProvider.System, options.Ambient);
         Reel = ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel));
         Fixture = new Fixture(_env);
+        _loose = new LooseParts(options.Reel, Reel.Count, SeedStreams.Derive(options.Seed, SeedStreams.LooseParts));
         Scanner = new Scanner(_env, options.ScannerPartChannels, options.Pt100Channel);
         Faults = new FaultInjector(options.Faults, SeedStreams.Derive(options.Seed, SeedStreams.Faults));
         Operator = new VirtualOperator(options.Operator, Reel, Fixture, _env.Time, SeedStreams.Derive(options.Seed, SeedStreams.Operator), _loggers.CreateLogger<VirtualOperator>());
         var state = new MeterState();
         var engine = new MeasurementEngine(
             _env, Fixture, Scanner, new NoiseSource(SeedStreams.Derive(options.Seed, SeedStreams.Noise)),
-            new ContactBounce(options.ContactBounce, SeedStreams.Derive(options.Seed, SeedStreams.Bounce)), state, options.LineFrequencyHz, options.LeadResistanceOhms);
+            new ContactBounce(options.ContactBounce, SeedStreams.Derive(options.Seed, SeedStreams.Bounce)), state, options.LineFrequencyHz, options.LeadResistanceOhms,
+            new RangeGains(options.RangeGainErrorPpm, SeedStreams.Derive(options.Seed, SeedStreams.Gain)));
         _device = new ScpiDevice(new DeviceContext
         {
             Identity = Identity,
@@ -94,8 +97,31 @@ public sealed partial class SimulatedBench : IAsyncDisposable
     /// </summary>
     public double Truth(int index)
     {
+        if (_loose.Find(index) is { } loose)
+        {
+            return _env.SettledOhms(loose, _env.Now);
+        }
+
         OptionGuard.InRange(index, 0, Reel.Count - 1, nameof(index));
         return _env.SettledOhms(Reel[index], _env.Now);
+    }
+
+    /// <summary>
+    /// Test-only truth: the gain error of a resistance range (full scale 100 to 1E7 ohms), ppm of reading,
+    /// drawn from the seed within ±<see cref="SimulatedBenchOptions.RangeGainErrorPpm"/>; 0 for another value.
+    /// </summary>
+    public double GainErrorPpm(double range) => _device.Context.Engine.Gains.ErrorPpm(range);
+
+    /// <summary>
+    /// A part of the given nominal that is not on the reel (one kept from an earlier batch, say), drawn like a
+    /// reel part from a seeded stream of its own. Loose parts are numbered after the reel (Reel.Count, +1, ...)
+    /// and <see cref="Truth"/> knows them.
+    /// </summary>
+    /// <param name="nominalOhms">Marked value, ohms; finite, &gt; 0.</param>
+    public SimulatedPart TakeLoosePart(double nominalOhms)
+    {
+        OptionGuard.InRange(nominalOhms, 1e-3, 1e9, nameof(nominalOhms), "ohm");
+        return _loose.Take(nominalOhms);
     }
 
     /// <summary>In-process SCPI (tests): runs one program message as a client would; returns the reply or null.</summary>

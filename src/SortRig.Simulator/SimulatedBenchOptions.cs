@@ -34,6 +34,13 @@ public sealed record SimulatedBenchOptions
     /// <summary>Lead and contact resistance added to 2-wire readings (not 4-wire), ohms; 0 to 10. Default 0.</summary>
     public double LeadResistanceOhms { get; init; }
 
+    /// <summary>
+    /// Half-width of each range's gain error, ppm of reading: every range gets its own error drawn once,
+    /// uniform in ±this, from the seed (a stream of its own). 0 to 1000. Default 0 (an ideal meter); the sort
+    /// verb's embedded bench uses 20 ppm, the 24 h % of reading figure of the simulator profile.
+    /// </summary>
+    public double RangeGainErrorPpm { get; init; }
+
     /// <summary>Number of scanner part channels (101 upwards); 0 to 40. Default 10 (101..110).</summary>
     public int ScannerPartChannels { get; init; } = 10;
 
@@ -80,6 +87,7 @@ public sealed record SimulatedBenchOptions
         }
 
         OptionGuard.InRange(LeadResistanceOhms, 0, 10, "SimulatedBenchOptions.LeadResistanceOhms", "ohm");
+        OptionGuard.InRange(RangeGainErrorPpm, 0, 1000, "SimulatedBenchOptions.RangeGainErrorPpm", "ppm");
         OptionGuard.InRange(ScannerPartChannels, 0, 40, "SimulatedBenchOptions.ScannerPartChannels");
         OptionGuard.InRange(Pt100Channel, 101 + ScannerPartChannels, 199, "SimulatedBenchOptions.Pt100Channel (must follow the part channels)");
         OptionGuard.InRange(TcpPort ?? 0, 0, 65535, "SimulatedBenchOptions.TcpPort");

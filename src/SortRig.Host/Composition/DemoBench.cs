@@ -28,7 +28,14 @@ public static class DemoBench
             Distribution = ValueDistribution.Normal(0.4),
         },
         Faults = FaultsFor(sort.FaultsPerThousand),
+
+        // Each range reads off by its own gain error within ±20 ppm (the profile's 24 h % of reading figure),
+        // so a ratio across two ranges is visibly off until a bridging part corrects it.
+        RangeGainErrorPpm = RangeGainErrorPpm,
     };
+
+    /// <summary>Half-width of the demo meter's per-range gain errors, ppm of reading.</summary>
+    public const double RangeGainErrorPpm = 20;
 
     /// <summary>Spreads <see cref="SortOptions.FaultsPerThousand"/> evenly over the five fault kinds.</summary>
     public static FaultOptions FaultsFor(double perThousand)

@@ -61,7 +61,7 @@ public static class SortRunner
                 resource = hooks.Serve is { } serve
                     ? await serve(bench, ct).ConfigureAwait(false)
                     : $"TCPIP::127.0.0.1::{(await bench.StartTcpAsync(0, ct).ConfigureAwait(false)).Port}::SOCKET";
-                hands = new SimulatorHands(bench.Operator);
+                hands = new SimulatorHands(bench);
                 hooks.Started?.Invoke(bench);
             }
 

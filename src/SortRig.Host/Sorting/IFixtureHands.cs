@@ -11,6 +11,15 @@ public interface IFixtureHands
 
     /// <summary>A session resumes with this many parts already recorded: carry on from the next one.</summary>
     void ResumeAt(int partsRecorded);
+
+    /// <summary>
+    /// The operator was asked to put one part of <paramref name="nominal"/> ohms from an earlier batch in the
+    /// fixture as a bridging part (range transfer). Returns once it is handed in (at once for a person).
+    /// </summary>
+    Task PlaceBridgingPartAsync(double nominal, CancellationToken ct);
+
+    /// <summary>The operator was asked to take the bridging part out.</summary>
+    void RemoveBridgingPart();
 }
 
 /// <summary>A person at the bench: nothing to do.</summary>
@@ -23,6 +32,14 @@ public sealed class HumanHands : IFixtureHands
 
     /// <inheritdoc />
     public void ResumeAt(int partsRecorded)
+    {
+    }
+
+    /// <inheritdoc />
+    public Task PlaceBridgingPartAsync(double nominal, CancellationToken ct) => Task.CompletedTask;
+
+    /// <inheritdoc />
+    public void RemoveBridgingPart()
     {
     }
 }

@@ -57,6 +57,15 @@ public sealed class SortOptions
     [Range(0.001, 1000)]
     public double Nplc { get; set; } = 1;
 
+    /// <summary>
+    /// Range transfer when this batch sits on a higher meter range than the session's first batch (an R-2R
+    /// ladder's 2R after its R): "auto" measures a bridging part when the two ranges' gain uncertainty does not
+    /// fit the match band, "always" measures one whenever the ranges differ, "off" never (ratios across the ranges
+    /// then carry the gain error). Default "auto". See docs/range-transfer.md.
+    /// </summary>
+    [RegularExpression("^(auto|always|off)$", ErrorMessage = "Sort:Bridge must be auto, always or off.")]
+    public string Bridge { get; set; } = "auto";
+
     /// <summary>Measure 4-wire. Default false (a two-clip fixture).</summary>
     public bool FourWire { get; set; }
 

@@ -20,9 +20,10 @@ public sealed partial class SortingLoop
 
         CrashPoint.Pass("read");
         var number = _partsRecorded + 1;
-        var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, acceptance.Value));
+        var measured = OnReferenceScale(acceptance.Value);
+        var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
         var commit = new PartCommit(
-            Guid.NewGuid(), _session.Id, _batch.Id, acceptance.Value, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
+            Guid.NewGuid(), _session.Id, _batch.Id, measured, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
             acceptance.Readings[^1].Time,
             Composition.CupAssignerFactory.IsSlots(_ctx.Cups) ? null : decision.CupLabel,
             Composition.CupAssignerFactory.IsSlots(_ctx.Cups) ? decision.CupLabel : null,

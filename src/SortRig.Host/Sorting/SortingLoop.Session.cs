@@ -56,6 +56,7 @@ public sealed partial class SortingLoop
             await AnnounceStoredAsync(p, AnnouncementKind.Repeat, completesSet: false, ct).ConfigureAwait(false);
         }
 
+        await PrepareRangeTransferAsync(state.Batches, ct).ConfigureAwait(false);
         _ctx.Hands.ResumeAt(_partsRecorded);
     }
 

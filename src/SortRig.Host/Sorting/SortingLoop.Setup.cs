@@ -5,7 +5,25 @@ namespace SortRig.Host.Sorting;
 
 public sealed partial class SortingLoop
 {
-    private ResistanceSetup Setup => new(_ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
+    // The range the meter is set to: the batch's, except while a bridging part is read on the low range.
+    private double _activeRange;
+
+    private ResistanceSetup Setup => new(_activeRange > 0 ? _activeRange : _ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
+
+    // Applies the setup now (range change for a bridging part), with the read-back; a fault reconnects,
+    // and reconnecting applies the same setup.
+    private async Task ApplySetupAsync(CancellationToken ct)
+    {
+        try
+        {
+            _meter ??= await ConnectWithRetryAsync(ct).ConfigureAwait(false);
+            await _meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+        }
+        catch (Exception e) when (MeterFaults.IsRetryable(e, setupMayRetry: true) && !ct.IsCancellationRequested)
+        {
+            await RecoverAsync(e, ct).ConfigureAwait(false);
+        }
+    }
 
     // Opens, identifies (once per run: the batch records the instrument) and configures a meter.
     private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)

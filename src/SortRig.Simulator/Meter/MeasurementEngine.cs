@@ -16,12 +16,16 @@ internal sealed class MeasurementEngine
     private readonly MeterState _state;
     private readonly double _lineHz;
     private readonly double _leadOhms;
+    private readonly RangeGains _gains;
 
-    public MeasurementEngine(BenchEnvironment env, Fixture fixture, Scanner scanner, NoiseSource noise, ContactBounce bounce, MeterState state, double lineHz, double leadOhms)
+    public MeasurementEngine(BenchEnvironment env, Fixture fixture, Scanner scanner, NoiseSource noise, ContactBounce bounce, MeterState state, double lineHz, double leadOhms, RangeGains gains)
     {
         (_env, _fixture, _scanner, _noise, _bounce, _state) = (env, fixture, scanner, noise, bounce, state);
-        (_lineHz, _leadOhms) = (lineHz, leadOhms);
+        (_lineHz, _leadOhms, _gains) = (lineHz, leadOhms, gains);
     }
+
+    /// <summary>The per-range gain errors (truth side).</summary>
+    public RangeGains Gains => _gains;
 
     public DateTimeOffset Now => _env.Now;
 
@@ -65,6 +69,6 @@ internal sealed class MeasurementEngine
 
         var lead = settings.Function == MeterFunction.Resistance ? _leadOhms : 0.0;
         var nplc = NplcSetting.Find(active.Nplc) ?? NplcSetting.Default;
-        return ReadingModel.Report(input.IsOpen, input.Ohms, range, nplc, _noise.NextStandardNormal(), lead);
+        return ReadingModel.Report(input.IsOpen, input.Ohms, range, nplc, _noise.NextStandardNormal(), lead, _gains.Factor(range));
     }
 }

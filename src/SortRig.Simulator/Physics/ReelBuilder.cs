@@ -16,15 +16,21 @@ internal static class ReelBuilder
         {
             // Fixed draw order per part keeps a reel identical for a seed whatever the options read later.
             var nominal = spec.Nominals[Categorical.Sample(rng, weights)].Ohms;
-            var deviation = DrawDeviation(spec.Distribution, rng) * spec.TolerancePercent / 100.0;
-            var tempco = Gaussian(rng, spec.TempcoMeanPpmPerKelvin, spec.TempcoSigmaPpmPerKelvin);
-            var drift = Gaussian(rng, 0, spec.DriftSigmaPpmPerHour);
-            var spread = spec.ThermalTimeConstantSpread;
-            var tau = spec.ThermalTimeConstant * ContinuousUniform.Sample(rng, 1 - spread, 1 + spread);
-            parts[i] = new SimulatedPart(i, nominal, nominal * (1 + deviation), tempco, drift, tau);
+            parts[i] = Draw(spec, rng, i, nominal);
         }
 
         return parts;
+    }
+
+    /// <summary>One part of the given nominal drawn like a reel part (deviation, tempco, drift, time constant, in that order).</summary>
+    internal static SimulatedPart Draw(ReelSpec spec, Random rng, int index, double nominal)
+    {
+        var deviation = DrawDeviation(spec.Distribution, rng) * spec.TolerancePercent / 100.0;
+        var tempco = Gaussian(rng, spec.TempcoMeanPpmPerKelvin, spec.TempcoSigmaPpmPerKelvin);
+        var drift = Gaussian(rng, 0, spec.DriftSigmaPpmPerHour);
+        var spread = spec.ThermalTimeConstantSpread;
+        var tau = spec.ThermalTimeConstant * ContinuousUniform.Sample(rng, 1 - spread, 1 + spread);
+        return new SimulatedPart(index, nominal, nominal * (1 + deviation), tempco, drift, tau);
     }
 
     /// <summary>A deviation in units of the tolerance half-width.</summary>

@@ -5,7 +5,7 @@ namespace SortRig.Simulator.Scpi;
 
 /// <summary>
 /// SIMulation: vendor-specific subsystem for tests only (never used by product logic): the
-/// fixture, the reel's hidden truth, the operator, the scanner's loading, the room and the clock.
+/// fixture, the reel's hidden truth, the ranges' gain errors, the operator, the scanner's loading, the room and the clock.
 /// </summary>
 internal static class SimulationCommands
 {
@@ -19,6 +19,7 @@ internal static class SimulationCommands
             .Add("SIMulation:FIXTure:STATe?", (c, _) => Reply(Nr3.Format(c.Device.Fixture.IsOccupied)))
             .Add("SIMulation:PART:INDex?", (c, _) => Reply(Nr3.Format(c.Device.Fixture.Occupant?.Index ?? -1)))
             .Add("SIMulation:PART:TRUE?", (c, _) => Reply(Nr3.Format(Truth(c))), 1, 1)
+            .Add("SIMulation:GAIN?", (c, _) => Reply(Nr3.Format(c.Device.Engine.Gains.ErrorPpm(c.Number(0, NumericParameter.Ohms(null, null, null))))), 1, 1)
             .Add("SIMulation:REEL:COUNt?", (c, _) => Reply(Nr3.Format(c.Device.Reel.Count)))
             .Add("SIMulation:OPERator:ANNounce", (c, _) => Done(() => c.Device.Operator.OnPartAnnounced()))
             .Add("SIMulation:OPERator:SKIP", (c, _) => Done(() => c.Device.Operator.SkipTo(c.Count(0, 0, c.Device.Reel.Count))), 1, 1)
