@@ -1,6 +1,5 @@
 using System.Globalization;
 using CsvHelper;
-using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
 using SortRig.Host.Drift;
@@ -123,23 +122,5 @@ public sealed class DriftLibraryPartsTests
         }
 
         return rows;
-    }
-
-    /// <summary>The application lifetime at the edge: the worker only asks it to stop.</summary>
-    private sealed class StopOnlyLifetime : IHostApplicationLifetime, IDisposable
-    {
-        private readonly CancellationTokenSource _stopping = new();
-
-        public bool Stopped => _stopping.IsCancellationRequested;
-
-        public CancellationToken ApplicationStarted => CancellationToken.None;
-
-        public CancellationToken ApplicationStopping => _stopping.Token;
-
-        public CancellationToken ApplicationStopped => CancellationToken.None;
-
-        public void StopApplication() => _stopping.Cancel();
-
-        public void Dispose() => _stopping.Dispose();
     }
 }
