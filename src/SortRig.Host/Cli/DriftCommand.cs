@@ -6,6 +6,7 @@ using Microsoft.Extensions.Hosting;
 using SortRig.Host.Drift;
 using SortRig.Host.Events;
 using SortRig.Host.Hosting;
+using SortRig.Host.Library;
 using SortRig.Host.Operator;
 using SortRig.Host.Sorting;
 using SortRig.Host.Web;
@@ -25,6 +26,7 @@ internal static class DriftCommand
         map.Add(command, new Option<string>("--db") { Description = "SQLite file or PostgreSQL connection string (default sortrig.db)" }, "Drift:Database");
         map.Add(command, new Option<string>("--run") { Description = "Name of the drift run (default overnight)" }, "Drift:Run");
         map.Add(command, new Option<string>("--channels") { Description = "Part channels, e.g. 101-104,107 (default 101-104)" }, "Drift:Channels");
+        map.Add(command, new Option<string>("--library-parts") { Description = "Library parts on the channels, channel=part: 101=17,102=#18,103-104=20-21 (ids or #id as on the printed label)" }, "Drift:LibraryParts");
         map.Add(command, new Option<int>("--pt100") { Description = "Pt100 channel; 0 for none (default 120)" }, "Drift:Pt100Channel");
         map.Add(command, new Option<double>("--interval") { Description = "Seconds between scans (default 60)" }, "Drift:IntervalSeconds");
         map.Add(command, new Option<double>("--hours") { Description = "Length of the run in hours; 0 logs until Ctrl+C (default 12)" }, "Drift:Hours");
@@ -61,7 +63,7 @@ internal static class DriftCommand
         catch (ArgumentException e)
         {
             await Console.Error.WriteLineAsync($"drift: {e.Message.Split(" (Parameter", 2)[0]}").ConfigureAwait(false);
-            return 2;
+            return VerbExit.BadInput;
         }
 
         TimeProvider time = settings.Speed switch

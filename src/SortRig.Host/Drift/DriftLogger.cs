@@ -31,7 +31,9 @@ internal sealed partial class DriftLogger(
     /// <returns>The outcome; also after cancellation (everything read by then is stored).</returns>
     public async Task<DriftOutcome> RunAsync(CancellationToken ct)
     {
-        var labels = settings.Channels.Select(c => new DriftChannel(DriftSettings.PartLabel(c))).ToList();
+        var labels = settings.Channels
+            .Select(c => new DriftChannel(DriftSettings.PartLabel(c), settings.LibraryParts.TryGetValue(c, out var part) ? part : null))
+            .ToList();
         if (settings.Pt100Channel is { } pt)
         {
             labels.Add(new DriftChannel(DriftSettings.Pt100Label(pt)));

@@ -27,6 +27,13 @@ public sealed class DriftOptions
     /// <summary>Scanner channels holding parts, e.g. "101-104,107"; 1..64 distinct channels 1..9999. Default "101-104".</summary>
     public string Channels { get; set; } = "101-104";
 
+    /// <summary>
+    /// Library parts on the part channels, "channel=part" items such as "101=17,102=#18,103-104=20-21" (a part id, the
+    /// "#17" of its printed label, or a range onto a range of channels). Every channel must be in <see cref="Channels"/>,
+    /// every part on one channel only; the parts must be in the library (checked before the run starts). Default none.
+    /// </summary>
+    public string? LibraryParts { get; set; }
+
     /// <summary>Scanner channel wired to a Pt100 (IEC 60751) for the temperature; 0 = no thermometer. Default 120; 0..9999, not a part channel.</summary>
     public int Pt100Channel { get; set; } = 120;
 
@@ -81,7 +88,10 @@ public sealed class DriftOptions
         Require(duration is null || duration >= interval, "Drift.Hours", "0 or at least one interval", Hours);
         return new DriftSettings(
             simulated ? null : Resource.Trim(), Profile, Database, Run, channels, Pt100Channel == 0 ? null : Pt100Channel,
-            interval, duration, new ResistanceSetup(Range, Nplc, FourWire), BatchSize, Notes, Seed, Virtual ? 0 : Speed);
+            interval, duration, new ResistanceSetup(Range, Nplc, FourWire), BatchSize, Notes, Seed, Virtual ? 0 : Speed)
+        {
+            LibraryParts = LibraryPartMap.Parse(LibraryParts, channels),
+        };
     }
 
     private static void Require(bool ok, string option, string valid, object? was)

@@ -19,7 +19,8 @@ public sealed record DriftServices(TimeProvider Time, TimeProvider LinkTime, Ben
 
 /// <summary>
 /// Assembles and runs a drift log: the embedded simulator (parts on the scanner, Pt100 on its channel) when
-/// no resource is given, the meter profile, the precision log and the <see cref="DriftLogger"/>.
+/// no resource is given, the meter profile, the precision log and the <see cref="DriftLogger"/>. The library parts put on
+/// channels are checked against the log before the simulator starts or a run is stored.
 /// </summary>
 public static class DriftRunner
 {
@@ -39,6 +40,17 @@ public static class DriftRunner
             throw new ArgumentException($"Drift.Profile: profile '{profile.Family}' has no scanner_close or scanner_scan command; drift logging needs a scanner.", nameof(settings));
         }
 
+        if (settings.Resource is { } given)
+        {
+            ResourceStringParser.Parse(given); // a bad resource fails here, before the log is opened
+        }
+
+        await using var log = await PrecisionLogFactory.OpenAsync(
+            settings.Database,
+            new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
+            ct).ConfigureAwait(false);
+        await LibraryPartCheck.CheckAsync(log, settings.LibraryParts, ct).ConfigureAwait(false); // before anything is logged
+
         SimulatedBench? bench = null;
         var resource = settings.Resource;
         try
@@ -52,12 +64,7 @@ public static class DriftRunner
                 onSimulatorStarted?.Invoke(bench);
             }
 
-            ResourceStringParser.Parse(resource); // a bad resource fails here, before the log is opened
             var connector = new MeterConnector(new MessageLinkFactory(services.LinkTime), services.Time, services.Loggers);
-            await using var log = await PrecisionLogFactory.OpenAsync(
-                settings.Database,
-                new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
-                ct).ConfigureAwait(false);
             var logger = new DriftLogger(
                 settings,
                 c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),

@@ -31,6 +31,9 @@ public sealed record DriftSettings(
     int Seed,
     double Speed)
 {
+    /// <summary>Library part id by part channel (stored as the channel's part); channels not in it hold no library part. Default none.</summary>
+    public IReadOnlyDictionary<int, long> LibraryParts { get; init; } = new Dictionary<int, long>();
+
     /// <summary>Prefix of a part channel's stored label ("ch101").</summary>
     public const string PartLabelPrefix = "ch";
 

@@ -13,10 +13,14 @@ internal static class DriftSummary
             $"drift run [bold]{outcome.RunId}[/] '{Markup.Escape(settings.RunName)}': {outcome.Scans} scans, {outcome.SamplesStored} samples stored, " +
             $"{outcome.Gaps} gaps, {outcome.SkippedTicks} scan times skipped, {outcome.Overloads} overloads"));
         var table = new Table().AddColumns("channel", "samples", "drift ppm/h", "drift at const. T ppm/h", "tempco ppm/K", "ADEV at tau0 ppm");
-        foreach (var c in outcome.Channels)
+        for (var i = 0; i < outcome.Channels.Count; i++)
         {
+            var c = outcome.Channels[i];
+            var part = i < settings.Channels.Count && settings.LibraryParts.TryGetValue(settings.Channels[i], out var id)
+                ? string.Create(CultureInfo.InvariantCulture, $" part #{id}")
+                : "";
             table.AddRow(
-                Markup.Escape(c.Label),
+                Markup.Escape(c.Label + part),
                 c.Count.ToString(CultureInfo.InvariantCulture),
                 Coefficient(c.Drift?.PpmPerHour),
                 Coefficient(c.Joint?.PpmPerHour),

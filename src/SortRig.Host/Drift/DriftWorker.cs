@@ -3,6 +3,7 @@ using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
 using Spectre.Console;
 using SortRig.Host.Events;
+using SortRig.Host.Library;
 
 namespace SortRig.Host.Drift;
 
@@ -17,7 +18,7 @@ internal sealed partial class DriftWorker(
     ILoggerFactory loggers,
     IHostApplicationLifetime lifetime) : BackgroundService
 {
-    /// <summary>0 finished or stopped, 1 failed, 2 bad settings.</summary>
+    /// <summary>0 finished or stopped, 1 failed, 2 bad settings (<see cref="VerbExit.BadInput"/>: also a library part that cannot be logged).</summary>
     public int ExitCode { get; private set; }
 
     /// <summary>The outcome once the run has ended.</summary>
@@ -44,7 +45,7 @@ internal sealed partial class DriftWorker(
         }
         catch (ArgumentException e)
         {
-            ExitCode = 2;
+            ExitCode = VerbExit.BadInput;
             AnsiConsole.MarkupLine($"[red]cannot log drift with these settings:[/] {Markup.Escape(e.Message.Split(" (Parameter", 2)[0])}");
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
