@@ -23,7 +23,8 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
 
     /// <summary>
     /// Chooses the range and settle options for a session on a meter; throws
-    /// <see cref="SortPlanException"/> naming remedies when the match tolerance cannot be resolved.
+    /// <see cref="SortPlanException"/> naming remedies when the match tolerance cannot be resolved,
+    /// or when no settle target both small against the match band and reachable on that range exists.
     /// </summary>
     public static SortPlan For(SortOptions options, MeterSpec meter)
     {
@@ -47,11 +48,8 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
                 remedies);
         }
 
-        // The settle target: the standard error of the mean must be small against the match band.
-        var matchPpm = options.MatchTolerance * 1e6;
         var settle = SettleOptions.Default with
         {
-            Target = SettleTarget.Ppm(Math.Clamp(matchPpm / 200, 0.5, 10)),
             FourWire = options.FourWire,
             // A part warmed a few kelvin by the fingers cools with a time constant of seconds
             // (common practice, no source): allow about eight time constants before "unstable".
@@ -60,6 +58,19 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
             // curve of seconds (docs/bench-settle.md: no false accepts at 1.2x the information limit).
             SettlingSpan = TimeSpan.FromSeconds(4),
         };
+
+        // The settle target: small against the match band, yet reachable on this range and NPLC
+        // (SettleTargetRule; docs/measurement.md, "Settle target").
+        var rule = SettleTargetRule.For(decision, settle);
+        if (!rule.Reachable)
+        {
+            throw new SortPlanException(
+                string.Create(CultureInfo.InvariantCulture,
+                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm allows a settle target of at most {rule.CapPpm:0.##} ppm; on the {decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC the reading noise lets a settled part reach {rule.FloorPpm:0.##} ppm, and the target must be {SettleTargetRule.ReachMargin:G} times that ({SettleTargetRule.ReachMargin * rule.FloorPpm:0.##} ppm){(rule.WindowFits ? "" : $", and {settle.RequiredReadings} readings take more than half of the {settle.MaxSettleTime.TotalSeconds:G} s settle time")}: parts would end unstable."),
+                SettleTargetRule.Remedies(meter, decision, settle, rule));
+        }
+
+        settle = settle with { Target = SettleTarget.Ppm(rule.TargetPpm) };
         return new SortPlan(options, decision, settle, meter);
     }
 

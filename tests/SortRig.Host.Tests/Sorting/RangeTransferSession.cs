@@ -16,12 +16,12 @@ internal sealed class RangeTransferSession(string database)
 {
     public const int Seed = 2026; // the demo seed: its 10 k and 100 k ranges differ by about 32 ppm of gain
 
-    public SortOptions Options(double nominal, int totalParts, string bridge) => new()
+    public SortOptions Options(double nominal, int totalParts, string bridge, double match = 0.001) => new()
     {
         Database = database,
         Session = "ladder",
         Nominal = nominal,
-        MatchTolerance = 0.001,
+        MatchTolerance = match,
         Nplc = 10,
         Parts = totalParts,
         Seed = Seed,

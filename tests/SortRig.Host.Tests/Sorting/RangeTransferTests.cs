@@ -19,8 +19,8 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
     // At ±0.1 % the spec gain uncertainty of the two ranges (k = 2: 163 ppm) fits the allowed quarter of the band
-    // (250 ppm), so "auto" would not bridge; the operator asks for it ("always"). A tighter match, where "auto"
-    // bridges by itself, leaves 20 kOhm parts on the 100 k range unable to settle to the 2.5 ppm target.
+    // (250 ppm), so "auto" would not bridge; the operator asks for it ("always"). At ±0.05 % "auto" bridges by itself
+    // (Resume_At005PercentWithAuto_BridgesByItself).
     [Fact]
     public async Task Resume_WithTwiceTheNominal_BridgesTheRanges_RatiosMatchTheTruth()
     {
@@ -54,6 +54,23 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
             var window = (await log.GetReadingsAsync(part.Id, default)).Where(r => r.Kind == ReadingKind.Finite).TakeLast(8).Average(r => r.Value);
             Assert.Equal(window * (1 + (transfer.CorrectionPpm * 1e-6)), part.Value, 6);
         }
+    }
+
+    // At ±0.05 % the ranges' spec gain uncertainty (k = 2: 163 ppm) exceeds a quarter of the band (125 ppm), so "auto"
+    // bridges without being asked; the 20 kOhm parts then settle on the 100 k range (SortPlan's reachable target).
+    [Fact]
+    public async Task Resume_At005PercentWithAuto_BridgesByItself()
+    {
+        var session = new RangeTransferSession(Path.Combine(_dir, "ladder-auto.db"));
+        var first = await session.RunAsync(session.Options(10_000, Total, "auto", 0.0005), RangeTransferSession.AfterPart(R));
+        var second = await session.RunAsync(session.Options(20_000, Total, "auto", 0.0005));
+
+        Assert.Contains("Put one 10000 Ohm part from the earlier batch in the fixture", second.Heard, StringComparison.Ordinal);
+        var (parts, batches) = await StoredAsync(session, second);
+        Assert.Equal(Enumerable.Range(1, Total), parts.Select(p => p.Number));
+        Assert.Single(batches, b => b.RangeTransfer is not null);
+        output.WriteLine($"0.05 % auto: {Describe(parts, first, second)}");
+        Assert.All(RatioErrors(parts, first, second), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
     }
 
     [Fact]

@@ -81,4 +81,40 @@ public sealed class SortEndToEndTests : IDisposable
             .Select(m => $"{m.Groups[1].Value}:{m.Groups[2].Value}");
         Assert.Equal(stored.Select(p => $"{p.Number}:{p.CupLabel}"), said);
     }
+    // The symptom of docs/range-transfer.md: 20 kOhm parts at a 0.05 % match read on the 100 k range, which the
+    // range rule accepts; with a settle target of 2.5 ppm every part ended "unstable". Now each settles into a cup.
+    [Fact]
+    public async Task Sort_20kAt005Percent_OnThe100kRange_EveryPartSettlesIntoItsTrueCup()
+    {
+        const int parts = 6;
+        var options = new SortOptions
+        {
+            Database = Path.Combine(_dir, "e2e-20k.db"),
+            Session = "e2e-20k",
+            Nominal = 20_000,
+            MatchTolerance = 0.0005,
+            Parts = parts,
+            Seed = 4243,
+            Speed = 30,
+            Speech = false,
+            Live = false,
+        };
+        var time = new ScaledTimeProvider(options.Speed);
+        var services = new SortServices(time, new BenchEventHub(time), new BenchSnapshot(), new OperatorCommands(),
+            new PlainTextAnnouncer(new StringWriter()), NullLoggerFactory.Instance);
+        SimulatedBench? bench = null;
+        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(3));
+
+        var outcome = await SortRunner.RunAsync(options, services, b => bench = b, timeout.Token);
+
+        Assert.Equal(parts, outcome.PartsRecorded);
+        await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
+        var stored = await log.GetPartsAsync(outcome.SessionId, default);
+        Assert.All(stored, p => Assert.Equal(PartState.Announced, p.State));
+        Assert.All(stored, p => Assert.Equal(100_000, p.Range));
+
+        // Simulator truth (its side channel) is the outside reference: each value within its stated U (k = 2).
+        var (misplaced, _) = TruthCheck.Compare(options, stored, number => bench!.Truth(number - 1));
+        Assert.Empty(misplaced);
+    }
 }
