@@ -66,6 +66,14 @@ public sealed class SortOptions
     [RegularExpression("^(auto|always|off)$", ErrorMessage = "Sort:Bridge must be auto, always or off.")]
     public string Bridge { get; set; } = "auto";
 
+    /// <summary>
+    /// Carry on the latest session of this name even if it was finished (its parts reached <see cref="Parts"/>, or
+    /// the operator finished it): numbering continues and a new batch starts when the nominal or setup differs,
+    /// so an R-2R ladder's 2R can follow its R in one session. <see cref="Parts"/> then counts the whole session.
+    /// Default false (a finished session's name starts a new session).
+    /// </summary>
+    public bool Reopen { get; set; }
+
     /// <summary>Measure 4-wire. Default false (a two-clip fixture).</summary>
     public bool FourWire { get; set; }
 

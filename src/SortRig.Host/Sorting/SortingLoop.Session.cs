@@ -12,7 +12,7 @@ public sealed partial class SortingLoop
     private async Task OpenSessionAsync(CancellationToken ct)
     {
         var log = _ctx.Log;
-        var state = await log.OpenOrResumeSessionAsync(new SessionRequest(Options.Session), ct).ConfigureAwait(false);
+        var state = await log.OpenOrResumeSessionAsync(new SessionRequest(Options.Session, ReopenFinished: Options.Reopen), ct).ConfigureAwait(false);
         _session = state.Session;
         var setup = new BatchSetup(
             Options.Nominal,

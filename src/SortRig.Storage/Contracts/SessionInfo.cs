@@ -25,8 +25,12 @@ public sealed record SessionInfo(
 /// <param name="Notes">Free text, optional.</param>
 /// <param name="ResumeUnfinished">When true (default) the latest unfinished session with the same name is resumed
 /// instead of starting a new one.</param>
+/// <param name="ReopenFinished">When true and no unfinished session has the name, the latest finished one is
+/// reopened (its finish time cleared) instead of starting a new one: a job carried on with another batch, such as
+/// the 2R parts of a ladder after its R parts. Default false.</param>
 public sealed record SessionRequest(
     string Name,
     string? Operator = null,
     string? Notes = null,
-    bool ResumeUnfinished = true);
+    bool ResumeUnfinished = true,
+    bool ReopenFinished = false);

@@ -19,6 +19,17 @@ internal abstract partial class AdoPrecisionLog
                     .With("name", request.Name).ScalarLongAsync(ct).ConfigureAwait(false);
             }
 
+            if (id is null && request.ReopenFinished)
+            {
+                id = await s.Sql("SELECT id FROM sessions WHERE name = @name AND finished_at IS NOT NULL ORDER BY id DESC LIMIT 1")
+                    .With("name", request.Name).ScalarLongAsync(ct).ConfigureAwait(false);
+                if (id is not null)
+                {
+                    await s.Sql("UPDATE sessions SET finished_at = NULL WHERE id = @id")
+                        .With("id", id.Value).ExecuteAsync(ct).ConfigureAwait(false);
+                }
+            }
+
             bool resumed = id is not null;
             id ??= await s.Sql(
                     "INSERT INTO sessions (name, operator_name, notes, started_at, next_part_number) " +

@@ -56,6 +56,27 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         }
     }
 
+    // The R reel sorted to its end finishes the session; --reopen carries the job on with the 2R reel.
+    [Fact]
+    public async Task Reopen_AfterTheFirstReelFinished_SameSessionBridgesTheRanges()
+    {
+        var session = new RangeTransferSession(Path.Combine(_dir, "ladder-reopen.db"));
+        var first = await session.RunAsync(session.Options(10_000, R, "always"));
+        Assert.NotNull(first.Outcome); // ran to its end: the session is finished
+        var options = session.Options(20_000, Total, "always");
+        options.Reopen = true;
+        var second = await session.RunAsync(options);
+
+        Assert.Contains($"resuming session 'ladder' at part {R + 1}", second.Heard, StringComparison.Ordinal);
+        Assert.Equal(first.Outcome!.SessionId, second.Outcome!.SessionId);
+        var (parts, batches) = await StoredAsync(session, second);
+        Assert.Equal(Enumerable.Range(1, Total), parts.Select(p => p.Number));
+        Assert.Single(batches, b => b.RangeTransfer is not null);
+
+        // Simulator truth and JCGM 100:2008 sec. 5.1.6, as above.
+        Assert.All(RatioErrors(parts, first, second), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
+    }
+
     // At ±0.05 % the ranges' spec gain uncertainty (k = 2: 163 ppm) exceeds a quarter of the band (125 ppm), so "auto"
     // bridges without being asked; the 20 kOhm parts then settle on the 100 k range (SortPlan's reachable target).
     [Fact]

@@ -55,6 +55,36 @@ public abstract partial class PrecisionLogContractTests
     }
 
     [SkippableFact]
+    public async Task OpenOrResume_FinishedSessionWithReopen_CarriesOnItsNumberingAndBatch()
+    {
+        var log = await CreateLogAsync();
+        var (first, batch) = await Bench.StartAsync(log);
+        await Bench.CommitAsync(log, first.Session.Id, batch, 10_000.1);
+        await Bench.CommitAsync(log, first.Session.Id, batch, 10_000.2);
+        await log.FinishSessionAsync(first.Session.Id, CancellationToken.None);
+
+        var reopened = await log.OpenOrResumeSessionAsync(new SessionRequest("r2r-ladder-0412", ReopenFinished: true), CancellationToken.None);
+
+        Assert.True(reopened.Resumed);
+        Assert.Equal(first.Session.Id, reopened.Session.Id);
+        Assert.Null(reopened.Session.FinishedAt);
+        Assert.Equal(3, reopened.NextPartNumber);
+        Assert.Equal(batch, reopened.CurrentBatch);
+        Assert.Single(await log.ListSessionsAsync(CancellationToken.None));
+    }
+
+    [SkippableFact]
+    public async Task OpenOrResume_ReopenWithNoSessionOfThatName_StartsANewOne()
+    {
+        var log = await CreateLogAsync();
+
+        var state = await log.OpenOrResumeSessionAsync(new SessionRequest("decade-divider", ReopenFinished: true), CancellationToken.None);
+
+        Assert.False(state.Resumed);
+        Assert.Equal(1, state.NextPartNumber);
+    }
+
+    [SkippableFact]
     public async Task OpenOrResume_ResumeNotWanted_StartsANewOneBesideTheUnfinished()
     {
         var log = await CreateLogAsync();
