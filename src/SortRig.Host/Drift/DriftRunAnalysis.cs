@@ -61,14 +61,7 @@ public static class DriftRunAnalysis
             return (null, "some samples have no temperature");
         }
 
-        try
-        {
-            return (DriftAnalysis.Joint(samples, mean), null);
-        }
-        catch (ArgumentException e)
-        {
-            // The regression's own precondition (too few samples, constant temperature, collinear) is the reason.
-            return (null, e.Message.Split(" (Parameter", 2)[0]);
-        }
+        var fit = DriftAnalysis.TryJoint(samples, mean, out var reason);
+        return (fit, reason);
     }
 }

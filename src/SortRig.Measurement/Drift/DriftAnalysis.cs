@@ -32,6 +32,27 @@ public static class DriftAnalysis
     }
 
     /// <summary>
+    /// <see cref="Joint"/>, or null with the reason its precondition failed (too few samples, a missing
+    /// temperature, no spread, time and temperature collinear), for reports that show the reason instead.
+    /// </summary>
+    /// <param name="samples">The samples, as for <see cref="Joint"/>.</param>
+    /// <param name="referenceOhms">Resistance the ppm refer to, ohms; default the mean of the samples.</param>
+    /// <param name="reason">Why there is no fit; null when there is one.</param>
+    public static DriftTempcoFit? TryJoint(IReadOnlyList<DriftSample> samples, double? referenceOhms, out string? reason)
+    {
+        try
+        {
+            reason = null;
+            return Joint(samples, referenceOhms);
+        }
+        catch (ArgumentException e)
+        {
+            reason = e.Message.Split(" (Parameter", 2)[0];
+            return null;
+        }
+    }
+
+    /// <summary>
     /// Joint fit ppm ~ 1 + hours + (T - mean T) by MathNet multiple regression (QR), which separates
     /// a steady drift from a tempco when the temperature does not simply follow time.
     /// </summary>

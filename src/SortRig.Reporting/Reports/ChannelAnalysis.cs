@@ -28,14 +28,7 @@ internal static class ChannelAnalysis
             return (null, "no temperature logged");
         }
 
-        try
-        {
-            return (DriftAnalysis.Joint(samples, reference), null);
-        }
-        catch (ArgumentException ex)
-        {
-            // The regression's own precondition messages (too few samples, constant temperature, collinear) are the reason shown.
-            return (null, ex.Message.Split(" (Parameter", 2)[0]);
-        }
+        var fit = DriftAnalysis.TryJoint(samples, reference, out var reason);
+        return (fit, reason);
     }
 }

@@ -27,7 +27,7 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
         output.WriteLine(FaultSoak.Figures("tcp", r, 0));
         SoakSettings.Report(FaultSoak.Figures("tcp", r, 0));
         SoakChecks.AssertSurvived(r, output);
-        SoakSettings.AssertSuiteFloor(settings, r);
+        SoakChecks.AssertSuiteFloor(settings, r);
     }
 
     [SocatFact]
@@ -77,7 +77,7 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
         output.WriteLine(FaultSoak.Figures("serial", r, cable.Pulls));
         SoakSettings.Report(FaultSoak.Figures("serial", r, cable.Pulls));
         SoakChecks.AssertSurvived(r, output);
-        SoakSettings.AssertSuiteFloor(settings, r);
+        SoakChecks.AssertSuiteFloor(settings, r);
         Assert.True(cable.Pulls > 0);
     }
 

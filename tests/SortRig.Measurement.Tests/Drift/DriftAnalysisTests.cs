@@ -94,6 +94,16 @@ public sealed class DriftAnalysisTests
     }
 
     [Fact]
+    public void TryJoint_TemperatureFollowingTime_NoFitAndTheReasonWithoutTheParameterSuffix()
+    {
+        DriftSample[] samples = Enumerable.Range(0, 10).Select(i => new DriftSample(s_start.AddHours(i), 100 + (i * 1e-4), 20 + i)).ToArray();
+        var fit = DriftAnalysis.TryJoint(samples, null, out var reason);
+        Assert.Null(fit);
+        Assert.Contains("collinear", reason, StringComparison.Ordinal);
+        Assert.DoesNotContain("(Parameter", reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Drift_BadSample_ThrowsNamingIndexAndField()
     {
         DriftSample[] samples = [new(s_start, 100, null), new(s_start.AddHours(1), double.NaN, null), new(s_start.AddHours(2), 100, null)];
