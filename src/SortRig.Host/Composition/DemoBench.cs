@@ -1,6 +1,7 @@
 using SortRig.Host.Sorting;
 using SortRig.Simulator;
 using SortRig.Simulator.Faults;
+using SortRig.Simulator.Operator;
 using SortRig.Simulator.Physics;
 
 namespace SortRig.Host.Composition;
@@ -28,6 +29,11 @@ public static class DemoBench
             Distribution = ValueDistribution.Normal(0.4),
         },
         Faults = FaultsFor(sort.FaultsPerThousand),
+
+        // The virtual operator puts the first part in when the loop says it is ready, as a person would, and
+        // leaves each part in until it is announced: a host that stalls (a loaded machine, a slow first
+        // reading) must not see a part pulled unmeasured, which would leave the session a part short.
+        Operator = new OperatorOptions { Mode = OperatorMode.OnCue, MaxDwell = TimeSpan.FromHours(1) },
 
         // Each range reads off by its own gain error within ±20 ppm (the profile's 24 h % of reading figure),
         // so a ratio across two ranges is visibly off until a bridging part corrects it.

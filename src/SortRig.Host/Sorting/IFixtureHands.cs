@@ -12,6 +12,9 @@ public interface IFixtureHands
     /// <summary>A session resumes with this many parts already recorded: carry on from the next one.</summary>
     void ResumeAt(int partsRecorded);
 
+    /// <summary>The loop is connected, has set the meter up and reads the fixture: the first part may go in.</summary>
+    void Ready();
+
     /// <summary>
     /// The operator was asked to put one part of <paramref name="nominal"/> ohms from an earlier batch in the
     /// fixture as a bridging part (range transfer). Returns once it is handed in (at once for a person).
@@ -32,6 +35,11 @@ public sealed class HumanHands : IFixtureHands
 
     /// <inheritdoc />
     public void ResumeAt(int partsRecorded)
+    {
+    }
+
+    /// <inheritdoc />
+    public void Ready()
     {
     }
 

@@ -1,4 +1,5 @@
 using SortRig.Simulator;
+using SortRig.Simulator.Operator;
 
 namespace SortRig.Host.Sorting;
 
@@ -18,6 +19,16 @@ public sealed class SimulatorHands(SimulatedBench bench) : IFixtureHands
         {
             // Feeding stopped for the bridging part: start again at the index just set.
             _stoppedForBridge = false;
+            bench.Operator.Start();
+        }
+    }
+
+    /// <inheritdoc />
+    public void Ready()
+    {
+        // An operator told to wait for the cue starts now; a manual one is driven by its test.
+        if (bench.Options.Operator.Mode == OperatorMode.OnCue && !_stoppedForBridge)
+        {
             bench.Operator.Start();
         }
     }

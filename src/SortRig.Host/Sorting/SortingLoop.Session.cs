@@ -60,6 +60,17 @@ public sealed partial class SortingLoop
         _ctx.Hands.ResumeAt(_partsRecorded);
     }
 
+    // The meter is set up and the session open: tell the operator to put the next part in.
+    private async Task AnnounceReadyAsync(CancellationToken ct)
+    {
+        if (!Done)
+        {
+            await SayAsync($"ready: {Options.Nominal:G6} Ohm on the {_ctx.Plan.Range:G6} Ohm range at NPLC {_ctx.Plan.Nplc:G4}; put part {_partsRecorded + 1} in the fixture", ct).ConfigureAwait(false);
+        }
+
+        _ctx.Hands.Ready();
+    }
+
     private static bool SameBatch(BatchSetup a, BatchSetup b) =>
         a.Nominal == b.Nominal && a.Range == b.Range && a.Nplc == b.Nplc && a.FourWire == b.FourWire
         && a.MatchTolerancePpm == b.MatchTolerancePpm && a.StockTolerancePpm == b.StockTolerancePpm;

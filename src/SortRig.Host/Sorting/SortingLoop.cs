@@ -45,6 +45,7 @@ public sealed partial class SortingLoop
             // Meet the meter first: the batch records which instrument measured it.
             _meter = await ConnectWithRetryAsync(cancellationToken).ConfigureAwait(false);
             await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
+            await AnnounceReadyAsync(cancellationToken).ConfigureAwait(false);
             while (!cancellationToken.IsCancellationRequested && !Done)
             {
                 await HandleCommandsAsync(cancellationToken).ConfigureAwait(false);

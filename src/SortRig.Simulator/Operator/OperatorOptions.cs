@@ -8,12 +8,18 @@ public enum OperatorMode
 
     /// <summary>Does nothing unless told (Start(), or the side channel's FIXTure:INSert).</summary>
     Manual = 1,
+
+    /// <summary>
+    /// Waits for the host's cue (Start()) and then feeds parts as in Auto: a person puts the first part in
+    /// when the tool says it is ready, not while it is still connecting and setting the meter up.
+    /// </summary>
+    OnCue = 2,
 }
 
 /// <summary>Timing and handling of the virtual operator. Times are on the bench clock.</summary>
 public sealed record OperatorOptions
 {
-    /// <summary>Auto or manual. Default Auto.</summary>
+    /// <summary>Auto, manual or on cue. Default Auto.</summary>
     public OperatorMode Mode { get; init; } = OperatorMode.Auto;
 
     /// <summary>Shortest handling time before insertion; 0 to 60 s. Default 1 s.</summary>
