@@ -12,10 +12,11 @@ public sealed partial class SortingLoop
     private RangeCorrection? _correction;
 
     private MeasuredValue OnReferenceScale(MeasuredValue value) =>
-        _correction is { } c && c.HighRangeFullScale == _ctx.Plan.Range ? c.Apply(value) : value;
+        _correction is { } c && c.FromRangeFullScale == _ctx.Plan.Range ? c.Apply(value) : value;
 
     // A batch on another range than the session's first batch: plan the transfer between the two ranges
-    // (docs/range-transfer.md). A transfer already recorded on this batch is applied, never measured again.
+    // (docs/range-transfer.md) and put this batch's values on the first batch's scale, from above (2R after R)
+    // or from below (R after 2R). A transfer already recorded on this batch is applied, never measured again.
     private async Task PrepareRangeTransferAsync(IReadOnlyList<BatchInfo> batches, CancellationToken ct)
     {
         if (_batch.RangeTransfer is { } recorded)
@@ -46,19 +47,13 @@ public sealed partial class SortingLoop
             return;
         }
 
-        if (transfer.HighRange.FullScale != _ctx.Plan.Range)
-        {
-            await SayAsync($"this batch is on a lower range than the session's first; a range transfer is made only onto the first batch's range from above: sort the lower nominal first for a corrected ratio", ct).ConfigureAwait(false);
-            return;
-        }
-
         var needed = !transfer.UncorrectedResolvable;
         var gainPpm = transfer.CoverageFactor * transfer.GainUncertainty * 1e6;
         var allowedPpm = transfer.AllowedRelative * 1e6;
         if (Options.Bridge == "off" || (Options.Bridge == "auto" && !needed))
         {
             var why = needed ? "the match band needs one, but range transfer is off" : "the match band allows it";
-            await SayAsync($"ratios to the {transfer.LowRange.FullScale:G6} Ohm batch carry up to ±{gainPpm:0} ppm of range gain error (allowed {allowedPpm:0} ppm), not corrected: {why}", ct).ConfigureAwait(false);
+            await SayAsync($"ratios to the {first.Setup.Range:G6} Ohm range batch carry up to ±{gainPpm:0} ppm of range gain error (allowed {allowedPpm:0} ppm), not corrected: {why}", ct).ConfigureAwait(false);
             return;
         }
 
@@ -67,8 +62,12 @@ public sealed partial class SortingLoop
 
     private async Task CarryOutTransferAsync(RangeTransfer transfer, double gainPpm, CancellationToken ct)
     {
+        // The bridging part is the largest nominal on the low range: the earlier batch's when this batch is on
+        // the high range (2R after R), this batch's own when it is on the low one (R after 2R).
         var bridge = transfer.BridgeNominal;
-        await SayAsync($"range transfer: the {transfer.HighRange.FullScale:G6} Ohm range may read up to ±{gainPpm:0} ppm off the {transfer.LowRange.FullScale:G6} Ohm range. Put one {bridge:G6} Ohm part from the earlier batch in the fixture as a bridging part (it is not stored)", ct).ConfigureAwait(false);
+        var ontoLow = transfer.HighRange.FullScale == _ctx.Plan.Range;
+        var whose = ontoLow ? "from the earlier batch" : "of this batch";
+        await SayAsync($"range transfer: the {transfer.HighRange.FullScale:G6} Ohm range may read up to ±{gainPpm:0} ppm off the {transfer.LowRange.FullScale:G6} Ohm range. Put one {bridge:G6} Ohm part {whose} in the fixture as a bridging part (it is not stored)", ct).ConfigureAwait(false);
         await _ctx.Hands.PlaceBridgingPartAsync(bridge, ct).ConfigureAwait(false);
         RangeCorrection correction;
         while (true)
@@ -77,7 +76,8 @@ public sealed partial class SortingLoop
             var onHigh = await SettleBridgeAsync(transfer.HighRange, bridge, thermallySettled: true, ct).ConfigureAwait(false);
             try
             {
-                correction = transfer.Correction(onLow, onHigh);
+                var highOntoLow = transfer.Correction(onLow, onHigh);
+                correction = ontoLow ? highOntoLow : highOntoLow.Inverted();
                 break;
             }
             catch (ArgumentException e)
@@ -88,13 +88,17 @@ public sealed partial class SortingLoop
 
         var ppm = (correction.Factor - 1) * 1e6;
         var uPpm = correction.RelativeStandardUncertainty * 1e6;
-        var record = new RangeTransferCorrection(transfer.HighRange.FullScale, transfer.LowRange.FullScale, ppm, uPpm, _ctx.Time.GetUtcNow());
+        var record = new RangeTransferCorrection(correction.FromRangeFullScale, correction.ToRangeFullScale, ppm, uPpm, _ctx.Time.GetUtcNow());
         _batch = await DurablyAsync("the range transfer", c => _ctx.Log.RecordRangeTransferAsync(_batch.Id, record, c), ct).ConfigureAwait(false);
         _correction = correction;
-        await SayAsync($"range transfer recorded: values on the {transfer.HighRange.FullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out", ct).ConfigureAwait(false);
+        await SayAsync($"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out", ct).ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
-        _activeRange = 0; // the batch's own range (the high one) from here on
+        _activeRange = 0; // the batch's own range from here on
+        if (!ontoLow)
+        {
+            await ApplySetupAsync(ct).ConfigureAwait(false); // the bridge was read on the high range last
+        }
     }
 
     private ValueTask SayAsync(FormattableString text, CancellationToken ct) =>

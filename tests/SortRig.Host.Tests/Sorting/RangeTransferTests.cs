@@ -56,6 +56,44 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         }
     }
 
+    // The other order: the 2R reel first (100 k range), then the R reel (10 k range). One R part of the new
+    // reel bridges the ranges and the R values are put on the 100 k range's scale, the session's first.
+    [Fact]
+    public async Task Resume_WithHalfTheNominal_BridgesFromBelow_RatiosMatchTheTruth()
+    {
+        var session = new RangeTransferSession(Path.Combine(_dir, "ladder-down.db"));
+        var first = await session.RunAsync(session.Options(20_000, Total, "always"), RangeTransferSession.AfterPart(R));
+        var second = await session.RunAsync(session.Options(10_000, Total, "always"));
+
+        Assert.Contains("Put one 10000 Ohm part of this batch in the fixture", second.Heard, StringComparison.Ordinal);
+        var (parts, batches) = await StoredAsync(session, second);
+        Assert.Equal(Enumerable.Range(1, Total), parts.Select(p => p.Number));
+        var transfer = Assert.Single(batches, b => b.RangeTransfer is not null).RangeTransfer!;
+        Assert.Equal(10_000, batches[^1].Setup.Nominal);
+        Assert.Equal((10_000.0, 100_000.0), (transfer.FromRange, transfer.ToRange));
+
+        // Simulator truth: the factor that puts the 10 k range on the 100 k range's scale is (1 + g_100k)/(1 + g_10k);
+        // the recorded one must agree within its expanded uncertainty (k = 2, JCGM 100:2008 sec. 6.2.1).
+        var (g10, g100) = (second.Bench.GainErrorPpm(1e4), second.Bench.GainErrorPpm(1e5));
+        var trueCorrectionPpm = (((1 + (g100 * 1e-6)) / (1 + (g10 * 1e-6))) - 1) * 1e6;
+        output.WriteLine($"gain 10 k {g10:F1} ppm, 100 k {g100:F1} ppm; recorded correction {transfer.CorrectionPpm:F1} ppm, u {transfer.StandardUncertaintyPpm:F1} ppm; true {trueCorrectionPpm:F1} ppm");
+        Assert.InRange(transfer.CorrectionPpm - trueCorrectionPpm, -2 * transfer.StandardUncertaintyPpm, 2 * transfer.StandardUncertaintyPpm);
+
+        // The R parts were read on their own range after the bridge: every stored R value is its window mean times the factor.
+        await using (var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, "auto").Database, null, default))
+        {
+            foreach (var part in parts.Where(p => p.Nominal == 10_000))
+            {
+                var readings = (await log.GetReadingsAsync(part.Id, default)).Where(r => r.Kind == ReadingKind.Finite).ToList();
+                Assert.All(readings, r => Assert.Equal(10_000, r.Range));
+                Assert.Equal(readings.TakeLast(8).Average(r => r.Value) * (1 + (transfer.CorrectionPpm * 1e-6)), part.Value, 6);
+            }
+        }
+
+        output.WriteLine($"R after 2R, corrected: {Describe(parts, second, first)}");
+        Assert.All(RatioErrors(parts, second, first), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
+    }
+
     // The R reel sorted to its end finishes the session; --reopen carries the job on with the 2R reel.
     [Fact]
     public async Task Reopen_AfterTheFirstReelFinished_SameSessionBridgesTheRanges()

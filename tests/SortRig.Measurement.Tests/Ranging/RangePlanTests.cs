@@ -60,6 +60,23 @@ public sealed class RangePlanTests
     }
 
     [Fact]
+    public void Inverted_PutsLowRangeValuesOnTheHighRangesScale_SameRelativeUncertainty()
+    {
+        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]);
+        var c = plan.Transfers[0].Correction(new MeasuredValue(10_000.50, 0.7, 0.015), new MeasuredValue(10_000.80, 0.7, 0.054));
+
+        var inverse = c.Inverted();
+
+        // F' = 10000.80 / 10000.50 = 1 + 0.30/10000.50 = 1.0000299985 (hand arithmetic); u_rel unchanged
+        // (JCGM 100:2008 sec. 5.1.6: relative uncertainties of X^p scale by |p|, here p = -1).
+        Assert.Equal(1.0000299985, inverse.Factor, 9);
+        Assert.Equal(c.RelativeStandardUncertainty, inverse.RelativeStandardUncertainty);
+        Assert.Equal((c.FromRangeFullScale, c.ToRangeFullScale), (inverse.ToRangeFullScale, inverse.FromRangeFullScale));
+        // The bridging part's low-range reading lands on its high-range reading.
+        Assert.Equal(10_000.80, inverse.Apply(new MeasuredValue(10_000.50, 0.7, 0.015)).Value, 6);
+    }
+
+    [Fact]
     public void Correction_DifferentParts_Throws()
     {
         var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.001, 1, true), new RangeRequest(20_000, 0.01, 0.001, 1, true)]);
