@@ -177,6 +177,26 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         Assert.All(RatioErrors(parts, first, third), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
     }
 
+    [Fact]
+    public async Task Resume_StoppedWithTheBridgingPartIn_AsksForItAgainAndRecordsOneTransfer()
+    {
+        var session = new RangeTransferSession(Path.Combine(_dir, "ladder-midbridge.db"));
+        var first = await session.RunAsync(session.Options(10_000, Total, "always"), RangeTransferSession.AfterPart(R));
+        var stopped = await session.RunAsync(session.Options(20_000, Total, "always"), RangeTransferSession.AfterNote("as a bridging part"));
+        Assert.Null(stopped.Outcome); // stopped with the bridging part going in: nothing recorded yet
+        var third = await session.RunAsync(session.Options(20_000, Total, "always"));
+
+        Assert.Contains("Put one 10000 Ohm part from the earlier batch in the fixture", third.Heard, StringComparison.Ordinal);
+        Assert.Contains("range transfer recorded", third.Heard, StringComparison.Ordinal);
+        var (parts, batches) = await StoredAsync(session, third);
+        Assert.Equal(Enumerable.Range(1, Total), parts.Select(p => p.Number)); // nothing lost, the bridge not stored
+        Assert.Equal(2, batches.Count); // the 20 k batch was resumed, not started twice
+        Assert.NotNull(batches[1].RangeTransfer);
+
+        // Simulator truth and JCGM 100:2008 sec. 5.1.6, as above.
+        Assert.All(RatioErrors(parts, first, third), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
+    }
+
     private static async Task<(IReadOnlyList<PartRecord> Parts, IReadOnlyList<BatchInfo> Batches)> StoredAsync(RangeTransferSession session, RangeTransferSession.Run run)
     {
         Assert.NotNull(run.Outcome);
