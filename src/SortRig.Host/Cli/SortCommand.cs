@@ -29,7 +29,7 @@ internal static class SortCommand
         map.Add(command, new Option<int>("--cups") { Description = "Cups besides the reject cup (default 12)" }, "Sort:Cups");
         map.Add(command, new Option<string>("--assigner") { Description = "bands (default), adaptive (edges learned from the reel) or slots (numbered tray slots)" }, "Sort:Assigner");
         map.Add(command, new Option<double>("--nplc") { Description = "Integration time in power-line cycles (default 1)" }, "Sort:Nplc");
-        map.Add(command, new Option<string>("--bridge") { Description = "Range transfer for a batch on a higher range than the session's first: auto (when the match needs it, default), always, off" }, "Sort:Bridge");
+        map.Add(command, new Option<string>("--bridge") { Description = "Range transfer for a batch on another range than the session's first: auto (when the match needs it, default), always, off" }, "Sort:Bridge");
         map.Add(command, new Option<bool>("--reopen") { Description = "Carry on the latest session of this name even if finished (another batch of the same job; --parts counts the whole session)" }, "Sort:Reopen");
         map.Add(command, new Option<bool>("--four-wire") { Description = "Measure 4-wire" }, "Sort:FourWire");
         map.Add(command, new Option<int>("--parts") { Description = "Stop after this many parts; on the simulator the demo reel's length (default 60)" }, "Sort:Parts");

@@ -7,7 +7,9 @@ namespace SortRig.Host.Sorting;
 /// <c>SORTRIG_CRASH_AT</c> is <c>point:n</c>, the process kills itself with SIGKILL the n-th time
 /// (1-based, counted in this process) the sorting loop passes that point. Points:
 /// <c>read</c> (a part settled and checked, not yet committed), <c>commit</c> (committed, not yet
-/// announced), <c>announce</c> (announced, not yet marked announced in the log).
+/// announced), <c>announce</c> (announced, not yet marked announced in the log), <c>bridge</c> (a range
+/// transfer's bridging part read on both ranges, the correction not yet recorded) and <c>bridged</c>
+/// (the correction recorded, not yet announced).
 /// Unset, empty or malformed: no effect.
 /// </summary>
 internal static class CrashPoint
@@ -34,7 +36,7 @@ internal static class CrashPoint
     internal static (string Point, int Count)? Parse(string? value)
     {
         var parts = value?.Split(':') ?? [];
-        return parts.Length == 2 && parts[0] is "read" or "commit" or "announce" && int.TryParse(parts[1], out var n) && n > 0
+        return parts.Length == 2 && parts[0] is "read" or "commit" or "announce" or "bridge" or "bridged" && int.TryParse(parts[1], out var n) && n > 0
             ? (parts[0], n)
             : null;
     }

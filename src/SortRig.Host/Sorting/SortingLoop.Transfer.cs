@@ -88,9 +88,11 @@ public sealed partial class SortingLoop
 
         var ppm = (correction.Factor - 1) * 1e6;
         var uPpm = correction.RelativeStandardUncertainty * 1e6;
+        CrashPoint.Pass("bridge");
         var record = new RangeTransferCorrection(correction.FromRangeFullScale, correction.ToRangeFullScale, ppm, uPpm, _ctx.Time.GetUtcNow());
         _batch = await DurablyAsync("the range transfer", c => _ctx.Log.RecordRangeTransferAsync(_batch.Id, record, c), ct).ConfigureAwait(false);
         _correction = correction;
+        CrashPoint.Pass("bridged");
         await SayAsync($"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out", ct).ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
