@@ -16,8 +16,8 @@ public interface IFixtureHands
     void Ready();
 
     /// <summary>
-    /// The operator was asked to put one part of <paramref name="nominal"/> ohms from an earlier batch in the
-    /// fixture as a bridging part (range transfer). Returns once it is handed in (at once for a person).
+    /// The operator was asked to put one part of <paramref name="nominal"/> ohms in the fixture as a bridging part
+    /// (range transfer): from the earlier batch, or from this one when it is on the lower range. Returns once it is handed in (at once for a person).
     /// </summary>
     Task PlaceBridgingPartAsync(double nominal, CancellationToken ct);
 

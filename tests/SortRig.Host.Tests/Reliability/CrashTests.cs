@@ -1,5 +1,4 @@
 using System.Globalization;
-using Microsoft.Data.Sqlite;
 using SortRig.Host.Composition;
 using SortRig.Host.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
@@ -75,14 +74,7 @@ public sealed class CrashTests(ITestOutputHelper output) : IDisposable
 
     private async Task AssertNothingLostAsync(string db, int seed, IReadOnlyList<HostRun> runs)
     {
-        using (var raw = new SqliteConnection($"Data Source={db};Mode=ReadOnly"))
-        {
-            raw.Open();
-            using var check = raw.CreateCommand();
-            check.CommandText = "PRAGMA integrity_check";
-            Assert.Equal("ok", check.ExecuteScalar() as string);
-        }
-
+        DatabaseChecks.AssertIntegrity(db);
         await using var log = await PrecisionLogFactory.OpenAsync(db, null, default);
         Assert.True((await log.VerifyAsync(default)).IsOk);
         var session = Assert.Single(await log.ListSessionsAsync(default), x => x.Name == "crash");

@@ -1,4 +1,3 @@
-using Microsoft.Data.Sqlite;
 using SortRig.Host.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Host.Tests.Sorting;
@@ -119,8 +118,7 @@ public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
 
     private static long CountParts(string db)
     {
-        using var c = new SqliteConnection($"Data Source={db};Mode=ReadOnly;Pooling=False");
-        c.Open();
+        using var c = DatabaseChecks.Open(db);
         using var q = c.CreateCommand();
         q.CommandText = "SELECT COUNT(*) FROM parts";
         return (long)q.ExecuteScalar()!;
@@ -129,11 +127,8 @@ public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
     // integrity_check passes, and no part is stored without the readings it was accepted from.
     private static void AssertWhole(string db)
     {
-        using var c = new SqliteConnection($"Data Source={db};Mode=ReadOnly;Pooling=False");
-        c.Open();
-        using var check = c.CreateCommand();
-        check.CommandText = "PRAGMA integrity_check";
-        Assert.Equal("ok", check.ExecuteScalar() as string);
+        DatabaseChecks.AssertIntegrity(db);
+        using var c = DatabaseChecks.Open(db);
         using var bare = c.CreateCommand();
         bare.CommandText = "SELECT COUNT(*) FROM parts p WHERE (SELECT COUNT(*) FROM raw_readings r WHERE r.part_id = p.id) < 8";
         Assert.Equal(0L, (long)bare.ExecuteScalar()!);

@@ -1,8 +1,8 @@
 using System.Globalization;
-using Microsoft.Data.Sqlite;
 using SortRig.Host.Composition;
 using SortRig.Host.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
+using SortRig.Host.Tests.Sorting;
 using SortRig.Simulator;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
@@ -51,14 +51,7 @@ public sealed class TransferCrashTests(ITestOutputHelper output) : IDisposable
         Assert.Contains(last.Lines, l => l.Contains("range transfer already recorded for this batch", StringComparison.Ordinal));
         Assert.DoesNotContain(last.Lines, l => l.Contains("bridging part", StringComparison.Ordinal));
 
-        using (var raw = new SqliteConnection($"Data Source={db};Mode=ReadOnly"))
-        {
-            raw.Open();
-            using var check = raw.CreateCommand();
-            check.CommandText = "PRAGMA integrity_check";
-            Assert.Equal("ok", check.ExecuteScalar() as string);
-        }
-
+        DatabaseChecks.AssertIntegrity(db);
         await using var log = await PrecisionLogFactory.OpenAsync(db, null, default);
         var session = Assert.Single(await log.ListSessionsAsync(default), s => s.Name == "ladder");
         var parts = await log.GetPartsAsync(session.Id, default);
@@ -71,7 +64,7 @@ public sealed class TransferCrashTests(ITestOutputHelper output) : IDisposable
         // Simulator truth (same seed): the factor that puts the 100 k range on the 10 k range's scale is
         // (1 + g_10k)/(1 + g_100k); the recorded one agrees within k = 2 (JCGM 100:2008 sec. 6.2.1).
         await using var bench = new SimulatedBench(DemoBench.For(Options(20_000, Total), Total));
-        var trueCorrectionPpm = (((1 + (bench.GainErrorPpm(1e4) * 1e-6)) / (1 + (bench.GainErrorPpm(1e5) * 1e-6))) - 1) * 1e6;
+        var trueCorrectionPpm = RangeTransferSession.TrueCorrectionPpm(bench, transfer.FromRange, transfer.ToRange);
         output.WriteLine($"recorded {transfer.CorrectionPpm:F1} ppm (u {transfer.StandardUncertaintyPpm:F1}), true {trueCorrectionPpm:F1} ppm");
         Assert.InRange(transfer.CorrectionPpm - trueCorrectionPpm, -2 * transfer.StandardUncertaintyPpm, 2 * transfer.StandardUncertaintyPpm);
     }

@@ -66,6 +66,13 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
         return new Run(outcome, bench!, heard.ToString());
     }
 
+    /// <summary>
+    /// The correction that truly puts values read on <paramref name="fromRange"/> onto <paramref name="toRange"/>'s
+    /// scale, ppm, from the simulator's truth: a reading on range r is (1 + g_r) × the true value, so F = (1 + g_to)/(1 + g_from).
+    /// </summary>
+    public static double TrueCorrectionPpm(SimulatedBench bench, double fromRange, double toRange) =>
+        (((1 + (bench.GainErrorPpm(toRange) * 1e-6)) / (1 + (bench.GainErrorPpm(fromRange) * 1e-6))) - 1) * 1e6;
+
     public sealed record Run(SortOutcome? Outcome, SimulatedBench Bench, string Heard);
 
     /// <summary>Stops the run once part <paramref name="number"/> has been given its cup.</summary>

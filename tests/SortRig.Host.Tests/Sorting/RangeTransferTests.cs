@@ -39,7 +39,7 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         // 100 k range on the 10 k range's scale is (1 + g_10k)/(1 + g_100k); the recorded one must agree within
         // its expanded uncertainty (k = 2, JCGM 100:2008 sec. 6.2.1).
         var (g10, g100) = (second.Bench.GainErrorPpm(1e4), second.Bench.GainErrorPpm(1e5));
-        var trueCorrectionPpm = (((1 + (g10 * 1e-6)) / (1 + (g100 * 1e-6))) - 1) * 1e6;
+        var trueCorrectionPpm = RangeTransferSession.TrueCorrectionPpm(second.Bench, transfer.FromRange, transfer.ToRange);
         output.WriteLine($"gain 10 k {g10:F1} ppm, 100 k {g100:F1} ppm, mismatch {g100 - g10:F1} ppm; recorded correction {transfer.CorrectionPpm:F1} ppm, u {transfer.StandardUncertaintyPpm:F1} ppm; true {trueCorrectionPpm:F1} ppm");
         Assert.InRange(transfer.CorrectionPpm - trueCorrectionPpm, -2 * transfer.StandardUncertaintyPpm, 2 * transfer.StandardUncertaintyPpm);
 
@@ -72,10 +72,9 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         Assert.Equal(10_000, batches[^1].Setup.Nominal);
         Assert.Equal((10_000.0, 100_000.0), (transfer.FromRange, transfer.ToRange));
 
-        // Simulator truth: the factor that puts the 10 k range on the 100 k range's scale is (1 + g_100k)/(1 + g_10k);
-        // the recorded one must agree within its expanded uncertainty (k = 2, JCGM 100:2008 sec. 6.2.1).
+        // Simulator truth: the factor that puts the 10 k range on the 100 k range's scale; the recorded one must agree within its expanded uncertainty (k = 2, JCGM 100:2008 sec. 6.2.1).
         var (g10, g100) = (second.Bench.GainErrorPpm(1e4), second.Bench.GainErrorPpm(1e5));
-        var trueCorrectionPpm = (((1 + (g100 * 1e-6)) / (1 + (g10 * 1e-6))) - 1) * 1e6;
+        var trueCorrectionPpm = RangeTransferSession.TrueCorrectionPpm(second.Bench, transfer.FromRange, transfer.ToRange);
         output.WriteLine($"gain 10 k {g10:F1} ppm, 100 k {g100:F1} ppm; recorded correction {transfer.CorrectionPpm:F1} ppm, u {transfer.StandardUncertaintyPpm:F1} ppm; true {trueCorrectionPpm:F1} ppm");
         Assert.InRange(transfer.CorrectionPpm - trueCorrectionPpm, -2 * transfer.StandardUncertaintyPpm, 2 * transfer.StandardUncertaintyPpm);
 

@@ -24,7 +24,7 @@ public sealed class TcpServerTests : IAsyncLifetime
     public async Task SequentialClients_EachGetServed_StateIsShared()
     {
         await _client.SendAsync("RES:NPLC 10");
-        // A command has no reply: *OPC? waits until it has run (IEEE 488.2 sec. 10.19), so the next client
+        // A command has no reply: *OPC? waits until it has run (IEEE 488.2 operation complete query, from memory), so the next client
         // cannot be served before the old connection's last command (they are read on separate sockets).
         Assert.Equal("1", await _client.QueryAsync("*OPC?"));
         _client.Close();
