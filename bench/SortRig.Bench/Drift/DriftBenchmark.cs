@@ -1,8 +1,9 @@
 using System.Diagnostics;
 using System.Globalization;
 using Microsoft.Extensions.Logging.Abstractions;
-using SortRig.Host.Drift;
-using SortRig.Host.Events;
+using SortRig.Engine.DriftLogging;
+using SortRig.Engine.Events;
+using SortRig.Engine.Simulation;
 
 namespace SortRig.Bench.Drift;
 

@@ -1,7 +1,9 @@
 using System.CommandLine;
 using Spectre.Console;
-using SortRig.Host.Library;
-using SortRig.Host.Planning;
+using SortRig.Engine.Parts;
+using SortRig.Host.LibraryVerb;
+using SortRig.Host.PlanVerb;
+using SortRig.Host.VerbSupport;
 
 namespace SortRig.Host.Cli;
 

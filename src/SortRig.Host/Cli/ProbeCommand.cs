@@ -1,6 +1,6 @@
 using System.CommandLine;
 using Spectre.Console;
-using SortRig.Host.Composition;
+using SortRig.Engine.Composition;
 using SortRig.Instruments;
 using SortRig.Instruments.Drivers;
 using SortRig.Instruments.Transports;

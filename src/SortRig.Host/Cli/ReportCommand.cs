@@ -1,7 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using Spectre.Console;
-using SortRig.Host.Reports;
+using SortRig.Host.ReportVerb;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.Cli;

@@ -3,10 +3,11 @@ using Microsoft.AspNetCore.Builder;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Hosting;
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Hosting;
 using SortRig.Host.Operator;
-using SortRig.Host.Sorting;
 using SortRig.Host.Web;
 using SortRig.Simulator;
 

@@ -1,7 +1,7 @@
 using Spectre.Console;
 using Spectre.Console.Rendering;
-using SortRig.Host.Announcing;
-using SortRig.Host.Events;
+using SortRig.Engine.Announcing;
+using SortRig.Engine.Events;
 
 namespace SortRig.Host.Live;
 

@@ -1,4 +1,4 @@
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
 
 namespace SortRig.Host.Live;
 
@@ -6,7 +6,7 @@ namespace SortRig.Host.Live;
 /// What the live console view shows, folded from the bench event stream. Pure: no console here,
 /// so the folding is testable.
 /// </summary>
-public sealed record LiveViewModel(
+internal sealed record LiveViewModel(
     int PartsDone,
     int PartsPlanned,
     BenchEvent? LastAnnouncement,

@@ -1,4 +1,5 @@
 using Microsoft.Extensions.Hosting;
+using SortRig.Engine.Operator;
 
 namespace SortRig.Host.Operator;
 

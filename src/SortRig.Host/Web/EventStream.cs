@@ -2,7 +2,7 @@ using System.Globalization;
 using System.Text.Json;
 using Microsoft.AspNetCore.Http;
 using Microsoft.Extensions.Hosting;
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
 
 namespace SortRig.Host.Web;
 

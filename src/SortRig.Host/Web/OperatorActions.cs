@@ -1,3 +1,4 @@
+using SortRig.Engine.Operator;
 using SortRig.Host.Operator;
 
 namespace SortRig.Host.Web;

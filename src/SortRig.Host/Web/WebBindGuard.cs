@@ -3,7 +3,7 @@ using System.Net;
 namespace SortRig.Host.Web;
 
 /// <summary>Refuses to start the page on a non-loopback address without a token, or with a weak one.</summary>
-public static class WebBindGuard
+internal static class WebBindGuard
 {
     /// <summary>Shortest token accepted, in characters (e.g. 16 random hex digits = 64 bits).</summary>
     public const int MinimumTokenLength = 16;

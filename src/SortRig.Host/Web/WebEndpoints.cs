@@ -3,9 +3,10 @@ using System.Text.Json.Serialization;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Http;
 using Microsoft.AspNetCore.Routing;
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Operator;
-using SortRig.Host.Sorting;
 
 namespace SortRig.Host.Web;
 

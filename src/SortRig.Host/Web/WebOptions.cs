@@ -1,7 +1,7 @@
 namespace SortRig.Host.Web;
 
 /// <summary>Settings of the bench page, bound from the "Web" configuration section.</summary>
-public sealed class WebOptions
+internal sealed class WebOptions
 {
     /// <summary>Configuration section name.</summary>
     public const string Section = "Web";

@@ -4,9 +4,10 @@ using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.DependencyInjection.Extensions;
 using Microsoft.Extensions.Logging;
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Operator;
-using SortRig.Host.Sorting;
 
 namespace SortRig.Host.Web;
 

@@ -1,4 +1,4 @@
-using SortRig.Host.Announcing;
+using SortRig.Engine.Announcing;
 
 namespace SortRig.Host.Tests.Announcing;
 

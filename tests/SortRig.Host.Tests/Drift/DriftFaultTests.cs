@@ -1,4 +1,4 @@
-using SortRig.Host.Drift;
+using SortRig.Engine.DriftLogging;
 using SortRig.Simulator.Faults;
 
 namespace SortRig.Host.Tests.Drift;

@@ -2,10 +2,13 @@ using System.Globalization;
 using CsvHelper;
 using Microsoft.Extensions.Logging.Abstractions;
 using Microsoft.Extensions.Options;
-using SortRig.Host.Drift;
-using SortRig.Host.Events;
-using SortRig.Host.Library;
+using SortRig.Engine.DriftLogging;
+using SortRig.Engine.Events;
+using SortRig.Engine.Simulation;
+using SortRig.Host.Hosting;
+using SortRig.Host.LibraryVerb;
 using SortRig.Host.Tests.Library;
+using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.Tests.Drift;
@@ -20,7 +23,7 @@ public sealed class DriftLibraryPartsTests
     [Fact]
     public async Task Run_WithLibraryParts_EachPartCarriesItsChannelsRecordInStorageAndExport()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var p = await Seed.SessionAsync(store, "ladder", [new SeedPart(-40, 10), new SeedPart(15, 10), new SeedPart(60, 10), new SeedPart(-5, 10)]);
         // Shuffled onto the channels (the label form "#id" for one), channel 104 logged without a library part, p[3] never logged.
         var settings = new DriftOptions
@@ -77,7 +80,7 @@ public sealed class DriftLibraryPartsTests
     [InlineData("101={0},103=#{0}", "item '103=#{0}': part {0} is already on channel 101")]
     public async Task Run_BadLibraryParts_NamesTheOptionAndItem_ExitsBadInput_LogsNoRun(string mapping, string said)
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var p = await Seed.SessionAsync(store, "ladder", [new SeedPart(-40, 10), new SeedPart(15, 10), new SeedPart(60, 10)]);
         await using (var log = await store.OpenAsync())
         {

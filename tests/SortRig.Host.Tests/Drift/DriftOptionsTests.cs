@@ -1,4 +1,4 @@
-using SortRig.Host.Drift;
+using SortRig.Engine.DriftLogging;
 
 namespace SortRig.Host.Tests.Drift;
 

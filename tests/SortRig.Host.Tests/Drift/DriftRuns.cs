@@ -1,6 +1,7 @@
 using Microsoft.Extensions.Logging.Abstractions;
-using SortRig.Host.Drift;
-using SortRig.Host.Events;
+using SortRig.Engine.DriftLogging;
+using SortRig.Engine.Events;
+using SortRig.Engine.Simulation;
 using SortRig.Simulator;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;

@@ -1,5 +1,5 @@
 using Microsoft.Extensions.Configuration;
-using SortRig.Host.Drift;
+using SortRig.Engine.DriftLogging;
 
 namespace SortRig.Host.Tests.Drift;
 

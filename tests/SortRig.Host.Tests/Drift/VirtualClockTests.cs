@@ -1,5 +1,5 @@
 using Microsoft.Extensions.Time.Testing;
-using SortRig.Host.Drift;
+using SortRig.Engine.Simulation;
 
 namespace SortRig.Host.Tests.Drift;
 

@@ -1,5 +1,5 @@
 using Microsoft.Extensions.Time.Testing;
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
 
 namespace SortRig.Host.Tests.Events;
 

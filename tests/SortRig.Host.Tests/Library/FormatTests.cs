@@ -1,4 +1,6 @@
-using SortRig.Host.Library;
+using SortRig.Engine.Parts;
+using SortRig.Host.LibraryVerb;
+using SortRig.Host.VerbSupport;
 
 namespace SortRig.Host.Tests.Library;
 
@@ -32,5 +34,5 @@ public sealed class FormatTests
     [InlineData("1-200000")]
     [InlineData("abc")]
     public void PartIds_RefuseBadTokens(string text) =>
-        Assert.Contains("--ids", Assert.Throws<VerbException>(() => PartIds.Parse(text)).Message, StringComparison.Ordinal);
+        Assert.Contains("--ids", Assert.Throws<ArgumentException>(() => PartIds.Parse(text)).Message, StringComparison.Ordinal);
 }

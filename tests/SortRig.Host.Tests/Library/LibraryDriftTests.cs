@@ -2,7 +2,8 @@ using System.Globalization;
 using CsvHelper;
 using MathNet.Numerics;
 using SortRig.Host.Cli;
-using SortRig.Host.Library;
+using SortRig.Host.LibraryVerb;
+using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.Tests.Library;
@@ -19,9 +20,9 @@ public sealed class LibraryDriftTests
     private const double DriftB2 = -2.5;   // ppm/h, part B in night-2, no thermometer
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Export_PartsWithDriftRuns_CarryTheLatestRunsFitAndOthersEmptyFields(Engine engine)
+    public async Task Export_PartsWithDriftRuns_CarryTheLatestRunsFitAndOthersEmptyFields(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         var (a, b, never, noSamples) = await SeedAsync(store);
@@ -68,7 +69,7 @@ public sealed class LibraryDriftTests
     [Fact]
     public async Task Find_Table_ShowsEachPartsLatestDriftRateOrADash()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var (a, b, never, _) = await SeedAsync(store);
         var io = new ConsoleCapture();
 

@@ -1,7 +1,8 @@
 using System.Globalization;
 using CsvHelper;
 using SortRig.Host.Cli;
-using SortRig.Host.Library;
+using SortRig.Host.LibraryVerb;
+using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.Tests.Library;
@@ -15,9 +16,9 @@ public sealed class LibraryVerbTests
     private static SeedPart[] Parts => [.. s_ppm.Select((p, i) => new SeedPart(p, 10, Slot: $"T1-B{i + 1:00}"))];
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Find_ByDeviationWindow_ListsExactlyThePartsInside(Engine engine)
+    public async Task Find_ByDeviationWindow_ListsExactlyThePartsInside(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         var parts = await Seed.SessionAsync(store, "reel", Parts);
@@ -34,9 +35,9 @@ public sealed class LibraryVerbTests
     }
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Labels_Text_HoldEachPartsValuesInFixedWidthLines(Engine engine)
+    public async Task Labels_Text_HoldEachPartsValuesInFixedWidthLines(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         await using (var log = await store.OpenAsync())
@@ -75,7 +76,7 @@ public sealed class LibraryVerbTests
     [Fact]
     public async Task Labels_Csv_ReadBackWithEveryPartsValues()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var parts = await Seed.SessionAsync(store, "reel", Parts);
         var file = store.File("labels.csv");
 
@@ -95,9 +96,9 @@ public sealed class LibraryVerbTests
     }
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Export_Csv_ReadsBackEveryLivePartWithItsStatus(Engine engine)
+    public async Task Export_Csv_ReadsBackEveryLivePartWithItsStatus(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         var parts = await Seed.SessionAsync(store, "reel", Parts);
@@ -130,7 +131,7 @@ public sealed class LibraryVerbTests
     [Fact]
     public async Task Take_UnknownIds_ExitsTwoNamingThemAndChangesNothing()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var parts = await Seed.SessionAsync(store, "reel", Parts);
         var io = new ConsoleCapture();
 
@@ -145,7 +146,7 @@ public sealed class LibraryVerbTests
     [Fact]
     public async Task Used_OnAvailableParts_IsRefused_ThenTakeUsedRetireWalkTheStatuses()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var parts = await Seed.SessionAsync(store, "reel", Parts);
         long[] ids = [parts[0].Id, parts[1].Id];
         var io = new ConsoleCapture();
@@ -165,7 +166,7 @@ public sealed class LibraryVerbTests
     [Fact]
     public async Task LibraryCommand_ParsedFromArguments_LocatesAPartThatFindThenShows()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var parts = await Seed.SessionAsync(store, "reel", Parts);
         var io = new ConsoleCapture();
         var root = new System.CommandLine.RootCommand { LibraryCommand.Create(io.Console, io.Stdout) };

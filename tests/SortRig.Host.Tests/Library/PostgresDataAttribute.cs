@@ -18,5 +18,5 @@ public sealed class PostgresDataAttribute : DataAttribute
         }
     }
 
-    public override IEnumerable<object[]> GetData(MethodInfo testMethod) => [[Engine.Postgres]];
+    public override IEnumerable<object[]> GetData(MethodInfo testMethod) => [[StoreEngine.Postgres]];
 }

@@ -5,7 +5,7 @@ using SortRig.Storage.Contracts;
 namespace SortRig.Host.Tests.Library;
 
 /// <summary>Engines the verb tests run on.</summary>
-public enum Engine
+public enum StoreEngine
 {
     Sqlite,
     Postgres,
@@ -36,10 +36,10 @@ public sealed class TestStore : IAsyncDisposable
     /// <summary>A folder for output files of this test.</summary>
     public string Folder => _folder ?? throw new InvalidOperationException("no folder");
 
-    public static async Task<TestStore> CreateAsync(Engine engine)
+    public static async Task<TestStore> CreateAsync(StoreEngine engine)
     {
         var folder = Directory.CreateTempSubdirectory("sortrig-library-").FullName;
-        if (engine == Engine.Sqlite)
+        if (engine == StoreEngine.Sqlite)
         {
             return new TestStore(Path.Combine(folder, "library.db"), folder, null, null);
         }

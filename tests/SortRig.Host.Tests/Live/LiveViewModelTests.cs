@@ -1,4 +1,4 @@
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
 using SortRig.Host.Live;
 
 namespace SortRig.Host.Tests.Live;

@@ -1,8 +1,10 @@
 using System.CommandLine;
 using SortRig.Host.Cli;
-using SortRig.Host.Library;
-using SortRig.Host.Planning;
+using SortRig.Host.LibraryVerb;
+using SortRig.Host.PlanVerb;
 using SortRig.Host.Tests.Library;
+using SortRig.Host.VerbSupport;
+using SortRig.Engine.Picking;
 
 namespace SortRig.Host.Tests.Planning;
 
@@ -22,9 +24,9 @@ public sealed class PlanCupsAndErrorsTests
     ];
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Plan_SessionInCups_PicksByCupAndEverySetHoldsForAnyPartsOfItsCups(Engine engine)
+    public async Task Plan_SessionInCups_PicksByCupAndEverySetHoldsForAnyPartsOfItsCups(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         var parts = await Seed.SessionAsync(store, "cups", s_cups);
@@ -46,9 +48,9 @@ public sealed class PlanCupsAndErrorsTests
     }
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task LibrarySets_AcrossTwoSessions_CountsLikeTheBruteForceOverBoth(Engine engine)
+    public async Task LibrarySets_AcrossTwoSessions_CountsLikeTheBruteForceOverBoth(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         var first = await Seed.SessionAsync(store, "reel-1", [.. new double[] { -300, -100, 100, 300, 900, 1500 }.Select((p, i) => new SeedPart(p, 10, Slot: $"T1-A{i + 1:00}"))]);
@@ -70,7 +72,7 @@ public sealed class PlanCupsAndErrorsTests
     [Fact]
     public async Task Plan_UnknownSession_ExitsTwoListingTheSessions()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         await Seed.SessionAsync(store, "quad-reel", [new SeedPart(0, 10, "A")]);
         var io = new ConsoleCapture();
 
@@ -84,7 +86,7 @@ public sealed class PlanCupsAndErrorsTests
     [Fact]
     public async Task Plan_BrokenRecipe_ExitsTwoNamingFileLineAndField()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var recipe = store.File("broken.yaml");
         await File.WriteAllTextAsync(recipe, "recipe: q\nform: matched\nmatch-ppm: -5\npositions:\n  - { name: R1, nominal: 10k }\n");
         var io = new ConsoleCapture();
@@ -98,7 +100,7 @@ public sealed class PlanCupsAndErrorsTests
     [Fact]
     public async Task Plan_CupsForANetworkRecipe_IsRefusedWithAHint()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         await Seed.SessionAsync(store, "s", [new SeedPart(0, 10, "A")]);
         var io = new ConsoleCapture();
 
@@ -111,7 +113,7 @@ public sealed class PlanCupsAndErrorsTests
     [Fact]
     public async Task PlanCommand_ParsedFromArguments_WritesTheCsvAndExitsZero()
     {
-        await using var store = await TestStore.CreateAsync(Engine.Sqlite);
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         await Seed.SessionAsync(store, "quad-reel", [.. new double[] { 0, 10, 20, 30 }.Select((p, i) => new SeedPart(p, 10, $"T1-A{i + 1:00}"))]);
         var csv = store.File("parsed.csv");
         var io = new ConsoleCapture();

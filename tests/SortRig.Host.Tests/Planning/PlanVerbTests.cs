@@ -1,7 +1,8 @@
 using CsvHelper;
-using SortRig.Host.Library;
-using SortRig.Host.Planning;
+using SortRig.Host.LibraryVerb;
+using SortRig.Host.PlanVerb;
 using SortRig.Host.Tests.Library;
+using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.Tests.Planning;
@@ -19,9 +20,9 @@ public sealed class PlanVerbTests
     internal static string Recipe => Path.Combine(RepoRoot(), "recipes", "matched-quad.yaml");
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Plan_QuadOnSlottedSession_MakesTheSetsABruteForceCountsAndTheCsvReadsBack(Engine engine)
+    public async Task Plan_QuadOnSlottedSession_MakesTheSetsABruteForceCountsAndTheCsvReadsBack(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         var parts = await Seed.SessionAsync(store, "quad-reel", s_slotted);
@@ -49,9 +50,9 @@ public sealed class PlanVerbTests
     }
 
     [Theory]
-    [InlineData(Engine.Sqlite)]
+    [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
-    public async Task Plan_Take_MarksThePickedPartsTaken_AndASecondTakeIsRefusedNamingThem(Engine engine)
+    public async Task Plan_Take_MarksThePickedPartsTaken_AndASecondTakeIsRefusedNamingThem(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
         await Seed.SessionAsync(store, "quad-reel", s_slotted);

@@ -1,12 +1,12 @@
 using System.Globalization;
-using SortRig.Host.Composition;
-using SortRig.Host.Sorting;
+using Xunit.Abstractions;
+using SortRig.Engine.Simulation;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Host.Tests.Sorting;
 using SortRig.Simulator;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
-using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Reliability;
 

@@ -1,11 +1,11 @@
-using SortRig.Host.Sorting;
+using Xunit.Abstractions;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Simulator;
 using SortRig.Simulator.Faults;
 using SortRig.Simulator.Operator;
 using SortRig.Simulator.Physics;
 using SortRig.Storage;
-using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Reliability;
 

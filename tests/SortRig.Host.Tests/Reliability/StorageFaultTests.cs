@@ -1,9 +1,9 @@
-using SortRig.Host.Sorting;
+using Xunit.Abstractions;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Host.Tests.Sorting;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
-using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Reliability;
 

@@ -1,8 +1,8 @@
 using CsvHelper;
 using Spectre.Console;
+using SortRig.Engine.DriftLogging;
 using SortRig.Host.Cli;
-using SortRig.Host.Drift;
-using SortRig.Host.Reports;
+using SortRig.Host.ReportVerb;
 using SortRig.Host.Tests.Drift;
 using SortRig.Measurement.Uncertainty;
 using SortRig.Planning.Cups;

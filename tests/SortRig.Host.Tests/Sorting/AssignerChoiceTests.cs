@@ -1,9 +1,9 @@
 using Microsoft.Extensions.Logging.Abstractions;
-using SortRig.Host.Announcing;
-using SortRig.Host.Composition;
-using SortRig.Host.Events;
-using SortRig.Host.Operator;
-using SortRig.Host.Sorting;
+using SortRig.Engine.Announcing;
+using SortRig.Engine.Composition;
+using SortRig.Engine.Events;
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
 using SortRig.Simulator;
 using SortRig.Storage;
 

@@ -1,4 +1,4 @@
-using SortRig.Host.Sorting;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Simulator.Operator;
 

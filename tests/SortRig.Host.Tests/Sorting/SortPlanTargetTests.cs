@@ -1,5 +1,5 @@
-using SortRig.Host.Composition;
-using SortRig.Host.Sorting;
+using SortRig.Engine.Composition;
+using SortRig.Engine.Sorting;
 using SortRig.Measurement.Ranging;
 using SortRig.Measurement.Settling;
 using SortRig.Measurement.Specs;

@@ -1,4 +1,4 @@
-using SortRig.Host.Sorting;
+using SortRig.Engine.Sorting;
 using SortRig.Measurement.Uncertainty;
 using SortRig.Planning.Cups;
 using SortRig.Storage.Contracts;

@@ -1,7 +1,7 @@
 using Microsoft.Extensions.Time.Testing;
 using OpenQA.Selenium;
-using SortRig.Host.Events;
 using Xunit.Abstractions;
+using SortRig.Engine.Events;
 
 namespace SortRig.Host.Tests.Web;
 

@@ -1,5 +1,5 @@
 using System.Text.Json;
-using SortRig.Host.Events;
+using SortRig.Engine.Events;
 
 namespace SortRig.Host.Tests.Web;
 

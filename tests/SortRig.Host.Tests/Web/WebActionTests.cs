@@ -2,7 +2,7 @@ using System.Net;
 using Microsoft.AspNetCore.Http;
 using Microsoft.AspNetCore.Routing;
 using Microsoft.Extensions.DependencyInjection;
-using SortRig.Host.Operator;
+using SortRig.Engine.Operator;
 using SortRig.Host.Web;
 
 namespace SortRig.Host.Tests.Web;

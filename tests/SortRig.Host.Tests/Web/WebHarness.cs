@@ -3,9 +3,9 @@ using Microsoft.AspNetCore.Hosting;
 using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Logging;
-using SortRig.Host.Events;
-using SortRig.Host.Operator;
-using SortRig.Host.Sorting;
+using SortRig.Engine.Events;
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
 using SortRig.Host.Web;
 
 namespace SortRig.Host.Tests.Web;

@@ -1,0 +1,82 @@
+using System.Threading.Channels;
+using Microsoft.Extensions.Logging;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Engine.DriftLogging;
+
+/// <summary>One item for the storage loop: a sample or a gap (exactly one is set).</summary>
+internal readonly record struct DriftWrite(DriftSample Sample, DriftGap? Gap);
+
+/// <summary>
+/// The single reader of the logger's bounded channel: appends samples to the log in batches of at most
+/// BatchSize (one transaction each, fewer when it keeps up), writes gaps in order, and retries a
+/// locked or unreachable store with back-off. Memory is bounded by the channel and one batch.
+/// </summary>
+internal sealed class DriftStore(IPrecisionLog log, int batchSize, long runId, TimeProvider time, ILogger logger)
+{
+    private const int MaxAttempts = 8;
+    private readonly List<DriftSample> _batch = new(batchSize);
+
+    /// <summary>New sample rows written so far.</summary>
+    public long Stored { get; private set; }
+
+    /// <summary>Gaps written so far.</summary>
+    public int Gaps { get; private set; }
+
+    /// <summary>Drains the channel until its writer completes; every item read is written before it returns.</summary>
+    public async Task RunAsync(ChannelReader<DriftWrite> reader, CancellationToken ct)
+    {
+        while (await reader.WaitToReadAsync(ct).ConfigureAwait(false))
+        {
+            while (_batch.Count < batchSize && reader.TryRead(out var item))
+            {
+                if (item.Gap is { } gap)
+                {
+                    await FlushAsync(ct).ConfigureAwait(false);
+                    await RetryAsync(c => log.MarkGapAsync(gap, c), ct).ConfigureAwait(false);
+                    Gaps++;
+                    DriftLog.GapMarked(logger, runId, gap.From, gap.To, gap.Reason);
+                }
+                else
+                {
+                    _batch.Add(item.Sample);
+                }
+            }
+
+            await FlushAsync(ct).ConfigureAwait(false);
+        }
+    }
+
+    private async Task FlushAsync(CancellationToken ct)
+    {
+        if (_batch.Count == 0)
+        {
+            return;
+        }
+
+        // A retried append after an unknown outcome is safe: the log ignores samples it already has.
+        var added = 0;
+        await RetryAsync(async c => added = await log.AppendDriftSamplesAsync(_batch, c).ConfigureAwait(false), ct).ConfigureAwait(false);
+        Stored += added;
+        _batch.Clear();
+    }
+
+    private async Task RetryAsync(Func<CancellationToken, Task> write, CancellationToken ct)
+    {
+        var delay = TimeSpan.FromMilliseconds(500);
+        for (var attempt = 1; ; attempt++)
+        {
+            try
+            {
+                await write(ct).ConfigureAwait(false);
+                return;
+            }
+            catch (StorageException e) when (attempt < MaxAttempts && e.Fault is StorageFault.Locked or StorageFault.Unavailable)
+            {
+                DriftLog.StorageRetry(logger, runId, e.Fault.ToString(), e.Message, delay.TotalSeconds);
+                await Task.Delay(delay, time, ct).ConfigureAwait(false);
+                delay = TimeSpan.FromTicks(Math.Min(delay.Ticks * 2, TimeSpan.FromSeconds(30).Ticks));
+            }
+        }
+    }
+}

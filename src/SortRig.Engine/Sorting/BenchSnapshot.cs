@@ -1,0 +1,96 @@
+namespace SortRig.Engine.Sorting;
+
+/// <summary>One part as the page and the JSON API show it.</summary>
+public sealed record PartView(
+    long Number,
+    double Nominal,
+    double? Ohms,
+    double? DeviationPpm,
+    double? ExpandedUncertainty,
+    string? Cup,
+    string State,
+    DateTimeOffset Time);
+
+/// <summary>The session as the page and the JSON API show it.</summary>
+public sealed record SessionView(
+    string Name,
+    long SessionId,
+    double Nominal,
+    double StockTolerance,
+    double MatchTolerance,
+    string Meter,
+    string Range,
+    double Nplc,
+    int PartsPlanned,
+    bool Paused,
+    bool Finished);
+
+/// <summary>
+/// The current state of the bench, kept by the sorting loop for readers (web API, live view).
+/// Thread-safe; readers get immutable copies. The precision log stays the durable record.
+/// </summary>
+public sealed class BenchSnapshot
+{
+    private readonly Lock _gate = new();
+    private readonly List<PartView> _parts = [];
+    private SessionView? _session;
+    private IReadOnlyDictionary<string, int> _counts = new Dictionary<string, int>();
+
+    /// <summary>The session, or null before one is open.</summary>
+    public SessionView? Session
+    {
+        get { lock (_gate) { return _session; } }
+    }
+
+    /// <summary>Cup label to count of parts currently in it.</summary>
+    public IReadOnlyDictionary<string, int> Counts
+    {
+        get { lock (_gate) { return _counts; } }
+    }
+
+    /// <summary>Parts in number order.</summary>
+    public IReadOnlyList<PartView> Parts()
+    {
+        lock (_gate)
+        {
+            return [.. _parts];
+        }
+    }
+
+    internal void SetSession(SessionView session)
+    {
+        lock (_gate) { _session = session; }
+    }
+
+    internal void UpdateSession(Func<SessionView, SessionView> change)
+    {
+        lock (_gate)
+        {
+            if (_session is not null)
+            {
+                _session = change(_session);
+            }
+        }
+    }
+
+    internal void SetCounts(IReadOnlyDictionary<string, int> counts)
+    {
+        lock (_gate) { _counts = counts; }
+    }
+
+    internal void Upsert(PartView part)
+    {
+        lock (_gate)
+        {
+            var i = _parts.FindIndex(p => p.Number == part.Number);
+            if (i >= 0)
+            {
+                _parts[i] = part;
+            }
+            else
+            {
+                _parts.Add(part);
+            }
+        }
+    }
+}

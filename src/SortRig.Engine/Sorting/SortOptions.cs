@@ -1,0 +1,106 @@
+using System.ComponentModel.DataAnnotations;
+
+namespace SortRig.Engine.Sorting;
+
+/// <summary>
+/// Settings of a sorting session, bound from the "Sort" configuration section (appsettings.json,
+/// SORTRIG_Sort__* environment variables, command-line flags).
+/// </summary>
+public sealed class SortOptions
+{
+    /// <summary>Configuration section name.</summary>
+    public const string Section = "Sort";
+
+    /// <summary>VISA-style resource of the meter; empty runs the embedded simulator. Default empty.</summary>
+    public string Resource { get; set; } = "";
+
+    /// <summary>Meter profile file or family name under instruments/. Default "simulator".</summary>
+    public string Profile { get; set; } = "simulator";
+
+    /// <summary>Storage connection: a SQLite file path or "Data Source=..."; or a PostgreSQL "Host=..." string. Default sortrig.db.</summary>
+    [Required]
+    public string Database { get; set; } = "sortrig.db";
+
+    /// <summary>Session name; restarting with the same name resumes an unfinished session. Default "bench".</summary>
+    [Required]
+    public string Session { get; set; } = "bench";
+
+    /// <summary>Nominal value in ohms of the batch. Default 10 000.</summary>
+    [Range(1e-3, 1e9)]
+    public double Nominal { get; set; } = 10_000;
+
+    /// <summary>Stock tolerance as a fraction (0.01 = 1 %). Default 0.01; 0 &lt; t &lt;= 0.2.</summary>
+    [Range(1e-6, 0.2)]
+    public double StockTolerance { get; set; } = 0.01;
+
+    /// <summary>Match tolerance as a fraction (0.001 = 0.1 %). Default 0.001; must be below the stock tolerance.</summary>
+    [Range(1e-7, 0.1)]
+    public double MatchTolerance { get; set; } = 0.001;
+
+    /// <summary>Number of cups besides the reject cup. Default 12; 1..26.</summary>
+    [Range(1, 26)]
+    public int Cups { get; set; } = 12;
+
+    /// <summary>
+    /// How parts are placed: "bands" (fixed bands of the match width around nominal), "adaptive"
+    /// (band edges placed where the reel's values fall, learned from the first parts), or "slots"
+    /// (numbered tray slots, for exact-value set assembly with the plan verb). Default "bands".
+    /// </summary>
+    [RegularExpression("^(bands|adaptive|slots)$", ErrorMessage = "Sort:Assigner must be bands, adaptive or slots.")]
+    public string Assigner { get; set; } = "bands";
+
+    /// <summary>Parts per matched set, for the adaptive planner's "set complete" call. Default 4; 1..64.</summary>
+    [Range(1, 64)]
+    public int PartsPerSet { get; set; } = 4;
+
+    /// <summary>Integration time in power-line cycles. Default 1.</summary>
+    [Range(0.001, 1000)]
+    public double Nplc { get; set; } = 1;
+
+    /// <summary>
+    /// Range transfer when this batch sits on a higher meter range than the session's first batch (an R-2R
+    /// ladder's 2R after its R): "auto" measures a bridging part when the two ranges' gain uncertainty does not
+    /// fit the match band, "always" measures one whenever the ranges differ, "off" never (ratios across the ranges
+    /// then carry the gain error). Default "auto". See docs/range-transfer.md.
+    /// </summary>
+    [RegularExpression("^(auto|always|off)$", ErrorMessage = "Sort:Bridge must be auto, always or off.")]
+    public string Bridge { get; set; } = "auto";
+
+    /// <summary>
+    /// Carry on the latest session of this name even if it was finished (its parts reached <see cref="Parts"/>, or
+    /// the operator finished it): numbering continues and a new batch starts when the nominal or setup differs,
+    /// so an R-2R ladder's 2R can follow its R in one session. <see cref="Parts"/> then counts the whole session.
+    /// Default false (a finished session's name starts a new session).
+    /// </summary>
+    public bool Reopen { get; set; }
+
+    /// <summary>Measure 4-wire. Default false (a two-clip fixture).</summary>
+    public bool FourWire { get; set; }
+
+    /// <summary>
+    /// Parts to sort before the session ends by itself (the demo reel's length on the simulator);
+    /// 0 sorts until the operator finishes (a real meter) or 60 parts (the simulator). Default 0; 0..1 000 000.
+    /// </summary>
+    [Range(0, 1_000_000)]
+    public int Parts { get; set; }
+
+    /// <summary>Simulator only: random seed of the demo reel. Default 2026.</summary>
+    public int Seed { get; set; } = 2026;
+
+    /// <summary>Simulator only: how many times faster than the wall clock virtual time runs. Default 1; 1..1000.</summary>
+    [Range(1, 1000)]
+    public double Speed { get; set; } = 1;
+
+    /// <summary>Simulator only: faults injected per 1000 exchanges. Default 0.</summary>
+    [Range(0, 500)]
+    public double FaultsPerThousand { get; set; }
+
+    /// <summary>Show the live console view (otherwise one plain line per announcement). Default true when interactive.</summary>
+    public bool? Live { get; set; }
+
+    /// <summary>Keep serving the page after the session ends, until stopped (Ctrl+C). Default false.</summary>
+    public bool StayAfterFinish { get; set; }
+
+    /// <summary>Speak announcements with espeak-ng when installed. Default true.</summary>
+    public bool Speech { get; set; } = true;
+}

@@ -1,0 +1,60 @@
+using SortRig.Engine.Announcing;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Engine.Sorting;
+
+public sealed partial class SortingLoop
+{
+    private static readonly TimeSpan s_storageRetry = TimeSpan.FromSeconds(2);
+
+    // A storage fault (read-only, locked, disk full, unreachable) pauses the loop: nothing else is
+    // measured or announced, the operator is told once in plain words, and the same idempotent
+    // write is retried until it goes through. Every write the loop makes goes through here.
+    private async Task<T> DurablyAsync<T>(string what, Func<CancellationToken, Task<T>> write, CancellationToken ct)
+    {
+        var told = false;
+        while (true)
+        {
+            try
+            {
+                var result = await write(ct).ConfigureAwait(false);
+                if (told)
+                {
+                    _ctx.Snapshot.UpdateSession(s => s with { Paused = _paused });
+                    await _ctx.Announcer.AnnounceAsync(Announcement.Info($"storage is back: {what} saved, carrying on"), ct).ConfigureAwait(false);
+                }
+
+                return result;
+            }
+            catch (StorageException e) when (!ct.IsCancellationRequested && IsStorageFault(e.Fault))
+            {
+                _storageFaults++;
+                LogStorageFault(_ctx.Logger, e.Operation, e.Fault.ToString(), e.Message);
+                if (!told)
+                {
+                    told = true;
+                    _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
+                    await _ctx.Announcer.AnnounceAsync(
+                        Announcement.Info($"storage fault, {Plain(e.Fault)}: paused, nothing lost; {what} is not saved yet and the part stays in the fixture. Retrying every {s_storageRetry.TotalSeconds:0} s. {e.Message}"),
+                        ct).ConfigureAwait(false);
+                }
+
+                await Task.Delay(s_storageRetry, _ctx.Time, ct).ConfigureAwait(false);
+            }
+        }
+    }
+
+    // Faults a person can clear while the session waits; a constraint or a conflict is a bug or a
+    // misuse and must stop the session instead of looping.
+    private static bool IsStorageFault(StorageFault fault) =>
+        fault is StorageFault.ReadOnly or StorageFault.Locked or StorageFault.DiskFull or StorageFault.Unavailable or StorageFault.Other;
+
+    private static string Plain(StorageFault fault) => fault switch
+    {
+        StorageFault.ReadOnly => "the database cannot be written (read-only)",
+        StorageFault.Locked => "the database is locked by another program",
+        StorageFault.DiskFull => "the disk is full",
+        StorageFault.Unavailable => "the database cannot be reached",
+        _ => "the database could not write",
+    };
+}

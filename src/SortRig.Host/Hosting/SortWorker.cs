@@ -1,0 +1,87 @@
+using Microsoft.Extensions.Hosting;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Options;
+using Spectre.Console;
+using SortRig.Engine.Announcing;
+using SortRig.Engine.Composition;
+using SortRig.Engine.Events;
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
+using SortRig.Host.Live;
+using SortRig.Host.Operator;
+
+namespace SortRig.Host.Hosting;
+
+/// <summary>
+/// The hosted worker of the sort verb: runs one session, shows the live view (or plain lines),
+/// prints the summary and stops the application with an exit code.
+/// </summary>
+internal sealed partial class SortWorker(
+    IOptions<SortOptions> options,
+    TimeProvider time,
+    BenchEventHub hub,
+    BenchSnapshot snapshot,
+    OperatorCommands commands,
+    ILoggerFactory loggers,
+    IHostApplicationLifetime lifetime) : BackgroundService
+{
+    /// <summary>0 finished, 1 failed, 2 the batch cannot be measured as asked.</summary>
+    public int ExitCode { get; private set; }
+
+    protected override async Task ExecuteAsync(CancellationToken stoppingToken)
+    {
+        var sort = options.Value;
+        var live = sort.Live ?? (!Console.IsOutputRedirected && AnsiConsole.Profile.Capabilities.Interactive);
+        var announcers = new List<IAnnouncer>();
+        if (!live)
+        {
+            announcers.Add(new PlainTextAnnouncer(Console.Out));
+        }
+
+        if (sort.Speech)
+        {
+            announcers.Add(new SpeechAnnouncer(loggers.CreateLogger<SpeechAnnouncer>()));
+        }
+
+        var services = new SortServices(time, hub, snapshot, commands, new CompositeAnnouncer(announcers), loggers);
+        using var viewStop = CancellationTokenSource.CreateLinkedTokenSource(stoppingToken);
+        var view = live ? LiveView.RunAsync(AnsiConsole.Console, hub, sort.Parts, viewStop.Token) : Task.CompletedTask;
+        try
+        {
+            var outcome = await SortRunner.RunAsync(sort, services, null, stoppingToken).ConfigureAwait(false);
+            await viewStop.CancelAsync().ConfigureAwait(false);
+            await view.ConfigureAwait(false);
+            SortSummary.Write(AnsiConsole.Console, outcome, snapshot);
+        }
+        catch (SortPlanException e)
+        {
+            ExitCode = 2;
+            AnsiConsole.MarkupLine($"[red]cannot sort this batch:[/] {Markup.Escape(e.Message)}");
+        }
+        catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
+        {
+            // Ctrl+C or SIGTERM: everything accepted is already committed.
+        }
+        catch (Exception e)
+        {
+            ExitCode = 1;
+            LogFailed(loggers.CreateLogger<SortWorker>(), e);
+            AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
+        }
+        finally
+        {
+            await viewStop.CancelAsync().ConfigureAwait(false);
+        }
+
+        if (sort.StayAfterFinish && ExitCode == 0)
+        {
+            // The page keeps showing the finished session until the operator stops the program.
+            await Task.Delay(Timeout.InfiniteTimeSpan, stoppingToken).ContinueWith(_ => { }, TaskScheduler.Default).ConfigureAwait(false);
+        }
+
+        lifetime.StopApplication();
+    }
+
+    [LoggerMessage(EventId = 3301, Level = LogLevel.Error, Message = "Sorting failed")]
+    private static partial void LogFailed(ILogger logger, Exception exception);
+}
