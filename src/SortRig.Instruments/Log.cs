@@ -2,7 +2,7 @@ using Microsoft.Extensions.Logging;
 
 namespace SortRig.Instruments;
 
-/// <summary>Source-generated log messages of the instrument layer.</summary>
+/// <summary>Source-generated log messages of the instrument layer. Event ids 1000-1999.</summary>
 internal static partial class Log
 {
     [LoggerMessage(EventId = 1001, Level = LogLevel.Debug, Message = "{Endpoint} > {Command}")]

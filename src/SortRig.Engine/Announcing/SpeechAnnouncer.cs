@@ -7,7 +7,7 @@ namespace SortRig.Engine.Announcing;
 /// Speaks announcements through espeak-ng when it is installed; silently does nothing when not.
 /// Speech runs in the background so a slow voice never holds the measurement loop.
 /// </summary>
-public sealed partial class SpeechAnnouncer : IAnnouncer
+public sealed class SpeechAnnouncer : IAnnouncer
 {
     private readonly string? _program;
     private readonly ILogger<SpeechAnnouncer> _logger;
@@ -38,7 +38,7 @@ public sealed partial class SpeechAnnouncer : IAnnouncer
         }
         catch (Exception e) when (e is System.ComponentModel.Win32Exception or InvalidOperationException)
         {
-            LogSpeechFailed(_logger, e.Message);
+            Log.SpeechFailed(_logger, e.Message);
         }
 
         return ValueTask.CompletedTask;
@@ -60,7 +60,4 @@ public sealed partial class SpeechAnnouncer : IAnnouncer
             .Select(dir => Path.Combine(dir, name))
             .FirstOrDefault(File.Exists);
     }
-
-    [LoggerMessage(EventId = 3101, Level = LogLevel.Warning, Message = "Speech failed: {Reason}")]
-    private static partial void LogSpeechFailed(ILogger logger, string reason);
 }

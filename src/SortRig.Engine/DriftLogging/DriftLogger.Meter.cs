@@ -36,7 +36,7 @@ internal sealed partial class DriftLogger
         }
         catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
         {
-            DriftLog.MeterFault(logger, _runId, e.GetType().Name, e.Message);
+            Log.DriftMeterFault(logger, _runId, e.GetType().Name, e.Message);
             OpenGap($"meter fault: {MeterFaults.Describe(e)}");
             await DropMeterAsync().ConfigureAwait(false);
             return null;
@@ -52,7 +52,7 @@ internal sealed partial class DriftLogger
         }
         catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
         {
-            DriftLog.MeterFault(logger, _runId, e.GetType().Name, e.Message);
+            Log.DriftMeterFault(logger, _runId, e.GetType().Name, e.Message);
         }
     }
 

@@ -41,7 +41,7 @@ internal sealed partial class DriftLogger(
 
         var run = await log.StartDriftRunAsync(new DriftRunRequest(settings.RunName, labels, settings.Interval, settings.Notes), ct).ConfigureAwait(false);
         _runId = run.Id;
-        DriftLog.Started(logger, run.Id, run.Name, labels.Count, settings.Interval.TotalSeconds);
+        Log.DriftStarted(logger, run.Id, run.Name, labels.Count, settings.Interval.TotalSeconds);
         var queue = Channel.CreateBounded<DriftWrite>(new BoundedChannelOptions(settings.BatchSize * 4)
         {
             FullMode = BoundedChannelFullMode.Wait,
@@ -70,10 +70,10 @@ internal sealed partial class DriftLogger(
         await storing.ConfigureAwait(false);
         if (_skipped > 0)
         {
-            DriftLog.SkippedTicks(logger, run.Id, _skipped);
+            Log.DriftSkippedTicks(logger, run.Id, _skipped);
         }
 
-        DriftLog.Finished(logger, run.Id, _scans, store.Stored, store.Gaps);
+        Log.DriftFinished(logger, run.Id, _scans, store.Stored, store.Gaps);
         var channels = await DriftRunAnalysis.AnalyzeAsync(log, run.Id, CancellationToken.None).ConfigureAwait(false);
         return new DriftOutcome(run.Id, _scans, store.Stored, store.Gaps, _skipped, _overloads, channels);
     }

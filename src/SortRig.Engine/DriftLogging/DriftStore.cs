@@ -35,7 +35,7 @@ internal sealed class DriftStore(IPrecisionLog log, int batchSize, long runId, T
                     await FlushAsync(ct).ConfigureAwait(false);
                     await RetryAsync(c => log.MarkGapAsync(gap, c), ct).ConfigureAwait(false);
                     Gaps++;
-                    DriftLog.GapMarked(logger, runId, gap.From, gap.To, gap.Reason);
+                    Log.DriftGapMarked(logger, runId, gap.From, gap.To, gap.Reason);
                 }
                 else
                 {
@@ -73,7 +73,7 @@ internal sealed class DriftStore(IPrecisionLog log, int batchSize, long runId, T
             }
             catch (StorageException e) when (attempt < MaxAttempts && e.Fault is StorageFault.Locked or StorageFault.Unavailable)
             {
-                DriftLog.StorageRetry(logger, runId, e.Fault.ToString(), e.Message, delay.TotalSeconds);
+                Log.DriftStorageRetry(logger, runId, e.Fault.ToString(), e.Message, delay.TotalSeconds);
                 await Task.Delay(delay, time, ct).ConfigureAwait(false);
                 delay = TimeSpan.FromTicks(Math.Min(delay.Ticks * 2, TimeSpan.FromSeconds(30).Ticks));
             }

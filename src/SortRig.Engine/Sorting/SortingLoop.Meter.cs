@@ -30,7 +30,7 @@ public sealed partial class SortingLoop
     private async Task RecoverAsync(Exception fault, CancellationToken ct)
     {
         _faults++;
-        LogMeterFault(_ctx.Logger, fault.GetType().Name, fault.Message);
+        Log.SortMeterFault(_ctx.Logger, fault.GetType().Name, fault.Message);
         await _ctx.Announcer.AnnounceAsync(Announcement.Info($"meter: {MeterFaults.Describe(fault)}; reconnecting"), ct).ConfigureAwait(false);
         if (_meter is not null)
         {
@@ -72,7 +72,7 @@ public sealed partial class SortingLoop
                 }
 
                 _faults++;
-                LogMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
+                Log.SortMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
                 await _ctx.Announcer.AnnounceAsync(
                     Announcement.Info(FormattableString.Invariant($"meter: {MeterFaults.Describe(e)}; trying again in {backoff.TotalSeconds:0.##} s")), ct).ConfigureAwait(false);
                 await Task.Delay(backoff, _ctx.Time, ct).ConfigureAwait(false);
@@ -80,10 +80,4 @@ public sealed partial class SortingLoop
             }
         }
     }
-
-    [LoggerMessage(EventId = 3201, Level = LogLevel.Warning, Message = "Meter fault {Kind}: {Reason}")]
-    private static partial void LogMeterFault(ILogger logger, string kind, string reason);
-
-    [LoggerMessage(EventId = 3202, Level = LogLevel.Error, Message = "Storage fault during {Operation} ({Fault}): {Reason}")]
-    private static partial void LogStorageFault(ILogger logger, string operation, string fault, string reason);
 }

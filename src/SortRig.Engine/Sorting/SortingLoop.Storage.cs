@@ -29,7 +29,7 @@ public sealed partial class SortingLoop
             catch (StorageException e) when (!ct.IsCancellationRequested && IsStorageFault(e.Fault))
             {
                 _storageFaults++;
-                LogStorageFault(_ctx.Logger, e.Operation, e.Fault.ToString(), e.Message);
+                Log.SortStorageFault(_ctx.Logger, e.Operation, e.Fault.ToString(), e.Message);
                 if (!told)
                 {
                     told = true;

@@ -15,7 +15,7 @@ namespace SortRig.Host.Hosting;
 /// The hosted form of the drift job: runs one drift log (driving the virtual clock when there is one),
 /// prints notices (gaps, reconnects) as they come and the analysis at the end, then stops the application.
 /// </summary>
-internal sealed partial class DriftWorker(
+internal sealed class DriftWorker(
     IOptions<DriftOptions> options,
     TimeProvider time,
     BenchEventHub hub,
@@ -59,7 +59,7 @@ internal sealed partial class DriftWorker(
         catch (Exception e)
         {
             ExitCode = 1;
-            LogFailed(loggers.CreateLogger<DriftWorker>(), e);
+            Log.DriftFailed(loggers.CreateLogger<DriftWorker>(), e);
             AnsiConsole.MarkupLine($"[red]drift logging stopped:[/] {Markup.Escape(e.Message)}");
         }
         finally
@@ -87,7 +87,4 @@ internal sealed partial class DriftWorker(
             // The run ended.
         }
     }
-
-    [LoggerMessage(EventId = 3610, Level = LogLevel.Error, Message = "Drift logging failed")]
-    private static partial void LogFailed(ILogger logger, Exception exception);
 }

@@ -16,7 +16,7 @@ namespace SortRig.Host.Hosting;
 /// The hosted worker of the sort verb: runs one session, shows the live view (or plain lines),
 /// prints the summary and stops the application with an exit code.
 /// </summary>
-internal sealed partial class SortWorker(
+internal sealed class SortWorker(
     IOptions<SortOptions> options,
     TimeProvider time,
     BenchEventHub hub,
@@ -65,7 +65,7 @@ internal sealed partial class SortWorker(
         catch (Exception e)
         {
             ExitCode = 1;
-            LogFailed(loggers.CreateLogger<SortWorker>(), e);
+            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e);
             AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
         }
         finally
@@ -81,7 +81,4 @@ internal sealed partial class SortWorker(
 
         lifetime.StopApplication();
     }
-
-    [LoggerMessage(EventId = 3301, Level = LogLevel.Error, Message = "Sorting failed")]
-    private static partial void LogFailed(ILogger logger, Exception exception);
 }
