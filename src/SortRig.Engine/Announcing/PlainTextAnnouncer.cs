@@ -1,4 +1,5 @@
 using System.Globalization;
+using SortRig.Measurement.Readings;
 
 namespace SortRig.Engine.Announcing;
 

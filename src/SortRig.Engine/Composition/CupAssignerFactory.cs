@@ -9,12 +9,12 @@ public static class CupAssignerFactory
     /// <summary>bands, adaptive or slots; throws <see cref="ArgumentException"/> naming the option otherwise.</summary>
     public static ICupAssigner Create(SortOptions options) => options.Assigner switch
     {
-        "bands" => new BandCupAssigner(new BandCupOptions(
+        AssignerKind.Bands => new BandCupAssigner(new BandCupOptions(
             options.Cups, options.MatchTolerance * 1e6, options.Nominal, options.StockTolerance * 100, options.PartsPerSet)),
-        "adaptive" => new AdaptiveCupPlanner(new AdaptiveCupOptions(
+        AssignerKind.Adaptive => new AdaptiveCupPlanner(new AdaptiveCupOptions(
             options.Cups, options.MatchTolerance * 1e6, options.StockTolerance * 100,
             new Dictionary<double, int> { [options.Nominal] = options.PartsPerSet })),
-        "slots" => new SlotAssigner(new SlotOptions(nominals: [options.Nominal])),
+        AssignerKind.Slots => new SlotAssigner(new SlotOptions(nominals: [options.Nominal])),
         _ => throw new ArgumentException($"Sort:Assigner '{options.Assigner}' is not bands, adaptive or slots.", nameof(options)),
     };
 

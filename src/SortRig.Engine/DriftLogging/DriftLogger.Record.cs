@@ -41,7 +41,7 @@ internal sealed partial class DriftLogger
             var isPt100 = thermometer && (i == 0 || i == readings.Count - 1);
             var channel = isPt100 ? parts : (thermometer ? i - 1 : i);
             var celsius = isPt100 ? ScanTemperature.Celsius(reading) : ScanTemperature.Interpolate(before, after, reading.Time);
-            await writer.WriteAsync(new DriftWrite(new DriftSample(_runId, channel, reading.Time, reading.Value, celsius), null), ct).ConfigureAwait(false);
+            await writer.WriteAsync(new DriftWrite(new StoredDriftSample(_runId, channel, reading.Time, reading.Value, celsius), null), ct).ConfigureAwait(false);
             if (!isPt100)
             {
                 Publish(channel, reading, celsius);

@@ -1,7 +1,5 @@
 using SortRig.Measurement.Drift;
 using SortRig.Storage.Contracts;
-using StoredSample = SortRig.Storage.Contracts.DriftSample;
-using FitSample = SortRig.Measurement.Drift.DriftSample;
 
 namespace SortRig.Engine.DriftLogging;
 
@@ -21,17 +19,17 @@ public static class DriftRunAnalysis
         ArgumentNullException.ThrowIfNull(log);
         var run = await log.GetDriftRunAsync(runId, ct).ConfigureAwait(false)
             ?? throw new ArgumentException($"No drift run with id {runId}.", nameof(runId));
-        var byChannel = run.Channels.Select(_ => new List<FitSample>()).ToArray();
-        await foreach (StoredSample s in log.ReadDriftSamplesAsync(runId, ct).ConfigureAwait(false))
+        var byChannel = run.Channels.Select(_ => new List<DriftSample>()).ToArray();
+        await foreach (StoredDriftSample s in log.ReadDriftSamplesAsync(runId, ct).ConfigureAwait(false))
         {
-            byChannel[s.Channel].Add(new FitSample(s.Time, s.Ohms, s.Temperature));
+            byChannel[s.Channel].Add(new DriftSample(s.Time, s.Ohms, s.Temperature));
         }
 
         return [.. run.Channels.Select((c, i) => Analyze(c.Label, byChannel[i], run.Interval))];
     }
 
     /// <summary>Analyses one channel's samples (ordered by time); the Pt100 channel gets its count and mean only.</summary>
-    public static DriftChannelResult Analyze(string label, IReadOnlyList<FitSample> samples, TimeSpan interval)
+    public static DriftChannelResult Analyze(string label, IReadOnlyList<DriftSample> samples, TimeSpan interval)
     {
         ArgumentNullException.ThrowIfNull(samples);
         if (samples.Count == 0)
@@ -54,7 +52,7 @@ public static class DriftRunAnalysis
         return new DriftChannelResult(label, samples.Count, mean, drift, joint, note, adev);
     }
 
-    private static (DriftTempcoFit? Fit, string? Note) Joint(IReadOnlyList<FitSample> samples, double mean)
+    private static (DriftTempcoFit? Fit, string? Note) Joint(IReadOnlyList<DriftSample> samples, double mean)
     {
         if (samples.Any(s => s.TemperatureC is null))
         {

@@ -5,7 +5,7 @@ using SortRig.Storage.Contracts;
 namespace SortRig.Engine.DriftLogging;
 
 /// <summary>One item for the storage loop: a sample or a gap (exactly one is set).</summary>
-internal readonly record struct DriftWrite(DriftSample Sample, DriftGap? Gap);
+internal readonly record struct DriftWrite(StoredDriftSample Sample, DriftGap? Gap);
 
 /// <summary>
 /// The single reader of the logger's bounded channel: appends samples to the log in batches of at most
@@ -15,7 +15,7 @@ internal readonly record struct DriftWrite(DriftSample Sample, DriftGap? Gap);
 internal sealed class DriftStore(IPrecisionLog log, int batchSize, long runId, TimeProvider time, ILogger logger)
 {
     private const int MaxAttempts = 8;
-    private readonly List<DriftSample> _batch = new(batchSize);
+    private readonly List<StoredDriftSample> _batch = new(batchSize);
 
     /// <summary>New sample rows written so far.</summary>
     public long Stored { get; private set; }

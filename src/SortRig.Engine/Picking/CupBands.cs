@@ -1,7 +1,7 @@
 using SortRig.Planning.Assembly;
+using SortRig.Planning.Cups;
 using SortRig.Planning.Recipes;
 using SortRig.Storage.Contracts;
-using PlanningCupCount = SortRig.Planning.Cups.CupCount;
 
 namespace SortRig.Engine.Picking;
 
@@ -28,7 +28,7 @@ internal static class CupBands
             var low = g.Min(t => ((t.Part.Value - t.Part.Measured.ExpandedTransfer) / n - 1) * 1e6);
             var high = g.Max(t => ((t.Part.Value + t.Part.Measured.ExpandedTransfer) / n - 1) * 1e6);
             var members = g.Select(t => t.Part.Id).Order().ToList();
-            var count = new PlanningCupCount(n, g.Key.Label, result.Count, false, members.Count, low, high, 0);
+            var count = new CupCount(n, g.Key.Label, result.Count, false, members.Count, low, high, 0);
             result.Add(new CupContent(count, members));
         }
 

@@ -17,11 +17,11 @@ internal static class CrashPoint
     /// <summary>The environment variable read once at start.</summary>
     public const string Variable = "SORTRIG_CRASH_AT";
 
-    private static readonly (string Point, int Count)? s_armed = Parse(Environment.GetEnvironmentVariable(Variable));
+    private static readonly (CrashSite Point, int Count)? s_armed = Parse(Environment.GetEnvironmentVariable(Variable));
     private static int s_passed;
 
     /// <summary>Called by the loop at each point; returns unless this is the armed point's n-th pass.</summary>
-    public static void Pass(string point)
+    public static void Pass(CrashSite point)
     {
         if (s_armed is not { } armed || armed.Point != point || Interlocked.Increment(ref s_passed) != armed.Count)
         {
@@ -30,14 +30,21 @@ internal static class CrashPoint
 
         using var self = Process.GetCurrentProcess();
         self.Kill(); // SIGKILL on Unix: no finally blocks, no flush, like a power cut to the process
-        Environment.FailFast($"{Variable}={point}:{armed.Count}");
+        Environment.FailFast($"{Variable}={Name(point)}:{armed.Count}");
     }
 
-    internal static (string Point, int Count)? Parse(string? value)
+    /// <summary>The point and count of a <c>point:n</c> value; null when unset, empty or malformed (names are lower case).</summary>
+    internal static (CrashSite Point, int Count)? Parse(string? value)
     {
         var parts = value?.Split(':') ?? [];
-        return parts.Length == 2 && parts[0] is "read" or "commit" or "announce" or "bridge" or "bridged" && int.TryParse(parts[1], out var n) && n > 0
-            ? (parts[0], n)
+        return parts.Length == 2 && Site(parts[0]) is { } site && int.TryParse(parts[1], out var n) && n > 0
+            ? (site, n)
             : null;
     }
+
+    /// <summary>The name a point has in <c>SORTRIG_CRASH_AT</c>.</summary>
+    internal static string Name(CrashSite site) => site.ToString().ToLowerInvariant();
+
+    private static CrashSite? Site(string name) =>
+        Enum.GetValues<CrashSite>().Select(s => (CrashSite?)s).FirstOrDefault(s => Name(s!.Value) == name);
 }

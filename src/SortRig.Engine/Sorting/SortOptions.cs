@@ -42,12 +42,13 @@ public sealed class SortOptions
     public int Cups { get; set; } = 12;
 
     /// <summary>
-    /// How parts are placed: "bands" (fixed bands of the match width around nominal), "adaptive"
-    /// (band edges placed where the reel's values fall, learned from the first parts), or "slots"
-    /// (numbered tray slots, for exact-value set assembly with the plan verb). Default "bands".
+    /// How parts are placed: bands (fixed bands of the match width around nominal), adaptive
+    /// (band edges placed where the reel's values fall, learned from the first parts), or slots
+    /// (numbered tray slots, for exact-value set assembly with the plan verb); bound case-insensitively.
+    /// Default <see cref="AssignerKind.Bands"/>.
     /// </summary>
-    [RegularExpression("^(bands|adaptive|slots)$", ErrorMessage = "Sort:Assigner must be bands, adaptive or slots.")]
-    public string Assigner { get; set; } = "bands";
+    [EnumDataType(typeof(AssignerKind), ErrorMessage = "Sort:Assigner must be bands, adaptive or slots.")]
+    public AssignerKind Assigner { get; set; } = AssignerKind.Bands;
 
     /// <summary>Parts per matched set, for the adaptive planner's "set complete" call. Default 4; 1..64.</summary>
     [Range(1, 64)]
@@ -61,10 +62,10 @@ public sealed class SortOptions
     /// Range transfer when this batch sits on a higher meter range than the session's first batch (an R-2R
     /// ladder's 2R after its R): "auto" measures a bridging part when the two ranges' gain uncertainty does not
     /// fit the match band, "always" measures one whenever the ranges differ, "off" never (ratios across the ranges
-    /// then carry the gain error). Default "auto". See docs/range-transfer.md.
+    /// then carry the gain error); bound case-insensitively. Default <see cref="BridgeMode.Auto"/>. See docs/range-transfer.md.
     /// </summary>
-    [RegularExpression("^(auto|always|off)$", ErrorMessage = "Sort:Bridge must be auto, always or off.")]
-    public string Bridge { get; set; } = "auto";
+    [EnumDataType(typeof(BridgeMode), ErrorMessage = "Sort:Bridge must be auto, always or off.")]
+    public BridgeMode Bridge { get; set; } = BridgeMode.Auto;
 
     /// <summary>
     /// Carry on the latest session of this name even if it was finished (its parts reached <see cref="Parts"/>, or

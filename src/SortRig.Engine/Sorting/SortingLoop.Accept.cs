@@ -18,7 +18,7 @@ public sealed partial class SortingLoop
             return;
         }
 
-        CrashPoint.Pass("read");
+        CrashPoint.Pass(CrashSite.Read);
         var number = _partsRecorded + 1;
         var measured = OnReferenceScale(acceptance.Value);
         var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
@@ -39,7 +39,7 @@ public sealed partial class SortingLoop
             throw;
         }
 
-        CrashPoint.Pass("commit");
+        CrashPoint.Pass(CrashSite.Commit);
         _partsRecorded++;
         _lastLive = stored;
         _lastLiveStillInFixture = true;
@@ -84,7 +84,7 @@ public sealed partial class SortingLoop
 
         await _ctx.Announcer.AnnounceAsync(
             new Announcement(kind, part.Number, label, part.Value, part.DeviationPpm, "", completesSet), ct).ConfigureAwait(false);
-        CrashPoint.Pass("announce");
+        CrashPoint.Pass(CrashSite.Announce);
         var announced = await DurablyAsync($"the announcement of part {part.Number}", c => _ctx.Log.MarkAnnouncedAsync(part.Id, c), ct).ConfigureAwait(false);
         _ctx.Snapshot.Upsert(ToView(announced));
     }

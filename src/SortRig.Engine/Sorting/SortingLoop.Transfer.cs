@@ -50,7 +50,7 @@ public sealed partial class SortingLoop
         var needed = !transfer.UncorrectedResolvable;
         var gainPpm = transfer.CoverageFactor * transfer.GainUncertainty * 1e6;
         var allowedPpm = transfer.AllowedRelative * 1e6;
-        if (Options.Bridge == "off" || (Options.Bridge == "auto" && !needed))
+        if (Options.Bridge == BridgeMode.Off || (Options.Bridge == BridgeMode.Auto && !needed))
         {
             var why = needed ? "the match band needs one, but range transfer is off" : "the match band allows it";
             await SayAsync($"ratios to the {first.Setup.Range:G6} Ohm range batch carry up to ±{gainPpm:0} ppm of range gain error (allowed {allowedPpm:0} ppm), not corrected: {why}", ct).ConfigureAwait(false);
@@ -88,11 +88,11 @@ public sealed partial class SortingLoop
 
         var ppm = (correction.Factor - 1) * 1e6;
         var uPpm = correction.RelativeStandardUncertainty * 1e6;
-        CrashPoint.Pass("bridge");
+        CrashPoint.Pass(CrashSite.Bridge);
         var record = new RangeTransferCorrection(correction.FromRangeFullScale, correction.ToRangeFullScale, ppm, uPpm, _ctx.Time.GetUtcNow());
         _batch = await DurablyAsync("the range transfer", c => _ctx.Log.RecordRangeTransferAsync(_batch.Id, record, c), ct).ConfigureAwait(false);
         _correction = correction;
-        CrashPoint.Pass("bridged");
+        CrashPoint.Pass(CrashSite.Bridged);
         await SayAsync($"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out", ct).ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);

@@ -1,6 +1,6 @@
 using SortRig.Engine.DriftLogging;
+using SortRig.Measurement.Drift;
 using SortRig.Storage.Contracts;
-using FitSample = SortRig.Measurement.Drift.DriftSample;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -43,12 +43,12 @@ internal static class LibraryDrift
                 continue; // cannot happen: runs are never deleted
             }
 
-            var byChannel = run.Select(r => r.Channel).Distinct().ToDictionary(c => c, _ => new List<FitSample>());
+            var byChannel = run.Select(r => r.Channel).Distinct().ToDictionary(c => c, _ => new List<DriftSample>());
             await foreach (var s in log.ReadDriftSamplesAsync(run.Key, cancellationToken).ConfigureAwait(false))
             {
                 if (byChannel.TryGetValue(s.Channel, out var samples))
                 {
-                    samples.Add(new FitSample(s.Time, s.Ohms, s.Temperature));
+                    samples.Add(new DriftSample(s.Time, s.Ohms, s.Temperature));
                 }
             }
 

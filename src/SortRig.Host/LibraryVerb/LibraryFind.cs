@@ -1,8 +1,9 @@
 using System.Globalization;
 using Spectre.Console;
-using SortRig.Host.VerbSupport;
-using SortRig.Storage.Contracts;
 using SortRig.Engine.Picking;
+using SortRig.Host.VerbSupport;
+using SortRig.Measurement.Readings;
+using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -54,7 +55,7 @@ internal static class LibraryFind
             var (value, u) = Format.WithUncertainty(p.Value, p.Measured.Expanded);
             var k = p.Measured.CoverageFactor == 2 ? "" : " (k=" + p.Measured.CoverageFactor.ToString("0.##", CultureInfo.InvariantCulture) + ")";
             table.AddRow(
-                p.Id.ToString(CultureInfo.InvariantCulture), Markup.Escape(Format.Ohms(p.Nominal)), value, u + k, Format.Ppm(p.DeviationPpm),
+                p.Id.ToString(CultureInfo.InvariantCulture), Markup.Escape(OhmsText.Nominal(p.Nominal)), value, u + k, Format.Ppm(p.DeviationPpm),
                 Format.Date(p.AcceptedAt), Markup.Escape(PartWhere.Of(p, qualify: true)),
                 Markup.Escape(p.LibraryStatus + (p.TakenBy is { } by ? " " + by : "")),
                 Format.DriftRate(drift.GetValueOrDefault(p.Id)?.PpmPerHour));

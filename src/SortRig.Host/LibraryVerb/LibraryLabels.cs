@@ -1,9 +1,10 @@
 using System.Globalization;
 using CsvHelper;
 using Spectre.Console;
-using SortRig.Host.VerbSupport;
-using SortRig.Storage.Contracts;
 using SortRig.Engine.Picking;
+using SortRig.Host.VerbSupport;
+using SortRig.Measurement.Readings;
+using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -99,7 +100,7 @@ internal static class LibraryLabels
             [
                 p.Id.ToString(CultureInfo.InvariantCulture), R(p.Nominal), R(p.Value), R(p.Measured.Expanded), R(p.Measured.CoverageFactor),
                 p.DeviationPpm.ToString("0.0", CultureInfo.InvariantCulture), Format.Celsius(p.Temperature), Format.Date(p.AcceptedAt),
-                PartWhere.Of(p, qualify), Format.Ohms(p.Nominal), value, u,
+                PartWhere.Of(p, qualify), OhmsText.Nominal(p.Nominal), value, u,
             ];
             foreach (var f in fields)
             {

@@ -1,5 +1,6 @@
 using Spectre.Console;
 using SortRig.Host.VerbSupport;
+using SortRig.Measurement.Readings;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.LibraryVerb;
@@ -79,7 +80,7 @@ internal static class LibraryMoves
 
         foreach (var p in result.Changed)
         {
-            table.AddRow(p.Id.ToString(Invariant), Markup.Escape(Format.Ohms(p.Nominal)), Format.Value(p.Value), p.LibraryStatus.ToString(), Markup.Escape(p.TakenBy ?? ""));
+            table.AddRow(p.Id.ToString(Invariant), Markup.Escape(OhmsText.Nominal(p.Nominal)), Format.Value(p.Value), p.LibraryStatus.ToString(), Markup.Escape(p.TakenBy ?? ""));
         }
 
         console.Write(table);

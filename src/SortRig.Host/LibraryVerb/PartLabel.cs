@@ -1,7 +1,8 @@
 using System.Globalization;
-using SortRig.Host.VerbSupport;
-using SortRig.Storage.Contracts;
 using SortRig.Engine.Picking;
+using SortRig.Host.VerbSupport;
+using SortRig.Measurement.Readings;
+using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -31,7 +32,7 @@ internal static class PartLabel
         var temperature = part.Temperature is { } t ? "at " + Format.Celsius(t) + " degC" : "";
         return
         [
-            Spread("#" + part.Id.ToString(CultureInfo.InvariantCulture), Format.Ohms(part.Nominal)),
+            Spread("#" + part.Id.ToString(CultureInfo.InvariantCulture), OhmsText.Nominal(part.Nominal)),
             Fit($"R {value} Ohm"),
             Fit($"U {u} Ohm (k={k})"),
             Spread($"dev {Format.Ppm(part.DeviationPpm)} ppm", temperature),

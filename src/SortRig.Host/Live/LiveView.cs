@@ -2,6 +2,7 @@ using Spectre.Console;
 using Spectre.Console.Rendering;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Events;
+using SortRig.Measurement.Readings;
 
 namespace SortRig.Host.Live;
 

@@ -2,6 +2,7 @@ using System.Globalization;
 using Spectre.Console;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Sorting;
+using SortRig.Measurement.Readings;
 
 namespace SortRig.Host.Live;
 

@@ -1,10 +1,11 @@
 using System.Globalization;
 using Spectre.Console;
+using SortRig.Engine.Picking;
 using SortRig.Host.LibraryVerb;
 using SortRig.Host.VerbSupport;
+using SortRig.Measurement.Readings;
 using SortRig.Planning.Networks;
 using SortRig.Planning.PickLists;
-using SortRig.Engine.Picking;
 
 namespace SortRig.Host.PlanVerb;
 
@@ -31,7 +32,7 @@ internal static class PickListView
             {
                 picks.AddRow(
                     Markup.Escape(item.Position), item.Build, item.PartId?.ToString(CultureInfo.InvariantCulture) ?? "any",
-                    Markup.Escape(item.Source), Markup.Escape(Format.Ohms(item.Nominal)),
+                    Markup.Escape(item.Source), Markup.Escape(OhmsText.Nominal(item.Nominal)),
                     byCup ? Band(outcome, item.Source) : item.Value is { } v ? Format.Value(v) : "");
             }
 

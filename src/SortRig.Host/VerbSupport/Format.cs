@@ -1,5 +1,4 @@
 using System.Globalization;
-using SortRig.Engine.Announcing;
 using SortRig.Host.LibraryVerb;
 
 namespace SortRig.Host.VerbSupport;
@@ -7,11 +6,6 @@ namespace SortRig.Host.VerbSupport;
 /// <summary>Number formats of the library verbs (invariant culture, plain ASCII for label printers).</summary>
 internal static class Format
 {
-    /// <summary>Nominal, short: "10 kOhm", "4.99 kOhm", "100 Ohm".</summary>
-    public static string Ohms(double nominal) =>
-        OhmsText.Format(nominal, 4).Replace(".000 ", " ", StringComparison.Ordinal).Replace(".00 ", " ", StringComparison.Ordinal)
-            .Replace(".0 ", " ", StringComparison.Ordinal);
-
     /// <summary>Measured value in ohms with up to nine significant digits.</summary>
     public static string Value(double ohms) => ohms.ToString("G9", CultureInfo.InvariantCulture);
 

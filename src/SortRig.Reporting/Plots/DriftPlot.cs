@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using SortRig.Measurement.Drift;
+using SortRig.Measurement.Readings;
 
 namespace SortRig.Reporting.Plots;
 
@@ -30,7 +31,7 @@ public static class DriftPlot
 
         string start = origin.UtcDateTime.ToString("yyyy-MM-dd HH:mm 'UTC'", CultureInfo.InvariantCulture);
         Plot plot = PlotLook.Create(
-            $"Drift, channel {input.Channel} (ref. {OhmsText.Format(input.ReferenceOhms)})",
+            $"Drift, channel {input.Channel} (ref. {OhmsText.Compact(input.ReferenceOhms)})",
             $"Elapsed time (h) since {start}",
             "Deviation from reference (ppm)");
         var values = plot.Add.ScatterPoints(hours, ppm, Colors.Navy);

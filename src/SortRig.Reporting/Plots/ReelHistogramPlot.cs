@@ -1,6 +1,7 @@
 using System.Globalization;
 using ScottPlot;
 using ScottPlot.Statistics;
+using SortRig.Measurement.Readings;
 
 namespace SortRig.Reporting.Plots;
 
@@ -20,7 +21,7 @@ public static class ReelHistogramPlot
         histogram.AddRange(ppm);
 
         Plot plot = PlotLook.Create(
-            $"Reel {OhmsText.Format(input.NominalOhms)}: {ppm.Length} parts",
+            $"Reel {OhmsText.Compact(input.NominalOhms)}: {ppm.Length} parts",
             string.Create(CultureInfo.InvariantCulture, $"Deviation from nominal (ppm), bins of {width:0.####} ppm"),
             "Parts per bin");
         plot.Add.Histogram(histogram);

@@ -2,6 +2,7 @@ using System.Text;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 using SortRig.Measurement.Drift;
+using SortRig.Measurement.Readings;
 using SortRig.Reporting.Plots;
 
 namespace SortRig.Reporting.Reports;

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using SortRig.Measurement.Drift;
+using SortRig.Measurement.Readings;
 using SortRig.Reporting.Plots;
 
 namespace SortRig.Reporting.Reports;
@@ -22,7 +23,7 @@ internal static class SummaryMarkdown
         foreach (NominalSummary n in figures.Nominals)
         {
             string tol = n.TolerancePercent is { } t ? $"±{t:G3} %" : "n/a";
-            Row(md, $"| {OhmsText.Format(n.NominalOhms)} | {n.Count} | {n.MeanPpm:F1} | {Num(n.StdDevPpm, "F1")} | {n.MinPpm:F1} | {n.MaxPpm:F1} | {tol} | [{n.HistogramFile}]({n.HistogramFile}) |");
+            Row(md, $"| {OhmsText.Compact(n.NominalOhms)} | {n.Count} | {n.MeanPpm:F1} | {Num(n.StdDevPpm, "F1")} | {n.MinPpm:F1} | {n.MaxPpm:F1} | {tol} | [{n.HistogramFile}]({n.HistogramFile}) |");
         }
 
         Line(md, string.Empty);

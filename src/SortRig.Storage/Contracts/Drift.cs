@@ -27,7 +27,7 @@ public sealed record DriftRun(long Id, string Name, DateTimeOffset StartedAt, Ti
 /// <param name="Time">When it was taken (UTC, microsecond resolution).</param>
 /// <param name="Ohms">Value, ohms.</param>
 /// <param name="Temperature">degC, optional.</param>
-public readonly record struct DriftSample(long RunId, int Channel, DateTimeOffset Time, double Ohms, double? Temperature);
+public readonly record struct StoredDriftSample(long RunId, int Channel, DateTimeOffset Time, double Ohms, double? Temperature);
 
 /// <summary>A stretch of a drift run with no valid samples.</summary>
 /// <param name="RunId">Drift run.</param>

@@ -48,7 +48,7 @@ public interface IPrecisionLog : IAsyncDisposable
     Task<IReadOnlyList<RawReading>> GetReadingsAsync(long partId, CancellationToken cancellationToken);
 
     /// <summary>Live parts per cup of a session, ordered by cup label.</summary>
-    Task<IReadOnlyList<CupCount>> GetCupCountsAsync(long sessionId, CancellationToken cancellationToken);
+    Task<IReadOnlyList<CupTally>> GetCupCountsAsync(long sessionId, CancellationToken cancellationToken);
 
     /// <summary>History of a part (corrections and library moves), oldest first.</summary>
     Task<IReadOnlyList<PartEvent>> GetPartHistoryAsync(long partId, CancellationToken cancellationToken);
@@ -77,7 +77,7 @@ public interface IPrecisionLog : IAsyncDisposable
 
     /// <summary>Appends samples in one transaction (batched inserts); duplicates of stored samples are ignored.
     /// Returns how many were new.</summary>
-    Task<int> AppendDriftSamplesAsync(IReadOnlyList<DriftSample> samples, CancellationToken cancellationToken);
+    Task<int> AppendDriftSamplesAsync(IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken);
 
     /// <summary>Records a gap in a drift run.</summary>
     Task MarkGapAsync(DriftGap gap, CancellationToken cancellationToken);
@@ -86,7 +86,7 @@ public interface IPrecisionLog : IAsyncDisposable
     Task<DriftRun?> GetDriftRunAsync(long runId, CancellationToken cancellationToken);
 
     /// <summary>Streams the samples of a run ordered by time then channel, in constant memory.</summary>
-    IAsyncEnumerable<DriftSample> ReadDriftSamplesAsync(long runId, CancellationToken cancellationToken);
+    IAsyncEnumerable<StoredDriftSample> ReadDriftSamplesAsync(long runId, CancellationToken cancellationToken);
 
     /// <summary>
     /// The drift runs each library part was logged in (one row per run and channel the part sat on), ordered by part

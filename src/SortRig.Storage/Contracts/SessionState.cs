@@ -14,7 +14,7 @@ public sealed record SessionState(
     SessionInfo Session,
     bool Resumed,
     int NextPartNumber,
-    IReadOnlyList<CupCount> CupCounts,
+    IReadOnlyList<CupTally> CupCounts,
     IReadOnlyList<PartRecord> Unannounced,
     IReadOnlyList<BatchInfo> Batches)
 {
@@ -25,4 +25,4 @@ public sealed record SessionState(
 /// <summary>How many live parts (Accepted or Announced) sit in one cup.</summary>
 /// <param name="CupLabel">The cup label as committed.</param>
 /// <param name="Count">Number of parts, &gt;= 1.</param>
-public readonly record struct CupCount(string CupLabel, int Count);
+public readonly record struct CupTally(string CupLabel, int Count);

@@ -42,7 +42,7 @@ internal abstract partial class AdoPrecisionLog
         }, cancellationToken);
     }
 
-    public Task<int> AppendDriftSamplesAsync(IReadOnlyList<DriftSample> samples, CancellationToken cancellationToken)
+    public Task<int> AppendDriftSamplesAsync(IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken)
     {
         ArgumentNullException.ThrowIfNull(samples);
         for (int i = 0; i < samples.Count; i++)

@@ -7,7 +7,7 @@ namespace SortRig.Storage.Core;
 /// <summary>Streaming read of drift samples: one open reader, one row at a time.</summary>
 internal abstract partial class AdoPrecisionLog
 {
-    public async IAsyncEnumerable<DriftSample> ReadDriftSamplesAsync(long runId, [EnumeratorCancellation] CancellationToken cancellationToken)
+    public async IAsyncEnumerable<StoredDriftSample> ReadDriftSamplesAsync(long runId, [EnumeratorCancellation] CancellationToken cancellationToken)
     {
         const string operation = "read drift samples";
         _ = await GetDriftRunAsync(runId, cancellationToken).ConfigureAwait(false) ?? throw NotFound(operation, $"Drift run {runId}");

@@ -68,7 +68,7 @@ internal abstract partial class AdoPrecisionLog
     private protected RawReading ReadRawReading(DbDataReader r) => new(
         r.GetInt64(0), r.GetInt32(1), ReadTime(r, 2), r.GetDouble(3), r.GetDouble(4), Enum.Parse<ReadingKind>(r.GetString(5)));
 
-    private protected DriftSample ReadDriftSample(DbDataReader r) => new(
+    private protected StoredDriftSample ReadDriftSample(DbDataReader r) => new(
         r.GetInt64(0), r.GetInt32(1), ReadTime(r, 2), r.GetDouble(3), ReadDouble(r, 4));
 
     private protected Task<PartRecord?> GetPartCoreAsync(DbScope scope, long partId, CancellationToken cancellationToken) =>

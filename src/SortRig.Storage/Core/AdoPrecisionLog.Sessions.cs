@@ -61,7 +61,7 @@ internal abstract partial class AdoPrecisionLog
             await s.Sql($"SELECT {SessionColumns} FROM sessions s ORDER BY s.id DESC")
                 .ListAsync(ReadSession, ct).ConfigureAwait(false), cancellationToken);
 
-    public Task<IReadOnlyList<CupCount>> GetCupCountsAsync(long sessionId, CancellationToken cancellationToken) =>
+    public Task<IReadOnlyList<CupTally>> GetCupCountsAsync(long sessionId, CancellationToken cancellationToken) =>
         ReadAsync("read cup counts", (s, ct) => CupCountsCoreAsync(s, sessionId, ct), cancellationToken);
 
     private async Task<SessionState> LoadStateAsync(DbScope s, long sessionId, bool resumed, CancellationToken ct)
@@ -79,10 +79,10 @@ internal abstract partial class AdoPrecisionLog
         return new SessionState(session, resumed, (int)next!.Value, cups, unannounced, batches);
     }
 
-    private async Task<IReadOnlyList<CupCount>> CupCountsCoreAsync(DbScope s, long sessionId, CancellationToken ct) =>
+    private async Task<IReadOnlyList<CupTally>> CupCountsCoreAsync(DbScope s, long sessionId, CancellationToken ct) =>
         await s.Sql(
                 $"SELECT p.cup_label, COUNT(*) FROM parts p WHERE p.session_id = @id AND p.cup_label IS NOT NULL " +
                 $"AND p.state IN {LiveStates} GROUP BY p.cup_label ORDER BY p.cup_label")
             .With("id", sessionId)
-            .ListAsync(r => new CupCount(r.GetString(0), (int)ReadLong(r, 1)), ct).ConfigureAwait(false);
+            .ListAsync(r => new CupTally(r.GetString(0), (int)ReadLong(r, 1)), ct).ConfigureAwait(false);
 }

@@ -49,7 +49,7 @@ internal abstract partial class AdoPrecisionLog : IPrecisionLog
     /// <summary>Classifies an engine exception; transient ones are retried by writes.</summary>
     private protected abstract StorageFault Classify(DbException exception, out bool transient);
 
-    private protected abstract Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<DriftSample> samples, CancellationToken cancellationToken);
+    private protected abstract Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken);
 
     private protected abstract Task<IReadOnlyList<string>> EngineProblemsAsync(DbScope scope, CancellationToken cancellationToken);
 

@@ -39,7 +39,7 @@ internal sealed partial class PostgresPrecisionLog
     }
 
     /// <summary>INSERT ... SELECT FROM unnest(arrays) per chunk of 5000 samples: few round trips, memory bounded by the chunk.</summary>
-    private protected override async Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<DriftSample> samples, CancellationToken cancellationToken)
+    private protected override async Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken)
     {
         int inserted = 0;
         for (int start = 0; start < samples.Count; start += DriftChunk)

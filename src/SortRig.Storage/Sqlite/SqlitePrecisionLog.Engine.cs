@@ -25,7 +25,7 @@ internal sealed partial class SqlitePrecisionLog
     }
 
     /// <summary>One prepared INSERT reused for every sample, all inside the caller's transaction.</summary>
-    private protected override async Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<DriftSample> samples, CancellationToken cancellationToken)
+    private protected override async Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken)
     {
         var q = scope.Sql(
                 "INSERT INTO drift_samples (run_id, channel, taken_at, ohms, temperature_c) VALUES (@run, @channel, @at, @ohms, @temp) " +

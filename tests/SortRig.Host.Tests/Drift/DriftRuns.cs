@@ -34,10 +34,10 @@ internal static class DriftRuns
         return (await run, bench!);
     }
 
-    public static async Task<List<DriftSample>> SamplesAsync(string database, long runId)
+    public static async Task<List<StoredDriftSample>> SamplesAsync(string database, long runId)
     {
         await using var log = await PrecisionLogFactory.OpenAsync(database, null, default);
-        var samples = new List<DriftSample>();
+        var samples = new List<StoredDriftSample>();
         await foreach (var s in log.ReadDriftSamplesAsync(runId, default))
         {
             samples.Add(s);

@@ -118,13 +118,13 @@ public sealed class LibraryDriftTests
         var night1 = await log.StartDriftRunAsync(new DriftRunRequest("night-1",
             [new DriftChannel("ch101", p[0].Id), new DriftChannel("ch102", p[1].Id), new DriftChannel("pt100@120")], TimeSpan.FromMinutes(1)), CancellationToken.None);
         var (hours, ohmsA) = NightOneA();
-        var samples = new List<DriftSample>();
+        var samples = new List<StoredDriftSample>();
         for (var k = 0; k < hours.Length; k++)
         {
             var at = t0.AddMinutes(k);
-            samples.Add(new DriftSample(night1.Id, 0, at, ohmsA[k], Temp(k)));
-            samples.Add(new DriftSample(night1.Id, 1, at, 10_000 * (1 + (DriftB1 * hours[k] * 1e-6)), Temp(k)));
-            samples.Add(new DriftSample(night1.Id, 2, at, 100 * (1 + (3.9083e-3 * (Temp(k) - 0))), null));
+            samples.Add(new StoredDriftSample(night1.Id, 0, at, ohmsA[k], Temp(k)));
+            samples.Add(new StoredDriftSample(night1.Id, 1, at, 10_000 * (1 + (DriftB1 * hours[k] * 1e-6)), Temp(k)));
+            samples.Add(new StoredDriftSample(night1.Id, 2, at, 100 * (1 + (3.9083e-3 * (Temp(k) - 0))), null));
         }
 
         await log.AppendDriftSamplesAsync(samples, CancellationToken.None);
@@ -132,7 +132,7 @@ public sealed class LibraryDriftTests
             [new DriftChannel("ch101", p[1].Id), new DriftChannel("ch102", p[3].Id)], TimeSpan.FromMinutes(1)), CancellationToken.None);
         var t1 = t0.AddDays(1);
         await log.AppendDriftSamplesAsync(
-            [.. Enumerable.Range(0, 181).Select(k => new DriftSample(night2.Id, 0, t1.AddMinutes(k), 10_000 * (1 + (DriftB2 * (k / 60.0) * 1e-6)), null))],
+            [.. Enumerable.Range(0, 181).Select(k => new StoredDriftSample(night2.Id, 0, t1.AddMinutes(k), 10_000 * (1 + (DriftB2 * (k / 60.0) * 1e-6)), null))],
             CancellationToken.None);
         return (p[0], p[1], p[2], p[3]);
     }

@@ -17,14 +17,14 @@ public sealed class AssignerChoiceTests : IDisposable
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
     [Theory]
-    [InlineData("slots")]
-    [InlineData("adaptive")]
-    public async Task Sort_WithAssigner_StoresItsLabelsInTheRightColumn(string assigner)
+    [InlineData(AssignerKind.Slots)]
+    [InlineData(AssignerKind.Adaptive)]
+    public async Task Sort_WithAssigner_StoresItsLabelsInTheRightColumn(AssignerKind assigner)
     {
         var options = new SortOptions
         {
             Database = Path.Combine(_dir, assigner + ".db"),
-            Session = assigner,
+            Session = assigner.ToString(),
             Parts = 8,
             Seed = 77,
             Speed = 30,
@@ -42,7 +42,7 @@ public sealed class AssignerChoiceTests : IDisposable
         await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
         var parts = await log.GetPartsAsync(outcome.SessionId, default);
         Assert.Equal(8, parts.Count);
-        if (assigner == "slots")
+        if (assigner == AssignerKind.Slots)
         {
             Assert.All(parts, p => Assert.Null(p.CupLabel));
             Assert.All(parts, p => Assert.Matches(@"^T\d+-[A-Z]\d{2}$", p.SlotLabel!));

@@ -17,7 +17,7 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
 {
     public const int Seed = 2026; // the demo seed: at the demo's 20 ppm bound its 10 k and 100 k ranges differ by about 32 ppm of gain
 
-    public SortOptions Options(double nominal, int totalParts, string bridge, double match = 0.001) => new()
+    public SortOptions Options(double nominal, int totalParts, BridgeMode bridge, double match = 0.001) => new()
     {
         Database = database,
         Session = "ladder",

@@ -1,7 +1,8 @@
+using Xunit.Abstractions;
 using SortRig.Measurement.Readings;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
-using Xunit.Abstractions;
+using SortRig.Engine.Sorting;
 
 namespace SortRig.Host.Tests.Sorting;
 
@@ -25,8 +26,8 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public async Task Resume_WithTwiceTheNominal_BridgesTheRanges_RatiosMatchTheTruth()
     {
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder.db"));
-        var first = await session.RunAsync(session.Options(10_000, Total, "always"), RangeTransferSession.AfterPart(R));
-        var second = await session.RunAsync(session.Options(20_000, Total, "always"));
+        var first = await session.RunAsync(session.Options(10_000, Total, BridgeMode.Always), RangeTransferSession.AfterPart(R));
+        var second = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Always));
 
         Assert.Contains("Put one 10000 Ohm part from the earlier batch in the fixture", second.Heard, StringComparison.Ordinal);
         var (parts, batches) = await StoredAsync(session, second);
@@ -48,7 +49,7 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         Assert.All(RatioErrors(parts, first, second), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
 
         // The raw readings stay as read: the stored 2R value is the window mean of its readings times the factor.
-        await using var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, "auto").Database, null, default);
+        await using var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, BridgeMode.Auto).Database, null, default);
         foreach (var part in parts.Where(p => p.Nominal == 20_000))
         {
             var window = (await log.GetReadingsAsync(part.Id, default)).Where(r => r.Kind == ReadingKind.Finite).TakeLast(8).Average(r => r.Value);
@@ -62,8 +63,8 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public async Task Resume_WithHalfTheNominal_BridgesFromBelow_RatiosMatchTheTruth()
     {
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder-down.db"));
-        var first = await session.RunAsync(session.Options(20_000, Total, "always"), RangeTransferSession.AfterPart(R));
-        var second = await session.RunAsync(session.Options(10_000, Total, "always"));
+        var first = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Always), RangeTransferSession.AfterPart(R));
+        var second = await session.RunAsync(session.Options(10_000, Total, BridgeMode.Always));
 
         Assert.Contains("Put one 10000 Ohm part of this batch in the fixture", second.Heard, StringComparison.Ordinal);
         var (parts, batches) = await StoredAsync(session, second);
@@ -79,7 +80,7 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         Assert.InRange(transfer.CorrectionPpm - trueCorrectionPpm, -2 * transfer.StandardUncertaintyPpm, 2 * transfer.StandardUncertaintyPpm);
 
         // The R parts were read on their own range after the bridge: every stored R value is its window mean times the factor.
-        await using (var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, "auto").Database, null, default))
+        await using (var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, BridgeMode.Auto).Database, null, default))
         {
             foreach (var part in parts.Where(p => p.Nominal == 10_000))
             {
@@ -98,9 +99,9 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public async Task Reopen_AfterTheFirstReelFinished_SameSessionBridgesTheRanges()
     {
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder-reopen.db"));
-        var first = await session.RunAsync(session.Options(10_000, R, "always"));
+        var first = await session.RunAsync(session.Options(10_000, R, BridgeMode.Always));
         Assert.NotNull(first.Outcome); // ran to its end: the session is finished
-        var options = session.Options(20_000, Total, "always");
+        var options = session.Options(20_000, Total, BridgeMode.Always);
         options.Reopen = true;
         var second = await session.RunAsync(options);
 
@@ -120,8 +121,8 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public async Task Resume_At005PercentWithAuto_BridgesByItself()
     {
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder-auto.db"));
-        var first = await session.RunAsync(session.Options(10_000, Total, "auto", 0.0005), RangeTransferSession.AfterPart(R));
-        var second = await session.RunAsync(session.Options(20_000, Total, "auto", 0.0005));
+        var first = await session.RunAsync(session.Options(10_000, Total, BridgeMode.Auto, 0.0005), RangeTransferSession.AfterPart(R));
+        var second = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Auto, 0.0005));
 
         Assert.Contains("Put one 10000 Ohm part from the earlier batch in the fixture", second.Heard, StringComparison.Ordinal);
         var (parts, batches) = await StoredAsync(session, second);
@@ -139,8 +140,8 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         // The settle target at 20 kOhm on the 100 k range leaves a ratio uncertainty of about 25 ppm, so the
         // mismatch must clearly exceed it for the check below to mean anything.
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder-off.db"), gainErrorPpm: 60);
-        var first = await session.RunAsync(session.Options(10_000, Total, "off"), RangeTransferSession.AfterPart(R));
-        var second = await session.RunAsync(session.Options(20_000, Total, "off"));
+        var first = await session.RunAsync(session.Options(10_000, Total, BridgeMode.Off), RangeTransferSession.AfterPart(R));
+        var second = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Off));
 
         Assert.DoesNotContain("bridging part", second.Heard, StringComparison.Ordinal);
         Assert.Contains("not corrected", second.Heard, StringComparison.Ordinal);
@@ -160,10 +161,10 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public async Task Resume_AfterTheTransferWasRecorded_DoesNotAskAgain()
     {
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder-crash.db"));
-        var first = await session.RunAsync(session.Options(10_000, Total, "always"), RangeTransferSession.AfterPart(R));
-        var stopped = await session.RunAsync(session.Options(20_000, Total, "always"), RangeTransferSession.AfterNote("range transfer recorded"));
+        var first = await session.RunAsync(session.Options(10_000, Total, BridgeMode.Always), RangeTransferSession.AfterPart(R));
+        var stopped = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Always), RangeTransferSession.AfterNote("range transfer recorded"));
         Assert.Null(stopped.Outcome); // stopped right after the transfer was recorded, before any 20 k part
-        var third = await session.RunAsync(session.Options(20_000, Total, "always"));
+        var third = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Always));
 
         Assert.DoesNotContain("bridging part", third.Heard, StringComparison.Ordinal);
         Assert.Contains("range transfer already recorded for this batch", third.Heard, StringComparison.Ordinal);
@@ -180,10 +181,10 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     public async Task Resume_StoppedWithTheBridgingPartIn_AsksForItAgainAndRecordsOneTransfer()
     {
         var session = new RangeTransferSession(Path.Combine(_dir, "ladder-midbridge.db"));
-        var first = await session.RunAsync(session.Options(10_000, Total, "always"), RangeTransferSession.AfterPart(R));
-        var stopped = await session.RunAsync(session.Options(20_000, Total, "always"), RangeTransferSession.AfterNote("as a bridging part"));
+        var first = await session.RunAsync(session.Options(10_000, Total, BridgeMode.Always), RangeTransferSession.AfterPart(R));
+        var stopped = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Always), RangeTransferSession.AfterNote("as a bridging part"));
         Assert.Null(stopped.Outcome); // stopped with the bridging part going in: nothing recorded yet
-        var third = await session.RunAsync(session.Options(20_000, Total, "always"));
+        var third = await session.RunAsync(session.Options(20_000, Total, BridgeMode.Always));
 
         Assert.Contains("Put one 10000 Ohm part from the earlier batch in the fixture", third.Heard, StringComparison.Ordinal);
         Assert.Contains("range transfer recorded", third.Heard, StringComparison.Ordinal);
@@ -199,7 +200,7 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
     private static async Task<(IReadOnlyList<PartRecord> Parts, IReadOnlyList<BatchInfo> Batches)> StoredAsync(RangeTransferSession session, RangeTransferSession.Run run)
     {
         Assert.NotNull(run.Outcome);
-        await using var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, "auto").Database, null, default);
+        await using var log = await PrecisionLogFactory.OpenAsync(session.Options(0.1, 1, BridgeMode.Auto).Database, null, default);
         var parts = await log.GetPartsAsync(run.Outcome!.SessionId, default);
         Assert.All(parts, p => Assert.Equal(PartState.Announced, p.State));
         return (parts, await log.GetBatchesAsync(run.Outcome.SessionId, default));

@@ -22,9 +22,9 @@ public abstract partial class PrecisionLogContractTests
         var undone = await log.UndoPartAsync(new PartCorrection(part2.Id, PartCorrectionKind.Undo), CancellationToken.None);
 
         Assert.Equal("B", moved.CupLabel);
-        Assert.Equal([new CupCount("A", 2), new CupCount("B", 1)], countsAfterMove);
+        Assert.Equal([new CupTally("A", 2), new CupTally("B", 1)], countsAfterMove);
         Assert.Equal(PartState.Undone, undone.State);
-        Assert.Equal([new CupCount("A", 2)], await log.GetCupCountsAsync(session.Session.Id, CancellationToken.None));
+        Assert.Equal([new CupTally("A", 2)], await log.GetCupCountsAsync(session.Session.Id, CancellationToken.None));
         var history = await log.GetPartHistoryAsync(part2.Id, CancellationToken.None);
         Assert.Equal(
             [(PartEventKind.CupCorrected, "A", "B", Bench.T0.AddMinutes(1)), (PartEventKind.Undone, "Accepted", "Undone", Bench.T0.AddMinutes(2))],

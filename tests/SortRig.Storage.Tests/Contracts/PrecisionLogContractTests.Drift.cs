@@ -8,7 +8,7 @@ public abstract partial class PrecisionLogContractTests
     private const int DriftSteps = 25_000; // 4 x 25 000 = 100 000 samples
 
     /// <summary>Invented overnight drift: each channel creeps up 0.1 mOhm per step; temperature every second step only.</summary>
-    private static DriftSample DriftPoint(long runId, int step, int channel) => new(
+    private static StoredDriftSample DriftPoint(long runId, int step, int channel) => new(
         runId, channel, Bench.T0.AddSeconds(10L * step), 10_000 + (channel * 0.5) + (step * 1e-4),
         step % 2 == 0 ? 22.0 + (step % 100) * 0.01 : null);
 
@@ -21,7 +21,7 @@ public abstract partial class PrecisionLogContractTests
         var run = await log.StartDriftRunAsync(new DriftRunRequest("overnight-0302", channels, TimeSpan.FromSeconds(10), "lab at 22 C"), CancellationToken.None);
 
         int inserted = 0;
-        var batch = new List<DriftSample>(1000);
+        var batch = new List<StoredDriftSample>(1000);
         for (int step = 0; step < DriftSteps; step++)
         {
             for (int ch = 0; ch < DriftChannels; ch++)
@@ -66,7 +66,7 @@ public abstract partial class PrecisionLogContractTests
             log.AppendDriftSamplesAsync([DriftPoint(run.Id, 0, 0), DriftPoint(run.Id, 0, 5)], CancellationToken.None));
 
         Assert.Equal(StorageFault.Constraint, error.Fault);
-        var stored = new List<DriftSample>();
+        var stored = new List<StoredDriftSample>();
         await foreach (var s in log.ReadDriftSamplesAsync(run.Id, CancellationToken.None))
         {
             stored.Add(s);

@@ -5,8 +5,8 @@ namespace SortRig.Storage.Tests.Contracts;
 public abstract partial class PrecisionLogContractTests
 {
     /// <summary>Invented overnight log: <paramref name="count"/> samples of one channel, 60 s apart from <paramref name="from"/>.</summary>
-    private static DriftSample[] ChannelSamples(long runId, int channel, DateTimeOffset from, int count) =>
-        [.. Enumerable.Range(0, count).Select(i => new DriftSample(runId, channel, from.AddSeconds(60 * i), 10_000.05 + (i * 1e-4), null))];
+    private static StoredDriftSample[] ChannelSamples(long runId, int channel, DateTimeOffset from, int count) =>
+        [.. Enumerable.Range(0, count).Select(i => new StoredDriftSample(runId, channel, from.AddSeconds(60 * i), 10_000.05 + (i * 1e-4), null))];
 
     /// <summary>
     /// Two runs: "night-1" with parts 0 and 1 on channels 0/1, an unassigned channel and a thermometer; "night-2" a day

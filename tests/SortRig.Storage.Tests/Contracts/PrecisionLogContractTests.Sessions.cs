@@ -28,7 +28,7 @@ public abstract partial class PrecisionLogContractTests
         Assert.True(state.Resumed);
         Assert.Equal(session.Session, state.Session);
         Assert.Equal(6, state.NextPartNumber);
-        Assert.Equal([new CupCount("A", 3), new CupCount("B", 1), new CupCount("C", 1)], state.CupCounts);
+        Assert.Equal([new CupTally("A", 3), new CupTally("B", 1), new CupTally("C", 1)], state.CupCounts);
         Assert.Equal([3, 5], state.Unannounced.Select(p => p.Number));
         Assert.Equal(batch, state.CurrentBatch);
         Assert.Equal(6, (await Bench.CommitAsync(reopened, state.Session.Id, batch, 10_000.2)).Number);
