@@ -17,7 +17,4 @@ public static class CupAssignerFactory
         AssignerKind.Slots => new SlotAssigner(new SlotOptions(nominals: [options.Nominal])),
         _ => throw new ArgumentException($"Sort:Assigner '{options.Assigner}' is not bands, adaptive or slots.", nameof(options)),
     };
-
-    /// <summary>True when the assigner's labels are tray slots rather than cups.</summary>
-    public static bool IsSlots(ICupAssigner assigner) => assigner is SlotAssigner;
 }

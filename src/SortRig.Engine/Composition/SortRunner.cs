@@ -84,7 +84,7 @@ public static class SortRunner
                 services.Commands,
                 hands,
                 services.Time,
-                services.Loggers.CreateLogger("SortRig.Host.Sorting"));
+                services.Loggers.CreateLogger("SortRig.Engine.Sorting"));
             return await new SortingLoop(context).RunAsync(ct).ConfigureAwait(false);
         }
         finally

@@ -9,36 +9,33 @@ namespace SortRig.Engine.DriftLogging;
 /// <summary>The meter side: connect, scan, verify the setup, recover from faults and keep the gap open meanwhile.</summary>
 internal sealed partial class DriftLogger
 {
-    private static readonly TimeSpan s_firstBackoff = TimeSpan.FromMilliseconds(500);
-    private static readonly TimeSpan s_lastBackoff = TimeSpan.FromSeconds(30);
+    private static readonly Backoff s_backoff = new(TimeSpan.FromMilliseconds(500), TimeSpan.FromSeconds(30));
 
     private DateTimeOffset _lastGood;
     private (DateTimeOffset From, string Reason)? _gap;
-
-    private static TimeSpan NextBackoff(TimeSpan b) => TimeSpan.FromTicks(Math.Min(s_lastBackoff.Ticks, b.Ticks * 2));
 
     // One scan in scan order, or null after a fault (the meter is dropped and a gap is open).
     private async Task<IReadOnlyList<Reading>?> TryScanAsync(CancellationToken ct)
     {
         try
         {
-            _meter ??= await ConnectAsync(ct).ConfigureAwait(false);
-            var readings = await _meter.ReadChannelsAsync(settings.ScanOrder, ct).ConfigureAwait(false);
-            if (await _meter.VerifySetupAsync(ct).ConfigureAwait(false))
+            var meter = await _meter.GetAsync(ct).ConfigureAwait(false);
+            var readings = await meter.ReadChannelsAsync(settings.ScanOrder, ct).ConfigureAwait(false);
+            if (await meter.VerifySetupAsync(ct).ConfigureAwait(false))
             {
                 return readings;
             }
 
             // The meter went back to its defaults during the scan: its readings are not what was asked for.
             OpenGap("meter lost its range/NPLC settings (reset?); scan discarded");
-            await _meter.ConfigureAsync(settings.Setup, ct).ConfigureAwait(false);
+            await meter.ConfigureAsync(settings.Setup, ct).ConfigureAwait(false);
             return null;
         }
         catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
         {
             Log.DriftMeterFault(logger, _runId, e.GetType().Name, e.Message);
             OpenGap($"meter fault: {MeterFaults.Describe(e)}");
-            await DropMeterAsync().ConfigureAwait(false);
+            await _meter.DropAsync().ConfigureAwait(false);
             return null;
         }
     }
@@ -48,35 +45,11 @@ internal sealed partial class DriftLogger
     {
         try
         {
-            _meter ??= await ConnectAsync(ct).ConfigureAwait(false);
+            await _meter.GetAsync(ct).ConfigureAwait(false);
         }
         catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
         {
             Log.DriftMeterFault(logger, _runId, e.GetType().Name, e.Message);
-        }
-    }
-
-    private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
-    {
-        var meter = await connect(ct).ConfigureAwait(false);
-        try
-        {
-            await meter.ConfigureAsync(settings.Setup, ct).ConfigureAwait(false);
-            return meter;
-        }
-        catch
-        {
-            await meter.DisposeAsync().ConfigureAwait(false);
-            throw;
-        }
-    }
-
-    private async Task DropMeterAsync()
-    {
-        if (_meter is { } meter)
-        {
-            _meter = null;
-            await meter.DisposeAsync().ConfigureAwait(false);
         }
     }
 

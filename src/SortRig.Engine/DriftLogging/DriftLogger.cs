@@ -21,7 +21,7 @@ internal sealed partial class DriftLogger(
     TimeProvider time,
     ILogger logger)
 {
-    private IResistanceMeter? _meter;
+    private readonly ResilientMeter _meter = new(connect, settings.Setup, identify: false);
     private long _runId;
     private long _scans;
     private long _skipped;
@@ -64,7 +64,7 @@ internal sealed partial class DriftLogger(
         {
             await CloseGapAtEndAsync(queue.Writer, storageFailed.Token).ConfigureAwait(false);
             queue.Writer.TryComplete();
-            await DropMeterAsync().ConfigureAwait(false);
+            await _meter.DropAsync().ConfigureAwait(false);
         }
 
         await storing.ConfigureAwait(false);
@@ -99,7 +99,7 @@ internal sealed partial class DriftLogger(
         var start = time.GetUtcNow();
         var end = settings.Duration is { } d ? start + d : DateTimeOffset.MaxValue;
         _lastGood = start;
-        var backoff = s_firstBackoff;
+        var backoff = s_backoff.First;
         for (long tick = 0; ;)
         {
             var due = start + TimeSpan.FromTicks(interval.Ticks * tick);
@@ -120,7 +120,7 @@ internal sealed partial class DriftLogger(
                 if (readings is not null)
                 {
                     await RecordAsync(readings, writer, ct).ConfigureAwait(false);
-                    backoff = s_firstBackoff;
+                    backoff = s_backoff.First;
                     break;
                 }
 
@@ -128,12 +128,12 @@ internal sealed partial class DriftLogger(
                 var retryAt = time.GetUtcNow() + backoff;
                 if (retryAt >= due + interval || retryAt >= end)
                 {
-                    backoff = NextBackoff(backoff);
+                    backoff = s_backoff.Next(backoff);
                     break;
                 }
 
                 await Task.Delay(backoff, time, ct).ConfigureAwait(false);
-                backoff = NextBackoff(backoff);
+                backoff = s_backoff.Next(backoff);
             }
 
             var elapsed = (time.GetUtcNow() - start).Ticks;

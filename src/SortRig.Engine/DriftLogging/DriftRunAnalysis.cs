@@ -14,7 +14,7 @@ public static class DriftRunAnalysis
     /// <param name="runId">Drift run id.</param>
     /// <param name="ct">Caller cancellation.</param>
     /// <exception cref="ArgumentException">No run has this id.</exception>
-    public static async Task<IReadOnlyList<DriftChannelResult>> AnalyzeAsync(IPrecisionLog log, long runId, CancellationToken ct)
+    public static async Task<IReadOnlyList<DriftChannelResult>> AnalyzeAsync(IDriftLog log, long runId, CancellationToken ct)
     {
         ArgumentNullException.ThrowIfNull(log);
         var run = await log.GetDriftRunAsync(runId, ct).ConfigureAwait(false)

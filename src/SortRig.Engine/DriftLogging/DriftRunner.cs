@@ -72,7 +72,7 @@ public static class DriftRunner
                 log,
                 services.Hub,
                 services.Time,
-                services.Loggers.CreateLogger("SortRig.Host.Drift"));
+                services.Loggers.CreateLogger("SortRig.Engine.DriftLogging"));
             return await logger.RunAsync(ct).ConfigureAwait(false);
         }
         finally

@@ -1,5 +1,6 @@
 using System.Threading.Channels;
 using Microsoft.Extensions.Logging;
+using SortRig.Engine.Durability;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.DriftLogging;
@@ -12,7 +13,7 @@ internal readonly record struct DriftWrite(StoredDriftSample Sample, DriftGap? G
 /// BatchSize (one transaction each, fewer when it keeps up), writes gaps in order, and retries a
 /// locked or unreachable store with back-off. Memory is bounded by the channel and one batch.
 /// </summary>
-internal sealed class DriftStore(IPrecisionLog log, int batchSize, long runId, TimeProvider time, ILogger logger)
+internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeProvider time, ILogger logger)
 {
     private const int MaxAttempts = 8;
     private readonly List<StoredDriftSample> _batch = new(batchSize);
@@ -71,7 +72,7 @@ internal sealed class DriftStore(IPrecisionLog log, int batchSize, long runId, T
                 await write(ct).ConfigureAwait(false);
                 return;
             }
-            catch (StorageException e) when (attempt < MaxAttempts && e.Fault is StorageFault.Locked or StorageFault.Unavailable)
+            catch (StorageException e) when (attempt < MaxAttempts && StorageFaultRule.ClearsByItself(e.Fault))
             {
                 Log.DriftStorageRetry(logger, runId, e.Fault.ToString(), e.Message, delay.TotalSeconds);
                 await Task.Delay(delay, time, ct).ConfigureAwait(false);

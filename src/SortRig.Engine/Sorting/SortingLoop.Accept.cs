@@ -25,8 +25,8 @@ public sealed partial class SortingLoop
         var commit = new PartCommit(
             Guid.NewGuid(), _session.Id, _batch.Id, measured, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
             acceptance.Readings[^1].Time,
-            Composition.CupAssignerFactory.IsSlots(_ctx.Cups) ? null : decision.CupLabel,
-            Composition.CupAssignerFactory.IsSlots(_ctx.Cups) ? decision.CupLabel : null,
+            decision.IsSlot ? null : decision.CupLabel,
+            decision.IsSlot ? decision.CupLabel : null,
             [.. _partReadings], PartState.Accepted);
         PartRecord stored;
         try

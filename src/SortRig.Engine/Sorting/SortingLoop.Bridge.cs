@@ -13,7 +13,7 @@ public sealed partial class SortingLoop
     // Meter faults reconnect and settle again; a part that does not settle is settled again after a word.
     private async Task<MeasuredValue> SettleBridgeAsync(RangeSpec range, double bridgeNominal, bool thermallySettled, CancellationToken ct)
     {
-        _activeRange = range.FullScale;
+        SetActiveRange(range.FullScale);
         await ApplySetupAsync(ct).ConfigureAwait(false);
         var nplc = _ctx.Plan.Decision.Nplc;
         var settle = _ctx.Plan.Settle;

@@ -1,4 +1,3 @@
-using Microsoft.Extensions.Logging;
 using SortRig.Engine.Announcing;
 using SortRig.Instruments.Drivers;
 using SortRig.Measurement.Readings;
@@ -7,16 +6,15 @@ namespace SortRig.Engine.Sorting;
 
 public sealed partial class SortingLoop
 {
-    private static readonly TimeSpan s_firstBackoff = TimeSpan.FromMilliseconds(250);
-    private static readonly TimeSpan s_lastBackoff = TimeSpan.FromSeconds(5);
+    private static readonly Backoff s_backoff = new(TimeSpan.FromMilliseconds(250), TimeSpan.FromSeconds(5));
 
     // One reading, or null after a fault was recovered from (the caller simply reads again).
     private async Task<Reading?> ReadAsync(CancellationToken ct)
     {
         try
         {
-            _meter ??= await ConnectAsync(ct).ConfigureAwait(false);
-            return await _meter.ReadAsync(ct).ConfigureAwait(false);
+            var meter = await _meter.GetAsync(ct).ConfigureAwait(false);
+            return await meter.ReadAsync(ct).ConfigureAwait(false);
         }
         catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
         {
@@ -32,52 +30,26 @@ public sealed partial class SortingLoop
         _faults++;
         Log.SortMeterFault(_ctx.Logger, fault.GetType().Name, fault.Message);
         await _ctx.Announcer.AnnounceAsync(Announcement.Info($"meter: {MeterFaults.Describe(fault)}; reconnecting"), ct).ConfigureAwait(false);
-        if (_meter is not null)
-        {
-            await _meter.DisposeAsync().ConfigureAwait(false);
-            _meter = null;
-        }
-
+        await _meter.DropAsync().ConfigureAwait(false);
         if (_tracker.State.IsBusy())
         {
             _tracker.Remeasure();
         }
 
-        NoteStreamBroken();
+        _fixture.NoteStreamBroken(_tracker.State); // the gap that follows is the fault's: excused, never a stall
 
-        _meter = await ConnectWithRetryAsync(ct).ConfigureAwait(false);
+        await ConnectWithRetryAsync(ct).ConfigureAwait(false);
     }
 
-    // Every failed attempt is told to the operator. A setup read-back that differs (or a model
-    // that does not match) may be a reply garbled on the way or a reset between the commands and
-    // the read-back, so it is tried again; only when it persists is it a configuration mistake
-    // that stops the session.
-    private async Task<IResistanceMeter> ConnectWithRetryAsync(CancellationToken ct)
-    {
-        var backoff = s_firstBackoff;
-        var mismatches = 0;
-        while (true)
+    // Every failed attempt is told to the operator; a setup read-back that keeps differing stops the session
+    // (ResilientMeter.ConnectWithRetryAsync).
+    private Task<IResistanceMeter> ConnectWithRetryAsync(CancellationToken ct) =>
+        _meter.ConnectWithRetryAsync(s_backoff, _ctx.Time, async (e, wait, c) =>
         {
-            ct.ThrowIfCancellationRequested();
-            try
-            {
-                return await ConnectAsync(ct).ConfigureAwait(false);
-            }
-            catch (Exception e) when (!ct.IsCancellationRequested && MeterFaults.IsRetryable(e, setupMayRetry: true))
-            {
-                mismatches = e is InstrumentSetupException ? mismatches + 1 : 0;
-                if (mismatches > MeterFaults.SetupRetries)
-                {
-                    throw;
-                }
-
-                _faults++;
-                Log.SortMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
-                await _ctx.Announcer.AnnounceAsync(
-                    Announcement.Info(FormattableString.Invariant($"meter: {MeterFaults.Describe(e)}; trying again in {backoff.TotalSeconds:0.##} s")), ct).ConfigureAwait(false);
-                await Task.Delay(backoff, _ctx.Time, ct).ConfigureAwait(false);
-                backoff = TimeSpan.FromTicks(Math.Min(s_lastBackoff.Ticks, backoff.Ticks * 2));
-            }
-        }
-    }
+            _faults++;
+            Log.SortMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
+            await _ctx.Announcer.AnnounceAsync(
+                Announcement.Info(FormattableString.Invariant($"meter: {MeterFaults.Describe(e)}; trying again in {wait.TotalSeconds:0.##} s")), c)
+                .ConfigureAwait(false);
+        }, ct);
 }

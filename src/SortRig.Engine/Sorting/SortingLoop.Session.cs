@@ -22,7 +22,7 @@ public sealed partial class SortingLoop
             _ctx.Plan.Nplc,
             Options.FourWire,
             _ctx.Plan.Meter.Family,
-            _meterIdentity);
+            _meter.Identity);
         _batch = state.CurrentBatch is { } current && SameBatch(current.Setup, setup)
             ? current
             : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
@@ -42,7 +42,7 @@ public sealed partial class SortingLoop
         _lastLive = parts.Where(p => p.IsLive).OrderBy(p => p.Number).LastOrDefault();
         _ctx.Snapshot.SetSession(new SessionView(
             _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
-            _meterIdentity, FormattableString.Invariant($"{_ctx.Plan.Range:G6} Ohm"), _ctx.Plan.Nplc, PlannedParts, false, false));
+            _meter.Identity, FormattableString.Invariant($"{_ctx.Plan.Range:G6} Ohm"), _ctx.Plan.Nplc, PlannedParts, false, false));
         PublishCounts();
 
         if (state.Resumed)

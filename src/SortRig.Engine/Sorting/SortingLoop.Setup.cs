@@ -5,10 +5,17 @@ namespace SortRig.Engine.Sorting;
 
 public sealed partial class SortingLoop
 {
-    // The range the meter is set to: the batch's, except while a bridging part is read on the low range.
+    // The range the meter is set to: the batch's (0), except while a bridging part is read on another range.
     private double _activeRange;
 
     private ResistanceSetup Setup => new(_activeRange > 0 ? _activeRange : _ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
+
+    // Every later (re)connection applies the new range too.
+    private void SetActiveRange(double range)
+    {
+        _activeRange = range;
+        _meter.Setup = Setup;
+    }
 
     // Applies the setup now (range change for a bridging part), with the read-back; a fault reconnects,
     // and reconnecting applies the same setup.
@@ -16,8 +23,8 @@ public sealed partial class SortingLoop
     {
         try
         {
-            _meter ??= await ConnectWithRetryAsync(ct).ConfigureAwait(false);
-            await _meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+            var meter = await ConnectWithRetryAsync(ct).ConfigureAwait(false);
+            await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
         }
         catch (Exception e) when (MeterFaults.IsRetryable(e, setupMayRetry: true) && !ct.IsCancellationRequested)
         {
@@ -25,43 +32,18 @@ public sealed partial class SortingLoop
         }
     }
 
-    // Opens, identifies (once per run: the batch records the instrument) and configures a meter.
-    private async Task<IResistanceMeter> ConnectAsync(CancellationToken ct)
-    {
-        var meter = await _ctx.ConnectAsync(ct).ConfigureAwait(false);
-        try
-        {
-            if (_meterIdentity.Length == 0)
-            {
-                _meterIdentity = (await meter.IdentifyAsync(ct).ConfigureAwait(false)).ToString();
-            }
-
-            await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
-            return meter;
-        }
-        catch
-        {
-            await meter.DisposeAsync().ConfigureAwait(false);
-            throw;
-        }
-    }
-
     private async Task<bool> VerifySetupAsync(CancellationToken ct)
     {
         try
         {
-            if (_meter is not null && await _meter.VerifySetupAsync(ct).ConfigureAwait(false))
+            if (await _meter.VerifyAsync(ct).ConfigureAwait(false))
             {
                 return true;
             }
 
             _faults++;
             await _ctx.Announcer.AnnounceAsync(Announcement.Info("meter lost its range/NPLC settings (reset?): re-applied, measuring again"), ct).ConfigureAwait(false);
-            if (_meter is not null)
-            {
-                await _meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
-            }
-
+            await _meter.ApplyAsync(ct).ConfigureAwait(false);
             return false;
         }
         catch (Exception e) when (MeterFaults.IsRetryable(e, setupMayRetry: true) && !ct.IsCancellationRequested)

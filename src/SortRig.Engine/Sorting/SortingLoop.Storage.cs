@@ -1,4 +1,5 @@
 using SortRig.Engine.Announcing;
+using SortRig.Engine.Durability;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.Sorting;
@@ -7,9 +8,9 @@ public sealed partial class SortingLoop
 {
     private static readonly TimeSpan s_storageRetry = TimeSpan.FromSeconds(2);
 
-    // A storage fault (read-only, locked, disk full, unreachable) pauses the loop: nothing else is
-    // measured or announced, the operator is told once in plain words, and the same idempotent
-    // write is retried until it goes through. Every write the loop makes goes through here.
+    // A storage fault an operator can clear (StorageFaultRule: read-only, locked, disk full, unreachable) pauses
+    // the loop: nothing else is measured or announced, the operator is told once in plain words, and the same
+    // idempotent write is retried until it goes through. Every write the loop makes goes through here.
     private async Task<T> DurablyAsync<T>(string what, Func<CancellationToken, Task<T>> write, CancellationToken ct)
     {
         var told = false;
@@ -26,7 +27,7 @@ public sealed partial class SortingLoop
 
                 return result;
             }
-            catch (StorageException e) when (!ct.IsCancellationRequested && IsStorageFault(e.Fault))
+            catch (StorageException e) when (!ct.IsCancellationRequested && StorageFaultRule.OperatorCanClear(e.Fault))
             {
                 _storageFaults++;
                 Log.SortStorageFault(_ctx.Logger, e.Operation, e.Fault.ToString(), e.Message);
@@ -35,7 +36,7 @@ public sealed partial class SortingLoop
                     told = true;
                     _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
                     await _ctx.Announcer.AnnounceAsync(
-                        Announcement.Info($"storage fault, {Plain(e.Fault)}: paused, nothing lost; {what} is not saved yet and the part stays in the fixture. Retrying every {s_storageRetry.TotalSeconds:0} s. {e.Message}"),
+                        Announcement.Info($"storage fault, {StorageFaultRule.Plain(e.Fault)}: paused, nothing lost; {what} is not saved yet and the part stays in the fixture. Retrying every {s_storageRetry.TotalSeconds:0} s. {e.Message}"),
                         ct).ConfigureAwait(false);
                 }
 
@@ -43,18 +44,4 @@ public sealed partial class SortingLoop
             }
         }
     }
-
-    // Faults a person can clear while the session waits; a constraint or a conflict is a bug or a
-    // misuse and must stop the session instead of looping.
-    private static bool IsStorageFault(StorageFault fault) =>
-        fault is StorageFault.ReadOnly or StorageFault.Locked or StorageFault.DiskFull or StorageFault.Unavailable or StorageFault.Other;
-
-    private static string Plain(StorageFault fault) => fault switch
-    {
-        StorageFault.ReadOnly => "the database cannot be written (read-only)",
-        StorageFault.Locked => "the database is locked by another program",
-        StorageFault.DiskFull => "the disk is full",
-        StorageFault.Unavailable => "the database cannot be reached",
-        _ => "the database could not write",
-    };
 }

@@ -96,7 +96,7 @@ public sealed partial class SortingLoop
         await SayAsync($"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out", ct).ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
-        _activeRange = 0; // the batch's own range from here on
+        SetActiveRange(0); // the batch's own range from here on
         if (!ontoLow)
         {
             await ApplySetupAsync(ct).ConfigureAwait(false); // the bridge was read on the high range last

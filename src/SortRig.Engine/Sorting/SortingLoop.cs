@@ -16,7 +16,8 @@ public sealed partial class SortingLoop
     private readonly SortContext _ctx;
     private readonly SettleTracker _tracker;
     private readonly List<Reading> _partReadings = [];
-    private IResistanceMeter? _meter;
+    private readonly ResilientMeter _meter;
+    private readonly FixtureWatch _fixture;
     private SessionInfo _session = null!;
     private BatchInfo _batch = null!;
     private int _partsRecorded;
@@ -26,13 +27,14 @@ public sealed partial class SortingLoop
     private bool _paused;
     private bool _finishRequested;
     private PartRecord? _lastLive;
-    private string _meterIdentity = "";
     private bool _lastLiveStillInFixture;
 
     public SortingLoop(SortContext context)
     {
         _ctx = context;
         _tracker = new SettleTracker(context.Plan.Decision.Range, context.Plan.Decision.Nplc, context.Plan.Settle);
+        _meter = new ResilientMeter(context.ConnectAsync, Setup, identify: true); // the batch records the instrument
+        _fixture = NewFixtureWatch(context.Plan);
     }
 
     private SortOptions Options => _ctx.Plan.Options;
@@ -43,7 +45,7 @@ public sealed partial class SortingLoop
         try
         {
             // Meet the meter first: the batch records which instrument measured it.
-            _meter = await ConnectWithRetryAsync(cancellationToken).ConfigureAwait(false);
+            await ConnectWithRetryAsync(cancellationToken).ConfigureAwait(false);
             await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
             await AnnounceReadyAsync(cancellationToken).ConfigureAwait(false);
             while (!cancellationToken.IsCancellationRequested && !Done)
@@ -76,10 +78,7 @@ public sealed partial class SortingLoop
         }
         finally
         {
-            if (_meter is not null)
-            {
-                await _meter.DisposeAsync().ConfigureAwait(false);
-            }
+            await _meter.DisposeAsync().ConfigureAwait(false);
         }
 
         var live = _ctx.Snapshot.Parts().Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
@@ -92,8 +91,7 @@ public sealed partial class SortingLoop
 
     private async Task OnReadingAsync(Reading reading, CancellationToken ct)
     {
-        await DetectStallAsync(reading, ct).ConfigureAwait(false);
-        await DetectSwapAsync(reading, ct).ConfigureAwait(false);
+        await WatchFixtureAsync(reading, ct).ConfigureAwait(false);
         var before = _tracker.State;
         if (before is SettleState.Empty && reading.IsFinite)
         {
@@ -112,11 +110,11 @@ public sealed partial class SortingLoop
         switch (verdict.State)
         {
             case SettleState.Accepted:
-                NoteDecided(verdict.Acceptance!.Value.Value);
+                _fixture.NoteDecided(verdict.Acceptance!.Value.Value);
                 await AcceptAsync(verdict.Acceptance!, ct).ConfigureAwait(false);
                 break;
             case SettleState.Unstable:
-                NoteDecided(_partReadings.Where(r => r.IsFinite).Select(r => r.Value).DefaultIfEmpty(double.NaN).Average());
+                _fixture.NoteDecided(_partReadings.Where(r => r.IsFinite).Select(r => r.Value).DefaultIfEmpty(double.NaN).Average());
                 await RecordUnstableAsync(verdict.Failure!, ct).ConfigureAwait(false);
                 break;
             case SettleState.Removed:

@@ -21,7 +21,7 @@ internal static class LibraryDrift
 
     /// <summary>Each part's latest run with samples (by run start, then run id); parts never logged are absent.
     /// Reads each run needed once, keeping only the channels of the given parts.</summary>
-    public static async Task<IReadOnlyDictionary<long, PartDrift>> LatestAsync(IPrecisionLog log, IReadOnlyList<PartRecord> parts, CancellationToken cancellationToken)
+    public static async Task<IReadOnlyDictionary<long, PartDrift>> LatestAsync(IDriftLog log, IReadOnlyList<PartRecord> parts, CancellationToken cancellationToken)
     {
         var wanted = parts.Select(p => p.Id).ToHashSet();
         if (wanted.Count == 0)

@@ -9,7 +9,7 @@ namespace SortRig.Host.PlanVerb;
 internal static class SessionLookup
 {
     /// <exception cref="VerbException">No session has that name or id; the message lists the newest sessions.</exception>
-    public static async Task<SessionInfo> FindAsync(IPrecisionLog log, string nameOrId, CancellationToken cancellationToken)
+    public static async Task<SessionInfo> FindAsync(ISessionReader log, string nameOrId, CancellationToken cancellationToken)
     {
         var sessions = await log.ListSessionsAsync(cancellationToken).ConfigureAwait(false);
         var byName = sessions.FirstOrDefault(s => s.Name == nameOrId);

@@ -1,8 +1,8 @@
 using System.Globalization;
 using SortRig.Engine.DriftLogging;
+using SortRig.Planning.Cups;
 using SortRig.Reporting.Reports;
 using SortRig.Storage.Contracts;
-using SortRig.Planning.Cups;
 
 namespace SortRig.Host.ReportVerb;
 
@@ -47,7 +47,7 @@ internal static class ReportInputBuilder
         return (new ReportInput("SortRig report: " + string.Join(", ", titles), parts, reels, drift), notes);
     }
 
-    private static async Task<SessionInfo> FindSessionAsync(IPrecisionLog log, string nameOrId, CancellationToken ct)
+    private static async Task<SessionInfo> FindSessionAsync(ISessionReader log, string nameOrId, CancellationToken ct)
     {
         var sessions = await log.ListSessionsAsync(ct).ConfigureAwait(false);
         var byId = long.TryParse(nameOrId, NumberStyles.None, CultureInfo.InvariantCulture, out var id) ? sessions.FirstOrDefault(s => s.Id == id) : null;

@@ -14,7 +14,14 @@ public sealed record CupRequest(long PartNumber, double Nominal, MeasuredValue V
 /// <param name="IsReject">True for the reject cup.</param>
 /// <param name="Reason">Why, in words (band limits, or why rejected).</param>
 /// <param name="CompletesSet">True when this part makes the cup hold a whole number of sets' worth of this nominal.</param>
-public sealed record CupDecision(string CupLabel, int CupIndex, bool IsReject, string Reason, bool CompletesSet);
+public sealed record CupDecision(string CupLabel, int CupIndex, bool IsReject, string Reason, bool CompletesSet)
+{
+    /// <summary>
+    /// True when <see cref="CupLabel"/> names a tray slot (the slot assigner's decisions, its reject bin included): the
+    /// log keeps it as the part's slot. False (the default) for a shared cup, kept as the part's cup.
+    /// </summary>
+    public bool IsSlot { get; init; }
+}
 
 /// <summary>How many parts one cup holds.</summary>
 /// <param name="Nominal">Nominal of the parts, ohms (0 for the reject cup of a multi-nominal planner).</param>

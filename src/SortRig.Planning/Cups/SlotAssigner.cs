@@ -25,20 +25,20 @@ public sealed class SlotAssigner(SlotOptions options) : ICupAssigner
         if (options.Nominals is { } wanted && !wanted.Any(n => Math.Abs(n - request.Nominal) <= n * 1e-4))
         {
             _ledger.Add(request, 0, CupLabels.Reject);
-            return new CupDecision(CupLabels.Reject, options.Capacity, true, "nominal not wanted in the trays", false);
+            return new CupDecision(CupLabels.Reject, options.Capacity, true, "nominal not wanted in the trays", false) { IsSlot = true };
         }
 
         if (_free.Count == 0)
         {
             _ledger.Add(request, 0, CupLabels.Reject);
-            return new CupDecision(CupLabels.Reject, options.Capacity, true, "every slot is full", false);
+            return new CupDecision(CupLabels.Reject, options.Capacity, true, "every slot is full", false) { IsSlot = true };
         }
 
         var slot = _free.Min;
         _free.Remove(slot);
         var label = options.Label(slot);
         _ledger.Add(request, request.Nominal, label);
-        return new CupDecision(label, slot, false, "own slot", false);
+        return new CupDecision(label, slot, false, "own slot", false) { IsSlot = true };
     }
 
     /// <inheritdoc />

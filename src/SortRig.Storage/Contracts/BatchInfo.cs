@@ -13,7 +13,7 @@ public sealed record BatchInfo(
     BatchSetup Setup,
     RangeTransferCorrection? RangeTransfer);
 
-/// <summary>The measurement setup of a batch. Checked by <see cref="IPrecisionLog.StartBatchAsync"/>.</summary>
+/// <summary>The measurement setup of a batch. Checked by <see cref="ISessionLog.StartBatchAsync"/>.</summary>
 /// <param name="Nominal">Nominal value, ohms, &gt; 0.</param>
 /// <param name="StockTolerancePpm">Tolerance printed on the parts, ppm of nominal, &gt; 0 (1 % = 10 000 ppm).</param>
 /// <param name="MatchTolerancePpm">Matching tolerance wanted, ppm, &gt; 0 (0.1 % = 1 000 ppm).</param>

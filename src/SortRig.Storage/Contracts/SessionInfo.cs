@@ -6,7 +6,7 @@ namespace SortRig.Storage.Contracts;
 /// <param name="Operator">Who runs the bench; null when not given.</param>
 /// <param name="Notes">Free text; null when not given.</param>
 /// <param name="StartedAt">When the session was created (UTC, microsecond resolution).</param>
-/// <param name="FinishedAt">When <see cref="IPrecisionLog.FinishSessionAsync"/> was called; null while open.</param>
+/// <param name="FinishedAt">When <see cref="ISessionLog.FinishSessionAsync"/> was called; null while open.</param>
 public sealed record SessionInfo(
     long Id,
     string Name,

@@ -20,6 +20,16 @@ public sealed class CupAssignerContractTests
 
     [Theory]
     [MemberData(nameof(Kinds))]
+    public void EveryDecision_SaysWhetherItNamesASlotOrACup(string kind)
+    {
+        // Slot assigners name tray places (their reject bin included); band and adaptive assigners name shared cups.
+        var a = Make(kind);
+        var decisions = Enumerable.Range(1, 60).Select(n => a.Assign(Part(n, 10e3, ((n % 11) * 300) - 1500))).ToList();
+        Assert.All(decisions, d => Assert.Equal(kind == "slot", d.IsSlot));
+    }
+
+    [Theory]
+    [MemberData(nameof(Kinds))]
     public void RandomAssignUndoAndDuplicates_NeverPlaceAPartTwice(string kind)
     {
         var a = Make(kind);

@@ -1,5 +1,5 @@
-using SortRig.Planning.Cups;
 using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
+using SortRig.Planning.Cups;
 
 namespace SortRig.Planning.Tests.Cups;
 
@@ -24,6 +24,7 @@ public sealed class SlotAssignerTests
 
         var full = a.Assign(Part(4, 10e3, 0));
         Assert.True(full.IsReject);
+        Assert.True(full.IsSlot); // the trays' reject bin is kept in the slot column too
         Assert.Equal(3, full.CupIndex);
         a.Undo(2);
         Assert.Equal("T1-A02", a.Assign(Part(5, 10e3, 0)).CupLabel);
