@@ -13,21 +13,6 @@ using SortRig.Storage;
 
 namespace SortRig.Engine.Composition;
 
-/// <summary>Shared services of one sorting run, owned by whoever hosts it (the sort verb or a test).</summary>
-/// <param name="Time">The clock; for the embedded simulator the same scaled clock drives both sides.</param>
-/// <param name="Hub">Event stream.</param>
-/// <param name="Snapshot">State for the page and API.</param>
-/// <param name="Commands">Operator actions.</param>
-/// <param name="Announcer">Where announcements go besides the event stream.</param>
-/// <param name="Loggers">Logging.</param>
-public sealed record SortServices(
-    TimeProvider Time,
-    BenchEventHub Hub,
-    BenchSnapshot Snapshot,
-    OperatorCommands Commands,
-    IAnnouncer Announcer,
-    ILoggerFactory Loggers);
-
 /// <summary>
 /// Assembles and runs a sorting session: the embedded simulator when no resource is given, the
 /// meter profile, the range plan, the precision log and the cup assigner.

@@ -5,9 +5,6 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.DriftLogging;
 
-/// <summary>One item for the storage loop: a sample or a gap (exactly one is set).</summary>
-internal readonly record struct DriftWrite(StoredDriftSample Sample, DriftGap? Gap);
-
 /// <summary>
 /// The single reader of the logger's bounded channel: appends samples to the log in batches of at most
 /// BatchSize (one transaction each, fewer when it keeps up), writes gaps in order, and retries a

@@ -1,30 +1,5 @@
 namespace SortRig.Engine.Sorting;
 
-/// <summary>One part as the page and the JSON API show it.</summary>
-public sealed record PartView(
-    long Number,
-    double Nominal,
-    double? Ohms,
-    double? DeviationPpm,
-    double? ExpandedUncertainty,
-    string? Cup,
-    string State,
-    DateTimeOffset Time);
-
-/// <summary>The session as the page and the JSON API show it.</summary>
-public sealed record SessionView(
-    string Name,
-    long SessionId,
-    double Nominal,
-    double StockTolerance,
-    double MatchTolerance,
-    string Meter,
-    string Range,
-    double Nplc,
-    int PartsPlanned,
-    bool Paused,
-    bool Finished);
-
 /// <summary>
 /// The current state of the bench, kept by the sorting loop for readers (web API, live view).
 /// Thread-safe; readers get immutable copies. The precision log stays the durable record.

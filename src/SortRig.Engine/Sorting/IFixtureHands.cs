@@ -24,30 +24,3 @@ public interface IFixtureHands
     /// <summary>The operator was asked to take the bridging part out.</summary>
     void RemoveBridgingPart();
 }
-
-/// <summary>A person at the bench: nothing to do.</summary>
-public sealed class HumanHands : IFixtureHands
-{
-    /// <inheritdoc />
-    public void PartAnnounced()
-    {
-    }
-
-    /// <inheritdoc />
-    public void ResumeAt(int partsRecorded)
-    {
-    }
-
-    /// <inheritdoc />
-    public void Ready()
-    {
-    }
-
-    /// <inheritdoc />
-    public Task PlaceBridgingPartAsync(double nominal, CancellationToken ct) => Task.CompletedTask;
-
-    /// <inheritdoc />
-    public void RemoveBridgingPart()
-    {
-    }
-}

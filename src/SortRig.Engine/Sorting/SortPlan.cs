@@ -83,11 +83,3 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         _ => r.Kind.ToString(),
     };
 }
-
-/// <summary>The batch cannot be measured as asked; <see cref="Remedies"/> says what would work.</summary>
-public sealed class SortPlanException(string message, IReadOnlyList<string> remedies)
-    : Exception(remedies.Count == 0 ? message : message + " Remedies: " + string.Join("; ", remedies) + ".")
-{
-    /// <summary>Concrete changes that would make the batch measurable.</summary>
-    public IReadOnlyList<string> Remedies { get; } = remedies;
-}

@@ -138,9 +138,3 @@ public sealed partial class SortingLoop
             Text: text));
     }
 }
-
-internal static class SettleStateExtensions
-{
-    /// <summary>True while a part is in the fixture and not yet decided.</summary>
-    public static bool IsBusy(this SettleState state) => state is SettleState.Bouncing or SettleState.Settling;
-}

@@ -30,31 +30,3 @@ internal static class PlanCommand
         return command;
     }
 }
-
-/// <summary>Options shared by the plan and library verbs.</summary>
-internal static class CliOptions
-{
-    public static Option<string> Database() => new("--db")
-    {
-        Description = "SQLite file or PostgreSQL connection string (\"Host=...;Database=...\"); default SORTRIG_Sort__Database or sortrig.db",
-        DefaultValueFactory = _ => VerbGuard.DefaultDatabase(),
-    };
-
-    public static Option<string> Recipe() => new("--recipe") { Description = "Recipe file, or a name under recipes/ (e.g. matched-quad)", Required = true };
-
-    public static Option<string> Pick() => new("--pick")
-    {
-        Description = "auto (default): by cup when every part sits in a cup and the recipe is matched; parts: by id; cups: by cup and count",
-        DefaultValueFactory = _ => "auto",
-    };
-
-    public static Option<string> Ids() => new("--ids") { Description = "Part ids, e.g. 3,4,9 or 12-15", Required = true };
-
-    public static PickMode ParsePick(string? text) => (text ?? "auto").Trim().ToLowerInvariant() switch
-    {
-        "auto" => PickMode.Auto,
-        "parts" or "part" => PickMode.Parts,
-        "cups" or "cup" => PickMode.Cups,
-        _ => throw new VerbException($"--pick: '{text}' is not auto, parts or cups"),
-    };
-}

@@ -5,29 +5,6 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.LibraryVerb;
 
-/// <summary>A library status change the verbs offer.</summary>
-internal enum LibraryMove
-{
-    /// <summary>Available to Taken (by someone).</summary>
-    Take,
-
-    /// <summary>Taken back to Available.</summary>
-    Release,
-
-    /// <summary>Taken to Used (fitted into a build).</summary>
-    Use,
-
-    /// <summary>Anything but Retired to Retired.</summary>
-    Retire,
-}
-
-/// <summary>A take, release, used or retire request.</summary>
-/// <param name="Database">SQLite path or PostgreSQL connection string.</param>
-/// <param name="Move">The change.</param>
-/// <param name="Ids">Part ids; all change or none.</param>
-/// <param name="Note">Take: who takes (required). Use: the build (optional). Retire: the reason (required).</param>
-internal sealed record MoveRequest(string Database, LibraryMove Move, IReadOnlyList<long> Ids, string? Note);
-
 /// <summary>The take, release, used and retire verbs: one all-or-none change through <see cref="IPrecisionLog"/>.</summary>
 internal static class LibraryMoves
 {

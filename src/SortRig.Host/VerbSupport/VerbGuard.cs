@@ -6,22 +6,6 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.VerbSupport;
 
-/// <summary>Exit codes of the plan and library verbs.</summary>
-internal static class VerbExit
-{
-    /// <summary>Done.</summary>
-    public const int Ok = 0;
-
-    /// <summary>The library refused an all-or-none change; nothing was changed and the ids are named.</summary>
-    public const int Refused = 1;
-
-    /// <summary>Bad input: unknown ids or session, bad option, unreadable recipe, database or output file.</summary>
-    public const int BadInput = 2;
-}
-
-/// <summary>Bad input a verb detected itself (unknown session or ids, malformed option); the message says what and where.</summary>
-internal sealed class VerbException(string message) : Exception(message);
-
 /// <summary>Runs a verb body, turning the errors a user can cause into one red line and exit code 2.</summary>
 internal static class VerbGuard
 {

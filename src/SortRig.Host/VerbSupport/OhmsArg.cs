@@ -20,17 +20,3 @@ internal static class OhmsArg
             : throw new VerbException($"{option}: '{text}' is not a resistance in ohms > 0 (e.g. 10000, 10k, 4.99k, 1M)");
     }
 }
-
-/// <summary>Parses a library status option: available, taken, used, retired or any (null).</summary>
-internal static class StatusArg
-{
-    public static LibraryStatus? Parse(string? text) => (text ?? "available").Trim().ToLowerInvariant() switch
-    {
-        "available" => LibraryStatus.Available,
-        "taken" => LibraryStatus.Taken,
-        "used" => LibraryStatus.Used,
-        "retired" => LibraryStatus.Retired,
-        "any" or "all" => null,
-        _ => throw new VerbException($"--status: '{text}' is not one of available, taken, used, retired, any"),
-    };
-}
