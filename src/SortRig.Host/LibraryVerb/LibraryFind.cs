@@ -4,6 +4,7 @@ using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
 using SortRig.Storage.Contracts;
+using SortRig.Measurement.Uncertainty;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -42,7 +43,7 @@ internal static class LibraryFind
 
         foreach (var p in parts)
         {
-            var (value, u) = Format.WithUncertainty(p.Value, p.Measured.Expanded);
+            var (value, u) = UncertaintyRounding.Round(p.Value, p.Measured.Expanded);
             var k = p.Measured.CoverageFactor == 2 ? "" : " (k=" + p.Measured.CoverageFactor.ToString("0.##", CultureInfo.InvariantCulture) + ")";
             table.AddRow(
                 p.Id.ToString(CultureInfo.InvariantCulture), Markup.Escape(OhmsText.Nominal(p.Nominal)), value, u + k, Format.Ppm(p.DeviationPpm),

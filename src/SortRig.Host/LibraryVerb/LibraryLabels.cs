@@ -5,6 +5,7 @@ using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
 using SortRig.Storage.Contracts;
+using SortRig.Measurement.Uncertainty;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -95,7 +96,7 @@ internal static class LibraryLabels
         w.EndRecord();
         foreach (var p in parts)
         {
-            var (value, u) = Format.WithUncertainty(p.Value, p.Measured.Expanded);
+            var (value, u) = UncertaintyRounding.Round(p.Value, p.Measured.Expanded);
             string[] fields =
             [
                 p.Id.ToString(CultureInfo.InvariantCulture), R(p.Nominal), R(p.Value), R(p.Measured.Expanded), R(p.Measured.CoverageFactor),

@@ -3,6 +3,7 @@ using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
 using SortRig.Storage.Contracts;
+using SortRig.Measurement.Uncertainty;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -27,7 +28,7 @@ internal static class PartLabel
 
     public static IReadOnlyList<string> Render(PartRecord part, bool qualify)
     {
-        var (value, u) = Format.WithUncertainty(part.Value, part.Measured.Expanded);
+        var (value, u) = UncertaintyRounding.Round(part.Value, part.Measured.Expanded);
         var k = part.Measured.CoverageFactor.ToString("0.##", CultureInfo.InvariantCulture);
         var temperature = part.Temperature is { } t ? "at " + Format.Celsius(t) + " degC" : "";
         return
