@@ -17,6 +17,9 @@ internal static class Program
             DriftCommand.Create(),
             ReportCommand.Create(),
         };
-        return await root.Parse(args).InvokeAsync().ConfigureAwait(false);
+        var parse = root.Parse(args);
+        return ParseErrors.Report(parse, Console.Error)
+            ? ParseErrors.BadInput
+            : await parse.InvokeAsync().ConfigureAwait(false);
     }
 }
