@@ -40,7 +40,7 @@ internal static class ReportRunner
                 new ReelHistogramInput(nominal.NominalOhms, values, reel?.TolerancePercent, reel?.CupEdgesPpm ?? []), options.PlotSize).Data;
             var name = Path.ChangeExtension(nominal.HistogramFile, null) + "_bins.csv";
             var rows = data.Counts.Select((c, i) => new HistogramBinCsvRow(nominal.NominalOhms, data.BinEdgesPpm[i], data.BinEdgesPpm[i + 1], c));
-            var writer = CsvWriter.ToFile(Path.Combine(manifest.Folder, name), CsvWriterOptions.Default, FileOptions.Asynchronous);
+            var writer = CsvWriter.ToFile(Path.Combine(manifest.Folder, name), SpreadsheetCsv.Options, FileOptions.Asynchronous);
             await using (writer.ConfigureAwait(false))
             {
                 await writer.WriteRecordsAsync(rows, ct).ConfigureAwait(false);
