@@ -3,6 +3,8 @@ using SortRig.Reporting.Plots;
 using SortRig.Reporting.Reports;
 using SortRig.Storage;
 
+using SortRig.Host.VerbSupport;
+
 namespace SortRig.Host.ReportVerb;
 
 /// <summary>One histogram bin as written beside each histogram PNG (the counts drawn in it).</summary>
@@ -27,6 +29,7 @@ internal static class ReportRunner
         ArgumentNullException.ThrowIfNull(request);
         request.Validate();
         options ??= new ReportOptions();
+        VerbGuard.RequireExisting(request.Database);
         await using var log = await PrecisionLogFactory.OpenAsync(request.Database, new PrecisionLogOptions { TimeProvider = time }, ct).ConfigureAwait(false);
         var (input, notes) = await ReportInputBuilder.BuildAsync(log, request, ct).ConfigureAwait(false);
         var manifest = await new ReportWriter(time, options).WriteAsync(request.Output, input, ct).ConfigureAwait(false);
