@@ -46,6 +46,11 @@ internal static class SortInputCheck
             return (null, Describe(results[0], options, flags));
         }
 
+        if (VerbSupport.TextArg.Problem(options.Session, Name(nameof(SortOptions.Session), flags)) is { } badName)
+        {
+            return (null, badName);
+        }
+
         if (!string.IsNullOrWhiteSpace(options.Resource))
         {
             try
