@@ -7,6 +7,18 @@ internal static class Program
 {
     public static async Task<int> Main(string[] args)
     {
+        var parse = Parse(args);
+        return ParseErrors.Report(parse, Console.Error)
+            ? ParseErrors.BadInput
+            : await parse.InvokeAsync().ConfigureAwait(false);
+    }
+
+    /// <summary>
+    /// Parses the command line. An argument starting with '@' is a value like any other ("--at @bag 7"),
+    /// never a file of arguments to read.
+    /// </summary>
+    public static ParseResult Parse(IReadOnlyList<string> args)
+    {
         var root = new RootCommand("SortRig: sorts and matches resistors at the bench through a SCPI multimeter.")
         {
             SortCommand.Create(),
@@ -17,6 +29,6 @@ internal static class Program
             DriftCommand.Create(),
             ReportCommand.Create(),
         };
-        return await root.Parse(args).InvokeAsync().ConfigureAwait(false);
+        return root.Parse(args, new ParserConfiguration { ResponseFileTokenReplacer = null });
     }
 }

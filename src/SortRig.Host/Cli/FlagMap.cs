@@ -18,6 +18,10 @@ internal sealed class FlagMap
         return option;
     }
 
+    /// <summary>The flag that sets a configuration key ("--match" for "Sort:MatchTolerance"), or null.</summary>
+    public string? FlagFor(string key) =>
+        _entries.FirstOrDefault(e => string.Equals(e.Key, key, StringComparison.OrdinalIgnoreCase)).Option?.Name;
+
     /// <summary>Configuration overrides for the flags actually given.</summary>
     public Dictionary<string, string?> Overrides(ParseResult result)
     {

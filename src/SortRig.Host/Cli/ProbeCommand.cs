@@ -3,6 +3,7 @@ using Spectre.Console;
 using SortRig.Engine.Composition;
 using SortRig.Instruments;
 using SortRig.Instruments.Drivers;
+using SortRig.Instruments.Scpi;
 using SortRig.Instruments.Transports;
 
 namespace SortRig.Host.Cli;
@@ -30,7 +31,7 @@ internal static class ProbeCommand
             await using var session = await connector.OpenSessionAsync(resource, profile, ct).ConfigureAwait(false);
             var report = await new ProfileCheck().RunAsync(session, profile, ct).ConfigureAwait(false);
             var table = new Table().Border(TableBorder.Rounded)
-                .Title($"{Markup.Escape(report.Family)} at {Markup.Escape(report.Endpoint)}");
+                .Title($"{Shown(report.Family)} at {Shown(report.Endpoint)}");
             table.AddColumn("check");
             table.AddColumn("outcome");
             table.AddColumn("detail");
@@ -42,7 +43,7 @@ internal static class ProbeCommand
                     CheckOutcome.Fail => "red",
                     _ => "yellow",
                 };
-                table.AddRow(Markup.Escape(row.Check), $"[{colour}]{row.Outcome}[/]", Markup.Escape(row.Detail));
+                table.AddRow(Shown(row.Check), $"[{colour}]{row.Outcome}[/]", Shown(row.Detail));
             }
 
             console.Write(table);
@@ -51,8 +52,11 @@ internal static class ProbeCommand
         }
         catch (Exception e) when (e is InstrumentException or FileNotFoundException)
         {
-            console.MarkupLine($"[red]probe failed:[/] {Markup.Escape(e.Message)}");
+            console.MarkupLine($"[red]probe failed:[/] {Shown(e.Message)}");
             return 2;
         }
     }
+
+    // Meter replies may carry control characters that a terminal would obey; show them as \xNN.
+    private static string Shown(string text) => Markup.Escape(ReplyText.Printable(text));
 }

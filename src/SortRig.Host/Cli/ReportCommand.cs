@@ -4,6 +4,8 @@ using Spectre.Console;
 using SortRig.Host.ReportVerb;
 using SortRig.Storage.Contracts;
 
+using SortRig.Host.VerbSupport;
+
 namespace SortRig.Host.Cli;
 
 /// <summary>The report verb: a folder of plots (PNG), CSV files and a markdown summary from the precision log.</summary>
@@ -40,6 +42,11 @@ internal static class ReportCommand
         catch (ArgumentException e)
         {
             console.MarkupLine($"[red]report:[/] {Markup.Escape(e.Message.Split(" (Parameter", 2)[0])}");
+            return 2;
+        }
+        catch (VerbException e)
+        {
+            console.MarkupLine($"[red]report:[/] {Markup.Escape(e.Message)}");
             return 2;
         }
         catch (StorageException e)

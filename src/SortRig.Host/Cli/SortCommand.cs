@@ -24,9 +24,9 @@ internal static class SortCommand
         map.Add(command, new Option<string>("--profile") { Description = "Meter profile name under instruments/ or a YAML file (default simulator)" }, "Sort:Profile");
         map.Add(command, new Option<string>("--db") { Description = "SQLite file or PostgreSQL connection string (default sortrig.db)" }, "Sort:Database");
         map.Add(command, new Option<string>("--session") { Description = "Session name; the same name resumes an unfinished session (default bench)" }, "Sort:Session");
-        map.Add(command, new Option<double>("--nominal") { Description = "Nominal value in ohms (default 10000)" }, "Sort:Nominal");
-        map.Add(command, new Option<double>("--tolerance") { Description = "Stock tolerance as a fraction, 0.01 = 1 % (default 0.01)" }, "Sort:StockTolerance");
-        map.Add(command, new Option<double>("--match") { Description = "Match tolerance as a fraction, 0.001 = 0.1 % (default 0.001)" }, "Sort:MatchTolerance");
+        map.Add(command, new Option<double>("--nominal") { Description = "Nominal value in ohms: 10000, 10k, 4.99k, 1M (default 10k)", CustomParser = TradeValueParser.Ohms }, "Sort:Nominal");
+        map.Add(command, new Option<double>("--tolerance") { Description = "Stock tolerance: 0.01, 1% or 10000ppm (default 1%)", CustomParser = TradeValueParser.Fraction }, "Sort:StockTolerance");
+        map.Add(command, new Option<double>("--match") { Description = "Match tolerance: 0.001, 0.1% or 1000ppm (default 0.1%)", CustomParser = TradeValueParser.Fraction }, "Sort:MatchTolerance");
         map.Add(command, new Option<int>("--cups") { Description = "Cups besides the reject cup (default 12)" }, "Sort:Cups");
         map.Add(command, new Option<string>("--assigner") { Description = "bands (default), adaptive (edges learned from the reel) or slots (numbered tray slots)" }, "Sort:Assigner");
         map.Add(command, new Option<double>("--nplc") { Description = "Integration time in power-line cycles (default 1)" }, "Sort:Nplc");
@@ -41,11 +41,16 @@ internal static class SortCommand
         map.Add(command, new Option<bool>("--web") { Description = "Serve the bench page (default http://127.0.0.1:5080)" }, "Web:Enabled");
         map.Add(command, new Option<bool>("--stay") { Description = "Keep serving the page after the session ends, until Ctrl+C" }, "Sort:StayAfterFinish");
         map.Add(command, new Option<string>("--web-urls") { Description = "Where the page listens; non-loopback needs SORTRIG_Web__Token" }, "Web:Urls");
-        command.SetAction((result, ct) => RunAsync(map.Overrides(result), ct));
+        command.SetAction((result, ct) => RunAsync(map.Overrides(result), map, ct));
         return command;
     }
 
-    public static async Task<int> RunAsync(Dictionary<string, string?> flags, CancellationToken ct)
+    public static Task<int> RunAsync(Dictionary<string, string?> flags, CancellationToken ct) => RunAsync(flags, null, ct);
+
+    /// <param name="flags">Configuration overrides from the flags given.</param>
+    /// <param name="names">The flags' names, so a bad value is reported as the user typed it.</param>
+    /// <param name="ct">Stops the session (Ctrl+C).</param>
+    public static async Task<int> RunAsync(Dictionary<string, string?> flags, FlagMap? names, CancellationToken ct)
     {
         // --plain and --no-speech are negative flags: turn them into the options they negate.
         if (flags.Remove("Sort:Live", out var plain) && plain == "True")
@@ -62,10 +67,11 @@ internal static class SortCommand
         var builder = HostSetup.CreateBuilder(flags, quietConsole: live);
         builder.Services.AddOptions<SortOptions>().Bind(builder.Configuration.GetSection(SortOptions.Section))
             .ValidateDataAnnotations().ValidateOnStart();
-        var sort = builder.Configuration.GetSection(SortOptions.Section).Get<SortOptions>() ?? new SortOptions();
-        if (sort.Speed != 1 && !string.IsNullOrEmpty(sort.Resource))
+        var (sort, problem) = SortInputCheck.Bind(builder.Configuration, names);
+        if (sort is null)
         {
-            throw new InvalidOperationException("--speed applies to the simulator only; a real meter runs in real time.");
+            await Console.Error.WriteLineAsync($"error: {problem}").ConfigureAwait(false);
+            return ParseErrors.BadInput;
         }
 
         TimeProvider time = sort.Speed == 1 ? TimeProvider.System : new ScaledTimeProvider(sort.Speed);

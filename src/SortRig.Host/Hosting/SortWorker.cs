@@ -1,3 +1,4 @@
+using System.Globalization;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
@@ -25,7 +26,7 @@ internal sealed class SortWorker(
     ILoggerFactory loggers,
     IHostApplicationLifetime lifetime) : BackgroundService
 {
-    /// <summary>0 finished, 1 failed, 2 the batch cannot be measured as asked.</summary>
+    /// <summary>0 finished, 1 failed, 2 the batch cannot be measured as asked, 130 stopped by Ctrl+C (resumable).</summary>
     public int ExitCode { get; private set; }
 
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
@@ -60,7 +61,15 @@ internal sealed class SortWorker(
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
         {
-            // Ctrl+C or SIGTERM: everything accepted is already committed.
+            // Ctrl+C or SIGTERM: everything announced is already committed; the part in the fixture is measured again.
+            ExitCode = ResumeHint.Interrupted;
+            await StopViewAsync(viewStop, view).ConfigureAwait(false);
+            var recorded = snapshot.Parts().Count(p => p.State is "Accepted" or "Announced");
+            // Plain lines, never wrapped: the resume command must survive a copy and paste.
+            await Console.Out.WriteLineAsync(string.Create(CultureInfo.InvariantCulture,
+                $"stopped: session '{sort.Session}' keeps its {recorded} logged part(s); a part still in the fixture was not recorded and is measured again.")).ConfigureAwait(false);
+            await Console.Out.WriteLineAsync(
+                $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}").ConfigureAwait(false);
         }
         catch (Exception e)
         {
@@ -70,7 +79,11 @@ internal sealed class SortWorker(
         }
         finally
         {
-            await viewStop.CancelAsync().ConfigureAwait(false);
+            await StopViewAsync(viewStop, view).ConfigureAwait(false);
+            if (live)
+            {
+                AnsiConsole.Cursor.Show(); // the live view hides it; never leave the terminal without one
+            }
         }
 
         if (sort.StayAfterFinish && ExitCode == 0)
@@ -80,5 +93,18 @@ internal sealed class SortWorker(
         }
 
         lifetime.StopApplication();
+    }
+
+    private static async Task StopViewAsync(CancellationTokenSource viewStop, Task view)
+    {
+        await viewStop.CancelAsync().ConfigureAwait(false);
+        try
+        {
+            await view.ConfigureAwait(false);
+        }
+        catch (OperationCanceledException)
+        {
+            // The view ends on cancellation; nothing to report.
+        }
     }
 }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using CsvHelper;
+using SortRig.Reporting.Reports;
 using Spectre.Console;
 using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
@@ -52,7 +53,7 @@ internal static class LibraryExport
 
     public static void Write(TextWriter writer, IReadOnlyList<PartRecord> parts, IReadOnlyDictionary<long, string> sessions, IReadOnlyDictionary<long, PartDrift> drift)
     {
-        using var csv = CsvWriter.Create(writer, null, leaveOpen: true);
+        using var csv = CsvWriter.Create(writer, SpreadsheetCsv.Options, leaveOpen: true);
         foreach (var c in Columns)
         {
             csv.WriteField(c);
@@ -72,7 +73,7 @@ internal static class LibraryExport
             ];
             foreach (var f in fields)
             {
-                csv.WriteField(f);
+                SpreadsheetCsv.WriteCell(csv, f);
             }
 
             csv.EndRecord();

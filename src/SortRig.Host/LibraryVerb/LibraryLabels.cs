@@ -1,5 +1,6 @@
 using System.Globalization;
 using CsvHelper;
+using SortRig.Reporting.Reports;
 using Spectre.Console;
 using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
@@ -87,7 +88,7 @@ internal static class LibraryLabels
             return;
         }
 
-        using var w = CsvWriter.Create(writer, null, leaveOpen: true);
+        using var w = CsvWriter.Create(writer, SpreadsheetCsv.Options, leaveOpen: true);
         foreach (var c in Columns)
         {
             w.WriteField(c);
@@ -105,7 +106,7 @@ internal static class LibraryLabels
             ];
             foreach (var f in fields)
             {
-                w.WriteField(f);
+                SpreadsheetCsv.WriteCell(w, f);
             }
 
             w.EndRecord();

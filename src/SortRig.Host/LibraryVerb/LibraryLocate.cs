@@ -14,6 +14,7 @@ internal static class LibraryLocate
     public static Task<int> RunAsync(string database, long id, string? at, IAnsiConsole console, CancellationToken cancellationToken) =>
         VerbGuard.RunAsync(console, async () =>
         {
+            TextArg.Check(at, "--at");
             var location = string.IsNullOrWhiteSpace(at) ? null : at.Trim();
             if (location is { Length: > 200 })
             {

@@ -16,6 +16,12 @@ internal static class LibraryMoves
                 throw new VerbException(request.Move == LibraryMove.Take ? "--by: say who takes the parts" : "--reason: say why the parts are retired");
             }
 
+            TextArg.Check(request.Note, request.Move switch
+            {
+                LibraryMove.Take => "--by",
+                LibraryMove.Retire => "--reason",
+                _ => "--build",
+            });
             await using var log = await VerbGuard.OpenLogAsync(request.Database, cancellationToken).ConfigureAwait(false);
             var unknown = await Refusals.UnknownAsync(log, request.Ids, cancellationToken).ConfigureAwait(false);
             if (unknown.Count > 0)

@@ -15,14 +15,21 @@ internal static class LiveView
     public static async Task RunAsync(IAnsiConsole console, BenchEventHub hub, int partsPlanned, CancellationToken cancellationToken)
     {
         var model = LiveViewModel.Empty(partsPlanned);
+        var pacer = new FramePacer(TimeProvider.System);
         await console.Live(Render(model)).AutoClear(false).StartAsync(async context =>
         {
+            var drawn = true;
             try
             {
                 await foreach (var e in hub.SubscribeAsync(includeHistory: true, cancellationToken).ConfigureAwait(false))
                 {
                     model = model.Apply(e);
-                    context.UpdateTarget(Render(model));
+                    drawn = pacer.Due(e.Kind);
+                    if (drawn)
+                    {
+                        context.UpdateTarget(Render(model));
+                    }
+
                     if (model.Finished)
                     {
                         break;
@@ -32,6 +39,11 @@ internal static class LiveView
             catch (OperationCanceledException)
             {
                 // The session ended; leave the last view on screen.
+            }
+
+            if (!drawn)
+            {
+                context.UpdateTarget(Render(model)); // the latest state, not the last frame drawn
             }
         }).ConfigureAwait(false);
     }

@@ -3,6 +3,8 @@ using SortRig.Reporting.Plots;
 using SortRig.Reporting.Reports;
 using SortRig.Storage;
 
+using SortRig.Host.VerbSupport;
+
 namespace SortRig.Host.ReportVerb;
 
 /// <summary>
@@ -19,6 +21,7 @@ internal static class ReportRunner
         ArgumentNullException.ThrowIfNull(request);
         request.Validate();
         options ??= new ReportOptions();
+        VerbGuard.RequireExisting(request.Database);
         await using var log = await PrecisionLogFactory.OpenAsync(request.Database, new PrecisionLogOptions { TimeProvider = time }, ct).ConfigureAwait(false);
         var (input, notes) = await ReportInputBuilder.BuildAsync(log, request, ct).ConfigureAwait(false);
         var manifest = await new ReportWriter(time, options).WriteAsync(request.Output, input, ct).ConfigureAwait(false);
@@ -32,7 +35,7 @@ internal static class ReportRunner
                 new ReelHistogramInput(nominal.NominalOhms, values, reel?.TolerancePercent, reel?.CupEdgesPpm ?? []), options.PlotSize).Data;
             var name = Path.ChangeExtension(nominal.HistogramFile, null) + "_bins.csv";
             var rows = data.Counts.Select((c, i) => new HistogramBinCsvRow(nominal.NominalOhms, data.BinEdgesPpm[i], data.BinEdgesPpm[i + 1], c));
-            var writer = CsvWriter.ToFile(Path.Combine(manifest.Folder, name), CsvWriterOptions.Default, FileOptions.Asynchronous);
+            var writer = CsvWriter.ToFile(Path.Combine(manifest.Folder, name), SpreadsheetCsv.Options, FileOptions.Asynchronous);
             await using (writer.ConfigureAwait(false))
             {
                 await writer.WriteRecordsAsync(rows, ct).ConfigureAwait(false);

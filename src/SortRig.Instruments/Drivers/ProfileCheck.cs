@@ -26,6 +26,15 @@ public sealed class ProfileCheck
         var nplc = profile.Spec.Nplcs[profile.Spec.Nplcs.Count / 2].Nplc;
         var midRange = profile.Spec.Ranges[profile.Spec.Ranges.Count / 2].FullScale;
 
+        var configured = false; // the driver reads only after a configuration it verified
+        async Task<string> Configure(ResistanceSetup setup)
+        {
+            configured = false;
+            var done = await ProfileCheck.Configure(meter, setup, ct).ConfigureAwait(false);
+            configured = true;
+            return done;
+        }
+
         async Task Step(string check, Func<Task<string>> action)
         {
             if (session.IsBroken)
@@ -53,20 +62,27 @@ public sealed class ProfileCheck
 
         foreach (var range in profile.Spec.Ranges)
         {
-            await Step($"range {Text(range.FullScale)} ohm", () => Configure(meter, new ResistanceSetup(range.FullScale, nplc, !twoWire), ct)).ConfigureAwait(false);
+            await Step($"range {Text(range.FullScale)} ohm", () => Configure(new ResistanceSetup(range.FullScale, nplc, !twoWire))).ConfigureAwait(false);
         }
 
         foreach (var setting in profile.Spec.Nplcs)
         {
-            await Step($"NPLC {Text(setting.Nplc)}", () => Configure(meter, new ResistanceSetup(midRange, setting.Nplc, !twoWire), ct)).ConfigureAwait(false);
+            await Step($"NPLC {Text(setting.Nplc)}", () => Configure(new ResistanceSetup(midRange, setting.Nplc, !twoWire))).ConfigureAwait(false);
         }
 
         if (twoWire && profile.Spec.FourWire)
         {
-            await Step("4-wire", () => Configure(meter, new ResistanceSetup(midRange, nplc, true), ct)).ConfigureAwait(false);
+            await Step("4-wire", () => Configure(new ResistanceSetup(midRange, nplc, true))).ConfigureAwait(false);
         }
 
-        await Step($"read ({profile.Commands.Read})", async () => Describe(await meter.ReadAsync(ct).ConfigureAwait(false))).ConfigureAwait(false);
+        if (configured)
+        {
+            await Step($"read ({profile.Commands.Read})", async () => Describe(await meter.ReadAsync(ct).ConfigureAwait(false))).ConfigureAwait(false);
+        }
+        else
+        {
+            rows.Add(new ProfileCheckRow($"read ({profile.Commands.Read})", CheckOutcome.Skipped, "skipped: the last configuration step failed"));
+        }
         if (profile.Commands is { Init: { } init, Fetch: { } fetch })
         {
             await Step($"init/fetch ({init}, {fetch})", async () =>

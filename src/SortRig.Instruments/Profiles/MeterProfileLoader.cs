@@ -17,7 +17,7 @@ public static partial class MeterProfileLoader
     /// <summary>Loads one profile file.</summary>
     /// <exception cref="ProfileException">The file is not a valid profile.</exception>
     /// <exception cref="IOException">The file cannot be read.</exception>
-    public static MeterProfile Load(string path) => Parse(File.ReadAllText(path), path);
+    public static MeterProfile Load(string path) => Parse(ProfileLimits.Read(path), path);
 
     /// <summary>Loads every *.yaml and *.yml file in <paramref name="directory"/>, ordered by file name.</summary>
     /// <exception cref="ProfileException">A file is invalid, or two files declare the same family.</exception>
@@ -44,6 +44,7 @@ public static partial class MeterProfileLoader
     /// <exception cref="ProfileException">The text is not a valid profile.</exception>
     public static MeterProfile Parse(string yaml, string file)
     {
+        ProfileLimits.Check(yaml, file);
         var stream = new YamlStream();
         var parser = new Parser(new StringReader(yaml));
         try

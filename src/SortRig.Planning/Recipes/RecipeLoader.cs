@@ -12,9 +12,10 @@ public static class RecipeLoader
     /// <summary>Parses and validates a recipe. No I/O.</summary>
     /// <param name="yaml">The recipe text.</param>
     /// <param name="fileName">Name used in error messages.</param>
-    /// <exception cref="RecipeException">The text is not valid YAML or not a valid recipe; names line, column and field.</exception>
+    /// <exception cref="RecipeException">The text is not valid YAML or not a valid recipe, or breaks <see cref="RecipeLimits"/>; names line, column and field.</exception>
     public static Recipe Load(string yaml, string fileName)
     {
+        RecipeLimits.Check(yaml, fileName);
         var stream = new YamlStream();
         var scanner = new Scanner(new StringReader(yaml), skipComments: true);
         try
@@ -53,7 +54,7 @@ public static class RecipeLoader
     /// <summary>Edge helper: reads a recipe file and loads it (the only file I/O of the planning layer).</summary>
     public static async Task<Recipe> LoadFileAsync(string path, CancellationToken cancellationToken)
     {
-        var text = await File.ReadAllTextAsync(path, cancellationToken).ConfigureAwait(false);
+        var text = await RecipeLimits.ReadAsync(path, cancellationToken).ConfigureAwait(false);
         return Load(text, path);
     }
 

@@ -12,7 +12,7 @@ internal static class SummaryMarkdown
     public static string Build(string title, DateTimeOffset generated, int partCount, ReportManifest figures, IReadOnlyList<int> adevFactors)
     {
         var md = new StringBuilder();
-        Row(md, $"# {title}");
+        Line(md, "# " + MarkdownText.Escape(title));
         Line(md, string.Empty);
         Row(md, $"Generated {generated.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC. {partCount} parts over {figures.Nominals.Count} nominal values; {figures.Channels.Count} drift channels.");
         Line(md, string.Empty);
@@ -33,7 +33,7 @@ internal static class SummaryMarkdown
         Line(md, "|---|---:|");
         foreach (KeyValuePair<string, int> cup in figures.CupCounts)
         {
-            Row(md, $"| {cup.Key} | {cup.Value} |");
+            Row(md, $"| {MarkdownText.Escape(cup.Key)} | {cup.Value} |");
         }
 
         Line(md, string.Empty);
@@ -47,7 +47,7 @@ internal static class SummaryMarkdown
             string jd = c.Joint is { } j ? Pm(j.PpmPerHour) : "n/a";
             string tc = c.Joint is { } k ? Pm(k.PpmPerKelvin) : $"n/a ({c.JointNote})";
             string plots = c.AdevPlotFile is null ? $"[drift]({c.DriftPlotFile})" : $"[drift]({c.DriftPlotFile}), [ADEV]({c.AdevPlotFile})";
-            Row(md, $"| {c.Channel} | {c.Count} | {c.SpanHours:F2} | {drift} | {jd} | {tc} | {plots} |");
+            Row(md, $"| {MarkdownText.Escape(c.Channel)} | {c.Count} | {c.SpanHours:F2} | {drift} | {jd} | {tc} | {plots} |");
         }
 
         Line(md, string.Empty);
@@ -59,12 +59,12 @@ internal static class SummaryMarkdown
         {
             foreach (AllanPoint p in c.Adev.Where(p => adevFactors.Contains(p.AveragingFactor)))
             {
-                Row(md, $"| {c.Channel} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
+                Row(md, $"| {MarkdownText.Escape(c.Channel)} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
             }
 
             if (!c.EvenlySpaced && c.Adev.Count > 0)
             {
-                Row(md, $"| {c.Channel} | note: intervals vary more than 25 % around τ0 = {c.Tau0Seconds:G4} s; ADEV assumes even spacing | | | |");
+                Row(md, $"| {MarkdownText.Escape(c.Channel)} | note: intervals vary more than 25 % around τ0 = {c.Tau0Seconds:G4} s; ADEV assumes even spacing | | | |");
             }
         }
 

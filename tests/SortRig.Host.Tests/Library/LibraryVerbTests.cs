@@ -128,6 +128,39 @@ public sealed class LibraryVerbTests
         Assert.All(parts.Skip(4), p => Assert.Equal((p.Value, "Available"), (rows[p.Id].Value, rows[p.Id].Status)));
     }
 
+    // CSV injection: text cells starting with =, +, -, @ are neutralised with a leading apostrophe (OWASP "CSV
+    // Injection" advice, from memory); negative numbers stay numbers; the database keeps the raw text.
+    [Fact]
+    public async Task Export_FormulaInLocationAndTaker_WrittenAsText_NumbersUntouched_RawKept()
+    {
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
+        var parts = await Seed.SessionAsync(store, "reel", Parts);
+        const string Hostile = "=HYPERLINK(\"http://example.invalid\",\"x\")";
+        await using (var log = await store.OpenAsync())
+        {
+            await log.SetLocationAsync(parts[0].Id, Hostile, CancellationToken.None);
+            await log.TakePartsAsync([parts[0].Id], "@mira", CancellationToken.None);
+        }
+
+        var file = store.File("library.csv");
+        Assert.Equal(VerbExit.Ok, await LibraryExport.RunAsync(
+            store.Database, file, null, null, new ConsoleCapture().Console, TextWriter.Null, CancellationToken.None));
+
+        using var reader = CsvReader.FromFile(file, null);
+        var rows = new Dictionary<long, (string Location, string TakenBy, string Deviation)>();
+        while (reader.Read())
+        {
+            rows[long.Parse(reader.GetString("id"), CultureInfo.InvariantCulture)] =
+                (reader.GetString("location"), reader.GetString("taken_by"), reader.GetString("deviation_ppm"));
+        }
+
+        Assert.Equal(("'" + Hostile, "'@mira"), (rows[parts[0].Id].Location, rows[parts[0].Id].TakenBy));
+        var negative = parts.First(p => p.DeviationPpm < 0);
+        Assert.Equal(negative.DeviationPpm, double.Parse(rows[negative.Id].Deviation, CultureInfo.InvariantCulture));
+        await using var check = await store.OpenAsync();
+        Assert.Equal(Hostile, (await check.GetPartAsync(parts[0].Id, CancellationToken.None))!.Location);
+    }
+
     [Fact]
     public async Task Take_UnknownIds_ExitsTwoNamingThemAndChangesNothing()
     {

@@ -67,3 +67,31 @@ public sealed class PickListTests
         Assert.All(list.Sets, s => Assert.Equal(1000, s.Outputs[0].WorstCaseError));
     }
 }
+
+public sealed class PickListCsvInjectionTests
+{
+    // CSV injection: a cell starting with =, +, -, @, tab or CR runs as a formula in a spreadsheet; a leading
+    // apostrophe makes it text (OWASP "CSV Injection" advice, from memory). Numbers are not text and stay as written.
+    [Theory]
+    [InlineData("=HYPERLINK(\"http://example.invalid\",\"x\")")]
+    [InlineData("+1+1")]
+    [InlineData("-2+3")]
+    [InlineData("@SUM(A1)")]
+    [InlineData("\tcmd")]
+    public void Write_FormulaLikeText_GetsApostrophe_NumbersUntouched(string hostile)
+    {
+        var item = new PickItem(hostile, "single", 7, hostile, 10_000, 9_996.5);
+        var set = new PickSet(1, [item], [], -0.25);
+        var list = new PickList("quad", PickSource.Slots, [set], []);
+        var text = new StringWriter();
+        PickListCsv.Write(text, list);
+
+        using var reader = CsvReader.FromText(text.ToString(), null);
+        Assert.True(reader.Read());
+        Assert.Equal("'" + hostile, reader.GetString("position"));
+        Assert.Equal("'" + hostile, reader.GetString("source"));
+        Assert.Equal("9996.5", reader.GetString("value_ohm"));
+        Assert.Equal("-0.2500", reader.GetString("set_score"));
+        Assert.Equal("7", reader.GetString("part"));
+    }
+}

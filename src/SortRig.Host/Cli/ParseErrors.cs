@@ -1,0 +1,26 @@
+using System.CommandLine;
+
+namespace SortRig.Host.Cli;
+
+/// <summary>
+/// Reports a command line that does not parse as one line naming the option as typed and where to
+/// look, with exit code 2 (bad input), instead of System.CommandLine's help dump and exit code 1.
+/// </summary>
+internal static class ParseErrors
+{
+    /// <summary>Exit code for bad input, the same in every verb.</summary>
+    public const int BadInput = 2;
+
+    /// <summary>Writes the first parse error and returns true when there is one.</summary>
+    public static bool Report(ParseResult parse, TextWriter error)
+    {
+        if (parse.Errors.Count == 0)
+        {
+            return false;
+        }
+
+        var verb = parse.CommandResult.Command is RootCommand ? "" : " " + parse.CommandResult.Command.Name;
+        error.WriteLine($"error: {parse.Errors[0].Message} (sortrig{verb} --help lists the options)");
+        return true;
+    }
+}

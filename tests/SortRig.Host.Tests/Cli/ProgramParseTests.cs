@@ -1,0 +1,43 @@
+namespace SortRig.Host.Tests.Cli;
+
+public sealed class ProgramParseTests
+{
+    // System.CommandLine reads "@file" as a file of arguments by default (a response file); a storage location such as
+    // "@bag 7" must stay the value typed. Common practice, no source.
+    [Fact]
+    public void Parse_ValueStartingWithAt_IsTheValue_NotAResponseFile()
+    {
+        var parse = Program.Parse(["library", "locate", "--db", "x.db", "--id", "3", "--at", "@bag 7"]);
+
+        Assert.Empty(parse.Errors);
+        Assert.Contains(parse.Tokens, t => t.Value == "@bag 7");
+    }
+}
+
+/// <summary>Verbs that read the precision log never create one: a misspelt --db is named, exit 2, no file appears.</summary>
+public sealed class MissingDatabaseTests
+{
+    [Theory]
+    [InlineData("library", "find")]
+    [InlineData("library", "export", "--csv", "-")]
+    [InlineData("library", "labels", "--ids", "1,2")]
+    [InlineData("plan", "--session", "bench", "--recipe", "recipes/matched-quad.yaml")]
+    [InlineData("report", "--out", "rep")]
+    public async Task ReadingVerb_MisspeltDb_Exit2_NamesIt_CreatesNothing(params string[] verb)
+    {
+        var dir = Directory.CreateTempSubdirectory("sortrig-nodb-");
+        try
+        {
+            var db = Path.Combine(dir.FullName, "sortirg.db");
+            var code = await Program.Parse([.. verb, "--db", db]).InvokeAsync();
+
+            Assert.Equal(2, code);
+            Assert.False(File.Exists(db));
+            Assert.Empty(dir.GetFileSystemInfos());
+        }
+        finally
+        {
+            dir.Delete(recursive: true);
+        }
+    }
+}
