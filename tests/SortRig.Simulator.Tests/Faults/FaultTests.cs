@@ -77,7 +77,7 @@ public sealed class FaultTests : IAsyncLifetime
     [Fact]
     public async Task SilentReset_SettingsReturnToDefaultsWithoutAnError()
     {
-        await _client.SendAsync("RES:NPLC 100;RANG 1000");
+        await _client.SendAsync("RES:NPLC 40;RANG 1000");
         await _client.SendAsync("SIM:FAUL:INJ RES");
 
         Assert.Equal("+1.00000000E+00", await _client.QueryAsync("RES:NPLC?"));

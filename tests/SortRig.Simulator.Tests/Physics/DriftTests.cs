@@ -13,14 +13,14 @@ public sealed class DriftTests
         await using var bench = new SimulatedBench(Benches.Manual(reel), clock);
         var part = bench.Reel.MaxBy(p => Math.Abs(p.DriftPpmPerHour))!;
         bench.Scanner.Load(101, part);
-        await bench.ExecuteAsync("CONF:RES 10000;:RES:NPLC 100;:ROUT:CLOS (@101)");
+        await bench.ExecuteAsync("CONF:RES 10000;:RES:NPLC 40;:ROUT:CLOS (@101)");
         clock.Advance(TimeSpan.FromSeconds(1));
 
-        var evening = Numbers.Parse((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(1)))!);
+        var evening = Numbers.Parse((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(2)))!);
         clock.Advance(TimeSpan.FromHours(10));
-        var morning = Numbers.Parse((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(1)))!);
+        var morning = Numbers.Parse((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(2)))!);
 
-        // R(t) = R23 (1 + drift t): 10 h of drift, read to 0.1 ppm at 100 NPLC.
+        // R(t) = R23 (1 + drift t): 10 h of drift, read to 0.1 ppm at 40 NPLC (a reading takes 1.601 s).
         var driftPpm = ((morning / evening) - 1) * 1e6;
         Assert.Equal(part.DriftPpmPerHour * 10, driftPpm, 0.5);
         Assert.Equal(bench.Truth(part.Index), morning, 10_000 * 0.5e-6);
