@@ -34,8 +34,11 @@ public sealed class DriftOptions
     /// </summary>
     public string? LibraryParts { get; set; }
 
-    /// <summary>Scanner channel wired to a Pt100 (IEC 60751) for the temperature; 0 = no thermometer. Default 120; 0..9999, not a part channel.</summary>
-    public int Pt100Channel { get; set; } = 120;
+    /// <summary>
+    /// Scanner channel wired to a Pt100 (IEC 60751) for the temperature; 0 = no thermometer. Default 105, the channel
+    /// after the default part channels (our own layout); 0..9999, not a part channel.
+    /// </summary>
+    public int Pt100Channel { get; set; } = 105;
 
     /// <summary>Time between scans, seconds. Default 60; 1..86 400.</summary>
     public double IntervalSeconds { get; set; } = 60;

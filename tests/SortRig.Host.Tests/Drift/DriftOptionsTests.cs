@@ -13,7 +13,7 @@ public sealed class DriftOptionsTests
         Assert.Equal([101, 102, 103, 104], s.Channels);
         Assert.Equal(TimeSpan.FromSeconds(60), s.Interval);
         Assert.Equal(TimeSpan.FromHours(12), s.Duration);
-        Assert.Equal([120, 101, 102, 103, 104, 120], s.ScanOrder);
+        Assert.Equal([105, 101, 102, 103, 104, 105], s.ScanOrder);
         Assert.Equal(64, s.BatchSize);
     }
 
