@@ -31,7 +31,7 @@ public sealed class ReadingModelTests
     [Fact]
     public void Report_AddsNoiseInPpmOfRange()
     {
-        // 0.6 ppm of 10 kOhm at 1 NPLC is 0.006 ohm; a +2 sigma draw adds 0.012, rounded to 0.01.
+        // 0.7 ppm of 10 kOhm at 1 NPLC is 0.007 ohm; a +2 sigma draw adds 0.014, rounded to the 0.01 ohm step.
         Assert.Equal(10_000.01, ReadingModel.Report(false, 10_000, 1e4, s_oneNplc, 2, 0), 9);
     }
 }
