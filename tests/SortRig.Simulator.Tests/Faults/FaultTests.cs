@@ -1,5 +1,6 @@
 using Microsoft.Extensions.Time.Testing;
 using SortRig.Simulator.Faults;
+using SortRig.Simulator.Meter;
 using SortRig.Simulator.Tests.Support;
 
 namespace SortRig.Simulator.Tests.Faults;
@@ -97,9 +98,9 @@ public sealed class FaultTests : IAsyncLifetime
 
         _bench.Faults.SetRate(FaultKind.SpuriousError, 0);
 
-        // Binomial(200, 0.2): mean 40, sd 5.7; 23..57 is +-3 sd. The queue keeps at most 20.
+        // Binomial(200, 0.2): mean 40, sd 5.7; 23..57 is +-3 sd (textbook identity: np, sqrt(np(1-p))). The queue keeps at most ErrorQueue.Capacity (16).
         var fired = _bench.Faults.Log.Count(FaultKind.SpuriousError);
         Assert.InRange(fired, 23, 57);
-        Assert.Equal(Math.Min(fired, 20), int.Parse(await _client.QueryAsync("SYST:ERR:COUN?"), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(Math.Min(fired, ErrorQueue.Capacity), int.Parse(await _client.QueryAsync("SYST:ERR:COUN?"), System.Globalization.CultureInfo.InvariantCulture));
     }
 }
