@@ -18,6 +18,14 @@ public sealed class DriftOptionsTests
     }
 
     [Fact]
+    public void Validate_DefaultPt100_IsTheChannelAfterTheHighestPartChannel()
+    {
+        // Our own default layout: parts first, the Pt100 on the next channel.
+        Assert.Equal(113, new DriftOptions { Channels = "101-112" }.Validate().Pt100Channel);
+        Assert.Equal(108, new DriftOptions { Channels = "107,101-103" }.Validate().Pt100Channel);
+    }
+
+    [Fact]
     public void Validate_ZeroHoursAndNoPt100_LogsUntilStoppedWithoutThermometer()
     {
         var s = new DriftOptions { Hours = 0, Pt100Channel = 0, Channels = "105" }.Validate();
