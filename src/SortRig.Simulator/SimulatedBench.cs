@@ -35,7 +35,7 @@ public sealed partial class SimulatedBench : IAsyncDisposable
         Reel = ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel));
         Fixture = new Fixture(_env);
         _loose = new LooseParts(options.Reel, Reel.Count, SeedStreams.Derive(options.Seed, SeedStreams.LooseParts));
-        Scanner = new Scanner(_env, options.ScannerPartChannels, options.Pt100Channel);
+        Scanner = new Scanner(_env, options.ScannerPartChannels, options.EffectivePt100Channel);
         Faults = new FaultInjector(options.Faults, SeedStreams.Derive(options.Seed, SeedStreams.Faults));
         Operator = new VirtualOperator(options.Operator, Reel, Fixture, _env.Time, SeedStreams.Derive(options.Seed, SeedStreams.Operator), _loggers.CreateLogger<VirtualOperator>());
         var state = new MeterState();

@@ -41,11 +41,17 @@ public sealed record SimulatedBenchOptions
     /// </summary>
     public double RangeGainErrorPpm { get; init; }
 
-    /// <summary>Number of scanner part channels (101 upwards); 0 to 40. Default 10 (101..110).</summary>
-    public int ScannerPartChannels { get; init; } = 10;
+    /// <summary>Number of scanner part channels (101 upwards); 0 to 40. Default 16 (101..116), our own layout.</summary>
+    public int ScannerPartChannels { get; init; } = 16;
 
-    /// <summary>The scanner channel wired to the Pt100; 101 to 199, not a part channel. Default 120.</summary>
-    public int Pt100Channel { get; init; } = 120;
+    /// <summary>
+    /// The scanner channel wired to the Pt100; 0 (the default) for the channel right after the last part channel
+    /// (117 with the default 16 part channels), else 101 to 199 and after the part channels.
+    /// </summary>
+    public int Pt100Channel { get; init; }
+
+    /// <summary>The Pt100 channel in use: <see cref="Pt100Channel"/>, or 101 + part channels when that is 0.</summary>
+    public int EffectivePt100Channel => Pt100Channel == 0 ? 101 + ScannerPartChannels : Pt100Channel;
 
     /// <summary>Standalone only: TCP port to serve on 127.0.0.1 (0 = any free port); null for none. Default 5025.</summary>
     public int? TcpPort { get; init; } = 5025;
@@ -89,7 +95,7 @@ public sealed record SimulatedBenchOptions
         OptionGuard.InRange(LeadResistanceOhms, 0, 10, "SimulatedBenchOptions.LeadResistanceOhms", "ohm");
         OptionGuard.InRange(RangeGainErrorPpm, 0, 1000, "SimulatedBenchOptions.RangeGainErrorPpm", "ppm");
         OptionGuard.InRange(ScannerPartChannels, 0, 40, "SimulatedBenchOptions.ScannerPartChannels");
-        OptionGuard.InRange(Pt100Channel, 101 + ScannerPartChannels, 199, "SimulatedBenchOptions.Pt100Channel (must follow the part channels)");
+        OptionGuard.InRange(EffectivePt100Channel, 101 + ScannerPartChannels, 199, "SimulatedBenchOptions.Pt100Channel (0, or after the part channels)");
         OptionGuard.InRange(TcpPort ?? 0, 0, 65535, "SimulatedBenchOptions.TcpPort");
         OptionGuard.InRange(SerialBaudRate, 300, 921_600, "SimulatedBenchOptions.SerialBaudRate");
         OptionGuard.InRange(TimeScale, 1e-3, 10_000, "SimulatedBenchOptions.TimeScale");

@@ -48,7 +48,7 @@ internal static class DriftBenchmark
             FormattableString.Invariant($"Machine: {Environment.ProcessorCount} cores, .NET {Environment.Version}; shared with other jobs, so wall times vary."),
             "",
             "Run: 12.01 h of virtual time (`VirtualClock`; just past the 12 h mark), 4 parts on scanner channels 101-104 every 10 s,",
-            "Pt100 on 120 read before and after the parts (6 readings per scan, 4324 scans, 25 944 samples), 10 kOhm range, NPLC 10, 4-wire,",
+            "Pt100 on 105 read before and after the parts (6 readings per scan, 4324 scans, 25 944 samples), 10 kOhm range, NPLC 10, 4-wire,",
             "batches of at most 64 samples. The simulator serves SCPI on a real TCP socket; the log is a real SQLite file",
             "(WAL, synchronous=FULL). Managed memory = `GC.GetTotalMemory(true)` (after a full collection) and the GC heap",
             "size after that collection (`GC.GetGCMemoryInfo().HeapSizeBytes`), sampled when virtual time passes each hour.",

@@ -34,8 +34,11 @@ public sealed class DriftOptions
     /// </summary>
     public string? LibraryParts { get; set; }
 
-    /// <summary>Scanner channel wired to a Pt100 (IEC 60751) for the temperature; 0 = no thermometer. Default 120; 0..9999, not a part channel.</summary>
-    public int Pt100Channel { get; set; } = 120;
+    /// <summary>
+    /// Scanner channel wired to a Pt100 (IEC 60751) for the temperature; 0 = no thermometer. Default (null): the channel
+    /// after the highest part channel, 105 with the default channels (our own layout); 0..9999, not a part channel.
+    /// </summary>
+    public int? Pt100Channel { get; set; }
 
     /// <summary>Time between scans, seconds. Default 60; 1..86 400.</summary>
     public double IntervalSeconds { get; set; } = 60;
@@ -74,7 +77,8 @@ public sealed class DriftOptions
         Require(!string.IsNullOrWhiteSpace(Run) && Run.Length <= 200, "Drift.Run", "1 to 200 characters", Run);
         Require(!string.IsNullOrWhiteSpace(Database), "Drift.Database", "a SQLite path or a connection string", Database);
         Require(!string.IsNullOrWhiteSpace(Profile), "Drift.Profile", "a profile name or YAML file", Profile);
-        Require(Pt100Channel is >= 0 and <= 9999 && !channels.Contains(Pt100Channel), "Drift.Pt100Channel", "0 (none) or 1 to 9999 and not a part channel", Pt100Channel);
+        var pt100 = Pt100Channel ?? (channels.Max() + 1);
+        Require(pt100 is >= 0 and <= 9999 && !channels.Contains(pt100), "Drift.Pt100Channel", "0 (none) or 1 to 9999 and not a part channel", pt100);
         Require(IntervalSeconds is >= 1 and <= 86_400, "Drift.IntervalSeconds", "1 to 86400 s", IntervalSeconds);
         Require(Hours is >= 0 and <= 8760, "Drift.Hours", "0 (until stopped) to 8760 h", Hours);
         Require(double.IsFinite(Range) && Range > 0, "Drift.Range", "a range full scale > 0 ohm", Range);
@@ -87,7 +91,7 @@ public sealed class DriftOptions
         var duration = Hours == 0 ? (TimeSpan?)null : TimeSpan.FromHours(Hours);
         Require(duration is null || duration >= interval, "Drift.Hours", "0 or at least one interval", Hours);
         return new DriftSettings(
-            simulated ? null : Resource.Trim(), Profile, Database, Run, channels, Pt100Channel == 0 ? null : Pt100Channel,
+            simulated ? null : Resource.Trim(), Profile, Database, Run, channels, pt100 == 0 ? null : pt100,
             interval, duration, new ResistanceSetup(Range, Nplc, FourWire), BatchSize, Notes, Seed, Virtual ? 0 : Speed)
         {
             LibraryParts = LibraryPartMap.Parse(LibraryParts, channels),

@@ -23,9 +23,10 @@ public static class DriftDemoBench
             throw new ArgumentException($"Drift.Channels: the simulator's part channels are 101..140; {bad} is not one.", nameof(settings));
         }
 
-        var partChannels = Math.Max(10, settings.Channels.Max() - 100);
-        var pt100 = settings.Pt100Channel ?? 199;
-        if (pt100 < 101 + partChannels || pt100 > 199)
+        // Our own layout: part channels 101 up to the highest one asked, the Pt100 after them (0: the next channel).
+        var partChannels = settings.Channels.Max() - 100;
+        var pt100 = settings.Pt100Channel ?? 0;
+        if (pt100 != 0 && (pt100 < 101 + partChannels || pt100 > 199))
         {
             throw new ArgumentException($"Drift.Pt100Channel: on the simulator it must be {101 + partChannels}..199; was {pt100}.", nameof(settings));
         }

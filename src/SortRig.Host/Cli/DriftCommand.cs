@@ -22,7 +22,7 @@ internal static class DriftCommand
 {
     public static Command Create()
     {
-        var command = new Command("drift", "Log the drift of parts on scanner channels for hours, with the temperature from a Pt100. Without --resource, runs the built-in simulator with parts loaded.");
+        var command = new Command("drift", "Log the drift of parts on scanner channels for hours, with the temperature from a Pt100. Without --resource, runs the built-in simulator with parts loaded. Unattended runs: see docs/safety.md.");
         var map = new FlagMap();
         map.Add(command, new Option<string>("--resource") { Description = "Meter resource with a scanner, e.g. TCPIP::192.0.2.10::5025::SOCKET; omit for the simulator" }, "Drift:Resource");
         map.Add(command, new Option<string>("--profile") { Description = "Meter profile name under instruments/ or a YAML file (default simulator)" }, "Drift:Profile");
@@ -30,7 +30,7 @@ internal static class DriftCommand
         map.Add(command, new Option<string>("--run") { Description = "Name of the drift run (default overnight)" }, "Drift:Run");
         map.Add(command, new Option<string>("--channels") { Description = "Part channels, e.g. 101-104,107 (default 101-104)" }, "Drift:Channels");
         map.Add(command, new Option<string>("--library-parts") { Description = "Library parts on the channels, channel=part: 101=17,102=#18,103-104=20-21 (ids or #id as on the printed label)" }, "Drift:LibraryParts");
-        map.Add(command, new Option<int>("--pt100") { Description = "Pt100 channel; 0 for none (default 120)" }, "Drift:Pt100Channel");
+        map.Add(command, new Option<int>("--pt100") { Description = "Pt100 channel; 0 for none (default: the channel after the highest part channel, 105 for 101-104)" }, "Drift:Pt100Channel");
         map.Add(command, new Option<double>("--interval") { Description = "Seconds between scans (default 60)" }, "Drift:IntervalSeconds");
         map.Add(command, new Option<double>("--hours") { Description = "Length of the run in hours; 0 logs until Ctrl+C (default 12)" }, "Drift:Hours");
         map.Add(command, new Option<double>("--range") { Description = "Range full scale in ohms for every channel (default 10000)" }, "Drift:Range");

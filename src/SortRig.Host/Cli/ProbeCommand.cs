@@ -13,7 +13,7 @@ internal static class ProbeCommand
 {
     public static Command Create()
     {
-        var command = new Command("probe", "Connect to a meter, identify it and check that a profile fits (ranges, NPLC, commands, error queue).");
+        var command = new Command("probe", "Connect to a meter, identify it and check that a profile fits (ranges, NPLC, commands, error queue). Run it after any change to a profile's command templates, before wiring parts (docs/safety.md).");
         var resource = new Option<string>("--resource") { Description = "Meter resource, e.g. TCPIP::127.0.0.1::5025::SOCKET", Required = true };
         var profile = new Option<string>("--profile") { Description = "Profile name under instruments/ or a YAML file", DefaultValueFactory = _ => "simulator" };
         command.Add(resource);

@@ -18,7 +18,7 @@ internal static class SortCommand
 {
     public static Command Create()
     {
-        var command = new Command("sort", "Sort parts hands-free: settle, log, announce the cup. Without --resource, runs the built-in simulator with a demo reel.");
+        var command = new Command("sort", "Sort parts hands-free: settle, log, announce the cup. Without --resource, runs the built-in simulator with a demo reel. Before wiring a bench read docs/safety.md (ESD, hot parts, solvents).");
         var map = new FlagMap();
         map.Add(command, new Option<string>("--resource") { Description = "Meter resource, e.g. TCPIP::192.0.2.10::5025::SOCKET or ASRL::/dev/ttyUSB0::INSTR; omit for the simulator" }, "Sort:Resource");
         map.Add(command, new Option<string>("--profile") { Description = "Meter profile name under instruments/ or a YAML file (default simulator)" }, "Sort:Profile");

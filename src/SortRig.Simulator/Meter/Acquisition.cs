@@ -27,7 +27,7 @@ internal sealed partial class Acquisition
     {
         var settings = _state.Settings;
         var targets = _state.ScanList.Count > 0 ? _state.ScanList.Cast<int?>().ToArray() : [_state.ClosedChannel];
-        if ((long)settings.TriggerCount * settings.SampleCount * targets.Length > MeterSettings.MaxCount)
+        if ((long)settings.TriggerCount * settings.SampleCount * targets.Length > MeterSettings.ReadingBuffer)
         {
             return ScpiError.TooMuchData;
         }

@@ -7,7 +7,8 @@ namespace SortRig.Simulator.Meter;
 /// </summary>
 internal sealed class ErrorQueue
 {
-    public const int Capacity = 20;
+    /// <summary>Entries held (our own choice; SCPI-99 leaves the length to the device).</summary>
+    public const int Capacity = 16;
 
     private readonly List<ScpiError> _entries = [];
     private readonly Lock _gate = new();

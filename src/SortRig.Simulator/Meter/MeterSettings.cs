@@ -33,7 +33,14 @@ internal sealed record MeterSettings(
     int TriggerCount,
     int SampleCount)
 {
-    public const int MaxCount = 50_000;
+    /// <summary>Largest TRIGger:COUNt (our own limit).</summary>
+    public const int MaxTriggerCount = 5_000;
+
+    /// <summary>Largest SAMPle:COUNt (our own limit).</summary>
+    public const int MaxSampleCount = 1_000;
+
+    /// <summary>Readings one INITiate may hold: trigger count × sample count × scan channels (our own limit; -223 above).</summary>
+    public const int ReadingBuffer = 20_000;
 
     public static MeterSettings Default { get; } = new(
         MeterFunction.Resistance, FunctionSettings.Default, FunctionSettings.Default, true, TriggerSource.Immediate, 1, 1);

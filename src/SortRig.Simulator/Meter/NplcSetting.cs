@@ -6,15 +6,17 @@ namespace SortRig.Simulator.Meter;
 /// </summary>
 internal sealed record NplcSetting(double Nplc, double Digits, double ResolutionPpm, double NoisePpm)
 {
-    /// <summary>The allowed settings, ascending. Noise falls roughly as 1/sqrt(t) from 1 to 10 NPLC, faster below 1 NPLC
-    /// (short-aperture converter noise) and meets a 0.1 ppm floor (1/f noise) at 100 NPLC.</summary>
+    /// <summary>The allowed settings, ascending: the SortRig envelope (docs/instruments.md), invented for SortRig.
+    /// Noise falls roughly as 1/sqrt(t) from 1 to 10 NPLC (0.7 ppm at 1 NPLC), faster below 1 NPLC (short-aperture
+    /// converter noise) and flattens towards a 0.15 ppm floor (1/f noise) at 40 NPLC.</summary>
     public static readonly IReadOnlyList<NplcSetting> All =
     [
-        new(0.02, 4.5, 100, 20),
-        new(0.2, 5.5, 10, 3),
-        new(1, 6.5, 1, 0.6),
-        new(10, 6.5, 0.1, 0.2),
-        new(100, 6.5, 0.1, 0.1),
+        new(0.04, 4.5, 40, 12),
+        new(0.4, 5.5, 4, 2),
+        new(1, 6.5, 1, 0.7),
+        new(4, 6.5, 0.5, 0.35),
+        new(10, 6.5, 0.2, 0.25),
+        new(40, 6.5, 0.1, 0.15),
     ];
 
     public static NplcSetting Default => All[2];

@@ -3,7 +3,7 @@ namespace SortRig.Simulator.Meter;
 /// <summary>
 /// Turns what the input presents into what the meter reports (pure): add lead resistance (2-wire),
 /// apply the range's gain factor, add Gaussian noise, quantise to the step of the range and NPLC, and report the SCPI overflow value
-/// for an open input or a value above 1.2 x full scale.
+/// for an open input or a value above 1.25 x full scale.
 /// </summary>
 internal static class ReadingModel
 {

@@ -26,7 +26,7 @@ internal static class ConfigureCommands
 
     /// <summary>
     /// Range: a value, MIN, MAX (fixed) or AUTO / DEF (autorange). Resolution in ohms: MIN = finest
-    /// (100 NPLC), MAX = coarsest (0.02 NPLC), DEF = 1 NPLC, a value = the fastest NPLC whose step is at most
+    /// (40 NPLC), MAX = coarsest (0.04 NPLC), DEF = 1 NPLC, a value = the fastest NPLC whose step is at most
     /// that value on the chosen range (-222 if none; -221 with autorange, where the step is not fixed).
     /// </summary>
     public static void Configure(ScpiCall call, MeterFunction function)

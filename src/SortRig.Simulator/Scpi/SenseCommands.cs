@@ -29,16 +29,27 @@ internal static class SenseCommands
         return quoted ? $"\"{name}\"" : name;
     }
 
-    /// <summary>RANGe &lt;value&gt;: the smallest range that covers the value; -222 above 10 MOhm or at or below 0.</summary>
+    /// <summary>RANGe &lt;value&gt;: the smallest range that covers the value; -222 above 50 MOhm or at or below 0.</summary>
     public static double ParseRange(ScpiCall call, int index)
     {
         var value = call.Number(index, RangeParameter);
         return value > 0 && ResistanceRanges.Covering(value) is double range ? range : throw new ScpiException(ScpiError.DataOutOfRange);
     }
 
-    /// <summary>NPLCycles &lt;value&gt;: one of the allowed settings exactly; -222 otherwise.</summary>
-    public static double ParseNplc(ScpiCall call, int index) =>
-        NplcSetting.Find(call.Number(index, NplcParameter))?.Nplc ?? throw new ScpiException(ScpiError.DataOutOfRange);
+    /// <summary>
+    /// NPLCycles &lt;value&gt;: one of the allowed settings exactly (our own rule, no rounding); -222 outside the
+    /// lowest to highest setting, -224 for a value between them that is not a setting (SCPI-99 vol. 2 ch. 21 meanings).
+    /// </summary>
+    public static double ParseNplc(ScpiCall call, int index)
+    {
+        var value = call.Number(index, NplcParameter);
+        if (value < NplcSetting.All[0].Nplc * (1 - 1e-9) || value > NplcSetting.All[^1].Nplc * (1 + 1e-9))
+        {
+            throw new ScpiException(ScpiError.DataOutOfRange);
+        }
+
+        return NplcSetting.Find(value)?.Nplc ?? throw new ScpiException(ScpiError.IllegalParameterValue);
+    }
 
     private static void RegisterFunction(CommandTable table, string node, MeterFunction function)
     {

@@ -6,14 +6,13 @@ namespace SortRig.Simulator.Scpi;
 /// <summary>TRIGger, SAMPle, INITiate, ABORt, FETCh? and READ? (SCPI-99 vol. 2 ch. 22 and 3).</summary>
 internal static class TriggerCommands
 {
-    private static readonly NumericParameter s_count = NumericParameter.Unitless(1, MeterSettings.MaxCount, 1);
 
     public static void Register(CommandTable table) => table
         .Add("TRIGger:SOURce", (c, _) => Done(() => SetSource(c)), 1, 1)
         .Add("TRIGger:SOURce?", (c, _) => Reply(c.Device.State.Settings.TriggerSource == TriggerSource.Bus ? "BUS" : "IMM"))
-        .Add("TRIGger:COUNt", (c, _) => Done(() => SetCount(c, (s, n) => s with { TriggerCount = n })), 1, 1)
+        .Add("TRIGger:COUNt", (c, _) => Done(() => SetCount(c, MeterSettings.MaxTriggerCount, (s, n) => s with { TriggerCount = n })), 1, 1)
         .Add("TRIGger:COUNt?", (c, _) => Reply(Nr3.Format((double)c.Device.State.Settings.TriggerCount)))
-        .Add("SAMPle:COUNt", (c, _) => Done(() => SetCount(c, (s, n) => s with { SampleCount = n })), 1, 1)
+        .Add("SAMPle:COUNt", (c, _) => Done(() => SetCount(c, MeterSettings.MaxSampleCount, (s, n) => s with { SampleCount = n })), 1, 1)
         .Add("SAMPle:COUNt?", (c, _) => Reply(Nr3.Format((double)c.Device.State.Settings.SampleCount)))
         .Add("INITiate:[IMMediate]", (c, _) => Done(() => Fail(c.Device.Acquisition.Start(c.Device.Lifetime))))
         .Add("ABORt", (c, _) => Done(c.Device.Acquisition.Abort))
@@ -51,10 +50,10 @@ internal static class TriggerCommands
         call.Device.State.Update(s => s with { TriggerSource = source });
     }
 
-    private static void SetCount(ScpiCall call, Func<MeterSettings, int, MeterSettings> change)
+    private static void SetCount(ScpiCall call, int max, Func<MeterSettings, int, MeterSettings> change)
     {
-        var value = call.Number(0, s_count);
-        if (value < 1 || value > MeterSettings.MaxCount)
+        var value = call.Number(0, NumericParameter.Unitless(1, max, 1));
+        if (value < 1 || value > max)
         {
             throw new ScpiException(ScpiError.DataOutOfRange);
         }

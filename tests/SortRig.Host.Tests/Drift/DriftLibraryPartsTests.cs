@@ -41,7 +41,7 @@ public sealed class DriftLibraryPartsTests
         {
             var stored = await log.GetDriftRunAsync(outcome.RunId, CancellationToken.None);
             Assert.Equal([p[2].Id, p[0].Id, p[1].Id, null, null], stored!.Channels.Select(c => c.PartId));
-            Assert.Equal(["ch101", "ch102", "ch103", "ch104", "pt100@120"], stored.Channels.Select(c => c.Label));
+            Assert.Equal(["ch101", "ch102", "ch103", "ch104", "pt100@105"], stored.Channels.Select(c => c.Label));
 
             var rows = await log.GetPartDriftRunsAsync([.. p.Select(x => x.Id)], CancellationToken.None);
             Assert.Equal(3, rows.Count);

@@ -13,8 +13,16 @@ public sealed class DriftOptionsTests
         Assert.Equal([101, 102, 103, 104], s.Channels);
         Assert.Equal(TimeSpan.FromSeconds(60), s.Interval);
         Assert.Equal(TimeSpan.FromHours(12), s.Duration);
-        Assert.Equal([120, 101, 102, 103, 104, 120], s.ScanOrder);
+        Assert.Equal([105, 101, 102, 103, 104, 105], s.ScanOrder);
         Assert.Equal(64, s.BatchSize);
+    }
+
+    [Fact]
+    public void Validate_DefaultPt100_IsTheChannelAfterTheHighestPartChannel()
+    {
+        // Our own default layout: parts first, the Pt100 on the next channel.
+        Assert.Equal(113, new DriftOptions { Channels = "101-112" }.Validate().Pt100Channel);
+        Assert.Equal(108, new DriftOptions { Channels = "107,101-103" }.Validate().Pt100Channel);
     }
 
     [Fact]

@@ -116,7 +116,7 @@ public sealed class LibraryDriftTests
             new SeedPart(60, 10, Slot: "T1-A03"), new SeedPart(-5, 10, Slot: "T1-A04")]);
         var t0 = new DateTimeOffset(2026, 3, 2, 20, 0, 0, TimeSpan.Zero);
         var night1 = await log.StartDriftRunAsync(new DriftRunRequest("night-1",
-            [new DriftChannel("ch101", p[0].Id), new DriftChannel("ch102", p[1].Id), new DriftChannel("pt100@120")], TimeSpan.FromMinutes(1)), CancellationToken.None);
+            [new DriftChannel("ch101", p[0].Id), new DriftChannel("ch102", p[1].Id), new DriftChannel("pt100@103")], TimeSpan.FromMinutes(1)), CancellationToken.None);
         var (hours, ohmsA) = NightOneA();
         var samples = new List<StoredDriftSample>();
         for (var k = 0; k < hours.Length; k++)
@@ -124,6 +124,8 @@ public sealed class LibraryDriftTests
             var at = t0.AddMinutes(k);
             samples.Add(new StoredDriftSample(night1.Id, 0, at, ohmsA[k], Temp(k)));
             samples.Add(new StoredDriftSample(night1.Id, 1, at, 10_000 * (1 + (DriftB1 * hours[k] * 1e-6)), Temp(k)));
+            // Thermometer channel, filler: a Pt100 read as R0 (1 + A T) with IEC 60751's A = 3.9083e-3 /K (from memory);
+            // only its presence in the run matters to these tests.
             samples.Add(new StoredDriftSample(night1.Id, 2, at, 100 * (1 + (3.9083e-3 * (Temp(k) - 0))), null));
         }
 

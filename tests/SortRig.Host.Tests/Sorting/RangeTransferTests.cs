@@ -19,7 +19,7 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
 
     public void Dispose() => Directory.Delete(_dir, recursive: true);
 
-    // At ±0.1 % the spec gain uncertainty of the two ranges (k = 2: 163 ppm) fits the allowed quarter of the band
+    // At ±0.1 % the spec gain uncertainty of the two ranges (k = 2: 147 ppm, from 1 y terms 85 and 95 ppm) fits the allowed quarter of the band
     // (250 ppm), so "auto" would not bridge; the operator asks for it ("always"). At ±0.05 % "auto" bridges by itself
     // (Resume_At005PercentWithAuto_BridgesByItself).
     [Fact]
@@ -115,7 +115,7 @@ public sealed class RangeTransferTests(ITestOutputHelper output) : IDisposable
         Assert.All(RatioErrors(parts, first, second), e => Assert.InRange(e.ErrorPpm, -e.ExpandedPpm, e.ExpandedPpm));
     }
 
-    // At ±0.05 % the ranges' spec gain uncertainty (k = 2: 163 ppm) exceeds a quarter of the band (125 ppm), so "auto"
+    // At ±0.05 % the ranges' spec gain uncertainty (k = 2: 147 ppm) exceeds a quarter of the band (125 ppm), so "auto"
     // bridges without being asked; the 20 kOhm parts then settle on the 100 k range (SortPlan's reachable target).
     [Fact]
     public async Task Resume_At005PercentWithAuto_BridgesByItself()

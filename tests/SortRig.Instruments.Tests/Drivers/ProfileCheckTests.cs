@@ -17,8 +17,8 @@ public sealed class ProfileCheckTests
         await using var session = await peer.ConnectSessionAsync();
         var report = await new ProfileCheck().RunAsync(session, profile, s_none);
         Assert.True(report.Passed, string.Join("\n", report.Rows));
-        // clear, identify, model, 6 ranges, 5 NPLC settings, 4-wire, read, init/fetch, error queue
-        Assert.Equal(3 + 6 + 5 + 1 + 1 + 1 + 1, report.Rows.Count);
+        // clear, identify, model, 7 ranges, 6 NPLC settings, 4-wire, read, init/fetch, error queue
+        Assert.Equal(3 + 7 + 6 + 1 + 1 + 1 + 1, report.Rows.Count);
         Assert.All(report.Rows, r => Assert.Equal(CheckOutcome.Pass, r.Outcome));
         Assert.Equal("SIM-6H", report.Identity!.Model);
     }

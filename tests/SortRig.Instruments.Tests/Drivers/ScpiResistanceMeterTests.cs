@@ -31,8 +31,8 @@ public sealed class ScpiResistanceMeterTests
         var dmm = new ScriptedDmm();
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
-        await meter.ConfigureAsync(new ResistanceSetup(100, 0.02, FourWire: true), s_none);
-        Assert.Equal(["CONF:FRES 100", "SENS:FRES:RANG 100", "SENS:FRES:NPLC 0.02"], peer.Received.Take(3));
+        await meter.ConfigureAsync(new ResistanceSetup(100, 0.04, FourWire: true), s_none);
+        Assert.Equal(["CONF:FRES 100", "SENS:FRES:RANG 100", "SENS:FRES:NPLC 0.04"], peer.Received.Take(3));
     }
 
     [Fact]
@@ -40,12 +40,12 @@ public sealed class ScpiResistanceMeterTests
     {
         // SCPI-99 vol. 2 ch. 21: -222 "Data out of range" is an execution error.
         var dmm = new ScriptedDmm();
-        dmm.Overrides["SENS:RES:NPLC 100"] = () => { dmm.QueueError(-222, "Data out of range"); return PeerAction.Silent; };
+        dmm.Overrides["SENS:RES:NPLC 40"] = () => { dmm.QueueError(-222, "Data out of range"); return PeerAction.Silent; };
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
-        var ex = await Assert.ThrowsAsync<ScpiInstrumentException>(() => meter.ConfigureAsync(new ResistanceSetup(1000, 100, false), s_none));
+        var ex = await Assert.ThrowsAsync<ScpiInstrumentException>(() => meter.ConfigureAsync(new ResistanceSetup(1000, 40, false), s_none));
         Assert.Equal((-222, ScpiErrorClass.Execution), (ex.Code, ex.Class));
-        Assert.Contains("SENS:RES:NPLC 100", ex.Command, StringComparison.Ordinal);
+        Assert.Contains("SENS:RES:NPLC 40", ex.Command, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -124,7 +124,7 @@ public sealed class ScpiResistanceMeterTests
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
         Assert.False(await meter.VerifySetupAsync(s_none));   // nothing configured yet
-        await meter.ConfigureAsync(new ResistanceSetup(100_000, 100, false), s_none);
+        await meter.ConfigureAsync(new ResistanceSetup(100_000, 40, false), s_none);
         Assert.True(await meter.VerifySetupAsync(s_none));
         dmm.ResetToDefaults();                                 // as after a power glitch
         Assert.False(await meter.VerifySetupAsync(s_none));
@@ -181,7 +181,7 @@ public sealed class ScpiResistanceMeterTests
         await using var peer = ScriptedScpiPeer.Start(new ScriptedDmm().Handle);
         var profile = TestProfiles.Shipped("bench-5half");
         await using var meter = new ScpiResistanceMeter(await peer.ConnectSessionAsync(), profile);
-        await meter.ConfigureAsync(new ResistanceSetup(1000, 1, false), s_none).WaitAsync(TimeSpan.FromSeconds(5));
+        await meter.ConfigureAsync(new ResistanceSetup(1000, 2, false), s_none).WaitAsync(TimeSpan.FromSeconds(5));
         await Assert.ThrowsAsync<NotSupportedException>(() => meter.ReadChannelsAsync([101], s_none));
     }
 

@@ -57,7 +57,7 @@ public sealed class FoundByFuzzingTests
     public void Profile_ShippedSimulatorWithTwoAliasesInAValue_IsAYamlError()
     {
         var path = Path.Combine(RepoPaths.Instruments, "simulator.yaml");
-        var text = File.ReadAllText(path).Replace("over_range: 1.2", "over_range: *x *y", StringComparison.Ordinal);
+        var text = File.ReadAllText(path).Replace("over_range: 1.25", "over_range: *x *y", StringComparison.Ordinal);
         var ex = Assert.Throws<ProfileException>(() => MeterProfileLoader.Parse(text, path));
         Assert.Contains("YAML error", ex.Problem, StringComparison.Ordinal);
         Assert.InRange(ex.Line, 1, text.Split('\n').Length);

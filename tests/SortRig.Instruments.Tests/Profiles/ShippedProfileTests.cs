@@ -31,16 +31,29 @@ public sealed class ShippedProfileTests
     [Fact]
     public void Simulator_MatchesTheSimulatedMeter()
     {
-        // The simulated meter's published behaviour (brief): *IDN? model SIM-6H, ranges 100 ohm-10 Mohm
-        // in decades with 1.2 over-range, NPLC 0.02/0.2/1/10/100.
+        // The simulated meter's documented behaviour (docs/simulator.md, the SortRig envelope): *IDN? model SIM-6H,
+        // ranges 100 ohm-10 Mohm in decades and a 50 Mohm top range, 1.25 over-range, NPLC 0.04/0.4/1/4/10/40.
         var p = MeterProfileLoader.Load(Path.Combine(RepoPaths.Instruments, "simulator.yaml"));
         Assert.True(p.MatchesModel("SIM-6H"));
-        Assert.Equal([100, 1e3, 1e4, 1e5, 1e6, 1e7], p.Spec.Ranges.Select(r => r.FullScale));
-        Assert.All(p.Spec.Ranges, r => Assert.Equal(1.2, r.OverRangeFactor));
-        Assert.Equal([0.02, 0.2, 1, 10, 100], p.Spec.Nplcs.Select(n => n.Nplc));
+        Assert.Equal([100, 1e3, 1e4, 1e5, 1e6, 1e7, 5e7], p.Spec.Ranges.Select(r => r.FullScale));
+        Assert.All(p.Spec.Ranges, r => Assert.Equal(1.25, r.OverRangeFactor));
+        Assert.Equal([0.04, 0.4, 1, 4, 10, 40], p.Spec.Nplcs.Select(n => n.Nplc));
         Assert.True(p.TwoWire && p.Spec.FourWire);
         Assert.Contains(TransportKind.Simulator, p.Comms.Transports);
         Assert.Equal("SENS:FRES:RANG 10000", p.Commands.Range.Render(("function", "FRES"), ("range", 10000.0)));
+    }
+
+    [Theory]
+    [InlineData("bench-6half-lan")]
+    [InlineData("bench-5half")]
+    [InlineData("handheld-4half-serial")]
+    [InlineData("simulator")]
+    public void Header_SaysTheFiguresAreInventedForSortRig(string family)
+    {
+        // Originality rule (RULES.md): shipped figures are our own, and the file says so before its first key.
+        var lines = File.ReadLines(Path.Combine(RepoPaths.Instruments, family + ".yaml")).TakeWhile(l => l.StartsWith('#'));
+        Assert.Contains(lines, l => l.Contains("invented for SortRig", StringComparison.Ordinal));
+        Assert.DoesNotContain(File.ReadLines(Path.Combine(RepoPaths.Instruments, family + ".yaml")), l => l.Contains("from memory", StringComparison.Ordinal));
     }
 
     [Fact]

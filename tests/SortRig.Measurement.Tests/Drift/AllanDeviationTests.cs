@@ -4,7 +4,7 @@ namespace SortRig.Measurement.Tests.Drift;
 
 public sealed class AllanDeviationTests
 {
-    // NIST SP 1065 (2008) p. 108, 1000-point test suite, overlapping Allan deviation at tau = 1, 10, 100
+    // NIST SP 1065 (2008) sec. 12 (page number not kept; section from memory), 1000-point test suite, overlapping Allan deviation at tau = 1, 10, 100
     // (values also quoted beside the same recipe in public stability-analysis test code).
     [Theory]
     [InlineData(1, 2.922319e-01, 999)]

@@ -22,21 +22,23 @@ public sealed class RangePlanTests
         var t = Assert.Single(plan.Transfers);
         Assert.Equal(10_000, t.LowRange.FullScale);
         Assert.Equal(100_000, t.HighRange.FullScale);
-        // 1 y gain terms 0.0100 % on both ranges, rectangular, combined: √((1e-4² + 1e-4²)/3) = 8.165e-5.
-        Assert.Equal(Math.Sqrt(2e-8 / 3), t.GainUncertainty, 15);
+        // 1 y gain terms 0.0085 % (10 k) and 0.0095 % (100 k), rectangular, combined:
+        // √((8.5e-5² + 9.5e-5²)/3) = √(1.625e-8/3) = 7.360e-5.
+        Assert.Equal(Math.Sqrt(1.625e-8 / 3), t.GainUncertainty, 15);
         Assert.Equal(10_000, t.BridgeNominal);
-        // 2 × 8.165e-5 = 1.63e-4 <= 0.25 × 0.1 % = 2.5e-4: fine uncorrected.
+        // 2 × 7.360e-5 = 1.47e-4 <= 0.25 × 0.1 % = 2.5e-4: fine uncorrected.
         Assert.True(t.UncorrectedResolvable);
-        // Bridge 10 k on 100 k range at 1 NPLC: 0.05/√3, 0.06/√8, 0.1 × (0.2 + 0.5)/√3 → 0.0540 Ohm; on 10 k: 0.01487 Ohm.
-        var uHigh = Math.Sqrt(Sq(0.05 / Math.Sqrt(3)) + Sq(0.06 / Math.Sqrt(8)) + Sq(0.07 / Math.Sqrt(3))) / 10_000;
-        var uLow = Math.Sqrt(Sq(0.005 / Math.Sqrt(3)) + Sq(0.006 / Math.Sqrt(8)) + Sq(0.025 / Math.Sqrt(3))) / 10_000;
+        // Bridge 10 k on 100 k range at 1 NPLC: 0.05/√3, 0.07/√8, 0.1 × (0.3 + 0.4)/√3 → 0.0555 Ohm; on 10 k: 0.005/√3,
+        // 0.007/√8, 0.1 × (0.25 + 0.04)/√3 → 0.01717 Ohm.
+        var uHigh = Math.Sqrt(Sq(0.05 / Math.Sqrt(3)) + Sq(0.07 / Math.Sqrt(8)) + Sq(0.07 / Math.Sqrt(3))) / 10_000;
+        var uLow = Math.Sqrt(Sq(0.005 / Math.Sqrt(3)) + Sq(0.007 / Math.Sqrt(8)) + Sq(0.029 / Math.Sqrt(3))) / 10_000;
         Assert.Equal(Math.Sqrt(Sq(uHigh) + Sq(uLow)), t.ExpectedCorrectionUncertainty, 15);
     }
 
     [Fact]
     public void Plan_TightMatchAcrossRanges_NeedsTheCorrection()
     {
-        // 0.01 % match: allowed 2.5e-5 relative; uncorrected 1.63e-4 fails, corrected 2 × 5.6e-6 = 1.1e-5 passes.
+        // 0.01 % match: allowed 2.5e-5 relative; uncorrected 1.47e-4 fails, corrected 2 × 5.81e-6 = 1.16e-5 passes.
         var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]);
         var t = Assert.Single(plan.Transfers);
         Assert.False(t.UncorrectedResolvable);

@@ -16,7 +16,8 @@ public sealed class WindowStatisticsTests
     public void Of_ClearLine_SlopeAndSignificanceMatchHandRegression()
     {
         // x = 0..4 s, y = 0 1 1 2 3 (+10 kOhm). Hand: Sxx = 10, Sxy = 7, b = 0.7, SSR = 0.30, s² = 0.1,
-        // SE(b) = √(0.1/10) = 0.1, t = 7 > t(3 dof, 2-sided 5 %) = 3.182 → significant.
+        // SE(b) = √(0.1/10) = 0.1, t = 7 > t(3 dof, 2-sided 5 %) = 3.182 (Student t table, from memory; 3.18245
+        // by bisection on the t distribution function, textbook identity) → significant.
         var s = WindowStatistics.Of([At(0, 10_000), At(1, 10_001), At(2, 10_001), At(3, 10_002), At(4, 10_003)], WindowStatistics.CriticalT(5, 0.05))!.Value;
         Assert.Equal(0.7, s.Slope, 9);
         Assert.True(s.SlopeSignificant);

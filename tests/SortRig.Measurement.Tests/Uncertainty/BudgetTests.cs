@@ -25,7 +25,7 @@ public sealed class BudgetTests
     [Fact]
     public void EndGauge_CombinedStandardUncertainty_Is32Nm()
     {
-        // JCGM 100:2008 H.1.4: u_c(l) = 32 nm (u_c² = 1002 nm²).
+        // JCGM 100:2008 H.1.4: u_c(l) = 32 nm (u_c² = 1002 nm²); from memory, as are the Table H.1 inputs above.
         var uc = EndGauge().CombinedStandardUncertainty;
         Assert.InRange(uc, 31.5, 32.5);
         Assert.InRange(uc * uc, 1000, 1005);
@@ -34,7 +34,7 @@ public sealed class BudgetTests
     [Fact]
     public void EndGauge_WelchSatterthwaite_Is16AfterTruncation()
     {
-        // JCGM 100:2008 H.1.6: ν_eff(l) ≈ 16.7, taken as 16 (G.4.1 truncation).
+        // JCGM 100:2008 H.1.6: ν_eff(l) ≈ 16.7, taken as 16 (G.4.1 truncation); from memory.
         var nu = EndGauge().EffectiveDegreesOfFreedom;
         Assert.InRange(nu, 16.0, 17.0);
     }
@@ -42,7 +42,7 @@ public sealed class BudgetTests
     [Fact]
     public void EndGauge_ExpandedAt99Percent_Is93Nm()
     {
-        // JCGM 100:2008 H.1.6: t_99(16) = 2.92, U_99 = 2.92 × 32 nm = 93 nm.
+        // JCGM 100:2008 H.1.6: t_99(16) = 2.92, U_99 = 2.92 × 32 nm = 93 nm; from memory.
         var budget = EndGauge();
         Assert.Equal(2.92, budget.CoverageFactorAt(0.99), 2);
         Assert.InRange(budget.ExpandedAt(0.99), 92.0, 94.0);
@@ -66,7 +66,8 @@ public sealed class BudgetTests
     [Fact]
     public void CoverageFactor_InfiniteDegreesOfFreedom_IsTwoAt9545Percent()
     {
-        // JCGM 100:2008 Table G.1: p = 95.45 % ↔ k = 2 for a normal distribution.
+        // JCGM 100:2008 Table G.1: p = 95.45 % ↔ k = 2 for a normal distribution (from memory; also the normal
+        // distribution's 2-sigma coverage, textbook identity).
         var budget = new Budget(new BudgetComponent("b", 1.0));
         Assert.Equal(2.0, budget.CoverageFactorAt(), 3);
         Assert.True(double.IsPositiveInfinity(budget.EffectiveDegreesOfFreedom));

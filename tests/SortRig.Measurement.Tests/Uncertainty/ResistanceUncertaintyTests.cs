@@ -8,11 +8,11 @@ public sealed class ResistanceUncertaintyTests
 {
     private static readonly DateTimeOffset s_start = new(2025, 3, 1, 9, 0, 0, TimeSpan.Zero);
 
-    // Eight readings of a 10 kOhm part, 22 ms apart (1 NPLC at 45 rdg/s).
+    // Eight readings of a 10 kOhm part, 42 ms apart (1 NPLC at 24 rdg/s: 1/24 s = 41.7 ms).
     private static readonly double[] s_values = [10000.012, 10000.018, 10000.015, 10000.011, 10000.019, 10000.014, 10000.016, 10000.015];
 
     private static Reading[] Readings() =>
-        s_values.Select((v, i) => Reading.Finite(v, s_start.AddMilliseconds(22 * i), 10_000)).ToArray();
+        s_values.Select((v, i) => Reading.Finite(v, s_start.AddMilliseconds(42 * i), 10_000)).ToArray();
 
     [Fact]
     public void PercentOfReading_OnTenKilohm_MatchesTradeArithmetic()
@@ -30,12 +30,14 @@ public sealed class ResistanceUncertaintyTests
         // Hand arithmetic: mean = 80000.120/8 = 10000.015; deviations (mOhm) -3 3 0 -4 4 -1 1 0,
         // Σd² = 52e-6 Ohm², s² = 52e-6/7, u_A = s/√8 = 0.0009636 Ohm.
         var uA = Math.Sqrt(52e-6 / 7) / Math.Sqrt(8);
-        // 1 y spec at 10 kOhm on the 10 kOhm range: 0.0100 % × 10000.015 + 0.0010 % × 10000 = 1.1000015 Ohm, /√3 (GUM 4.3.7).
-        var uSpec = 1.1000015 / Math.Sqrt(3);
+        // 1 y spec at 10 kOhm on the 10 kOhm range: 0.0085 % × 10000.015 + 0.0006 % × 10000 = 0.850001275 + 0.06
+        // = 0.910001275 Ohm, /√3 (GUM 4.3.7).
+        var uSpec = 0.910001275 / Math.Sqrt(3);
         // Resolution 1 ppm of 10 kOhm = 0.01 Ohm step; half step 0.005 Ohm, /√3.
         var uRes = 0.005 / Math.Sqrt(3);
-        // Short term: 0.1 × 24 h half-width (0.0020 % × 10000.015 + 0.0005 % × 10000 = 0.2500003 Ohm), /√3.
-        var uSt = 0.1 * 0.2500003 / Math.Sqrt(3);
+        // Short term: 0.1 × 24 h half-width (0.0025 % × 10000.015 + 0.0004 % × 10000 = 0.250000375 + 0.04
+        // = 0.290000375 Ohm), /√3.
+        var uSt = 0.1 * 0.290000375 / Math.Sqrt(3);
 
         Assert.Equal(10000.015, value.Value, 9);
         Assert.Equal(Math.Sqrt((uA * uA) + (uSpec * uSpec) + (uRes * uRes)), value.StandardUncertainty, 9);

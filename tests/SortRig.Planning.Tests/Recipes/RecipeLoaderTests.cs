@@ -22,10 +22,12 @@ public sealed class RecipeLoaderTests
     {
         var r = await RecipeLoader.LoadFileAsync(RepoPaths.Recipe("ratio-set.yaml"), CancellationToken.None);
         Assert.Equal(RecipeForm.Matched, r.Form);
-        Assert.Equal([10e3, 10e3, 10e3, 20e3, 50e3], r.Positions.Select(p => p.Nominal));
+        // base 1k × ratios 1, 2, 2, 4 (arithmetic of the shipped file).
+        Assert.Equal([1e3, 2e3, 2e3, 4e3], r.Positions.Select(p => p.Nominal));
         Assert.Equal(PairBuilds.Parallel, r.Positions[0].Pairs);
+        Assert.Equal(PairBuilds.None, r.Positions[1].Pairs);
         Assert.Equal(PairBuilds.Series, r.Positions[3].Pairs);
-        Assert.Equal(1000, r.MatchTolerancePpm);
+        Assert.Equal(500, r.MatchTolerancePpm);
     }
 
     [Fact]

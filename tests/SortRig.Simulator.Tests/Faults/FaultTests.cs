@@ -1,5 +1,6 @@
 using Microsoft.Extensions.Time.Testing;
 using SortRig.Simulator.Faults;
+using SortRig.Simulator.Meter;
 using SortRig.Simulator.Tests.Support;
 
 namespace SortRig.Simulator.Tests.Faults;
@@ -77,7 +78,7 @@ public sealed class FaultTests : IAsyncLifetime
     [Fact]
     public async Task SilentReset_SettingsReturnToDefaultsWithoutAnError()
     {
-        await _client.SendAsync("RES:NPLC 100;RANG 1000");
+        await _client.SendAsync("RES:NPLC 40;RANG 1000");
         await _client.SendAsync("SIM:FAUL:INJ RES");
 
         Assert.Equal("+1.00000000E+00", await _client.QueryAsync("RES:NPLC?"));
@@ -97,9 +98,9 @@ public sealed class FaultTests : IAsyncLifetime
 
         _bench.Faults.SetRate(FaultKind.SpuriousError, 0);
 
-        // Binomial(200, 0.2): mean 40, sd 5.7; 23..57 is +-3 sd. The queue keeps at most 20.
+        // Binomial(200, 0.2): mean 40, sd 5.7; 23..57 is +-3 sd (textbook identity: np, sqrt(np(1-p))). The queue keeps at most ErrorQueue.Capacity (16).
         var fired = _bench.Faults.Log.Count(FaultKind.SpuriousError);
         Assert.InRange(fired, 23, 57);
-        Assert.Equal(Math.Min(fired, 20), int.Parse(await _client.QueryAsync("SYST:ERR:COUN?"), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(Math.Min(fired, ErrorQueue.Capacity), int.Parse(await _client.QueryAsync("SYST:ERR:COUN?"), System.Globalization.CultureInfo.InvariantCulture));
     }
 }

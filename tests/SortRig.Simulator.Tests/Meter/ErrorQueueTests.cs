@@ -13,12 +13,12 @@ public sealed class ErrorQueueTests
             queue.Push(new ScpiError(-200 - i, "e"));
         }
 
-        var drained = Enumerable.Range(0, 21).Select(_ => queue.Next().Code).ToArray();
+        var drained = Enumerable.Range(0, 17).Select(_ => queue.Next().Code).ToArray();
 
-        // SCPI-99 vol. 2 sec. 21.8.4: a full queue replaces its newest entry with -350.
-        Assert.Equal(Enumerable.Range(0, 19).Select(i => -200 - i), drained[..19]);
-        Assert.Equal(-350, drained[19]);
-        Assert.Equal(0, drained[20]);
+        // SCPI-99 vol. 2 sec. 21.8.4: a full queue (16 entries, our own length) replaces its newest entry with -350.
+        Assert.Equal(Enumerable.Range(0, 15).Select(i => -200 - i), drained[..15]);
+        Assert.Equal(-350, drained[15]);
+        Assert.Equal(0, drained[16]);
     }
 
     [Fact]

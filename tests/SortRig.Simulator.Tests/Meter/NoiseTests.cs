@@ -7,7 +7,7 @@ public sealed class NoiseTests
 {
     // Our documented noise and resolution table (docs/simulator.md), ppm of range: NPLC -> (noise, step).
     private static readonly (double Nplc, double NoisePpm, double StepPpm)[] s_table =
-        [(0.02, 20, 100), (0.2, 3, 10), (1, 0.6, 1), (10, 0.2, 0.1), (100, 0.1, 0.1)];
+        [(0.04, 12, 40), (0.4, 2, 4), (1, 0.7, 1), (4, 0.35, 0.5), (10, 0.25, 0.2), (40, 0.15, 0.1)];
 
     [Fact]
     public async Task Rms_FallsWithNplc_AndMatchesDocumentedNoiseWhereStepIsFine()

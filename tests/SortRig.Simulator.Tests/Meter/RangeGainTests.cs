@@ -32,8 +32,9 @@ public sealed class RangeGainTests
             var gain = await client.QueryNumberAsync($"SIM:GAIN? {range}");
             Assert.Equal(bench.GainErrorPpm(range), gain, 6);
 
-            // 10 NPLC: noise 0.2 ppm of range and a 0.1 ppm of range step (docs/simulator.md); on the 100 kOhm
-            // range that is 2 ppm of this 10 kOhm part per reading, 0.45 ppm for the mean of 20: 2 ppm is 4 sigma.
+            // 10 NPLC: noise 0.25 ppm of range and a 0.2 ppm of range step (docs/simulator.md); on the 100 kOhm
+            // range that is sqrt(2.5² + 2²/12) = 2.56 ppm of this 10 kOhm part per reading, 0.57 ppm for the mean of
+            // 20: 2 ppm is 3.5 sigma.
             Assert.InRange(errors[range] - gain, -2, 2);
         }
 

@@ -14,9 +14,13 @@ public sealed class ErrorCodeTests : IAsyncLifetime
     // SCPI-99 vol. 2 ch. 21 error codes and messages.
     [Theory]
     [InlineData("FOO:BAR 1", "-113,\"Undefined header\"")]
-    [InlineData("RES:NPLC 5", "-222,\"Data out of range\"")]
-    [InlineData("RES:RANG 2e7", "-222,\"Data out of range\"")]
+    [InlineData("RES:NPLC 5", "-224,\"Illegal parameter value\"")] // between settings 4 and 10 (our own rule)
+    [InlineData("RES:NPLC 50", "-222,\"Data out of range\"")]      // above the longest setting, 40
+    [InlineData("RES:RANG 6e7", "-222,\"Data out of range\"")]     // above the 50 MOhm top range
     [InlineData("TRIG:COUN 0", "-222,\"Data out of range\"")]
+    [InlineData("TRIG:COUN 5001", "-222,\"Data out of range\"")]  // our own limits: 5000 triggers,
+    [InlineData("SAMP:COUN 1001", "-222,\"Data out of range\"")]  // 1000 samples per trigger,
+    [InlineData("TRIG:COUN 21;:SAMP:COUN 1000;:INIT", "-223,\"Too much data\"")] // 20 000 readings per INITiate
     [InlineData("RES:NPLC", "-109,\"Missing parameter\"")]
     [InlineData("RES:NPLC 1,2", "-108,\"Parameter not allowed\"")]
     [InlineData("*RST 1", "-108,\"Parameter not allowed\"")]
@@ -51,19 +55,19 @@ public sealed class ErrorCodeTests : IAsyncLifetime
     public async Task CompoundMessage_RelativePathAndJoinedReplies()
     {
         // SCPI-99 vol. 1 sec. 6.2.4: after ';' the header continues at the previous node.
-        var reply = await Q("SENS:RES:RANG 1000;NPLC 100;RANG?;NPLC?;*OPC?");
+        var reply = await Q("SENS:RES:RANG 1000;NPLC 40;RANG?;NPLC?;*OPC?");
 
-        Assert.Equal("+1.00000000E+03;+1.00000000E+02;1", reply);
+        Assert.Equal("+1.00000000E+03;+4.00000000E+01;1", reply);
     }
 
     [Fact]
     public async Task CommandError_DiscardsRestOfMessage_ExecutionErrorDoesNot()
     {
-        await Q("RES:NPLC 10;BOGUS;RES:NPLC 100");
+        await Q("RES:NPLC 10;BOGUS;RES:NPLC 40");
         Assert.Equal("+1.00000000E+01", await Q("RES:NPLC?"));
 
-        await Q("RES:NPLC 7;RES:NPLC 0.2");
-        Assert.Equal("+2.00000000E-01", await Q("RES:NPLC?"));
+        await Q("RES:NPLC 7;RES:NPLC 0.4");
+        Assert.Equal("+4.00000000E-01", await Q("RES:NPLC?"));
     }
 
     [Fact]
@@ -81,7 +85,7 @@ public sealed class ErrorCodeTests : IAsyncLifetime
     }
 
     [Fact]
-    public async Task ErrorQueue_OverflowsAtTwentyWithMinus350()
+    public async Task ErrorQueue_OverflowsAtSixteenWithMinus350()
     {
         for (var i = 0; i < 25; i++)
         {
@@ -89,14 +93,15 @@ public sealed class ErrorCodeTests : IAsyncLifetime
         }
 
         var errors = new List<string>();
-        for (var i = 0; i < 21; i++)
+        for (var i = 0; i < 17; i++)
         {
             errors.Add((await Q("SYST:ERR?"))!);
         }
 
-        Assert.All(errors.Take(19), e => Assert.StartsWith("-113,", e));
-        Assert.Equal("-350,\"Queue overflow\"", errors[19]);
-        Assert.Equal("0,\"No error\"", errors[20]);
+        // A queue of 16 (our own length, docs/simulator.md): 15 errors, then -350 in place of the 16th.
+        Assert.All(errors.Take(15), e => Assert.StartsWith("-113,", e));
+        Assert.Equal("-350,\"Queue overflow\"", errors[15]);
+        Assert.Equal("0,\"No error\"", errors[16]);
     }
 
     private Task<string?> Q(string message) => _bench.ExecuteAsync(message);

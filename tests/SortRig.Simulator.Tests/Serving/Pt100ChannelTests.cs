@@ -28,7 +28,7 @@ public sealed class Pt100ChannelTests
         var clock = Benches.FakeClock();
         var ambient = new AmbientSpec { MeanCelsius = 20, SwingKelvin = 3, Period = TimeSpan.FromHours(24) };
         await using var bench = new SimulatedBench(Benches.Manual() with { Ambient = ambient }, clock);
-        await bench.ExecuteAsync("CONF:FRES 1000;:ROUT:CLOS (@120)");
+        await bench.ExecuteAsync("CONF:FRES 1000;:ROUT:CLOS (@117)");
 
         clock.Advance(TimeSpan.FromHours(6)); // a quarter period: the peak, 23 degC
         var reply = await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromMilliseconds(10));

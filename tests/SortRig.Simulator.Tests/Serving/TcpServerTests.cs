@@ -48,7 +48,7 @@ public sealed class TcpServerTests : IAsyncLifetime
 
         var value = await _client.QueryNumberAsync("MEAS:RES? 10000");
 
-        Assert.Equal(_bench.Truth(3), value, 10_000 * 5e-6); // 1 NPLC: 0.6 ppm noise, 1 ppm step
+        Assert.Equal(_bench.Truth(3), value, 10_000 * 5e-6); // 1 NPLC: 0.7 ppm noise, 1 ppm step
     }
 
     [Fact]

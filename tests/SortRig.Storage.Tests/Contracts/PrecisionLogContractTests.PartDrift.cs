@@ -16,7 +16,7 @@ public abstract partial class PrecisionLogContractTests
     {
         var parts = await StockLibraryAsync(log, 10, -20, 30, 40);
         var first = await log.StartDriftRunAsync(new DriftRunRequest("night-1",
-            [new DriftChannel("ch101", parts[0].Id), new DriftChannel("ch102", parts[1].Id), new DriftChannel("ch103"), new DriftChannel("pt100@120")],
+            [new DriftChannel("ch101", parts[0].Id), new DriftChannel("ch102", parts[1].Id), new DriftChannel("ch103"), new DriftChannel("pt100@104")],
             TimeSpan.FromMinutes(1)), CancellationToken.None);
         await log.AppendDriftSamplesAsync([.. ChannelSamples(first.Id, 0, Bench.T0, 5), .. ChannelSamples(first.Id, 1, Bench.T0.AddSeconds(1), 3),
             .. ChannelSamples(first.Id, 2, Bench.T0.AddSeconds(2), 7)], CancellationToken.None);
