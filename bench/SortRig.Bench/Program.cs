@@ -4,7 +4,7 @@ using SortRig.Bench.Planning;
 
 if (args.Length > 0 && args[0] == "planning")
 {
-    return await PlanningBenchmark.RunAsync(CancellationToken.None);
+    return await PlanningBenchmark.RunAsync(args.Length > 1 ? args[1] : "all", CancellationToken.None);
 }
 
 if (args.Length > 0 && args[0] == "settle")

@@ -5,7 +5,7 @@ namespace SortRig.Bench.Planning;
 /// <summary>`planning` benchmark: cup-planner yield, assembler time, sweep-vs-exact gap; writes docs/bench-planning.md.</summary>
 internal static class PlanningBenchmark
 {
-    public static async Task<int> RunAsync(CancellationToken ct)
+    public static async Task<int> RunAsync(string section, CancellationToken ct)
     {
         var root = FindRoot();
         async Task<Recipe> Load(string f) => await RecipeLoader.LoadFileAsync(Path.Combine(root, "recipes", f), ct).ConfigureAwait(false);
@@ -16,18 +16,31 @@ internal static class PlanningBenchmark
         var divider = await Load("decade-divider.yaml").ConfigureAwait(false);
         var triple = RecipeLoader.Load("recipe: triple-pairs\nform: matched\nmatch-ppm: 1000\npositions:\n  - { name: A, nominal: 10k, pairs: [parallel] }\n  - { name: B, nominal: 10k }\n  - { name: C, nominal: 20k, pairs: [series] }\n", "bench");
 
-        var yield = YieldBench.Run(quad);
+        var all = section == "all";
+        var yield = all || section == "cups" ? YieldBench.Run(quad) : [];
         Console.WriteLine(string.Join('\n', yield));
-        var timing = TimingBench.Run([("matched-quad", quad), ("ratio-set (pairs)", ratioSet), ("r2r-dac-8bit", r2r)]);
-        Console.WriteLine(string.Join('\n', timing));
-        var gap = GapBench.Run(
+        var gap = all || section == "gap" ? GapBench.Run(
         [
             ("matched-quad, unequal uncertainty, 16 parts", quad, [10e3], 16, 700, 150),
             ("10k∥pair / 10k / 20k-series, 14 parts", triple, [10e3, 20e3], 14, 700, 100),
             ("diff-amp-g10, 16 parts", diffAmp, [1e3, 10e3], 16, 400, 20),
             ("decade-divider, 12 parts", divider, [90e3, 9e3, 1e3, 2e3], 12, 300, 20),
-        ]);
+        ]) : [];
         Console.WriteLine(string.Join('\n', gap));
+        var every = new List<(string, Recipe)>();
+        foreach (var f in Directory.GetFiles(Path.Combine(root, "recipes"), "*.yaml").Order(StringComparer.Ordinal))
+        {
+            every.Add((Path.GetFileNameWithoutExtension(f), await RecipeLoader.LoadFileAsync(f, ct).ConfigureAwait(false)));
+        }
+
+        var reels = all || section == "reels" ? ReelBench.Run(every, 1000, TimeSpan.FromSeconds(10), seed: 1) : [];
+        var big = all || section == "big" ? ReelBench.Run([("matched-quad", quad)], 10_000, TimeSpan.FromSeconds(60), seed: 1) : [];
+        var timing = all || section == "timing" ? TimingBench.Run([("matched-quad", quad), ("ratio-set (pairs)", ratioSet), ("r2r-dac-8bit", r2r)]) : [];
+        Console.WriteLine(string.Join('\n', timing));
+        if (!all)
+        {
+            return 0;
+        }
 
         var md = new List<string>
         {
