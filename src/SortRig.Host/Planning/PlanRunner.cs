@@ -14,7 +14,8 @@ namespace SortRig.Host.Planning;
 /// <param name="CsvPath">Where to export the pick list as CSV; null for none.</param>
 /// <param name="TakeBy">When set, take the picked parts from the library for this person (all or none).</param>
 /// <param name="Mode">How the pick list names parts.</param>
-internal sealed record PlanRequest(string Database, string? Session, string Recipe, string? CsvPath = null, string? TakeBy = null, PickMode Mode = PickMode.Auto);
+/// <param name="TimeLimit">Search time for large reels; null for the assembler's default (10 s).</param>
+internal sealed record PlanRequest(string Database, string? Session, string Recipe, string? CsvPath = null, string? TakeBy = null, PickMode Mode = PickMode.Auto, TimeSpan? TimeLimit = null);
 
 /// <summary>Loads the recipe and the parts, plans, prints, exports and optionally takes the picked parts.</summary>
 internal static class PlanRunner
@@ -45,7 +46,7 @@ internal static class PlanRunner
                 }
             }
 
-            var options = new AssemblyOptions();
+            var options = new AssemblyOptions(timeLimit: request.TimeLimit, progress: new SearchProgress(console));
             var qualify = parts.Select(p => p.SessionId).Distinct().Count() > 1;
             var outcome = PickPlanner.Plan(recipe, parts, request.Mode, qualify, new SetAssembler(options), options);
             PickListView.Write(console, outcome, title);
