@@ -66,7 +66,7 @@ internal static class PlanningBenchmark
             "",
             "Default options (time limit 10 s). Nominals drawn in proportion to one set's needs (a position allowing pairs shares its",
             "weight with its pair nominal); 'normal' σ = 1 %/3 truncated at ±1 %, 'bimodal' σ = 1 %/2 with |deviation| < 0.4 % missing;",
-            "10 ppm expanded transfer uncertainty; seed 1. 'upper bound' is proven (never below the optimum); gap = (bound − sets) / bound.",
+            "expanded transfer uncertainty uniform 5–15 ppm (unequal: the sweep's exact case does not apply); seed 1. 'upper bound' is proven (never below the optimum); gap = (bound − sets) / bound.",
             "'part count' = Hall-type counting bound over nominal classes (docs/planning.md); for the matched form parts that fit no",
             "common window are not counted. Time includes the bound; a search that stops at the time limit shows about 10 s.",
             "",
