@@ -32,6 +32,18 @@ internal static class PlanningBenchmark
             every.Add((Path.GetFileNameWithoutExtension(f), await RecipeLoader.LoadFileAsync(f, ct).ConfigureAwait(false)));
         }
 
+        if (section == "probe")
+        {
+            var some = every.Where(e => e.Item1 is "ratio-set" or "diff-amp-g10" or "decade-divider").ToList();
+            foreach (var w in new[] { 10, 14 })
+            {
+                Console.WriteLine($"window {w}");
+                ReelBench.Run(some, 1000, TimeSpan.FromSeconds(10), seed: 1, window: w, bimodal: false);
+            }
+
+            return 0;
+        }
+
         var reels = all || section == "reels" ? ReelBench.Run(every, 1000, TimeSpan.FromSeconds(10), seed: 1) : [];
         var big = all || section == "big" ? ReelBench.Run([("matched-quad", quad)], 10_000, TimeSpan.FromSeconds(60), seed: 1) : [];
         var paired = every.Where(e => e.Item2.Form == RecipeForm.Matched && e.Item2.Positions.Any(p => p.Pairs != PairBuilds.None)).Take(1).Select(e => (e.Item1 + " (pairs)", e.Item2));

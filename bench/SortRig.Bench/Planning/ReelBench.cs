@@ -12,16 +12,16 @@ namespace SortRig.Bench.Planning;
 /// </summary>
 internal static class ReelBench
 {
-    public static List<string> Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int parts, TimeSpan limit, int seed)
+    public static List<string> Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int parts, TimeSpan limit, int seed, int window = 20, bool bimodal = true)
     {
         var rows = new List<string> { "| recipe | reel | parts | sets | upper bound | gap | bound method | search | time |", "|---|---|---|---|---|---|---|---|---|" };
         foreach (var (file, recipe) in recipes)
         {
-            foreach (var (shape, devs) in new (string, List<double>)[] { ("normal", Reels.Normal(seed, parts)), ("bimodal", Reels.Bimodal(seed, parts)) })
+            foreach (var (shape, devs) in new (string, List<double>)[] { ("normal", Reels.Normal(seed, parts)), ("bimodal", Reels.Bimodal(seed, parts)) }.Take(bimodal ? 2 : 1))
             {
                 var list = Draw(recipe, devs, seed);
                 var sw = Stopwatch.StartNew();
-                var r = new SetAssembler(new AssemblyOptions(timeLimit: limit)).Assemble(recipe, list);
+                var r = new SetAssembler(new AssemblyOptions(timeLimit: limit, neighbourhoodParts: window)).Assemble(recipe, list);
                 sw.Stop();
                 var bound = r.BoundMethod.StartsWith("part-count", StringComparison.Ordinal) ? "part count" : r.BoundMethod;
                 rows.Add(FormattableString.Invariant(
@@ -44,7 +44,8 @@ internal static class ReelBench
             weights.AddRange(builds);
         }
 
-        var rng = new Random(seed);
+        // Its own stream: the deviations were drawn from Random(seed), and the same stream here would tie nominal to deviation.
+        var rng = new Random(seed + 7919);
         return devs.Select((d, i) => Reels.Part(i + 1, weights[rng.Next(weights.Count)], d, 5 + (10 * rng.NextDouble()))).ToList();
     }
 }
