@@ -11,7 +11,7 @@ namespace SortRig.Planning.Assembly;
 /// sets, or as many with a smaller sum of scores. Windows slide by half their length; passes repeat until one
 /// changes nothing or the time runs out. Deterministic.
 /// </summary>
-internal sealed class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
+internal sealed partial class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
 {
     private readonly AssemblyOptions _limits = new(exactPartLimit: 64, exactSetLimit: 200_000, exactStateLimit: 400_000, nominalMatchPpm: options.NominalMatchPpm, neighbourhoodParts: 0);
     private readonly double[] _z = usable.Select(p => Math.Log(p.Value.Value / p.Nominal)).ToArray();
@@ -83,46 +83,6 @@ internal sealed class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<PartCandi
         Scatter(sets, bound, outOfTime, cancellationToken);
         passDone(Passes + 1, sets.Count);
         return sets;
-    }
-
-    // Second phase: windows around a leftover part made of items drawn at random from its neighbours (seeded, so
-    // deterministic): sets that pair parts far apart in z (a high and a low part in a pair, two legs off together)
-    // are reachable when contiguous windows miss them. Stops after as many failures in a row as there are items.
-    private void Scatter(List<(Option[] Fills, SetVerdict Verdict)> sets, int bound, Func<bool> outOfTime, CancellationToken cancellationToken)
-    {
-        var rng = new Random(12);
-        var items = Items(sets);
-        var limit = options.NeighbourhoodParts;
-        for (var failures = 0; failures < Math.Max(200, items.Count) && sets.Count < bound && !outOfTime(); failures++)
-        {
-            cancellationToken.ThrowIfCancellationRequested();
-            var leftovers = Enumerable.Range(0, items.Count).Where(i => items[i].Set < 0).ToList();
-            if (leftovers.Count == 0)
-            {
-                return;
-            }
-
-            var at = leftovers[rng.Next(leftovers.Count)];
-            var window = new List<Item> { items[at] };
-            var parts = items[at].Parts.Length;
-            var near = Enumerable.Range(Math.Max(0, at - limit), Math.Min(items.Count, at + limit + 1) - Math.Max(0, at - limit))
-                .Where(i => i != at).OrderBy(_ => rng.Next()).ToList();
-            foreach (var i in near)
-            {
-                if (parts + items[i].Parts.Length <= limit)
-                {
-                    window.Add(items[i]);
-                    parts += items[i].Parts.Length;
-                }
-            }
-
-            if (TryRepack(sets, window))
-            {
-                Replaced++;
-                failures = 0;
-                items = Items(sets);
-            }
-        }
     }
 
     private bool TryRepack(List<(Option[] Fills, SetVerdict Verdict)> sets, List<Item> window)
