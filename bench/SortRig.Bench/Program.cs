@@ -17,5 +17,5 @@ if (args.Length > 0 && args[0] == "drift")
     return await DriftBenchmark.RunAsync(CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning, settle [parts], drift)");
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], drift)");
 return 0;
