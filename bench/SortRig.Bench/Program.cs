@@ -4,7 +4,7 @@ using SortRig.Bench.Planning;
 
 if (args.Length > 0 && args[0] == "planning")
 {
-    return await PlanningBenchmark.RunAsync(CancellationToken.None);
+    return await PlanningBenchmark.RunAsync(args.Length > 1 ? args[1] : "all", CancellationToken.None);
 }
 
 if (args.Length > 0 && args[0] == "settle")
@@ -17,5 +17,5 @@ if (args.Length > 0 && args[0] == "drift")
     return await DriftBenchmark.RunAsync(CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning, settle [parts], drift)");
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], drift)");
 return 0;

@@ -32,20 +32,39 @@ public sealed class CpSatRefereeTests
     {
         var rng = new Random(90_000 + seed);
         var recipe = RecipeLoader.Load($"recipe: cp{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}", "cp.yaml");
-        var parts = Enumerable.Range(1, rng.Next(9, 13)).Select(i =>
-        {
-            var n = rng.Next(3) == 0 ? 20e3 : 10e3;
-            var v = n * (1 + (700e-6 * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble())));
-            var u = v * rng.NextDouble() * 120e-6;
-            return new PartCandidate(i, n, new MeasuredValue(v, u, u / 2), null);
-        }).ToList();
-
+        var parts = Parts(rng, rng.Next(9, 13));
         var mine = new SetAssembler().Assemble(recipe, parts);
         var (count, cpScore) = SolveWithCpSat(recipe, parts);
         Assert.Equal(AssemblyMethod.Exact, mine.Method);
         Assert.Equal(count, mine.Sets.Count);
         Assert.True(mine.TotalScore <= cpScore + 1e-9, $"assembler score {mine.TotalScore} > CP-SAT solution's {cpScore}");
     }
+
+    [Theory]
+    [MemberData(nameof(Larger))]
+    public void ReelScaleSearch_BoundNeverBelowCpSatOptimum_SetsNeverAbove(int seed)
+    {
+        // The reel-scale path (exact search off, windows that hold two sets) on 12 parts, more than the brute force
+        // can take: its proven bound must not fall below CP-SAT's optimum, its count must not exceed it.
+        var rng = new Random(95_000 + seed);
+        var recipe = RecipeLoader.Load($"recipe: cpl{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}", "cpl.yaml");
+        var parts = Parts(rng, 12);
+        var mine = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)).Assemble(recipe, parts);
+        // Under load CP-SAT may stop at its time limit: then its best solution and its own bound bracket the optimum.
+        var (found, cpBound) = SolveWithCpSat(recipe, parts, requireOptimal: false);
+        Assert.True(mine.Sets.Count <= cpBound, $"{mine.Sets.Count} sets > CP-SAT bound {cpBound}");
+        Assert.True(mine.UpperBound >= found, $"bound {mine.UpperBound} < CP-SAT's {found} sets ({mine.BoundMethod})");
+    }
+
+    public static TheoryData<int> Larger => new(Enumerable.Range(0, 12));
+
+    private static List<PartCandidate> Parts(Random rng, int count) => Enumerable.Range(1, count).Select(i =>
+    {
+        var n = rng.Next(3) == 0 ? 20e3 : 10e3;
+        var v = n * (1 + (700e-6 * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble())));
+        var u = v * rng.NextDouble() * 120e-6;
+        return new PartCandidate(i, n, new MeasuredValue(v, u, u / 2), null);
+    }).ToList();
 
     private sealed record Cand(int[] Parts, double Value, double U, double Nominal)
     {
@@ -82,6 +101,18 @@ public sealed class CpSatRefereeTests
     }
 
     private static (int Count, double Score) SolveWithCpSat(Recipe recipe, List<PartCandidate> parts)
+    {
+        var (_, _, count, score) = Solve(recipe, parts, requireOptimal: true);
+        return (count, score);
+    }
+
+    private static (int Found, int Bound) SolveWithCpSat(Recipe recipe, List<PartCandidate> parts, bool requireOptimal)
+    {
+        var (found, bound, _, _) = Solve(recipe, parts, requireOptimal);
+        return (found, bound);
+    }
+
+    private static (int Found, int Bound, int Count, double Score) Solve(Recipe recipe, List<PartCandidate> parts, bool requireOptimal)
     {
         var model = new CpModel();
         var cands = recipe.Positions.Select(p => Candidates(p, parts)).ToList();
@@ -143,7 +174,14 @@ public sealed class CpSatRefereeTests
 
         model.Maximize(LinearExpr.Sum(y));
         var solver = new CpSolver { StringParameters = "num_workers:2,max_time_in_seconds:60" };
-        Assert.Equal(CpSolverStatus.Optimal, solver.Solve(model));
+        var status = solver.Solve(model);
+        if (requireOptimal)
+        {
+            Assert.Equal(CpSolverStatus.Optimal, status);
+        }
+
+        Assert.True(status is CpSolverStatus.Optimal or CpSolverStatus.Feasible, $"CP-SAT: {status}");
+        var (found, bound) = ((int)Math.Round(solver.ObjectiveValue), (int)Math.Floor(solver.BestObjectiveBound + 1e-6));
 
         var count = 0;
         var score = 0.0;
@@ -159,6 +197,6 @@ public sealed class CpSatRefereeTests
             score += ((chosen.Max(c => c.LinHi) / chosen.Min(c => c.LinLo)) - 1) * 1e6 / recipe.MatchTolerancePpm;
         }
 
-        return (count, score);
+        return (found, bound, count, score);
     }
 }

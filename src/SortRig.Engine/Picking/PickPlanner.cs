@@ -33,7 +33,7 @@ internal static class PickPlanner
         var result = assembler.Assemble(recipe, offered.Select(p => PlanParts.Candidate(p, qualify)).ToList());
         var list = PickListBuilder.FromAssembly(result);
         var picked = list.Sets.SelectMany(s => s.Items).Select(i => i.PartId!.Value).ToList();
-        var note = result.Note + (result.ProvenOptimal ? "; the number of sets is proven maximal" : "");
+        var note = result.Note + (result.ProvenOptimal ? "; the number of sets is proven maximal" : "") + "\n" + AssemblySummary.Line(result);
         if (allInCups)
         {
             note += "; the parts share cups, so telling them apart by id needs each one measured again";

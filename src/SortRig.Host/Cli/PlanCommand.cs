@@ -19,14 +19,22 @@ internal static class PlanCommand
         var csv = new Option<string?>("--csv") { Description = "Export the pick list to this CSV file" };
         var take = new Option<string?>("--take") { Description = "Take the picked parts from the library for this person (all or none)" };
         var pick = CliOptions.Pick();
-        foreach (var o in new Option[] { db, session, recipe, csv, take, pick })
+        var timeLimit = new Option<double?>("--time-limit") { Description = "Seconds the set search may run on a large reel (default 10, 0.1 to 3600); the best plan so far is returned with its bound" };
+        foreach (var o in new Option[] { db, session, recipe, csv, take, pick, timeLimit })
         {
             command.Add(o);
         }
 
         command.SetAction((r, ct) => VerbGuard.RunAsync(console ?? AnsiConsole.Console, () => PlanRunner.RunAsync(
-            new PlanRequest(r.GetValue(db)!, r.GetValue(session)!, r.GetValue(recipe)!, r.GetValue(csv), r.GetValue(take), CliOptions.ParsePick(r.GetValue(pick))),
+            new PlanRequest(r.GetValue(db)!, r.GetValue(session)!, r.GetValue(recipe)!, r.GetValue(csv), r.GetValue(take), CliOptions.ParsePick(r.GetValue(pick)), TimeLimit(r.GetValue(timeLimit))),
             console ?? AnsiConsole.Console, ct)));
         return command;
     }
+
+    private static TimeSpan? TimeLimit(double? seconds) => seconds switch
+    {
+        null => null,
+        >= 0.1 and <= 3600 => TimeSpan.FromSeconds(seconds.Value),
+        _ => throw new VerbException(FormattableString.Invariant($"--time-limit: {seconds} s is outside 0.1 to 3600 s")),
+    };
 }

@@ -16,4 +16,7 @@ namespace SortRig.Host.PlanVerb;
 /// <param name="CsvPath">Where to export the pick list as CSV; null for none.</param>
 /// <param name="TakeBy">When set, take the picked parts from the library for this person (all or none).</param>
 /// <param name="Mode">How the pick list names parts.</param>
-internal sealed record PlanRequest(string Database, string? Session, string Recipe, string? CsvPath = null, string? TakeBy = null, PickMode Mode = PickMode.Auto);
+/// <param name="TimeLimit">Search time for large reels; null for the assembler's default (10 s).</param>
+internal sealed record PlanRequest(
+    string Database, string? Session, string Recipe, string? CsvPath = null, string? TakeBy = null, PickMode Mode = PickMode.Auto,
+    TimeSpan? TimeLimit = null);

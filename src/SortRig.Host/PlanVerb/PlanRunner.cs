@@ -38,7 +38,7 @@ internal static class PlanRunner
                 }
             }
 
-            var options = new AssemblyOptions();
+            var options = new AssemblyOptions(timeLimit: request.TimeLimit, progress: new SearchProgress(console));
             var qualify = parts.Select(p => p.SessionId).Distinct().Count() > 1;
             var outcome = PickPlanner.Plan(recipe, parts, request.Mode, qualify, new SetAssembler(options), options);
             PickListView.Write(console, outcome, title);

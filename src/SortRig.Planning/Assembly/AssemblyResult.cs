@@ -29,6 +29,10 @@ public enum AssemblyMethod
 
     /// <summary>One-dimensional window sweep (see docs/planning.md for when it is exact).</summary>
     Sweep,
+
+    /// <summary>The sweep, then large-neighbourhood search: windows of neighbouring sets and leftover parts re-packed
+    /// exactly (see docs/planning.md).</summary>
+    SweepAndNeighbourhood,
 }
 
 /// <summary>The sets found for a recipe.</summary>
@@ -38,14 +42,26 @@ public enum AssemblyMethod
 /// <param name="Method">The search used.</param>
 /// <param name="ProvenOptimal">True when the set count is proven maximal (exact search, or the sweep in its exact case).</param>
 /// <param name="Note">One line on how the result was found.</param>
+/// <param name="UpperBound">Proven upper bound on the number of sets any plan can make from these parts (never below
+/// the optimum; equal to the set count when <paramref name="ProvenOptimal"/>).</param>
+/// <param name="BoundMethod">How <paramref name="UpperBound"/> was proven, in words.</param>
+/// <param name="TieBreak">How plans with the same number of sets were told apart, in words.</param>
+/// <param name="Elapsed">Wall time of the search.</param>
 public sealed record AssemblyResult(
     string RecipeName,
     IReadOnlyList<AssembledSet> Sets,
     IReadOnlyList<PartCandidate> Unused,
     AssemblyMethod Method,
     bool ProvenOptimal,
-    string Note)
+    string Note,
+    int UpperBound,
+    string BoundMethod,
+    string TieBreak,
+    TimeSpan Elapsed)
 {
     /// <summary>Sum of the sets' scores: the tie-break, smaller is better.</summary>
     public double TotalScore => Sets.Sum(s => s.Score);
+
+    /// <summary>(UpperBound − sets) / UpperBound, 0 to 1; 0 when the bound is 0 (nothing can be made).</summary>
+    public double Gap => UpperBound == 0 ? 0 : (UpperBound - Sets.Count) / (double)UpperBound;
 }

@@ -6,21 +6,26 @@ namespace SortRig.Planning.Assembly;
 
 /// <summary>
 /// Chooses disjoint sets of parts that each meet every spec of a recipe in the worst case, maximising the number of
-/// sets and then minimising the sum of set scores. Exact on small instances, a window sweep on large ones.
+/// sets and then minimising the sum of set scores. Exact on small instances; on large ones a window sweep, then a
+/// neighbourhood search within the time limit. Every result carries a proven upper bound on the number of sets.
 /// Pure computation; thread-safe (no mutable state between calls).
 /// </summary>
 /// <param name="options">Limits; null for the defaults.</param>
 /// <param name="logger">Logger; null for none.</param>
-public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAssembler>? logger = null)
+/// <param name="timeProvider">Clock for the time limit and the reported time; null for the system clock.</param>
+public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAssembler>? logger = null, TimeProvider? timeProvider = null)
 {
+    private readonly TimeProvider _time = timeProvider ?? TimeProvider.System;
     private readonly AssemblyOptions _options = options ?? new AssemblyOptions();
     private readonly ILogger _logger = (ILogger?)logger ?? NullLogger.Instance;
 
     /// <summary>Assembles sets.</summary>
     /// <param name="recipe">A loaded recipe.</param>
     /// <param name="parts">Measured parts with unique ids; parts of nominals the recipe cannot use are reported unused.</param>
+    /// <param name="cancellationToken">Stops the search (throws); <see cref="AssemblyOptions.TimeLimit"/> instead returns the best so far.</param>
+    /// <returns>The sets with a proven upper bound on their number, the gap, the method and the time.</returns>
     /// <exception cref="ArgumentException">Duplicate part ids, or a part whose value is not finite and &gt; 0.</exception>
-    public AssemblyResult Assemble(Recipe recipe, IReadOnlyList<PartCandidate> parts)
+    public AssemblyResult Assemble(Recipe recipe, IReadOnlyList<PartCandidate> parts, CancellationToken cancellationToken = default)
     {
         var ids = new HashSet<long>();
         foreach (var p in parts)
@@ -36,13 +41,15 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
             }
         }
 
+        var started = _time.GetTimestamp();
         ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
         var exact = parts.Count(p => recipe.Positions.Any(pos => CandidatePool.Wanted(pos, p.Nominal, _options))) <= _options.ExactPartLimit;
         var pool = new CandidatePool(recipe, parts, _options, withPairs: exact);
         AssemblyResult result;
         if (exact && new ExactPacker(recipe, pool, rule, _options).Solve() is { } sets)
         {
-            result = Result(recipe, pool, sets, AssemblyMethod.Exact, true, $"exact search over {pool.Usable.Count} usable parts");
+            result = Result(recipe, pool, sets, AssemblyMethod.Exact, $"exact search over {pool.Usable.Count} usable parts",
+                sets.Count, "exact search (every feasible set enumerated and packed)", ExactTieBreak, _time.GetElapsedTime(started));
         }
         else
         {
@@ -52,18 +59,55 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
                 pool = new CandidatePool(recipe, parts, _options, withPairs: false);
             }
 
-            var sweep = new SweepPlanner(recipe, pool, rule, _options);
-            var found = sweep.Run();
-            var note = (sweep.ProvenOptimal ? "window sweep, exact case (matched form, no pairs, equal-width intervals)" : "window sweep, heuristic")
-                + (sweep.Dropped > 0 ? $"; {sweep.Dropped} candidate sets failed verification" : "");
-            result = Result(recipe, pool, found, AssemblyMethod.Sweep, sweep.ProvenOptimal, note);
+            result = Search(recipe, pool, rule, started, cancellationToken);
         }
 
         Log.Assembled(_logger, result.Sets.Count, recipe.Name, parts.Count, result.Method.ToString(), result.ProvenOptimal);
         return result;
     }
 
-    private static AssemblyResult Result(Recipe recipe, CandidatePool pool, List<(Option[] Fills, SetVerdict Verdict)> sets, AssemblyMethod method, bool proven, string note)
+    private AssemblyResult Search(Recipe recipe, CandidatePool pool, ISetRule rule, long started, CancellationToken cancellationToken)
+    {
+        var sweep = new SweepPlanner(recipe, pool, rule, _options);
+        var found = sweep.Run();
+        var note = (sweep.ProvenOptimal ? "window sweep, exact case (matched form, no pairs, equal-width intervals)" : "window sweep")
+            + (sweep.Dropped > 0 ? $"; {sweep.Dropped} swept sets failed verification" : "");
+        if (sweep.ProvenOptimal)
+        {
+            return Result(recipe, pool, found, AssemblyMethod.Sweep, note, found.Count, "window sweep exact case (see docs/planning.md)",
+                "none: the sweep's sets are kept as found", _time.GetElapsedTime(started));
+        }
+
+        var bound = PartCountBound.Compute(recipe, pool.Usable, rule, _options);
+        var boundName = recipe.Form == RecipeForm.Matched ? PartCountBound.MatchedName : PartCountBound.NetworkName;
+        _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
+        var method = AssemblyMethod.Sweep;
+        var tieBreak = "none: the sweep's sets are kept as found";
+        var search = new NeighbourhoodSearch(recipe, pool.Usable, rule, _options);
+        if (found.Count < bound && search.Applies && _options.TimeLimit > TimeSpan.Zero)
+        {
+            var deadline = _options.TimeLimit;
+            found = search.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline,
+                (pass, count) => _options.Progress?.Report(new AssemblyProgress($"neighbourhood pass {pass}", count, bound, _time.GetElapsedTime(started))),
+                cancellationToken);
+            method = AssemblyMethod.SweepAndNeighbourhood;
+            tieBreak = "smallest sum of set scores within each re-packed neighbourhood (not over the whole plan)";
+            var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
+            note += FormattableString.Invariant($"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, {_options.NeighbourhoodParts} parts per window{stopped}");
+        }
+        else if (found.Count < bound && !search.Applies)
+        {
+            note += FormattableString.Invariant($"; no neighbourhood search: {_options.NeighbourhoodParts} parts cannot hold two sets of {recipe.Positions.Count} positions");
+        }
+
+        return Result(recipe, pool, found, method, note, bound, boundName, tieBreak, _time.GetElapsedTime(started));
+    }
+
+    private const string ExactTieBreak = "smallest sum of set scores (worst-case error / tolerance per set) among plans with the most sets";
+
+    private static AssemblyResult Result(
+        Recipe recipe, CandidatePool pool, List<(Option[] Fills, SetVerdict Verdict)> sets, AssemblyMethod method, string note,
+        int bound, string boundMethod, string tieBreak, TimeSpan elapsed)
     {
         var used = new bool[pool.Usable.Count];
         var assembled = new List<AssembledSet>();
@@ -83,6 +127,6 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
         }
 
         var unused = pool.Unusable.Concat(pool.Usable.Where((_, i) => !used[i])).ToList();
-        return new AssemblyResult(recipe.Name, assembled, unused, method, proven, note);
+        return new AssemblyResult(recipe.Name, assembled, unused, method, assembled.Count >= bound, note, bound, boundMethod, tieBreak, elapsed);
     }
 }

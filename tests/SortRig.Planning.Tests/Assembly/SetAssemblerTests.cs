@@ -6,7 +6,7 @@ namespace SortRig.Planning.Tests.Assembly;
 
 public sealed class SetAssemblerTests
 {
-    private static readonly AssemblyOptions s_sweepOnly = new(exactPartLimit: 0);
+    private static readonly AssemblyOptions s_sweepOnly = new(exactPartLimit: 0, neighbourhoodParts: 0);
 
     private static PartCandidate Part(long id, double nominal, double ppm, double uPpm = 0) =>
         new(id, nominal, new MeasuredValue(nominal * (1 + (ppm * 1e-6)), nominal * uPpm * 1e-6, nominal * uPpm * 0.5e-6), null);

@@ -1,0 +1,74 @@
+using SortRig.Planning.Recipes;
+
+namespace SortRig.Planning.Assembly;
+
+/// <summary>
+/// A proven upper bound on the number of sets by counting parts. For every non-empty subset C of the recipe's nominal
+/// classes, each set needs Σ_{j∈C} Demand[j] fills of those classes; a part can give at most one fill (as a single of a
+/// class in C) or half a fill (as one of a series or parallel pair for a class in C). So sets ≤ ⌊supply(C) / demand(C)⌋
+/// (a Hall-type counting condition). Matched form: a part counts as a single only when its interval of admissible
+/// common points holds, somewhere, enough intervals of every class without pairs (exact 1-D test, slightly widened):
+/// no feasible set can contain it otherwise.
+/// </summary>
+internal static class PartCountBound
+{
+    public const string MatchedName = "part-count bound (Hall condition over nominal classes; parts that fit no common window not counted)";
+    public const string NetworkName = "part-count bound (Hall condition over nominal classes)";
+
+    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
+    {
+        var geo = new SweepGeometry(recipe, rule);
+        var classes = geo.Nominals.Length;
+        var pairClass = new bool[classes];
+        var seriesOk = new bool[classes];
+        var parallelOk = new bool[classes];
+        for (var k = 0; k < recipe.Positions.Count; k++)
+        {
+            var c = geo.ClassOf[k];
+            seriesOk[c] |= recipe.Positions[k].Pairs.HasFlag(PairBuilds.Series);
+            parallelOk[c] |= recipe.Positions[k].Pairs.HasFlag(PairBuilds.Parallel);
+            pairClass[c] = seriesOk[c] || parallelOk[c];
+        }
+
+        var fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass) : null;
+        // single[i] / half[i]: class bit masks the part can fill as a single / as half a pair.
+        var single = new int[usable.Count];
+        var half = new int[usable.Count];
+        for (var i = 0; i < usable.Count; i++)
+        {
+            var n = usable[i].Nominal;
+            for (var j = 0; j < classes; j++)
+            {
+                if (options.SameNominal(n, geo.Nominals[j]) && (fits is null || fits.Fits(j, i)))
+                {
+                    single[i] |= 1 << j;
+                }
+
+                if ((seriesOk[j] && options.SameNominal(n, geo.Nominals[j] / 2)) || (parallelOk[j] && options.SameNominal(n, geo.Nominals[j] * 2)))
+                {
+                    half[i] |= 1 << j;
+                }
+            }
+        }
+
+        var bound = int.MaxValue;
+        for (var subset = 1; subset < 1 << Math.Min(classes, 12); subset++)
+        {
+            var demand = 0;
+            for (var j = 0; j < classes; j++)
+            {
+                demand += (subset >> j & 1) == 1 ? geo.Demand[j] : 0;
+            }
+
+            var supply = 0.0;
+            for (var i = 0; i < usable.Count; i++)
+            {
+                supply += (single[i] & subset) != 0 ? 1.0 : (half[i] & subset) != 0 ? 0.5 : 0.0;
+            }
+
+            bound = Math.Min(bound, (int)Math.Floor((supply / demand) + 1e-9));
+        }
+
+        return bound == int.MaxValue ? 0 : bound;
+    }
+}
