@@ -1,0 +1,130 @@
+using SortRig.Measurement.Readings;
+
+namespace SortRig.Measurement.Settling;
+
+/// <summary>
+/// The predictive rule's state for one insertion: the finite readings since the bounce (or the last flicker) within
+/// the fit span, fitted every <see cref="PredictiveOptions.FitInterval"/> with one and with two exponentials. The
+/// models are weighed by AICc (Akaike weights, Burnham and Anderson 2002, from memory); the predicted final value is
+/// the weighted mean; its uncertainty combines the weighted fit variances (inflated by (1 + ρ)/(1 − ρ) for a lag-one
+/// residual correlation ρ &gt; 0, the AR(1) effective-sample-size factor, common practice, no source) with a
+/// model-misfit term: the weighted spread between the models, and a rectangular allowance of MisfitFraction times the
+/// recovery still to come. A fit accepts only when its residuals pass the runs test and that uncertainty meets the
+/// target.
+/// </summary>
+internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms)
+{
+    private const double MinTimeConstantSeconds = 0.02;
+    private readonly List<Reading> _readings = [];
+    private readonly double _floor = resolutionOhms * resolutionOhms / 12;
+    private DateTimeOffset? _lastFit;
+
+    /// <summary>The latest fit made (accepted or not); null before the first.</summary>
+    public RecoveryFit? Latest { get; private set; }
+
+    public void Add(Reading reading)
+    {
+        _readings.Add(reading);
+        var drop = 0;
+        while (drop < _readings.Count - 1 && reading.Time - _readings[drop].Time > options.FitSpan)
+        {
+            drop++;
+        }
+
+        if (drop > 0)
+        {
+            _readings.RemoveRange(0, drop);
+        }
+    }
+
+    public void Clear()
+    {
+        _readings.Clear();
+        _lastFit = null;
+        Latest = null;
+    }
+
+    /// <summary>Fits when one is due; returns the fit when it accepts the part at the target, else null.</summary>
+    public RecoveryFit? TryAccept(SettleTarget target)
+    {
+        if (_readings.Count < options.MinReadings)
+        {
+            return null;
+        }
+
+        var newest = _readings[^1].Time;
+        if (newest - _readings[0].Time < options.MinSpan || (_lastFit is { } last && newest - last < options.FitInterval))
+        {
+            return null;
+        }
+
+        _lastFit = newest;
+        if (Fit(out var white) is not { } fit)
+        {
+            return null;
+        }
+
+        Latest = fit;
+        return white && fit.StandardUncertainty <= target.InOhms(fit.FinalValue) ? fit : null;
+    }
+
+    /// <summary>The model-weighed fit of the readings held, or null when no model converges.</summary>
+    internal RecoveryFit? Fit(out bool white)
+    {
+        white = false;
+        var n = _readings.Count;
+        var t0 = _readings[0].Time;
+        var reference = _readings[^1].Value;
+        var t = new double[n];
+        var y = new double[n];
+        for (var i = 0; i < n; i++)
+        {
+            t[i] = (_readings[i].Time - t0).TotalSeconds;
+            y[i] = _readings[i].Value - reference;
+        }
+
+        var maxTau = options.MaxTimeConstant.TotalSeconds;
+        var candidates = new List<ExponentialFit> { ExponentialFitter.One(t, y, MinTimeConstantSeconds, maxTau, _floor) };
+        if (n >= 10)
+        {
+            candidates.Add(ExponentialFitter.Two(t, y, MinTimeConstantSeconds, maxTau, _floor));
+        }
+
+        candidates.RemoveAll(c => !c.Converged);
+        if (candidates.Count == 0)
+        {
+            return null;
+        }
+
+        var minAicc = candidates.Min(c => c.Aicc);
+        var raw = candidates.Select(c => Math.Exp(-(c.Aicc - minAicc) / 2)).ToArray();
+        var weights = raw.Select(w => w / raw.Sum()).ToArray();
+        var bestIndex = Array.IndexOf(weights, weights.Max());
+        var best = candidates[bestIndex];
+
+        var residuals = new double[n];
+        double sumSquares = 0, lagProducts = 0;
+        for (var i = 0; i < n; i++)
+        {
+            residuals[i] = y[i] - best.At(t[i]);
+            sumSquares += residuals[i] * residuals[i];
+            if (i > 0)
+            {
+                lagProducts += residuals[i] * residuals[i - 1];
+            }
+        }
+
+        var rho = sumSquares > 0 ? Math.Clamp(lagProducts / sumSquares, 0, 0.95) : 0;
+        var inflation = (1 + rho) / (1 - rho);
+        var final = candidates.Select((c, i) => weights[i] * c.Final).Sum();
+        var fitVariance = candidates.Select((c, i) => weights[i] * c.VarianceOfFinal * inflation).Sum();
+        var spread = candidates.Select((c, i) => weights[i] * (c.Final - final) * (c.Final - final)).Sum();
+        var toCome = Math.Abs(best.At(t[^1]) - best.Final);
+        var allowance = options.MisfitFraction * toCome / Math.Sqrt(3);
+        var z = RunsTest.Z(residuals);
+        white = RunsTest.LooksWhite(residuals, options.WhitenessAlpha);
+        return new RecoveryFit(
+            best.Model, final + reference, Math.Sqrt(fitVariance), Math.Sqrt(spread + (allowance * allowance)),
+            [.. best.TimeConstants.Order()], n, t[^1], Math.Sqrt(sumSquares / n), z, weights[bestIndex]);
+    }
+}
