@@ -7,7 +7,7 @@ namespace SortRig.Measurement.Settling;
 /// Pereyra 1973): for given time constants the model is linear in A and the B_j, solved exactly; the residual sum
 /// of squares is then minimised over ln τ by a grid and golden-section search. Pure computation.
 /// </summary>
-internal static class ExponentialFitter
+internal static partial class ExponentialFitter
 {
     private static readonly double s_golden = (Math.Sqrt(5) - 1) / 2;
 
@@ -20,7 +20,8 @@ internal static class ExponentialFitter
         var u = GridThenGolden(Rss, lo, hi, 24, tolerance);
         var tau = Math.Exp(u);
         var rss = Project(tt, yy, [tau], out var beta);
-        var converged = u > lo + 1e-3 && u < hi - 1e-3;
+        // At the upper bound (the assumed longest time constant) the fit is still a valid, constrained one.
+        var converged = u > lo + 1e-3;
         return Finish(RecoveryModel.OneExponential, tt, yy, beta, [tau], rss, noiseFloorVariance, converged);
     }
 
@@ -30,7 +31,7 @@ internal static class ExponentialFitter
         double[] tt = t.ToArray(), yy = y.ToArray();
         var (lo, hi) = (Math.Log(tauMin), Math.Log(tauMax));
         var gap = Math.Log(1.5);
-        double Rss(double u1, double u2) => u2 - u1 < gap ? double.PositiveInfinity : Project(tt, yy, [Math.Exp(u1), Math.Exp(u2)], out _);
+        double Rss(double u1, double u2) => u2 - u1 < gap || u1 < lo || u2 > hi ? double.PositiveInfinity : Project(tt, yy, [Math.Exp(u1), Math.Exp(u2)], out _);
 
         // Coarse grid over the ordered pairs, then alternating golden-section refinement of each coordinate.
         const int Grid = 12;
@@ -52,7 +53,7 @@ internal static class ExponentialFitter
 
         double[] taus = [Math.Exp(b1), Math.Exp(b2)];
         var rss = Project(tt, yy, taus, out var beta);
-        var converged = double.IsFinite(rss) && b1 > lo + 1e-3 && b2 < hi - 1e-3 && b2 - b1 > gap + 1e-3;
+        var converged = double.IsFinite(rss) && b1 > lo + 1e-3 && b2 - b1 > gap + 1e-3;
         return Finish(RecoveryModel.TwoExponentials, tt, yy, beta, taus, rss, noiseFloorVariance, converged);
     }
 

@@ -3,7 +3,8 @@ namespace SortRig.Measurement.Settling;
 /// <summary>
 /// Options of the predictive settle rule (see docs/measurement.md, "Predictive rule"). Each property is validated
 /// when set. The defaults are engineering choices for parts handled by hand and cooling in seconds, not tuned to a
-/// test.
+/// test. The longest time constant a fit may use is <see cref="SettleOptions.AssumedTimeConstant"/> (the assumed upper
+/// bound of a handled part's thermal time constant): a fit that wants a longer one sees no recovery it can bound.
 /// </summary>
 public sealed record PredictiveOptions
 {
@@ -13,7 +14,6 @@ public sealed record PredictiveOptions
     private readonly TimeSpan _minSpan = TimeSpan.FromSeconds(1);
     private readonly double _misfitFraction = 0.1;
     private readonly double _whitenessAlpha = 0.01;
-    private readonly TimeSpan _maxTimeConstant = TimeSpan.FromSeconds(60);
 
     /// <summary>The default options.</summary>
     public static PredictiveOptions Default { get; } = new();
@@ -51,9 +51,6 @@ public sealed record PredictiveOptions
         get => _whitenessAlpha;
         init => _whitenessAlpha = value is > 0 and <= 0.5 ? value : throw new ArgumentOutOfRangeException(nameof(WhitenessAlpha), value, "WhitenessAlpha must be in (0, 0.5].");
     }
-
-    /// <summary>Longest time constant a fit may use; a fit that wants a longer one sees a line, not a recovery. Default 60 s; valid [1 s, 1 h].</summary>
-    public TimeSpan MaxTimeConstant { get => _maxTimeConstant; init => _maxTimeConstant = InRange(value, TimeSpan.FromSeconds(1), TimeSpan.FromHours(1), nameof(MaxTimeConstant)); }
 
     private static TimeSpan InRange(TimeSpan value, TimeSpan min, TimeSpan max, string name) =>
         value >= min && value <= max ? value : throw new ArgumentOutOfRangeException(name, value, $"{name} must be in [{min.TotalSeconds:G4} s, {max.TotalSeconds:G4} s].");

@@ -4,15 +4,16 @@ namespace SortRig.Measurement.Settling;
 
 /// <summary>
 /// The predictive rule's state for one insertion: the finite readings since the bounce (or the last flicker) within
-/// the fit span, fitted every <see cref="PredictiveOptions.FitInterval"/> with one and with two exponentials. The
-/// models are weighed by AICc (Akaike weights, Burnham and Anderson 2002, from memory); the predicted final value is
-/// the weighted mean; its uncertainty combines the weighted fit variances (inflated by (1 + ρ)/(1 − ρ) for a lag-one
-/// residual correlation ρ &gt; 0, the AR(1) effective-sample-size factor, common practice, no source) with a
-/// model-misfit term: the weighted spread between the models, and a rectangular allowance of MisfitFraction times the
-/// recovery still to come. A fit accepts only when its residuals pass the runs test and that uncertainty meets the
-/// target.
+/// the fit span, fitted every <see cref="PredictiveOptions.FitInterval"/> with one and with two exponentials, time
+/// constants bounded by the assumed longest one. The predicted final value is the mean weighted by AICc (Akaike
+/// weights, Burnham and Anderson 2002, from memory). Its fit uncertainty is the wider side of the union, over both
+/// models, of the profile-likelihood interval (see <see cref="ExponentialFitter.ProfileInterval"/>) and the
+/// linearised interval, over 1.96, with s² inflated by (1 + ρ)/(1 − ρ) for a lag-one residual correlation ρ &gt; 0
+/// (the AR(1) effective-sample-size factor, common practice, no source). The model-misfit term is a rectangular
+/// allowance of MisfitFraction times the recovery still to come. A fit accepts only when its residuals pass the runs
+/// test and the combined uncertainty meets the target.
 /// </summary>
-internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms)
+internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {
     private const double MinTimeConstantSeconds = 0.02;
     private readonly List<Reading> _readings = [];
@@ -74,6 +75,7 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         white = false;
         var n = _readings.Count;
         var t0 = _readings[0].Time;
+        var maxTau = longestTimeConstant.TotalSeconds;
         var reference = _readings[^1].Value;
         var t = new double[n];
         var y = new double[n];
@@ -83,14 +85,19 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
             y[i] = _readings[i].Value - reference;
         }
 
-        var maxTau = options.MaxTimeConstant.TotalSeconds;
-        var candidates = new List<ExponentialFit> { ExponentialFitter.One(t, y, MinTimeConstantSeconds, maxTau, _floor) };
-        if (n >= 10)
+        var one = ExponentialFitter.One(t, y, MinTimeConstantSeconds, maxTau, _floor);
+        var two = n >= 10 ? ExponentialFitter.Two(t, y, MinTimeConstantSeconds, maxTau, _floor) : null;
+        var candidates = new List<ExponentialFit>();
+        if (one.Converged)
         {
-            candidates.Add(ExponentialFitter.Two(t, y, MinTimeConstantSeconds, maxTau, _floor));
+            candidates.Add(one);
         }
 
-        candidates.RemoveAll(c => !c.Converged);
+        if (two is { Converged: true })
+        {
+            candidates.Add(two);
+        }
+
         if (candidates.Count == 0)
         {
             return null;
@@ -117,14 +124,33 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         var rho = sumSquares > 0 ? Math.Clamp(lagProducts / sumSquares, 0, 0.95) : 0;
         var inflation = (1 + rho) / (1 - rho);
         var final = candidates.Select((c, i) => weights[i] * c.Final).Sum();
-        var fitVariance = candidates.Select((c, i) => weights[i] * c.VarianceOfFinal * inflation).Sum();
-        var spread = candidates.Select((c, i) => weights[i] * (c.Final - final) * (c.Final - final)).Sum();
+
+        // The interval of the final value: the union, over both models (whether or not the data favour the second
+        // exponential: a slower path may hide in a short record), of the profile-likelihood interval and the
+        // linearised ±z u, at the Bonferroni-corrected level for the rule's repeated looks; s² inflated for correlated
+        // residuals. Its larger side over 1.96 is the fit's standard uncertainty, so that U = 2u still covers 95 %
+        // over all the looks; it covers the spread between the models too.
+        var (low, high) = (final, final);
+        foreach (var c in new[] { one, two })
+        {
+            if (c is null || !double.IsFinite(c.Rss))
+            {
+                continue;
+            }
+
+            var s2 = Math.Max(c.Count > c.Parameters ? c.Rss / (c.Count - c.Parameters) : 0, _floor) * inflation;
+            var (pl, ph) = ExponentialFitter.ProfileInterval(t, y, c, s2, MinTimeConstantSeconds, maxTau);
+            var linear = c.Converged ? ExponentialFitter.Z * Math.Sqrt(c.VarianceOfFinal * inflation) : 0;
+            (low, high) = (Math.Min(low, Math.Min(pl, c.Final - linear)), Math.Max(high, Math.Max(ph, c.Final + linear)));
+        }
+
+        var fitUncertainty = Math.Max(final - low, high - final) / 1.959963984540054;
         var toCome = Math.Abs(best.At(t[^1]) - best.Final);
         var allowance = options.MisfitFraction * toCome / Math.Sqrt(3);
         var z = RunsTest.Z(residuals);
         white = RunsTest.LooksWhite(residuals, options.WhitenessAlpha);
         return new RecoveryFit(
-            best.Model, final + reference, Math.Sqrt(fitVariance), Math.Sqrt(spread + (allowance * allowance)),
+            best.Model, final + reference, fitUncertainty, allowance,
             [.. best.TimeConstants.Order()], n, t[^1], Math.Sqrt(sumSquares / n), z, weights[bestIndex]);
     }
 }
