@@ -11,7 +11,7 @@ namespace SortRig.Measurement.Settling;
 /// linearised interval, over 1.96, with s² inflated by (1 + ρ)/(1 − ρ) for a lag-one residual correlation ρ &gt; 0
 /// (the AR(1) effective-sample-size factor, common practice, no source). The model-misfit term is a rectangular
 /// allowance of MisfitFraction times the recovery still to come. A fit accepts only when its residuals pass the runs
-/// test and the combined uncertainty meets the target.
+/// test, no level shift is significant (<see cref="StepTest"/>), and the combined uncertainty meets the target.
 /// </summary>
 internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {
@@ -67,6 +67,23 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
 
         Latest = fit;
         return white && fit.StandardUncertainty <= target.InOhms(fit.FinalValue) ? fit : null;
+    }
+
+    /// <summary>Time constants the step alternative tries: around the fitted ones, and the assumed longest.</summary>
+    private static IEnumerable<double[]> StepCandidates(ExponentialFit one, ExponentialFit? two, double maxTau)
+    {
+        foreach (var f in new[] { 0.5, 1, 2 })
+        {
+            yield return [Math.Min(maxTau, one.TimeConstants[0] * f)];
+        }
+
+        yield return [maxTau];
+        if (two is { } fit && double.IsFinite(fit.Rss))
+        {
+            yield return fit.TimeConstants;
+            yield return [fit.TimeConstants[0], maxTau];
+            yield return [Math.Min(fit.TimeConstants[1], maxTau / 1.5), maxTau];
+        }
     }
 
     /// <summary>The model-weighed fit of the readings held, or null when no model converges.</summary>
@@ -148,7 +165,8 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         var toCome = Math.Abs(best.At(t[^1]) - best.Final);
         var allowance = options.MisfitFraction * toCome / Math.Sqrt(3);
         var z = RunsTest.Z(residuals);
-        white = RunsTest.LooksWhite(residuals, options.WhitenessAlpha);
+        white = RunsTest.LooksWhite(residuals, options.WhitenessAlpha)
+            && !StepTest.Significant(t, y, StepCandidates(one, two, maxTau), candidates.Min(c => c.Rss), _floor, inflation, options.WhitenessAlpha);
         return new RecoveryFit(
             best.Model, final + reference, fitUncertainty, allowance,
             [.. best.TimeConstants.Order()], n, t[^1], Math.Sqrt(sumSquares / n), z, weights[bestIndex]);
