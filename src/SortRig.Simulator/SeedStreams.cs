@@ -10,6 +10,9 @@ internal static class SeedStreams
     public const int Faults = 5;
     public const int Gain = 6;
     public const int LooseParts = 7;
+    public const int Physics = 8;
+    public const int Excess = 9;
+    public const int Wander = 10;
 
     public static int Derive(int seed, int stream)
     {

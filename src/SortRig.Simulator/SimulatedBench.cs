@@ -31,10 +31,13 @@ public sealed partial class SimulatedBench : IAsyncDisposable
         ArgumentNullException.ThrowIfNull(options);
         Options = options.Validate();
         _loggers = loggerFactory ?? NullLoggerFactory.Instance;
-        _env = new BenchEnvironment(timeProvider ?? TimeProvider.System, options.Ambient);
-        Reel = ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel));
-        Fixture = new Fixture(_env);
-        _loose = new LooseParts(options.Reel, Reel.Count, SeedStreams.Derive(options.Seed, SeedStreams.LooseParts));
+        var physics = options.Physics;
+        var wander = physics.IsRich ? new AmbientWander(physics.AmbientWanderKelvin, SeedStreams.Derive(options.Seed, SeedStreams.Wander)) : null;
+        _env = new BenchEnvironment(timeProvider ?? TimeProvider.System, options.Ambient, wander);
+        Reel = PartThermal.Enrich(
+            ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel)), physics, SeedStreams.Derive(options.Seed, SeedStreams.Physics));
+        Fixture = new Fixture(_env, physics, SeedStreams.Derive(options.Seed, SeedStreams.Excess));
+        _loose = new LooseParts(options.Reel, Reel.Count, SeedStreams.Derive(options.Seed, SeedStreams.LooseParts), physics);
         Scanner = new Scanner(_env, options.ScannerPartChannels, options.EffectivePt100Channel);
         Faults = new FaultInjector(options.Faults, SeedStreams.Derive(options.Seed, SeedStreams.Faults));
         Operator = new VirtualOperator(options.Operator, Reel, Fixture, _env.Time, SeedStreams.Derive(options.Seed, SeedStreams.Operator), _loggers.CreateLogger<VirtualOperator>());

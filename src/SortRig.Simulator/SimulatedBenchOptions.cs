@@ -19,6 +19,9 @@ public sealed record SimulatedBenchOptions
     /// <summary>The room temperature. Default constant 23 degC.</summary>
     public AmbientSpec Ambient { get; init; } = new();
 
+    /// <summary>The physics model (Simple or Rich) and the rich model's figures. Default Simple; see docs/simulator.md.</summary>
+    public PhysicsSpec Physics { get; init; } = new();
+
     /// <summary>The virtual operator. Default auto mode, 1-3 s handling, 2-6 K warming, 60 s dwell.</summary>
     public OperatorOptions Operator { get; init; } = new();
 
@@ -82,6 +85,8 @@ public sealed record SimulatedBenchOptions
         OptionGuard.NotNull(Ambient, "SimulatedBenchOptions.Ambient");
         OptionGuard.NotNull(Operator, "SimulatedBenchOptions.Operator");
         OptionGuard.NotNull(Faults, "SimulatedBenchOptions.Faults");
+        OptionGuard.NotNull(Physics, "SimulatedBenchOptions.Physics");
+        Physics.Validate();
         Reel.Validate();
         Ambient.Validate();
         Operator.Validate();

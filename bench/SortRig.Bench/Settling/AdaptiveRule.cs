@@ -18,7 +18,7 @@ internal static class AdaptiveRule
             if (verdict is { State: SettleState.Accepted, Acceptance: { } a })
             {
                 var v = a.Value;
-                return RuleOutcome.Measured(seconds, k + 1, v.Value, v.ExpandedTransfer, v.Expanded, insertion.Truth);
+                return RuleOutcome.Measured(seconds, k + 1, v.Value, v.ExpandedTransfer, v.Expanded, insertion.Truth) with { Predicted = a.AcceptedBy == SettleRule.Predictive };
             }
 
             if (verdict.State == SettleState.Unstable)

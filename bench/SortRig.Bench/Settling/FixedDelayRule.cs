@@ -5,16 +5,15 @@ using SortRig.Measurement.Uncertainty;
 namespace SortRig.Bench.Settling;
 
 /// <summary>
-/// The fixed-delay rule: contact is the first finite reading; wait 3 s; the value is the mean of the next 10
-/// readings (apertures starting at least 3 s after contact), with the same uncertainty budget as an accepted
-/// window (Type A, resolution, short-term stability) and no settling term.
+/// The fixed-delay rule: contact is the first finite reading; wait a fixed delay; the value is the mean of the next
+/// 10 readings (apertures starting at least the delay after contact), with the same uncertainty budget as an
+/// accepted window (Type A, resolution, short-term stability) and no settling term.
 /// </summary>
 internal static class FixedDelayRule
 {
-    public static readonly TimeSpan Delay = TimeSpan.FromSeconds(3);
     public const int Averaged = 10;
 
-    public static RuleOutcome Run(Insertion insertion, RangeSpec range, NplcSpec nplc, bool fourWire)
+    public static RuleOutcome Run(Insertion insertion, RangeSpec range, NplcSpec nplc, bool fourWire, TimeSpan delay)
     {
         var contact = 0;
         while (!insertion.Reading(contact).IsFinite)
@@ -22,7 +21,7 @@ internal static class FixedDelayRule
             contact++;
         }
 
-        var first = insertion.FirstEndingAtOrAfter(insertion.Since(contact) + Delay + insertion.Period);
+        var first = insertion.FirstEndingAtOrAfter(insertion.Since(contact) + delay + insertion.Period);
         var window = new Reading[Averaged];
         for (var i = 0; i < Averaged; i++)
         {

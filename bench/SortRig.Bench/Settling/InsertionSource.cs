@@ -12,7 +12,8 @@ namespace SortRig.Bench.Settling;
 /// simulator in-process (its reel builder, fixture physics, contact bounce and meter conversion), not the SCPI
 /// socket: the rule under test is judged on the same readings the socket would carry, without the transport.
 /// Handling warmth is drawn U(WarmKelvinMin, WarmKelvinMax) as the virtual operator does; the meter's aperture
-/// phase at contact is drawn U(0, 1).
+/// phase at contact is drawn U(0, 1). Truth is the value the part settles to on the range (with the rich model's
+/// steady self-heating), at the ambient of the insertion.
 /// </summary>
 internal sealed class InsertionSource
 {
@@ -25,10 +26,10 @@ internal sealed class InsertionSource
     private readonly TimeSpan _period;
     private readonly double _range;
 
-    public InsertionSource(ReelSpec reel, int seed, double range, double nplc)
+    public InsertionSource(ReelSpec reel, PhysicsModel physics, int seed, double range, double nplc)
     {
         _clock = new VirtualClock(new DateTimeOffset(2026, 1, 5, 8, 0, 0, TimeSpan.Zero));
-        var options = new SimulatedBenchOptions { Seed = seed, Reel = reel, Operator = new OperatorOptions { Mode = OperatorMode.Manual }, TcpPort = null };
+        var options = new SimulatedBenchOptions { Seed = seed, Reel = reel, Physics = new PhysicsSpec { Model = physics }, Operator = new OperatorOptions { Mode = OperatorMode.Manual }, TcpPort = null };
         _bench = new SimulatedBench(options, _clock);
         _bounce = new ContactBounce(options.ContactBounce, SeedStreams.Derive(seed, SeedStreams.Bounce));
         _settings = MeterSettings.Default with
@@ -46,7 +47,6 @@ internal sealed class InsertionSource
     /// <summary>Inserts each part in turn (the previous one is removed first); readings are generated while it is in.</summary>
     public IEnumerable<Insertion> Insertions()
     {
-        var env = _bench.Device.Environment;
         var engine = _bench.Device.Engine;
         var fixture = _bench.Fixture;
         var op = _bench.Options.Operator;
@@ -60,9 +60,8 @@ internal sealed class InsertionSource
             fixture.Insert(part, warm);
             var at = fixture.InsertedAt!.Value;
             double Read(TimeSpan since) => engine.Convert(fixture.Sample(at + since, _bounce), _settings);
-            double Presented(TimeSpan since) =>
-                part.OhmsAt(PartThermal.Celsius(env.AmbientAt(at + since), warm, since, part.ThermalTimeConstant), env.HoursSinceEpoch(at + since));
-            yield return new Insertion(i, warm, part.TempcoPpmPerKelvin, _bench.Truth(i), at, _period, phase, _range, Read, Presented);
+            double Presented(TimeSpan since) => fixture.Presented(at + since, _range);
+            yield return new Insertion(i, warm, part.TempcoPpmPerKelvin, fixture.Settled(at, _range), at, _period, phase, _range, Read, Presented);
         }
 
         fixture.Remove();

@@ -8,30 +8,41 @@ internal static class ResultsTable
     public const string Begin = "<!-- settle-results:begin (written by the benchmark) -->";
     public const string End = "<!-- settle-results:end -->";
 
+    /// <summary>The per-case overview against the targets.</summary>
+    public static List<string> Overview(IReadOnlyList<CaseOverview> cases)
+    {
+        var lines = new List<string>
+        {
+            "### Overview (targets: predictive ≤ 0.6 × limit; false accepts vs 2 × target ≤ 0.1 % at the 95 % upper bound; ≥ 2 × faster than the matched fixed delay)",
+            "",
+            "| case | limit s | averaging s (× limit) | predictive s (× limit) | predictive parts/h | by prediction | predictive false accepts vs 2 × target: n / accepted, 95 % upper | matched fixed delay s | fixed / predictive | targets |",
+            "|---|---|---|---|---|---|---|---|---|---|",
+        };
+        foreach (var c in cases)
+        {
+            var p = c.Predictive;
+            var ratio = p.Seconds.Mean / c.Limit.Seconds.Mean;
+            var speedup = c.Fixed.Seconds.Mean / p.Seconds.Mean;
+            var met = ratio <= 0.6 && p.UpperTarget <= 0.001 && speedup >= 2 && c.FixedMatched;
+            var fixedText = c.FixedMatched ? FormattableString.Invariant($"{c.Fixed.Seconds.Mean:0.00}") : "> 40";
+            lines.Add(FormattableString.Invariant(
+                $"| {c.Name} | {c.Limit.Seconds.Mean:0.00} | {c.Averaging.Seconds.Mean:0.00} ({c.Averaging.Seconds.Mean / c.Limit.Seconds.Mean:0.00}) | {p.Seconds.Mean:0.00} ({ratio:0.00}) | {p.PartsPerHour:0} | {100.0 * p.Predicted / Math.Max(1, p.Accepted):0.0} % | {p.FalseAcceptsTarget} / {p.Accepted}, {100 * p.UpperTarget:0.###} % | {fixedText} | {(c.FixedMatched ? "" : "> ")}{speedup:0.0} | {Verdict(met)} |"));
+        }
+
+        lines.Add("");
+        return lines;
+    }
+
     public static List<string> Section(SettleCase c, NplcSpec nplc, IReadOnlyList<RuleSummary> adaptive, RuleSummary fixedDelay, RuleSummary limit)
     {
         var lines = new List<string>
         {
             FormattableString.Invariant($"### {c.Name} ({c.Reel.Count} insertions, seed {c.Seed}, {nplc.ReadingsPerSecond:G3} readings/s in the profile)"),
             "",
-            "| rule | accepted / unstable | s mean | s median | s p95 | readings mean | median | p95 | false accepts vs U (k=2): n, rate, 95 % upper | vs 2 × target: n, rate, 95 % upper | abs. error ppm: median / p99 / max | median U ppm |",
+            "| rule | accepted / unstable | s mean | s median | s p95 | parts/h | × limit | readings mean | false accepts vs U (k=2): n, rate, 95 % upper | vs 2 × target: n, rate, 95 % upper | abs. error ppm: median / p99 / max | median U ppm |",
             "|---|---|---|---|---|---|---|---|---|---|---|---|",
         };
-        lines.AddRange(adaptive.Append(fixedDelay).Append(limit).Select(Row));
-        lines.Add("");
-        foreach (var a in adaptive)
-        {
-            var toLimit = a.Seconds.Mean / limit.Seconds.Mean;
-            var readingsToLimit = a.Readings.Mean / limit.Readings.Mean;
-            var speedup = fixedDelay.Seconds.Mean / a.Seconds.Mean;
-            var accurate = Math.Max(a.RateU, a.RateTarget) <= 0.001;
-            lines.Add(
-                FormattableString.Invariant($"- {a.Rule}: adaptive / limit = {toLimit:0.00} in mean seconds ({readingsToLimit:0.00} in readings) — target ≤ 1.25 {Verdict(toLimit <= 1.25 && accurate)}") +
-                (toLimit <= 1.25 && !accurate ? " (fast only by accepting values outside the target)" : "") +
-                FormattableString.Invariant($"; fixed / adaptive = {speedup:0.00} — target ≥ 2 {Verdict(speedup >= 2)}; ") +
-                FormattableString.Invariant($"false accepts {100 * a.RateU:0.###} % vs U, {100 * a.RateTarget:0.###} % vs 2 × target — target ≤ 0.1 % {Verdict(accurate)}."));
-        }
-
+        lines.AddRange(adaptive.Append(fixedDelay).Append(limit).Select(s => Row(s, limit)));
         lines.Add("");
         return lines;
     }
@@ -51,13 +62,13 @@ internal static class ResultsTable
         await File.WriteAllTextAsync(path, updated, ct).ConfigureAwait(false);
     }
 
-    private static string Row(RuleSummary s)
+    private static string Row(RuleSummary s, RuleSummary limit)
     {
         string Fa(int n, double rate, double upper) => s.Measures ? FormattableString.Invariant($"{n}, {100 * rate:0.###} %, {100 * upper:0.###} %") : "—";
         var errors = s.Measures ? FormattableString.Invariant($"{s.MedianAbsErrorPpm:0.0} / {s.P99AbsErrorPpm:0.0} / {s.MaxAbsErrorPpm:0.0}") : "—";
         var u = s.Measures ? FormattableString.Invariant($"{s.MedianUPpm:0.0}") : "—";
         return FormattableString.Invariant(
-            $"| {s.Rule} | {s.Accepted} / {s.Unstable} | {s.Seconds.Mean:0.00} | {s.Seconds.Median:0.00} | {s.Seconds.P95:0.00} | {s.Readings.Mean:0.0} | {s.Readings.Median:0} | {s.Readings.P95:0} | {Fa(s.FalseAcceptsU, s.RateU, s.UpperU)} | {Fa(s.FalseAcceptsTarget, s.RateTarget, s.UpperTarget)} | {errors} | {u} |");
+            $"| {s.Rule} | {s.Accepted} / {s.Unstable} | {s.Seconds.Mean:0.00} | {s.Seconds.Median:0.00} | {s.Seconds.P95:0.00} | {s.PartsPerHour:0} | {s.Seconds.Mean / limit.Seconds.Mean:0.00} | {s.Readings.Mean:0.0} | {Fa(s.FalseAcceptsU, s.RateU, s.UpperU)} | {Fa(s.FalseAcceptsTarget, s.RateTarget, s.UpperTarget)} | {errors} | {u} |");
     }
 
     private static string Verdict(bool met) => met ? "**met**" : "**not met**";

@@ -7,7 +7,8 @@ namespace SortRig.Bench.Settling;
 /// <param name="ErrorPpm">Accepted value minus the simulator's truth; NaN when not accepted or not measured.</param>
 /// <param name="ExpandedTransferPpm">The rule's stated expanded transfer uncertainty U (k = 2); NaN when none.</param>
 /// <param name="ExpandedAbsolutePpm">The rule's stated expanded absolute uncertainty U (k = 2); NaN when none.</param>
-internal sealed record RuleOutcome(bool Accepted, double Seconds, int Readings, double ErrorPpm, double ExpandedTransferPpm, double ExpandedAbsolutePpm)
+/// <param name="Predicted">True when the predictive rule (not the averaging fallback) accepted.</param>
+internal sealed record RuleOutcome(bool Accepted, double Seconds, int Readings, double ErrorPpm, double ExpandedTransferPpm, double ExpandedAbsolutePpm, bool Predicted = false)
 {
     public static RuleOutcome Measured(double seconds, int readings, double value, double expandedTransfer, double expandedAbsolute, double truth) =>
         new(true, seconds, readings, Ppm(value - truth, truth), Ppm(expandedTransfer, truth), Ppm(expandedAbsolute, truth));

@@ -5,7 +5,7 @@ namespace SortRig.Bench.Settling;
 /// <summary>Figures of one rule over a reel. Quantiles are MathNet's default (R-8, approximately median-unbiased).</summary>
 internal sealed record RuleSummary(
     string Rule, int Parts, int Accepted, Spread Seconds, Spread Readings,
-    int FalseAcceptsU, int FalseAcceptsTarget, double MedianAbsErrorPpm, double P99AbsErrorPpm, double MaxAbsErrorPpm, double MedianUPpm)
+    int FalseAcceptsU, int FalseAcceptsTarget, double MedianAbsErrorPpm, double P99AbsErrorPpm, double MaxAbsErrorPpm, double MedianUPpm, int Predicted)
 {
     public int Unstable => Parts - Accepted;
 
@@ -16,6 +16,9 @@ internal sealed record RuleSummary(
     public double UpperU => ClopperPearson.Upper(FalseAcceptsU, Accepted);
 
     public double UpperTarget => ClopperPearson.Upper(FalseAcceptsTarget, Accepted);
+
+    /// <summary>Settle-limited throughput: 3600 / mean seconds per part (handling time not included).</summary>
+    public double PartsPerHour => 3600 / Seconds.Mean;
 
     public bool Measures => Accepted > 0 && !double.IsNaN(MedianAbsErrorPpm);
 
@@ -34,7 +37,8 @@ internal sealed record RuleSummary(
             abs.Length > 0 ? abs.Median() : double.NaN,
             abs.Length > 0 ? abs.Quantile(0.99) : double.NaN,
             abs.Length > 0 ? abs.Max() : double.NaN,
-            measured.Count > 0 ? measured.Select(o => o.ExpandedTransferPpm).Median() : double.NaN);
+            measured.Count > 0 ? measured.Select(o => o.ExpandedTransferPpm).Median() : double.NaN,
+            accepted.Count(o => o.Predicted));
     }
 }
 

@@ -100,6 +100,13 @@ public sealed record SettleOptions
         init => _settlingSpan = value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10) ? value : throw new ArgumentOutOfRangeException(nameof(SettlingSpan), value, "SettlingSpan must be in [0, 10 min].");
     }
 
+    /// <summary>
+    /// When set, the predictive rule runs beside the averaging rule: it fits the recovery as it comes in and may accept
+    /// a part earlier with the extrapolated final value (<see cref="SettleRule.Predictive"/>); when no model fits, the
+    /// averaging rule decides as before. Default null (averaging rule only).
+    /// </summary>
+    public PredictiveOptions? Predictive { get; init; }
+
     /// <summary>True when the fixture is wired 4-wire (default); false adds the lead term to accepted values.</summary>
     public bool FourWire { get; init; } = true;
 

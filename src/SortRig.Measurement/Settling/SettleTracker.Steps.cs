@@ -27,6 +27,7 @@ public sealed partial class SettleTracker
             _window.Clear();
             _noise.Clear();
             _residual.Clear();
+            _predictive?.Clear();
             _collected = 0;
             _stats = null;
         }
@@ -36,6 +37,7 @@ public sealed partial class SettleTracker
         _window.Enqueue(reading);
         _noise.Add(reading.Value);
         _residual.Add(reading, _options.WindowLength);
+        _predictive?.Add(reading);
         if (_window.Count > _options.WindowLength)
         {
             _window.Dequeue();
@@ -54,7 +56,32 @@ public sealed partial class SettleTracker
             return verdict;
         }
 
+        if (_predictive?.TryAccept(_options.Target) is { } fit)
+        {
+            return AcceptPredicted(reading, window, fit);
+        }
+
         return TimedOut(reading) ? Unstable(reading, ReasonForFailure()) : Verdict(SettleState.Settling, reading);
+    }
+
+    /// <summary>
+    /// Accepts the fit's final value: the meter's terms for one reading (spec, resolution, short-term stability, lead)
+    /// plus the fit's standard uncertainty, in quadrature (GUM 5.1.2); the fit replaces the window's Type A.
+    /// </summary>
+    private SettleVerdict AcceptPredicted(Reading reading, Reading[] window, RecoveryFit fit)
+    {
+        var meter = ResistanceUncertainty.For([reading], _range, _nplc, _options.SpecPeriod, _options.FourWire, _options.Model);
+        var u = fit.StandardUncertainty;
+        var value = meter with
+        {
+            Value = fit.FinalValue,
+            StandardUncertainty = Math.Sqrt((meter.StandardUncertainty * meter.StandardUncertainty) + (u * u)),
+            TransferUncertainty = Math.Sqrt((meter.TransferUncertainty * meter.TransferUncertainty) + (u * u)),
+        };
+        var acceptance = new SettleAcceptance(value, window, reading.Time - _insertedAt!.Value, 0, SettleRule.Predictive, fit);
+        var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
+        _state = SettleState.AwaitingRemoval;
+        return verdict;
     }
 
     /// <summary>Judges a full window; counts why it failed, for the reason given on timeout. Gives the residual half-width, ohms.</summary>
@@ -149,6 +176,7 @@ public sealed partial class SettleTracker
         _window.Clear();
         _noise.Clear();
         _residual.Clear();
+        _predictive?.Clear();
         _stats = null;
         _latestValue = null;
         _collected = 0;

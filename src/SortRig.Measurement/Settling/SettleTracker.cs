@@ -17,6 +17,7 @@ public sealed partial class SettleTracker
     private readonly Queue<Reading> _window;
     private readonly NoiseGuard _noise;
     private readonly ResidualSettling _residual;
+    private readonly PredictiveSettling? _predictive;
     private SettleState _state = SettleState.Empty;
     private DateTimeOffset? _insertedAt;
     private TimeSpan _excused;
@@ -43,6 +44,14 @@ public sealed partial class SettleTracker
         _window = new Queue<Reading>(_options.WindowLength + 1);
         _noise = new NoiseGuard(_options.NoiseHistoryLength);
         _residual = new ResidualSettling(_options, _nplc.ResolutionPpmOfRange * 1e-6 * _range.FullScale);
+        _predictive = _options.Predictive is { } predictive ? new PredictiveSettling(predictive, _nplc.ResolutionPpmOfRange * 1e-6 * _range.FullScale, _options.AssumedTimeConstant) : null;
+        if (_predictive is not null && _options.AssumedTimeConstant < TimeSpan.FromSeconds(0.1))
+        {
+            throw new ArgumentException(
+                "SettleOptions.Predictive needs SettleOptions.AssumedTimeConstant >= 0.1 s: it bounds the time constants the recovery fit may use.",
+                nameof(options));
+        }
+
         if (_residual.SpanMode && _options.AssumedTimeConstant == TimeSpan.Zero)
         {
             throw new ArgumentException(

@@ -30,7 +30,12 @@ public sealed record SettleLive(
 /// <param name="TimeToSettle">From insertion (first finite reading) to the accepting reading.</param>
 /// <param name="ResidualHalfWidth">Half-width a of the residual-settling component included (rectangular) in the
 /// uncertainties of <paramref name="Value"/>, ohms; 0 when <see cref="SettleOptions.AssumedTimeConstant"/> is 0.</param>
-public sealed record SettleAcceptance(MeasuredValue Value, IReadOnlyList<Reading> Readings, TimeSpan TimeToSettle, double ResidualHalfWidth = 0);
+/// <param name="AcceptedBy">The rule that accepted the part.</param>
+/// <param name="Fit">The recovery fit when <paramref name="AcceptedBy"/> is Predictive: then <paramref name="Value"/>
+/// is its predicted final value, with the fit's uncertainty added to the meter's terms; null otherwise.</param>
+public sealed record SettleAcceptance(
+    MeasuredValue Value, IReadOnlyList<Reading> Readings, TimeSpan TimeToSettle, double ResidualHalfWidth = 0,
+    SettleRule AcceptedBy = SettleRule.Averaging, RecoveryFit? Fit = null);
 
 /// <summary>A part declared unstable.</summary>
 /// <param name="Reason">Why.</param>

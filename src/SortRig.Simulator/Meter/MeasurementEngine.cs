@@ -69,6 +69,6 @@ internal sealed class MeasurementEngine
 
         var lead = settings.Function == MeterFunction.Resistance ? _leadOhms : 0.0;
         var nplc = NplcSetting.Find(active.Nplc) ?? NplcSetting.Default;
-        return ReadingModel.Report(input.IsOpen, input.Ohms, range, nplc, _noise.NextStandardNormal(), lead, _gains.Factor(range));
+        return ReadingModel.Report(input.IsOpen, SelfHeating.Apply(input, range), range, nplc, _noise.NextStandardNormal(), lead, _gains.Factor(range));
     }
 }

@@ -3,10 +3,13 @@ namespace SortRig.Simulator.Physics;
 /// <summary>The clock and the room: bench epoch, ambient temperature and ageing hours.</summary>
 internal sealed class BenchEnvironment
 {
-    public BenchEnvironment(TimeProvider time, AmbientSpec ambient)
+    private readonly AmbientWander _wander;
+
+    public BenchEnvironment(TimeProvider time, AmbientSpec ambient, AmbientWander? wander = null)
     {
         Time = time;
         Ambient = ambient;
+        _wander = wander ?? AmbientWander.None;
         Epoch = time.GetUtcNow();
     }
 
@@ -19,7 +22,7 @@ internal sealed class BenchEnvironment
 
     public DateTimeOffset Now => Time.GetUtcNow();
 
-    public double AmbientAt(DateTimeOffset t) => Ambient.CelsiusAt(t - Epoch);
+    public double AmbientAt(DateTimeOffset t) => Ambient.CelsiusAt(t - Epoch) + _wander.KelvinAt(t - Epoch);
 
     public double HoursSinceEpoch(DateTimeOffset t) => (t - Epoch).TotalHours;
 

@@ -5,11 +5,19 @@ internal sealed class ContactSlot
 {
     private readonly Lock _gate = new();
     private readonly string _name;
+    private readonly ExcessNoise? _excess;
+    private readonly double _thermalResistance;
     private SimulatedPart? _part;
     private DateTimeOffset _insertedAt;
     private double _warmKelvin;
 
-    public ContactSlot(string name) => _name = name;
+    /// <summary>A slot; the rich model passes its part excess noise and the thermal resistance for self-heating.</summary>
+    public ContactSlot(string name, ExcessNoise? excess = null, double thermalResistanceKelvinPerWatt = 0)
+    {
+        _name = name;
+        _excess = excess;
+        _thermalResistance = thermalResistanceKelvinPerWatt;
+    }
 
     public SimulatedPart? Occupant
     {
@@ -34,6 +42,8 @@ internal sealed class ContactSlot
 
             (_part, _insertedAt, _warmKelvin) = (part, at, warmKelvin);
         }
+
+        _excess?.Reset(at);
     }
 
     public SimulatedPart? Remove()
@@ -63,8 +73,57 @@ internal sealed class ContactSlot
         }
 
         var since = t - insertedAt;
-        var celsius = PartThermal.Celsius(env.AmbientAt(t), warm, since, part.ThermalTimeConstant);
-        var ohms = part.OhmsAt(celsius, env.HoursSinceEpoch(t));
-        return bounce.IsBouncing(since) ? bounce.Disturb(ohms) : InputSample.Of(ohms);
+        var ohms = Clean(part, warm, since, t, env);
+        if (_excess is not null)
+        {
+            ohms *= 1 + (_excess.Ppm(t) * 1e-6);
+        }
+
+        return bounce.IsBouncing(since)
+            ? bounce.Disturb(ohms)
+            : new InputSample(false, ohms, HeatingPerWatt(part, since), part.TempcoPpmPerKelvin);
     }
+
+    /// <summary>
+    /// Truth side (benchmarks): the noise-free value the part presents at time t on a range, with its cooling and
+    /// self-heating but without excess noise or bounce; NaN when the slot is empty.
+    /// </summary>
+    public double Presented(DateTimeOffset t, BenchEnvironment env, double rangeOhms)
+    {
+        SimulatedPart? part;
+        DateTimeOffset insertedAt;
+        double warm;
+        lock (_gate)
+        {
+            (part, insertedAt, warm) = (_part, _insertedAt, _warmKelvin);
+        }
+
+        if (part is null)
+        {
+            return double.NaN;
+        }
+
+        var since = t - insertedAt;
+        var sample = new InputSample(false, Clean(part, warm, since, t, env), HeatingPerWatt(part, since), part.TempcoPpmPerKelvin);
+        return SelfHeating.Apply(sample, rangeOhms);
+    }
+
+    /// <summary>Truth side: the value the part in the slot settles to on a range (self-heating at its steady state), at the ambient of time t.</summary>
+    public double Settled(DateTimeOffset t, BenchEnvironment env, double rangeOhms)
+    {
+        var part = Occupant;
+        if (part is null)
+        {
+            return double.NaN;
+        }
+
+        var sample = new InputSample(false, env.SettledOhms(part, t), _thermalResistance, part.TempcoPpmPerKelvin);
+        return SelfHeating.Apply(sample, rangeOhms);
+    }
+
+    private static double Clean(SimulatedPart part, double warm, TimeSpan since, DateTimeOffset t, BenchEnvironment env) =>
+        part.OhmsAt(PartThermal.Celsius(part, env.AmbientAt(t), warm, since), env.HoursSinceEpoch(t));
+
+    private double HeatingPerWatt(SimulatedPart part, TimeSpan since) =>
+        _thermalResistance == 0 ? 0 : PartThermal.HeatingPerWatt(part, _thermalResistance, since);
 }

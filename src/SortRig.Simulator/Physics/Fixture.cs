@@ -6,10 +6,16 @@ namespace SortRig.Simulator.Physics;
 /// </summary>
 public sealed class Fixture
 {
-    private readonly ContactSlot _slot = new("The fixture");
+    private readonly ContactSlot _slot;
     private readonly BenchEnvironment _env;
 
-    internal Fixture(BenchEnvironment env) => _env = env;
+    internal Fixture(BenchEnvironment env, PhysicsSpec? physics = null, int excessSeed = 0)
+    {
+        _env = env;
+        _slot = physics is { IsRich: true }
+            ? new ContactSlot("The fixture", new ExcessNoise(physics, excessSeed), physics.ThermalResistanceKelvinPerWatt)
+            : new ContactSlot("The fixture");
+    }
 
     /// <summary>The part in the fixture, or null when empty.</summary>
     public SimulatedPart? Occupant => _slot.Occupant;
@@ -30,4 +36,10 @@ public sealed class Fixture
     public SimulatedPart? Remove() => _slot.Remove();
 
     internal InputSample Sample(DateTimeOffset t, ContactBounce bounce) => _slot.Sample(t, _env, bounce);
+
+    /// <summary>Truth side (benchmarks): the noise-free value presented at t on a range (cooling, self-heating; no excess noise).</summary>
+    internal double Presented(DateTimeOffset t, double rangeOhms) => _slot.Presented(t, _env, rangeOhms);
+
+    /// <summary>Truth side (benchmarks): the value the part settles to on a range, at the ambient of time t.</summary>
+    internal double Settled(DateTimeOffset t, double rangeOhms) => _slot.Settled(t, _env, rangeOhms);
 }

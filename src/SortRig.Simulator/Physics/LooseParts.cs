@@ -6,7 +6,7 @@ namespace SortRig.Simulator.Physics;
 /// Parts not on the reel (kept from an earlier batch), drawn on request like reel parts from a
 /// stream of their own, numbered after the reel. Thread-safe.
 /// </summary>
-internal sealed class LooseParts(ReelSpec spec, int firstIndex, int seed)
+internal sealed class LooseParts(ReelSpec spec, int firstIndex, int seed, PhysicsSpec? physics = null)
 {
     private readonly Random _rng = new MersenneTwister(seed, threadSafe: false);
     private readonly List<SimulatedPart> _taken = [];
@@ -17,6 +17,11 @@ internal sealed class LooseParts(ReelSpec spec, int firstIndex, int seed)
         lock (_gate)
         {
             var part = ReelBuilder.Draw(spec, _rng, firstIndex + _taken.Count, nominalOhms);
+            if (physics is { IsRich: true })
+            {
+                part = PartThermal.Enrich(part, physics, _rng);
+            }
+
             _taken.Add(part);
             return part;
         }

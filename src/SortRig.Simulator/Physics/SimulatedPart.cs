@@ -17,6 +17,12 @@ public sealed record SimulatedPart(
     double DriftPpmPerHour,
     TimeSpan ThermalTimeConstant)
 {
+    /// <summary>Rich model: share of the handling warmth carried off by the leads into the fixture, 0..1; 0 (default) for one path.</summary>
+    public double LeadShare { get; init; }
+
+    /// <summary>Rich model: time constant of the lead path; zero (default) when <see cref="LeadShare"/> is 0.</summary>
+    public TimeSpan LeadTimeConstant { get; init; }
+
     /// <summary>The reference temperature of <see cref="OhmsAt23C"/>, in degC.</summary>
     public const double ReferenceCelsius = 23.0;
 

@@ -1,0 +1,174 @@
+using SortRig.Measurement.Readings;
+
+namespace SortRig.Measurement.Settling;
+
+/// <summary>
+/// The predictive rule's state for one insertion: the finite readings since the bounce (or the last flicker) within
+/// the fit span, fitted every <see cref="PredictiveOptions.FitInterval"/> with one and with two exponentials, time
+/// constants bounded by the assumed longest one. The predicted final value is the mean weighted by AICc (Akaike
+/// weights, Burnham and Anderson 2002, from memory). Its fit uncertainty is the wider side of the union, over both
+/// models, of the profile-likelihood interval (see <see cref="ExponentialFitter.ProfileInterval"/>) and the
+/// linearised interval, over 1.96, with s² inflated by (1 + ρ)/(1 − ρ) for a lag-one residual correlation ρ &gt; 0
+/// (the AR(1) effective-sample-size factor, common practice, no source). The model-misfit term is a rectangular
+/// allowance of MisfitFraction times the recovery still to come. A fit accepts only when its residuals pass the runs
+/// test, no level shift is significant (<see cref="StepTest"/>), and the combined uncertainty meets the target.
+/// </summary>
+internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
+{
+    private const double MinTimeConstantSeconds = 0.02;
+    private readonly List<Reading> _readings = [];
+    private readonly double _floor = resolutionOhms * resolutionOhms / 12;
+    private DateTimeOffset? _lastFit;
+
+    /// <summary>The latest fit made (accepted or not); null before the first.</summary>
+    public RecoveryFit? Latest { get; private set; }
+
+    public void Add(Reading reading)
+    {
+        _readings.Add(reading);
+        var drop = 0;
+        while (drop < _readings.Count - 1 && reading.Time - _readings[drop].Time > options.FitSpan)
+        {
+            drop++;
+        }
+
+        if (drop > 0)
+        {
+            _readings.RemoveRange(0, drop);
+        }
+    }
+
+    public void Clear()
+    {
+        _readings.Clear();
+        _lastFit = null;
+        Latest = null;
+    }
+
+    /// <summary>Fits when one is due; returns the fit when it accepts the part at the target, else null.</summary>
+    public RecoveryFit? TryAccept(SettleTarget target)
+    {
+        if (_readings.Count < options.MinReadings)
+        {
+            return null;
+        }
+
+        var newest = _readings[^1].Time;
+        if (newest - _readings[0].Time < options.MinSpan || (_lastFit is { } last && newest - last < options.FitInterval))
+        {
+            return null;
+        }
+
+        _lastFit = newest;
+        if (Fit(out var white) is not { } fit)
+        {
+            return null;
+        }
+
+        Latest = fit;
+        return white && fit.StandardUncertainty <= target.InOhms(fit.FinalValue) ? fit : null;
+    }
+
+    /// <summary>Time constants the step alternative tries: around the fitted ones, and the assumed longest.</summary>
+    private static IEnumerable<double[]> StepCandidates(ExponentialFit one, ExponentialFit? two, double maxTau)
+    {
+        foreach (var f in new[] { 0.5, 1, 2 })
+        {
+            yield return [Math.Min(maxTau, one.TimeConstants[0] * f)];
+        }
+
+        yield return [maxTau];
+        if (two is { } fit && double.IsFinite(fit.Rss))
+        {
+            yield return fit.TimeConstants;
+            yield return [fit.TimeConstants[0], maxTau];
+            yield return [Math.Min(fit.TimeConstants[1], maxTau / 1.5), maxTau];
+        }
+    }
+
+    /// <summary>The model-weighed fit of the readings held, or null when no model converges.</summary>
+    internal RecoveryFit? Fit(out bool white)
+    {
+        white = false;
+        var n = _readings.Count;
+        var t0 = _readings[0].Time;
+        var maxTau = longestTimeConstant.TotalSeconds;
+        var reference = _readings[^1].Value;
+        var t = new double[n];
+        var y = new double[n];
+        for (var i = 0; i < n; i++)
+        {
+            t[i] = (_readings[i].Time - t0).TotalSeconds;
+            y[i] = _readings[i].Value - reference;
+        }
+
+        var one = ExponentialFitter.One(t, y, MinTimeConstantSeconds, maxTau, _floor);
+        var two = n >= 10 ? ExponentialFitter.Two(t, y, MinTimeConstantSeconds, maxTau, _floor) : null;
+        var candidates = new List<ExponentialFit>();
+        if (one.Converged)
+        {
+            candidates.Add(one);
+        }
+
+        if (two is { Converged: true })
+        {
+            candidates.Add(two);
+        }
+
+        if (candidates.Count == 0)
+        {
+            return null;
+        }
+
+        var minAicc = candidates.Min(c => c.Aicc);
+        var raw = candidates.Select(c => Math.Exp(-(c.Aicc - minAicc) / 2)).ToArray();
+        var weights = raw.Select(w => w / raw.Sum()).ToArray();
+        var bestIndex = Array.IndexOf(weights, weights.Max());
+        var best = candidates[bestIndex];
+
+        var residuals = new double[n];
+        double sumSquares = 0, lagProducts = 0;
+        for (var i = 0; i < n; i++)
+        {
+            residuals[i] = y[i] - best.At(t[i]);
+            sumSquares += residuals[i] * residuals[i];
+            if (i > 0)
+            {
+                lagProducts += residuals[i] * residuals[i - 1];
+            }
+        }
+
+        var rho = sumSquares > 0 ? Math.Clamp(lagProducts / sumSquares, 0, 0.95) : 0;
+        var inflation = (1 + rho) / (1 - rho);
+        var final = candidates.Select((c, i) => weights[i] * c.Final).Sum();
+
+        // The interval of the final value: the union, over both models (whether or not the data favour the second
+        // exponential: a slower path may hide in a short record), of the profile-likelihood interval and the
+        // linearised ±z u, at the Bonferroni-corrected level for the rule's repeated looks; s² inflated for correlated
+        // residuals. Its larger side over 1.96 is the fit's standard uncertainty, so that U = 2u still covers 95 %
+        // over all the looks; it covers the spread between the models too.
+        var (low, high) = (final, final);
+        foreach (var c in new[] { one, two })
+        {
+            if (c is null || !double.IsFinite(c.Rss))
+            {
+                continue;
+            }
+
+            var s2 = Math.Max(c.Count > c.Parameters ? c.Rss / (c.Count - c.Parameters) : 0, _floor) * inflation;
+            var (pl, ph) = ExponentialFitter.ProfileInterval(t, y, c, s2, MinTimeConstantSeconds, maxTau);
+            var linear = c.Converged ? ExponentialFitter.Z * Math.Sqrt(c.VarianceOfFinal * inflation) : 0;
+            (low, high) = (Math.Min(low, Math.Min(pl, c.Final - linear)), Math.Max(high, Math.Max(ph, c.Final + linear)));
+        }
+
+        var fitUncertainty = Math.Max(final - low, high - final) / 1.959963984540054;
+        var toCome = Math.Abs(best.At(t[^1]) - best.Final);
+        var allowance = options.MisfitFraction * toCome / Math.Sqrt(3);
+        var z = RunsTest.Z(residuals);
+        white = RunsTest.LooksWhite(residuals, options.WhitenessAlpha)
+            && !StepTest.Significant(t, y, StepCandidates(one, two, maxTau), candidates.Min(c => c.Rss), _floor, inflation, options.WhitenessAlpha);
+        return new RecoveryFit(
+            best.Model, final + reference, fitUncertainty, allowance,
+            [.. best.TimeConstants.Order()], n, t[^1], Math.Sqrt(sumSquares / n), z, weights[bestIndex]);
+    }
+}

@@ -1,0 +1,32 @@
+namespace SortRig.Measurement.Settling;
+
+/// <summary>
+/// The fit behind a predictive acceptance: the predicted final value and its standard uncertainty, split into the
+/// fit's own part and the model-misfit part (GUM, JCGM 100:2008, 5.1.2: combined in quadrature).
+/// </summary>
+/// <param name="Model">The model with the larger Akaike weight.</param>
+/// <param name="FinalValue">Predicted settled value, ohms (model-averaged over the fitted models).</param>
+/// <param name="FitUncertainty">From the fit covariance s²(JᵀJ)⁻¹, inflated for correlated residuals, ohms.</param>
+/// <param name="MisfitUncertainty">Model misfit: the spread between models and the misfit allowance on the part
+/// of the recovery still to come, ohms.</param>
+/// <param name="TimeConstantsSeconds">The chosen model's time constants, shortest first, s.</param>
+/// <param name="Readings">Readings fitted.</param>
+/// <param name="SpanSeconds">Time covered by the fitted readings, s.</param>
+/// <param name="ResidualRms">Root-mean-square residual of the chosen model, ohms.</param>
+/// <param name="RunsZ">Runs test z of the chosen model's residuals (below about −2.3 fails at 1 %).</param>
+/// <param name="Weight">Akaike weight of the chosen model, 0..1.</param>
+public sealed record RecoveryFit(
+    RecoveryModel Model,
+    double FinalValue,
+    double FitUncertainty,
+    double MisfitUncertainty,
+    IReadOnlyList<double> TimeConstantsSeconds,
+    int Readings,
+    double SpanSeconds,
+    double ResidualRms,
+    double RunsZ,
+    double Weight)
+{
+    /// <summary>Combined standard uncertainty of <see cref="FinalValue"/>, ohms.</summary>
+    public double StandardUncertainty => Math.Sqrt((FitUncertainty * FitUncertainty) + (MisfitUncertainty * MisfitUncertainty));
+}
