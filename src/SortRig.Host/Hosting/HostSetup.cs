@@ -40,6 +40,8 @@ internal static class HostSetup
             var webOptions = WebSetup.Configure(web);
             var app = web.Build();
             WebSetup.Use(app, webOptions);
+            // Said before the live view takes the screen, so the operator knows where to point a browser.
+            Console.Out.WriteLine($"bench page: {string.Join(' ', WebBindGuard.Urls(webOptions))}");
             return app;
         }
 

@@ -56,16 +56,18 @@ internal sealed class ContactSlot
         }
     }
 
+    private (SimulatedPart? Part, DateTimeOffset InsertedAt, double Warm) Snapshot()
+    {
+        lock (_gate)
+        {
+            return (_part, _insertedAt, _warmKelvin);
+        }
+    }
+
     /// <summary>What the contacts present at time t: open, bouncing, or the part at its current temperature.</summary>
     public InputSample Sample(DateTimeOffset t, BenchEnvironment env, ContactBounce bounce)
     {
-        SimulatedPart? part;
-        DateTimeOffset insertedAt;
-        double warm;
-        lock (_gate)
-        {
-            (part, insertedAt, warm) = (_part, _insertedAt, _warmKelvin);
-        }
+        var (part, insertedAt, warm) = Snapshot();
 
         if (part is null)
         {
@@ -90,13 +92,7 @@ internal sealed class ContactSlot
     /// </summary>
     public double Presented(DateTimeOffset t, BenchEnvironment env, double rangeOhms)
     {
-        SimulatedPart? part;
-        DateTimeOffset insertedAt;
-        double warm;
-        lock (_gate)
-        {
-            (part, insertedAt, warm) = (_part, _insertedAt, _warmKelvin);
-        }
+        var (part, insertedAt, warm) = Snapshot();
 
         if (part is null)
         {
