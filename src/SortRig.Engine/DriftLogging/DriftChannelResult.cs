@@ -3,7 +3,7 @@ using SortRig.Measurement.Drift;
 namespace SortRig.Engine.DriftLogging;
 
 /// <summary>Analysis of one stored channel (read back from the log).</summary>
-/// <param name="Label">Stored label ("ch101", "pt100@120").</param>
+/// <param name="Label">Stored label ("ch101", "pt100@105").</param>
 /// <param name="Count">Samples stored.</param>
 /// <param name="MeanOhms">Mean resistance, ohms (the ppm refer to it).</param>
 /// <param name="Drift">Straight-line drift, ppm/h; null below 3 samples.</param>

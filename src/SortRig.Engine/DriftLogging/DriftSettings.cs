@@ -37,7 +37,7 @@ public sealed record DriftSettings(
     /// <summary>Prefix of a part channel's stored label ("ch101").</summary>
     public const string PartLabelPrefix = "ch";
 
-    /// <summary>Prefix of the thermometer channel's stored label ("pt100@120").</summary>
+    /// <summary>Prefix of the thermometer channel's stored label ("pt100@105").</summary>
     public const string Pt100LabelPrefix = "pt100@";
 
     /// <summary>Stored label of a part channel.</summary>
