@@ -23,9 +23,13 @@ internal static class ReportCommand
         command.Add(session);
         command.Add(run);
         command.Add(output);
+        var force = new Option<bool>("--force") { Description = "Replace the report already in the --out folder" };
         command.Add(cups);
+        command.Add(force);
         command.SetAction((result, ct) => RunAsync(
-            new ReportRequest(result.GetValue(db)!, result.GetValue(output)!, result.GetValue(session), result.GetValue(run), result.GetValue(cups)),
+            new ReportRequest(
+                result.GetValue(db)!, result.GetValue(output)!, result.GetValue(session), result.GetValue(run), result.GetValue(cups),
+                result.GetValue(force)),
             AnsiConsole.Console,
             ct));
         return command;

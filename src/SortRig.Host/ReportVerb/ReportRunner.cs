@@ -22,6 +22,7 @@ internal static class ReportRunner
         request.Validate();
         options ??= new ReportOptions();
         VerbGuard.RequireExisting(request.Database);
+        ReportFolderGuard.Check(request.Output, request.Force);
         await using var log = await PrecisionLogFactory.OpenAsync(request.Database, new PrecisionLogOptions { TimeProvider = time }, ct).ConfigureAwait(false);
         var (input, notes) = await ReportInputBuilder.BuildAsync(log, request, ct).ConfigureAwait(false);
         var manifest = await new ReportWriter(time, options).WriteAsync(request.Output, input, ct).ConfigureAwait(false);

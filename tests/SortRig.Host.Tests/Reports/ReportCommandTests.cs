@@ -96,6 +96,32 @@ public sealed class ReportCommandTests : IDisposable
         Assert.Contains("'reel-7'", printed.ToString(), StringComparison.Ordinal);
     }
 
+    [Fact]
+    public async Task Report_PlantedLinkInTheFolder_Refused_TargetUntouched_ExistingFolderNeedsForce()
+    {
+        var db = Path.Combine(_dir, "links.db");
+        await SortedSessionAsync(db);
+        var folder = Directory.CreateDirectory(Path.Combine(_dir, "out")).FullName;
+        var target = Path.Combine(_dir, "precious.txt");
+        await File.WriteAllTextAsync(target, "keep me");
+        File.CreateSymbolicLink(Path.Combine(folder, ReportWriter.SummaryFileName), target);
+        var printed = new StringWriter();
+        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No });
+
+        var linked = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", null, Force: true), console, default);
+        File.Delete(Path.Combine(folder, ReportWriter.SummaryFileName));
+        await File.WriteAllTextAsync(Path.Combine(folder, "old.txt"), "an earlier report");
+        var occupied = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", null), console, default);
+        var forced = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", null, Force: true), console, default);
+        var onAFile = await ReportCommand.RunAsync(new ReportRequest(db, target, "reel-7", null), console, default);
+
+        Assert.Equal((2, 2, 0, 2), (linked, occupied, forced, onAFile));
+        Assert.Equal("keep me", await File.ReadAllTextAsync(target));
+        Assert.Contains("symbolic link", printed.ToString(), StringComparison.Ordinal);
+        Assert.Contains("--force", printed.ToString(), StringComparison.Ordinal);
+        Assert.True(File.Exists(Path.Combine(folder, ReportWriter.SummaryFileName)));
+    }
+
     private static T[] Read<T>(string path)
     {
         using var reader = CsvReader.FromFile(path, null);
