@@ -54,10 +54,14 @@ public sealed partial class VirtualOperator
 
     private async Task CycleAsync(int index, CancellationToken ct)
     {
-        SetState(OperatorState.Handling);
         var handling = Uniform(_options.HandlingTimeMin, _options.HandlingTimeMax);
         var warm = ContinuousUniform.Sample(_rng, _options.WarmKelvinMin, _options.WarmKelvinMax);
-        await Task.Delay(handling, _time, ct).ConfigureAwait(false);
+
+        // Each state is published only after its timer is registered, so whoever sees the state
+        // and then advances a virtual clock moves that timer too.
+        var handled = Task.Delay(handling, _time, ct);
+        SetState(OperatorState.Handling);
+        await handled.ConfigureAwait(false);
 
         if (_fixture.Remove() is SimulatedPart foreign)
         {
@@ -65,6 +69,7 @@ public sealed partial class VirtualOperator
         }
 
         Task announced;
+        var dwell = Task.Delay(_options.MaxDwell, _time, ct);
         lock (_gate)
         {
             ct.ThrowIfCancellationRequested();
@@ -75,9 +80,9 @@ public sealed partial class VirtualOperator
         }
 
         _logger.PartInserted(index, warm);
-        var dwell = Task.Delay(_options.MaxDwell, _time, ct);
         var first = await Task.WhenAny(announced, dwell).ConfigureAwait(false);
         await first.ConfigureAwait(false); // throws when the dwell was cancelled by SkipTo or StopAsync
+        var reacted = Task.Delay(Uniform(_options.ReactionTimeMin, _options.ReactionTimeMax), _time, ct);
         lock (_gate)
         {
             ct.ThrowIfCancellationRequested();
@@ -93,7 +98,7 @@ public sealed partial class VirtualOperator
         }
 
         _logger.PartRemoved(index, first == announced);
-        await Task.Delay(Uniform(_options.ReactionTimeMin, _options.ReactionTimeMax), _time, ct).ConfigureAwait(false);
+        await reacted.ConfigureAwait(false);
     }
 
     private TimeSpan Uniform(TimeSpan min, TimeSpan max) =>

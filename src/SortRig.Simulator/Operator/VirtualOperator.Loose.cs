@@ -22,10 +22,11 @@ public sealed partial class VirtualOperator
             _logger.ForeignPartRemoved(back.Index);
         }
 
-        SetState(OperatorState.Handling);
         var handling = Uniform(_options.HandlingTimeMin, _options.HandlingTimeMax);
         var warm = ContinuousUniform.Sample(_rng, _options.WarmKelvinMin, _options.WarmKelvinMax);
-        await Task.Delay(handling, _time, ct).ConfigureAwait(false);
+        var handled = Task.Delay(handling, _time, ct);
+        SetState(OperatorState.Handling);
+        await handled.ConfigureAwait(false);
         _fixture.Insert(part, warm);
         SetState(OperatorState.Inserted);
         _logger.PartInserted(part.Index, warm);
