@@ -29,6 +29,7 @@ public static class DemoBench
             Distribution = ValueDistribution.Normal(0.4),
         },
         Faults = FaultsFor(sort.FaultsPerThousand),
+        Physics = new PhysicsSpec { Model = sort.Physics },
 
         // The virtual operator puts the first part in when the loop says it is ready, as a person would, and
         // leaves each part in until it is announced: a host that stalls (a loaded machine, a slow first

@@ -1,4 +1,6 @@
 using System.ComponentModel.DataAnnotations;
+using SortRig.Measurement.Settling;
+using SortRig.Simulator.Physics;
 
 namespace SortRig.Engine.Sorting;
 
@@ -68,6 +70,16 @@ public sealed class SortOptions
     public BridgeMode Bridge { get; set; } = BridgeMode.Auto;
 
     /// <summary>
+    /// Which settle rule accepts parts: averaging (the mean of the last readings once they stopped moving) or
+    /// predictive (also fits each part's thermal recovery and may accept earlier with the extrapolated final value;
+    /// the averaging rule decides whenever no model fits); bound case-insensitively. Default
+    /// <see cref="SettleRule.Averaging"/>: the predictive rule has not yet held the false-accept bound on the rich
+    /// simulated bench (docs/bench-settle.md).
+    /// </summary>
+    [EnumDataType(typeof(SettleRule), ErrorMessage = "Sort:Settle must be averaging or predictive.")]
+    public SettleRule Settle { get; set; } = SettleRule.Averaging;
+
+    /// <summary>
     /// Carry on the latest session of this name even if it was finished (its parts reached <see cref="Parts"/>, or
     /// the operator finished it): numbering continues and a new batch starts when the nominal or setup differs,
     /// so an R-2R ladder's 2R can follow its R in one session. <see cref="Parts"/> then counts the whole session.
@@ -87,6 +99,14 @@ public sealed class SortOptions
 
     /// <summary>Simulator only: random seed of the demo reel. Default 2026.</summary>
     public int Seed { get; set; } = 2026;
+
+    /// <summary>
+    /// Simulator only: the bench physics of the demo reel, simple (one cooling path per part, white noise) or rich
+    /// (two thermal paths, self-heating, ambient wander, excess and popcorn noise); bound case-insensitively.
+    /// Default <see cref="PhysicsModel.Simple"/>. See docs/simulator.md, "Physics models".
+    /// </summary>
+    [EnumDataType(typeof(PhysicsModel), ErrorMessage = "Sort:Physics must be simple or rich.")]
+    public PhysicsModel Physics { get; set; } = PhysicsModel.Simple;
 
     /// <summary>Simulator only: how many times faster than the wall clock virtual time runs. Default 1; 1..1000.</summary>
     [Range(1, 1000)]

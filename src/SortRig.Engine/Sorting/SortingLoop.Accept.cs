@@ -27,7 +27,8 @@ public sealed partial class SortingLoop
             acceptance.Readings[^1].Time,
             decision.IsSlot ? null : decision.CupLabel,
             decision.IsSlot ? decision.CupLabel : null,
-            [.. _partReadings], PartState.Accepted);
+            [.. _partReadings], PartState.Accepted, acceptance.AcceptedBy,
+            acceptance.AcceptedBy == SettleRule.Predictive ? acceptance.Fit : null);
         PartRecord stored;
         try
         {

@@ -90,5 +90,6 @@ public sealed partial class SortingLoop
         p.Measured.ExpandedTransfer,
         p.CupLabel ?? p.SlotLabel,
         p.State.ToString(),
-        p.AcceptedAt);
+        p.AcceptedAt,
+        p.AcceptedBy?.ToString());
 }

@@ -31,10 +31,12 @@ internal static class SortCommand
         map.Add(command, new Option<string>("--assigner") { Description = "bands (default), adaptive (edges learned from the reel) or slots (numbered tray slots)" }, "Sort:Assigner");
         map.Add(command, new Option<double>("--nplc") { Description = "Integration time in power-line cycles (default 1)" }, "Sort:Nplc");
         map.Add(command, new Option<string>("--bridge") { Description = "Range transfer for a batch on another range than the session's first: auto (when the match needs it, default), always, off" }, "Sort:Bridge");
+        map.Add(command, new Option<string>("--settle") { Description = "Settle rule: averaging (default) or predictive (fits each part's cooling and may accept earlier; not the default because it has not yet held the false-accept bound on the rich simulated bench, see docs/bench-settle.md)" }, "Sort:Settle");
         map.Add(command, new Option<bool>("--reopen") { Description = "Carry on the latest session of this name even if finished (another batch of the same job; --parts counts the whole session)" }, "Sort:Reopen");
         map.Add(command, new Option<bool>("--four-wire") { Description = "Measure 4-wire" }, "Sort:FourWire");
         map.Add(command, new Option<int>("--parts") { Description = "Stop after this many parts; on the simulator the demo reel's length (default 60)" }, "Sort:Parts");
         map.Add(command, new Option<int>("--seed") { Description = "Simulator: seed of the demo reel (default 2026)" }, "Sort:Seed");
+        map.Add(command, new Option<string>("--physics") { Description = "Simulator: bench physics of the demo reel, simple (default) or rich (two cooling paths, self-heating, excess and popcorn noise)" }, "Sort:Physics");
         map.Add(command, new Option<double>("--speed") { Description = "Simulator: run virtual time this many times faster (default 1)" }, "Sort:Speed");
         map.Add(command, new Option<bool>("--plain") { Description = "No live view: one plain line per announcement" }, "Sort:Live");
         map.Add(command, new Option<bool>("--no-speech") { Description = "Do not speak announcements" }, "Sort:Speech");

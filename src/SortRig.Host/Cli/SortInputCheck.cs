@@ -62,6 +62,11 @@ internal static class SortInputCheck
                 return (null, $"{Name(nameof(SortOptions.Resource), flags)}: {e.Message}");
             }
 
+            if (section[nameof(SortOptions.Physics)] is not null)
+            {
+                return (null, $"{Name(nameof(SortOptions.Physics), flags)}: applies to the simulator only; a real meter measures real parts");
+            }
+
             if (options.Speed != 1)
             {
                 return (null, $"{Name(nameof(SortOptions.Speed), flags)}: applies to the simulator only; a real meter runs in real time");

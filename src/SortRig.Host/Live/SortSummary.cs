@@ -6,7 +6,11 @@ using SortRig.Measurement.Readings;
 
 namespace SortRig.Host.Live;
 
-/// <summary>The table printed when a session ends: per cup, the count and the spread of values.</summary>
+/// <summary>
+/// The table printed when a session ends: per cup, the count and the spread of values; then the pace (seconds per
+/// part and parts per hour, first accepted part to last, see <see cref="SortPace"/>) and which settle rule accepted
+/// how many parts.
+/// </summary>
 internal static class SortSummary
 {
     public static void Write(IAnsiConsole console, SortOutcome outcome, BenchSnapshot snapshot)
@@ -32,6 +36,17 @@ internal static class SortSummary
         }
 
         console.Write(table);
+        var accepted = parts.Where(p => p.State is "Accepted" or "Announced").ToList();
+        var pace = SortPace.From(accepted.Select(p => p.Time));
+        if (pace.SecondsPerPart is { } perPart && pace.PartsPerHour is { } perHour)
+        {
+            var byRule = string.Join(", ", accepted.Where(p => p.AcceptedBy is not null).GroupBy(p => p.AcceptedBy!)
+                .OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Key.ToLowerInvariant()} {g.Count()}"));
+            console.MarkupLine(string.Create(CultureInfo.InvariantCulture,
+                $"pace {perPart:0.0} s per part, {perHour:0} parts per hour (first accepted part to last, {pace.Parts} parts){(byRule.Length > 0 ? $"; settled by {byRule}" : "")}"));
+        }
+
+
         console.MarkupLine(string.Create(CultureInfo.InvariantCulture,
             $"accepted {outcome.Accepted}, unstable {outcome.Unstable}, meter faults recovered {outcome.Faults}{(outcome.StorageFaults > 0 ? $", storage faults waited out {outcome.StorageFaults}" : "")}{(outcome.FinishedByOperator ? ", finished by the operator" : "")}"));
     }

@@ -20,7 +20,8 @@ internal static class ReportInputBuilder
             var session = await FindSessionAsync(log, request.Session, ct).ConfigureAwait(false);
             titles.Add($"session '{session.Name}' (id {session.Id})");
             var live = (await log.GetPartsAsync(session.Id, ct).ConfigureAwait(false)).Where(p => p.IsLive).ToList();
-            parts = [.. live.Select(p => new ReportPart(p.Number, p.Nominal, p.Value, p.Measured.StandardUncertainty, p.CupLabel ?? p.SlotLabel))];
+            parts = [.. live.Select(p => new ReportPart(p.Number, p.Nominal, p.Value, p.Measured.StandardUncertainty, p.CupLabel ?? p.SlotLabel,
+                p.AcceptedAt, p.AcceptedBy?.ToString()))];
             reels = await ReelsAsync(log, session.Id, live, request.Cups, notes, ct).ConfigureAwait(false);
         }
 

@@ -17,7 +17,11 @@ public sealed record ReportInput(
 /// <param name="ValueOhms">Accepted measured value, ohms; finite and &gt; 0.</param>
 /// <param name="StandardUncertaintyOhms">Standard uncertainty of the value (k = 1), ohms; finite and &gt;= 0.</param>
 /// <param name="Cup">Cup the part went to, or null when not sorted.</param>
-public sealed record ReportPart(int Number, double NominalOhms, double ValueOhms, double StandardUncertaintyOhms, string? Cup);
+/// <param name="AcceptedAt">When the value was accepted, for the pace line of summary.md; null when not known.</param>
+/// <param name="AcceptedBy">The settle rule that accepted it ("Averaging", "Predictive"); null when not recorded.</param>
+public sealed record ReportPart(
+    int Number, double NominalOhms, double ValueOhms, double StandardUncertaintyOhms, string? Cup,
+    DateTimeOffset? AcceptedAt = null, string? AcceptedBy = null);
 
 /// <summary>Stock data of a reel (all parts of one nominal).</summary>
 /// <param name="NominalOhms">Nominal resistance, ohms; finite and &gt; 0.</param>

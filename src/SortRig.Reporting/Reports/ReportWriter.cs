@@ -79,7 +79,7 @@ public sealed class ReportWriter(TimeProvider timeProvider, ReportOptions? optio
             .OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => KeyValuePair.Create(g.Key, g.Count())).ToArray();
         string summaryPath = Path.Combine(root, SummaryFileName);
         var manifest = new ReportManifest(root, summaryPath, files, nominals, channels, cups);
-        string markdown = SummaryMarkdown.Build(input.Title, _timeProvider.GetUtcNow(), input.Parts.Count, manifest, _options.SummaryAveragingFactors);
+        string markdown = SummaryMarkdown.Build(input.Title, _timeProvider.GetUtcNow(), input.Parts.Count, manifest, _options.SummaryAveragingFactors, ReportPace.Line(input.Parts));
         await File.WriteAllTextAsync(summaryPath, markdown, new UTF8Encoding(false), cancellationToken).ConfigureAwait(false);
         files.Add(SummaryFileName);
         Log.ReportWritten(_logger, root, input.Parts.Count, channels.Count, files.Count);

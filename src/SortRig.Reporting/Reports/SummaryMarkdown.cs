@@ -9,12 +9,19 @@ namespace SortRig.Reporting.Reports;
 /// <summary>Builds summary.md from computed figures (pure).</summary>
 internal static class SummaryMarkdown
 {
-    public static string Build(string title, DateTimeOffset generated, int partCount, ReportManifest figures, IReadOnlyList<int> adevFactors)
+    public static string Build(
+        string title, DateTimeOffset generated, int partCount, ReportManifest figures, IReadOnlyList<int> adevFactors, string? paceLine = null)
     {
         var md = new StringBuilder();
         Line(md, "# " + MarkdownText.Escape(title));
         Line(md, string.Empty);
         Row(md, $"Generated {generated.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC. {partCount} parts over {figures.Nominals.Count} nominal values; {figures.Channels.Count} drift channels.");
+        if (paceLine is not null)
+        {
+            Line(md, string.Empty);
+            Line(md, paceLine);
+        }
+
         Line(md, string.Empty);
         Line(md, "## Parts per nominal (deviation from nominal, ppm)");
         Line(md, string.Empty);

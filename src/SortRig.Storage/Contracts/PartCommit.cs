@@ -1,4 +1,5 @@
 using SortRig.Measurement.Readings;
+using SortRig.Measurement.Settling;
 using SortRig.Measurement.Uncertainty;
 
 namespace SortRig.Storage.Contracts;
@@ -20,6 +21,9 @@ namespace SortRig.Storage.Contracts;
 /// <param name="SlotLabel">Slot label, optional.</param>
 /// <param name="Readings">Raw readings in the order taken; may be empty; stored with their order.</param>
 /// <param name="State">Accepted (default) or Unstable; other states come from corrections.</param>
+/// <param name="AcceptedBy">The settle rule that accepted the part; null for an unstable part (or when not known).</param>
+/// <param name="Fit">The recovery fit when <paramref name="AcceptedBy"/> is Predictive (values on the meter's own scale,
+/// before any range transfer); null otherwise. Its figures must be finite and its uncertainties &gt;= 0.</param>
 public sealed record PartCommit(
     Guid CommitKey,
     long SessionId,
@@ -32,7 +36,9 @@ public sealed record PartCommit(
     string? CupLabel,
     string? SlotLabel,
     IReadOnlyList<Reading> Readings,
-    PartState State = PartState.Accepted);
+    PartState State = PartState.Accepted,
+    SettleRule? AcceptedBy = null,
+    RecoveryFit? Fit = null);
 
 /// <summary>A raw meter reading stored with its part.</summary>
 /// <param name="PartId">Owning part.</param>

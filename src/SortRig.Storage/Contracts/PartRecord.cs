@@ -1,3 +1,4 @@
+using SortRig.Measurement.Settling;
 using SortRig.Measurement.Uncertainty;
 
 namespace SortRig.Storage.Contracts;
@@ -21,6 +22,10 @@ namespace SortRig.Storage.Contracts;
 /// <param name="Location">Library storage location (shelf, box); null until set.</param>
 /// <param name="LibraryStatus">Library status; Available when committed.</param>
 /// <param name="TakenBy">Who took the part (kept after Used); null when never taken or released.</param>
+/// <param name="AcceptedBy">The settle rule that accepted the part; null for unstable parts and parts logged before
+/// schema version 3.</param>
+/// <param name="Fit">The predictive rule's recovery fit when <paramref name="AcceptedBy"/> is Predictive (meter scale,
+/// before any range transfer); null otherwise. <see cref="RecoveryFit.RunsZ"/> reads back NaN when it was not finite.</param>
 public sealed record PartRecord(
     long Id,
     Guid CommitKey,
@@ -39,7 +44,9 @@ public sealed record PartRecord(
     bool Announced,
     string? Location,
     LibraryStatus LibraryStatus,
-    string? TakenBy)
+    string? TakenBy,
+    SettleRule? AcceptedBy = null,
+    RecoveryFit? Fit = null)
 {
     /// <summary>Accepted value, ohms.</summary>
     public double Value => Measured.Value;

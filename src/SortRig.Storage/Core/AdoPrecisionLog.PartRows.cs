@@ -9,16 +9,17 @@ internal abstract partial class AdoPrecisionLog
     private async Task<long> InsertPartAsync(DbScope s, PartCommit c, int number, double nominal, CancellationToken ct)
     {
         var m = c.Measured;
-        var id = await s.Sql(
+        var id = await WithSettle(s.Sql(
                 "INSERT INTO parts (commit_key, session_id, batch_id, part_number, nominal_ohms, value_ohms, deviation_ppm, " +
                 "u_standard_ohms, u_transfer_ohms, coverage_k, range_ohms, nplc, temperature_c, accepted_at, cup_label, " +
-                "slot_label, state, announced, library_status) VALUES (@key, @session, @batch, @number, @nominal, @value, " +
-                "@deviation, @u, @ut, @k, @range, @nplc, @temp, @at, @cup, @slot, @state, @no, 'Available') RETURNING id")
+                "slot_label, state, announced, library_status, " + SettleInsertColumns + ") VALUES (@key, @session, @batch, @number, " +
+                "@nominal, @value, @deviation, @u, @ut, @k, @range, @nplc, @temp, @at, @cup, @slot, @state, @no, 'Available', " +
+                SettleInsertValues + ") RETURNING id")
             .With("key", GuidValue(c.CommitKey)).With("session", c.SessionId).With("batch", c.BatchId).With("number", number)
             .With("nominal", nominal).With("value", m.Value).With("deviation", (m.Value - nominal) / nominal * 1e6)
             .With("u", m.StandardUncertainty).With("ut", m.TransferUncertainty).With("k", m.CoverageFactor)
             .With("range", c.Range).With("nplc", c.Nplc).With("temp", c.Temperature).With("at", TimeValue(c.AcceptedAt))
-            .With("cup", c.CupLabel).With("slot", c.SlotLabel).With("state", c.State.ToString()).With("no", false)
+            .With("cup", c.CupLabel).With("slot", c.SlotLabel).With("state", c.State.ToString()).With("no", false), c)
             .ScalarLongAsync(ct).ConfigureAwait(false);
         return id!.Value;
     }

@@ -19,7 +19,7 @@ internal abstract partial class AdoPrecisionLog
     private protected const string PartColumns =
         "p.id, p.commit_key, p.session_id, p.batch_id, p.part_number, p.nominal_ohms, p.value_ohms, p.u_standard_ohms, " +
         "p.u_transfer_ohms, p.coverage_k, p.range_ohms, p.nplc, p.temperature_c, p.accepted_at, p.cup_label, p.slot_label, " +
-        "p.state, p.announced, p.location, p.library_status, p.taken_by";
+        "p.state, p.announced, p.location, p.library_status, p.taken_by, " + SettleColumns;
 
     private protected const string EventColumns =
         "e.id, e.part_id, e.happened_at, e.kind, e.before_value, e.after_value, e.actor, e.note";
@@ -41,7 +41,10 @@ internal abstract partial class AdoPrecisionLog
         return new BatchInfo(r.GetInt64(0), r.GetInt64(1), ReadTime(r, 2), setup, transfer);
     }
 
-    private protected PartRecord ReadPart(DbDataReader r) => new(
+    private protected PartRecord ReadPart(DbDataReader r)
+    {
+        var (acceptedBy, fit) = ReadSettle(r);
+        return new(
         Id: r.GetInt64(0),
         CommitKey: r.GetGuid(1),
         SessionId: r.GetInt64(2),
@@ -59,7 +62,10 @@ internal abstract partial class AdoPrecisionLog
         Announced: r.GetBoolean(17),
         Location: ReadText(r, 18),
         LibraryStatus: Enum.Parse<LibraryStatus>(r.GetString(19)),
-        TakenBy: ReadText(r, 20));
+        TakenBy: ReadText(r, 20),
+        AcceptedBy: acceptedBy,
+        Fit: fit);
+    }
 
     private protected PartEvent ReadEvent(DbDataReader r) => new(
         r.GetInt64(0), r.GetInt64(1), ReadTime(r, 2), Enum.Parse<PartEventKind>(r.GetString(3)),

@@ -30,6 +30,7 @@ internal static class PartCommitRules
             throw new ArgumentOutOfRangeException(nameof(commit), commit.State, "State of a new part must be Accepted or Unstable.");
         }
 
+        SettleFitRules.Check(commit);
         ArgumentNullException.ThrowIfNull(commit.Readings, nameof(commit.Readings));
         for (int i = 0; i < commit.Readings.Count; i++)
         {

@@ -15,6 +15,8 @@ public sealed class SortBadInputTests
     [InlineData("--resource", "foo", "--resource")]
     [InlineData("--assigner", "biggest", "--assigner")]
     [InlineData("--tolerance", "1 percent", "--tolerance")]
+    [InlineData("--settle", "guess", "--settle")]
+    [InlineData("--physics", "quantum", "--physics")]
     public async Task Sort_BadValue_OneLineNamingTheFlag_Exit2_NothingCreated(string flag, string value, string named)
     {
         var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
@@ -49,6 +51,26 @@ public sealed class SortBadInputTests
 
             Assert.Equal(2, run.ExitCode);
             Assert.StartsWith("error: --speed:", run.Log.Trim(), StringComparison.Ordinal);
+            Assert.Empty(dir.GetFileSystemInfos());
+        }
+        finally
+        {
+            dir.Delete(recursive: true);
+        }
+    }
+
+    [Fact]
+    public async Task Sort_PhysicsWithARealMeter_Refused_Exit2()
+    {
+        var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
+        try
+        {
+            var run = await HostProcess.RunAsync(
+                dir.FullName, ["sort", "--physics", "rich", "--resource", "TCPIP::127.0.0.1::5025::SOCKET"], null, null, null,
+                TimeSpan.FromSeconds(60));
+
+            Assert.Equal(2, run.ExitCode);
+            Assert.StartsWith("error: --physics:", run.Log.Trim(), StringComparison.Ordinal);
             Assert.Empty(dir.GetFileSystemInfos());
         }
         finally

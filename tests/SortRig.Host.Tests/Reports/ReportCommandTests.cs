@@ -80,6 +80,11 @@ public sealed class ReportCommandTests : IDisposable
 
         Assert.Equal(4 * 120, rows.Length);
         Assert.True(File.Exists(Path.Combine(folder, ReportWriter.SummaryFileName)));
+
+        // Every part of this session was committed at one instant: no time between acceptances, so no pace line
+        // (a pace of 0 s per part would be a lie).
+        Assert.Single(parts.Select(p => p.AcceptedAt).Distinct());
+        Assert.DoesNotContain("Pace:", await File.ReadAllTextAsync(Path.Combine(folder, ReportWriter.SummaryFileName)), StringComparison.Ordinal);
     }
 
     [Fact]

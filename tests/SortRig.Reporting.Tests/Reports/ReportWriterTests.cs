@@ -105,6 +105,35 @@ public sealed class ReportWriterTests : IDisposable
     }
 
     [Fact]
+    public async Task WriteAsync_PartsWithAcceptanceTimes_SummaryGivesThePaceAndTheRules()
+    {
+        var t0 = new DateTimeOffset(2025, 3, 2, 7, 0, 0, TimeSpan.Zero);
+        ReportInput input = Input() with
+        {
+            Parts =
+            [
+                new ReportPart(1, 10_000, 10_000.4, 0.01, "A", t0, "Predictive"),
+                new ReportPart(2, 10_000, 10_001.1, 0.01, "B", t0.AddSeconds(12.5), "Averaging"),
+                new ReportPart(3, 10_000, 10_000.2, 0.01, "A", t0.AddSeconds(20), "Predictive"),
+            ],
+        };
+
+        ReportManifest manifest = await new ReportWriter(_time).WriteAsync(_folder, input, CancellationToken.None);
+        string md = await File.ReadAllTextAsync(manifest.SummaryPath, CancellationToken.None);
+
+        // Arithmetic (common practice, no source): 3 acceptances over 20 s are 2 intervals, 10 s each; 3600 / 10 = 360.
+        Assert.Contains("Pace: 10.0 s per part, 360 parts per hour (first accepted part to last, 3 parts); settled by averaging 1, predictive 2.", md, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task WriteAsync_PartsWithoutTimes_NoPaceLine()
+    {
+        ReportManifest manifest = await new ReportWriter(_time).WriteAsync(_folder, Input(), CancellationToken.None);
+
+        Assert.DoesNotContain("Pace:", await File.ReadAllTextAsync(manifest.SummaryPath, CancellationToken.None), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task WriteAsync_BadPart_ThrowsNamingIndexPartAndField()
     {
         ReportInput input = Input() with { Parts = [new ReportPart(1, 100, 100.1, 0.001, null), new ReportPart(2, 100, double.NaN, 0.001, null)] };
