@@ -78,8 +78,7 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
                 "none: the sweep's sets are kept as found", _time.GetElapsedTime(started));
         }
 
-        var bound = PartCountBound.Compute(recipe, pool.Usable, rule, _options);
-        var boundName = recipe.Form == RecipeForm.Matched ? PartCountBound.MatchedName : PartCountBound.NetworkName;
+        var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options);
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;
         var tieBreak = "none: the sweep's sets are kept as found";
