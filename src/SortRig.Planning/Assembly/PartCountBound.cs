@@ -19,14 +19,15 @@ internal static class PartCountBound
     public const string NetworkFilteredName = "part-count bound (Hall condition over nominal classes; parts that no set within the reel's range can hold not counted)";
 
     /// <summary>The bound and its description.</summary>
-    public static (int Bound, string Name) ComputeNamed(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
+    public static (int Bound, string Name) ComputeNamed(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
     {
-        var bound = Compute(recipe, usable, rule, options);
+        var bound = Compute(recipe, usable, rule, options, stop);
         var name = recipe.Form == RecipeForm.Matched ? MatchedName : recipe.Positions.Count <= NetworkPartFilter.MaxPositions ? NetworkFilteredName : NetworkName;
         return (bound, name);
     }
 
-    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
+    // stop: the network filter's budget; once true, the remaining parts are counted unfiltered (always valid).
+    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
     {
         var geo = new SweepGeometry(recipe, rule);
         var classes = geo.Nominals.Length;
@@ -42,11 +43,12 @@ internal static class PartCountBound
         }
 
         Func<int, int, bool>? fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass).Fits
-            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network ? network.Fits : null;
+            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
         // single[i] / half[i]: class bit masks the part can fill as a single / as half a pair.
         var single = new int[usable.Count];
         var half = new int[usable.Count];
-        for (var i = 0; i < usable.Count; i++)
+        // Farthest from nominal first: those are the parts a filter can drop, so a time budget is spent on them.
+        foreach (var i in Enumerable.Range(0, usable.Count).OrderByDescending(i => Math.Abs(Math.Log(usable[i].Value.Value / usable[i].Nominal))).ThenBy(i => i))
         {
             var n = usable[i].Nominal;
             for (var j = 0; j < classes; j++)

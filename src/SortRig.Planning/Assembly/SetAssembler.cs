@@ -78,7 +78,9 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
                 "none: the sweep's sets are kept as found", _time.GetElapsedTime(started));
         }
 
-        var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options);
+        // The network filter of the bound may take a tenth of the time limit; parts left then are counted unfiltered.
+        var filterBudget = _options.TimeLimit / 10;
+        var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () => _time.GetElapsedTime(started) > filterBudget);
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;
         var tieBreak = "none: the sweep's sets are kept as found";
