@@ -96,6 +96,18 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
             var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
             note += FormattableString.Invariant($"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, {_options.NeighbourhoodParts} parts per window{stopped}");
         }
+        else if (found.Count < bound && !search.Applies && _options.TimeLimit > TimeSpan.Zero)
+        {
+            var deadline = _options.TimeLimit;
+            var repair = new RepairSearch(pool.Usable, rule, new SweepGeometry(recipe, rule), _options);
+            var before = found.Count;
+            found = repair.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline, cancellationToken);
+            _options.Progress?.Report(new AssemblyProgress("repair", found.Count, bound, _time.GetElapsedTime(started)));
+            method = AssemblyMethod.SweepAndRepair;
+            tieBreak = "none: swept and repaired sets are kept as found";
+            var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
+            note += FormattableString.Invariant($"; no neighbourhood search ({_options.NeighbourhoodParts} parts cannot hold two sets of {recipe.Positions.Count} positions); swap/repair added {found.Count - before} set(s){stopped}");
+        }
         else if (found.Count < bound && !search.Applies)
         {
             note += FormattableString.Invariant($"; no neighbourhood search: {_options.NeighbourhoodParts} parts cannot hold two sets of {recipe.Positions.Count} positions");
