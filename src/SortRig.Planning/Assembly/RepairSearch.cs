@@ -11,7 +11,8 @@ namespace SortRig.Planning.Assembly;
 /// </summary>
 internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule rule, SweepGeometry geo, AssemblyOptions options)
 {
-    private const int Donors = 12;
+    private const int Donors = 24;
+    private const int Rounds = 4;
     private const int Fillers = 6;
     private readonly double[] _z = usable.Select(p => Math.Log(p.Value.Value / p.Nominal)).ToArray();
 
@@ -77,16 +78,27 @@ internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule
 
         var undo = new List<(int Set, (Option[] Fills, SetVerdict Verdict) Old)>();
         var verdict = Judge(draft);
-        foreach (var k in Enumerable.Range(0, n).OrderByDescending(k => Math.Abs(_z[draft[k]] - c)).ThenBy(k => k))
+        // Rounds over the positions, farthest member first, while a swap still happens.
+        for (var round = 0; round < Rounds && !verdict.Meets; round++)
         {
-            if (verdict.Meets)
+            var swapped = false;
+            foreach (var k in Enumerable.Range(0, n).OrderByDescending(k => Math.Abs(_z[draft[k]] - c)).ThenBy(k => k))
             {
-                break;
+                if (verdict.Meets)
+                {
+                    break;
+                }
+
+                if (Swap(sets, owner, draft, taken, undo, k, c))
+                {
+                    swapped = true;
+                    verdict = Judge(draft);
+                }
             }
 
-            if (Swap(sets, owner, draft, taken, undo, k, c))
+            if (!swapped)
             {
-                verdict = Judge(draft);
+                break;
             }
         }
 

@@ -96,7 +96,7 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
             var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
             note += FormattableString.Invariant($"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, {_options.NeighbourhoodParts} parts per window{stopped}");
         }
-        else if (found.Count < bound && !search.Applies && _options.TimeLimit > TimeSpan.Zero)
+        else if (found.Count < bound && !search.Applies && _options.NeighbourhoodParts > 0 && _options.TimeLimit > TimeSpan.Zero)
         {
             var deadline = _options.TimeLimit;
             var repair = new RepairSearch(pool.Usable, rule, new SweepGeometry(recipe, rule), _options);
