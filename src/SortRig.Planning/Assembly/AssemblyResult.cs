@@ -33,6 +33,10 @@ public enum AssemblyMethod
     /// <summary>The sweep, then large-neighbourhood search: windows of neighbouring sets and leftover parts re-packed
     /// exactly (see docs/planning.md).</summary>
     SweepAndNeighbourhood,
+
+    /// <summary>The sweep, then single-part swap/repair moves between sets and leftovers that free room for new sets,
+    /// for recipes whose sets do not fit the neighbourhood window (see docs/planning.md).</summary>
+    SweepAndRepair,
 }
 
 /// <summary>The sets found for a recipe.</summary>

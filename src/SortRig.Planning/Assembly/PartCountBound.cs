@@ -8,14 +8,26 @@ namespace SortRig.Planning.Assembly;
 /// class in C) or half a fill (as one of a series or parallel pair for a class in C). So sets ≤ ⌊supply(C) / demand(C)⌋
 /// (a Hall-type counting condition). Matched form: a part counts as a single only when its interval of admissible
 /// common points holds, somewhere, enough intervals of every class without pairs (exact 1-D test, slightly widened):
-/// no feasible set can contain it otherwise.
+/// no feasible set can contain it otherwise. Network form (at most <see cref="NetworkPartFilter.MaxPositions"/>
+/// positions): likewise when no set of values within the reel's range can meet every output with it
+/// (<see cref="NetworkPartFilter"/>, a proven relaxation).
 /// </summary>
 internal static class PartCountBound
 {
     public const string MatchedName = "part-count bound (Hall condition over nominal classes; parts that fit no common window not counted)";
     public const string NetworkName = "part-count bound (Hall condition over nominal classes)";
+    public const string NetworkFilteredName = "part-count bound (Hall condition over nominal classes; parts that no set within the reel's range can hold not counted)";
 
-    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
+    /// <summary>The bound and its description.</summary>
+    public static (int Bound, string Name) ComputeNamed(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
+    {
+        var bound = Compute(recipe, usable, rule, options, stop);
+        var name = recipe.Form == RecipeForm.Matched ? MatchedName : recipe.Positions.Count <= NetworkPartFilter.MaxPositions ? NetworkFilteredName : NetworkName;
+        return (bound, name);
+    }
+
+    // stop: the network filter's budget; once true, the remaining parts are counted unfiltered (always valid).
+    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
     {
         var geo = new SweepGeometry(recipe, rule);
         var classes = geo.Nominals.Length;
@@ -30,16 +42,18 @@ internal static class PartCountBound
             pairClass[c] = seriesOk[c] || parallelOk[c];
         }
 
-        var fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass) : null;
+        Func<int, int, bool>? fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass).Fits
+            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
         // single[i] / half[i]: class bit masks the part can fill as a single / as half a pair.
         var single = new int[usable.Count];
         var half = new int[usable.Count];
-        for (var i = 0; i < usable.Count; i++)
+        // Farthest from nominal first: those are the parts a filter can drop, so a time budget is spent on them.
+        foreach (var i in Enumerable.Range(0, usable.Count).OrderByDescending(i => Math.Abs(Math.Log(usable[i].Value.Value / usable[i].Nominal))).ThenBy(i => i))
         {
             var n = usable[i].Nominal;
             for (var j = 0; j < classes; j++)
             {
-                if (options.SameNominal(n, geo.Nominals[j]) && (fits is null || fits.Fits(j, i)))
+                if (options.SameNominal(n, geo.Nominals[j]) && (fits is null || fits(j, i)))
                 {
                     single[i] |= 1 << j;
                 }

@@ -78,8 +78,9 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
                 "none: the sweep's sets are kept as found", _time.GetElapsedTime(started));
         }
 
-        var bound = PartCountBound.Compute(recipe, pool.Usable, rule, _options);
-        var boundName = recipe.Form == RecipeForm.Matched ? PartCountBound.MatchedName : PartCountBound.NetworkName;
+        // The network filter of the bound may take a tenth of the time limit; parts left then are counted unfiltered.
+        var filterBudget = _options.TimeLimit / 10;
+        var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () => _time.GetElapsedTime(started) > filterBudget);
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;
         var tieBreak = "none: the sweep's sets are kept as found";
@@ -94,6 +95,18 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
             tieBreak = "smallest sum of set scores within each re-packed neighbourhood (not over the whole plan)";
             var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
             note += FormattableString.Invariant($"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, {_options.NeighbourhoodParts} parts per window{stopped}");
+        }
+        else if (found.Count < bound && !search.Applies && _options.NeighbourhoodParts > 0 && _options.TimeLimit > TimeSpan.Zero)
+        {
+            var deadline = _options.TimeLimit;
+            var repair = new RepairSearch(pool.Usable, rule, new SweepGeometry(recipe, rule), _options);
+            var before = found.Count;
+            found = repair.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline, cancellationToken);
+            _options.Progress?.Report(new AssemblyProgress("repair", found.Count, bound, _time.GetElapsedTime(started)));
+            method = AssemblyMethod.SweepAndRepair;
+            tieBreak = "none: swept and repaired sets are kept as found";
+            var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
+            note += FormattableString.Invariant($"; no neighbourhood search ({_options.NeighbourhoodParts} parts cannot hold two sets of {recipe.Positions.Count} positions); swap/repair added {found.Count - before} set(s){stopped}");
         }
         else if (found.Count < bound && !search.Applies)
         {

@@ -93,7 +93,8 @@ public sealed class SetAssemblerTests
         var rng = new Random(3);
         var parts = RandomInstances.Parts(rng, 600, [10e3, 20e3], 3000e-6, 40e-6);
         var result = new SetAssembler().Assemble(recipe, parts);
-        Assert.Equal(AssemblyMethod.Sweep, result.Method);
+        // 16 positions: no neighbourhood window holds two sets, so the sweep is followed by the swap/repair move.
+        Assert.Equal(AssemblyMethod.SweepAndRepair, result.Method);
         Assert.NotEmpty(result.Sets);
         Assert.All(result.Sets, s => Assert.All(s.Outputs, o => Assert.True(o.Meets, $"set {s.Number} {o.Name}")));
         Assert.Contains(result.Sets, s => s.Fills.Any(f => f.Build == PositionBuild.Series));
