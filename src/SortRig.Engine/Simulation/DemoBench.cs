@@ -44,7 +44,7 @@ public static class DemoBench
     /// <summary>Half-width of the demo meter's per-range gain errors, ppm of reading.</summary>
     public const double RangeGainErrorPpm = 25;
 
-    /// <summary>Spreads <see cref="SortOptions.FaultsPerThousand"/> evenly over the five fault kinds.</summary>
+    /// <summary>Spreads <see cref="SortOptions.FaultsPerThousand"/> evenly over the six fault kinds.</summary>
     public static FaultOptions FaultsFor(double perThousand)
     {
         var rate = perThousand / 1000 / Enum.GetValues<FaultKind>().Length;
@@ -55,6 +55,7 @@ public static class DemoBench
             GarbleRate = rate,
             SpuriousErrorRate = rate,
             SilentResetRate = rate,
+            NotANumberRate = rate,
         };
     }
 }

@@ -1,5 +1,6 @@
 using SortRig.Engine.Announcing;
 using SortRig.Instruments.Drivers;
+using SortRig.Instruments.Scpi;
 using SortRig.Measurement.Readings;
 
 namespace SortRig.Engine.Sorting;
@@ -8,13 +9,18 @@ public sealed partial class SortingLoop
 {
     private static readonly Backoff s_backoff = new(TimeSpan.FromMilliseconds(250), TimeSpan.FromSeconds(5));
 
+    // Replies that were not a reading, in a row: each waits longer, and too many stop the session.
+    private readonly UnreadableStreak _unreadable = new(s_backoff);
+
     // One reading, or null after a fault was recovered from (the caller simply reads again).
     private async Task<Reading?> ReadAsync(CancellationToken ct)
     {
         try
         {
             var meter = await _meter.GetAsync(ct).ConfigureAwait(false);
-            return await meter.ReadAsync(ct).ConfigureAwait(false);
+            var reading = await meter.ReadAsync(ct).ConfigureAwait(false);
+            _unreadable.Reset();
+            return reading;
         }
         catch (Exception e) when (MeterFaults.IsFault(e) && !ct.IsCancellationRequested)
         {
@@ -29,7 +35,12 @@ public sealed partial class SortingLoop
     {
         _faults++;
         Log.SortMeterFault(_ctx.Logger, fault.GetType().Name, fault.Message);
-        await _ctx.Announcer.AnnounceAsync(Announcement.Info($"meter: {MeterFaults.Describe(fault)}; reconnecting"), ct).ConfigureAwait(false);
+
+        // A reply that is not a reading (the link is fine): wait longer each time; the limit stops the session.
+        var wait = fault is ScpiResponseException reply ? _unreadable.Note(reply) : TimeSpan.Zero;
+        await _ctx.Announcer.AnnounceAsync(Announcement.Info(wait > TimeSpan.Zero
+            ? FormattableString.Invariant($"meter: {MeterFaults.Describe(fault)}; reading again in {wait.TotalSeconds:0.##} s ({_unreadable.Count} of {_unreadable.Limit} in a row)")
+            : $"meter: {MeterFaults.Describe(fault)}; reconnecting"), ct).ConfigureAwait(false);
         await _meter.DropAsync().ConfigureAwait(false);
         if (_tracker.State.IsBusy())
         {
@@ -38,6 +49,7 @@ public sealed partial class SortingLoop
 
         _fixture.NoteStreamBroken(_tracker.State); // the gap that follows is the fault's: excused, never a stall
 
+        await Task.Delay(wait, _ctx.Time, ct).ConfigureAwait(false);
         await ConnectWithRetryAsync(ct).ConfigureAwait(false);
     }
 

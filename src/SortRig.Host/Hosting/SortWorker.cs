@@ -10,6 +10,7 @@ using SortRig.Engine.Operator;
 using SortRig.Engine.Sorting;
 using SortRig.Host.Live;
 using SortRig.Host.Operator;
+using SortRig.Instruments.Drivers;
 
 namespace SortRig.Host.Hosting;
 
@@ -68,6 +69,16 @@ internal sealed class SortWorker(
             // Plain lines, never wrapped: the resume command must survive a copy and paste.
             await Console.Out.WriteLineAsync(string.Create(CultureInfo.InvariantCulture,
                 $"stopped: session '{sort.Session}' keeps its {recorded} logged part(s); a part still in the fixture was not recorded and is measured again.")).ConfigureAwait(false);
+            await Console.Out.WriteLineAsync(
+                $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}").ConfigureAwait(false);
+        }
+        catch (MeterUnreadableException e)
+        {
+            // Nothing is wrong with the session: it carries on once the meter gives readings again.
+            ExitCode = 1;
+            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e);
+            await StopViewAsync(viewStop, view).ConfigureAwait(false);
+            AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
             await Console.Out.WriteLineAsync(
                 $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}").ConfigureAwait(false);
         }

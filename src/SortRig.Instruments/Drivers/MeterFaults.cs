@@ -13,7 +13,7 @@ public static class MeterFaults
     /// <summary>True for faults a reconnect can cure; false for configuration mistakes, which must stop the session.</summary>
     public static bool IsFault(Exception e) => e switch
     {
-        ResourceStringException or ProfileException or InstrumentSetupException => false,
+        ResourceStringException or ProfileException or InstrumentSetupException or MeterUnreadableException => false,
         InstrumentException => true,
         IOException or SocketException or ObjectDisposedException => true,
         _ => false,
@@ -37,6 +37,7 @@ public static class MeterFaults
     public static string Describe(Exception e) => e switch
     {
         InstrumentTimeoutException => "no answer in time",
+        ScpiResponseException r when r.Expected.StartsWith("a reading", StringComparison.Ordinal) => $"not a number ('{ReplyText.Printable(r.Reply)}')",
         InstrumentSetupException s => $"setting read back wrong ({s.Message})",
         InstrumentLinkException => "connection lost",
         ScpiResponseException => "garbled reply",

@@ -6,7 +6,7 @@ namespace SortRig.Simulator.Faults;
 /// Decides when a fault happens: one-shot faults armed by <see cref="Inject"/> (or the side channel)
 /// fire at the next opportunity; random faults fire at their rate, from a seeded stream.
 /// Reply faults (drop, delay, garble) need a reply; message faults (spurious error, silent reset)
-/// fire before the next program message runs. Every fault that fires is counted in <see cref="Log"/>.
+/// fire before the next program message runs; the reading fault (not a number) needs a reading reply. Every fault that fires is counted in <see cref="Log"/>.
 /// </summary>
 public sealed class FaultInjector
 {
@@ -69,6 +69,9 @@ public sealed class FaultInjector
 
     /// <summary>At most one reply fault for the reply about to be sent (counted), or null.</summary>
     internal FaultKind? TakeReplyFault() => s_replyKinds.Cast<FaultKind?>().FirstOrDefault(k => Fires(k!.Value));
+
+    /// <summary>True when the reading reply about to be formed is to carry not-a-number values (counted).</summary>
+    internal bool TakeReadingFault() => Fires(FaultKind.NotANumber);
 
     /// <summary>Flips one to three characters, or cuts the reply short (at least one character goes).</summary>
     internal string Garble(string reply)

@@ -17,4 +17,10 @@ public enum FaultKind
 
     /// <summary>The meter silently returns to its *RST settings before the message runs.</summary>
     SilentReset = 4,
+
+    /// <summary>
+    /// Every reading of the next reading reply is 9.91E+37, the SCPI not-a-number value (as a meter answers a
+    /// measurement it could not make); the rest of the exchange is untouched.
+    /// </summary>
+    NotANumber = 5,
 }

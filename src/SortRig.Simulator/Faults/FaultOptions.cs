@@ -18,6 +18,9 @@ public sealed record FaultOptions
     /// <summary>Probability per message of <see cref="FaultKind.SilentReset"/>; 0 to 1. Default 0.</summary>
     public double SilentResetRate { get; init; }
 
+    /// <summary>Probability per reading reply of <see cref="FaultKind.NotANumber"/>; 0 to 1. Default 0.</summary>
+    public double NotANumberRate { get; init; }
+
     /// <summary>How long a delayed reply is held back; 0 to 10 min. Default 5 s.</summary>
     public TimeSpan ReplyDelay { get; init; } = TimeSpan.FromSeconds(5);
 
@@ -45,6 +48,7 @@ public sealed record FaultOptions
         FaultKind.GarbleReply => GarbleRate,
         FaultKind.SpuriousError => SpuriousErrorRate,
         FaultKind.SilentReset => SilentResetRate,
+        FaultKind.NotANumber => NotANumberRate,
         _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown fault kind."),
     };
 }

@@ -6,7 +6,7 @@ namespace SortRig.Simulator.Scpi;
 /// <summary>SIMulation:FAULt: arm faults, set random rates and the reply delay, read the fault counts (test-only).</summary>
 internal static class FaultCommands
 {
-    private static readonly string[] s_names = ["DROP", "DELay", "GARBle", "ERRor", "RESet"];
+    private static readonly string[] s_names = ["DROP", "DELay", "GARBle", "ERRor", "RESet", "NAN"];
     private static readonly NumericParameter s_seconds = NumericParameter.Seconds(0, 600, 5);
     private static readonly NumericParameter s_rate = NumericParameter.Unitless(0, 1, 0);
 
@@ -18,7 +18,7 @@ internal static class FaultCommands
         .Add("SIMulation:FAULt:RATE", (c, _) => Done(() => c.Device.Faults.SetRate(Kind(c, 0), Rate(c, 1))), 2, 2)
         .Add("SIMulation:FAULt:RATE?", (c, _) => Reply(Nr3.Format(c.Device.Faults.Rate(Kind(c, 0)))), 1, 1);
 
-    /// <summary>DROP | DELay | GARBle | ERRor | RESet.</summary>
+    /// <summary>DROP | DELay | GARBle | ERRor | RESet | NAN.</summary>
     private static FaultKind Kind(ScpiCall call, int index) =>
         (FaultKind)Array.IndexOf(s_names, call.Keyword(index, s_names));
 

@@ -5,6 +5,9 @@ namespace SortRig.Simulator.Scpi;
 /// <summary>Reply formatting: NR3 numbers like +1.00012345E+04 (IEEE 488.2 sec. 8.7.4), NR1 integers.</summary>
 internal static class Nr3
 {
+    /// <summary>The not-a-number value as a reading reply carries it (SCPI-99 vol. 1 sec. 7.2.1.5: 9.91E37).</summary>
+    public static readonly string NotANumber = Format(9.91e37);
+
     public static string Format(double value)
     {
         var text = value.ToString("E8", CultureInfo.InvariantCulture); // e.g. 1.00012345E+004

@@ -41,7 +41,9 @@ internal static class TriggerCommands
     {
         var (readings, error) = await call.Device.Acquisition.FetchAsync(ct).ConfigureAwait(false);
         Fail(error);
-        return Nr3.FormatList(readings!);
+        return call.Device.Faults.TakeReadingFault()
+            ? string.Join(',', Enumerable.Repeat(Nr3.NotANumber, readings!.Count))
+            : Nr3.FormatList(readings!);
     }
 
     private static void SetSource(ScpiCall call)

@@ -66,7 +66,48 @@ public sealed class MeterRecoveryTests : IDisposable
         var bench = await sort.Bench;
         Assert.Equal(3, outcome.PartsRecorded);
         Assert.True(bench.Faults.Log.Total > 0, "no fault injected");
-        Assert.All(Enum.GetValues<FaultKind>(), k => Assert.Equal(0.1 / 5, bench.Faults.Rate(k), 12));
+        Assert.All(Enum.GetValues<FaultKind>(), k => Assert.Equal(0.1 / 6, bench.Faults.Rate(k), 12)); // 100 per 1000 over six kinds
+    }
+
+    [Fact]
+    public async Task MeterAnswersOnlyNotANumber_BacksOffAndStopsNamingTheReply()
+    {
+        // Every reading reply is 9.91E+37, the SCPI not-a-number value (SCPI-99 vol. 1 sec. 7.2.1.5), while
+        // connecting and configuring work: the session must stop after the documented count, not reconnect forever.
+        var sort = new InProcessSort(Options(parts: 2, speed: 200));
+        using var cts = new CancellationTokenSource(s_limit);
+
+        var e = await Assert.ThrowsAsync<MeterUnreadableException>(
+            () => sort.RunAsync(b => b with { Faults = b.Faults with { NotANumberRate = 1 } }, cts.Token));
+
+        var bench = await sort.Bench;
+        Assert.Equal(UnreadableStreak.DefaultLimit, e.Count);
+        Assert.Equal(9.91e37, double.Parse(e.LastReply, System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Contains($"'{e.LastReply}' instead of a reading", e.Message, StringComparison.Ordinal);
+        Assert.Equal(UnreadableStreak.DefaultLimit, bench.Faults.Log.Count(FaultKind.NotANumber));
+        var told = sort.Ears.Text.Split('\n').Count(l => l.Contains("meter: not a number", StringComparison.Ordinal));
+        Assert.Equal(UnreadableStreak.DefaultLimit - 1, told);
+
+        // The waits between requests grow (0.25 s doubling to 5 s): 11 waits, 37.75 s of bench time at least.
+        Assert.Contains("reading again in 5 s (11 of 12 in a row)", sort.Ears.Text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task AFewNotANumberReplies_SessionCarriesOnAndTheCountStartsAgain()
+    {
+        var sort = new InProcessSort(Options(parts: 3, speed: 100));
+        using var cts = new CancellationTokenSource(s_limit);
+        var run = sort.RunAsync(null, cts.Token);
+        var bench = await sort.Bench;
+        for (var i = 0; i < UnreadableStreak.DefaultLimit - 1; i++)
+        {
+            bench.Faults.Inject(FaultKind.NotANumber); // one short of the limit, all in a row
+        }
+
+        var outcome = await run;
+
+        Assert.Equal(3, outcome.PartsRecorded);
+        Assert.Equal(UnreadableStreak.DefaultLimit - 1, bench.Faults.Log.Count(FaultKind.NotANumber));
     }
 
     private SortOptions Options(int parts, double speed) => new()

@@ -67,6 +67,23 @@ public sealed class FaultTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task NotANumber_ReadingReplyIsTheScpiNaN_OtherRepliesUntouched()
+    {
+        await _bench.ExecuteAsync("SIM:FIXT:INS 0,0");
+        await _bench.ExecuteAsync("SIM:FAUL:INJ NAN");
+
+        // Armed for a reading: a reply that is not a reading passes untouched and leaves it armed.
+        Assert.Equal(_bench.Identity, await _bench.ExecuteAsync("*IDN?"));
+        var nan = await VirtualTime.RunAsync(_clock, _bench.ExecuteAsync("MEAS:RES? 10000"), TimeSpan.FromMilliseconds(41));
+        var next = await VirtualTime.RunAsync(_clock, _bench.ExecuteAsync("MEAS:RES? 10000"), TimeSpan.FromMilliseconds(41));
+
+        // 9.91E37 is SCPI's not-a-number (SCPI-99 vol. 1 sec. 7.2.1.5), in the meter's NR3 form (IEEE 488.2 sec. 8.7.4).
+        Assert.Equal("+9.91000000E+37", nan);
+        Assert.InRange(double.Parse(next!, System.Globalization.CultureInfo.InvariantCulture), 9_000, 11_000);
+        Assert.Equal(1, _bench.Faults.Log.Count(FaultKind.NotANumber));
+    }
+
+    [Fact]
     public async Task SpuriousError_AppearsInTheErrorQueue()
     {
         await _client.SendAsync("SIM:FAUL:INJ ERR");
