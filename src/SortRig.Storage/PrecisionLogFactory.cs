@@ -52,6 +52,27 @@ public static class PrecisionLogFactory
         throw new ArgumentException($"Connection string names no database; {Expected}.", nameof(connectionString));
     }
 
+    /// <summary>
+    /// Checks a connection string without opening anything: the engine is known, and a SQLite path is neither a folder
+    /// nor a device. Verbs call it before they start, so a bad --db is one line and nothing is created.
+    /// </summary>
+    /// <exception cref="ArgumentException">The string names no engine, or a SQLite path that cannot hold a log.</exception>
+    public static void CheckTarget(string connectionString)
+    {
+        if (DetectEngine(connectionString) != StorageEngine.Sqlite)
+        {
+            return;
+        }
+
+        var builder = connectionString.Contains('=', StringComparison.Ordinal)
+            ? new Microsoft.Data.Sqlite.SqliteConnectionStringBuilder(connectionString)
+            : new Microsoft.Data.Sqlite.SqliteConnectionStringBuilder { DataSource = connectionString.Trim() };
+        if (!string.IsNullOrWhiteSpace(builder.DataSource) && builder.DataSource != ":memory:")
+        {
+            SqlitePrecisionLog.RequireFilePath(builder.DataSource);
+        }
+    }
+
     /// <summary>Opens the log, creating or migrating its schema. Dispose it when done.</summary>
     /// <param name="connectionString">See <see cref="DetectEngine"/>.</param>
     /// <param name="options">Options; null for defaults.</param>

@@ -40,6 +40,20 @@ public sealed class PrecisionLogFactoryTests
     }
 
     [Theory]
+    [InlineData("/dev/null", "is a device")]
+    [InlineData("Data Source=/dev/zero", "is a device")]
+    [InlineData("/tmp", "is a folder")]
+    public async Task OpenAsync_DeviceOrFolderAsSqlite_RefusedAndNoJournalLeftBeside(string database, string said)
+    {
+        var error = await Assert.ThrowsAsync<ArgumentException>(() =>
+            PrecisionLogFactory.OpenAsync(database, null, CancellationToken.None));
+
+        Assert.Contains(said, error.Message, StringComparison.Ordinal);
+        var path = database.Replace("Data Source=", "", StringComparison.Ordinal);
+        Assert.All(new[] { "-journal", "-wal", "-shm" }, suffix => Assert.False(File.Exists(path + suffix), path + suffix));
+    }
+
+    [Theory]
     [InlineData(0.5)]
     [InlineData(601)]
     public void Options_BusyTimeoutOutOfRange_ThrowsNamingTheOption(double seconds)

@@ -76,6 +76,15 @@ public sealed class DriftOptions
         var channels = ChannelListParser.Parse(Channels, "Drift.Channels");
         Require(!string.IsNullOrWhiteSpace(Run) && Run.Length <= 200, "Drift.Run", "1 to 200 characters", Run);
         Require(!string.IsNullOrWhiteSpace(Database), "Drift.Database", "a SQLite path or a connection string", Database);
+        try
+        {
+            Storage.PrecisionLogFactory.CheckTarget(Database);
+        }
+        catch (ArgumentException e)
+        {
+            throw new ArgumentException($"Drift.Database: {e.Message}", "Drift.Database", e);
+        }
+
         Require(!string.IsNullOrWhiteSpace(Profile), "Drift.Profile", "a profile name or YAML file", Profile);
         var pt100 = Pt100Channel ?? (channels.Max() + 1);
         Require(pt100 is >= 0 and <= 9999 && !channels.Contains(pt100), "Drift.Pt100Channel", "0 (none) or 1 to 9999 and not a part channel", pt100);

@@ -4,6 +4,7 @@ using System.Reflection;
 using Microsoft.Extensions.Configuration;
 using SortRig.Engine.Sorting;
 using SortRig.Instruments.Resources;
+using SortRig.Storage;
 
 namespace SortRig.Host.Cli;
 
@@ -44,6 +45,15 @@ internal static class SortInputCheck
         if (!Validator.TryValidateObject(options, new ValidationContext(options), results, validateAllProperties: true))
         {
             return (null, Describe(results[0], options, flags));
+        }
+
+        try
+        {
+            PrecisionLogFactory.CheckTarget(options.Database);
+        }
+        catch (ArgumentException e)
+        {
+            return (null, $"{Name(nameof(SortOptions.Database), flags)}: {e.Message}");
         }
 
         if (VerbSupport.TextArg.Problem(options.Session, Name(nameof(SortOptions.Session), flags)) is { } badName)

@@ -59,6 +59,7 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
                 nameof(connectionString));
         }
 
+        RequireFilePath(builder.DataSource);
         builder.DefaultTimeout = (int)Math.Ceiling(options.BusyTimeout.TotalSeconds);
         builder.ForeignKeys = true;
         builder.Pooling = options.SqliteMaxPageCount is null; // a size-capped test connection must not go back to the shared pool
@@ -79,6 +80,25 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
         {
             await log.DisposeAsync().ConfigureAwait(false);
             throw;
+        }
+    }
+
+    /// <summary>
+    /// SQLite keeps its journal beside the database: a folder or a device (/dev/null, /dev/zero) is refused before
+    /// anything is opened, so no journal file is left next to it.
+    /// </summary>
+    /// <exception cref="ArgumentException">The path is a folder or a device.</exception>
+    internal static void RequireFilePath(string dataSource)
+    {
+        var full = Path.GetFullPath(dataSource);
+        if (Directory.Exists(full))
+        {
+            throw new ArgumentException($"'{dataSource}' is a folder; a SQLite precision log is a file (e.g. '{Path.Combine(dataSource, "sortrig.db")}')");
+        }
+
+        if (full.StartsWith("/dev/", StringComparison.Ordinal))
+        {
+            throw new ArgumentException($"'{dataSource}' is a device; a SQLite precision log is a regular file");
         }
     }
 

@@ -17,6 +17,7 @@ public sealed class SortBadInputTests
     [InlineData("--tolerance", "1 percent", "--tolerance")]
     [InlineData("--settle", "guess", "--settle")]
     [InlineData("--physics", "quantum", "--physics")]
+    [InlineData("--db", "/dev/null", "--db")] // a device: SQLite would leave a journal beside it
     public async Task Sort_BadValue_OneLineNamingTheFlag_Exit2_NothingCreated(string flag, string value, string named)
     {
         var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
