@@ -68,7 +68,7 @@ public static class RecipeLoader
 
     internal static string Name(YamlCursor root) => root.Required("recipe", "the recipe's name").Text();
 
-    internal static string? Description(YamlCursor root) => root.Optional("description")?.Text();
+    internal static string? Description(YamlCursor root) => root.Optional("description")?.Text(multiline: true);
 
     internal static IReadOnlyList<PositionSpec> ReadPositions(YamlCursor root, bool network)
     {

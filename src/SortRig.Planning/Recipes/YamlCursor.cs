@@ -60,15 +60,31 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
         }
     }
 
-    public string Text()
+    /// <summary>
+    /// The scalar's text. Names, nodes and numbers never hold a control character (a newline would forge a line in a
+    /// log or a CSV, an escape sequence would drive the terminal); a description may span lines and hold tabs.
+    /// </summary>
+    public string Text(bool multiline = false)
     {
         if (Node is not YamlScalarNode { Value: { Length: > 0 } v })
         {
             throw Error("a non-empty text value");
         }
 
+        var bad = v.IndexOfAny(ControlCharacters(multiline));
+        if (bad >= 0)
+        {
+            throw Error(string.Create(CultureInfo.InvariantCulture,
+                $"text without control characters (U+{(int)v[bad]:X4} at character {bad + 1})"));
+        }
+
         return v;
     }
+
+    private static readonly char[] s_control = [.. Enumerable.Range(0, 0xA0).Select(i => (char)i).Where(char.IsControl)];
+    private static readonly char[] s_controlButLines = [.. s_control.Where(c => c is not ('\n' or '\t' or '\r'))];
+
+    private static char[] ControlCharacters(bool multiline) => multiline ? s_controlButLines : s_control;
 
     public double Number(double min, double max, string expected)
     {

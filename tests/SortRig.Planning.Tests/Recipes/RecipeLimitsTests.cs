@@ -16,6 +16,31 @@ public sealed class RecipeLimitsTests
         Assert.Contains("nested at most 32 deep", e.Message, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("R1\u001b[2J", "positions[0].name", "U+001B at character 3")] // ECMA-48 erase display (from memory)
+    [InlineData("R1\nR9", "positions[0].name", "U+000A at character 3")] // a newline forges a line in a log or CSV
+    public void Load_ControlCharacterInAName_RefusedNamingTheFieldAndTheCharacter(string name, string field, string said)
+    {
+        var quoted = name.Replace("\u001b", "\\e", StringComparison.Ordinal).Replace("\n", "\\n", StringComparison.Ordinal);
+        var yaml = $"recipe: quad\nform: matched\nmatch-ppm: 1000\npositions:\n  - {{ name: \"{quoted}\", nominal: 10k }}\n  - {{ name: b, nominal: 10k }}\n";
+
+        var e = Assert.Throws<RecipeException>(() => RecipeLoader.Load(yaml, "hostile.yaml"));
+
+        Assert.Equal(field, e.FieldPath);
+        Assert.Contains(said, e.Message, StringComparison.Ordinal);
+        Assert.StartsWith("hostile.yaml:5:", e.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Load_DescriptionOverSeveralLines_StillLoads()
+    {
+        var yaml = "recipe: quad\ndescription: |\n  first line\n  second\tline\nform: matched\nmatch-ppm: 1000\npositions:\n  - { name: a, nominal: 10k }\n  - { name: b, nominal: 10k }\n";
+
+        var recipe = RecipeLoader.Load(yaml, "multi.yaml");
+
+        Assert.Equal("first line\nsecond\tline\n", recipe.Description);
+    }
+
     [Fact]
     public void Load_TextOverOneMebibyte_Refused()
     {
