@@ -75,6 +75,10 @@ public sealed class DriftOptions
     {
         var channels = ChannelListParser.Parse(Channels, "Drift.Channels");
         Require(!string.IsNullOrWhiteSpace(Run) && Run.Length <= 200, "Drift.Run", "1 to 200 characters", Run);
+
+        // Names and notes end up in logs, reports and on the terminal: no control characters (a newline forges a log line).
+        Require(!Run.Any(char.IsControl), "Drift.Run", "plain text without control characters", Printable(Run));
+        Require(Notes is null || !Notes.Any(char.IsControl), "Drift.Notes", "plain text without control characters", Printable(Notes));
         Require(!string.IsNullOrWhiteSpace(Database), "Drift.Database", "a SQLite path or a connection string", Database);
         try
         {
@@ -106,6 +110,9 @@ public sealed class DriftOptions
             LibraryParts = LibraryPartMap.Parse(LibraryParts, channels),
         };
     }
+
+    private static string Printable(string? text) =>
+        string.Concat((text ?? "").Select(c => char.IsControl(c) ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"U+{(int)c:X4}") : c.ToString()));
 
     private static void Require(bool ok, string option, string valid, object? was)
     {

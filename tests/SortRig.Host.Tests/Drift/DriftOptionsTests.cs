@@ -25,6 +25,22 @@ public sealed class DriftOptionsTests
         Assert.Equal(108, new DriftOptions { Channels = "107,101-103" }.Validate().Pt100Channel);
     }
 
+    [Theory]
+    [InlineData("night\nERROR forged line", null, "Drift.Run", "U+000A")]
+    [InlineData("overnight", "rack 2\u001b]0;owned\u0007", "Drift.Notes", "U+001B")]
+    public void Validate_ControlCharacterInRunOrNotes_RefusedNamingTheOptionAndTheCharacter(string run, string? notes, string option, string shown)
+    {
+        var e = Assert.Throws<ArgumentException>(() => new DriftOptions { Run = run, Notes = notes }.Validate());
+
+        Assert.StartsWith(option + " must be plain text without control characters", e.Message, StringComparison.Ordinal);
+        Assert.Contains(shown, e.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain(e.Message, char.IsControl);
+    }
+
+    [Fact]
+    public void Validate_DeviceAsDatabase_Refused() =>
+        Assert.Contains("is a device", Assert.Throws<ArgumentException>(() => new DriftOptions { Database = "/dev/null" }.Validate()).Message, StringComparison.Ordinal);
+
     [Fact]
     public void Validate_ZeroHoursAndNoPt100_LogsUntilStoppedWithoutThermometer()
     {
