@@ -1,4 +1,5 @@
 using System.CommandLine;
+using System.CommandLine.Help;
 using SortRig.Host.Cli;
 
 namespace SortRig.Host;
@@ -19,8 +20,11 @@ internal static class Program
     /// </summary>
     public static ParseResult Parse(IReadOnlyList<string> args)
     {
-        var root = new RootCommand("SortRig: sorts and matches resistors at the bench through a SCPI multimeter.")
+        // Named as README and help call the program (scripts/sortrig), not after the assembly.
+        var root = new Command("sortrig", "SortRig: sorts and matches resistors at the bench through a SCPI multimeter.")
         {
+            new HelpOption(),
+            new VersionOption(),
             SortCommand.Create(),
             ProbeCommand.Create(),
             SimulateCommand.Create(),

@@ -36,7 +36,9 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         }
         catch (ArgumentException e)
         {
-            throw new SortPlanException($"The meter '{meter.Family}' cannot take this batch: {e.Message}", []);
+            // The reason without .NET's "(Parameter 'nplc')" tail: the operator typed a flag, not a parameter.
+            var reason = e.ParamName is { } name ? e.Message.Replace($" (Parameter '{name}')", "", StringComparison.Ordinal) : e.Message;
+            throw new SortPlanException($"The meter '{meter.Family}' cannot take this batch: {reason}", []);
         }
 
         if (decision.Verdict == RangeVerdict.Refused)

@@ -19,7 +19,14 @@ internal static class ParseErrors
             return false;
         }
 
-        var verb = parse.CommandResult.Command is RootCommand ? "" : " " + parse.CommandResult.Command.Name;
+        // The whole command path below the root, e.g. "library take".
+        var path = new List<string>();
+        for (var at = parse.CommandResult; at.Parent is System.CommandLine.Parsing.CommandResult parent; at = parent)
+        {
+            path.Insert(0, at.Command.Name);
+        }
+
+        var verb = string.Concat(path.Select(n => " " + n));
         error.WriteLine($"error: {parse.Errors[0].Message} (sortrig{verb} --help lists the options)");
         return true;
     }

@@ -59,10 +59,15 @@ internal static class HostSetup
         builder.Services.AddSerilog((_, logger) => logger
             .ReadFrom.Configuration(builder.Configuration)
             .Enrich.FromLogContext()
-            .WriteTo.Console(
-                restrictedToMinimumLevel: quietConsole ? LogEventLevel.Warning : LogEventLevel.Information,
-                standardErrorFromLevel: LogEventLevel.Verbose,
-                formatProvider: System.Globalization.CultureInfo.InvariantCulture)
+            // The console gets one line per event, never a stack trace (those go to the log file only), and not the
+            // failures the verb itself tells the operator in plain words.
+            .WriteTo.Logger(console => console
+                .Filter.ByExcluding(IsToldByTheVerb)
+                .WriteTo.Console(
+                    restrictedToMinimumLevel: quietConsole ? LogEventLevel.Warning : LogEventLevel.Information,
+                    standardErrorFromLevel: LogEventLevel.Verbose,
+                    outputTemplate: "[{Timestamp:HH:mm:ss} {Level:u3}] {Message:lj}{NewLine}",
+                    formatProvider: System.Globalization.CultureInfo.InvariantCulture))
             .WriteTo.File(
                 logFile,
                 rollingInterval: RollingInterval.Day,
@@ -70,4 +75,9 @@ internal static class HostSetup
                 formatProvider: System.Globalization.CultureInfo.InvariantCulture));
         builder.Services.AddSystemd();
     }
+
+    // Event ids of failures the verbs print themselves ("sorting stopped: ..."): Host 7001.
+    private static bool IsToldByTheVerb(Serilog.Events.LogEvent e) =>
+        e.Properties.TryGetValue("EventId", out var id) && id is Serilog.Events.StructureValue s
+        && s.Properties.Any(p => p.Name == "Id" && p.Value is Serilog.Events.ScalarValue { Value: 7001 });
 }

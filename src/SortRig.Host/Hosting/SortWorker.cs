@@ -72,11 +72,19 @@ internal sealed class SortWorker(
             await Console.Out.WriteLineAsync(
                 $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}").ConfigureAwait(false);
         }
+        catch (MeterUnreachableException e)
+        {
+            // Nothing was measured against this meter yet; the same command runs the session once it is reachable.
+            ExitCode = 1;
+            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e.Message, e);
+            await StopViewAsync(viewStop, view).ConfigureAwait(false);
+            AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
+        }
         catch (MeterUnreadableException e)
         {
             // Nothing is wrong with the session: it carries on once the meter gives readings again.
             ExitCode = 1;
-            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e);
+            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e.Message, e);
             await StopViewAsync(viewStop, view).ConfigureAwait(false);
             AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
             await Console.Out.WriteLineAsync(
@@ -85,7 +93,7 @@ internal sealed class SortWorker(
         catch (Exception e)
         {
             ExitCode = 1;
-            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e);
+            Log.SortFailed(loggers.CreateLogger<SortWorker>(), e.Message, e);
             AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
         }
         finally

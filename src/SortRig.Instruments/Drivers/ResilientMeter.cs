@@ -1,3 +1,5 @@
+using SortRig.Instruments.Transports;
+
 namespace SortRig.Instruments.Drivers;
 
 /// <summary>
@@ -28,6 +30,9 @@ public sealed class ResilientMeter : IAsyncDisposable
     /// <summary>The identity read on the first connection ("maker model s/n serial fw firmware"); empty before, or when not asked.</summary>
     public string Identity { get; private set; } = "";
 
+    /// <summary>True once a connection has been opened and set up; a link that fails after that was lost, not unreachable.</summary>
+    public bool HasConnected { get; private set; }
+
     /// <summary>The open connection; null before the first use and after a drop.</summary>
     public IResistanceMeter? Current { get; private set; }
 
@@ -38,7 +43,10 @@ public sealed class ResilientMeter : IAsyncDisposable
     /// <see cref="GetAsync"/> until it succeeds, waiting with <paramref name="backoff"/> between attempts: every fault a
     /// reconnect cures, and a setup read-back that differs (or a model that does not match, possibly a reply garbled on
     /// the way or a reset between the commands and the read-back) up to <see cref="MeterFaults.SetupRetries"/> times in
-    /// a row; then it is a configuration mistake and is thrown.
+    /// a row; then it is a configuration mistake and is thrown. Before any connection existed, a link that cannot be
+    /// opened at all (<see cref="InstrumentLinkException.OpenFailed"/>) <see cref="MeterFaults.FirstConnectAttempts"/>
+    /// times in a row throws <see cref="MeterUnreachableException"/>: a meter never reached is a setup to check, not
+    /// a fault to wait out.
     /// </summary>
     /// <param name="backoff">Waits between attempts.</param>
     /// <param name="time">Clock of the waits.</param>
@@ -51,6 +59,8 @@ public sealed class ResilientMeter : IAsyncDisposable
         ArgumentNullException.ThrowIfNull(onRetry);
         var wait = backoff.First;
         var mismatches = 0;
+        var unopened = 0;
+        var waited = TimeSpan.Zero;
         while (true)
         {
             ct.ThrowIfCancellationRequested();
@@ -66,8 +76,15 @@ public sealed class ResilientMeter : IAsyncDisposable
                     throw;
                 }
 
+                unopened = e is InstrumentLinkException { OpenFailed: true } && !HasConnected ? unopened + 1 : 0;
+                if (unopened >= MeterFaults.FirstConnectAttempts)
+                {
+                    throw new MeterUnreachableException(unopened, waited, (InstrumentLinkException)e);
+                }
+
                 await onRetry(e, wait, ct).ConfigureAwait(false);
                 await Task.Delay(wait, time, ct).ConfigureAwait(false);
+                waited += wait;
                 wait = backoff.Next(wait);
             }
         }
@@ -110,6 +127,7 @@ public sealed class ResilientMeter : IAsyncDisposable
             }
 
             await meter.ConfigureAsync(Setup, ct).ConfigureAwait(false);
+            HasConnected = true;
             return meter;
         }
         catch

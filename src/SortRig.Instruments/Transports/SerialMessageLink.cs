@@ -20,6 +20,13 @@ internal sealed class SerialMessageLink : StreamMessageLink
     public static IMessageLink Open(string portName, SerialSettings settings, MessageLinkOptions options, TimeProvider time)
     {
         var endpoint = $"serial://{portName} ({settings})";
+        if (!OperatingSystem.IsWindows() && !File.Exists(portName))
+        {
+            // SerialPort reports a missing device as "access denied"; say what is wrong.
+            throw new InstrumentLinkException(endpoint,
+                $"no such device '{portName}'; check the cable and the device name (ls /dev/ttyUSB* /dev/ttyACM*)", null, openFailed: true);
+        }
+
         var port = new SerialPort(portName, settings.BaudRate, settings.Parity, settings.DataBits, settings.StopBits)
         {
             Handshake = settings.Handshake,
@@ -35,7 +42,7 @@ internal sealed class SerialMessageLink : StreamMessageLink
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException or InvalidOperationException)
         {
             port.Dispose();
-            throw new InstrumentLinkException(endpoint, $"could not open the serial port: {ex.Message}", ex);
+            throw new InstrumentLinkException(endpoint, $"could not open the serial port: {ex.Message}", ex, openFailed: true);
         }
     }
 

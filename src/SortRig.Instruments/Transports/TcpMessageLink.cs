@@ -30,12 +30,12 @@ internal sealed class TcpMessageLink : StreamMessageLink
         catch (OperationCanceledException ex) when (!ct.IsCancellationRequested)
         {
             client.Dispose();
-            throw new InstrumentLinkException(endpoint, $"no connection within {options.ConnectTimeout.TotalMilliseconds:0} ms", ex);
+            throw new InstrumentLinkException(endpoint, $"no connection within {options.ConnectTimeout.TotalMilliseconds:0} ms", ex, openFailed: true);
         }
         catch (SocketException ex)
         {
             client.Dispose();
-            throw new InstrumentLinkException(endpoint, $"could not connect: {ex.Message}", ex);
+            throw new InstrumentLinkException(endpoint, $"could not connect: {ex.Message}", ex, openFailed: true);
         }
         catch
         {

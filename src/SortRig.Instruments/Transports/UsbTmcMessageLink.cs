@@ -18,6 +18,12 @@ internal sealed class UsbTmcMessageLink : StreamMessageLink
     public static IMessageLink Open(string devicePath, MessageLinkOptions options, TimeProvider time)
     {
         var endpoint = $"usbtmc://{devicePath}";
+        if (!File.Exists(devicePath))
+        {
+            throw new InstrumentLinkException(endpoint,
+                $"no such device '{devicePath}'; check the cable and the device name (ls /dev/usbtmc*)", null, openFailed: true);
+        }
+
         try
         {
             var stream = new FileStream(devicePath, new FileStreamOptions
@@ -31,7 +37,7 @@ internal sealed class UsbTmcMessageLink : StreamMessageLink
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            throw new InstrumentLinkException(endpoint, $"could not open the device: {ex.Message}", ex);
+            throw new InstrumentLinkException(endpoint, $"could not open the device: {ex.Message}", ex, openFailed: true);
         }
     }
 

@@ -12,6 +12,32 @@ public sealed class ProgramParseTests
         Assert.Empty(parse.Errors);
         Assert.Contains(parse.Tokens, t => t.Value == "@bag 7");
     }
+
+    [Theory]
+    [InlineData(new[] { "library", "take" }, "(sortrig library take --help lists the options)")]
+    [InlineData(new[] { "sort", "--bogus" }, "(sortrig sort --help lists the options)")]
+    [InlineData(new string[0], "(sortrig --help lists the options)")]
+    public void ParseError_NamesTheWholeCommandPath_AsTheProgramIsCalled(string[] args, string hint)
+    {
+        var error = new StringWriter();
+
+        Assert.True(SortRig.Host.Cli.ParseErrors.Report(Program.Parse(args), error));
+
+        var line = Assert.Single(error.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries));
+        Assert.EndsWith(hint, line.TrimEnd(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Help_UsageLine_CallsTheProgramSortrig()
+    {
+        var output = new StringWriter();
+        var parse = Program.Parse(["sort", "--help"]);
+
+        await parse.InvokeAsync(new System.CommandLine.InvocationConfiguration { Output = output });
+
+        Assert.Contains("sortrig sort [options]", output.ToString(), StringComparison.Ordinal);
+        Assert.DoesNotContain("SortRig.Host", output.ToString(), StringComparison.Ordinal);
+    }
 }
 
 /// <summary>Verbs that read the precision log never create one: a misspelt --db is named, exit 2, no file appears.</summary>

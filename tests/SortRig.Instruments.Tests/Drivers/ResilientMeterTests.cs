@@ -90,6 +90,62 @@ public sealed class ResilientMeterTests
         Assert.Equal(MeterFaults.SetupRetries + 1, attempts);
     }
 
+    [Fact]
+    public async Task ConnectWithRetry_NeverReached_StopsAfterTheFirstConnectAttempts_NamingWhatWasTried()
+    {
+        var time = new FakeTimeProvider();
+        var attempts = 0;
+        await using var meter = new ResilientMeter(
+            _ =>
+            {
+                attempts++;
+                throw new InstrumentLinkException("tcp://127.0.0.1:9", "could not connect: Connection refused", null, openFailed: true);
+            },
+            s_setup, identify: false);
+
+        var connecting = meter.ConnectWithRetryAsync(
+            new Backoff(TimeSpan.FromSeconds(0.25), TimeSpan.FromSeconds(5)), time, (_, _, _) => ValueTask.CompletedTask, default);
+        while (!connecting.IsCompleted)
+        {
+            time.Advance(TimeSpan.FromSeconds(0.25));
+            await Task.Yield();
+        }
+
+        var e = await Assert.ThrowsAsync<MeterUnreachableException>(() => connecting);
+        Assert.Equal(MeterFaults.FirstConnectAttempts, attempts);
+        Assert.Equal("tcp://127.0.0.1:9", e.Endpoint);
+        // Waits 0.25 + 0.5 + 1 s between the four attempts (arithmetic).
+        Assert.Contains("Connection refused (4 attempts over 1.75 s); check that it is switched on", e.Message, StringComparison.Ordinal);
+        Assert.False(meter.HasConnected);
+    }
+
+    [Fact]
+    public async Task ConnectWithRetry_ReachedOnceThenLost_RetriedPastTheFirstConnectLimit()
+    {
+        var time = new FakeTimeProvider();
+        var refusals = 0;
+        await using var meter = new ResilientMeter(
+            _ => refusals is > 0 and <= 10
+                ? throw new InstrumentLinkException("tcp://127.0.0.1:9", "could not connect: Connection refused", null, openFailed: (refusals++ > 0))
+                : Task.FromResult<IResistanceMeter>(new FakeMeter()),
+            s_setup, identify: false);
+        await meter.GetAsync(default);
+        await meter.DropAsync();
+        refusals = 1; // the meter is switched off after it was reached: ten refusals, then it is back
+
+        var connecting = meter.ConnectWithRetryAsync(
+            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1)), time, (_, _, _) => ValueTask.CompletedTask, default);
+        while (!connecting.IsCompleted)
+        {
+            time.Advance(TimeSpan.FromSeconds(1));
+            await Task.Yield();
+        }
+
+        await connecting;
+        Assert.True(meter.HasConnected);
+        Assert.Equal(11, refusals);
+    }
+
     private static FakeMeter Add(List<FakeMeter> list, FakeMeter meter)
     {
         list.Add(meter);

@@ -56,7 +56,20 @@ public sealed class UsbTmcMessageLinkTests : IDisposable
         var resource = ResourceStringParser.Parse("USBTMC::/dev/usbtmc-absent-99::INSTR");
         var ex = await Assert.ThrowsAsync<InstrumentLinkException>(
             () => new MessageLinkFactory().OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None).AsTask());
-        Assert.Contains("/dev/usbtmc-absent-99", ex.Message, StringComparison.Ordinal);
+        Assert.Contains("no such device '/dev/usbtmc-absent-99'", ex.Message, StringComparison.Ordinal);
+        Assert.True(ex.OpenFailed);
+    }
+
+    [Fact]
+    public async Task Open_MissingSerialDevice_SaysNoSuchDevice_NotAccessDenied()
+    {
+        // SerialPort alone reports a missing /dev/tty* as "access denied" (seen on this machine kind).
+        var resource = ResourceStringParser.Parse("ASRL::/dev/ttyUSB-absent-99::INSTR");
+        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(
+            () => new MessageLinkFactory().OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None).AsTask());
+        Assert.Contains("no such device '/dev/ttyUSB-absent-99'; check the cable", ex.Message, StringComparison.Ordinal);
+        Assert.DoesNotContain("denied", ex.Message, StringComparison.OrdinalIgnoreCase);
+        Assert.True(ex.OpenFailed);
     }
 
     private async Task<IMessageLink> Open() =>
