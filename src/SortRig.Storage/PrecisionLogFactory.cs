@@ -56,7 +56,8 @@ public static class PrecisionLogFactory
     /// Checks a connection string without opening anything: the engine is known, and a SQLite path is neither a folder
     /// nor a device. Verbs call it before they start, so a bad --db is one line and nothing is created.
     /// </summary>
-    /// <exception cref="ArgumentException">The string names no engine, or a SQLite path that cannot hold a log.</exception>
+    /// <exception cref="ArgumentException">The string names no engine, or a SQLite path that is a folder or a device.</exception>
+    /// <exception cref="StorageException">The SQLite file's folder does not exist or cannot be written.</exception>
     public static void CheckTarget(string connectionString)
     {
         if (DetectEngine(connectionString) != StorageEngine.Sqlite)
@@ -69,7 +70,7 @@ public static class PrecisionLogFactory
             : new Microsoft.Data.Sqlite.SqliteConnectionStringBuilder { DataSource = connectionString.Trim() };
         if (!string.IsNullOrWhiteSpace(builder.DataSource) && builder.DataSource != ":memory:")
         {
-            SqlitePrecisionLog.RequireFilePath(builder.DataSource);
+            SqlitePrecisionLog.RequireFilePath(builder.DataSource, writes: builder.Mode != Microsoft.Data.Sqlite.SqliteOpenMode.ReadOnly);
         }
     }
 

@@ -54,6 +54,18 @@ public sealed class PrecisionLogFactoryTests
     }
 
     [Theory]
+    [InlineData("/nonexistent-sortrig/x.db", "the folder '/nonexistent-sortrig' does not exist")]
+    [InlineData("/proc/sortrig.db", "the folder '/proc' is not writable")] // procfs refuses new files, even to root (common practice, no source)
+    public void CheckTarget_FolderMissingOrNotWritable_UnavailableSayingWhy_NothingCreated(string database, string said)
+    {
+        var error = Assert.Throws<StorageException>(() => PrecisionLogFactory.CheckTarget(database));
+
+        Assert.Equal(StorageFault.Unavailable, error.Fault);
+        Assert.Contains(said, error.Message, StringComparison.Ordinal);
+        Assert.False(File.Exists(database));
+    }
+
+    [Theory]
     [InlineData(0.5)]
     [InlineData(601)]
     public void Options_BusyTimeoutOutOfRange_ThrowsNamingTheOption(double seconds)

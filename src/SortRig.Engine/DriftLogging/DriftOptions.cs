@@ -88,6 +88,10 @@ public sealed class DriftOptions
         {
             throw new ArgumentException($"Drift.Database: {e.Message}", "Drift.Database", e);
         }
+        catch (Storage.Contracts.StorageException e) when (e.Fault == Storage.Contracts.StorageFault.Unavailable)
+        {
+            throw new ArgumentException($"Drift.Database: {e.Message}", "Drift.Database", e);
+        }
 
         Require(!string.IsNullOrWhiteSpace(Profile), "Drift.Profile", "a profile name or YAML file", Profile);
         var pt100 = Pt100Channel ?? (channels.Max() + 1);

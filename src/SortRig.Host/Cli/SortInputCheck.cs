@@ -55,6 +55,10 @@ internal static class SortInputCheck
         {
             return (null, $"{Name(nameof(SortOptions.Database), flags)}: {e.Message}");
         }
+        catch (Storage.Contracts.StorageException e) when (e.Fault == Storage.Contracts.StorageFault.Unavailable)
+        {
+            return (null, $"{Name(nameof(SortOptions.Database), flags)}: {e.Message}");
+        }
 
         if (VerbSupport.TextArg.Problem(options.Session, Name(nameof(SortOptions.Session), flags)) is { } badName)
         {

@@ -59,7 +59,7 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
                 nameof(connectionString));
         }
 
-        RequireFilePath(builder.DataSource);
+        RequireFilePath(builder.DataSource, writes: builder.Mode != SqliteOpenMode.ReadOnly);
         builder.DefaultTimeout = (int)Math.Ceiling(options.BusyTimeout.TotalSeconds);
         builder.ForeignKeys = true;
         builder.Pooling = options.SqliteMaxPageCount is null; // a size-capped test connection must not go back to the shared pool
@@ -88,7 +88,8 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
     /// anything is opened, so no journal file is left next to it.
     /// </summary>
     /// <exception cref="ArgumentException">The path is a folder or a device.</exception>
-    internal static void RequireFilePath(string dataSource)
+    /// <exception cref="StorageException">The folder does not exist or cannot be written (<see cref="StorageFault.Unavailable"/>).</exception>
+    internal static void RequireFilePath(string dataSource, bool writes)
     {
         var full = Path.GetFullPath(dataSource);
         if (Directory.Exists(full))
@@ -99,6 +100,29 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
         if (full.StartsWith("/dev/", StringComparison.Ordinal))
         {
             throw new ArgumentException($"'{dataSource}' is a device; a SQLite precision log is a regular file");
+        }
+
+        var folder = Path.GetDirectoryName(full) ?? "/";
+        if (!Directory.Exists(folder))
+        {
+            throw new StorageException("open", StorageFault.Unavailable, full, $"the folder '{folder}' does not exist; create it or check the path");
+        }
+
+        if (!writes)
+        {
+            return;
+        }
+
+        // The database and its journal are written in that folder: try it with a file that deletes itself.
+        try
+        {
+            using var probe = new FileStream(
+                Path.Combine(folder, $".sortrig-write-check-{Guid.NewGuid():N}"), FileMode.CreateNew, FileAccess.Write, FileShare.None, 1,
+                FileOptions.DeleteOnClose);
+        }
+        catch (Exception e) when (e is UnauthorizedAccessException or IOException)
+        {
+            throw new StorageException("open", StorageFault.Unavailable, full, $"the folder '{folder}' is not writable; the database and its journal are written there", e);
         }
     }
 
