@@ -19,10 +19,10 @@ internal static class OrderChecks
         }
 
         var detail = recipe.Form == RecipeForm.Matched
-            ? FormattableString.Invariant($": two parts exactly at nominal already show a worst-case ratio error of {((1 + uncertainty) / (1 - uncertainty) - 1) * 1e6:0.#} ppm against the match of {recipe.MatchTolerancePpm:0.#} ppm")
-            : ": a set of parts exactly at nominal fails its outputs in the worst case";
+            ? FormattableString.Invariant($"two parts exactly at nominal show {((1 + uncertainty) / (1 - uncertainty) - 1) * 1e6:0.#} ppm against its {recipe.MatchTolerancePpm:0.#} ppm")
+            : "a set exactly at nominal fails its outputs";
         throw new OrderRefusedException(FormattableString.Invariant(
-            $"recipe '{recipe.Name}' is tighter than the meter can resolve at a transfer uncertainty of {uncertainty * 1e6:0.#} ppm{detail}; use a finer range or NPLC, or loosen the recipe"));
+            $"recipe '{recipe.Name}' is tighter than the meter can resolve: at {uncertainty * 1e6:0.#} ppm transfer uncertainty {detail}"));
     }
 
     private static bool IdealSetPasses(Recipe recipe, double uncertainty, SetAssembler assembler, CancellationToken cancellationToken)
