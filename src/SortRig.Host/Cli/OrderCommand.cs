@@ -30,7 +30,7 @@ internal static class OrderCommand
         var csv = new Option<string?>("--csv") { Description = "Write the order (per confidence and nominal) to this CSV file" };
         var curveCsv = new Option<string?>("--curve-csv") { Description = "Write sets made against parts bought to this CSV file" };
         var plot = new Option<string?>("--plot") { Description = "Write a PNG of sets made against parts bought with its 5-95 % band" };
-        var timeLimit = new Option<double?>("--time-limit") { Description = "Seconds of set search per trial (0.01 to 60); default none: the fast sweep, repeatable by seed" };
+        var timeLimit = new Option<double?>("--time-limit") { Description = "Seconds of set search per assembler run in a trial (0.01 to 1); default none: the fast sweep, repeatable by seed" };
         foreach (var o in new Option[] { recipe, sets, stock, tolerance, gap, uncertainty, meter, nplc, db, fromSession, fromLibrary, trials, seed, maxParts, prices, price, csv, curveCsv, plot, timeLimit })
         {
             command.Add(o);
@@ -40,7 +40,7 @@ internal static class OrderCommand
             new OrderRequest(r.GetValue(recipe)!, r.GetValue(sets), r.GetValue(stock)!, r.GetValue(tolerance), r.GetValue(gap), r.GetValue(uncertainty),
                 r.GetValue(meter), r.GetValue(nplc), r.GetValue(db)!, r.GetValue(fromSession), r.GetValue(fromLibrary), Range(r.GetValue(trials), "--trials", 1, 100_000),
                 r.GetValue(seed), Range(r.GetValue(maxParts), "--max-parts", 1, 1_000_000), r.GetValue(prices), r.GetValue(price), r.GetValue(csv),
-                r.GetValue(curveCsv), r.GetValue(plot), TimeLimit(r.GetValue(timeLimit))),
+                r.GetValue(curveCsv), r.GetValue(plot), TimeLimit(r.GetValue(timeLimit), 1)),
             console ?? AnsiConsole.Console, ct)));
         return command;
     }
@@ -48,10 +48,12 @@ internal static class OrderCommand
     internal static int Range(int value, string option, int min, int max) =>
         value >= min && value <= max ? value : throw new VerbException(FormattableString.Invariant($"{option}: {value} is outside {min} to {max}"));
 
-    internal static TimeSpan? TimeLimit(double? seconds) => seconds switch
+    /// <summary>--time-limit in seconds, 0.01 to <paramref name="max"/> (the order verb runs the assembler about twenty
+    /// times per trial, so it caps the limit at 1 s to keep 1 000 trials from running for hours).</summary>
+    internal static TimeSpan? TimeLimit(double? seconds, double max) => seconds switch
     {
         null => null,
-        >= 0.01 and <= 60 => TimeSpan.FromSeconds(seconds.Value),
-        _ => throw new VerbException(FormattableString.Invariant($"--time-limit: {seconds} s is outside 0.01 to 60 s")),
+        >= 0.01 when seconds <= max => TimeSpan.FromSeconds(seconds.Value),
+        _ => throw new VerbException(FormattableString.Invariant($"--time-limit: {seconds} s is outside 0.01 to {max} s")),
     };
 }

@@ -22,7 +22,7 @@ internal static class ReachCommand
         }
 
         command.SetAction((r, ct) => VerbGuard.RunAsync(console ?? AnsiConsole.Console, () => ReachRunner.RunAsync(
-            new ReachRequest(r.GetValue(db)!, r.GetValue(session), r.GetValue(recipe)!, r.GetValue(sets), OrderCommand.TimeLimit(r.GetValue(timeLimit))),
+            new ReachRequest(r.GetValue(db)!, r.GetValue(session), r.GetValue(recipe)!, r.GetValue(sets), OrderCommand.TimeLimit(r.GetValue(timeLimit), 60)),
             console ?? AnsiConsole.Console, ct)));
         return command;
     }
