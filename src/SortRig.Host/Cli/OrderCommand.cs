@@ -30,8 +30,9 @@ internal static class OrderCommand
         var csv = new Option<string?>("--csv") { Description = "Write the order (per confidence and nominal) to this CSV file" };
         var curveCsv = new Option<string?>("--curve-csv") { Description = "Write sets made against parts bought to this CSV file" };
         var plot = new Option<string?>("--plot") { Description = "Write a PNG of sets made against parts bought with its 5-95 % band" };
+        var perNominal = new Option<bool>("--per-nominal") { Description = "Trim each nominal's quantity in turn to the least that still makes the sets at each confidence (slower; default: every nominal in per-set proportion)" };
         var timeLimit = new Option<double?>("--time-limit") { Description = "Seconds of set search per assembler run in a trial (0.01 to 1); default none: the fast sweep, repeatable by seed" };
-        foreach (var o in new Option[] { recipe, sets, stock, tolerance, gap, uncertainty, meter, nplc, db, fromSession, fromLibrary, trials, seed, maxParts, prices, price, csv, curveCsv, plot, timeLimit })
+        foreach (var o in new Option[] { recipe, sets, stock, tolerance, gap, uncertainty, meter, nplc, db, fromSession, fromLibrary, trials, seed, maxParts, prices, price, csv, curveCsv, plot, perNominal, timeLimit })
         {
             command.Add(o);
         }
@@ -40,7 +41,7 @@ internal static class OrderCommand
             new OrderRequest(r.GetValue(recipe)!, r.GetValue(sets), r.GetValue(stock)!, r.GetValue(tolerance), r.GetValue(gap), r.GetValue(uncertainty),
                 r.GetValue(meter), r.GetValue(nplc), r.GetValue(db)!, r.GetValue(fromSession), r.GetValue(fromLibrary), Range(r.GetValue(trials), "--trials", 1, 100_000),
                 r.GetValue(seed), Range(r.GetValue(maxParts), "--max-parts", 1, 1_000_000), r.GetValue(prices), r.GetValue(price), r.GetValue(csv),
-                r.GetValue(curveCsv), r.GetValue(plot), TimeLimit(r.GetValue(timeLimit), 1)),
+                r.GetValue(curveCsv), r.GetValue(plot), TimeLimit(r.GetValue(timeLimit), 1), r.GetValue(perNominal)),
             console ?? AnsiConsole.Console, ct)));
         return command;
     }

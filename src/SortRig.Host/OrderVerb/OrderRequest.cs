@@ -21,6 +21,7 @@ namespace SortRig.Host.OrderVerb;
 /// <param name="CurveCsvPath">Curve CSV; null for none.</param>
 /// <param name="PlotPath">PNG of sets against parts bought; null for none.</param>
 /// <param name="TimeLimit">Assembler search time per trial; null for the fast sweep (repeatable).</param>
+/// <param name="PerNominal">Trim each nominal's quantity after the joint answer.</param>
 internal sealed record OrderRequest(
     string Recipe,
     int Sets,
@@ -41,4 +42,5 @@ internal sealed record OrderRequest(
     string? CsvPath = null,
     string? CurveCsvPath = null,
     string? PlotPath = null,
-    TimeSpan? TimeLimit = null);
+    TimeSpan? TimeLimit = null,
+    bool PerNominal = false);

@@ -25,7 +25,7 @@ internal static class OrderRunner
             var prices = await PriceList.LoadAsync(request.PricesFile, request.Price, recipe.SinglePartDemand.Keys, cancellationToken).ConfigureAwait(false);
             var assembly = request.TimeLimit is { } limit ? new AssemblyOptions(timeLimit: limit) : null;
             var options = new OrderOptions(request.Sets, stock, uncertainty, request.Trials, request.Seed, request.MaxParts,
-                prices: prices, assembly: assembly, progress: new OrderProgressView(console));
+                prices: prices, assembly: assembly, progress: new OrderProgressView(console), perNominal: request.PerNominal);
             var estimate = await Task.Run(() => new OrderEstimator().Estimate(recipe, options, cancellationToken), cancellationToken).ConfigureAwait(false);
             OrderView.Write(console, estimate, stockSource, uSource, request.TimeLimit is null);
             if (request.CsvPath is { } csv)

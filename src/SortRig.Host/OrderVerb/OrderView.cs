@@ -38,7 +38,7 @@ internal static class OrderView
         foreach (var level in e.Levels.Where(l => l.SetEquivalents is not null))
         {
             var cost = level.TotalCost is { } t ? Invariant($", cost {t:0.00} (cheaper break taken where one is shown)") : "";
-            console.MarkupLine(Markup.Escape(Invariant($"{Percent(level.Confidence)}: buy {level.TotalParts} parts{cost}; {level.Reached * 100:0.#} % of trials made {e.SetsWanted} sets from it")));
+            console.MarkupLine(Markup.Escape(Invariant($"{Percent(level.Confidence)}: buy {level.TotalParts} parts{(level.Trimmed ? " (trimmed per nominal)" : "")}{cost}; {level.Reached * 100:0.#} % of trials made {e.SetsWanted} sets from it")));
         }
 
         console.MarkupLine(Markup.Escape(Invariant(

@@ -16,7 +16,9 @@ public sealed record OrderLine(double Nominal, int PerSet, int Quantity, double 
 /// than the part cap would be needed.</param>
 /// <param name="Reached">Fraction of trials that made the sets wanted from this order.</param>
 /// <param name="Lines">One line per nominal; empty when <paramref name="SetEquivalents"/> is null.</param>
-public sealed record OrderLevel(double Confidence, int? SetEquivalents, double Reached, IReadOnlyList<OrderLine> Lines)
+/// <param name="Trimmed">True when the quantities were trimmed per nominal after the joint answer
+/// (<see cref="OrderOptions.PerNominal"/>); <paramref name="Reached"/> is then that of the trimmed order.</param>
+public sealed record OrderLevel(double Confidence, int? SetEquivalents, double Reached, IReadOnlyList<OrderLine> Lines, bool Trimmed = false)
 {
     /// <summary>Parts in the order.</summary>
     public int TotalParts => Lines.Sum(l => l.Quantity);

@@ -11,7 +11,7 @@ namespace SortRig.Planning.Ordering;
 /// (trials are independent and seeded by index, so the thread count does not change the result).
 /// </summary>
 /// <param name="timeProvider">Clock for the elapsed time; null for the system clock.</param>
-public sealed class OrderEstimator(TimeProvider? timeProvider = null)
+public sealed partial class OrderEstimator(TimeProvider? timeProvider = null)
 {
     private readonly TimeProvider _time = timeProvider ?? TimeProvider.System;
 
@@ -84,6 +84,11 @@ public sealed class OrderEstimator(TimeProvider? timeProvider = null)
         }, cancellationToken);
 
         var levels = OrderOptions.Levels.Select((c, i) => Level(c, levelOrders[i], classes, probes, sets, leftover, n, options)).ToList();
+        if (options.PerNominal && classes.Length > 1)
+        {
+            levels = [.. levels.Select(l => Trim(l, recipe, classes, assembler, options, started, cancellationToken))];
+        }
+
         var curve = grid.Select(m =>
         {
             var k = Array.IndexOf(probes, m);
@@ -167,20 +172,20 @@ public sealed class OrderEstimator(TimeProvider? timeProvider = null)
         var k = Array.IndexOf(probes, m);
         var trials = sets.GetLength(0);
         var reached = Enumerable.Range(0, trials).Count(t => sets[t, k] >= n) / (double)trials;
-        var lines = classes.Select((c, j) =>
-        {
-            var quantity = m * c.PerSet;
-            var left = Enumerable.Range(0, trials).Average(t => leftover[t, k, j]);
-            if (!options.Prices.TryGetValue(c.Nominal, out var prices))
-            {
-                return new OrderLine(c.Nominal, c.PerSet, quantity, left, null, null, null);
-            }
-
-            var cheapest = prices.CheapestAtLeast(quantity);
-            var cheaper = cheapest.Quantity != quantity;
-            return new OrderLine(c.Nominal, c.PerSet, quantity, left, prices.Cost(quantity), cheaper ? cheapest.Quantity : null, cheaper ? cheapest.Cost : null);
-        }).ToList();
+        var lines = classes.Select((c, j) => Line(c, m * c.PerSet, Enumerable.Range(0, trials).Average(t => leftover[t, k, j]), options)).ToList();
         return new OrderLevel(confidence, m, reached, lines);
+    }
+
+    private static OrderLine Line((double Nominal, int PerSet) c, int quantity, double left, OrderOptions options)
+    {
+        if (!options.Prices.TryGetValue(c.Nominal, out var prices))
+        {
+            return new OrderLine(c.Nominal, c.PerSet, quantity, left, null, null, null);
+        }
+
+        var cheapest = prices.CheapestAtLeast(quantity);
+        var cheaper = cheapest.Quantity != quantity;
+        return new OrderLine(c.Nominal, c.PerSet, quantity, left, prices.Cost(quantity), cheaper ? cheapest.Quantity : null, cheaper ? cheapest.Cost : null);
     }
 
     /// <summary>Order sizes for the curve: from half the sets wanted to a quarter beyond the 99 % order, evenly spaced.</summary>

@@ -27,6 +27,8 @@ public sealed record OrderOptions
     /// <param name="assembly">Assembler limits for each trial; null for <see cref="FastAssembly"/>.</param>
     /// <param name="maxParallelism">Trials run at once, 1 to 64; default the processor count.</param>
     /// <param name="progress">Receives progress after every 5 % of trials; null for none.</param>
+    /// <param name="perNominal">After the joint answer, trim each nominal's quantity in turn to the smallest that still
+    /// makes the sets in at least the level's share of the same trials; default false (quantities in per-set proportion).</param>
     public OrderOptions(
         int setsWanted,
         StockDistribution stock,
@@ -38,8 +40,10 @@ public sealed record OrderOptions
         IReadOnlyDictionary<double, PriceBreaks>? prices = null,
         AssemblyOptions? assembly = null,
         int? maxParallelism = null,
-        IProgress<OrderProgress>? progress = null)
+        IProgress<OrderProgress>? progress = null,
+        bool perNominal = false)
     {
+        PerNominal = perNominal;
         ArgumentNullException.ThrowIfNull(stock);
         SetsWanted = setsWanted is >= 1 and <= 10_000 ? setsWanted
             : throw new OrderRefusedException(FormattableString.Invariant($"sets: {setsWanted} is not a number of sets to build (1 to 10 000)"));
@@ -96,6 +100,9 @@ public sealed record OrderOptions
 
     /// <summary>Progress receiver, or null.</summary>
     public IProgress<OrderProgress>? Progress { get; }
+
+    /// <summary>True to trim each nominal's quantity after the joint answer (default false).</summary>
+    public bool PerNominal { get; }
 }
 
 /// <summary>Progress of an estimate.</summary>

@@ -26,12 +26,15 @@ internal sealed class TrialReel
     }
 
     /// <summary>The first <paramref name="setEquivalents"/> × per-set parts of every nominal.</summary>
-    public List<PartCandidate> Order(int setEquivalents)
+    public List<PartCandidate> Order(int setEquivalents) => Order(_classes.Select(c => setEquivalents * c.PerSet).ToArray());
+
+    /// <summary>The first <paramref name="quantities"/>[j] parts of nominal class j.</summary>
+    public List<PartCandidate> Order(int[] quantities)
     {
         var parts = new List<PartCandidate>();
         for (var j = 0; j < _classes.Length; j++)
         {
-            var want = setEquivalents * _classes[j].PerSet;
+            var want = quantities[j];
             while (_drawn[j].Count < want)
             {
                 var nominal = _classes[j].Nominal;

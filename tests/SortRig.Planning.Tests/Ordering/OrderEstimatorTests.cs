@@ -99,6 +99,25 @@ public sealed class OrderEstimatorTests
     }
 
     [Fact]
+    public void PerNominalTrim_KeepsEachLevelsShare_AndNeverBuysMore()
+    {
+        // A 10k : 20k : 20k matched set. The trim may only lower a nominal's quantity while the same trials still make
+        // the sets in at least the level's share, so every trimmed level must keep its confidence, stay at or below the
+        // joint order and at or above N sets' own parts (the definition, checked on the result).
+        var recipe = RecipeLoader.Load("recipe: t\nform: matched\nmatch-ppm: 1500\npositions:\n  - { name: A, nominal: 10k }\n  - { name: B, nominal: 20k }\n  - { name: C, nominal: 20k }\n", "t.yaml");
+        var joint = new OrderEstimator().Estimate(recipe, new OrderOptions(4, StockDistribution.Normal(0.01), trials: 300, seed: 2));
+        var trimmed = new OrderEstimator().Estimate(recipe, new OrderOptions(4, StockDistribution.Normal(0.01), trials: 300, seed: 2, perNominal: true));
+        foreach (var (j, t) in joint.Levels.Zip(trimmed.Levels))
+        {
+            Assert.True(t.Trimmed);
+            Assert.True(t.Reached >= t.Confidence, $"trimmed order reached {t.Reached} at {t.Confidence}");
+            Assert.All(t.Lines.Zip(j.Lines), p => Assert.InRange(p.First.Quantity, 4 * p.First.PerSet, p.Second.Quantity));
+        }
+
+        Assert.True(trimmed.Levels.Sum(l => l.TotalParts) < joint.Levels.Sum(l => l.TotalParts), "the trim should save parts on this recipe");
+    }
+
+    [Fact]
     public void ZeroSets_IsRefused()
     {
         var e = Assert.Throws<OrderRefusedException>(() => new OrderOptions(0, StockDistribution.Normal(0.01)));
