@@ -38,6 +38,30 @@ internal static class OrderBenchmark
             }
         }
 
+        if (which != "quad")
+        {
+            var divider = await RecipeLoader.LoadFileAsync(Path.Combine(root, "recipes", "decade-divider.yaml"), ct).ConfigureAwait(false);
+            md.Add("");
+            md.Add("Variants on the decade divider (10 sets, normal ±1 %): per-nominal trim (`--per-nominal`), and the full search with a 0.05 s limit per assembler run (`--time-limit 0.05`, not repeatable; fewer trials).");
+            md.Add("");
+            md.Add("| variant | trials | parts at 90 / 95 / 99 % | per nominal at 95 % | mean smallest order (sets' worth) | time (s) |");
+            md.Add("|---|---:|---|---|---:|---:|");
+            md.Add(Variant("joint (default)", divider, new OrderOptions(10, StockDistribution.Normal(0.01), trials: 1000, seed: 1)));
+            md.Add(Variant("per-nominal trim", divider, new OrderOptions(10, StockDistribution.Normal(0.01), trials: 1000, seed: 1, perNominal: true)));
+            md.Add(Variant("joint, sweep only", divider, new OrderOptions(10, StockDistribution.Normal(0.01), trials: 100, seed: 1)));
+            md.Add(Variant("joint, full search 0.05 s", divider, new OrderOptions(10, StockDistribution.Normal(0.01), trials: 100, seed: 1,
+                assembly: new SortRig.Planning.Assembly.AssemblyOptions(timeLimit: TimeSpan.FromSeconds(0.05)))));
+            md.Add("");
+            md.Add("Reach (`reach`) on a seeded 1 000-part reel per recipe (normal ±1 %, 20 ppm, nominals in per-set proportion), for half the sets the recipe as written makes:");
+            md.Add("");
+            md.Add("| recipe | parts | sets as written | sets wanted | tightest scale (match ppm) | assembler runs | extra-part bands | time (s) |");
+            md.Add("|---|---:|---:|---:|---|---:|---:|---:|");
+            foreach (var f in Directory.GetFiles(Path.Combine(root, "recipes"), "*.yaml").Order(StringComparer.Ordinal))
+            {
+                md.Add(ReachRow(await RecipeLoader.LoadFileAsync(f, ct).ConfigureAwait(false)));
+            }
+        }
+
         md.Add("");
         md.Add("Each quad row is repeated three times to show the spread of the wall time on the shared machine; the figures (orders, reached) are identical by seed.");
         await File.WriteAllLinesAsync(Path.Combine(root, "docs", "bench-order.md"), md, ct).ConfigureAwait(false);
@@ -63,6 +87,49 @@ internal static class OrderBenchmark
         catch (OrderRefusedException x)
         {
             return $"| {recipe.Name} | {stock.Describe()} | {sets} | {trials} | refused: {x.Message} | - | - | - |";
+        }
+    }
+
+    private static string Variant(string name, Recipe recipe, OrderOptions options)
+    {
+        var e = new OrderEstimator().Estimate(recipe, options);
+        var parts = string.Join(" / ", e.Levels.Select(l => l.TotalParts.ToString(CultureInfo.InvariantCulture)));
+        var per = string.Join(", ", e.Levels[1].Lines.Select(l => FormattableString.Invariant($"{l.Nominal:0} Ω × {l.Quantity}")));
+        var row = FormattableString.Invariant($"| {name} | {e.Trials} | {parts} | {per} | {e.MeanSetEquivalents:0.0} | {e.Elapsed.TotalSeconds:0.0} |");
+        Console.WriteLine(row);
+        return row;
+    }
+
+    private static string ReachRow(Recipe recipe)
+    {
+        var classes = recipe.SinglePartDemand.OrderBy(kv => kv.Key).ToArray();
+        var perSet = classes.Sum(c => c.Value);
+        var rng = new MathNet.Numerics.Random.Xoshiro256StarStar(7, threadSafe: false);
+        var parts = new List<SortRig.Planning.Assembly.PartCandidate>();
+        var stock = StockDistribution.Normal(0.01);
+        foreach (var (nominal, count) in classes)
+        {
+            for (var i = 0; i < 1000 * count / perSet; i++)
+            {
+                var v = nominal * (1 + stock.Draw(rng));
+                parts.Add(new SortRig.Planning.Assembly.PartCandidate(parts.Count, nominal, new SortRig.Measurement.Uncertainty.MeasuredValue(v, v * 10e-6, v * 10e-6), null));
+            }
+        }
+
+        var started = TimeProvider.System.GetTimestamp();
+        var written = new SortRig.Planning.Assembly.SetAssembler(OrderOptions.FastAssembly).Assemble(recipe, parts).Sets.Count;
+        var wanted = Math.Max(1, written / 2);
+        try
+        {
+            var r = new SortRig.Planning.Reach.OnHandReach().Find(recipe, parts, wanted);
+            var scale = r.MatchPpm is { } m ? FormattableString.Invariant($"{r.Scale:0.###} ({m:0.#} ppm)") : FormattableString.Invariant($"{r.Scale:0.###}");
+            var row = FormattableString.Invariant($"| {recipe.Name} | {parts.Count} | {written} | {wanted} | {scale} | {r.Assemblies} | {r.ExtraParts.Count} | {TimeProvider.System.GetElapsedTime(started).TotalSeconds:0.0} |");
+            Console.WriteLine(row);
+            return row;
+        }
+        catch (OrderRefusedException x)
+        {
+            return $"| {recipe.Name} | {parts.Count} | {written} | {wanted} | refused: {x.Message} | - | - | - |";
         }
     }
 
