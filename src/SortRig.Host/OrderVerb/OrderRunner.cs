@@ -48,7 +48,11 @@ internal static class OrderRunner
                 console.MarkupLine(Markup.Escape($"curve written to {curveCsv}"));
             }
 
-            if (request.PlotPath is { } png)
+            if (request.PlotPath is { } noPlot && estimate.Curve.Count < 2)
+            {
+                console.MarkupLine(Markup.Escape($"no plot written to {noPlot}: --max-parts leaves room for one order size only"));
+            }
+            else if (request.PlotPath is { } png)
             {
                 var input = new OrderCurveInput(estimate.RecipeName, estimate.SetsWanted,
                     [.. estimate.Curve.Select(c => (double)c.PartsBought)], [.. estimate.Curve.Select(c => (double)c.Median)],

@@ -42,7 +42,7 @@ public sealed partial class OrderEstimator(TimeProvider? timeProvider = null)
         if (pilot < n)
         {
             var why = pilot == 0
-                ? "not one set: the recipe's specs lie outside what this stock reaches"
+                ? "not one set (the recipe's specs lie outside what this stock reaches, or the cap is too small)"
                 : FormattableString.Invariant($"only {pilot} set(s)");
             throw new OrderRefusedException(FormattableString.Invariant(
                 $"the stock ({options.Stock.Describe()}) cannot make {n} sets of '{recipe.Name}': {cap * perSet} parts (the max-parts cap) gave {why}; loosen the recipe, choose a tighter stock or raise max-parts"));
