@@ -32,6 +32,8 @@ internal static class Program
             LibraryCommand.Create(),
             DriftCommand.Create(),
             ReportCommand.Create(),
+            OrderCommand.Create(),
+            ReachCommand.Create(),
         };
         return root.Parse(args, new ParserConfiguration { ResponseFileTokenReplacer = null });
     }

@@ -49,6 +49,8 @@ public sealed class MissingDatabaseTests
     [InlineData("library", "labels", "--ids", "1,2")]
     [InlineData("plan", "--session", "bench", "--recipe", "recipes/matched-quad.yaml")]
     [InlineData("report", "--out", "rep")]
+    [InlineData("reach", "--recipe", "matched-quad", "--sets", "2")]
+    [InlineData("order", "--recipe", "matched-quad", "--sets", "2", "--from-session", "bench")]
     public async Task ReadingVerb_MisspeltDb_Exit2_NamesIt_CreatesNothing(params string[] verb)
     {
         var dir = Directory.CreateTempSubdirectory("sortrig-nodb-");
