@@ -62,6 +62,11 @@ internal static class SortInputCheck
                 return (null, $"{Name(nameof(SortOptions.Resource), flags)}: {e.Message}");
             }
 
+            if (TypedInputCheck.Problem(options, Name(nameof(SortOptions.Resource), flags)) is { } typedProblem)
+            {
+                return (null, typedProblem);
+            }
+
             if (section[nameof(SortOptions.Physics)] is not null)
             {
                 return (null, $"{Name(nameof(SortOptions.Physics), flags)}: applies to the simulator only; a real meter measures real parts");

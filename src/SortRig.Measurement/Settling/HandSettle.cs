@@ -60,7 +60,7 @@ public sealed class HandSettle
             if (gap < _options.MinGap)
             {
                 return new HandSettleVerdict(HandSettleState.TooSoon, Text(
-                    $"that was only {gap.TotalSeconds:0.0} s after the last entry, not counted: let go of the part, wait {_options.MinGap.TotalSeconds:0} s, read again"),
+                    $"that was only {gap.TotalSeconds:0.0} s after the last entry, not counted: let go of the part, wait {_options.MinGap.TotalSeconds:0.#} s, read again"),
                     _entries.Count);
             }
         }

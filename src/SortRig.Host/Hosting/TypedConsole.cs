@@ -1,0 +1,66 @@
+using SortRig.Engine.Composition;
+using SortRig.Engine.Sorting;
+using SortRig.Engine.Typed;
+using SortRig.Measurement.Settling;
+
+namespace SortRig.Host.Hosting;
+
+/// <summary>
+/// Prompt mode of the sort verb for a typed meter: each prompt is printed as a line starting with "? ", and each line
+/// the operator types goes to the typed sorting loop. The console is read on its own thread (Console.In blocks);
+/// the end of input ends the run, leaving the session resumable.
+/// </summary>
+internal static class TypedConsole
+{
+    /// <summary>Runs one typed session on <paramref name="input"/> and <paramref name="output"/>.</summary>
+    public static async Task<SortOutcome> RunAsync(
+        SortOptions sort, SortServices services, TypedEntries entries, TextReader input, TextWriter output, CancellationToken ct)
+    {
+        var gate = new Lock();
+        void Print(string prompt)
+        {
+            lock (gate)
+            {
+                output.WriteLine("? " + prompt);
+                output.Flush();
+            }
+        }
+
+        entries.Prompted += Print;
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
+        var pump = Task.Run(() => PumpAsync(input, entries, stop.Token), CancellationToken.None);
+        try
+        {
+            return await TypedRunner.RunAsync(sort, services, entries, new HandSettleOptions { Agreeing = sort.Agree, MinGap = TimeSpan.FromSeconds(sort.Gap) }, ct).ConfigureAwait(false);
+        }
+        finally
+        {
+            entries.Prompted -= Print;
+            await stop.CancelAsync().ConfigureAwait(false);
+            // The reading thread may stay blocked in ReadLine; it is abandoned, never awaited.
+            _ = pump;
+        }
+    }
+
+    private static async Task PumpAsync(TextReader input, TypedEntries entries, CancellationToken ct)
+    {
+        try
+        {
+            while (!ct.IsCancellationRequested)
+            {
+                var line = await Task.Run(input.ReadLine, CancellationToken.None).WaitAsync(ct).ConfigureAwait(false);
+                if (line is null)
+                {
+                    entries.Complete();
+                    return;
+                }
+
+                await entries.PostAsync(line, ct).ConfigureAwait(false);
+            }
+        }
+        catch (OperationCanceledException) when (ct.IsCancellationRequested)
+        {
+            // The session ended; nothing more to read.
+        }
+    }
+}
