@@ -144,7 +144,7 @@ public sealed partial class TypedSortEndToEndTests
         foreach (var p in parts)
         {
             var typed = s_reel[p.Number - 1];
-            Assert.Equal(PartState.Accepted, p.State);
+            Assert.Equal(PartState.Announced, p.State);
             Assert.True(p.Announced);
             Assert.Equal(typed, p.Value, 9);
             Assert.Equal(50_000, p.Range);
