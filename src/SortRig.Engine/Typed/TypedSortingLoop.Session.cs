@@ -30,6 +30,10 @@ internal sealed partial class TypedSortingLoop
             _ctx.Snapshot.Upsert(ToView(p));
         }
 
+        // The page knows the session at once; the range follows once the operator has set it.
+        _ctx.Snapshot.SetSession(new SessionView(
+            _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
+            MeterIdentity, "range not set yet", TypedNplc, Options.Parts, false, false));
         PublishCounts();
         if (state.Resumed)
         {
@@ -107,7 +111,7 @@ internal sealed partial class TypedSortingLoop
     {
         var setup = new BatchSetup(
             Options.Nominal, Options.StockTolerance * 1e6, Options.MatchTolerance * 1e6, _range.FullScale, TypedNplc,
-            Options.FourWire, _ctx.Meter.Family, $"typed by hand ({_ctx.Meter.Family})");
+            Options.FourWire, _ctx.Meter.Family, MeterIdentity);
         if (_batch is not { } b || b.Setup.Nominal != setup.Nominal || b.Setup.Range != setup.Range
             || b.Setup.MatchTolerancePpm != setup.MatchTolerancePpm || b.Setup.StockTolerancePpm != setup.StockTolerancePpm
             || b.Setup.MeterFamily != setup.MeterFamily)
@@ -119,6 +123,8 @@ internal sealed partial class TypedSortingLoop
             _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
             setup.MeterIdentity, _range.Name, TypedNplc, Options.Parts, false, false));
     }
+
+    private string MeterIdentity => $"typed by hand ({_ctx.Meter.Family})";
 
     private Task SayAsync(string text, CancellationToken ct) =>
         _ctx.Announcer.AnnounceAsync(Announcement.Info(text), ct).AsTask();

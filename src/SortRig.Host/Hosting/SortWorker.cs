@@ -1,4 +1,5 @@
 using System.Globalization;
+using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
@@ -26,6 +27,7 @@ internal sealed class SortWorker(
     BenchSnapshot snapshot,
     OperatorCommands commands,
     TypedEntries typedEntries,
+    IConfiguration configuration,
     ILoggerFactory loggers,
     IHostApplicationLifetime lifetime) : BackgroundService
 {
@@ -55,7 +57,7 @@ internal sealed class SortWorker(
         try
         {
             var outcome = typed
-                ? await TypedConsole.RunAsync(sort, services, typedEntries, Console.In, Console.Out, stoppingToken).ConfigureAwait(false)
+                ? await TypedConsole.RunAsync(sort, services, typedEntries, Console.In, Console.Out, endWithInput: !configuration.GetValue<bool>("Web:Enabled"), stoppingToken).ConfigureAwait(false)
                 : await SortRunner.RunAsync(sort, services, null, stoppingToken).ConfigureAwait(false);
             await viewStop.CancelAsync().ConfigureAwait(false);
             await view.ConfigureAwait(false);

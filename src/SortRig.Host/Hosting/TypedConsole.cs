@@ -13,8 +13,15 @@ namespace SortRig.Host.Hosting;
 internal static class TypedConsole
 {
     /// <summary>Runs one typed session on <paramref name="input"/> and <paramref name="output"/>.</summary>
+    /// <param name="sort">Session settings with a TYPED resource.</param>
+    /// <param name="services">Shared services.</param>
+    /// <param name="entries">Where typed lines go (the bench page posts here too).</param>
+    /// <param name="input">The console's input.</param>
+    /// <param name="output">Where prompts are printed.</param>
+    /// <param name="endWithInput">End the run at the end of input; false when the bench page can still type.</param>
+    /// <param name="ct">Stops the session; it stays resumable.</param>
     public static async Task<SortOutcome> RunAsync(
-        SortOptions sort, SortServices services, TypedEntries entries, TextReader input, TextWriter output, CancellationToken ct)
+        SortOptions sort, SortServices services, TypedEntries entries, TextReader input, TextWriter output, bool endWithInput, CancellationToken ct)
     {
         var gate = new Lock();
         void Print(string prompt)
@@ -28,7 +35,7 @@ internal static class TypedConsole
 
         entries.Prompted += Print;
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
-        var pump = Task.Run(() => PumpAsync(input, entries, stop.Token), CancellationToken.None);
+        var pump = Task.Run(() => PumpAsync(input, entries, endWithInput, stop.Token), CancellationToken.None);
         try
         {
             return await TypedRunner.RunAsync(sort, services, entries, new HandSettleOptions { Agreeing = sort.Agree, MinGap = TimeSpan.FromSeconds(sort.Gap) }, ct).ConfigureAwait(false);
@@ -42,7 +49,7 @@ internal static class TypedConsole
         }
     }
 
-    private static async Task PumpAsync(TextReader input, TypedEntries entries, CancellationToken ct)
+    private static async Task PumpAsync(TextReader input, TypedEntries entries, bool endWithInput, CancellationToken ct)
     {
         try
         {
@@ -51,7 +58,11 @@ internal static class TypedConsole
                 var line = await Task.Run(input.ReadLine, CancellationToken.None).WaitAsync(ct).ConfigureAwait(false);
                 if (line is null)
                 {
-                    entries.Complete();
+                    if (endWithInput)
+                    {
+                        entries.Complete();
+                    }
+
                     return;
                 }
 
