@@ -1,6 +1,7 @@
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.Http;
 using Microsoft.AspNetCore.Routing;
+using Microsoft.Extensions.DependencyInjection;
 using SortRig.Engine.Typed;
 
 namespace SortRig.Host.Web;
@@ -17,11 +18,14 @@ internal static class TypedEndpoints
 
     public static void Map(RouteGroupBuilder api)
     {
-        api.MapGet("/typed", (TypedEntries entries) =>
-            Results.Json(new TypedPrompt(entries.CurrentPrompt.Length > 0, entries.CurrentPrompt), WebEndpoints.Json));
-        api.MapPost("/typed", async (TypedLine body, TypedEntries entries, CancellationToken ct) =>
+        // Resolved per request: a host without a typed meter (drift, tests' harnesses) has no TypedEntries at all.
+        api.MapGet("/typed", (HttpContext http) =>
+            http.RequestServices.GetService<TypedEntries>() is { CurrentPrompt.Length: > 0 } entries
+                ? Results.Json(new TypedPrompt(true, entries.CurrentPrompt), WebEndpoints.Json)
+                : Results.Json(new TypedPrompt(false, ""), WebEndpoints.Json));
+        api.MapPost("/typed", async (TypedLine body, HttpContext http, CancellationToken ct) =>
         {
-            if (entries.CurrentPrompt.Length == 0)
+            if (http.RequestServices.GetService<TypedEntries>() is not { CurrentPrompt.Length: > 0 } entries)
             {
                 return Results.Json(new { error = "this session has no typed meter" }, WebEndpoints.Json, statusCode: StatusCodes.Status404NotFound);
             }
