@@ -37,6 +37,7 @@ internal sealed partial class TypedSortingLoop
         }
 
         _partsRecorded++;
+        _lastLive = stored;
         var kind = decision.IsReject ? AnnouncementKind.Reject : AnnouncementKind.Cup;
         await AnnounceStoredAsync(stored, kind, decision.CompletesSet, ct).ConfigureAwait(false);
         PublishCounts();

@@ -21,6 +21,7 @@ internal sealed partial class TypedSortingLoop
         _batch = state.CurrentBatch;
         var parts = await _ctx.Log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
         _partsRecorded = parts.Count;
+        _lastLive = parts.Where(p => p.IsLive).OrderBy(p => p.Number).LastOrDefault();
         _ctx.Cups.Restore(parts
             .Where(p => p.IsLive && (p.CupLabel ?? p.SlotLabel) is not null)
             .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), (p.CupLabel ?? p.SlotLabel)!))

@@ -63,13 +63,19 @@ internal sealed partial class TypedSortingLoop(TypedContext context)
     }
 
     private string PartPrompt() =>
-        $"part {_partsRecorded + 1}: type the display ({_range.UnitName} on the {_range.Name} range), or 'finish'";
+        $"part {_partsRecorded + 1}: type the display ({_range.UnitName} on the {_range.Name} range), or 'undo', 'again', 'finish'";
 
     private async Task OnLineAsync(string line, CancellationToken ct)
     {
         if (line.Equals("finish", StringComparison.OrdinalIgnoreCase))
         {
             _finishRequested = true;
+            return;
+        }
+
+        if (line.Equals("undo", StringComparison.OrdinalIgnoreCase))
+        {
+            await UndoLastAsync(ct).ConfigureAwait(false);
             return;
         }
 
