@@ -29,8 +29,9 @@ public sealed partial class TypedSortEndToEndTests
         var dir = Directory.CreateTempSubdirectory("sortrig-typed-");
         try
         {
-            string[] args = ["sort", "--db", "typed.db", "--session", "typed-reel", "--parts", "20", "--gap", "0.3", "--no-speech"];
-            var env = new Dictionary<string, string> { ["SORTRIG_Sort__Resource"] = "TYPED::handheld-typed" };
+            string[] args = ["sort", "--resource", "TYPED::handheld-typed", "--db", "typed.db", "--session", "typed-reel", "--parts", "20", "--gap", "0.3", "--no-speech"];
+            var env = new Dictionary<string, string>();
+            string[] resume;
             var seen = new List<string>();
 
             await using (var first = PtyHost.Start(dir.FullName, args, env))
@@ -49,11 +50,14 @@ public sealed partial class TypedSortEndToEndTests
                 await first.WaitForAsync(l => l.StartsWith("? part 9:", StringComparison.Ordinal), at, s_wait);
                 await first.CtrlCAsync();
                 Assert.Equal(130, await first.WaitForExitAsync(s_wait));
-                Assert.Contains(first.Lines, l => l.StartsWith("to go on: sortrig sort", StringComparison.Ordinal));
+                var hint = Assert.Single(first.Lines, l => l.StartsWith("to go on: sortrig sort", StringComparison.Ordinal));
+                Assert.Contains("--resource TYPED::handheld-typed", hint, StringComparison.Ordinal);
+                resume = hint["to go on: sortrig ".Length..].Split(' ', StringSplitOptions.RemoveEmptyEntries);
                 seen.AddRange(first.Lines);
             }
 
-            await using (var second = PtyHost.Start(dir.FullName, args, env))
+            // Carry on with the command the first run printed, as the operator would.
+            await using (var second = PtyHost.Start(dir.FullName, resume, env))
             {
                 var at = await second.WaitForAsync(l => l.StartsWith("? range set on the meter", StringComparison.Ordinal), 0, s_wait);
                 Assert.Contains(second.Lines, l => l.Contains("resuming session 'typed-reel' at part 9", StringComparison.Ordinal));
