@@ -1,4 +1,5 @@
 using SortRig.Engine.Composition;
+using SortRig.Engine.Operator;
 using SortRig.Engine.Sorting;
 using SortRig.Engine.Typed;
 using SortRig.Measurement.Settling;
@@ -36,6 +37,7 @@ internal static class TypedConsole
         entries.Prompted += Print;
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
         var pump = Task.Run(() => PumpAsync(input, entries, endWithInput, stop.Token), CancellationToken.None);
+        var forward = Task.Run(() => ForwardCommandsAsync(services.Commands, entries, stop.Token), CancellationToken.None);
         try
         {
             return await TypedRunner.RunAsync(sort, services, entries, new HandSettleOptions { Agreeing = sort.Agree, MinGap = TimeSpan.FromSeconds(sort.Gap) }, ct).ConfigureAwait(false);
@@ -46,6 +48,33 @@ internal static class TypedConsole
             await stop.CancelAsync().ConfigureAwait(false);
             // The reading thread may stay blocked in ReadLine; it is abandoned, never awaited.
             _ = pump;
+            await forward.ConfigureAwait(false);
+        }
+    }
+
+    // The page's buttons (and keys) post operator commands; on a typed meter they become the typed words.
+    private static async Task ForwardCommandsAsync(OperatorCommands commands, TypedEntries entries, CancellationToken ct)
+    {
+        try
+        {
+            while (!ct.IsCancellationRequested)
+            {
+                var line = await commands.TakeAsync(ct).ConfigureAwait(false) switch
+                {
+                    OperatorCommand.UndoLast => "undo",
+                    OperatorCommand.Remeasure => "again",
+                    OperatorCommand.Finish => "finish",
+                    _ => null, // pause: nothing runs between entries, so there is nothing to pause
+                };
+                if (line is not null)
+                {
+                    await entries.PostAsync(line, ct).ConfigureAwait(false);
+                }
+            }
+        }
+        catch (OperationCanceledException) when (ct.IsCancellationRequested)
+        {
+            // The session ended.
         }
     }
 

@@ -8,7 +8,7 @@ namespace SortRig.Host.Tests.Typed;
 /// <summary>
 /// The bench page's entry field for a meter with no link, in real headless Chromium: the sort verb in-process with
 /// TYPED::handheld-typed and the page on; the range confirmed, a typo refused and two agreeing values typed on the
-/// page; the cup the page shows is the one the precision log stores.
+/// page; the cup the page shows is the one the precision log stores; the page's undo button undoes it.
 /// </summary>
 [Collection(WebSortCollection.Name)]
 public sealed class TypedPageBrowserTests(ITestOutputHelper output)
@@ -41,6 +41,10 @@ public sealed class TypedPageBrowserTests(ITestOutputHelper output)
         await PromptAsync(browser, "part 2: type the display");
         PageProbe.Save(browser, "typed-page.png", output);
         var log = PageProbe.ReadLog(browser);
+
+        // The page's undo button reaches the typed loop too: part 1 came out of its cup.
+        browser.FindElement(By.Id("undo")).Click();
+        await PageProbe.PollAsync(() => browser.FindElement(By.Id("notices")).Text, t => t.Contains("part 1 undone: take it out of " + cup, StringComparison.Ordinal), s_wait, "the undo notice");
         var errors = browser.Manage().Logs.GetLog(LogType.Browser).Where(e => e.Level >= LogLevel.Severe).Select(e => e.Message).ToList();
         using var http = new HttpClient();
         var session = System.Text.Json.JsonDocument.Parse(await http.GetStringAsync(run.BaseUrl + "/api/session")).RootElement.GetProperty("sessionId").GetInt64();
@@ -51,6 +55,7 @@ public sealed class TypedPageBrowserTests(ITestOutputHelper output)
         Assert.Empty(errors);
         var stored = Assert.Single(await run.StoredPartsAsync(session));
         Assert.Equal(10_003, stored.Value, 9);
+        Assert.Equal(SortRig.Storage.Contracts.PartState.Undone, stored.State);
         Assert.Equal(stored.CupLabel, cup);
         Assert.Equal(1, Assert.Single(log).Part);
     }
