@@ -6,12 +6,19 @@ const typed = { prompt: "", busy: false };
 async function pollTyped() {
   const t = await getJson("/api/typed");
   const form = $("typed");
-  if (!t || !t.active) { form.hidden = true; return; }
+  if (!t || !t.active) { form.hidden = true; return false; }
   form.hidden = false;
   if (t.prompt !== typed.prompt) {
     typed.prompt = t.prompt;
     $("typedprompt").textContent = t.prompt;
   }
+  return true;
+}
+
+// Quick while a typed meter asks for lines; slow otherwise (a linked meter's page never shows the field).
+async function typedLoop() {
+  const active = await pollTyped();
+  setTimeout(typedLoop, active ? 400 : 3000);
 }
 
 $("entry").addEventListener("keydown", (k) => k.stopPropagation()); // digits and letters here are not the single-key actions
@@ -33,5 +40,4 @@ $("typed").addEventListener("submit", async (e) => {
   }
 });
 
-pollTyped();
-setInterval(pollTyped, 400);
+typedLoop();
