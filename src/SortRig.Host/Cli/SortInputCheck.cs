@@ -51,6 +51,14 @@ internal static class SortInputCheck
             return (null, badName);
         }
 
+        foreach (var typedOnly in (string[])[nameof(SortOptions.Agree), nameof(SortOptions.Gap)])
+        {
+            if (section[typedOnly] is not null && !ResourceStringParser.IsTyped(options.Resource))
+            {
+                return (null, $"{Name(typedOnly, flags)}: applies to a typed meter (--resource TYPED::profile) only");
+            }
+        }
+
         if (!string.IsNullOrWhiteSpace(options.Resource))
         {
             try

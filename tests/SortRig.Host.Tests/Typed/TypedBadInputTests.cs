@@ -28,4 +28,25 @@ public sealed class TypedBadInputTests
             dir.Delete(recursive: true);
         }
     }
+
+    [Theory]
+    [InlineData("--agree", "3")]
+    [InlineData("--gap", "1")]
+    public async Task Sort_TypedOnlyFlag_WithoutTypedMeter_OneLine_Exit2(string flag, string value)
+    {
+        var dir = Directory.CreateTempSubdirectory("sortrig-typed-bad-");
+        try
+        {
+            var run = await HostProcess.RunAsync(dir.FullName, ["sort", flag, value, "--plain", "--no-speech"], null, null, null, TimeSpan.FromSeconds(60));
+
+            Assert.Equal(2, run.ExitCode);
+            var line = Assert.Single(run.Log.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries));
+            Assert.Equal($"error: {flag}: applies to a typed meter (--resource TYPED::profile) only", line);
+            Assert.Empty(dir.GetFileSystemInfos());
+        }
+        finally
+        {
+            dir.Delete(recursive: true);
+        }
+    }
 }
