@@ -97,6 +97,17 @@ public sealed class SortOptions
     [Range(0, 1_000_000)]
     public int Parts { get; set; }
 
+    /// <summary>
+    /// Typed meter only (resource TYPED::profile): entries in a row, a few seconds apart, that must agree within one
+    /// digit before a part is accepted. Default 2; 2..10. See docs/instruments.md, "Typed readings".
+    /// </summary>
+    [Range(2, 10)]
+    public int Agree { get; set; } = 2;
+
+    /// <summary>Typed meter only: least time between two counted entries, in seconds (let go, wait, read again). Default 3; 0..60.</summary>
+    [Range(0, 60)]
+    public double Gap { get; set; } = 3;
+
     /// <summary>Simulator only: random seed of the demo reel. Default 2026.</summary>
     public int Seed { get; set; } = 2026;
 

@@ -6,9 +6,11 @@ using Microsoft.Extensions.Hosting;
 using SortRig.Engine.Events;
 using SortRig.Engine.Operator;
 using SortRig.Engine.Sorting;
+using SortRig.Engine.Typed;
 using SortRig.Host.Hosting;
 using SortRig.Host.Operator;
 using SortRig.Host.Web;
+using SortRig.Instruments.Resources;
 using SortRig.Simulator;
 
 namespace SortRig.Host.Cli;
@@ -35,6 +37,8 @@ internal static class SortCommand
         map.Add(command, new Option<bool>("--reopen") { Description = "Carry on the latest session of this name even if finished (another batch of the same job; --parts counts the whole session)" }, "Sort:Reopen");
         map.Add(command, new Option<bool>("--four-wire") { Description = "Measure 4-wire" }, "Sort:FourWire");
         map.Add(command, new Option<int>("--parts") { Description = "Stop after this many parts; on the simulator the demo reel's length (default 60)" }, "Sort:Parts");
+        map.Add(command, new Option<int>("--agree") { Description = "Typed meter (TYPED::profile): entries in a row, a few seconds apart, that must agree within one digit (default 2)" }, "Sort:Agree");
+        map.Add(command, new Option<double>("--gap") { Description = "Typed meter: least seconds between two counted entries (default 3)" }, "Sort:Gap");
         map.Add(command, new Option<int>("--seed") { Description = "Simulator: seed of the demo reel (default 2026)" }, "Sort:Seed");
         map.Add(command, new Option<string>("--physics") { Description = "Simulator: bench physics of the demo reel, simple (default) or rich (two cooling paths, self-heating, excess and popcorn noise)" }, "Sort:Physics");
         map.Add(command, new Option<double>("--speed") { Description = "Simulator: run virtual time this many times faster (default 1)" }, "Sort:Speed");
@@ -83,7 +87,12 @@ internal static class SortCommand
         builder.Services.AddSingleton<OperatorCommands>();
         builder.Services.AddSingleton<SortWorker>();
         builder.Services.AddHostedService(sp => sp.GetRequiredService<SortWorker>());
-        builder.Services.AddHostedService(sp => new KeyboardInput(sp.GetRequiredService<OperatorCommands>(), TimeProvider.System));
+        builder.Services.AddSingleton<TypedEntries>();
+        if (!ResourceStringParser.IsTyped(sort.Resource))
+        {
+            // A typed meter reads whole lines from the console (TypedConsole); single keys would steal them.
+            builder.Services.AddHostedService(sp => new KeyboardInput(sp.GetRequiredService<OperatorCommands>(), TimeProvider.System));
+        }
 
         var host = HostSetup.Build(builder);
 

@@ -65,6 +65,14 @@ internal static class SortInputCheck
             return (null, badName);
         }
 
+        foreach (var typedOnly in (string[])[nameof(SortOptions.Agree), nameof(SortOptions.Gap)])
+        {
+            if (section[typedOnly] is not null && !ResourceStringParser.IsTyped(options.Resource))
+            {
+                return (null, $"{Name(typedOnly, flags)}: applies to a typed meter (--resource TYPED::profile) only");
+            }
+        }
+
         if (!string.IsNullOrWhiteSpace(options.Resource))
         {
             try
@@ -74,6 +82,11 @@ internal static class SortInputCheck
             catch (ResourceStringException e)
             {
                 return (null, $"{Name(nameof(SortOptions.Resource), flags)}: {e.Message}");
+            }
+
+            if (TypedInputCheck.Problem(options, Name(nameof(SortOptions.Resource), flags)) is { } typedProblem)
+            {
+                return (null, typedProblem);
             }
 
             if (section[nameof(SortOptions.Physics)] is not null)

@@ -1,4 +1,5 @@
 using System.Globalization;
+using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
@@ -8,9 +9,11 @@ using SortRig.Engine.Composition;
 using SortRig.Engine.Events;
 using SortRig.Engine.Operator;
 using SortRig.Engine.Sorting;
+using SortRig.Engine.Typed;
 using SortRig.Host.Live;
 using SortRig.Host.Operator;
 using SortRig.Instruments.Drivers;
+using SortRig.Instruments.Resources;
 
 namespace SortRig.Host.Hosting;
 
@@ -24,6 +27,8 @@ internal sealed class SortWorker(
     BenchEventHub hub,
     BenchSnapshot snapshot,
     OperatorCommands commands,
+    TypedEntries typedEntries,
+    IConfiguration configuration,
     ILoggerFactory loggers,
     IHostApplicationLifetime lifetime) : BackgroundService
 {
@@ -33,7 +38,9 @@ internal sealed class SortWorker(
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
         var sort = options.Value;
-        var live = sort.Live ?? (!Console.IsOutputRedirected && AnsiConsole.Profile.Capabilities.Interactive);
+        var typed = ResourceStringParser.IsTyped(sort.Resource);
+        // A typed meter runs in prompt mode: plain lines and a prompt, no live view redrawing under the typing.
+        var live = !typed && (sort.Live ?? (!Console.IsOutputRedirected && AnsiConsole.Profile.Capabilities.Interactive));
         var announcers = new List<IAnnouncer>();
         if (!live)
         {
@@ -50,7 +57,9 @@ internal sealed class SortWorker(
         var view = live ? LiveView.RunAsync(AnsiConsole.Console, hub, sort.Parts, viewStop.Token) : Task.CompletedTask;
         try
         {
-            var outcome = await SortRunner.RunAsync(sort, services, null, stoppingToken).ConfigureAwait(false);
+            var outcome = typed
+                ? await TypedConsole.RunAsync(sort, services, typedEntries, Console.In, Console.Out, endWithInput: !configuration.GetValue<bool>("Web:Enabled"), stoppingToken).ConfigureAwait(false)
+                : await SortRunner.RunAsync(sort, services, null, stoppingToken).ConfigureAwait(false);
             await viewStop.CancelAsync().ConfigureAwait(false);
             await view.ConfigureAwait(false);
             SortSummary.Write(AnsiConsole.Console, outcome, snapshot);

@@ -33,6 +33,7 @@ internal static class WebEndpoints
         api.MapGet("/cups", (BenchSnapshot s) => Results.Json(s.Counts, Json));
         api.MapGet("/events/recent", (BenchEventHub hub) => Results.Json(hub.History(), Json));
         api.MapGet("/events", EventStream.StreamAsync);
+        TypedEndpoints.Map(api);
 
         // The only write: one of four fixed actions, queued for the sorting loop. Nothing from the
         // request is passed on: the route value selects an enum member or the request is refused.

@@ -20,6 +20,9 @@ public enum TransportKind
 
     /// <summary>VISA USB::vid::pid::serial::INSTR: parsed, but open it as USBTMC::/dev/usbtmcN::INSTR.</summary>
     UsbInstr = 5,
+
+    /// <summary>No link: the operator types the display of a hand-held meter (our TYPED::profile::INSTR form).</summary>
+    Typed = 6,
 }
 
 /// <summary>A parsed instrument address; <see cref="Text"/> is the string as the user gave it.</summary>

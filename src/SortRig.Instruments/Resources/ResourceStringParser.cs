@@ -6,13 +6,13 @@ namespace SortRig.Instruments.Resources;
 /// <summary>
 /// Parses VISA resource strings (IVI VPP-4.3 address grammar, keywords case-insensitive) and our
 /// extensions: ASRL::/dev/path::INSTR, USBTMC::/dev/usbtmcN::INSTR, SIM::name::INSTR,
-/// TCPIP::host::SOCKET (port 5025) and "?baud=..&amp;.." serial options. See docs/instruments.md.
+/// TCPIP::host::SOCKET (port 5025), TYPED::profile::INSTR (values typed by the operator) and "?baud=..&amp;.." serial options. See docs/instruments.md.
 /// </summary>
 public static partial class ResourceStringParser
 {
     private static readonly string[] s_usbFields = ["vendor id", "product id", "serial number"];
 
-    private const string InterfaceKeywords = "TCPIP[n], ASRL[n], USB[n], USBTMC or SIM";
+    private const string InterfaceKeywords = "TCPIP[n], ASRL[n], USB[n], USBTMC, SIM or TYPED";
 
     /// <summary>Parses <paramref name="text"/> (surrounding white space ignored).</summary>
     /// <exception cref="ResourceStringException">The string is malformed; names the part and what was expected.</exception>
@@ -55,6 +55,7 @@ public static partial class ResourceStringParser
             "ASRL" => ParseSerial(parts, board, body),
             "USB" => ParseUsb(parts, board ?? 0, body),
             "USBTMC" => new UsbTmcResource(parts.Text, DevicePath(parts, NoBoard(parts, board, keyword), body)),
+            "TYPED" => new TypedResource(parts.Text, TypedProfileName(parts, NoBoard(parts, board, keyword), body)),
             _ => new SimulatorResource(parts.Text, SimulatorName(parts, NoBoard(parts, board, keyword), body)),
         };
     }
@@ -62,7 +63,7 @@ public static partial class ResourceStringParser
     private static bool IsClass(string part) =>
         part.Equals("INSTR", StringComparison.OrdinalIgnoreCase) || part.Equals("SOCKET", StringComparison.OrdinalIgnoreCase);
 
-    [GeneratedRegex("^(TCPIP|ASRL|USBTMC|USB|SIM)([0-9]*)$", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
+    [GeneratedRegex("^(TCPIP|ASRL|USBTMC|USB|SIM|TYPED)([0-9]*)$", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
     private static partial Regex InterfacePattern();
 
     [GeneratedRegex("^[A-Za-z0-9](?:[A-Za-z0-9._-]*[A-Za-z0-9])?$", RegexOptions.CultureInvariant)]

@@ -35,7 +35,7 @@ internal sealed class WebHarness : IAsyncDisposable
 
     public HttpClient Http { get; }
 
-    public static async Task<WebHarness> StartAsync(string? token = null, TimeProvider? time = null)
+    public static async Task<WebHarness> StartAsync(string? token = null, TimeProvider? time = null, SortRig.Engine.Typed.TypedEntries? typed = null)
     {
         time ??= TimeProvider.System;
         var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = AppContext.BaseDirectory });
@@ -51,6 +51,11 @@ internal sealed class WebHarness : IAsyncDisposable
         builder.Services.AddSingleton(hub);
         builder.Services.AddSingleton(new BenchSnapshot());
         builder.Services.AddSingleton(commands);
+        if (typed is not null)
+        {
+            builder.Services.AddSingleton(typed);
+        }
+
         var options = WebSetup.Configure(builder);
         var app = builder.Build();
         WebSetup.Use(app, options);
