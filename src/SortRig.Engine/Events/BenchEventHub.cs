@@ -1,18 +1,17 @@
-using System.Threading.Channels;
-
 namespace SortRig.Engine.Events;
 
 /// <summary>
 /// Fan-out of bench events to any number of subscribers (console view, web page streams).
-/// Each subscriber has its own bounded queue; a slow subscriber loses its oldest live readings,
-/// never the producer's time. The last events are kept so a late subscriber can catch up.
+/// Each subscriber has its own queue (<see cref="SubscriberQueue"/>); a slow subscriber loses its oldest
+/// live readings, never an announcement and never the producer's time. The last events are kept so a late
+/// subscriber can catch up.
 /// </summary>
 public sealed class BenchEventHub
 {
     private const int SubscriberCapacity = 4096;
     private const int HistoryCapacity = 512;
     private readonly Lock _gate = new();
-    private readonly List<Channel<BenchEvent>> _subscribers = [];
+    private readonly List<SubscriberQueue> _subscribers = [];
     private readonly Queue<BenchEvent> _history = new();
     private readonly TimeProvider _time;
     private long _sequence;
@@ -33,7 +32,7 @@ public sealed class BenchEventHub
 
             foreach (var subscriber in _subscribers)
             {
-                subscriber.Writer.TryWrite(stamped);
+                subscriber.Write(stamped);
             }
 
             return stamped;
@@ -54,36 +53,32 @@ public sealed class BenchEventHub
         bool includeHistory,
         [System.Runtime.CompilerServices.EnumeratorCancellation] CancellationToken cancellationToken)
     {
-        var channel = Channel.CreateBounded<BenchEvent>(new BoundedChannelOptions(SubscriberCapacity)
-        {
-            FullMode = BoundedChannelFullMode.DropOldest,
-            SingleReader = true,
-        });
+        var queue = new SubscriberQueue(SubscriberCapacity);
         lock (_gate)
         {
             if (includeHistory)
             {
                 foreach (var e in _history)
                 {
-                    channel.Writer.TryWrite(e);
+                    queue.Write(e);
                 }
             }
 
-            _subscribers.Add(channel);
+            _subscribers.Add(queue);
         }
 
         try
         {
-            await foreach (var e in channel.Reader.ReadAllAsync(cancellationToken).ConfigureAwait(false))
+            while (true)
             {
-                yield return e;
+                yield return await queue.ReadAsync(cancellationToken).ConfigureAwait(false);
             }
         }
         finally
         {
             lock (_gate)
             {
-                _subscribers.Remove(channel);
+                _subscribers.Remove(queue);
             }
         }
     }
