@@ -14,8 +14,9 @@ public static class ReelHistogramPlot
         ArgumentNullException.ThrowIfNull(input);
         Validate(input);
         double[] ppm = input.ValuesOhms.Select(v => ((v / input.NominalOhms) - 1.0) * 1e6).ToArray();
-        double width = input.BinWidthPpm ?? NiceBinWidth(ppm);
-        double start = Math.Floor(ppm.Min() / width) * width;
+        double width = input.BinWidthPpm ?? CupBinWidth(input.CupEdgesPpm) ?? NiceBinWidth(ppm);
+        double origin = input.BinWidthPpm is null && CupBinWidth(input.CupEdgesPpm) is not null ? input.CupEdgesPpm.Min() : 0;
+        double start = origin + (Math.Floor((ppm.Min() - origin) / width) * width);
         int bins = Math.Max(1, (int)Math.Floor((ppm.Max() - start) / width) + 1);
         var histogram = Histogram.WithBinCount(bins, start, start + (bins * width));
         histogram.AddRange(ppm);
@@ -48,7 +49,27 @@ public static class ReelHistogramPlot
         return PlotLook.Finish(plot, size, data);
     }
 
-    /// <summary>1-2-5 series width giving about sqrt(n) bins, clamped to 8..50 bins.</summary>
+    /// <summary>
+    /// Evenly spaced cup edges: one bar per cup width, lined up with the edges, so each bar is what a cup holds.
+    /// Null without at least two edges or when they are not evenly spaced (adaptive cups).
+    /// </summary>
+    internal static double? CupBinWidth(IReadOnlyList<double> edges)
+    {
+        if (edges.Count < 2)
+        {
+            return null;
+        }
+
+        double[] sorted = [.. edges.Order()];
+        double[] gaps = [.. sorted.Zip(sorted.Skip(1), (a, b) => b - a)];
+        double spacing = gaps.Average();
+        return spacing > 0 && gaps.All(g => Math.Abs(g - spacing) <= 1e-6 * spacing) ? spacing : null;
+    }
+
+    /// <summary>
+    /// The 1-2-5 series width nearest (in ratio) to the one giving about sqrt(n) bins, clamped to 8..50 bins
+    /// (common practice, no source): never more than a factor 1.6 from the target count.
+    /// </summary>
     internal static double NiceBinWidth(double[] ppm)
     {
         double span = ppm.Max() - ppm.Min();
@@ -61,7 +82,7 @@ public static class ReelHistogramPlot
         double raw = span / target;
         double decade = Math.Pow(10, Math.Floor(Math.Log10(raw)));
         double[] steps = [1, 2, 5, 10];
-        return steps.Select(s => s * decade).First(w => w >= raw * 0.999);
+        return steps.Select(s => s * decade).MinBy(w => Math.Abs(Math.Log(w / raw)));
     }
 
     private static void Validate(ReelHistogramInput input)

@@ -36,7 +36,35 @@ public sealed class ReelHistogramPlotTests
         Assert.Equal([-2000.0, 0, 2000], plot.Data.CupEdgesPpm);
         Assert.Equal(400, plot.Data.Counts.Sum());
         Assert.Equal(plot.Data.Counts.Length + 1, plot.Data.BinEdgesPpm.Length);
-        Assert.InRange(plot.Data.Counts.Length, 8, 50);
+        // Evenly spaced cups: one bar per cup width, on the cup edges.
+        Assert.All(plot.Data.BinEdgesPpm, e => Assert.Equal(0, Math.IEEERemainder(e, 2000), 6));
+        Assert.Equal(2000, plot.Data.BinEdgesPpm[1] - plot.Data.BinEdgesPpm[0], 6);
+    }
+
+    [Fact]
+    public void Render_CupsEvery1000Ppm_OneBarPerCup_CountsAsAnIndependentFloorBinning()
+    {
+        // 40 parts from -9 750 to +9 750 ppm in 500 ppm steps, cups every 1 000 ppm from -10 000 to +10 000.
+        double[] ppm = [.. Enumerable.Range(0, 40).Select(i => -9_750.0 + (500 * i))];
+        double[] edges = [.. Enumerable.Range(0, 21).Select(i => -10_000.0 + (1000 * i))];
+        var input = new ReelHistogramInput(10_000, [.. ppm.Select(d => 10_000 * (1 + (d * 1e-6)))], 1.0, edges);
+
+        var plot = ReelHistogramPlot.Render(input, PlotSize.Default);
+
+        // Hand count: each 1 000 ppm cup holds exactly two of the parts (was: 5 000 ppm bars, 4 of them).
+        Assert.Equal(Enumerable.Repeat(2, 20), plot.Data.Counts);
+        Assert.Equal(-10_000, plot.Data.BinEdgesPpm[0], 6);
+        Assert.Equal(10_000, plot.Data.BinEdgesPpm[^1], 6);
+    }
+
+    [Fact]
+    public void NiceBinWidth_NearestOfTheOneTwoFiveSeries_NotTheNextUp()
+    {
+        // 20 parts over 19 000 ppm: target 8 bins (sqrt 20 clamped to 8), raw width 2 375 ppm; 2 000 is a factor
+        // 1.19 away, 5 000 a factor 2.1 (arithmetic), so 2 000.
+        double[] ppm = [.. Enumerable.Range(0, 20).Select(i => -9_500.0 + (1000 * i))];
+
+        Assert.Equal(2000, ReelHistogramPlot.NiceBinWidth(ppm), 9);
     }
 
     [Fact]
