@@ -86,17 +86,29 @@ public sealed class ReportWriter(TimeProvider timeProvider, ReportOptions? optio
         return manifest;
     }
 
+    // A file only for what the report holds: a sorting session has no drift samples, a drift run may have no parts.
     private static async Task WriteCsvAsync(string root, ReportInput input, List<ChannelSummary> channels, List<string> files, CancellationToken ct)
     {
-        await CsvFiles.WriteAsync(Path.Combine(root, "parts.csv"), input.Parts.Select(p => new PartCsvRow(
-            p.Number, p.NominalOhms, p.ValueOhms, ((p.ValueOhms / p.NominalOhms) - 1.0) * 1e6, p.StandardUncertaintyOhms, p.Cup ?? string.Empty)), ct).ConfigureAwait(false);
-        files.Add("parts.csv");
-        await CsvFiles.WriteAsync(Path.Combine(root, "drift_samples.csv"), input.DriftSamples.Select(s => new DriftCsvRow(
-            s.Time, s.Channel, s.Ohms, s.TemperatureC)), ct).ConfigureAwait(false);
-        files.Add("drift_samples.csv");
-        await CsvFiles.WriteAsync(Path.Combine(root, "adev.csv"), channels.SelectMany(c => c.Adev.Select(p => new AdevCsvRow(
-            c.Channel, p.AveragingFactor, p.TauSeconds, p.Deviation * 1e6, p.Lower * 1e6, p.Upper * 1e6, p.TermCount, p.DegreesOfFreedom))), ct).ConfigureAwait(false);
-        files.Add("adev.csv");
+        if (input.Parts.Count > 0)
+        {
+            await CsvFiles.WriteAsync(Path.Combine(root, "parts.csv"), input.Parts.Select(p => new PartCsvRow(
+                p.Number, p.NominalOhms, p.ValueOhms, ((p.ValueOhms / p.NominalOhms) - 1.0) * 1e6, p.StandardUncertaintyOhms, p.Cup ?? string.Empty)), ct).ConfigureAwait(false);
+            files.Add("parts.csv");
+        }
+
+        if (input.DriftSamples.Count > 0)
+        {
+            await CsvFiles.WriteAsync(Path.Combine(root, "drift_samples.csv"), input.DriftSamples.Select(s => new DriftCsvRow(
+                s.Time, s.Channel, s.Ohms, s.TemperatureC)), ct).ConfigureAwait(false);
+            files.Add("drift_samples.csv");
+        }
+
+        if (channels.Any(c => c.Adev.Count > 0))
+        {
+            await CsvFiles.WriteAsync(Path.Combine(root, "adev.csv"), channels.SelectMany(c => c.Adev.Select(p => new AdevCsvRow(
+                c.Channel, p.AveragingFactor, p.TauSeconds, p.Deviation * 1e6, p.Lower * 1e6, p.Upper * 1e6, p.TermCount, p.DegreesOfFreedom))), ct).ConfigureAwait(false);
+            files.Add("adev.csv");
+        }
     }
 
     private static NominalSummary Nominal(double nominal, double[] ppm, double? tolerance, string file) => new(

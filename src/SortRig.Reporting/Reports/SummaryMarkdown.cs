@@ -44,38 +44,47 @@ internal static class SummaryMarkdown
         }
 
         Line(md, string.Empty);
-        Line(md, "## Drift (ppm of channel mean; ± is one standard error)");
-        Line(md, string.Empty);
-        Line(md, "| Channel | Samples | Span (h) | Drift (ppm/h) | Drift, temperature-corrected (ppm/h) | Tempco (ppm/K) | Plots |");
-        Line(md, "|---|---:|---:|---:|---:|---:|---|");
-        foreach (ChannelSummary c in figures.Channels)
+        if (figures.Channels.Count == 0)
         {
-            string drift = c.Drift is { } d ? Pm(d.PpmPerHour) : "n/a (fewer than 3 samples)";
-            string jd = c.Joint is { } j ? Pm(j.PpmPerHour) : "n/a";
-            string tc = c.Joint is { } k ? Pm(k.PpmPerKelvin) : $"n/a ({c.JointNote})";
-            string plots = c.AdevPlotFile is null ? $"[drift]({c.DriftPlotFile})" : $"[drift]({c.DriftPlotFile}), [ADEV]({c.AdevPlotFile})";
-            Row(md, $"| {MarkdownText.Escape(c.Channel)} | {c.Count} | {c.SpanHours:F2} | {drift} | {jd} | {tc} | {plots} |");
+            Line(md, "No drift run in this report (drift and Allan deviation come from `sortrig drift`).");
+            Line(md, string.Empty);
         }
-
-        Line(md, string.Empty);
-        Line(md, "## Overlapping Allan deviation (NIST SP 1065), ppm");
-        Line(md, string.Empty);
-        Line(md, "| Channel | τ (s) | σ(τ) (ppm) | 68 % interval (ppm) | Terms |");
-        Line(md, "|---|---:|---:|---:|---:|");
-        foreach (ChannelSummary c in figures.Channels)
+        else
         {
-            foreach (AllanPoint p in c.Adev.Where(p => adevFactors.Contains(p.AveragingFactor)))
+            Line(md, "## Drift (ppm of channel mean; ± is one standard error)");
+            Line(md, string.Empty);
+            Line(md, "| Channel | Samples | Span (h) | Drift (ppm/h) | Drift, temperature-corrected (ppm/h) | Tempco (ppm/K) | Plots |");
+            Line(md, "|---|---:|---:|---:|---:|---:|---|");
+            foreach (ChannelSummary c in figures.Channels)
             {
-                Row(md, $"| {MarkdownText.Escape(c.Channel)} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
+                string drift = c.Drift is { } d ? Pm(d.PpmPerHour) : "n/a (fewer than 3 samples)";
+                string jd = c.Joint is { } j ? Pm(j.PpmPerHour) : "n/a";
+                string tc = c.Joint is { } k ? Pm(k.PpmPerKelvin) : $"n/a ({c.JointNote})";
+                string plots = c.AdevPlotFile is null ? $"[drift]({c.DriftPlotFile})" : $"[drift]({c.DriftPlotFile}), [ADEV]({c.AdevPlotFile})";
+                Row(md, $"| {MarkdownText.Escape(c.Channel)} | {c.Count} | {c.SpanHours:F2} | {drift} | {jd} | {tc} | {plots} |");
             }
 
-            if (!c.EvenlySpaced && c.Adev.Count > 0)
+            Line(md, string.Empty);
+            Line(md, "## Overlapping Allan deviation (NIST SP 1065), ppm");
+            Line(md, string.Empty);
+            Line(md, "| Channel | τ (s) | σ(τ) (ppm) | 68 % interval (ppm) | Terms |");
+            Line(md, "|---|---:|---:|---:|---:|");
+            foreach (ChannelSummary c in figures.Channels)
             {
-                Row(md, $"| {MarkdownText.Escape(c.Channel)} | note: intervals vary more than 25 % around τ0 = {c.Tau0Seconds:G4} s; ADEV assumes even spacing | | | |");
+                foreach (AllanPoint p in c.Adev.Where(p => adevFactors.Contains(p.AveragingFactor)))
+                {
+                    Row(md, $"| {MarkdownText.Escape(c.Channel)} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
+                }
+
+                if (!c.EvenlySpaced && c.Adev.Count > 0)
+                {
+                    Row(md, $"| {MarkdownText.Escape(c.Channel)} | note: intervals vary more than 25 % around τ0 = {c.Tau0Seconds:G4} s; ADEV assumes even spacing | | | |");
+                }
             }
+
+            Line(md, string.Empty);
         }
 
-        Line(md, string.Empty);
         Line(md, "## Data files");
         Line(md, string.Empty);
         foreach (string file in figures.Files.Where(f => f.EndsWith(".csv", StringComparison.Ordinal)))

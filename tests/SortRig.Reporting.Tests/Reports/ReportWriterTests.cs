@@ -47,6 +47,23 @@ public sealed class ReportWriterTests : IDisposable
     }
 
     [Fact]
+    public async Task WriteAsync_SortingSessionOnly_NoEmptyDriftTablesNorEmptyCsvFiles()
+    {
+        var full = Input();
+        var sortOnly = full with { DriftSamples = [] };
+
+        ReportManifest manifest = await new ReportWriter(_time, new ReportOptions(new SortRig.Reporting.Plots.PlotSize(400, 300))).WriteAsync(_folder, sortOnly, CancellationToken.None);
+
+        Assert.Equal(["histogram_10k.png", "histogram_20k.png", "parts.csv", "summary.md"], manifest.Files);
+        Assert.False(File.Exists(Path.Combine(_folder, "drift_samples.csv")));
+        Assert.False(File.Exists(Path.Combine(_folder, "adev.csv")));
+        string summary = await File.ReadAllTextAsync(Path.Combine(_folder, "summary.md"), CancellationToken.None);
+        Assert.Contains("No drift run in this report", summary, StringComparison.Ordinal);
+        Assert.DoesNotContain("## Drift", summary, StringComparison.Ordinal);
+        Assert.DoesNotContain("Allan deviation (NIST SP 1065)", summary, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task WriteAsync_CsvFilesRoundTripWithCsvHelper()
     {
         ReportInput input = Input();
