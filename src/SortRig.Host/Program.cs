@@ -29,6 +29,7 @@ internal static class Program
             DriftCommand.Create(),
             ReportCommand.Create(),
         };
+        DbPasswordGuard.Attach(root);
         return root.Parse(args, new ParserConfiguration { ResponseFileTokenReplacer = null });
     }
 }

@@ -1,0 +1,37 @@
+using SortRig.Host.Cli;
+
+namespace SortRig.Host.Tests.Cli;
+
+/// <summary>
+/// A password typed into --db would sit in the process list (/proc/PID/cmdline is readable by every local user:
+/// proc(5), Linux man-pages) and in shell history. Every verb with --db refuses it with one line and exit 2.
+/// </summary>
+public sealed class DbPasswordGuardTests
+{
+    [Theory]
+    [InlineData("sort", "--plain")]
+    [InlineData("drift", "--channels", "101-102")]
+    [InlineData("library", "find")]
+    [InlineData("plan", "--session", "bench", "--recipe", "matched-quad")]
+    [InlineData("report", "--out", "rep")]
+    public void Db_WithPassword_IsRefusedInOneLine_Exit2(params string[] verb)
+    {
+        var parse = Program.Parse([.. verb, "--db", "Host=lab-db;Username=sortrig_writer;Password=hunter-2-lab"]);
+        using var error = new StringWriter();
+
+        Assert.True(ParseErrors.Report(parse, error));
+        var text = error.ToString().TrimEnd();
+        Assert.Single(text.Split('\n'));
+        Assert.StartsWith("error: --db: the connection string holds a password", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("hunter-2-lab", text, StringComparison.Ordinal);
+        Assert.Equal(2, ParseErrors.BadInput); // what Program.Main returns when Report found an error
+    }
+
+    [Fact]
+    public void Db_WithPassfileOrNoPassword_IsAccepted()
+    {
+        Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer;Passfile=/etc/sortrig/pgpass"]).Errors);
+        Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer"]).Errors);
+        Assert.Empty(Program.Parse(["library", "find", "--db", "bench.db"]).Errors);
+    }
+}
