@@ -77,7 +77,7 @@ internal static class LabBenchmark
         md.Add("");
         md.Add("More benches than cores: beyond 2 benches the processes, the server and the machine's other work take turns on");
         md.Add("2 cores, so the total stays flat or dips and each bench's commit takes longer (p95 a few hundred ms); no commit");
-        md.Add("failed or was retried. SQLite in-process needs no round trips (one bench only: it is a file on one machine).");
+        md.Add("failed (a failing worker stops the run). SQLite in-process needs no round trips (one bench only: it is a file on one machine).");
         md.Add("");
         md.Add("A sorting bench commits a part every few seconds (a settled reading at NPLC 1-10 plus handling), so even the");
         md.Add("slowest row leaves the server idle most of the time: the lab's limit is not the server but the operators.");

@@ -24,7 +24,15 @@ internal sealed class ServerRestart(OwnServer server, LabStore lab) : IOutage
     public static async Task<ServerRestart> CreateAsync()
     {
         var server = await OwnServer.StartAsync();
-        return new ServerRestart(server, await LabStore.CreateAsync(server.ConnectionString));
+        try
+        {
+            return new ServerRestart(server, await LabStore.CreateAsync(server.ConnectionString));
+        }
+        catch
+        {
+            await server.DisposeAsync(); // never leave a server running
+            throw;
+        }
     }
 
     public Task BeginAsync() => server.StopAsync();

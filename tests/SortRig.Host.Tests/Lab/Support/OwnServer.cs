@@ -21,7 +21,16 @@ internal sealed class OwnServer : IAsyncDisposable
     public static async Task<OwnServer> StartAsync()
     {
         var server = new OwnServer();
-        await server.StartAgainAsync();
+        try
+        {
+            await server.StartAgainAsync();
+        }
+        catch
+        {
+            await server.DisposeAsync();
+            throw;
+        }
+
         return server;
     }
 
@@ -52,7 +61,10 @@ internal sealed class OwnServer : IAsyncDisposable
         }
         finally
         {
-            Directory.Delete(_dir, recursive: true);
+            if (Directory.Exists(_dir))
+            {
+                Directory.Delete(_dir, recursive: true);
+            }
         }
     }
 
