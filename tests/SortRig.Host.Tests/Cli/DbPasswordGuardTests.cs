@@ -1,4 +1,6 @@
+using System.Diagnostics;
 using SortRig.Host.Cli;
+using SortRig.Host.Tests.Reliability.Support;
 
 namespace SortRig.Host.Tests.Cli;
 
@@ -33,5 +35,33 @@ public sealed class DbPasswordGuardTests
         Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer;Passfile=/etc/sortrig/pgpass"]).Errors);
         Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer"]).Errors);
         Assert.Empty(Program.Parse(["library", "find", "--db", "bench.db"]).Errors);
+    }
+
+    [Fact]
+    public async Task Help_DefaultDatabaseFromTheEnvironment_ShowsItsPasswordMasked()
+    {
+        // The default of --db is SORTRIG_Sort__Database, which may carry a password; --help printed it whole.
+        var start = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        foreach (var a in new[] { HostProcess.HostDll, "library", "find", "--help" })
+        {
+            start.ArgumentList.Add(a);
+        }
+
+        start.Environment["SORTRIG_Sort__Database"] = "Host=lab-db;Username=sortrig_writer;Password=hunter-2-lab";
+        using var process = Process.Start(start)!;
+        var text = await process.StandardOutput.ReadToEndAsync() + await process.StandardError.ReadToEndAsync();
+        await process.WaitForExitAsync();
+
+        Assert.Contains("host=lab-db;username=sortrig_writer;password=***", text, StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotContain("hunter-2-lab", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Parse_NoDb_UsesTheDefaultUnmasked()
+    {
+        var parse = Program.Parse(["library", "find"]);
+        var db = parse.CommandResult.Command.Options.Single(o => o.Name == "--db");
+
+        Assert.Equal(SortRig.Host.VerbSupport.VerbGuard.DefaultDatabase(), parse.GetValue<string>(db.Name));
     }
 }
