@@ -43,7 +43,7 @@ public sealed class PrecisionLogOptions
 
     /// <summary>
     /// PostgreSQL only: how long one command may wait for the server before the connection is taken for dead
-    /// (Npgsql Command Timeout; TCP keepalive probes every third of it, at least 1 s), so a server that stops answering
+    /// (Npgsql Command Timeout; an idle connection sends a keepalive query every third of it, at least 1 s), so a server that stops answering
     /// (a stalled link, a hung host) becomes StorageFault.Unavailable instead of a hang. Used when the connection
     /// string sets no Command Timeout / Keepalive of its own. Default 15 s; valid 1 s .. 10 min; must exceed the
     /// longest single write (a drift batch of 5 000 samples takes well under a second on a lab server).

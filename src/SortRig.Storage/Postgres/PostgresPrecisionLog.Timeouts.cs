@@ -3,7 +3,7 @@ using Npgsql;
 
 namespace SortRig.Storage.Postgres;
 
-/// <summary>Detecting a server that stopped answering: command timeout, TCP keepalive, a pool emptied after an outage.</summary>
+/// <summary>Detecting a server that stopped answering: command timeout, keepalive queries, a pool emptied after an outage.</summary>
 internal sealed partial class PostgresPrecisionLog
 {
     /// <summary>
