@@ -30,6 +30,29 @@ public sealed class DbPasswordGuardTests
     }
 
     [Fact]
+    public async Task Process_SortWithPasswordInDb_Exit2_OneLineOnStderr_NothingStarted()
+    {
+        var dir = Directory.CreateTempSubdirectory("sortrig-dbpw-");
+        try
+        {
+            var run = await HostProcess.RunAsync(dir.FullName, ["sort", "--plain", "--db", "Host=127.0.0.1;Port=1;Username=bench;Password=hunter-2-lab"],
+                null, null, null, TimeSpan.FromMinutes(1));
+
+            Assert.Equal(2, run.ExitCode);
+            Assert.Empty(run.Lines);
+            var error = run.Log.TrimEnd();
+            Assert.Single(error.Split('\n'));
+            Assert.StartsWith("error: --db: the connection string holds a password", error, StringComparison.Ordinal);
+            Assert.DoesNotContain("hunter-2-lab", error, StringComparison.Ordinal);
+            Assert.Empty(dir.GetFileSystemInfos()); // no log folder, no database: refused before the host was built
+        }
+        finally
+        {
+            dir.Delete(recursive: true);
+        }
+    }
+
+    [Fact]
     public void Db_WithPassfileOrNoPassword_IsAccepted()
     {
         Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer;Passfile=/etc/sortrig/pgpass"]).Errors);
