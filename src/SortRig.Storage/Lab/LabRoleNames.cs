@@ -24,7 +24,8 @@ public sealed partial record LabRoleNames(string Owner = "sortrig_owner", string
         }
     }
 
-    private static void Check(string value, string field)
+    /// <summary>Throws <see cref="ArgumentException"/> naming <paramref name="field"/> when the value is not a plain identifier.</summary>
+    internal static void Check(string value, string field)
     {
         if (value is null || !Identifier().IsMatch(value))
         {

@@ -18,7 +18,7 @@ public static class LabRoles
     {
         ArgumentNullException.ThrowIfNull(names);
         names.Validate();
-        new LabRoleNames("a", "b", database).Validate(); // the same identifier rule for the database name
+        LabRoleNames.Check(database, nameof(database)); // the same identifier rule for the database name
         var (owner, writer, schema) = (names.Owner, names.Writer, names.Schema);
         return $"""
             DO $$ BEGIN

@@ -104,4 +104,11 @@ public sealed class LabRolesTests : IAsyncLifetime
         var error = Assert.Throws<ArgumentException>(() => LabRoles.Script(new LabRoleNames(owner, writer, schema), "sortrig"));
         Assert.Equal(field, error.ParamName);
     }
+
+    [Fact]
+    public void Script_DatabaseNameThatIsNotAPlainIdentifier_IsRefusedNamingIt()
+    {
+        var error = Assert.Throws<ArgumentException>(() => LabRoles.Script(new LabRoleNames(), "sortrig; DROP DATABASE x"));
+        Assert.Equal("database", error.ParamName);
+    }
 }
