@@ -22,5 +22,15 @@ if (args.Length > 0 && args[0] == "drift")
     return await DriftBenchmark.RunAsync(CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], order [quad], drift)");
+if (args.Length > 0 && args[0] == "lab")
+{
+    return await SortRig.Bench.Lab.LabBenchmark.RunAsync(CancellationToken.None);
+}
+
+if (args.Length == 4 && args[0] == "lab-worker")
+{
+    return await SortRig.Bench.Lab.LabWorker.RunAsync(args[1], args[2], double.Parse(args[3], System.Globalization.CultureInfo.InvariantCulture), CancellationToken.None);
+}
+
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], order [quad], drift, lab)");
 return 0;

@@ -30,6 +30,9 @@ internal static partial class Log
     [LoggerMessage(EventId = 6205, Level = LogLevel.Warning, Message = "Drift run {RunId}: storage fault {Fault} ({Reason}); retrying in {DelaySeconds} s")]
     public static partial void DriftStorageRetry(ILogger logger, long runId, string fault, string reason, double delaySeconds);
 
+    [LoggerMessage(EventId = 6290, Level = LogLevel.Warning, Message = "Drift run {RunId}: the store took no samples for {Seconds} s (buffer full); the scans missed are marked as a gap")]
+    public static partial void DriftHeldBack(ILogger logger, long runId, double seconds);
+
     [LoggerMessage(EventId = 6206, Level = LogLevel.Information, Message = "Drift run {RunId} finished: {Scans} scans, {Samples} samples stored, {Gaps} gaps")]
     public static partial void DriftFinished(ILogger logger, long runId, long scans, long samples, int gaps);
 }

@@ -35,6 +35,7 @@ internal static class Program
             OrderCommand.Create(),
             ReachCommand.Create(),
         };
+        DbPasswordGuard.Attach(root);
         return root.Parse(args, new ParserConfiguration { ResponseFileTokenReplacer = null });
     }
 }

@@ -14,6 +14,7 @@ internal sealed partial class DriftLogger
 
     private async Task RecordAsync(IReadOnlyList<Reading> readings, ChannelWriter<DriftWrite> writer, CancellationToken ct)
     {
+        var began = time.GetUtcNow();
         var finite = readings.Where(r => r.Kind == ReadingKind.Finite).Select(r => r.Time).ToList();
         if (_gap is { } gap && finite.Count > 0)
         {
@@ -50,6 +51,24 @@ internal sealed partial class DriftLogger
 
         _lastGood = finite.Count > 0 ? finite.Max() : _lastGood;
         _scans++;
+        HeldBack(time.GetUtcNow() - began);
+    }
+
+    // The channel was full for half a scan interval or more: the store could not write (a lab server restarting, a
+    // stalled link) and the scans due meanwhile were not taken. What was read waits in the channel and is written
+    // when the store is back; the time without scans is marked as a gap, never left as a silent hole.
+    private void HeldBack(TimeSpan waited)
+    {
+        // Half an interval: a wait that long already pushes the next scan a whole interval back (a skipped tick).
+        if (waited <= settings.Interval / 2 || _gap is not null)
+        {
+            return;
+        }
+
+        _gap = (_lastGood, "storage unreachable: the sample buffer was full and scans were held back");
+        Log.DriftHeldBack(logger, _runId, waited.TotalSeconds);
+        hub.Publish(new BenchEvent(0, BenchEventKind.Notice, default, State: "drift-gap",
+            Text: $"drift log: the database did not take samples for {waited.TotalSeconds:0} s; buffered samples are written, the scans missed are marked as a gap from {_lastGood:HH:mm:ss}"));
     }
 
     private void Publish(int channel, Reading reading, double? celsius)

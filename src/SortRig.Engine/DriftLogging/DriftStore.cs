@@ -8,11 +8,17 @@ namespace SortRig.Engine.DriftLogging;
 /// <summary>
 /// The single reader of the logger's bounded channel: appends samples to the log in batches of at most
 /// BatchSize (one transaction each, fewer when it keeps up), writes gaps in order, and retries a
-/// locked or unreachable store with back-off. Memory is bounded by the channel and one batch.
+/// locked or unreachable store with back-off. Memory is bounded by the channel and one batch: while the store is
+/// down the channel fills, the logger waits on it and marks the scans it could not take as a gap.
+/// A locked store is given up after 8 attempts; an unreachable one (a lab server restarting, a stalled link) is
+/// retried for up to <see cref="MaxOutage"/> of bench time, then the run stops with the fault.
 /// </summary>
 internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeProvider time, ILogger logger)
 {
     private const int MaxAttempts = 8;
+
+    /// <summary>Longest outage of an unreachable server the run waits out: 1 h of bench time.</summary>
+    public static readonly TimeSpan MaxOutage = TimeSpan.FromHours(1);
     private readonly List<StoredDriftSample> _batch = new(batchSize);
 
     /// <summary>New sample rows written so far.</summary>
@@ -62,6 +68,7 @@ internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeP
     private async Task RetryAsync(Func<CancellationToken, Task> write, CancellationToken ct)
     {
         var delay = TimeSpan.FromMilliseconds(500);
+        var firstFailure = (DateTimeOffset?)null;
         for (var attempt = 1; ; attempt++)
         {
             try
@@ -69,7 +76,7 @@ internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeP
                 await write(ct).ConfigureAwait(false);
                 return;
             }
-            catch (StorageException e) when (attempt < MaxAttempts && StorageFaultRule.ClearsByItself(e.Fault))
+            catch (StorageException e) when (StorageFaultRule.ClearsByItself(e.Fault) && WaitOut(e.Fault, attempt, firstFailure ??= time.GetUtcNow()))
             {
                 Log.DriftStorageRetry(logger, runId, e.Fault.ToString(), e.Message, delay.TotalSeconds);
                 await Task.Delay(delay, time, ct).ConfigureAwait(false);
@@ -77,4 +84,8 @@ internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeP
             }
         }
     }
+
+    private bool WaitOut(StorageFault fault, int attempt, DateTimeOffset firstFailure) => fault == StorageFault.Unavailable
+        ? time.GetUtcNow() - firstFailure < MaxOutage
+        : attempt < MaxAttempts;
 }

@@ -13,7 +13,8 @@ internal static class CliOptions
     public static Option<string> Database() => new("--db")
     {
         Description = "SQLite file or PostgreSQL connection string (\"Host=...;Database=...\"); default SORTRIG_Sort__Database or sortrig.db",
-        DefaultValueFactory = _ => VerbGuard.DefaultDatabase(),
+        // --help asks for the default outside any parse (no parent result): it gets the string with its password masked.
+        DefaultValueFactory = r => r.Parent is null ? SortRig.Storage.Lab.ConnectionText.Mask(VerbGuard.DefaultDatabase()) : VerbGuard.DefaultDatabase(),
     };
 
     public static Option<string> Recipe() => new("--recipe") { Description = "Recipe file, or a name under recipes/ (e.g. matched-quad)", Required = true };

@@ -45,7 +45,7 @@ internal static class LibraryMoves
         var verb = Verb(move);
         if (!result.Succeeded)
         {
-            var why = await Refusals.DescribeAsync(log, result.Refused, cancellationToken).ConfigureAwait(false);
+            var why = await Refusals.DescribeAsync(log, result.Refused, result.Holders, cancellationToken).ConfigureAwait(false);
             console.MarkupLine($"[red]{verb} refused, nothing changed.[/] {Markup.Escape(Needs(move))}; not so for {why.Count} part(s):");
             foreach (var line in why)
             {

@@ -30,7 +30,7 @@ internal static class DriftSummary
         }
 
         console.Write(table);
-        console.MarkupLine($"report: [bold]sortrig report --db {Markup.Escape(settings.Database)} --drift-run {outcome.RunId} --out report-drift-{outcome.RunId}[/]");
+        console.MarkupLine($"report: [bold]sortrig report --db {Markup.Escape(SortRig.Storage.Lab.ConnectionText.Mask(settings.Database))} --drift-run {outcome.RunId} --out report-drift-{outcome.RunId}[/]");
     }
 
     private static string Coefficient(Coefficient? c) =>

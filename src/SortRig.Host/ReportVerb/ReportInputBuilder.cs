@@ -29,7 +29,7 @@ internal static class ReportInputBuilder
         if (request.DriftRunId is { } runId)
         {
             var run = await log.GetDriftRunAsync(runId, ct).ConfigureAwait(false)
-                ?? throw new ArgumentException($"--drift-run: no drift run with id {runId} in {request.Database}.", nameof(request));
+                ?? throw new ArgumentException($"--drift-run: no drift run with id {runId} in {SortRig.Storage.Lab.ConnectionText.Mask(request.Database)}.", nameof(request));
             titles.Add($"drift run '{run.Name}' (id {run.Id})");
             var labels = run.Channels.Select(c => c.Label).ToArray();
             await foreach (var s in log.ReadDriftSamplesAsync(runId, ct).ConfigureAwait(false))

@@ -28,4 +28,10 @@ public sealed record LibraryResult(IReadOnlyList<PartRecord> Changed, IReadOnlyL
 {
     /// <summary>True when every requested part was changed.</summary>
     public bool Succeeded => Refused.Count == 0;
+
+    /// <summary>
+    /// For each refused id that exists: its state, status and taker as they were when the change was refused (read in
+    /// the same transaction, under the row lock), in id order. Empty when the change succeeded.
+    /// </summary>
+    public IReadOnlyList<LibraryHolder> Holders { get; init; } = [];
 }

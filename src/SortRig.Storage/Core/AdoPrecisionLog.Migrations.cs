@@ -58,6 +58,13 @@ internal abstract partial class AdoPrecisionLog
                     Log.MigrationApplied(Logger, migration.Version, migration.Name, Target);
                 }
             }
+            catch (StorageException e) when (e.Fault is StorageFault.ReadOnly && Engine == StorageEngine.Postgres)
+            {
+                // A bench logged in as the lab's writer role may not change the schema: the keeper runs it as the owner.
+                throw new StorageException(operation, StorageFault.Schema, Target,
+                    $"the schema is at version {current} and this build needs {latest}, but this role may not change the schema; " +
+                    $"open the log once as the lab's owner role to migrate it (docs/lab.md) ({e.InnerException?.Message})", e);
+            }
             catch (StorageException e) when (e.Fault is StorageFault.Other or StorageFault.Constraint)
             {
                 throw new StorageException(operation, StorageFault.Schema, Target,

@@ -32,9 +32,10 @@ internal abstract partial class AdoPrecisionLog
         {
             string idList = DbScope.Placeholders("i", ids.Count);
             string fromList = DbScope.Placeholders("f", change.From.Length);
-            var current = await s.Sql($"SELECT p.id, p.state, p.library_status FROM parts p WHERE p.id IN ({idList}) ORDER BY p.id{ForUpdate}")
+            var current = await s.Sql($"SELECT p.id, p.state, p.library_status, p.taken_by FROM parts p WHERE p.id IN ({idList}) ORDER BY p.id{ForUpdate}")
                 .WithList("i", ids)
-                .ListAsync(r => (Id: r.GetInt64(0), State: Enum.Parse<PartState>(r.GetString(1)), Status: Enum.Parse<LibraryStatus>(r.GetString(2))), ct)
+                .ListAsync(r => (Id: r.GetInt64(0), State: Enum.Parse<PartState>(r.GetString(1)), Status: Enum.Parse<LibraryStatus>(r.GetString(2)),
+                    TakenBy: r.IsDBNull(3) ? null : r.GetString(3)), ct)
                 .ConfigureAwait(false);
             var before = current
                 .Where(c => c.State is PartState.Accepted or PartState.Announced && change.From.Contains(c.Status))
@@ -43,7 +44,8 @@ internal abstract partial class AdoPrecisionLog
             if (refused.Length > 0)
             {
                 s.RollbackOnly = true;
-                return new LibraryResult([], refused);
+                var holders = current.Where(c => refused.Contains(c.Id)).Select(c => new LibraryHolder(c.Id, c.State, c.Status, c.TakenBy)).ToArray();
+                return new LibraryResult([], refused) { Holders = holders };
             }
 
             var update = s.Sql(

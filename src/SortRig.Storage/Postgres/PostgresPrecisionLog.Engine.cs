@@ -14,6 +14,17 @@ internal sealed partial class PostgresPrecisionLog
     /// <summary>SQLSTATE codes from PostgreSQL 15 manual, Appendix A.</summary>
     private protected override StorageFault Classify(DbException exception, out bool transient)
     {
+        var fault = ClassifyCore(exception, out transient);
+        if (fault == StorageFault.Unavailable)
+        {
+            ForgetPooledConnections();
+        }
+
+        return fault;
+    }
+
+    private static StorageFault ClassifyCore(DbException exception, out bool transient)
+    {
         transient = false;
         if (exception is PostgresException pg)
         {
@@ -33,6 +44,7 @@ internal sealed partial class PostgresPrecisionLog
             };
         }
 
+        // A broken connection or a command timeout (the server or the link stopped answering).
         return exception is NpgsqlException { InnerException: SocketException or IOException or TimeoutException }
             ? StorageFault.Unavailable
             : StorageFault.Other;

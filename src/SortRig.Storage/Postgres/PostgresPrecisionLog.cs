@@ -42,6 +42,7 @@ internal sealed partial class PostgresPrecisionLog : AdoPrecisionLog
         var builder = new NpgsqlConnectionStringBuilder(connectionString);
         var ms = ((long)options.BusyTimeout.TotalMilliseconds).ToString(CultureInfo.InvariantCulture);
         builder.Options = string.IsNullOrWhiteSpace(builder.Options) ? $"-c lock_timeout={ms}" : $"{builder.Options} -c lock_timeout={ms}";
+        ApplyTimeouts(builder, connectionString, options.CommandTimeout);
         var target = $"postgresql {builder.Host}:{builder.Port}/{builder.Database}" +
             (string.IsNullOrEmpty(builder.SearchPath) ? string.Empty : $" (schema {builder.SearchPath})");
         var sourceBuilder = new NpgsqlDataSourceBuilder(builder.ConnectionString);

@@ -27,7 +27,13 @@ public abstract partial class PrecisionLogContractTests
             // other is refused as a whole.
             Assert.True(both[0].Succeeded ^ both[1].Succeeded, $"round {round}: exactly one bench must get its parts");
             var winner = both[0].Succeeded ? both[0] : both[1];
-            Assert.Empty((both[0].Succeeded ? both[1] : both[0]).Changed);
+            var loser = both[0].Succeeded ? both[1] : both[0];
+            Assert.Empty(loser.Changed);
+
+            // The loser is told which parts and by whom: read under the lock of its refusal, so always the winner.
+            Assert.Equal(loser.Refused.Order(), loser.Holders.Select(h => h.PartId));
+            Assert.All(loser.Holders, h => Assert.Equal((LibraryStatus.Taken, both[0].Succeeded ? "bench-A" : "bench-B"), (h.Status, h.TakenBy)));
+            Assert.Equal(setA.Intersect(setB).Order(), loser.Refused.Order());
             foreach (var part in winner.Changed)
             {
                 takes[part.Id] = takes.GetValueOrDefault(part.Id) + 1;

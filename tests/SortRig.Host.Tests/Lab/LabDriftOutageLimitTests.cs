@@ -1,0 +1,57 @@
+using SortRig.Engine.DriftLogging;
+using SortRig.Host.Tests.Drift;
+using SortRig.Host.Tests.Lab.Support;
+using SortRig.Host.Tests.Reliability.Support;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Host.Tests.Lab;
+
+/// <summary>
+/// An unattended drift run waits out an unreachable server, but not for ever: after DriftStore.MaxOutage (1 h of bench
+/// time) it stops with the fault, and what it stored before is there. Virtual time; the server is really stopped.
+/// The 1 h bound is our own choice (docs/lab.md), common practice, no source.
+/// </summary>
+[Collection(ReliabilityCollection.Name)]
+public sealed class LabDriftOutageLimitTests
+{
+    [LabFact]
+    public async Task ServerGoneForGood_DriftWaitsOneHourOfBenchTime_ThenStopsWithTheFault()
+    {
+        var server = await OwnServer.StartAsync();
+        await using var _ = server;
+        await using var lab = await LabStore.CreateAsync(server.ConnectionString);
+        var settings = new DriftOptions { Database = lab.Writer, Run = "lab-gone", Channels = "101-102", IntervalSeconds = 10, Hours = 3, Seed = 9 }.Validate();
+        var stopAt = DriftRuns.Start.AddMinutes(20);
+        DateTimeOffset? stopped = null, last = null;
+
+        var error = await Assert.ThrowsAsync<StorageException>(() => DriftRuns.RunAsync(settings, (_, next) =>
+        {
+            last = next;
+            if (stopped is null && next >= stopAt)
+            {
+                stopped = next;
+                server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
+            }
+        }));
+
+        Assert.Equal(StorageFault.Unavailable, error.Fault);
+        Assert.NotNull(stopped);
+        var waited = last!.Value - stopped!.Value;
+        Assert.True(waited >= DriftStore.MaxOutage, $"gave up after {waited} of bench time");
+        Assert.True(waited < DriftStore.MaxOutage + TimeSpan.FromMinutes(5), $"waited {waited} of bench time");
+
+        // Back up: the samples of the first 20 minutes are stored (120 scans x 4 readings, give or take the batch in flight).
+        await server.StartAgainAsync();
+        await using var log = await lab.OpenAsync();
+        var run = await log.GetDriftRunAsync(1, CancellationToken.None); // the first run in the fresh lab
+        Assert.Equal("lab-gone", run?.Name);
+        long stored = 0;
+        await foreach (var s in log.ReadDriftSamplesAsync(run!.Id, CancellationToken.None))
+        {
+            Assert.True(s.Time <= stopped.Value, $"a sample at {s.Time} after the server stopped at {stopped}");
+            stored++;
+        }
+
+        Assert.InRange(stored, (120 * 4) - 64, 120 * 4);
+    }
+}
