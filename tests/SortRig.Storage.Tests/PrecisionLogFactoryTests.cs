@@ -65,6 +65,15 @@ public sealed class PrecisionLogFactoryTests
         Assert.False(File.Exists(database));
     }
 
+    [Fact]
+    public void CheckTarget_FileOnTheSharedMemoryFileSystem_IsAnOrdinaryFile()
+    {
+        // /dev/shm is a tmpfs on Linux (common practice, no source): a database there is a regular file.
+        Assert.True(Directory.Exists("/dev/shm"), "this test needs Linux's /dev/shm");
+
+        PrecisionLogFactory.CheckTarget($"/dev/shm/sortrig-check-{Guid.NewGuid():N}.db");
+    }
+
     [Theory]
     [InlineData(0.5)]
     [InlineData(601)]

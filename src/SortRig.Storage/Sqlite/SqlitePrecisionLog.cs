@@ -97,7 +97,8 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
             throw new ArgumentException($"'{dataSource}' is a folder; a SQLite precision log is a file (e.g. '{Path.Combine(dataSource, "sortrig.db")}')");
         }
 
-        if (full.StartsWith("/dev/", StringComparison.Ordinal))
+        // Devices live under /dev; /dev/shm is the one ordinary file system there (shared memory, a tmpfs).
+        if (full.StartsWith("/dev/", StringComparison.Ordinal) && !full.StartsWith("/dev/shm/", StringComparison.Ordinal))
         {
             throw new ArgumentException($"'{dataSource}' is a device; a SQLite precision log is a regular file");
         }

@@ -40,7 +40,7 @@ public sealed class LabDriftOutageLimitTests
         Assert.True(waited >= DriftStore.MaxOutage, $"gave up after {waited} of bench time");
         Assert.True(waited < DriftStore.MaxOutage + TimeSpan.FromMinutes(5), $"waited {waited} of bench time");
 
-        // Back up: the samples of the first 20 minutes are stored (120 scans x 4 readings, give or take the batch in flight).
+        // Back up: the samples of the first 20 minutes are stored (120 scans x 4 readings), less what was still queued.
         await server.StartAgainAsync();
         await using var log = await lab.OpenAsync();
         var run = await log.GetDriftRunAsync(1, CancellationToken.None); // the first run in the fresh lab
@@ -52,6 +52,8 @@ public sealed class LabDriftOutageLimitTests
             stored++;
         }
 
-        Assert.InRange(stored, (120 * 4) - 64, 120 * 4);
+        // In virtual time the scans can run ahead of the writer: what sits in the queue (4 batches of 64) and the batch
+        // in flight when the server goes is lost when the run gives up (docs/lab.md says so); everything older is there.
+        Assert.InRange(stored, (120 * 4) - (5 * 64), 120 * 4);
     }
 }

@@ -40,6 +40,12 @@ internal static class FaultSoak
         (FaultKind.SpuriousError, 0.2), (FaultKind.SilentReset, 0.2),
     ];
 
+    /// <summary>
+    /// The kinds the soak injects. NotANumber is left out: a run of them stops a session by design (the meter that
+    /// only answers NaN); MeterRecoveryTests covers it on its own.
+    /// </summary>
+    public static IEnumerable<FaultKind> Kinds => s_mix.Select(m => m.Kind);
+
     public static SortOptions Options(string dir, SoakSettings s) => new()
     {
         Database = Path.Combine(dir, "soak.db"),
