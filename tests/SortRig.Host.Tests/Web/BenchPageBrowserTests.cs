@@ -47,6 +47,9 @@ public sealed class BenchPageBrowserTests(ITestOutputHelper output)
             TimeSpan.FromSeconds(10), "stored states on every logged part");
         Assert.True(browser.FindElement(By.Id("summary")).Displayed, "the session summary shows once the session is finished");
         PageProbe.Save(browser, "bench-summary.png", output);
+        var tiles = browser.FindElements(By.CssSelector("#counts .count"))
+            .Select(t => (Cup: t.GetAttribute("data-cup"), Count: int.Parse(t.FindElement(By.TagName("span")).Text, CultureInfo.InvariantCulture)))
+            .ToList();
         var errors = browser.Manage().Logs.GetLog(LogType.Browser).Where(e => e.Level >= LogLevel.Severe).Select(e => e.Message).ToList();
         using var http = new HttpClient();
         var sessionId = JsonDocument.Parse(await http.GetStringAsync(run.BaseUrl + "/api/session")).RootElement.GetProperty("sessionId").GetInt64();
@@ -67,6 +70,15 @@ public sealed class BenchPageBrowserTests(ITestOutputHelper output)
         Assert.Equal(stored.Select(p => p.Number), final.Select(i => i.Part));
         Assert.Equal(stored.Select(p => p.CupLabel ?? ""), final.Select(i => i.Cup));
         Assert.Equal(stored.Select(p => p.State.ToString()), final.Select(i => i.Stored));
+
+        // Cup tiles stand where the cups stand: every cup from A up to the highest used (empty ones show 0,
+        // the undone part's cup keeps its tile), the reject cup last; each count as the log has it.
+        const string letters = "ABCDEFGHJKLMNPQSTUVWXYZ";
+        var used = stored.Select(p => p.CupLabel).OfType<string>().ToList();
+        var top = used.Where(c => c != "R").Max(c => letters.IndexOf(c, StringComparison.Ordinal));
+        string[] expectedOrder = [.. letters[..(top + 1)].Select(c => c.ToString()), .. used.Contains("R") ? new[] { "R" } : []];
+        Assert.Equal(expectedOrder, tiles.Select(t => t.Cup));
+        Assert.All(tiles, t => Assert.Equal(stored.Count(p => p.CupLabel == t.Cup && p.State is PartState.Accepted or PartState.Announced), t.Count));
 
         // Exactly one part is undone in the log: the one the page's notice named.
         var undone = Assert.Single(stored, p => p.State == PartState.Undone);

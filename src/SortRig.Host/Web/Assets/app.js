@@ -12,6 +12,7 @@ const page = {
   reading: null,      // latest Reading event, drawn on the next frame
   drift: new Map(),   // channel -> { label, points: [{ t, v }], last }
   finished: false,
+  cupsSeen: new Set(), // every cup label shown so far: its tile stays
   sessionAsked: 0,    // when /api/session was last asked while no session was open
   frame: 0,
   driftFrame: 0,
@@ -115,14 +116,35 @@ function onAnnouncement(e) {
   drawHistogram(); showProgress();
 }
 
+// Cup letters in the order the cups stand on the bench (no I, O or R: R is the reject cup).
+const CUP_LETTERS = "ABCDEFGHJKLMNPQSTUVWXYZ";
+
+// Tiles that stay where they are while cups fill: every cup from the first up to the highest seen so far
+// (empty ones show 0), a cup emptied by undo keeps its tile, and the reject cup comes last.
+function tileOrder(labels) {
+  const letters = labels.filter((k) => CUP_LETTERS.includes(k) && k.length === 1);
+  const numbers = labels.filter((k) => /^[0-9]+$/.test(k)).map(Number);
+  const order = [];
+  if (letters.length) {
+    const top = Math.max(...letters.map((k) => CUP_LETTERS.indexOf(k)));
+    for (let i = 0; i <= top; i++) order.push(CUP_LETTERS[i]);
+  }
+  if (numbers.length) for (let n = 1; n <= Math.max(...numbers); n++) order.push(String(n));
+  labels.filter((k) => !order.includes(k) && k !== "R").sort().forEach((k) => order.push(k));
+  if (labels.includes("R")) order.push("R");
+  return order;
+}
+
 function showCounts(counts) {
   const box = $("counts"); box.textContent = "";
   const last = page.parts.get(page.shown)?.cup;
-  Object.keys(counts).sort().forEach((k) => {
+  Object.keys(counts).forEach((k) => page.cupsSeen.add(k));
+  tileOrder([...page.cupsSeen]).forEach((k) => {
     const d = document.createElement("div");
-    d.className = "count" + (k === last ? " last" : "") + (k === page.reject ? " rej" : "");
+    d.className = "count" + (k === last ? " last" : "") + (k === page.reject || k === "R" ? " rej" : "") + (counts[k] ? "" : " empty");
+    d.dataset.cup = k;
     const b = document.createElement("b"), v = document.createElement("span");
-    b.textContent = k; v.textContent = counts[k]; d.append(b, v); box.appendChild(d);
+    b.textContent = k; v.textContent = counts[k] ?? 0; d.append(b, v); box.appendChild(d);
   });
 }
 
