@@ -29,7 +29,7 @@ internal static class LibraryCommand
         var sets = Sub(library, "sets", "Plan the sets of a recipe from every session's available parts.", out var setsDb);
         var recipe = Add(sets, CliOptions.Recipe());
         var csv = Add(sets, new Option<string?>("--csv") { Description = "Export the pick list to this CSV file" });
-        var take = Add(sets, new Option<string?>("--take") { Description = "Take the picked parts for this person (all or none)" });
+        var take = Add(sets, new Option<string?>("--take", "--by") { Description = "Take the picked parts for this person (all or none); --by as in library take" });
         var pick = Add(sets, CliOptions.Pick());
         sets.SetAction((r, ct) => VerbGuard.RunAsync(Console(), () => PlanRunner.RunAsync(
             new PlanRequest(r.GetValue(setsDb)!, null, r.GetValue(recipe)!, r.GetValue(csv), r.GetValue(take), CliOptions.ParsePick(r.GetValue(pick))), Console(), ct)));

@@ -17,7 +17,7 @@ internal static class PlanCommand
         var session = new Option<string>("--session") { Description = "Session name (newest with that name) or id", Required = true };
         var recipe = CliOptions.Recipe();
         var csv = new Option<string?>("--csv") { Description = "Export the pick list to this CSV file" };
-        var take = new Option<string?>("--take") { Description = "Take the picked parts from the library for this person (all or none)" };
+        var take = new Option<string?>("--take", "--by") { Description = "Take the picked parts from the library for this person (all or none); --by as in library take" };
         var pick = CliOptions.Pick();
         var timeLimit = new Option<double?>("--time-limit") { Description = "Seconds the set search may run on a large reel (default 10, 0.1 to 3600); the best plan so far is returned with its bound" };
         foreach (var o in new Option[] { db, session, recipe, csv, take, pick, timeLimit })

@@ -28,7 +28,7 @@ internal static class ReachRunner
             string title;
             if (request.Session is { } name)
             {
-                var session = await SessionLookup.FindAsync(log, name, cancellationToken).ConfigureAwait(false);
+                var session = await SessionLookup.FindAsync(log, name, cancellationToken, t => console.MarkupLine($"[yellow]{Markup.Escape(t)}[/]")).ConfigureAwait(false);
                 records = await log.GetPartsAsync(session.Id, cancellationToken).ConfigureAwait(false);
                 title = $"session '{session.Name}' (id {session.Id})";
             }

@@ -28,6 +28,15 @@ public sealed class ProgramParseTests
     }
 
     [Fact]
+    public void Plan_TakesThePickedPartsWithByAsLibraryTakeDoes()
+    {
+        var parse = Program.Parse(["plan", "--session", "bench", "--recipe", "r.yaml", "--by", "Ana"]);
+
+        Assert.Empty(parse.Errors);
+        Assert.Equal("Ana", parse.GetValue<string?>("--take"));
+    }
+
+    [Fact]
     public async Task Help_UsageLine_CallsTheProgramSortrig()
     {
         var output = new StringWriter();
