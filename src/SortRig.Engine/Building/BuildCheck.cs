@@ -51,11 +51,14 @@ internal sealed class BuildCheck(BuildTarget target, AssemblyOptions options, do
         return new BuildStatus(target, count, true, found, null, feed, Probe(offered, feed));
     }
 
-    // Parts sorted into shared cups of a matched recipe are picked by cup when the cups' bands alone make the sets.
+    // Parts sorted into shared cups of a one-nominal matched recipe are picked by cup when the cups' bands alone make
+    // the sets. Not for several nominals: each batch labels its cups from A again, and the by-cup planner keys bands
+    // by label alone.
     private PlanOutcome PreferCups(Recipe recipe, IReadOnlyList<PartRecord> parts, PlanOutcome byPart)
     {
         var offered = byPart.Offered;
-        if (recipe.Form != RecipeForm.Matched || offered.Count == 0 || !offered.All(PartWhere.InSharedCup))
+        if (recipe.Form != RecipeForm.Matched || recipe.Positions.Select(p => p.Nominal).Distinct().Count() > 1
+            || offered.Count == 0 || !offered.All(PartWhere.InSharedCup))
         {
             return byPart;
         }
