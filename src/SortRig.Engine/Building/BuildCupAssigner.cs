@@ -8,8 +8,11 @@ namespace SortRig.Engine.Building;
 /// the reject cup (the slot tray's reject bin in slot mode) instead of a cup or slot; every other part is placed as
 /// before. The log keeps the reject label, so a restart restores it through the inner assigner.
 /// </summary>
-internal sealed class BuildCupAssigner(ICupAssigner inner, BuildTarget target, double stockTolerance, AssemblyOptions options, bool slots) : ICupAssigner
+internal sealed class BuildCupAssigner(ICupAssigner inner, double stockTolerance, AssemblyOptions options, bool slots) : ICupAssigner
 {
+    /// <summary>The build; null places every part as the inner assigner does (set once the session's target is known).</summary>
+    public BuildTarget? Target { get; set; }
+
     private readonly Dictionary<long, CupRequest> _turnedAway = [];
 
     /// <summary>Why the last part was turned away; empty when it was placed as usual.</summary>
@@ -43,7 +46,7 @@ internal sealed class BuildCupAssigner(ICupAssigner inner, BuildTarget target, d
     /// <inheritdoc />
     public CupDecision Assign(CupRequest request)
     {
-        var use = PartUse.Judge(target.Recipe, request.Nominal, request.Value, stockTolerance, options);
+        var use = Target is { } target ? PartUse.Judge(target.Recipe, request.Nominal, request.Value, stockTolerance, options) : new PartUse(true, "");
         LastReason = use.Reason;
         if (use.Helps)
         {

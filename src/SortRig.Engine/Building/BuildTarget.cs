@@ -10,4 +10,10 @@ public sealed record BuildTarget(Recipe Recipe, int Sets, string? CsvPath)
 {
     /// <summary>Largest number of sets a session may sort toward.</summary>
     public const int MaxSets = 64;
+
+    /// <summary>The recipe file it was read from ("" when built in code).</summary>
+    public string RecipePath { get; init; } = "";
+
+    /// <summary>The recipe's text as read ("" when built in code); stored with the session for a resume.</summary>
+    public string RecipeYaml { get; init; } = "";
 }

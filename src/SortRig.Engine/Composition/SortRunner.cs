@@ -60,8 +60,7 @@ public static class SortRunner
                 new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
                 ct).ConfigureAwait(false);
             var target = await BuildTargets.LoadAsync(options, ct).ConfigureAwait(false);
-            var cups = target is null ? CupAssignerFactory.Create(options)
-                : new BuildCupAssigner(CupAssignerFactory.Create(options), target, options.StockTolerance, new AssemblyOptions(), options.Assigner == AssignerKind.Slots);
+            var cups = new BuildCupAssigner(CupAssignerFactory.Create(options), options.StockTolerance, new AssemblyOptions(), options.Assigner == AssignerKind.Slots);
             var context = new SortContext(
                 plan,
                 c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),

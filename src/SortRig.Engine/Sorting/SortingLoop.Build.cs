@@ -1,9 +1,11 @@
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Building;
 using SortRig.Engine.Events;
+using SortRig.Engine.Picking;
 using SortRig.Planning.Assembly;
 using SortRig.Planning.Cups;
 using SortRig.Planning.PickLists;
+using SortRig.Planning.Recipes;
 using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.Sorting;
@@ -13,20 +15,66 @@ public sealed partial class SortingLoop
     // The check's search budget: exact on small sets of parts, else the sweep and a short neighbourhood search.
     private static readonly TimeSpan s_buildSearchLimit = TimeSpan.FromMilliseconds(300);
 
+    private BuildTarget? _target;
     private BuildCheck? _buildCheck;
     private BuildStatus? _buildStatus;
     private string? _buildCsv;
 
     private bool SetsComplete => _buildStatus?.Complete == true;
 
-    private BuildCheck? Build => _ctx.Build is { } target
+    private BuildCheck? Build => _target is { } target
         ? _buildCheck ??= new BuildCheck(target, new AssemblyOptions(timeLimit: s_buildSearchLimit), Options.StockTolerance)
         : null;
 
     /// <summary>How the build ended, for the outcome; null without a target.</summary>
-    private BuildReport? BuildOutcome => _ctx.Build is { } t && _buildStatus is { } s
+    private BuildReport? BuildOutcome => _target is { } t && _buildStatus is { } s
         ? new BuildReport(t.Recipe.Name, t.Sets, s.Complete, s.Line(), _buildCsv) { Plan = s.Plan }
         : null;
+
+    // The target given now is kept with the session (replacing an earlier one); without one, a session that has a
+    // stored target resumes toward it. A stored target that does not take this batch's nominal is not applied.
+    private async Task ResolveBuildTargetAsync(CancellationToken ct)
+    {
+        var given = _ctx.Build;
+        var stored = await DurablyAsync("reading the build target", c => _ctx.Log.GetBuildTargetAsync(_session.Id, c), ct).ConfigureAwait(false);
+        if (given is not null)
+        {
+            var record = BuildTargets.ToRecord(given);
+            if (record != stored && given.RecipeYaml.Length > 0)
+            {
+                await DurablyAsync("the build target", async c => { await _ctx.Log.SetBuildTargetAsync(_session.Id, record, c).ConfigureAwait(false); return true; }, ct).ConfigureAwait(false);
+            }
+
+            _target = given;
+        }
+        else if (stored is not null)
+        {
+            BuildTarget resumed;
+            try
+            {
+                resumed = BuildTargets.FromRecord(stored);
+            }
+            catch (RecipeException e)
+            {
+                await SayAsync($"the build target stored with this session cannot be read ({e.Message}); sorting without it", ct).ConfigureAwait(false);
+                return;
+            }
+
+            if (!PlanParts.Wanted(Options.Nominal, resumed.Recipe, new AssemblyOptions()))
+            {
+                await SayAsync($"this session sorts toward {stored.Sets} set(s) of {stored.RecipeName}, which takes no {BuildStatus.Ohms(Options.Nominal)} parts; sorting this batch without the target", ct).ConfigureAwait(false);
+                return;
+            }
+
+            _target = resumed;
+            await SayAsync($"resuming toward {stored.Sets} set(s) of {stored.RecipeName} (kept with the session)", ct).ConfigureAwait(false);
+        }
+
+        if (_ctx.Cups is BuildCupAssigner cups)
+        {
+            cups.Target = _target;
+        }
+    }
 
     // After a part is logged (or when the session opens): ask whether the sets are in hand; if so, say so, export the
     // pick list and let the loop finish; else publish the guidance. A part turned away is said plainly first.
@@ -53,7 +101,7 @@ public sealed partial class SortingLoop
             return;
         }
 
-        _buildCsv = _ctx.Build!.CsvPath;
+        _buildCsv = _target!.CsvPath;
         if (_buildCsv is not null)
         {
             await using var file = new StreamWriter(_buildCsv, append: false);
