@@ -12,10 +12,15 @@ if (args.Length > 0 && args[0] == "settle")
     return await SortRig.Bench.Settling.SettleBenchmark.RunAsync(args, CancellationToken.None);
 }
 
+if (args.Length > 0 && args[0] == "build")
+{
+    return await SortRig.Bench.Building.BuildBenchmark.RunAsync(args, CancellationToken.None);
+}
+
 if (args.Length > 0 && args[0] == "drift")
 {
     return await DriftBenchmark.RunAsync(CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], drift)");
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], drift, build [seeds])");
 return 0;
