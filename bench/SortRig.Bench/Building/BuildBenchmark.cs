@@ -48,6 +48,7 @@ internal static class BuildBenchmark
                     var ratio = (double)measured.Value / oracle;
                     ratios.Add((recipe.Name, sets, ratio));
                     rows.Add(Row($"| {recipe.Name} | {sets} | {seed} | {measured} | {oracle} | {ratio:0.000} | {proven} | {checks} / {measured} | {mean:0.000} s / {max:0.000} s | {how} |"));
+                    Console.WriteLine(rows[^1]);
                 }
             }
         }
