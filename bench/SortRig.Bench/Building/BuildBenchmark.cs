@@ -29,7 +29,8 @@ internal static class BuildBenchmark
             "|---|---|---|---|---|---|---|---|---|---|",
         };
         var ratios = new List<(string Recipe, int Sets, double Ratio)>();
-        foreach (var file in new[] { "matched-quad.yaml", "decade-divider.yaml", "r2r-dac-8bit.yaml" })
+        var only = args.Length > 2 ? args[2] : "";
+        foreach (var file in new[] { "matched-quad.yaml", "decade-divider.yaml", "r2r-dac-8bit.yaml" }.Where(f => f.Contains(only, StringComparison.Ordinal)))
         {
             var recipe = await RecipeLoader.LoadFileAsync(Path.Combine(root, "recipes", file), ct).ConfigureAwait(false);
             foreach (var sets in s_sets)
@@ -49,6 +50,7 @@ internal static class BuildBenchmark
                     ratios.Add((recipe.Name, sets, ratio));
                     rows.Add(Row($"| {recipe.Name} | {sets} | {seed} | {measured} | {oracle} | {ratio:0.000} | {proven} | {checks} / {measured} | {mean:0.000} s / {max:0.000} s | {how} |"));
                     Console.WriteLine(rows[^1]);
+                    await File.AppendAllTextAsync(Path.Combine(root, "docs", "bench-build.partial"), rows[^1] + "\n", ct).ConfigureAwait(false);
                 }
             }
         }
@@ -75,7 +77,7 @@ internal static class BuildBenchmark
             "Worst ratio per recipe and N: " + string.Join("; ", ratios.GroupBy(r => (r.Recipe, r.Sets))
                 .Select(g => string.Create(CultureInfo.InvariantCulture, $"{g.Key.Recipe} N={g.Key.Sets}: {g.Max(r => r.Ratio):0.000}"))),
         ];
-        await File.WriteAllLinesAsync(Path.Combine(root, "docs", "bench-build.md"), md, ct).ConfigureAwait(false);
+        await File.WriteAllLinesAsync(Path.Combine(root, "docs", only.Length == 0 ? "bench-build.md" : $"bench-build-{only}.md"), md, ct).ConfigureAwait(false);
         Console.WriteLine(string.Join('\n', md));
         return 0;
     }
@@ -83,7 +85,7 @@ internal static class BuildBenchmark
     // Feeds the reel through the build check as the sorting loop does; returns the part count at which it stops.
     private static (int? Measured, int Checks, double Mean, double Max) Policy(Recipe recipe, int sets, List<PartCandidate> reel)
     {
-        var check = new BuildCheck(new BuildTarget(recipe, sets, null), new AssemblyOptions(timeLimit: TimeSpan.FromMilliseconds(300)), 0.01);
+        var check = new BuildCheck(new BuildTarget(recipe, sets, null), new AssemblyOptions(exactSetLimit: 20_000, timeLimit: TimeSpan.FromMilliseconds(300)), 0.01);
         var logged = new List<PartRecord>();
         var times = new List<double>();
         foreach (var part in reel)
@@ -94,6 +96,10 @@ internal static class BuildBenchmark
             if (status.Searched)
             {
                 times.Add(sw.Elapsed.TotalSeconds);
+                if (Environment.GetEnvironmentVariable("SORTRIG_BENCH_TRACE") == "1")
+                {
+                    Console.Error.WriteLine(FormattableString.Invariant($"{recipe.Name} N={sets}: part {logged.Count}, {status.SetsFound} set(s), {sw.Elapsed.TotalSeconds:0.00} s"));
+                }
             }
 
             if (status.Complete)

@@ -12,8 +12,10 @@ namespace SortRig.Engine.Sorting;
 
 public sealed partial class SortingLoop
 {
-    // The check's search budget: exact on small sets of parts, else the sweep and a short neighbourhood search.
+    // The check's search budget: exact on small sets of parts while few assignments need judging (a network recipe's
+    // exact enumeration ignores the time limit, so it is capped), else the sweep and a short neighbourhood search.
     private static readonly TimeSpan s_buildSearchLimit = TimeSpan.FromMilliseconds(300);
+    private const int BuildExactSetLimit = 20_000;
 
     private BuildTarget? _target;
     private BuildCheck? _buildCheck;
@@ -23,7 +25,7 @@ public sealed partial class SortingLoop
     private bool SetsComplete => _buildStatus?.Complete == true;
 
     private BuildCheck? Build => _target is { } target
-        ? _buildCheck ??= new BuildCheck(target, new AssemblyOptions(timeLimit: s_buildSearchLimit), Options.StockTolerance)
+        ? _buildCheck ??= new BuildCheck(target, new AssemblyOptions(exactSetLimit: BuildExactSetLimit, timeLimit: s_buildSearchLimit), Options.StockTolerance)
         : null;
 
     /// <summary>How the build ended, for the outcome; null without a target.</summary>
