@@ -34,11 +34,14 @@ public sealed partial class SortingLoop
         : null;
 
     // The target given now is kept with the session (replacing an earlier one); without one, a session that has a
-    // stored target resumes toward it. A stored target that does not take this batch's nominal is not applied.
-    private async Task ResolveBuildTargetAsync(CancellationToken ct)
+    // stored target resumes toward it. A stored target that does not take this batch's nominal is not applied. A new
+    // session has none, so the log is asked only on a resume.
+    private async Task ResolveBuildTargetAsync(bool resumed, CancellationToken ct)
     {
         var given = _ctx.Build;
-        var stored = await DurablyAsync("reading the build target", c => _ctx.Log.GetBuildTargetAsync(_session.Id, c), ct).ConfigureAwait(false);
+        var stored = resumed
+            ? await DurablyAsync("reading the build target", c => _ctx.Log.GetBuildTargetAsync(_session.Id, c), ct).ConfigureAwait(false)
+            : null;
         if (given is not null)
         {
             var record = BuildTargets.ToRecord(given);
@@ -51,10 +54,10 @@ public sealed partial class SortingLoop
         }
         else if (stored is not null)
         {
-            BuildTarget resumed;
+            BuildTarget kept;
             try
             {
-                resumed = BuildTargets.FromRecord(stored);
+                kept = BuildTargets.FromRecord(stored);
             }
             catch (RecipeException e)
             {
@@ -62,13 +65,13 @@ public sealed partial class SortingLoop
                 return;
             }
 
-            if (!PlanParts.Wanted(Options.Nominal, resumed.Recipe, new AssemblyOptions()))
+            if (!PlanParts.Wanted(Options.Nominal, kept.Recipe, new AssemblyOptions()))
             {
                 await SayAsync($"this session sorts toward {stored.Sets} set(s) of {stored.RecipeName}, which takes no {BuildStatus.Ohms(Options.Nominal)} parts; sorting this batch without the target", ct).ConfigureAwait(false);
                 return;
             }
 
-            _target = resumed;
+            _target = kept;
             await SayAsync($"resuming toward {stored.Sets} set(s) of {stored.RecipeName} (kept with the session)", ct).ConfigureAwait(false);
         }
 

@@ -56,7 +56,7 @@ public sealed partial class SortingLoop
             await AnnounceStoredAsync(p, AnnouncementKind.Repeat, completesSet: false, ct).ConfigureAwait(false);
         }
 
-        await ResolveBuildTargetAsync(ct).ConfigureAwait(false);
+        await ResolveBuildTargetAsync(state.Resumed, ct).ConfigureAwait(false);
         await CheckBuildAsync(null, ct).ConfigureAwait(false);
         if (!SetsComplete)
         {
