@@ -17,6 +17,11 @@ if (args.Length > 0 && args[0] == "order")
     return await SortRig.Bench.Ordering.OrderBenchmark.RunAsync(args.Length > 1 ? args[1] : "all", CancellationToken.None);
 }
 
+if (args.Length > 0 && args[0] == "build")
+{
+    return await SortRig.Bench.Building.BuildBenchmark.RunAsync(args, CancellationToken.None);
+}
+
 if (args.Length > 0 && args[0] == "drift")
 {
     return await DriftBenchmark.RunAsync(CancellationToken.None);
@@ -32,5 +37,5 @@ if (args.Length == 4 && args[0] == "lab-worker")
     return await SortRig.Bench.Lab.LabWorker.RunAsync(args[1], args[2], double.Parse(args[3], System.Globalization.CultureInfo.InvariantCulture), CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], order [quad], drift, lab)");
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], order [quad], drift, lab, build [seeds])");
 return 0;

@@ -1,5 +1,6 @@
 using Microsoft.Extensions.Logging;
 using SortRig.Engine.Announcing;
+using SortRig.Engine.Building;
 using SortRig.Engine.Events;
 using SortRig.Engine.Operator;
 using SortRig.Engine.Simulation;
@@ -7,6 +8,7 @@ using SortRig.Engine.Sorting;
 using SortRig.Instruments.Drivers;
 using SortRig.Instruments.Resources;
 using SortRig.Instruments.Transports;
+using SortRig.Planning.Assembly;
 using SortRig.Planning.Cups;
 using SortRig.Simulator;
 using SortRig.Storage;
@@ -57,7 +59,8 @@ public static class SortRunner
                 options.Database,
                 new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
                 ct).ConfigureAwait(false);
-            var cups = CupAssignerFactory.Create(options);
+            var target = await BuildTargets.LoadAsync(options, ct).ConfigureAwait(false);
+            var cups = new BuildCupAssigner(CupAssignerFactory.Create(options), options.StockTolerance, new AssemblyOptions(), options.Assigner == AssignerKind.Slots);
             var context = new SortContext(
                 plan,
                 c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),
@@ -69,7 +72,7 @@ public static class SortRunner
                 services.Commands,
                 hands,
                 services.Time,
-                services.Loggers.CreateLogger("SortRig.Engine.Sorting"));
+                services.Loggers.CreateLogger("SortRig.Engine.Sorting")) { Build = target };
             return await new SortingLoop(context).RunAsync(ct).ConfigureAwait(false);
         }
         finally

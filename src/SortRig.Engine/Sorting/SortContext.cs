@@ -1,5 +1,6 @@
 using Microsoft.Extensions.Logging;
 using SortRig.Engine.Announcing;
+using SortRig.Engine.Building;
 using SortRig.Engine.Events;
 using SortRig.Engine.Operator;
 using SortRig.Instruments.Drivers;
@@ -31,4 +32,8 @@ public sealed record SortContext(
     OperatorCommands Commands,
     IFixtureHands Hands,
     TimeProvider Time,
-    ILogger Logger);
+    ILogger Logger)
+{
+    /// <summary>The build the session sorts toward (a recipe and a number of sets); null to sort the whole reel.</summary>
+    public BuildTarget? Build { get; init; }
+}

@@ -127,6 +127,19 @@ public sealed class SortOptions
     [Range(0, 500)]
     public double FaultsPerThousand { get; set; }
 
+    /// <summary>
+    /// Recipe file (YAML, docs/planning.md) of the build to sort toward; empty sorts the whole reel. With a recipe the
+    /// session stops as soon as <see cref="Sets"/> sets can be formed from the parts measured so far. Default empty.
+    /// </summary>
+    public string Recipe { get; set; } = "";
+
+    /// <summary>Sets of <see cref="Recipe"/> to sort toward; 0 means 1 when a recipe is given. Default 0; 0..64.</summary>
+    [Range(0, 64)]
+    public int Sets { get; set; }
+
+    /// <summary>Where the pick list is exported (CSV) once the sets are in hand; empty for SESSION-sets.csv in the working directory.</summary>
+    public string SetsCsv { get; set; } = "";
+
     /// <summary>Show the live console view (otherwise one plain line per announcement). Default true when interactive.</summary>
     public bool? Live { get; set; }
 

@@ -47,6 +47,7 @@ public sealed partial class SortingLoop
         var kind = decision.IsReject ? AnnouncementKind.Reject : AnnouncementKind.Cup;
         await AnnounceStoredAsync(stored, kind, decision.CompletesSet, ct).ConfigureAwait(false);
         PublishCounts();
+        await CheckBuildAsync(stored, ct).ConfigureAwait(false);
         _ctx.Hands.PartAnnounced();
     }
 

@@ -56,7 +56,13 @@ public sealed partial class SortingLoop
             await AnnounceStoredAsync(p, AnnouncementKind.Repeat, completesSet: false, ct).ConfigureAwait(false);
         }
 
-        await PrepareRangeTransferAsync(state.Batches, ct).ConfigureAwait(false);
+        await ResolveBuildTargetAsync(state.Resumed, ct).ConfigureAwait(false);
+        await CheckBuildAsync(null, ct).ConfigureAwait(false);
+        if (!SetsComplete)
+        {
+            await PrepareRangeTransferAsync(state.Batches, ct).ConfigureAwait(false);
+        }
+
         _ctx.Hands.ResumeAt(_partsRecorded);
     }
 

@@ -82,10 +82,10 @@ public sealed partial class SortingLoop
         }
 
         var live = _ctx.Snapshot.Parts().Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
-        return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, _faults, _finishRequested, _storageFaults);
+        return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, _faults, _finishRequested, _storageFaults) { Build = BuildOutcome };
     }
 
-    private bool Done => _finishRequested || (PlannedParts > 0 && _partsRecorded >= PlannedParts && !_tracker.State.IsBusy());
+    private bool Done => _finishRequested || SetsComplete || (PlannedParts > 0 && _partsRecorded >= PlannedParts && !_tracker.State.IsBusy());
 
     private int PlannedParts => Options.Parts;
 

@@ -39,6 +39,9 @@ internal static class SortCommand
         map.Add(command, new Option<int>("--parts") { Description = "Stop after this many parts; on the simulator the demo reel's length (default 60)" }, "Sort:Parts");
         map.Add(command, new Option<int>("--agree") { Description = "Typed meter (TYPED::profile): entries in a row, a few seconds apart, that must agree within one digit (default 2)" }, "Sort:Agree");
         map.Add(command, new Option<double>("--gap") { Description = "Typed meter: least seconds between two counted entries (default 3)" }, "Sort:Gap");
+        map.Add(command, new Option<string>("--recipe") { Description = "Sort toward a build: recipe file or name under recipes/; the session stops as soon as --sets sets can be formed from the parts measured" }, "Sort:Recipe");
+        map.Add(command, new Option<int>("--sets") { Description = "Sets of --recipe to sort toward (default 1, at most 64)" }, "Sort:Sets");
+        map.Add(command, new Option<string>("--sets-csv") { Description = "Where to export the pick list once the sets are in hand (default SESSION-sets.csv here)" }, "Sort:SetsCsv");
         map.Add(command, new Option<int>("--seed") { Description = "Simulator: seed of the demo reel (default 2026)" }, "Sort:Seed");
         map.Add(command, new Option<string>("--physics") { Description = "Simulator: bench physics of the demo reel, simple (default) or rich (two cooling paths, self-heating, excess and popcorn noise)" }, "Sort:Physics");
         map.Add(command, new Option<double>("--speed") { Description = "Simulator: run virtual time this many times faster (default 1)" }, "Sort:Speed");
@@ -78,6 +81,11 @@ internal static class SortCommand
         {
             await Console.Error.WriteLineAsync($"error: {problem}").ConfigureAwait(false);
             return ParseErrors.BadInput;
+        }
+
+        if (sort.Recipe.Length > 0)
+        {
+            builder.Configuration[$"{SortOptions.Section}:{nameof(SortOptions.Recipe)}"] = sort.Recipe; // resolved to its full path
         }
 
         TimeProvider time = sort.Speed == 1 ? TimeProvider.System : new ScaledTimeProvider(sort.Speed);

@@ -13,7 +13,7 @@ namespace SortRig.Host.Cli;
 /// bad value is one line naming the flag as the user typed it (or the setting, when it came from
 /// appsettings.json or a SORTRIG_ variable) and what is allowed.
 /// </summary>
-internal static class SortInputCheck
+internal static partial class SortInputCheck
 {
     /// <summary>The bound options, or the one-line problem.</summary>
     public static (SortOptions? Options, string? Problem) Bind(IConfiguration configuration, FlagMap? flags)
@@ -98,6 +98,11 @@ internal static class SortInputCheck
             {
                 return (null, $"{Name(nameof(SortOptions.Speed), flags)}: applies to the simulator only; a real meter runs in real time");
             }
+        }
+
+        if (CheckBuild(options, flags) is { } badBuild)
+        {
+            return (null, badBuild);
         }
 
         return (options, null);

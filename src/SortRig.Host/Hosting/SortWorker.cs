@@ -63,6 +63,7 @@ internal sealed class SortWorker(
             await viewStop.CancelAsync().ConfigureAwait(false);
             await view.ConfigureAwait(false);
             SortSummary.Write(AnsiConsole.Console, outcome, snapshot);
+            BuildSummary.Write(AnsiConsole.Console, outcome, sort.Session);
         }
         catch (SortPlanException e)
         {

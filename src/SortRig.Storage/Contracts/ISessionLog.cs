@@ -21,6 +21,9 @@ public interface ISessionLog
     /// <summary>Applies an operator correction (undo, cup correction, remeasure, removed early), keeping history.</summary>
     Task<PartRecord> UndoPartAsync(PartCorrection correction, CancellationToken cancellationToken);
 
+    /// <summary>Records (or replaces) the build a session sorts toward (schema version 4).</summary>
+    Task SetBuildTargetAsync(long sessionId, BuildTargetRecord target, CancellationToken cancellationToken);
+
     /// <summary>Finishes a session; it will not be resumed again. Idempotent.</summary>
     Task<SessionInfo> FinishSessionAsync(long sessionId, CancellationToken cancellationToken);
 }

@@ -6,6 +6,9 @@ public interface ISessionReader
     /// <summary>All sessions, newest first.</summary>
     Task<IReadOnlyList<SessionInfo>> ListSessionsAsync(CancellationToken cancellationToken);
 
+    /// <summary>The build the session sorts toward, or null when it sorts the whole reel.</summary>
+    Task<BuildTargetRecord?> GetBuildTargetAsync(long sessionId, CancellationToken cancellationToken);
+
     /// <summary>Batches of a session in start order.</summary>
     Task<IReadOnlyList<BatchInfo>> GetBatchesAsync(long sessionId, CancellationToken cancellationToken);
 

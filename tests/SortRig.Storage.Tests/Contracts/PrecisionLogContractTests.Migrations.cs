@@ -16,10 +16,10 @@ public abstract partial class PrecisionLogContractTests
         var second = await CreateLogAsync();
         var report = await second.VerifyAsync(CancellationToken.None);
 
-        // Scripts shipped so far: 0001_initial.sql, 0002_drift_by_part.sql, 0003_settle_record.sql.
-        Assert.Equal(["initial", "drift_by_part", "settle_record"], EngineMigrations.Select(m => m.Name));
-        Assert.Equal(3, report.SchemaVersion);
-        Assert.Equal(3, await SchemaVersionRowsAsync());
+        // Scripts shipped so far: 0001_initial.sql, 0002_drift_by_part.sql, 0003_settle_record.sql, 0004_build_target.sql.
+        Assert.Equal(["initial", "drift_by_part", "settle_record", "build_target"], EngineMigrations.Select(m => m.Name));
+        Assert.Equal(4, report.SchemaVersion);
+        Assert.Equal(4, await SchemaVersionRowsAsync());
         Assert.True(report.IsOk, string.Join("; ", report.Problems));
         Assert.Equal(part, await second.GetPartAsync(part.Id, CancellationToken.None));
     }

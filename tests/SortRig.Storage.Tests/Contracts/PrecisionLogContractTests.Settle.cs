@@ -104,7 +104,7 @@ public abstract partial class PrecisionLogContractTests
             CancellationToken.None);
 
         Assert.Equal(2, rowsBefore);
-        Assert.Equal(3, (await log.VerifyAsync(CancellationToken.None)).SchemaVersion);
+        Assert.Equal(EngineMigrations.Count, (await log.VerifyAsync(CancellationToken.None)).SchemaVersion);
         Assert.Equal(SettleRule.Predictive, stored.AcceptedBy);
         Assert.Equal(TwoPathFit.FinalValue, stored.Fit!.FinalValue);
     }
