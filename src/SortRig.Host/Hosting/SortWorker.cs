@@ -35,6 +35,9 @@ internal sealed class SortWorker(
     /// <summary>0 finished, 1 failed, 2 the batch cannot be measured as asked, 130 stopped by Ctrl+C (resumable).</summary>
     public int ExitCode { get; private set; }
 
+    /// <summary>Longest wait, after the session ended, for the live view to draw what a slow terminal has not yet shown.</summary>
+    private static readonly TimeSpan s_viewCatchUp = TimeSpan.FromSeconds(20);
+
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
         var sort = options.Value;
@@ -60,6 +63,15 @@ internal sealed class SortWorker(
             var outcome = typed
                 ? await TypedConsole.RunAsync(sort, services, typedEntries, Console.In, Console.Out, endWithInput: !configuration.GetValue<bool>("Web:Enabled"), stoppingToken).ConfigureAwait(false)
                 : await SortRunner.RunAsync(sort, services, null, stoppingToken).ConfigureAwait(false);
+
+            // A terminal that reads slowly leaves the view behind the session: let it catch up with the events still
+            // queued, up to the end of the session (it stops there by itself), so its last frame counts what the log
+            // holds; it is cut off only when the terminal takes longer than s_viewCatchUp (20 s).
+            if (live && snapshot.Session is { Finished: true })
+            {
+                await Task.WhenAny(view, Task.Delay(s_viewCatchUp, stoppingToken)).ConfigureAwait(false);
+            }
+
             await viewStop.CancelAsync().ConfigureAwait(false);
             await view.ConfigureAwait(false);
             SortSummary.Write(AnsiConsole.Console, outcome, snapshot);

@@ -1,3 +1,4 @@
+using System.Threading.Channels;
 using Spectre.Console;
 using Spectre.Console.Rendering;
 using SortRig.Engine.Announcing;
@@ -14,23 +15,27 @@ internal static class LiveView
 {
     public static async Task RunAsync(IAnsiConsole console, BenchEventHub hub, int partsPlanned, CancellationToken cancellationToken)
     {
-        var model = LiveViewModel.Empty(partsPlanned);
+        var latest = LiveViewModel.Empty(partsPlanned);
         var pacer = new FramePacer(TimeProvider.System);
-        await console.Live(Render(model)).AutoClear(false).StartAsync(async context =>
+
+        // Two loops: one folds every event into the model and never touches the terminal, the other draws the
+        // latest model when the pacer says a frame is due. A terminal that reads slowly holds up only the drawing:
+        // the model stays current, and the frame drawn after a slow write is the newest state, not a queued one.
+        var dirty = Channel.CreateBounded<bool>(new BoundedChannelOptions(1) { FullMode = BoundedChannelFullMode.DropWrite });
+        var folding = Task.Run(async () =>
         {
-            var drawn = true;
             try
             {
                 await foreach (var e in hub.SubscribeAsync(includeHistory: true, cancellationToken).ConfigureAwait(false))
                 {
-                    model = model.Apply(e);
-                    drawn = pacer.Due(e.Kind);
-                    if (drawn)
+                    var next = latest.Apply(e);
+                    Volatile.Write(ref latest, next);
+                    if (pacer.Due(e.Kind))
                     {
-                        context.UpdateTarget(Render(model));
+                        dirty.Writer.TryWrite(true);
                     }
 
-                    if (model.Finished)
+                    if (next.Finished)
                     {
                         break;
                     }
@@ -38,12 +43,29 @@ internal static class LiveView
             }
             catch (OperationCanceledException)
             {
-                // The session ended; leave the last view on screen.
+                // The session ended or was stopped; the last frame shows what was folded.
+            }
+            finally
+            {
+                dirty.Writer.TryComplete();
+            }
+        }, CancellationToken.None);
+
+        await console.Live(Render(latest)).AutoClear(false).StartAsync(async context =>
+        {
+            LiveViewModel? drawn = null;
+            while (await dirty.Reader.WaitToReadAsync(CancellationToken.None).ConfigureAwait(false))
+            {
+                dirty.Reader.TryRead(out _);
+                drawn = Volatile.Read(ref latest);
+                context.UpdateTarget(Render(drawn));
             }
 
-            if (!drawn)
+            await folding.ConfigureAwait(false);
+            var last = Volatile.Read(ref latest);
+            if (!ReferenceEquals(last, drawn))
             {
-                context.UpdateTarget(Render(model)); // the latest state, not the last frame drawn
+                context.UpdateTarget(Render(last)); // the latest state, not the last frame drawn
             }
         }).ConfigureAwait(false);
     }
