@@ -23,7 +23,7 @@ public sealed class BuildEndToEndTests(ITestOutputHelper output) : IDisposable
     public async Task LadderSession_StopsWithTheSetsComplete_PickListMeetsTheSpecOnTheTruth()
     {
         var recipePath = Path.Combine(_dir, "ladder-pair.yaml");
-        await File.WriteAllTextAsync(recipePath, LadderPairYaml);
+        await File.WriteAllTextAsync(recipePath, BuildParts.LadderPairYaml);
         var csv = Path.Combine(_dir, "sets.csv");
         var session = new RangeTransferSession(Path.Combine(_dir, "build.db"));
 
@@ -76,17 +76,4 @@ public sealed class BuildEndToEndTests(ITestOutputHelper output) : IDisposable
         o.SetsCsv = csv;
         return o;
     }
-
-    // Invented test recipe: a two-bit ladder section, two R and two 2R matched to 0.2 %.
-    private const string LadderPairYaml = """
-        recipe: ladder-pair
-        form: matched
-        match-ppm: 2000
-        base: 10k
-        positions:
-          - { name: S1, ratio: 1 }
-          - { name: S2, ratio: 1 }
-          - { name: L1, ratio: 2 }
-          - { name: L2, ratio: 2 }
-        """;
 }

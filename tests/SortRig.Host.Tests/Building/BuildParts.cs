@@ -20,8 +20,8 @@ internal static class BuildParts
           - { name: R4, ratio: 1 }
         """, "quad-test.yaml");
 
-    /// <summary>A two-nominal ladder section matched to 2000 ppm: two R and two 2R (invented test recipe).</summary>
-    public static Recipe LadderPair => RecipeLoader.Load("""
+    /// <summary>The text of <see cref="LadderPair"/>, for tests that hand the sort verb a recipe file.</summary>
+    public const string LadderPairYaml = """
         recipe: ladder-pair
         form: matched
         match-ppm: 2000
@@ -31,7 +31,10 @@ internal static class BuildParts
           - { name: S2, ratio: 1 }
           - { name: L1, ratio: 2 }
           - { name: L2, ratio: 2 }
-        """, "ladder-pair.yaml");
+        """;
+
+    /// <summary>A two-nominal ladder section matched to 2000 ppm: two R and two 2R (invented test recipe).</summary>
+    public static Recipe LadderPair => RecipeLoader.Load(LadderPairYaml, "ladder-pair.yaml");
 
     /// <summary>Five 10k and seven 20k positions, every 20k one may be two 10k in series (the shape of an 8-bit R-2R ladder; invented test recipe).</summary>
     public static Recipe Ladder8 => RecipeLoader.Load("""
