@@ -68,9 +68,13 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         var rule = SettleTargetRule.For(decision, settle);
         if (!rule.Reachable)
         {
+            var window = rule.WindowFits
+                ? ""
+                : string.Create(CultureInfo.InvariantCulture,
+                    $", and {settle.RequiredReadings} readings take more than half of the {settle.MaxSettleTime.TotalSeconds:G} s settle time");
             throw new SortPlanException(
                 string.Create(CultureInfo.InvariantCulture,
-                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm allows a settle target of at most {rule.CapPpm:0.##} ppm; on the {decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC the reading noise lets a settled part reach {rule.FloorPpm:0.##} ppm, and the target must be {SettleTargetRule.ReachMargin:G} times that ({SettleTargetRule.ReachMargin * rule.FloorPpm:0.##} ppm){(rule.WindowFits ? "" : $", and {settle.RequiredReadings} readings take more than half of the {settle.MaxSettleTime.TotalSeconds:G} s settle time")}: parts would end unstable."),
+                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm allows a settle target of at most {rule.CapPpm:0.##} ppm; on the {decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC the reading noise lets a settled part reach {rule.FloorPpm:0.##} ppm, and the target must be {SettleTargetRule.ReachMargin:G} times that ({SettleTargetRule.ReachMargin * rule.FloorPpm:0.##} ppm){window}: parts would end unstable."),
                 SettleTargetRule.Remedies(meter, decision, settle, rule));
         }
 

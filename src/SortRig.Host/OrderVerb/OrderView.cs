@@ -41,8 +41,11 @@ internal static class OrderView
             console.MarkupLine(Markup.Escape(Invariant($"{Percent(level.Confidence)}: buy {level.TotalParts} parts{(level.Trimmed ? " (trimmed per nominal)" : "")}{cost}; {level.Reached * 100:0.#} % of trials made {e.SetsWanted} sets from it")));
         }
 
+        var method = repeatable
+            ? "window sweep per trial (repeatable by seed)"
+            : "time-limited search per trial (not repeatable)";
         console.MarkupLine(Markup.Escape(Invariant(
-            $"{e.Trials} trials, seed {e.Seed}, {e.NotReached} not reached within --max-parts; mean smallest order {e.MeanSetEquivalents:0.0} sets' worth; {(repeatable ? "window sweep per trial (repeatable by seed)" : "time-limited search per trial (not repeatable)")}; {e.Elapsed.TotalSeconds:0.0} s")));
+            $"{e.Trials} trials, seed {e.Seed}, {e.NotReached} not reached within --max-parts; mean smallest order {e.MeanSetEquivalents:0.0} sets' worth; {method}; {e.Elapsed.TotalSeconds:0.0} s")));
     }
 
     public static string Percent(double p) => Invariant($"{p * 100:0.#} %");

@@ -52,9 +52,10 @@ internal static class ReportInputBuilder
     {
         var sessions = await log.ListSessionsAsync(ct).ConfigureAwait(false);
         var byId = long.TryParse(nameOrId, NumberStyles.None, CultureInfo.InvariantCulture, out var id) ? sessions.FirstOrDefault(s => s.Id == id) : null;
+        var known = sessions.Count == 0 ? "none" : string.Join(", ", sessions.Take(10).Select(s => $"'{s.Name}' ({s.Id})"));
         return byId ?? sessions.FirstOrDefault(s => s.Name == nameOrId)
             ?? throw new ArgumentException(
-                $"--session: no session named or numbered '{nameOrId}'; sessions are {(sessions.Count == 0 ? "none" : string.Join(", ", sessions.Take(10).Select(s => $"'{s.Name}' ({s.Id})")))}.",
+                $"--session: no session named or numbered '{nameOrId}'; sessions are {known}.",
                 nameof(nameOrId));
     }
 

@@ -83,7 +83,8 @@ internal static class CommandSectionReader
     private sealed record Rule(string Key, Need Need, string[] Required, string[] Allowed, bool Query)
     {
         public string Describe() =>
-            $"{(Query ? "a query" : "a command")}{(Required.Length > 0 ? " using " + string.Join(", ", Required.Select(p => $"{{{p}}}")) : string.Empty)}";
+            (Query ? "a query" : "a command")
+            + (Required.Length > 0 ? " using " + string.Join(", ", Required.Select(p => $"{{{p}}}")) : string.Empty);
 
         public CommandTemplate Check(YamlField field)
         {

@@ -81,6 +81,6 @@ public static class RangeRule
         meter.Nplcs.FirstOrDefault(p => Math.Abs(p.Nplc - nplc) <= 1e-9 * Math.Max(1.0, nplc))
         ?? throw new ArgumentException(
             $"NPLC {nplc:G6} is not a setting of meter family '{meter.Family}'; expected one of " +
-            $"{string.Join(", ", meter.Nplcs.Select(p => p.Nplc.ToString("G6", System.Globalization.CultureInfo.InvariantCulture)))}.",
+            string.Join(", ", meter.Nplcs.Select(p => p.Nplc.ToString("G6", System.Globalization.CultureInfo.InvariantCulture))) + ".",
             nameof(nplc));
 }

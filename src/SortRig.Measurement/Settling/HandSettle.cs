@@ -59,7 +59,7 @@ public sealed class HandSettle
 
             if (gap < _options.MinGap)
             {
-                return new HandSettleVerdict(HandSettleState.TooSoon, Text(
+                return new HandSettleVerdict(HandSettleState.TooSoon, string.Create(CultureInfo.InvariantCulture,
                     $"that was only {gap.TotalSeconds:0.0} s after the last entry, not counted: let go of the part, wait {_options.MinGap.TotalSeconds:0.#} s, read again"),
                     _entries.Count);
             }
@@ -69,7 +69,7 @@ public sealed class HandSettle
         var k = _options.Agreeing;
         if (_entries.Count < k)
         {
-            return new HandSettleVerdict(HandSettleState.Confirming, Text(
+            return new HandSettleVerdict(HandSettleState.Confirming, string.Create(CultureInfo.InvariantCulture,
                 $"got {_range.Show(entry.Value)} ({_entries.Count} of {k}): let go of the part, wait a few seconds, read again"), _entries.Count);
         }
 
@@ -79,19 +79,19 @@ public sealed class HandSettle
         {
             _done = true;
             var value = DisplayUncertainty.For(_range, last.Average());
-            return new HandSettleVerdict(HandSettleState.Accepted, Text($"accepted {_range.Show(value.Value)}"), _entries.Count, value, [.. _entries]);
+            return new HandSettleVerdict(HandSettleState.Accepted, string.Create(CultureInfo.InvariantCulture, $"accepted {_range.Show(value.Value)}"), _entries.Count, value, [.. _entries]);
         }
 
         var previous = _entries[^2].Value;
         if (_entries.Count >= _options.MaxEntries)
         {
             _done = true;
-            return new HandSettleVerdict(HandSettleState.Unstable, Text(
+            return new HandSettleVerdict(HandSettleState.Unstable, string.Create(CultureInfo.InvariantCulture,
                 $"still moving after {_entries.Count} readings ({_range.Show(_entries.Min(r => r.Value))} to {_range.Show(_entries.Max(r => r.Value))}): set the part aside to cool and measure it later"),
                 _entries.Count, null, [.. _entries]);
         }
 
-        return new HandSettleVerdict(HandSettleState.Moving, Text(
+        return new HandSettleVerdict(HandSettleState.Moving, string.Create(CultureInfo.InvariantCulture,
             $"the reading moved from {_range.Show(previous)} to {_range.Show(entry.Value)}: let go of the part, wait a few seconds, read again"), _entries.Count);
     }
 
@@ -102,5 +102,4 @@ public sealed class HandSettle
         _done = false;
     }
 
-    private static string Text(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -34,8 +34,10 @@ public static class LabRoles
             GRANT USAGE ON SCHEMA {schema} TO {writer};
             GRANT SELECT, INSERT, UPDATE ON ALL TABLES IN SCHEMA {schema} TO {writer};
             GRANT USAGE, SELECT ON ALL SEQUENCES IN SCHEMA {schema} TO {writer};
-            ALTER DEFAULT PRIVILEGES FOR ROLE {owner} IN SCHEMA {schema} GRANT SELECT, INSERT, UPDATE ON TABLES TO {writer};
-            ALTER DEFAULT PRIVILEGES FOR ROLE {owner} IN SCHEMA {schema} GRANT USAGE, SELECT ON SEQUENCES TO {writer};
+            ALTER DEFAULT PRIVILEGES FOR ROLE {owner} IN SCHEMA {schema}
+                GRANT SELECT, INSERT, UPDATE ON TABLES TO {writer};
+            ALTER DEFAULT PRIVILEGES FOR ROLE {owner} IN SCHEMA {schema}
+                GRANT USAGE, SELECT ON SEQUENCES TO {writer};
             ALTER ROLE {owner} IN DATABASE {database} SET search_path = {schema};
             ALTER ROLE {writer} IN DATABASE {database} SET search_path = {schema};
             """;

@@ -71,6 +71,10 @@ internal sealed partial record ProfileEdit(ProfileEditKind Kind, int Where, stri
     private string ReplaceAt(string text, Match m) => string.Concat(text.AsSpan(0, m.Index), Payload, text.AsSpan(m.Index + m.Length));
 
     // A value after "key: ", "- " or inside a [flow, list]: a quoted string, or plain text up to a comma, bracket or comment.
-    [GeneratedRegex(@"(?<=(?::|-|[\[,])[ \t]+|\[)(?:""[^""\n]*""|'[^'\n]*'|[^\s{}\[\],#:""'][^{}\[\],#\n:]*?)(?=[ \t]*(?:[,\]}#\n]|\z))", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(
+        @"(?<=(?::|-|[\[,])[ \t]+|\[)"
+        + @"(?:""[^""\n]*""|'[^'\n]*'|[^\s{}\[\],#:""'][^{}\[\],#\n:]*?)"
+        + @"(?=[ \t]*(?:[,\]}#\n]|\z))",
+        RegexOptions.CultureInvariant)]
     private static partial Regex Scalar();
 }
