@@ -44,14 +44,14 @@ internal static class BuildBenchmark
                     var (measured, checks, mean, max) = Policy(recipe, sets, reel);
                     if (measured is null)
                     {
-                        rows.Add(Row($"| {recipe.Name} | {sets} | {seed} | not within {reel.Count} | | | | | | |"));
+                        rows.Add(Invariant($"| {recipe.Name} | {sets} | {seed} | not within {reel.Count} | | | | | | |"));
                         continue;
                     }
 
                     var (oracle, proven, how) = Oracle(recipe, sets, reel, measured.Value);
                     var ratio = (double)measured.Value / oracle;
                     ratios.Add((recipe.Name, sets, ratio));
-                    rows.Add(Row($"| {recipe.Name} | {sets} | {seed} | {measured} | {oracle} | {ratio:0.000} | {proven} | {checks} / {measured} | {mean:0.000} s / {max:0.000} s | {how} |"));
+                    rows.Add(Invariant($"| {recipe.Name} | {sets} | {seed} | {measured} | {oracle} | {ratio:0.000} | {proven} | {checks} / {measured} | {mean:0.000} s / {max:0.000} s | {how} |"));
                     Console.WriteLine(rows[^1]);
                     await File.AppendAllTextAsync(Path.Combine(root, "docs", "bench-build.partial"), rows[^1] + "\n", ct).ConfigureAwait(false);
                 }
@@ -141,7 +141,7 @@ internal static class BuildBenchmark
         p.Id, Guid.Empty, 1, 1, (int)p.Id, p.Nominal, p.Value, 1e5, 1, null, default, null, p.Location, PartState.Announced, true, null,
         LibraryStatus.Available, null);
 
-    private static string Row(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 
     private static string FindRoot()
     {

@@ -11,11 +11,12 @@ internal static class OrderBenchmark
     public static async Task<int> RunAsync(string which, CancellationToken ct)
     {
         var root = FindRoot();
+        var now = DateTimeOffset.FromUnixTimeSeconds(TimeProvider.System.GetUtcNow().ToUnixTimeSeconds());
         var md = new List<string>
         {
             "# Order estimate benchmark (`dotnet run -c Release --project bench/SortRig.Bench -- order`)",
             "",
-            string.Create(System.Globalization.CultureInfo.InvariantCulture, $"Run of {DateTimeOffset.FromUnixTimeSeconds(TimeProvider.System.GetUtcNow().ToUnixTimeSeconds()):yyyy-MM-dd HH:mm} UTC on {Environment.ProcessorCount} cores shared with other builds (times include the pilot reel and both passes: smallest order per trial, then leftovers and the 8-point curve). Stock: our own invented demo reels; transfer uncertainty 20 ppm; seed 1; the trial assembler is the window sweep alone (`OrderOptions.FastAssembly`)."),
+            string.Create(System.Globalization.CultureInfo.InvariantCulture, $"Run of {now:yyyy-MM-dd HH:mm} UTC on {Environment.ProcessorCount} cores shared with other builds (times include the pilot reel and both passes: smallest order per trial, then leftovers and the 8-point curve). Stock: our own invented demo reels; transfer uncertainty 20 ppm; seed 1; the trial assembler is the window sweep alone (`OrderOptions.FastAssembly`)."),
             "",
             "| recipe | stock | sets | trials | order 90 / 95 / 99 % (sets' worth) | parts at 95 % | not reached | time (s) |",
             "|---|---|---:|---:|---|---:|---:|---:|",

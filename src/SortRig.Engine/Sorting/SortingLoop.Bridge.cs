@@ -1,3 +1,4 @@
+using System.Globalization;
 using SortRig.Measurement.Settling;
 using SortRig.Measurement.Specs;
 using SortRig.Measurement.Uncertainty;
@@ -55,7 +56,7 @@ public sealed partial class SortingLoop
             }
             else if (verdict.State == SettleState.Unstable)
             {
-                await SayAsync($"bridging part not settling on the {range.FullScale:G6} Ohm range ({verdict.Failure!.Reason}): reseat it; measuring again", ct).ConfigureAwait(false);
+                await SayAsync(string.Create(CultureInfo.InvariantCulture, $"bridging part not settling on the {range.FullScale:G6} Ohm range ({verdict.Failure!.Reason}): reseat it; measuring again"), ct).ConfigureAwait(false);
                 tracker.Reset();
             }
         }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Building;
 using SortRig.Engine.Events;
@@ -61,18 +62,18 @@ public sealed partial class SortingLoop
             }
             catch (RecipeException e)
             {
-                await SayAsync($"the build target stored with this session cannot be read ({e.Message}); sorting without it", ct).ConfigureAwait(false);
+                await SayAsync(string.Create(CultureInfo.InvariantCulture, $"the build target stored with this session cannot be read ({e.Message}); sorting without it"), ct).ConfigureAwait(false);
                 return;
             }
 
             if (!PlanParts.Wanted(Options.Nominal, kept.Recipe, new AssemblyOptions()))
             {
-                await SayAsync($"this session sorts toward {stored.Sets} set(s) of {stored.RecipeName}, which takes no {BuildStatus.Ohms(Options.Nominal)} parts; sorting this batch without the target", ct).ConfigureAwait(false);
+                await SayAsync(string.Create(CultureInfo.InvariantCulture, $"this session sorts toward {stored.Sets} set(s) of {stored.RecipeName}, which takes no {BuildStatus.Ohms(Options.Nominal)} parts; sorting this batch without the target"), ct).ConfigureAwait(false);
                 return;
             }
 
             _target = kept;
-            await SayAsync($"resuming toward {stored.Sets} set(s) of {stored.RecipeName} (kept with the session)", ct).ConfigureAwait(false);
+            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"resuming toward {stored.Sets} set(s) of {stored.RecipeName} (kept with the session)"), ct).ConfigureAwait(false);
         }
 
         if (_ctx.Cups is BuildCupAssigner cups)
@@ -94,7 +95,7 @@ public sealed partial class SortingLoop
         {
             var why = b.LastReason;
             var where = Options.Assigner == AssignerKind.Slots ? "put it back in the bag" : "put it in the reject cup";
-            await SayAsync($"part {part.Number} cannot help the build ({why}): {where}; it stays in the log", ct).ConfigureAwait(false);
+            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"part {part.Number} cannot help the build ({why}): {where}; it stays in the log"), ct).ConfigureAwait(false);
         }
 
         var parts = await DurablyAsync("reading the session's parts", c => _ctx.Log.GetPartsAsync(_session.Id, c), ct).ConfigureAwait(false);
@@ -115,7 +116,7 @@ public sealed partial class SortingLoop
 
         var where2 = status.Plan!.List.Source == PickSource.Cups ? "by cup" : Options.Assigner == AssignerKind.Slots ? "by slot" : "by part";
         var csv = _buildCsv is null ? "" : $"; pick list written to {_buildCsv}";
-        await SayAsync($"sets complete: {status.Target.Sets} set(s) of {status.Target.Recipe.Name} are in hand after {parts.Count} part(s); stop feeding and pick them {where2}{csv}", ct).ConfigureAwait(false);
+        await SayAsync(string.Create(CultureInfo.InvariantCulture, $"sets complete: {status.Target.Sets} set(s) of {status.Target.Recipe.Name} are in hand after {parts.Count} part(s); stop feeding and pick them {where2}{csv}"), ct).ConfigureAwait(false);
         _ctx.Hub.Publish(new BenchEvent(0, BenchEventKind.Notice, default, State: "build", Text: status.Line()));
     }
 }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Events;
 using SortRig.Planning.Cups;
@@ -71,7 +72,7 @@ public sealed partial class SortingLoop
     {
         if (!Done)
         {
-            await SayAsync($"ready: {Options.Nominal:G6} Ohm on the {_ctx.Plan.Range:G6} Ohm range at NPLC {_ctx.Plan.Nplc:G4}; put part {_partsRecorded + 1} in the fixture", ct).ConfigureAwait(false);
+            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"ready: {Options.Nominal:G6} Ohm on the {_ctx.Plan.Range:G6} Ohm range at NPLC {_ctx.Plan.Nplc:G4}; put part {_partsRecorded + 1} in the fixture"), ct).ConfigureAwait(false);
         }
 
         _ctx.Hands.Ready();

@@ -22,7 +22,7 @@ public sealed partial class SortingLoop
         if (_batch.RangeTransfer is { } recorded)
         {
             _correction = new RangeCorrection(1 + (recorded.CorrectionPpm * 1e-6), recorded.StandardUncertaintyPpm * 1e-6, recorded.ToRange, recorded.FromRange);
-            await SayAsync($"range transfer already recorded for this batch: values on the {recorded.FromRange:G6} Ohm range corrected by {recorded.CorrectionPpm:+0.0;-0.0} ppm (u = {recorded.StandardUncertaintyPpm:0.0} ppm)", ct).ConfigureAwait(false);
+            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer already recorded for this batch: values on the {recorded.FromRange:G6} Ohm range corrected by {recorded.CorrectionPpm:+0.0;-0.0} ppm (u = {recorded.StandardUncertaintyPpm:0.0} ppm)"), ct).ConfigureAwait(false);
             return;
         }
 
@@ -43,7 +43,7 @@ public sealed partial class SortingLoop
         }
         catch (Exception e) when (e is ArgumentException or InvalidOperationException)
         {
-            await SayAsync($"range transfer cannot be planned ({e.Message}); values on this range are not corrected", ct).ConfigureAwait(false);
+            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer cannot be planned ({e.Message}); values on this range are not corrected"), ct).ConfigureAwait(false);
             return;
         }
 
@@ -53,7 +53,7 @@ public sealed partial class SortingLoop
         if (Options.Bridge == BridgeMode.Off || (Options.Bridge == BridgeMode.Auto && !needed))
         {
             var why = needed ? "the match band needs one, but range transfer is off" : "the match band allows it";
-            await SayAsync($"ratios to the {first.Setup.Range:G6} Ohm range batch carry up to ±{gainPpm:0} ppm of range gain error (allowed {allowedPpm:0} ppm), not corrected: {why}", ct).ConfigureAwait(false);
+            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"ratios to the {first.Setup.Range:G6} Ohm range batch carry up to ±{gainPpm:0} ppm of range gain error (allowed {allowedPpm:0} ppm), not corrected: {why}"), ct).ConfigureAwait(false);
             return;
         }
 
@@ -67,7 +67,7 @@ public sealed partial class SortingLoop
         var bridge = transfer.BridgeNominal;
         var ontoLow = transfer.HighRange.FullScale == _ctx.Plan.Range;
         var whose = ontoLow ? "from the earlier batch" : "of this batch";
-        await SayAsync($"range transfer: the {transfer.HighRange.FullScale:G6} Ohm range may read up to ±{gainPpm:0} ppm off the {transfer.LowRange.FullScale:G6} Ohm range. Put one {bridge:G6} Ohm part {whose} in the fixture as a bridging part (it is not stored)", ct).ConfigureAwait(false);
+        await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer: the {transfer.HighRange.FullScale:G6} Ohm range may read up to ±{gainPpm:0} ppm off the {transfer.LowRange.FullScale:G6} Ohm range. Put one {bridge:G6} Ohm part {whose} in the fixture as a bridging part (it is not stored)"), ct).ConfigureAwait(false);
         await _ctx.Hands.PlaceBridgingPartAsync(bridge, ct).ConfigureAwait(false);
         RangeCorrection correction;
         while (true)
@@ -82,7 +82,7 @@ public sealed partial class SortingLoop
             }
             catch (ArgumentException e)
             {
-                await SayAsync($"bridging part: {e.Message} Leave one part in the fixture; measuring it again", ct).ConfigureAwait(false);
+                await SayAsync(string.Create(CultureInfo.InvariantCulture, $"bridging part: {e.Message} Leave one part in the fixture; measuring it again"), ct).ConfigureAwait(false);
             }
         }
 
@@ -93,7 +93,7 @@ public sealed partial class SortingLoop
         _batch = await DurablyAsync("the range transfer", c => _ctx.Log.RecordRangeTransferAsync(_batch.Id, record, c), ct).ConfigureAwait(false);
         _correction = correction;
         CrashPoint.Pass(CrashSite.Bridged);
-        await SayAsync($"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out", ct).ConfigureAwait(false);
+        await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out"), ct).ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
         SetActiveRange(0); // the batch's own range from here on
@@ -103,6 +103,6 @@ public sealed partial class SortingLoop
         }
     }
 
-    private ValueTask SayAsync(FormattableString text, CancellationToken ct) =>
-        _ctx.Announcer.AnnounceAsync(Announcement.Info(text.ToString(CultureInfo.InvariantCulture)), ct);
+    private ValueTask SayAsync(string text, CancellationToken ct) =>
+        _ctx.Announcer.AnnounceAsync(Announcement.Info(text), ct);
 }

@@ -48,10 +48,10 @@ internal static class ReachRunner
     private static void Write(IAnsiConsole console, ReachResult r, string title, Recipe recipe)
     {
         var tightest = r.MatchPpm is { } ppm
-            ? I($"match {ppm:0.#} ppm (recipe {recipe.MatchTolerancePpm:0.#} ppm; at {recipe.MatchTolerancePpm * r.TighterScale:0.#} ppm only {r.SetsAtTighter} set(s))")
-            : I($"every output tolerance × {r.Scale:0.###} (at × {r.TighterScale:0.###} only {r.SetsAtTighter} set(s))");
-        console.MarkupLine(Markup.Escape(I($"Reach of {r.Parts} part(s) from {title} for {r.SetsWanted} set(s) of {r.RecipeName}: {r.SetsAsWritten} set(s) as written.")));
-        console.MarkupLine(Markup.Escape(I($"tightest for {r.SetsWanted} set(s): {tightest}; {r.SetsAtScale} set(s) there; {r.Assemblies} assembler runs")));
+            ? Invariant($"match {ppm:0.#} ppm (recipe {recipe.MatchTolerancePpm:0.#} ppm; at {recipe.MatchTolerancePpm * r.TighterScale:0.#} ppm only {r.SetsAtTighter} set(s))")
+            : Invariant($"every output tolerance × {r.Scale:0.###} (at × {r.TighterScale:0.###} only {r.SetsAtTighter} set(s))");
+        console.MarkupLine(Markup.Escape(Invariant($"Reach of {r.Parts} part(s) from {title} for {r.SetsWanted} set(s) of {r.RecipeName}: {r.SetsAsWritten} set(s) as written.")));
+        console.MarkupLine(Markup.Escape(Invariant($"tightest for {r.SetsWanted} set(s): {tightest}; {r.SetsAtScale} set(s) there; {r.Assemblies} assembler runs")));
         if (r.ExtraParts.Count == 0)
         {
             console.MarkupLine("no single extra part makes one more set from the leftovers: they lack more than one part");
@@ -67,11 +67,11 @@ internal static class ReachRunner
         foreach (var x in r.ExtraParts)
         {
             table.AddRow(OrderView.Ohms(x.Nominal), Format.Value(x.LowOhms), Format.Value(x.HighOhms), Format.Ppm(x.LowPpm), Format.Ppm(x.HighPpm),
-                I($"{x.ExpandedUncertaintyOhms / x.Nominal * 1e6:0.#}"));
+                Invariant($"{x.ExpandedUncertaintyOhms / x.Nominal * 1e6:0.#}"));
         }
 
         console.Write(table);
     }
 
-    private static string I(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

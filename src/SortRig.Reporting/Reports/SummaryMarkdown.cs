@@ -15,7 +15,7 @@ internal static class SummaryMarkdown
         var md = new StringBuilder();
         Line(md, "# " + MarkdownText.Escape(title));
         Line(md, string.Empty);
-        Row(md, $"Generated {generated.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC. {partCount} parts over {figures.Nominals.Count} nominal values; {figures.Channels.Count} drift channels.");
+        Row(md, string.Create(CultureInfo.InvariantCulture, $"Generated {generated.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC. {partCount} parts over {figures.Nominals.Count} nominal values; {figures.Channels.Count} drift channels."));
         if (paceLine is not null)
         {
             Line(md, string.Empty);
@@ -30,7 +30,7 @@ internal static class SummaryMarkdown
         foreach (NominalSummary n in figures.Nominals)
         {
             string tol = n.TolerancePercent is { } t ? $"±{t:G3} %" : "n/a";
-            Row(md, $"| {OhmsText.Compact(n.NominalOhms)} | {n.Count} | {n.MeanPpm:F1} | {Num(n.StdDevPpm, "F1")} | {n.MinPpm:F1} | {n.MaxPpm:F1} | {tol} | [{n.HistogramFile}]({n.HistogramFile}) |");
+            Row(md, string.Create(CultureInfo.InvariantCulture, $"| {OhmsText.Compact(n.NominalOhms)} | {n.Count} | {n.MeanPpm:F1} | {Num(n.StdDevPpm, "F1")} | {n.MinPpm:F1} | {n.MaxPpm:F1} | {tol} | [{n.HistogramFile}]({n.HistogramFile}) |"));
         }
 
         Line(md, string.Empty);
@@ -40,7 +40,7 @@ internal static class SummaryMarkdown
         Line(md, "|---|---:|");
         foreach (KeyValuePair<string, int> cup in figures.CupCounts)
         {
-            Row(md, $"| {MarkdownText.Escape(cup.Key)} | {cup.Value} |");
+            Row(md, string.Create(CultureInfo.InvariantCulture, $"| {MarkdownText.Escape(cup.Key)} | {cup.Value} |"));
         }
 
         Line(md, string.Empty);
@@ -61,7 +61,7 @@ internal static class SummaryMarkdown
                 string jd = c.Joint is { } j ? Pm(j.PpmPerHour) : "n/a";
                 string tc = c.Joint is { } k ? Pm(k.PpmPerKelvin) : $"n/a ({c.JointNote})";
                 string plots = c.AdevPlotFile is null ? $"[drift]({c.DriftPlotFile})" : $"[drift]({c.DriftPlotFile}), [ADEV]({c.AdevPlotFile})";
-                Row(md, $"| {MarkdownText.Escape(c.Channel)} | {c.Count} | {c.SpanHours:F2} | {drift} | {jd} | {tc} | {plots} |");
+                Row(md, string.Create(CultureInfo.InvariantCulture, $"| {MarkdownText.Escape(c.Channel)} | {c.Count} | {c.SpanHours:F2} | {drift} | {jd} | {tc} | {plots} |"));
             }
 
             Line(md, string.Empty);
@@ -73,12 +73,12 @@ internal static class SummaryMarkdown
             {
                 foreach (AllanPoint p in c.Adev.Where(p => adevFactors.Contains(p.AveragingFactor)))
                 {
-                    Row(md, $"| {MarkdownText.Escape(c.Channel)} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |");
+                    Row(md, string.Create(CultureInfo.InvariantCulture, $"| {MarkdownText.Escape(c.Channel)} | {p.TauSeconds:G6} | {p.Deviation * 1e6:G3} | {p.Lower * 1e6:G3} .. {p.Upper * 1e6:G3} | {p.TermCount} |"));
                 }
 
                 if (!c.EvenlySpaced && c.Adev.Count > 0)
                 {
-                    Row(md, $"| {MarkdownText.Escape(c.Channel)} | note: intervals vary more than 25 % around τ0 = {c.Tau0Seconds:G4} s; ADEV assumes even spacing | | | |");
+                    Row(md, string.Create(CultureInfo.InvariantCulture, $"| {MarkdownText.Escape(c.Channel)} | note: intervals vary more than 25 % around τ0 = {c.Tau0Seconds:G4} s; ADEV assumes even spacing | | | |"));
                 }
             }
 
@@ -89,7 +89,7 @@ internal static class SummaryMarkdown
         Line(md, string.Empty);
         foreach (string file in figures.Files.Where(f => f.EndsWith(".csv", StringComparison.Ordinal)))
         {
-            Row(md, $"- [{file}]({file})");
+            Row(md, string.Create(CultureInfo.InvariantCulture, $"- [{file}]({file})"));
         }
 
         return md.ToString();
@@ -99,7 +99,7 @@ internal static class SummaryMarkdown
 
     private static string Num(double v, string format) => double.IsFinite(v) ? v.ToString(format, CultureInfo.InvariantCulture) : "n/a";
 
-    private static void Row(StringBuilder md, FormattableString text) => md.Append(text.ToString(CultureInfo.InvariantCulture)).Append('\n');
+    private static void Row(StringBuilder md, string text) => md.Append(text).Append('\n');
 
     private static void Line(StringBuilder md, string text) => md.Append(text).Append('\n');
 }
