@@ -39,7 +39,7 @@ internal static class PickPlanner
             note += "; the parts share cups, so telling them apart by id needs each one measured again";
         }
 
-        return new PlanOutcome(list, offered, picked, new Dictionary<string, (double, double)>(), note);
+        return new PlanOutcome(list, offered, picked, new Dictionary<(double, string), (double, double)>(), note);
     }
 
     private static PlanOutcome ByCup(Recipe recipe, List<PartRecord> offered, AssemblyOptions options, bool qualify)
@@ -47,15 +47,15 @@ internal static class PickPlanner
         var cups = CupBands.From(recipe, offered, options, qualify);
         var drafted = PickListBuilder.FromCups(recipe, cups.Select(c => c.Count).ToList());
         var queues = cups.ToDictionary(c => (c.Count.Nominal, c.Count.CupLabel), c => new Queue<long>(c.Members));
-        var bands = cups.ToDictionary(c => c.Count.CupLabel, c => (c.Count.LowPpm, c.Count.HighPpm), StringComparer.Ordinal);
+        var bands = cups.ToDictionary(c => (c.Count.Nominal, c.Count.CupLabel), c => (c.Count.LowPpm, c.Count.HighPpm));
         var sets = new List<PickSet>();
         var picked = new List<long>();
         foreach (var set in drafted.Sets)
         {
             // The builder adds band spans in ppm; the exact worst case is (1 + high) / (1 + low) - 1. Keep a set only
             // when that meets the tolerance too (it differs by under 1 % of the span for 1 % parts).
-            var low = set.Items.Min(i => bands[i.Source].LowPpm);
-            var high = set.Items.Max(i => bands[i.Source].HighPpm);
+            var low = set.Items.Min(i => bands[(i.Nominal, i.Source)].LowPpm);
+            var high = set.Items.Max(i => bands[(i.Nominal, i.Source)].HighPpm);
             var worst = ((1 + (high * 1e-6)) / (1 + (low * 1e-6)) - 1) * 1e6;
             if (worst > recipe.MatchTolerancePpm)
             {

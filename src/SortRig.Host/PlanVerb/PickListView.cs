@@ -33,7 +33,7 @@ internal static class PickListView
                 picks.AddRow(
                     Markup.Escape(item.Position), item.Build, item.PartId?.ToString(CultureInfo.InvariantCulture) ?? "any",
                     Markup.Escape(item.Source), Markup.Escape(OhmsText.Nominal(item.Nominal)),
-                    byCup ? Band(outcome, item.Source) : item.Value is { } v ? Format.Value(v) : "");
+                    byCup ? Band(outcome, item.Nominal, item.Source) : item.Value is { } v ? Format.Value(v) : "");
             }
 
             console.Write(picks);
@@ -65,8 +65,8 @@ internal static class PickListView
         return table;
     }
 
-    private static string Band(PlanOutcome outcome, string cup) =>
-        outcome.CupBands.TryGetValue(cup, out var b) ? $"{Format.Ppm(b.LowPpm)} .. {Format.Ppm(b.HighPpm)}" : "";
+    private static string Band(PlanOutcome outcome, double nominal, string cup) =>
+        outcome.CupBands.TryGetValue((nominal, cup), out var b) ? $"{Format.Ppm(b.LowPpm)} .. {Format.Ppm(b.HighPpm)}" : "";
 
     // A node voltage is in volts, a ratio or gain a plain number; the matched form's one output is the spread in ppm.
     private static string Number(double x, string unit, string name) =>

@@ -47,6 +47,32 @@ public sealed class PlanCupsAndErrorsTests
         Assert.Contains("by cup", io.Text, StringComparison.Ordinal);
     }
 
+    [Fact]
+    public async Task Plan_TwoNominalsEachWithCupA_PicksByCupPerNominal()
+    {
+        // Each batch of a session labels its cups from A, so the 1 kOhm, 2 kOhm and 4 kOhm batches of the ratio set
+        // all have a cup A (invented values within 100 ppm of nominal). Cups are told apart by nominal, not label.
+        await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
+        await Seed.SessionAsync(store, "gain-set",
+        [
+            .. new double[] { -50, 40 }.Select(p => new SeedPart(p, 10, "A", Nominal: 1_000)),
+            .. new double[] { -60, -20, 30, 70 }.Select(p => new SeedPart(p, 10, "A", Nominal: 2_000)),
+            .. new double[] { -30, 60 }.Select(p => new SeedPart(p, 10, "A", Nominal: 4_000)),
+        ]);
+        var csv = store.File("gain.csv");
+        var io = new ConsoleCapture();
+
+        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "gain-set", "ratio-set", csv), io.Console, CancellationToken.None);
+
+        Assert.Equal(VerbExit.Ok, code);
+        // Two sets: each takes 1 kOhm, 2 kOhm twice and 4 kOhm, all from the cups A of their nominals; the widest
+        // worst case is (70 + 10) - (-60 - 10) = 150 ppm, inside the recipe's 500 ppm (common practice, no source).
+        var rows = PlanVerbTests.ReadPickCsv(csv);
+        Assert.Equal(2, rows.Select(r => r.Set).Distinct().Count());
+        Assert.All(rows, r => Assert.Equal("cup A", r.Source));
+        Assert.Contains("by cup", io.Text, StringComparison.Ordinal);
+    }
+
     [Theory]
     [InlineData(StoreEngine.Sqlite)]
     [PostgresData]
