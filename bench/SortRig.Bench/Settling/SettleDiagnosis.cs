@@ -28,7 +28,7 @@ internal static class SettleDiagnosis
             return 0;
         }
 
-        var (bad, predicted, seconds, n) = (0, 0, 0.0, 0);
+        var (bad, predicted, seconds, n, predictedSeconds) = (0, 0, 0.0, 0, 0.0);
         foreach (var ins in source.Insertions())
         {
             var tracker = new SettleTracker(range, nplc, options);
@@ -49,6 +49,7 @@ internal static class SettleDiagnosis
                 seconds += ins.Since(k).TotalSeconds;
                 var err = (a.Value.Value - ins.Truth) / ins.Truth * 1e6;
                 predicted += a.AcceptedBy == SettleRule.Predictive ? 1 : 0;
+                predictedSeconds += a.AcceptedBy == SettleRule.Predictive ? ins.Since(k).TotalSeconds : 0;
                 if (Math.Abs(err) > 10)
                 {
                     bad++;
@@ -66,7 +67,7 @@ internal static class SettleDiagnosis
             }
         }
 
-        Console.WriteLine(FormattableString.Invariant($"{bad} / {n} outside 2 x target; {predicted} by prediction; mean {seconds / n:0.00} s"));
+        Console.WriteLine(FormattableString.Invariant($"{bad} / {n} outside 2 x target; {predicted} by prediction (mean {predictedSeconds / predicted:0.00} s, fallback {(seconds - predictedSeconds) / (n - predicted):0.00} s); mean {seconds / n:0.00} s"));
         return 0;
     }
 

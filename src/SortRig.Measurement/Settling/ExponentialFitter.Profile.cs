@@ -1,3 +1,5 @@
+using MathNet.Numerics.Distributions;
+
 namespace SortRig.Measurement.Settling;
 
 /// <summary>
@@ -20,6 +22,14 @@ internal static partial class ExponentialFitter
 
     /// <summary>√<see cref="ChiSquareThreshold"/>: the matching multiple of a linearised standard uncertainty.</summary>
     public const double Z = 3.0234;
+
+    /// <summary>
+    /// The small-sample form of <see cref="ChiSquareThreshold"/>: F(1, ν) = t²_ν at the same level, ν = n − p residual
+    /// degrees of freedom (s² is itself estimated; Bates and Watts 1988 sec. 6.1, from memory). Tends to 9.14 for
+    /// large ν; 16.0 for ν = 7 (twelve readings, two exponentials).
+    /// </summary>
+    public static double Threshold(int degreesOfFreedom) =>
+        degreesOfFreedom <= 0 ? double.PositiveInfinity : Math.Pow(StudentT.InvCDF(0, 1, degreesOfFreedom, 1 - (0.05 / 40)), 2);
 
     /// <summary>Grid step of the time constants in ln τ.</summary>
     private const double GridStep = 0.1;
@@ -143,7 +153,8 @@ internal static partial class ExponentialFitter
             return (double.NegativeInfinity, double.PositiveInfinity);
         }
 
-        var threshold = Math.Min(best.Rss, points.Min(q => q.Rss)) + (ChiSquareThreshold * s2);
+        var parameters = best.Model == RecoveryModel.TwoExponentials ? 5 : 3;
+        var threshold = Math.Min(best.Rss, points.Min(q => q.Rss)) + (Threshold(n - parameters) * s2);
         var (low, high) = (best.Final, best.Final);
         foreach (var (rss, a, c) in points)
         {

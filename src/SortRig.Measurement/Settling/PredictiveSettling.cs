@@ -160,7 +160,7 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
 
             var s2 = Math.Max(c.Count > c.Parameters ? c.Rss / (c.Count - c.Parameters) : 0, _floor) * inflation;
             var (pl, ph) = ExponentialFitter.ProfileInterval(t, y, c, s2, MinTimeConstantSeconds, maxTau);
-            var linear = c.Converged ? ExponentialFitter.Z * Math.Sqrt(c.VarianceOfFinal * inflation) : 0;
+            var linear = c.Converged ? Math.Sqrt(ExponentialFitter.Threshold(c.Count - c.Parameters) * c.VarianceOfFinal * inflation) : 0;
             (low, high) = (Math.Min(low, Math.Min(pl, c.Final - linear)), Math.Max(high, Math.Max(ph, c.Final + linear)));
         }
 
