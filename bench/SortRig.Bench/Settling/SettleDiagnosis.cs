@@ -6,7 +6,8 @@ namespace SortRig.Bench.Settling;
 
 /// <summary>
 /// `settle-diag [parts] [case]`: runs the predictive rule on one benchmark case and prints each accepted value outside
-/// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule).
+/// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
+/// `settle-diag [parts] [case] trace` prints the fits of the first six parts every 0.5 s.
 /// </summary>
 internal static class SettleDiagnosis
 {
@@ -24,7 +25,7 @@ internal static class SettleDiagnosis
         Console.WriteLine(c.Name);
         if (args.Length > 3 && args[3] == "trace")
         {
-            Trace(source, range.FullScale, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale);
+            Trace(source, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale);
             return 0;
         }
 
@@ -53,31 +54,28 @@ internal static class SettleDiagnosis
                 if (Math.Abs(err) > 10)
                 {
                     bad++;
-                    var part = source.Part(ins.Index);
-                    var popcorn = PopcornRange(ins, k);
                     var left = (ins.Clean(k) - ins.Truth) / ins.Truth * 1e6;
-                    var f = a.Fit;
-                    Console.WriteLine(FormattableString.Invariant(
-                        $"#{ins.Index} err {err,6:0.0} ppm at {ins.Since(k).TotalSeconds,5:0.00} s by {a.AcceptedBy}; left {left,6:0.0} ppm; ") + (f is null ? "" : FormattableString.Invariant(
-                        $"fit {f.Model} tau [{string.Join(",", f.TimeConstantsSeconds.Select(x => x.ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)))}] w {f.Weight:0.00} uFit {f.FitUncertainty / ins.Truth * 1e6:0.0} uMis {f.MisfitUncertainty / ins.Truth * 1e6:0.0} n {f.Readings} span {f.SpanSeconds:0.0} runsZ {f.RunsZ:0.0}; ")) + FormattableString.Invariant(
-                        $"part tau {part.ThermalTimeConstant.TotalSeconds:0.00} lead {part.LeadShare:0.00}@{part.LeadTimeConstant.TotalSeconds:0.00} tc {part.TempcoPpmPerKelvin:0} warm {ins.WarmKelvin:0.0} popcorn {popcorn:0.0}"));
+                    Console.WriteLine(Inv($"#{ins.Index} err {err,6:0.0} ppm at {ins.Since(k).TotalSeconds,5:0.00} s ")
+                        + Inv($"by {a.AcceptedBy}; left {left,6:0.0} ppm; ")
+                        + (a.Fit is { } f ? FitText(f, ins.Truth) : "") + PartText(source.Part(ins.Index), ins));
                 }
 
                 break;
             }
         }
 
-        Console.WriteLine(FormattableString.Invariant($"{bad} / {n} outside 2 x target; {predicted} by prediction (mean {predictedSeconds / predicted:0.00} s, fallback {(seconds - predictedSeconds) / (n - predicted):0.00} s); mean {seconds / n:0.00} s"));
+        var fallback = (seconds - predictedSeconds) / (n - predicted);
+        Console.WriteLine(Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
+            + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
+            + Inv($"mean {seconds / n:0.00} s"));
         return 0;
     }
 
-    private static void Trace(InsertionSource source, double rangeOhms, double resolution)
+    private static void Trace(InsertionSource source, double resolution)
     {
         foreach (var ins in source.Insertions().Take(6))
         {
-            var part = source.Part(ins.Index);
-            Console.WriteLine(FormattableString.Invariant(
-                $"part #{ins.Index} tau {part.ThermalTimeConstant.TotalSeconds:0.00} lead {part.LeadShare:0.00}@{part.LeadTimeConstant.TotalSeconds:0.00} tc {part.TempcoPpmPerKelvin:0} warm {ins.WarmKelvin:0.0}"));
+            Console.WriteLine(Inv($"part #{ins.Index} ") + PartText(source.Part(ins.Index), ins));
             var settling = new PredictiveSettling(PredictiveOptions.Default, resolution, TimeSpan.FromSeconds(5));
             var next = 0.5;
             for (var k = 0; ins.Since(k).TotalSeconds < 12; k++)
@@ -99,40 +97,26 @@ internal static class SettleDiagnosis
                 if (settling.Fit(out var white) is { } f)
                 {
                     var ppm = 1e6 / ins.Truth;
-                    Console.WriteLine(FormattableString.Invariant(
-                        $"  {ins.Since(k).TotalSeconds,5:0.0} s err {(f.FinalValue - ins.Truth) * ppm,6:0.0} uFit {f.FitUncertainty * ppm,6:0.0} uMis {f.MisfitUncertainty * ppm,4:0.0} {f.Model} w {f.Weight:0.00} white {white} runsZ {f.RunsZ:0.0} left {(ins.Clean(k) - ins.Truth) * ppm:0.0}"));
+                    var err = (f.FinalValue - ins.Truth) * ppm;
+                    Console.WriteLine(Inv($"  {ins.Since(k).TotalSeconds,5:0.0} s err {err,6:0.0} ")
+                        + Inv($"white {white} left {(ins.Clean(k) - ins.Truth) * ppm:0.0}; ") + FitText(f, ins.Truth));
                 }
             }
         }
 
-        _ = rangeOhms;
     }
 
-    /// <summary>Range of the 0.4 s means of (reading − clean value) up to reading k, ppm: a popcorn step shows as ~4.</summary>
-    private static double PopcornRange(Insertion ins, int k)
+    private static string Inv(FormattableString text) => FormattableString.Invariant(text);
+
+    private static string FitText(RecoveryFit f, double truth)
     {
-        var per = Math.Max(1, (int)(0.4 / ins.Period.TotalSeconds));
-        var means = new List<double>();
-        for (var s = 0; s + per <= k + 1; s += per)
-        {
-            var sum = 0.0;
-            var cnt = 0;
-            for (var j = s; j < s + per; j++)
-            {
-                var r = ins.Reading(j);
-                if (double.IsFinite(r.Value) && r.Value < 1e30)
-                {
-                    sum += (r.Value - ins.Clean(j)) / ins.Truth * 1e6;
-                    cnt++;
-                }
-            }
-
-            if (cnt > 0)
-            {
-                means.Add(sum / cnt);
-            }
-        }
-
-        return means.Count == 0 ? 0 : means.Max() - means.Min();
+        var taus = string.Join(",", f.TimeConstantsSeconds.Select(x => Inv($"{x:0.00}")));
+        return Inv($"fit {f.Model} tau [{taus}] w {f.Weight:0.00} uFit {f.FitUncertainty / truth * 1e6:0.0} ")
+            + Inv($"uMis {f.MisfitUncertainty / truth * 1e6:0.0} n {f.Readings} span {f.SpanSeconds:0.0} ")
+            + Inv($"runsZ {f.RunsZ:0.0}; ");
     }
+
+    private static string PartText(SimulatedPart part, Insertion ins) =>
+        Inv($"part tau {part.ThermalTimeConstant.TotalSeconds:0.00} lead {part.LeadShare:0.00}")
+        + Inv($"@{part.LeadTimeConstant.TotalSeconds:0.00} tc {part.TempcoPpmPerKelvin:0} warm {ins.WarmKelvin:0.0}");
 }

@@ -29,7 +29,9 @@ internal static partial class ExponentialFitter
     /// large ν; 16.0 for ν = 7 (twelve readings, two exponentials).
     /// </summary>
     public static double Threshold(int degreesOfFreedom) =>
-        degreesOfFreedom <= 0 ? double.PositiveInfinity : Math.Pow(StudentT.InvCDF(0, 1, degreesOfFreedom, 1 - (0.05 / 40)), 2);
+        degreesOfFreedom <= 0
+            ? double.PositiveInfinity
+            : Math.Pow(StudentT.InvCDF(0, 1, degreesOfFreedom, 1 - (0.05 / 40)), 2);
 
     /// <summary>Grid step of the time constants in ln τ.</summary>
     private const double GridStep = 0.1;
@@ -41,7 +43,13 @@ internal static partial class ExponentialFitter
     /// (SettleOptions.AssumedTimeConstant). Infinite when the record cannot bound A.
     /// </summary>
     public static (double Low, double High) ProfileInterval(
-        ReadOnlySpan<double> t, ReadOnlySpan<double> y, ExponentialFit best, double s2, double tauMin, double tauMax, bool sameSign = true)
+        ReadOnlySpan<double> t,
+        ReadOnlySpan<double> y,
+        ExponentialFit best,
+        double s2,
+        double tauMin,
+        double tauMax,
+        bool sameSign = true)
     {
         var n = t.Length;
         var taus = new List<double>(best.TimeConstants);
@@ -66,7 +74,8 @@ internal static partial class ExponentialFitter
             syy += yc[i] * yc[i];
         }
 
-        // Centred columns e^(−t/τ) − mean: the intercept is solved apart, which keeps the small systems well conditioned.
+        // Centred columns e^(−t/τ) − mean: the intercept is solved apart, which keeps the small systems well
+        // conditioned.
         var columns = new double[taus.Count][];
         var means = new double[taus.Count];
         var cross = new double[taus.Count];
@@ -100,7 +109,8 @@ internal static partial class ExponentialFitter
             if (squares[k] > 0)
             {
                 var b = cross[k] / squares[k];
-                points.Add((syy - (b * cross[k]), meanY - (b * means[k]), (1.0 / n) + (means[k] * means[k] / squares[k])));
+                var c = (1.0 / n) + (means[k] * means[k] / squares[k]);
+                points.Add((syy - (b * cross[k]), meanY - (b * means[k]), c));
             }
         }
 

@@ -150,7 +150,9 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         var (low, high) = (final, final);
         // The two-exponential profile is always taken, even when that fit failed: a short record cannot refuse a
         // second, slower path, and one exponential is the special case B₂ = 0 of two.
-        var twoProfile = two is { } fitted && double.IsFinite(fitted.Rss) ? fitted : one with { Model = RecoveryModel.TwoExponentials };
+        var twoProfile = two is { } fitted && double.IsFinite(fitted.Rss)
+            ? fitted
+            : one with { Model = RecoveryModel.TwoExponentials };
         foreach (var c in new[] { one, twoProfile })
         {
             if (!double.IsFinite(c.Rss))
@@ -160,7 +162,8 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
 
             var s2 = Math.Max(c.Count > c.Parameters ? c.Rss / (c.Count - c.Parameters) : 0, _floor) * inflation;
             var (pl, ph) = ExponentialFitter.ProfileInterval(t, y, c, s2, MinTimeConstantSeconds, maxTau);
-            var linear = c.Converged ? Math.Sqrt(ExponentialFitter.Threshold(c.Count - c.Parameters) * c.VarianceOfFinal * inflation) : 0;
+            var quantile = ExponentialFitter.Threshold(c.Count - c.Parameters);
+            var linear = c.Converged ? Math.Sqrt(quantile * c.VarianceOfFinal * inflation) : 0;
             (low, high) = (Math.Min(low, Math.Min(pl, c.Final - linear)), Math.Max(high, Math.Max(ph, c.Final + linear)));
         }
 

@@ -94,7 +94,8 @@ public sealed class ExponentialFitterTests
         var (low, high) = ExponentialFitter.ProfileInterval(t, y, fit, s2, 2.0, 2.0);
 
         var half = Math.Sqrt(ExponentialFitter.Threshold(t.Length - 3) * s2 * c);
-        Assert.Equal(ExponentialFitter.ChiSquareThreshold, ExponentialFitter.Threshold(1_000_000), 0.002); // t² → χ²₁ as ν grows
+        // t² → χ²₁ as ν grows (textbook identity: F(1, ∞) = χ²₁).
+        Assert.Equal(ExponentialFitter.ChiSquareThreshold, ExponentialFitter.Threshold(1_000_000), 0.002);
         Assert.Equal(beta[0] - half, low, 1e-9);
         Assert.Equal(beta[0] + half, high, 1e-9);
     }
