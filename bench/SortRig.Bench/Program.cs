@@ -12,6 +12,11 @@ if (args.Length > 0 && args[0] == "settle")
     return await SortRig.Bench.Settling.SettleBenchmark.RunAsync(args, CancellationToken.None);
 }
 
+if (args.Length > 0 && args[0] == "settle-diag")
+{
+    return SortRig.Bench.Settling.SettleDiagnosis.Run(args);
+}
+
 if (args.Length > 0 && args[0] == "order")
 {
     return await SortRig.Bench.Ordering.OrderBenchmark.RunAsync(args.Length > 1 ? args[1] : "all", CancellationToken.None);

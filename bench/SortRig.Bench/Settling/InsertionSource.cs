@@ -44,6 +44,9 @@ internal sealed class InsertionSource
 
     public int Count => _bench.Reel.Count;
 
+    /// <summary>The reel's part at an index (diagnosis only: the rules never see it).</summary>
+    public SimulatedPart Part(int index) => _bench.Reel[index];
+
     /// <summary>Inserts each part in turn (the previous one is removed first); readings are generated while it is in.</summary>
     public IEnumerable<Insertion> Insertions()
     {

@@ -15,6 +15,7 @@ internal static class SettleBenchmark
     public static async Task<int> RunAsync(string[] args, CancellationToken ct)
     {
         var parts = args.Length > 1 && int.TryParse(args[1], out var p) ? p : 3_000;
+        int? simpleParts = args.Length > 2 && int.TryParse(args[2], out var q) ? q : null;
         var root = RepositoryRoot.Find();
         var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
         var range = profile.FindRange(SettleCase.Range) ?? throw new InvalidOperationException("simulator profile has no 10 kOhm range");
@@ -24,11 +25,14 @@ internal static class SettleBenchmark
             ("averaging (sort's rule until now: span 4 s)", averaging),
             ("predictive (+ averaging fallback)", averaging with { Predictive = PredictiveOptions.Default }),
         };
-        var sections = new List<string>();
-        var overview = new List<CaseOverview>();
         var clock = Stopwatch.StartNew();
-        foreach (var c in SettleCase.All(parts, variants))
+        var cases = SettleCase.All(parts, variants, simpleParts);
+        var results = new (List<string> Section, CaseOverview Overview)[cases.Count];
+
+        // Four cases at a time (independent seeds and benches): the run shares 2 cores with other work.
+        Parallel.For(0, cases.Count, new ParallelOptions { MaxDegreeOfParallelism = 4, CancellationToken = ct }, i =>
         {
+            var c = cases[i];
             var nplc = profile.FindNplc(c.Nplc) ?? throw new InvalidOperationException($"simulator profile has no NPLC {c.Nplc}");
             var setting = NplcSetting.Find(c.Nplc)!;
             var sigma = Math.Sqrt(Math.Pow(setting.NoiseOhms(range.FullScale), 2) + (Math.Pow(setting.Step(range.FullScale), 2) / 12));
@@ -56,16 +60,21 @@ internal static class SettleBenchmark
             var fixedSummary = RuleSummary.Of(delayName, matched, SettleCase.TargetPpm);
             var limitSummary = RuleSummary.Of("information limit (oracle)", limit, SettleCase.TargetPpm);
             var section = ResultsTable.Section(c, nplc, summaries, fixedSummary, limitSummary);
-            overview.Add(new CaseOverview(c.Name, summaries[0], summaries[1], fixedSummary, delay is not null, limitSummary));
-            Console.WriteLine(string.Join('\n', section));
-            Console.WriteLine(FormattableString.Invariant($"({clock.Elapsed.TotalSeconds:0} s so far)"));
-            sections.AddRange(section);
-        }
+            var caseOverview = new CaseOverview(
+                c.Name, summaries[0], summaries[1], fixedSummary, delay is not null, limitSummary);
+            results[i] = (section, caseOverview);
+            var elapsed = FormattableString.Invariant($"\n({clock.Elapsed.TotalSeconds:0} s so far)");
+            Console.WriteLine(string.Join('\n', section) + elapsed);
+        });
 
-        var all = ResultsTable.Overview(overview);
-        all.AddRange(sections);
-        all.Add(FormattableString.Invariant(
-            $"Run: {parts} insertions per case, {clock.Elapsed.TotalSeconds:0} s wall on {Environment.ProcessorCount} cores, .NET {Environment.Version}."));
+        var all = ResultsTable.Overview([.. results.Select(r => r.Overview)]);
+        all.AddRange(results.SelectMany(r => r.Section));
+        var counts = simpleParts is { } sp && sp != parts
+            ? FormattableString.Invariant($"{parts} insertions per rich case, {sp} per simple case")
+            : FormattableString.Invariant($"{parts} insertions per case");
+        var wall = clock.Elapsed.TotalSeconds;
+        all.Add(FormattableString.Invariant($"Run: {counts}, four cases at a time, {wall:0} s wall ")
+            + FormattableString.Invariant($"on {Environment.ProcessorCount} cores, .NET {Environment.Version}."));
         await ResultsTable.WriteAsync(Path.Combine(root, "docs", "bench-settle.md"), all, ct).ConfigureAwait(false);
         return 0;
     }

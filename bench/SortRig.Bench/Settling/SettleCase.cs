@@ -30,13 +30,15 @@ internal sealed record SettleCase(string Name, PhysicsModel Physics, ReelSpec Re
     /// <summary>The same with the centre of the band culled (|d| ≥ 0.5 of the tolerance).</summary>
     public static ReelSpec BimodalReel(int parts) => NormalReel(parts) with { Distribution = ValueDistribution.Bimodal(0.6, 0.5) };
 
-    public static IReadOnlyList<SettleCase> All(int parts, IReadOnlyList<(string, SettleOptions)> variants)
+    /// <summary>The eight cases; <paramref name="simpleParts"/> (default <paramref name="parts"/>) for the simple physics.</summary>
+    public static IReadOnlyList<SettleCase> All(int parts, IReadOnlyList<(string, SettleOptions)> variants, int? simpleParts = null)
     {
         var cases = new List<SettleCase>();
         var seed = 2026;
         foreach (var physics in new[] { PhysicsModel.Simple, PhysicsModel.Rich })
         {
-            foreach (var (reelName, reel) in new[] { ("normal", NormalReel(parts)), ("bimodal", BimodalReel(parts)) })
+            var count = physics == PhysicsModel.Simple ? simpleParts ?? parts : parts;
+            foreach (var (reelName, reel) in new[] { ("normal", NormalReel(count)), ("bimodal", BimodalReel(count)) })
             {
                 foreach (var nplc in new[] { 1.0, 10.0 })
                 {

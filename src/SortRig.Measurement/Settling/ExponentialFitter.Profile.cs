@@ -1,10 +1,16 @@
+using MathNet.Numerics.Distributions;
+
 namespace SortRig.Measurement.Settling;
 
 /// <summary>
-/// Profile-likelihood interval of the asymptote (Venzon and Moolgavkar 1988; Bates and Watts 1988 ch. 6, from
-/// memory): the set of time constants whose residual sum exceeds the minimum by at most χ²₁ s² (see
-/// <see cref="ChiSquareThreshold"/>), projected onto A. Unlike the linearised covariance at the estimate, it sees that a short record of a slow
-/// exponential cannot tell a 1 s from a 4 s time constant, and so cannot pin the asymptote.
+/// Profile-likelihood interval of the asymptote A (Venzon and Moolgavkar 1988; Bates and Watts 1988 ch. 6, from
+/// memory): the set of A whose least residual sum, over every other parameter, exceeds the minimum by at most
+/// χ²₁ s² (see <see cref="ChiSquareThreshold"/>). The model is conditionally linear (Bates and Watts 1988 sec. 3.5.5,
+/// from memory): at given time constants the residual sum is RSS(τ) + (A − Â(τ))² / c(τ), c(τ) the (A, A) element of
+/// (XᵀX)⁻¹, so the profile interval is the union over a grid of time constants of
+/// Â(τ) ± √((threshold − RSS(τ)) c(τ)). Profiling A itself, not the slowest time constant, matters: on a short
+/// record of a two-path recovery a slow path of almost any size fits as well as none, and only a profile over A
+/// sees that the asymptote is then not pinned.
 /// </summary>
 internal static partial class ExponentialFitter
 {
@@ -18,87 +24,165 @@ internal static partial class ExponentialFitter
     public const double Z = 3.0234;
 
     /// <summary>
-    /// The profile interval of A (lowest, highest), at the Bonferroni-corrected level. Time constants are searched within [tauMin, tauMax]: the
-    /// upper bound is the physical assumption that no part recovers more slowly (SettleOptions.AssumedTimeConstant).
+    /// The small-sample form of <see cref="ChiSquareThreshold"/>: F(1, ν) = t²_ν at the same level, ν = n − p residual
+    /// degrees of freedom (s² is itself estimated; Bates and Watts 1988 sec. 6.1, from memory). Tends to 9.14 for
+    /// large ν; 16.0 for ν = 7 (twelve readings, two exponentials).
     /// </summary>
-    public static (double Low, double High) ProfileInterval(ReadOnlySpan<double> t, ReadOnlySpan<double> y, ExponentialFit best, double s2, double tauMin, double tauMax)
+    public static double Threshold(int degreesOfFreedom) =>
+        degreesOfFreedom <= 0
+            ? double.PositiveInfinity
+            : Math.Pow(StudentT.InvCDF(0, 1, degreesOfFreedom, 1 - (0.05 / 40)), 2);
+
+    /// <summary>Grid step of the time constants in ln τ.</summary>
+    private const double GridStep = 0.1;
+
+    /// <summary>
+    /// The profile interval of A (lowest, highest), at the Bonferroni-corrected level, under the model of
+    /// <paramref name="best"/> (one or two exponentials, τ₁ &lt; τ₂/1.5). Time constants are searched within
+    /// [tauMin, tauMax]: the upper bound is the physical assumption that no part recovers more slowly
+    /// (SettleOptions.AssumedTimeConstant). Infinite when the record cannot bound A.
+    /// </summary>
+    public static (double Low, double High) ProfileInterval(
+        ReadOnlySpan<double> t,
+        ReadOnlySpan<double> y,
+        ExponentialFit best,
+        double s2,
+        double tauMin,
+        double tauMax,
+        bool sameSign = true)
     {
-        double[] tt = t.ToArray(), yy = y.ToArray();
-        var threshold = best.Rss + (ChiSquareThreshold * s2);
-        var (lo, hi) = (Math.Log(tauMin), Math.Log(tauMax));
-        var (aMin, aMax) = (best.Final, best.Final);
-        var uBest = Math.Log(best.TimeConstants[^1]);
+        var n = t.Length;
+        var taus = new List<double>(best.TimeConstants);
+        for (var u = Math.Log(tauMin); u < Math.Log(tauMax); u += GridStep)
+        {
+            taus.Add(Math.Exp(u));
+        }
+
+        taus.Add(tauMax);
+        var meanY = 0.0;
+        for (var i = 0; i < n; i++)
+        {
+            meanY += y[i];
+        }
+
+        meanY /= n;
+        var yc = new double[n];
+        var syy = 0.0;
+        for (var i = 0; i < n; i++)
+        {
+            yc[i] = y[i] - meanY;
+            syy += yc[i] * yc[i];
+        }
+
+        // Centred columns e^(−t/τ) − mean: the intercept is solved apart, which keeps the small systems well
+        // conditioned.
+        var columns = new double[taus.Count][];
+        var means = new double[taus.Count];
+        var cross = new double[taus.Count];
+        var squares = new double[taus.Count];
+        for (var k = 0; k < taus.Count; k++)
+        {
+            var column = new double[n];
+            var mean = 0.0;
+            for (var i = 0; i < n; i++)
+            {
+                column[i] = Math.Exp(-t[i] / taus[k]);
+                mean += column[i];
+            }
+
+            mean /= n;
+            double sxy = 0, sxx = 0;
+            for (var i = 0; i < n; i++)
+            {
+                column[i] -= mean;
+                sxy += column[i] * yc[i];
+                sxx += column[i] * column[i];
+            }
+
+            (columns[k], means[k], cross[k], squares[k]) = (column, mean, sxy, sxx);
+        }
+
+        // One exponential at each grid time constant; for two exponentials these are the boundary B₂ = 0.
+        var points = new List<(double Rss, double A, double C)>();
+        for (var k = 0; k < taus.Count; k++)
+        {
+            if (squares[k] > 0)
+            {
+                var b = cross[k] / squares[k];
+                var c = (1.0 / n) + (means[k] * means[k] / squares[k]);
+                points.Add((syy - (b * cross[k]), meanY - (b * means[k]), c));
+            }
+        }
+
         if (best.Model == RecoveryModel.TwoExponentials)
         {
-            // Two exponentials: the profile over the slow time constant may have more than one basin (a tiny fast
-            // term fitting the first readings, or the real fast path), so the whole range is scanned.
-            var points = new List<(double Rss, double A)> { (best.Rss, best.Final) };
-            for (var u = lo + Math.Log(1.5) + 0.05; u <= hi + 1e-9; u += 0.1)
+            var minRatio = 1.5 * (1 - 1e-9);
+            for (var k = 0; k < taus.Count; k++)
             {
-                points.AddRange(Profiled(tt, yy, best, Math.Exp(Math.Min(u, hi)), tauMin));
-            }
-
-            points.AddRange(Profiled(tt, yy, best, tauMax, tauMin));
-            var floor = points.Min(q => q.Rss) + (ChiSquareThreshold * s2);
-            var inside = points.Where(q => q.Rss <= floor).ToList();
-            return (inside.Min(q => q.A), inside.Max(q => q.A));
-        }
-
-        var maxStep = best.Model == RecoveryModel.OneExponential ? 0.05 : 0.1;
-        foreach (var direction in new[] { -1, 1 })
-        {
-            // Steps grow from 0.005 in ln τ (a sharply defined τ still shows its interval) to maxStep.
-            var outside = 0;
-            var atBound = false;
-            var (u, step) = (uBest, 0.005);
-            while (outside < 3 && !atBound)
-            {
-                u += direction * step;
-                step = Math.Min(maxStep, step * 1.5);
-                if (u <= lo || u >= hi)
+                for (var l = 0; l < taus.Count; l++)
                 {
-                    u = Math.Clamp(u, lo, hi);
-                    atBound = true; // the bound itself is the last point looked at
-                }
-
-                var inside = false;
-                foreach (var (rss, a) in Profiled(tt, yy, best, Math.Exp(u), tauMin))
-                {
-                    if (rss <= threshold)
+                    if (taus[l] < taus[k] * minRatio)
                     {
-                        inside = true;
-                        (aMin, aMax) = (Math.Min(aMin, a), Math.Max(aMax, a));
+                        continue;
                     }
-                }
 
-                outside = inside ? 0 : outside + 1;
+                    double m12 = 0;
+                    var (ck, cl) = (columns[k], columns[l]);
+                    for (var i = 0; i < n; i++)
+                    {
+                        m12 += ck[i] * cl[i];
+                    }
+
+                    var (m11, m22) = (squares[k], squares[l]);
+                    var det = (m11 * m22) - (m12 * m12);
+                    if (!(det > 1e-13 * m11 * m22))
+                    {
+                        // The two columns are one to working precision: A is not bounded by this pair.
+                        points.Add((syy - (cross[k] * cross[k] / m11), double.NaN, double.PositiveInfinity));
+                        continue;
+                    }
+
+                    var b1 = ((m22 * cross[k]) - (m12 * cross[l])) / det;
+                    var b2 = ((m11 * cross[l]) - (m12 * cross[k])) / det;
+                    if (sameSign && b1 * b2 < 0)
+                    {
+                        // Both paths carry the same handling warmth: terms of opposite sign are not a cooling part.
+                        // The constrained optimum then lies on the boundary, one exponential, held above.
+                        continue;
+                    }
+
+                    var (g1, g2) = (means[k], means[l]);
+                    var c = (1.0 / n) + (((m22 * g1 * g1) - (2 * m12 * g1 * g2) + (m11 * g2 * g2)) / det);
+                    points.Add((syy - (b1 * cross[k]) - (b2 * cross[l]), meanY - (b1 * g1) - (b2 * g2), c));
+                }
             }
         }
 
-        return (aMin, aMax);
-    }
-
-    /// <summary>Residual sums and asymptotes at a given slowest time constant (and, for two exponentials, a grid of fast ones).</summary>
-    private static IEnumerable<(double Rss, double A)> Profiled(double[] t, double[] y, ExponentialFit best, double slow, double tauMin)
-    {
-        if (best.Model == RecoveryModel.OneExponential)
+        if (points.Count == 0)
         {
-            var rssOne = Project(t, y, [slow], out var betaOne);
-            yield return (rssOne, betaOne[0]);
-            yield break;
+            return (double.NegativeInfinity, double.PositiveInfinity);
         }
 
-        // The fast time constant minimising the residual sum at this slow one (grid, then golden section): the profile.
-        var top = slow / 1.5;
-        if (top <= tauMin)
+        var parameters = best.Model == RecoveryModel.TwoExponentials ? 5 : 3;
+        var threshold = Math.Min(best.Rss, points.Min(q => q.Rss)) + (Threshold(n - parameters) * s2);
+        var (low, high) = (best.Final, best.Final);
+        foreach (var (rss, a, c) in points)
         {
-            yield break;
+            var room = threshold - Math.Max(rss, 0);
+            if (room < 0)
+            {
+                continue;
+            }
+
+            if (!double.IsFinite(c) || !double.IsFinite(a))
+            {
+                return (double.NegativeInfinity, double.PositiveInfinity);
+            }
+
+            var half = Math.Sqrt(room * c);
+            (low, high) = (Math.Min(low, a - half), Math.Max(high, a + half));
         }
 
-        var (lo, hi) = (Math.Log(tauMin), Math.Log(top));
-        double Rss(double u) => Project(t, y, [Math.Exp(u), slow], out _);
-        var fast = Math.Exp(GridThenGolden(Rss, lo, hi, 6, 0.02));
-        var rss = Project(t, y, [fast, slow], out var beta);
-        yield return (rss, beta[0]);
+        return (low, high);
     }
 }

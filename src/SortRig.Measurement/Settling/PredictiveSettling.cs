@@ -148,16 +148,22 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         // residuals. Its larger side over 1.96 is the fit's standard uncertainty, so that U = 2u still covers 95 %
         // over all the looks; it covers the spread between the models too.
         var (low, high) = (final, final);
-        foreach (var c in new[] { one, two })
+        // The two-exponential profile is always taken, even when that fit failed: a short record cannot refuse a
+        // second, slower path, and one exponential is the special case B₂ = 0 of two.
+        var twoProfile = two is { } fitted && double.IsFinite(fitted.Rss)
+            ? fitted
+            : one with { Model = RecoveryModel.TwoExponentials };
+        foreach (var c in new[] { one, twoProfile })
         {
-            if (c is null || !double.IsFinite(c.Rss))
+            if (!double.IsFinite(c.Rss))
             {
                 continue;
             }
 
             var s2 = Math.Max(c.Count > c.Parameters ? c.Rss / (c.Count - c.Parameters) : 0, _floor) * inflation;
             var (pl, ph) = ExponentialFitter.ProfileInterval(t, y, c, s2, MinTimeConstantSeconds, maxTau);
-            var linear = c.Converged ? ExponentialFitter.Z * Math.Sqrt(c.VarianceOfFinal * inflation) : 0;
+            var quantile = ExponentialFitter.Threshold(c.Count - c.Parameters);
+            var linear = c.Converged ? Math.Sqrt(quantile * c.VarianceOfFinal * inflation) : 0;
             (low, high) = (Math.Min(low, Math.Min(pl, c.Final - linear)), Math.Max(high, Math.Max(ph, c.Final + linear)));
         }
 

@@ -1,3 +1,4 @@
+using MathNet.Numerics.LinearAlgebra;
 using SortRig.Measurement.Settling;
 
 namespace SortRig.Measurement.Tests.Settling;
@@ -74,6 +75,51 @@ public sealed class ExponentialFitterTests
 
         var spread = Math.Sqrt(z.Select(v => v * v).Average());
         Assert.InRange(spread, 0.7, 1.4);
+    }
+
+    [Fact]
+    public void Profile_AtOneFixedTimeConstant_IsTheLinearLeastSquaresInterval()
+    {
+        // With τ fixed the model A + B e^(−t/τ) is linear: the profile interval of A is Â ± √(χ² s² [(XᵀX)⁻¹]₀₀)
+        // (linear least squares, Draper and Smith ch. 2, from memory); reference solution from MathNet's QR.
+        var t = Enumerable.Range(0, 60).Select(k => 0.05 * k).ToArray();
+        var noise = ReadingScript.Gaussian(7, 0.01);
+        var y = t.Select(x => 0.4 + (0.3 * Math.Exp(-x / 2.0)) + noise()).ToArray();
+        var fit = ExponentialFitter.One(t, y, 2.0, 2.0, 0);
+        var x = Matrix<double>.Build.Dense(t.Length, 2, (i, j) => j == 0 ? 1 : Math.Exp(-t[i] / 2.0));
+        var beta = x.QR().Solve(Vector<double>.Build.DenseOfArray(y));
+        var c = (x.TransposeThisAndMultiply(x)).Inverse()[0, 0];
+        var s2 = 1.3e-4;
+
+        var (low, high) = ExponentialFitter.ProfileInterval(t, y, fit, s2, 2.0, 2.0);
+
+        var half = Math.Sqrt(ExponentialFitter.Threshold(t.Length - 3) * s2 * c);
+        // t² → χ²₁ as ν grows (textbook identity: F(1, ∞) = χ²₁).
+        Assert.Equal(ExponentialFitter.ChiSquareThreshold, ExponentialFitter.Threshold(1_000_000), 0.002);
+        Assert.Equal(beta[0] - half, low, 1e-9);
+        Assert.Equal(beta[0] + half, high, 1e-9);
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void Profile_ShortRecordOfTwoPaths_CoversTheAsymptoteOneExponentialMisses(int seed)
+    {
+        // A part cooling through its leads (0.8 s) and its body (4 s), seen for 1.4 s at 0.5 ppm noise of 10 kOhm:
+        // one exponential fits the record (tau near 1 s) but extrapolates far short of the slow tail. The profile of A
+        // over two exponentials (slowest tau bounded by 5 s) must still hold the true asymptote, 0.
+        var t = Enumerable.Range(0, 35).Select(k => 0.041 * k).ToArray();
+        var noise = ReadingScript.Gaussian(seed, 0.005);
+        var y = t.Select(x => (0.2 * Math.Exp(-x / 0.8)) + (0.5 * Math.Exp(-x / 4)) + noise()).ToArray();
+        var one = ExponentialFitter.One(t, y, 0.02, 5, 0);
+        var two = ExponentialFitter.Two(t, y, 0.02, 5, 0);
+        var s2 = two.Rss / (two.Count - two.Parameters);
+
+        var (low, high) = ExponentialFitter.ProfileInterval(t, y, two, s2, 0.02, 5);
+
+        Assert.True(Math.Abs(one.Final) > 0.1, $"one exponential predicted {one.Final}");
+        Assert.InRange(0, low, high);
     }
 
     [Fact]

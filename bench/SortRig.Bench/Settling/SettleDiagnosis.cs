@@ -1,0 +1,122 @@
+using SortRig.Instruments.Profiles;
+using SortRig.Measurement.Settling;
+using SortRig.Simulator.Physics;
+
+namespace SortRig.Bench.Settling;
+
+/// <summary>
+/// `settle-diag [parts] [case]`: runs the predictive rule on one benchmark case and prints each accepted value outside
+/// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
+/// `settle-diag [parts] [case] trace` prints the fits of the first six parts every 0.5 s.
+/// </summary>
+internal static class SettleDiagnosis
+{
+    public static int Run(string[] args)
+    {
+        var parts = args.Length > 1 && int.TryParse(args[1], out var p) ? p : 300;
+        var which = args.Length > 2 && int.TryParse(args[2], out var w) ? w : 4;
+        var root = RepositoryRoot.Find();
+        var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
+        var range = profile.FindRange(SettleCase.Range)!;
+        var options = SettleCase.SortOptions() with { Predictive = PredictiveOptions.Default };
+        var c = SettleCase.All(parts, [("p", options)])[which];
+        var nplc = profile.FindNplc(c.Nplc)!;
+        var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
+        Console.WriteLine(c.Name);
+        if (args.Length > 3 && args[3] == "trace")
+        {
+            Trace(source, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale);
+            return 0;
+        }
+
+        var (bad, predicted, seconds, n, predictedSeconds) = (0, 0, 0.0, 0, 0.0);
+        foreach (var ins in source.Insertions())
+        {
+            var tracker = new SettleTracker(range, nplc, options);
+            for (var k = 0; k < 200_000; k++)
+            {
+                var verdict = tracker.Add(ins.Reading(k));
+                if (verdict.State == SettleState.Unstable)
+                {
+                    break;
+                }
+
+                if (verdict is not { State: SettleState.Accepted, Acceptance: { } a })
+                {
+                    continue;
+                }
+
+                n++;
+                seconds += ins.Since(k).TotalSeconds;
+                var err = (a.Value.Value - ins.Truth) / ins.Truth * 1e6;
+                predicted += a.AcceptedBy == SettleRule.Predictive ? 1 : 0;
+                predictedSeconds += a.AcceptedBy == SettleRule.Predictive ? ins.Since(k).TotalSeconds : 0;
+                if (Math.Abs(err) > 10)
+                {
+                    bad++;
+                    var left = (ins.Clean(k) - ins.Truth) / ins.Truth * 1e6;
+                    Console.WriteLine(Inv($"#{ins.Index} err {err,6:0.0} ppm at {ins.Since(k).TotalSeconds,5:0.00} s ")
+                        + Inv($"by {a.AcceptedBy}; left {left,6:0.0} ppm; ")
+                        + (a.Fit is { } f ? FitText(f, ins.Truth) : "") + PartText(source.Part(ins.Index), ins));
+                }
+
+                break;
+            }
+        }
+
+        var fallback = (seconds - predictedSeconds) / (n - predicted);
+        Console.WriteLine(Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
+            + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
+            + Inv($"mean {seconds / n:0.00} s"));
+        return 0;
+    }
+
+    private static void Trace(InsertionSource source, double resolution)
+    {
+        foreach (var ins in source.Insertions().Take(6))
+        {
+            Console.WriteLine(Inv($"part #{ins.Index} ") + PartText(source.Part(ins.Index), ins));
+            var settling = new PredictiveSettling(PredictiveOptions.Default, resolution, TimeSpan.FromSeconds(5));
+            var next = 0.5;
+            for (var k = 0; ins.Since(k).TotalSeconds < 12; k++)
+            {
+                var r = ins.Reading(k);
+                if (r.Value > 1e30)
+                {
+                    settling.Clear();
+                    continue;
+                }
+
+                settling.Add(r);
+                if (ins.Since(k).TotalSeconds < next || k < 12)
+                {
+                    continue;
+                }
+
+                next += 0.5;
+                if (settling.Fit(out var white) is { } f)
+                {
+                    var ppm = 1e6 / ins.Truth;
+                    var err = (f.FinalValue - ins.Truth) * ppm;
+                    Console.WriteLine(Inv($"  {ins.Since(k).TotalSeconds,5:0.0} s err {err,6:0.0} ")
+                        + Inv($"white {white} left {(ins.Clean(k) - ins.Truth) * ppm:0.0}; ") + FitText(f, ins.Truth));
+                }
+            }
+        }
+
+    }
+
+    private static string Inv(FormattableString text) => FormattableString.Invariant(text);
+
+    private static string FitText(RecoveryFit f, double truth)
+    {
+        var taus = string.Join(",", f.TimeConstantsSeconds.Select(x => Inv($"{x:0.00}")));
+        return Inv($"fit {f.Model} tau [{taus}] w {f.Weight:0.00} uFit {f.FitUncertainty / truth * 1e6:0.0} ")
+            + Inv($"uMis {f.MisfitUncertainty / truth * 1e6:0.0} n {f.Readings} span {f.SpanSeconds:0.0} ")
+            + Inv($"runsZ {f.RunsZ:0.0}; ");
+    }
+
+    private static string PartText(SimulatedPart part, Insertion ins) =>
+        Inv($"part tau {part.ThermalTimeConstant.TotalSeconds:0.00} lead {part.LeadShare:0.00}")
+        + Inv($"@{part.LeadTimeConstant.TotalSeconds:0.00} tc {part.TempcoPpmPerKelvin:0} warm {ins.WarmKelvin:0.0}");
+}
