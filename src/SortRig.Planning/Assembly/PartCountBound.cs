@@ -42,8 +42,9 @@ internal static class PartCountBound
             pairClass[c] = seriesOk[c] || parallelOk[c];
         }
 
+        var network = NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options);
         Func<int, int, bool>? fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass).Fits
-            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
+            : network is not null ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
         // single[i] / half[i]: class bit masks the part can fill as a single / as half a pair.
         var single = new int[usable.Count];
         var half = new int[usable.Count];
@@ -81,6 +82,11 @@ internal static class PartCountBound
             }
 
             bound = Math.Min(bound, (int)Math.Floor((supply / demand) + 1e-9));
+        }
+
+        if (network is not null)
+        {
+            bound = Math.Min(bound, PartnerMatchingBound.Compute(recipe, network, geo, usable, options, stop ?? (() => false)));
         }
 
         return bound == int.MaxValue ? 0 : bound;

@@ -28,13 +28,18 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
         if (anyPairs)
         {
             // Try pairing the most extreme leftovers in steps of 1/8 of each pool; keep the step with most sets.
+            // Two ways to pair: lowest with highest (centred pairs, for a reel dense in the middle) and neighbours in
+            // value (pairs where their parts lie, for a reel with a gap in the middle or sets far from nominal).
             List<List<SweepItem>> best = [];
-            for (var eighths = 1; eighths <= 8; eighths++)
+            foreach (var neighbours in new[] { false, true })
             {
-                var paired = new bool[_used.Length];
-                var pairs = Pairs(paired, eighths / 8.0);
-                var sets = IntervalSweep.Run(Singles(paired).Concat(pairs).ToList(), _geo.Demand, _geo.PairCaps);
-                best = sets.Count > best.Count ? sets : best;
+                for (var eighths = 1; eighths <= 8; eighths++)
+                {
+                    var paired = new bool[_used.Length];
+                    var pairs = Pairs(paired, eighths / 8.0, neighbours);
+                    var sets = IntervalSweep.Run(Singles(paired).Concat(pairs).ToList(), _geo.Demand, _geo.PairCaps);
+                    best = sets.Count > best.Count ? sets : best;
+                }
             }
 
             Take(best, result);
@@ -59,7 +64,7 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
         return items;
     }
 
-    private List<SweepItem> Pairs(bool[] paired, double fraction)
+    private List<SweepItem> Pairs(bool[] paired, double fraction, bool neighbours)
     {
         var items = new List<SweepItem>();
         for (var j = 0; j < _geo.Nominals.Length; j++)
@@ -76,19 +81,46 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
                     .Where(i => !_used[i] && !paired[i] && options.SameNominal(pool.Usable[i].Nominal, source))
                     .OrderBy(i => pool.Usable[i].Value.Value).ToArray();
                 var count = (int)Math.Round(free.Length * fraction / 2);
-                for (int lo = 0, hi = free.Length - 1; lo < hi && lo < count; lo++, hi--)
+                foreach (var (a, b) in neighbours ? NeighbourPairs(free.Length, count) : ExtremePairs(free.Length, count))
                 {
-                    var o = Option.Pair(build, free[lo], pool.Usable[free[lo]], free[hi], pool.Usable[free[hi]]);
+                    var o = Option.Pair(build, free[a], pool.Usable[free[a]], free[b], pool.Usable[free[b]]);
                     if (_geo.Item(j, o, kind) is { } item)
                     {
                         items.Add(item);
-                        paired[free[lo]] = paired[free[hi]] = true;
+                        paired[free[a]] = paired[free[b]] = true;
                     }
                 }
             }
         }
 
         return items;
+    }
+
+    // Lowest with highest, from the extremes inwards.
+    private static IEnumerable<(int, int)> ExtremePairs(int n, int count)
+    {
+        for (int lo = 0, hi = n - 1; lo < hi && lo < count; lo++, hi--)
+        {
+            yield return (lo, hi);
+        }
+    }
+
+    // Neighbours in sorted order, taken from both tails inwards alternately.
+    private static IEnumerable<(int, int)> NeighbourPairs(int n, int count)
+    {
+        for (int lo = 0, hi = n - 1, made = 0; hi - lo >= 1 && made < count; made++)
+        {
+            if (made % 2 == 0)
+            {
+                yield return (lo, lo + 1);
+                lo += 2;
+            }
+            else
+            {
+                yield return (hi - 1, hi);
+                hi -= 2;
+            }
+        }
     }
 
     private void Take(List<List<SweepItem>> sets, List<(Option[], SetVerdict)> result)
