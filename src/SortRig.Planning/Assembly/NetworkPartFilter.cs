@@ -95,28 +95,12 @@ internal sealed class NetworkPartFilter
         return false;
     }
 
-    /// <summary>True for a position filled by a single part only (no pair builds).</summary>
-    public bool SingleOnly(int position) => !_pairs[position];
-
-    /// <summary>
-    /// The box left after propagation with the part fixed at position <paramref name="k"/>: every member of a feasible
-    /// set holding the part there has its value at position l within [Lo[l], Hi[l]] (invariant (4) of the class
-    /// comment). Null when the part can be at k in no feasible set.
-    /// </summary>
-    public (double[] Lo, double[] Hi)? Box(int k, int part)
-    {
-        var lo = (double[])_pairLo.Clone();
-        var hi = (double[])_pairHi.Clone();
-        return Possible(k, part, lo, hi) ? (lo, hi) : null;
-    }
-
-    private bool Possible(int k, int part) =>
-        Possible(k, part, (double[])_pairLo.Clone(), (double[])_pairHi.Clone());
-
     // The part itself fills k, so it is left out of the other positions' single values.
-    private bool Possible(int k, int part, double[] lo, double[] hi)
+    private bool Possible(int k, int part)
     {
         var value = _usable[part].Value.Value;
+        var lo = (double[])_pairLo.Clone();
+        var hi = (double[])_pairHi.Clone();
         for (var l = 0; l < lo.Length; l++)
         {
             var others = _singles[l].Where(t => t.Part != part).ToArray();

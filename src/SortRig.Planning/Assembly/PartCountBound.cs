@@ -10,7 +10,8 @@ namespace SortRig.Planning.Assembly;
 /// common points holds, somewhere, enough intervals of every class without pairs (exact 1-D test, slightly widened):
 /// no feasible set can contain it otherwise. Network form (at most <see cref="NetworkPartFilter.MaxPositions"/>
 /// positions): likewise when no set of values within the reel's range can meet every output with it
-/// (<see cref="NetworkPartFilter"/>, a proven relaxation).
+/// (<see cref="NetworkPartFilter"/>, a proven relaxation). The same filtered counts then feed the supply LP
+/// (<see cref="SupplyBound"/>), which also sees that a part in a pair gives half a fill; the smaller bound is returned.
 /// </summary>
 internal static class PartCountBound
 {
@@ -42,9 +43,8 @@ internal static class PartCountBound
             pairClass[c] = seriesOk[c] || parallelOk[c];
         }
 
-        var network = NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options);
         Func<int, int, bool>? fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass).Fits
-            : network is not null ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
+            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
         // single[i] / half[i]: class bit masks the part can fill as a single / as half a pair.
         var single = new int[usable.Count];
         var half = new int[usable.Count];
@@ -82,11 +82,6 @@ internal static class PartCountBound
             }
 
             bound = Math.Min(bound, (int)Math.Floor((supply / demand) + 1e-9));
-        }
-
-        if (network is not null)
-        {
-            bound = Math.Min(bound, PartnerMatchingBound.Compute(recipe, network, geo, usable, options, stop ?? (() => false)));
         }
 
         return bound == int.MaxValue ? 0 : bound;

@@ -78,9 +78,8 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
                 "none: the sweep's sets are kept as found", _time.GetElapsedTime(started));
         }
 
-        // The network filter and partner matching of the bound may take a fifth of the time limit; parts left then
-        // are counted unfiltered (and matched to every partner).
-        var filterBudget = _options.TimeLimit / 5;
+        // The network filter of the bound may take a tenth of the time limit; parts left then are counted unfiltered.
+        var filterBudget = _options.TimeLimit / 10;
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () => _time.GetElapsedTime(started) > filterBudget);
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;

@@ -4,8 +4,9 @@ namespace SortRig.Planning.Assembly;
 
 /// <summary>
 /// The fast path. Pass 1: singles only, by the interval sweep. Pass 2 (recipes allowing pairs): leftover parts of
-/// each pair nominal are paired lowest-with-highest (a high part and a low one make a centred pair) and swept with
-/// the leftover singles; the share of each pool paired (from the extremes inwards) is tried in eighths and the best
+/// each pair nominal are paired lowest-with-highest (a high part and a low one make a centred pair) or with their
+/// neighbour in value (a pair where its parts lie: a reel with no parts near nominal) and swept with the leftover
+/// singles; the share of each pool paired (from the extremes inwards) is tried in eighths, both ways, and the best
 /// kept. Pass 3: singles again with the parts of unused pairs. Every set is then arranged onto
 /// positions (network form: parts nearest the common point go to the most sensitive positions) and verified.
 /// </summary>
