@@ -47,7 +47,9 @@ internal static class PlanningBenchmark
         // `reels=a,b` runs the reel section for the named recipes only (a quick check while working on one recipe).
         var only = section.StartsWith("reels=", StringComparison.Ordinal) ? section["reels=".Length..].Split(',') : null;
         var chosen = only is null ? every : every.Where(e => only.Contains(e.Item1)).ToList();
-        var reels = all || section == "reels" || only is not null ? ReelBench.Run(chosen, 1000, TimeSpan.FromSeconds(10), seed: 1) : [];
+        var reels = all || section == "reels" || only is not null
+            ? ReelBench.Run(chosen, 1000, TimeSpan.FromSeconds(10), seed: 1)
+            : [];
         var big = all || section == "big" ? ReelBench.Run([("matched-quad", quad)], 10_000, TimeSpan.FromSeconds(60), seed: 1) : [];
         var paired = every.Where(e => e.Item2.Form == RecipeForm.Matched && e.Item2.Positions.Any(p => p.Pairs != PairBuilds.None)).Take(1).Select(e => (e.Item1 + " (pairs)", e.Item2));
         var timing = all || section == "timing" ? TimingBench.Run([("matched-quad", quad), .. paired, ("r2r-dac-8bit", r2r)]) : [];

@@ -3,23 +3,25 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Planning.Assembly;
 
 /// <summary>
-/// A proven upper bound from the parts each set consumes, a linear programme over how positions are filled. Variables:
-/// N (sets), s[k,t] (fills of position k by one part of type t) and h[k,t] (parts of type t used in pairs at k); a
-/// part's type is which positions it can fill as a single (after the filters of <see cref="PartCountBound"/>) and in
-/// a pair. Constraints: every position filled N times, N ≤ Σ_t s[k,t] + ½ Σ_t h[k,t]; no type used beyond its count,
-/// Σ_k (s[k,t] + h[k,t]) ≤ count[t]. Any plan of M sets gives a feasible point with N = M (count its fills), so
-/// ⌊LP optimum⌋ ≥ the optimum. Unlike the Hall count it sees that a part in a pair gives only half a fill to the
-/// position it serves while it is lost to every other (the R-2R ladder's 10k parts: 7 singles or 2 per 20k leg).
+/// A proven upper bound from the parts each set consumes, a linear programme over how positions are filled.
+/// Variables: N (sets), s[k,t] (fills of position k by one part of type t) and h[k,t] (parts of type t used in pairs
+/// at k); a part's type is which positions it can fill as a single (after the filters of
+/// <see cref="PartCountBound"/>) and in a pair. Constraints: every position filled N times,
+/// N ≤ Σ_t s[k,t] + ½ Σ_t h[k,t]; no type used beyond its count, Σ_k (s[k,t] + h[k,t]) ≤ count[t]. Any plan of
+/// M sets gives a feasible point with N = M (count its fills), so ⌊LP optimum⌋ ≥ the optimum. Unlike the Hall
+/// count it sees that a part in a pair gives only half a fill to the position it serves while it is lost to every
+/// other (the R-2R ladder's 10k parts: 7 singles or 2 per 20k leg).
 /// </summary>
 internal static class SupplyBound
 {
-    /// <summary>The bound, or int.MaxValue when the programme could not be solved (never tighter than the truth).</summary>
+    /// <summary>The bound, or int.MaxValue when the programme could not be solved.</summary>
     /// <param name="recipe">The recipe.</param>
     /// <param name="usable">Usable parts.</param>
     /// <param name="singleClasses">Per part, the class bit mask it may fill as a single (filtered).</param>
     /// <param name="classOf">Class of each position.</param>
     /// <param name="options">Nominal matching.</param>
-    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, int[] singleClasses, int[] classOf, AssemblyOptions options)
+    public static int Compute(
+        Recipe recipe, IReadOnlyList<PartCandidate> usable, int[] singleClasses, int[] classOf, AssemblyOptions options)
     {
         var positions = recipe.Positions.Count;
         var types = new Dictionary<(ulong Single, ulong Half), int>();
@@ -30,8 +32,9 @@ internal static class SupplyBound
             {
                 var pos = recipe.Positions[k];
                 single |= (singleClasses[i] >> classOf[k] & 1) == 1 ? 1UL << k : 0;
-                var paired = (pos.Pairs.HasFlag(PairBuilds.Series) && options.SameNominal(usable[i].Nominal, pos.Nominal / 2))
-                    || (pos.Pairs.HasFlag(PairBuilds.Parallel) && options.SameNominal(usable[i].Nominal, pos.Nominal * 2));
+                var nominal = usable[i].Nominal;
+                var paired = (pos.Pairs.HasFlag(PairBuilds.Series) && options.SameNominal(nominal, pos.Nominal / 2))
+                    || (pos.Pairs.HasFlag(PairBuilds.Parallel) && options.SameNominal(nominal, pos.Nominal * 2));
                 half |= paired ? 1UL << k : 0;
             }
 

@@ -82,7 +82,8 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
                     .Where(i => !_used[i] && !paired[i] && options.SameNominal(pool.Usable[i].Nominal, source))
                     .OrderBy(i => pool.Usable[i].Value.Value).ToArray();
                 var count = (int)Math.Round(free.Length * fraction / 2);
-                foreach (var (a, b) in neighbours ? NeighbourPairs(free.Length, count) : ExtremePairs(free.Length, count))
+                var chosen = neighbours ? NeighbourPairs(free.Length, count) : ExtremePairs(free.Length, count);
+                foreach (var (a, b) in chosen)
                 {
                     var o = Option.Pair(build, free[a], pool.Usable[free[a]], free[b], pool.Usable[free[b]]);
                     if (_geo.Item(j, o, kind) is { } item)

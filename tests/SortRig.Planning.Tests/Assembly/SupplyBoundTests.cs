@@ -29,8 +29,8 @@ public sealed class SupplyBoundTests
     [Fact]
     public void PairsTakeTwoParts_BoundIsTheSupplyNotTheHallCount()
     {
-        // A 10k single and a 20k made of two 10k in series, from six 10k parts close together: each set takes three
-        // parts, so at most 2 sets (hand count, common practice, no source). The Hall count alone gives ⌊6 / 2⌋ = 3.
+        // A 10k single and a 20k made of two 10k in series, from six 10k parts close together: each set takes
+        // three parts, so at most 2 sets (hand count, common practice, no source). The Hall count gives ⌊6 / 2⌋ = 3.
         var recipe = RandomInstances.Matched(4);
         var parts = Enumerable.Range(0, 6).Select(i => Part(i, 10e3, 10e3 * (1 + (i * 1e-5)))).ToList();
         var usable = new CandidatePool(recipe, parts, new AssemblyOptions(), withPairs: false).Usable;
@@ -42,10 +42,13 @@ public sealed class SupplyBoundTests
     [Fact]
     public void LadderShape_TenKPartsSplitBetweenRungsAndLegs()
     {
-        // 7 rungs of 10k and 9 legs of 20k (single 20k or two 10k in series), as the R-2R recipe: with 640 10k and
-        // 360 20k parts, N sets need 7N + 2(9N − 360) ≤ 640, so N ≤ 54 (hand count); the Hall count gives ⌊1000/16⌋ = 62.
-        var recipe = RecipeLoader.Load(File.ReadAllText(RepoPaths.Recipe("r2r-dac-8bit.yaml")), "r2r-dac-8bit.yaml");
-        var parts = Enumerable.Range(0, 1000).Select(i => i < 640 ? Part(i, 10e3, 10e3) : Part(i, 20e3, 20e3)).ToList();
+        // 7 rungs of 10k and 9 legs of 20k (single 20k or two 10k in series), as the R-2R recipe: with 640 10k
+        // and 360 20k parts, N sets need 7N + 2(9N − 360) ≤ 640, so N ≤ 54 (hand count); the Hall count gives
+        // ⌊1000/16⌋ = 62.
+        var text = File.ReadAllText(RepoPaths.Recipe("r2r-dac-8bit.yaml"));
+        var recipe = RecipeLoader.Load(text, "r2r-dac-8bit.yaml");
+        var parts = Enumerable.Range(0, 1000)
+            .Select(i => i < 640 ? Part(i, 10e3, 10e3) : Part(i, 20e3, 20e3)).ToList();
         var usable = new CandidatePool(recipe, parts, new AssemblyOptions(), withPairs: false).Usable;
         Assert.Equal(54, PartCountBound.Compute(recipe, usable, new NetworkRule(recipe), new AssemblyOptions()));
     }
@@ -60,7 +63,12 @@ public sealed class SupplyBoundTests
         var rng = new Random(77_000 + seed);
         var shape = 3 + (seed % 3);
         var recipe = RandomInstances.Matched(shape);
-        double[] nominals = shape switch { 3 => [10e3, 20e3, 20e3], 4 => [10e3, 10e3, 10e3, 20e3], _ => [10e3, 10e3, 20e3, 20e3, 5e3] };
+        double[] nominals = shape switch
+        {
+            3 => [10e3, 20e3, 20e3],
+            4 => [10e3, 10e3, 10e3, 20e3],
+            _ => [10e3, 10e3, 20e3, 20e3, 5e3],
+        };
         var parts = RandomInstances.Parts(rng, rng.Next(6, 9), nominals, sigma: 500e-6, maxRelU: 100e-6);
         var (optimum, _) = BruteForce.Solve(recipe, parts, BruteForce.Matched(recipe));
         var search = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
