@@ -84,8 +84,10 @@ internal static class PlanningBenchmark
             "Default options (time limit 10 s). Nominals drawn in proportion to one set's needs (a position allowing pairs shares its",
             "weight with its pair nominal); 'normal' σ = 1 %/3 truncated at ±1 %, 'bimodal' σ = 1 %/2 with |deviation| < 0.4 % missing;",
             "expanded transfer uncertainty uniform 5–15 ppm (unequal: the sweep's exact case does not apply); seed 1. 'upper bound' is proven (never below the optimum); gap = (bound − sets) / bound.",
-            "'part count' = Hall-type counting bound over nominal classes (docs/planning.md); for the matched form parts that fit no",
-            "common window are not counted. Time includes the bound; a search that stops at the time limit shows about 10 s.",
+            "'part count' = the smaller of the Hall-type counting bound and the supply LP over nominal classes (a part in a pair",
+            "gives half a fill; docs/planning.md); for the matched form parts that fit no common window are not counted, for networks",
+            "of at most 7 positions parts that no set within the reel's range can hold. Time includes the bound; a search that stops",
+            "at the time limit shows about 10 s.",
             "",
         ]);
         md.AddRange(reels);
