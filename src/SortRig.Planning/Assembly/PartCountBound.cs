@@ -10,13 +10,14 @@ namespace SortRig.Planning.Assembly;
 /// common points holds, somewhere, enough intervals of every class without pairs (exact 1-D test, slightly widened):
 /// no feasible set can contain it otherwise. Network form (at most <see cref="NetworkPartFilter.MaxPositions"/>
 /// positions): likewise when no set of values within the reel's range can meet every output with it
-/// (<see cref="NetworkPartFilter"/>, a proven relaxation).
+/// (<see cref="NetworkPartFilter"/>, a proven relaxation). The same filtered counts then feed the supply LP
+/// (<see cref="SupplyBound"/>), which also sees that a part in a pair gives half a fill; the smaller bound is returned.
 /// </summary>
 internal static class PartCountBound
 {
-    public const string MatchedName = "part-count bound (Hall condition over nominal classes; parts that fit no common window not counted)";
-    public const string NetworkName = "part-count bound (Hall condition over nominal classes)";
-    public const string NetworkFilteredName = "part-count bound (Hall condition over nominal classes; parts that no set within the reel's range can hold not counted)";
+    public const string MatchedName = "part-count bound (Hall condition and supply LP over nominal classes; parts that fit no common window not counted)";
+    public const string NetworkName = "part-count bound (Hall condition and supply LP over nominal classes)";
+    public const string NetworkFilteredName = "part-count bound (Hall condition and supply LP over nominal classes; parts that no set within the reel's range can hold not counted)";
 
     /// <summary>The bound and its description.</summary>
     public static (int Bound, string Name) ComputeNamed(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
@@ -65,7 +66,7 @@ internal static class PartCountBound
             }
         }
 
-        var bound = int.MaxValue;
+        var bound = SupplyBound.Compute(recipe, usable, single, geo.ClassOf, options);
         for (var subset = 1; subset < 1 << Math.Min(classes, 12); subset++)
         {
             var demand = 0;
