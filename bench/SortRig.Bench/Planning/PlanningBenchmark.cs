@@ -1,3 +1,4 @@
+using System.Globalization;
 using SortRig.Planning.Recipes;
 
 namespace SortRig.Bench.Planning;
@@ -18,6 +19,19 @@ internal static class PlanningBenchmark
         var all = section == "all";
         var yield = all || section == "cups" ? YieldBench.Run(quad) : [];
         Console.WriteLine(string.Join('\n', yield));
+        if (section.StartsWith("show:", StringComparison.Ordinal))
+        {
+            var w = section.Split(':');
+            YieldBench.Show(quad, w[1], int.Parse(w[2], CultureInfo.InvariantCulture), int.Parse(w[3], CultureInfo.InvariantCulture));
+            return 0;
+        }
+
+        if (section == "cups-seeds")
+        {
+            Console.WriteLine(string.Join('\n', YieldBench.RunOtherSeeds(quad)));
+            return 0;
+        }
+
         var gap = all || section == "gap" ? GapBench.Run(
         [
             ("matched-quad, unequal uncertainty, 16 parts", quad, [10e3], 16, 700, 150),

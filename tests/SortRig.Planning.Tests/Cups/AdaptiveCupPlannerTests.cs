@@ -43,10 +43,12 @@ public sealed class AdaptiveCupPlannerTests
         var fixedBands = Sets(new BandCupAssigner(new BandCupOptions(12, 1000, 10e3, 1.0)), reel);
         var bands = planner.Bands(10e3);
         Assert.Equal(12, bands.Count);
-        Assert.False(bands.Any(b => b.HighPpm > -4000 && b.LowPpm < 4000), string.Join(" ", bands.Select(b => $"[{b.LowPpm:0},{b.HighPpm:0})")));
-        // 12 bands of 1000 ppm can cover both humps [4000, 10000] exactly: at most 3 parts left per cup (9 sets) plus
-        // parts lost while learning, so at least 90 % of the 250 quads; centred fixed bands reach only ±6000 ppm.
-        Assert.True(adaptive >= 225 && adaptive > 1.5 * fixedBands, $"adaptive {adaptive} sets, fixed bands {fixedBands}");
+        // Bands sit on a grid of 1/20 band (50 ppm): none reaches further than that into the empty centre.
+        Assert.False(bands.Any(b => b.HighPpm > -3950 && b.LowPpm < 3950), string.Join(" ", bands.Select(b => $"[{b.LowPpm:0},{b.HighPpm:0})")));
+        // 12 bands of 1000 ppm (less 20 ppm of uncertainty each) can nearly cover both humps [4000, 10000]: at most 3
+        // parts left per cup (9 sets) plus parts lost while learning, so at least 88 % of the 250 quads; centred fixed
+        // bands reach only ±6000 ppm.
+        Assert.True(adaptive >= 220 && adaptive > 1.5 * fixedBands, $"adaptive {adaptive} sets, fixed bands {fixedBands}");
     }
 
     [Fact]
