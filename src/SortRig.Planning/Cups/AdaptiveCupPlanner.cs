@@ -13,7 +13,8 @@ namespace SortRig.Planning.Cups;
 /// at every part while learning, then whenever the sample has grown by a tenth; the part opens the planned band it
 /// fits, if any. No band moves once it holds a part. Each nominal has its own K cups; everything else goes to "R".
 /// </summary>
-public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null) : ICupAssigner
+public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null)
+    : ICupAssigner
 {
     private readonly CupLedger _ledger = new();
     private readonly Dictionary<double, NominalBands> _nominals = [];
@@ -27,12 +28,15 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
                 return new CupCount(n.Nominal, b.Label, b.Index, false, c, b.Lo, b.Hi, c / n.PartsPerSet);
             }))
             .Concat(_ledger.NonEmpty.Where(e => e.Key.Label == CupLabels.Reject)
-                .Select(e => new CupCount(e.Key.Nominal, CupLabels.Reject, options.CupCount, true, e.Count, double.NaN, double.NaN, 0)))
+                .Select(e => new CupCount(
+                    e.Key.Nominal, CupLabels.Reject, options.CupCount, true, e.Count, double.NaN, double.NaN, 0)))
             .ToList();
 
     /// <summary>The bands of a nominal so far (label, low and high edge in ppm); empty before its first part.</summary>
     public IReadOnlyList<(string Label, double LowPpm, double HighPpm)> Bands(double nominal) =>
-        _nominals.TryGetValue(nominal, out var n) ? n.Bands.OrderBy(b => b.Lo).Select(b => (b.Label, b.Lo, b.Hi)).ToList() : [];
+        _nominals.TryGetValue(nominal, out var n)
+            ? n.Bands.OrderBy(b => b.Lo).Select(b => (b.Label, b.Lo, b.Hi)).ToList()
+            : [];
 
     /// <inheritdoc />
     public CupDecision Assign(CupRequest request) => Place(request, forcedLabel: null);
@@ -64,7 +68,8 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         var key = options.PartsPerSet.Keys.FirstOrDefault(k => Math.Abs(k - r.Nominal) <= k * 1e-4);
         if (key == 0)
         {
-            return Record(r, 0, null, $"nominal {r.Nominal.ToString(CultureInfo.InvariantCulture)} ohm is not in the plan", forcedLabel);
+            var nominal = r.Nominal.ToString(CultureInfo.InvariantCulture);
+            return Record(r, 0, null, $"nominal {nominal} ohm is not in the plan", forcedLabel);
         }
 
         if (!_nominals.TryGetValue(key, out var state))
@@ -76,12 +81,14 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         var u = r.Value.ExpandedTransfer / key * 1e6;
         if (Math.Abs(dev) > options.StockTolerancePercent * 1e4)
         {
-            return Record(r, key, null, FormattableString.Invariant($"{dev:+0;-0} ppm is outside the stock tolerance"), forcedLabel);
+            var outside = FormattableString.Invariant($"{dev:+0;-0} ppm is outside the stock tolerance");
+            return Record(r, key, null, outside, forcedLabel);
         }
 
         if (u > options.UncertaintyLimitPpm)
         {
-            return Record(r, key, null, FormattableString.Invariant($"uncertainty {u:0} ppm is over the limit"), forcedLabel);
+            return Record(r, key, null, FormattableString.Invariant($"uncertainty {u:0} ppm is over the limit"),
+                forcedLabel);
         }
 
         state.Samples.Add((r.PartNumber, dev, u));
@@ -103,7 +110,8 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
     {
         bool Empty(string label) => _ledger.Count(state.Nominal, label) == 0;
         var holding = state.Bands.Where(b => !Empty(b.Label) && b.Fits(dev, u))
-            .MaxBy(b => (_ledger.Count(state.Nominal, b.Label) % state.PartsPerSet, _ledger.Count(state.Nominal, b.Label)));
+            .MaxBy(b => (_ledger.Count(state.Nominal, b.Label) % state.PartsPerSet,
+                _ledger.Count(state.Nominal, b.Label)));
         if (holding is not null || state.Bands.Count(b => !Empty(b.Label)) >= options.CupCount)
         {
             return holding;
@@ -112,7 +120,8 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         if (state.Stale)
         {
             state.Replan(Empty);
-            Log.BandsPlanned(_logger, state.Nominal, state.Samples.Count, string.Join(" ", state.Bands.OrderBy(b => b.Lo)
+            Log.BandsPlanned(_logger, state.Nominal, state.Samples.Count, string.Join(" ", state.Bands
+                .OrderBy(b => b.Lo)
                 .Select(b => FormattableString.Invariant($"{b.Label}[{b.Lo:0},{b.Hi:0}]"))));
         }
 
@@ -128,7 +137,9 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         }
 
         var band = state.Bands.FirstOrDefault(b => b.Label == label);
-        return band is not null && (_ledger.Count(state.Nominal, label) > 0 || band.Fits(dev, u)) ? band : state.OpenFor(label, dev, u);
+        return band is not null && (_ledger.Count(state.Nominal, label) > 0 || band.Fits(dev, u))
+            ? band
+            : state.OpenFor(label, dev, u);
     }
 
     private CupDecision Record(CupRequest r, double key, NominalBands.Band? band, string reason, string? forcedLabel)
@@ -138,7 +149,9 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
             reason = "restored from history";
             if (forcedLabel != (band?.Label ?? CupLabels.Reject))
             {
-                throw new ArgumentException($"cup label '{forcedLabel}' of part {r.PartNumber} is not a cup of nominal {key}", nameof(forcedLabel));
+                throw new ArgumentException(
+                    $"cup label '{forcedLabel}' of part {r.PartNumber} is not a cup of nominal {key}",
+                    nameof(forcedLabel));
             }
         }
 

@@ -18,7 +18,13 @@ internal static class CoverageEstimate
     /// <param name="width">Band width, log ppm.</param>
     /// <param name="cap">Largest kernel bandwidth, log ppm.</param>
     /// <returns>Expected share of the coming parts each band would take (0..1).</returns>
-    public static double[] Gains(IReadOnlyList<(double Centre, double Half)> samples, double firstStart, double step, int points, double width, double cap)
+    public static double[] Gains(
+        IReadOnlyList<(double Centre, double Half)> samples,
+        double firstStart,
+        double step,
+        int points,
+        double width,
+        double cap)
     {
         var gains = new double[points];
         if (samples.Count == 0)

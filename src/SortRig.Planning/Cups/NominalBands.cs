@@ -46,9 +46,11 @@ internal sealed class NominalBands
     /// True when the sample has grown enough since the last plan to place the empty cups' bands again: at every
     /// part up to the learn count, then each time it has grown by a tenth.
     /// </summary>
-    public bool Stale => Samples.Count <= _options.LearnCount ? Samples.Count != _plannedAt : Samples.Count >= _plannedAt * 1.1;
+    public bool Stale => Samples.Count <= _options.LearnCount
+        ? Samples.Count != _plannedAt
+        : Samples.Count >= _plannedAt * 1.1;
 
-    /// <summary>Places the bands of every empty cup where most of the coming parts are expected; bands with parts stay.</summary>
+    /// <summary>Places the empty cups' bands where most coming parts are expected; bands with parts stay.</summary>
     public void Replan(Func<string, bool> isEmpty)
     {
         _plannedAt = Samples.Count;
@@ -65,20 +67,7 @@ internal sealed class NominalBands
             return ((lo + hi) / 2, (hi - lo) / 2);
         }).ToList();
         var first = _firstIndex * _step;
-        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3);
-        // Until the reel has shown itself, lean on where a lot's parts usually are: about the nominal, σ = a third of
-        // the tolerance (common practice, no source), weighted as the learn count of parts.
-        var half = centres.Count > 0 ? centres.Min(c => c.Item2) : 0;
-        var n = centres.Count;
-        var n0 = (double)_options.LearnCount;
-        for (var j = 0; j < _points; j++)
-        {
-            var s = first + (j * _step);
-            var prior = s + _width - half > s + half
-                ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half) : 0;
-            gains[j] = ((n * gains[j]) + (n0 * prior)) / (n + n0);
-        }
-
+        var gains = Estimate(centres, first);
         var pinned = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).ToList();
         // Beside bands with parts, a planned band either touches one of them or leaves room for a whole band on both
         // sides: a narrower gap could never be used, and plans drawn from few parts would scatter such gaps.
@@ -90,8 +79,10 @@ internal sealed class NominalBands
                 return false;
             }
 
-            var left = pinned.Select(p => s - p.Item2).Where(g => g >= -1e-6).DefaultIfEmpty(double.PositiveInfinity).Min();
-            var right = pinned.Select(p => p.Item1 - s - _width).Where(g => g >= -1e-6).DefaultIfEmpty(double.PositiveInfinity).Min();
+            var left = pinned.Select(p => s - p.Item2).Where(g => g >= -1e-6)
+                .DefaultIfEmpty(double.PositiveInfinity).Min();
+            var right = pinned.Select(p => p.Item1 - s - _width).Where(g => g >= -1e-6)
+                .DefaultIfEmpty(double.PositiveInfinity).Min();
             return left <= 1e-6 || right <= 1e-6 || (left >= _width - 1e-6 && right >= _width - 1e-6);
         }).ToList();
         foreach (var j in WindowCover.Best(gains, StepsPerBand, allowed, free).Starts)
@@ -110,7 +101,8 @@ internal sealed class NominalBands
         var index = CupLabels.IndexOf(label);
         if (index < 0 || index >= _options.CupCount)
         {
-            throw new ArgumentException($"cup label '{label}' is not one of the {_options.CupCount} cups", nameof(label));
+            throw new ArgumentException(
+                $"cup label '{label}' is not one of the {_options.CupCount} cups", nameof(label));
         }
 
         Bands.RemoveAll(b => b.Label == label);
@@ -121,13 +113,37 @@ internal sealed class NominalBands
         return band;
     }
 
+    // The kernel density of the parts seen, plus while the sample is small (weights fading as learn count / (learn
+    // count + n)) the same parts mirrored about the nominal, since a lot is made about its nominal and tighter parts
+    // are binned out of it symmetrically (common practice, no source), and for the very first parts a prior of 5 parts
+    // about the nominal with σ = a third of the tolerance (no source).
+    private double[] Estimate(List<(double Centre, double Half)> centres, double first)
+    {
+        var n = centres.Count;
+        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3);
+        List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
+        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3);
+        var half = n > 0 ? centres.Min(c => c.Half) : 0;
+        var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
+        const double Prior = 5;
+        for (var j = 0; j < _points; j++)
+        {
+            var s = first + (j * _step);
+            var prior = _width > 2 * half
+                ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half) : 0;
+            gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
+        }
+
+        return gains;
+    }
+
     private void Open(double lo, double hi)
     {
         var index = Enumerable.Range(0, _options.CupCount).First(i => Bands.All(b => b.Index != i));
         Bands.Add(new Band(index, CupLabels.For(index), lo, hi));
     }
 
-    /// <summary>One cup's band, ppm from nominal: a part goes in only when [dev − U, dev + U] lies within [Lo, Hi].</summary>
+    /// <summary>One cup's band, ppm from nominal: a part goes in only if [dev − U, dev + U] lies in [Lo, Hi].</summary>
     internal sealed record Band(int Index, string Label, double Lo, double Hi)
     {
         public bool Fits(double dev, double u) => dev - u >= Lo && dev + u <= Hi;

@@ -7,8 +7,9 @@ namespace SortRig.Planning.Cups;
 /// </summary>
 internal static class WindowCover
 {
-    /// <summary>Start indices (ascending) of the best windows, and their total gain. Windows worth 0 are not placed.</summary>
-    public static (IReadOnlyList<int> Starts, double Total) Best(IReadOnlyList<double> gain, int span, IReadOnlyList<bool> allowed, int count)
+    /// <summary>Start indices (ascending) of the best windows and their total gain; no window worth 0.</summary>
+    public static (IReadOnlyList<int> Starts, double Total) Best(
+        IReadOnlyList<double> gain, int span, IReadOnlyList<bool> allowed, int count)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(span, 1);
         ArgumentOutOfRangeException.ThrowIfNegative(count);

@@ -6,12 +6,12 @@ using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
 
 namespace SortRig.Planning.Tests.Cups;
 
-/// <summary>The adaptive planner's cups hold matched parts in the worst case, and its bands never move under parts.</summary>
+/// <summary>The adaptive planner's cups hold matched parts in the worst case; bands never move under parts.</summary>
 public sealed class AdaptiveCupWorstCaseTests
 {
     private static readonly Dictionary<double, int> s_quad = new() { [10e3] = 4 };
 
-    /// <summary>A reel: shape 0 normal, 1 centre binned out, 2 uniform, 3 off-centre; uncertainty per part up to uMax.</summary>
+    /// <summary>A reel: shape 0 normal, 1 centre binned out, 2 uniform, 3 off-centre; uncertainty up to uMax.</summary>
     private static List<(double Ppm, double U)> Reel(int seed, int shape, int n, double uMax)
     {
         var rng = new Random(seed);
@@ -36,7 +36,8 @@ public sealed class AdaptiveCupWorstCaseTests
     }
 
     [Property(MaxTest = 60)]
-    public Property EveryCup_MeetsTheMatchToleranceInTheWorstCase_AndNoBandMovesUnderParts(PositiveInt seed, byte shape, byte cups, byte tolerance)
+    public Property EveryCup_MeetsTheMatchToleranceInTheWorstCase_AndNoBandMovesUnderParts(
+        PositiveInt seed, byte shape, byte cups, byte tolerance)
     {
         var k = 1 + (cups % 23);
         var tolPpm = 200 + (tolerance * 8);
@@ -50,7 +51,8 @@ public sealed class AdaptiveCupWorstCaseTests
             var d = planner.Assign(part);
             if (!d.IsReject)
             {
-                (byCup.TryGetValue(d.CupLabel, out var l) ? l : byCup[d.CupLabel] = []).Add((part.Value.Value, part.Value.ExpandedTransfer));
+                var cup = byCup.TryGetValue(d.CupLabel, out var l) ? l : byCup[d.CupLabel] = [];
+                cup.Add((part.Value.Value, part.Value.ExpandedTransfer));
             }
 
             // A band that holds parts keeps its edges for the rest of the reel.
@@ -65,8 +67,8 @@ public sealed class AdaptiveCupWorstCaseTests
             }
         }
 
-        // Worst case of the matched rule: every part at the edge of its expanded uncertainty, ratio of the highest to the
-        // lowest value within 1 + tolerance (common practice for matched sets, no source).
+        // Worst case of the matched rule: every part at the edge of its expanded uncertainty, ratio of the highest to
+        // the lowest value within 1 + tolerance (common practice for matched sets, no source).
         foreach (var (label, parts) in byCup)
         {
             var worst = ((parts.Max(p => p.Value + p.U) / parts.Min(p => p.Value - p.U)) - 1) * 1e6;
