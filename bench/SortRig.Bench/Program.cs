@@ -42,5 +42,5 @@ if (args.Length == 4 && args[0] == "lab-worker")
     return await SortRig.Bench.Lab.LabWorker.RunAsync(args[1], args[2], double.Parse(args[3], System.Globalization.CultureInfo.InvariantCulture), CancellationToken.None);
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|timing|probe], settle [parts], order [quad], drift, lab, build [seeds])");
+Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|cups-seeds|show:REEL:K:SEED|timing|probe], settle [parts], order [quad], drift, lab, build [seeds])");
 return 0;

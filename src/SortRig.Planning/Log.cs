@@ -11,6 +11,6 @@ internal static partial class Log
     [LoggerMessage(EventId = 4002, Level = LogLevel.Information, Message = "Exact search for recipe {Recipe} exceeded its limits with {Parts} parts; using the sweep")]
     public static partial void ExactFallback(ILogger logger, string recipe, int parts);
 
-    [LoggerMessage(EventId = 4003, Level = LogLevel.Information, Message = "Cup bands learned for nominal {Nominal} ohms from {Samples} parts: {Bands}")]
-    public static partial void BandsLearned(ILogger logger, double nominal, int samples, string bands);
+    [LoggerMessage(EventId = 4003, Level = LogLevel.Debug, Message = "Cup bands planned for nominal {Nominal} ohms from {Samples} parts: {Bands}")]
+    public static partial void BandsPlanned(ILogger logger, double nominal, int samples, string bands);
 }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using SortRig.Planning.Recipes;
 
 namespace SortRig.Bench.Planning;
@@ -18,6 +19,19 @@ internal static class PlanningBenchmark
         var all = section == "all";
         var yield = all || section == "cups" ? YieldBench.Run(quad) : [];
         Console.WriteLine(string.Join('\n', yield));
+        if (section.StartsWith("show:", StringComparison.Ordinal))
+        {
+            var w = section.Split(':');
+            YieldBench.Show(quad, w[1], int.Parse(w[2], CultureInfo.InvariantCulture), int.Parse(w[3], CultureInfo.InvariantCulture));
+            return 0;
+        }
+
+        if (section == "cups-seeds")
+        {
+            Console.WriteLine(string.Join('\n', YieldBench.RunOtherSeeds(quad)));
+            return 0;
+        }
+
         var gap = all || section == "gap" ? GapBench.Run(
         [
             ("matched-quad, unequal uncertainty, 16 parts", quad, [10e3], 16, 700, 150),
@@ -97,11 +111,7 @@ internal static class PlanningBenchmark
             "",
             "## Online cups vs their K-cup bound",
             "",
-            "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad (4 parts within 0.1 %).",
-            "'normal' and 'bimodal' as above. Mean of 5 reels. Sets from cups = Σ floor(count / 4). 'K-cup bound' = most parts K disjoint",
-            "1000 ppm windows can hold on that reel, / 4: no plan with K cups of one band each can beat it. The offline optimum is the",
-            "assembler's. Target: adaptive ≥ 98 % of the K-cup bound.",
-            "",
+            .. YieldBench.Description,
         ]);
         md.AddRange(yield);
         md.AddRange(["", "## Sweep time", "", "The window sweep alone (neighbourhood search off), median of 3 runs after a warm-up. Parts of the recipe's nominals", "(and pair nominals), deviations normal σ = 0.3 %, 10 ppm uncertainty.", ""]);

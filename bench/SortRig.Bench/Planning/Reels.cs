@@ -14,6 +14,30 @@ internal static class Reels
     /// <summary>Normal with σ = tolerance / 2, with |x| &lt; 0.4 tolerance missing (centre binned out), truncated.</summary>
     public static List<double> Bimodal(int seed, int n) => Draw(seed, n, StockPpm / 2, gap: 0.4 * StockPpm);
 
+    /// <summary>Uniform over the tolerance.</summary>
+    public static List<double> Uniform(int seed, int n)
+    {
+        var rng = new Random(seed);
+        return [.. Enumerable.Range(0, n).Select(_ => StockPpm * ((2 * rng.NextDouble()) - 1))];
+    }
+
+    /// <summary>Normal with σ = tolerance / 4 centred at −0.4 tolerance (a reel from one side of a lot), truncated.</summary>
+    public static List<double> Offset(int seed, int n)
+    {
+        var rng = new Random(seed);
+        var result = new List<double>(n);
+        while (result.Count < n)
+        {
+            var x = (-0.4 * StockPpm) + (StockPpm / 4 * Gauss(rng));
+            if (Math.Abs(x) <= StockPpm)
+            {
+                result.Add(x);
+            }
+        }
+
+        return result;
+    }
+
     public static PartCandidate Part(long id, double nominal, double ppm, double uPpm) =>
         new(id, nominal, new MeasuredValue(nominal * (1 + (ppm * 1e-6)), nominal * uPpm * 1e-6, nominal * uPpm * 0.5e-6), $"P{id}");
 

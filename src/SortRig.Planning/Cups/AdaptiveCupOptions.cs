@@ -10,7 +10,9 @@ public sealed record AdaptiveCupOptions
     /// <param name="matchTolerancePpm">Largest band width, ppm of nominal, 1 to 100 000.</param>
     /// <param name="stockTolerancePercent">Marked tolerance of the reels, percent, 0.001 to 50.</param>
     /// <param name="partsPerSet">Parts of each nominal (ohms) one set needs, 1 to 100 each; at least one nominal.</param>
-    /// <param name="learnCount">Parts of a nominal seen before the remaining bands are placed, 4 to 10 000, default 40.</param>
+    /// <param name="learnCount">Parts of a nominal while the empty cups' bands are placed again at every part (after
+    /// that, each time the sample grows by a tenth); also the weight of the mirrored parts early on. 4 to 10 000,
+    /// default 40.</param>
     /// <param name="uncertaintyLimitPpm">Largest expanded transfer uncertainty accepted, ppm; default half the match tolerance.</param>
     public AdaptiveCupOptions(int cupCount, double matchTolerancePpm, double stockTolerancePercent, IReadOnlyDictionary<double, int> partsPerSet, int learnCount = 40, double? uncertaintyLimitPpm = null)
     {
@@ -44,7 +46,7 @@ public sealed record AdaptiveCupOptions
     /// <summary>Parts of each nominal per set.</summary>
     public IReadOnlyDictionary<double, int> PartsPerSet { get; }
 
-    /// <summary>Parts learned per nominal before the free bands are placed (default 40).</summary>
+    /// <summary>Parts per nominal while the empty cups' bands are placed again at every part (default 40).</summary>
     public int LearnCount { get; }
 
     /// <summary>Largest expanded transfer uncertainty accepted, ppm.</summary>

@@ -5,14 +5,16 @@ using Microsoft.Extensions.Logging.Abstractions;
 namespace SortRig.Planning.Cups;
 
 /// <summary>
-/// Online cup planner that learns each nominal's spread. While the first <see cref="AdaptiveCupOptions.LearnCount"/>
-/// parts of a nominal arrive, parts go to the centred bands of <see cref="BandCupAssigner"/>; then every cup still
-/// empty gets a new band where the learned distribution is densest (<see cref="BandPlacer"/>), never overlapping a
-/// band that already holds parts; at twice, four times ... the learn
-/// count, the bands of cups still empty are placed again with the larger sample. No band edge ever moves under parts
-/// already sorted. Each nominal has its own K cups (one reel at a time); everything else goes to "R".
+/// Online cup planner that learns each nominal's spread. Every band is as wide as the match tolerance allows in the
+/// worst case: a part goes into a cup only when its whole uncertainty interval lies in the band, and the band's edges
+/// are 1 + tolerance apart as a ratio, so any parts of one cup form a matched set. When a part fits no band that holds
+/// parts, the bands of the empty cups are placed again where most of the coming parts are expected (a kernel density
+/// of the parts seen, <see cref="CoverageEstimate"/>, and the exact best disjoint windows, <see cref="WindowCover"/>),
+/// at every part while learning, then whenever the sample has grown by a tenth; the part opens the planned band it
+/// fits, if any. No band moves once it holds a part. Each nominal has its own K cups; everything else goes to "R".
 /// </summary>
-public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null) : ICupAssigner
+public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null)
+    : ICupAssigner
 {
     private readonly CupLedger _ledger = new();
     private readonly Dictionary<double, NominalBands> _nominals = [];
@@ -26,12 +28,15 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
                 return new CupCount(n.Nominal, b.Label, b.Index, false, c, b.Lo, b.Hi, c / n.PartsPerSet);
             }))
             .Concat(_ledger.NonEmpty.Where(e => e.Key.Label == CupLabels.Reject)
-                .Select(e => new CupCount(e.Key.Nominal, CupLabels.Reject, options.CupCount, true, e.Count, double.NaN, double.NaN, 0)))
+                .Select(e => new CupCount(
+                    e.Key.Nominal, CupLabels.Reject, options.CupCount, true, e.Count, double.NaN, double.NaN, 0)))
             .ToList();
 
     /// <summary>The bands of a nominal so far (label, low and high edge in ppm); empty before its first part.</summary>
     public IReadOnlyList<(string Label, double LowPpm, double HighPpm)> Bands(double nominal) =>
-        _nominals.TryGetValue(nominal, out var n) ? n.Bands.OrderBy(b => b.Lo).Select(b => (b.Label, b.Lo, b.Hi)).ToList() : [];
+        _nominals.TryGetValue(nominal, out var n)
+            ? n.Bands.OrderBy(b => b.Lo).Select(b => (b.Label, b.Lo, b.Hi)).ToList()
+            : [];
 
     /// <inheritdoc />
     public CupDecision Assign(CupRequest request) => Place(request, forcedLabel: null);
@@ -63,7 +68,8 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         var key = options.PartsPerSet.Keys.FirstOrDefault(k => Math.Abs(k - r.Nominal) <= k * 1e-4);
         if (key == 0)
         {
-            return Record(r, 0, null, $"nominal {r.Nominal.ToString(CultureInfo.InvariantCulture)} ohm is not in the plan", forcedLabel);
+            var nominal = r.Nominal.ToString(CultureInfo.InvariantCulture);
+            return Record(r, 0, null, $"nominal {nominal} ohm is not in the plan", forcedLabel);
         }
 
         if (!_nominals.TryGetValue(key, out var state))
@@ -75,37 +81,78 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         var u = r.Value.ExpandedTransfer / key * 1e6;
         if (Math.Abs(dev) > options.StockTolerancePercent * 1e4)
         {
-            return Record(r, key, null, FormattableString.Invariant($"{dev:+0;-0} ppm is outside the stock tolerance"), forcedLabel);
+            var outside = FormattableString.Invariant($"{dev:+0;-0} ppm is outside the stock tolerance");
+            return Record(r, key, null, outside, forcedLabel);
         }
 
         if (u > options.UncertaintyLimitPpm)
         {
-            return Record(r, key, null, FormattableString.Invariant($"uncertainty {u:0} ppm is over the limit"), forcedLabel);
+            return Record(r, key, null, FormattableString.Invariant($"uncertainty {u:0} ppm is over the limit"),
+                forcedLabel);
         }
 
-        var band = state.Find(dev) ?? (state.Learned ? null : state.TryOpenGridBand(dev));
-        state.Samples.Add((r.PartNumber, dev));
-        if (state.DueToLearn)
+        state.Samples.Add((r.PartNumber, dev, u));
+        var band = Choose(state, dev, u);
+        if (forcedLabel is not null && forcedLabel != (band?.Label ?? CupLabels.Reject))
         {
-            // The part just decided is not in the ledger yet: keep its band.
-            state.Learn(label => label != band?.Label && _ledger.Count(key, label) == 0);
-            Log.BandsLearned(_logger, key, state.Samples.Count, string.Join(" ", state.Bands.OrderBy(b => b.Lo).Select(b => FormattableString.Invariant($"{b.Label}[{b.Lo:0},{b.Hi:0})"))));
+            band = Forced(state, forcedLabel, dev, u);
         }
 
         var reason = band is null
-            ? FormattableString.Invariant($"{dev:+0;-0} ppm is in no band{(state.Learned ? "" : " open while learning")}")
+            ? FormattableString.Invariant($"{dev:+0;-0} ± {u:0} ppm fits no band")
             : FormattableString.Invariant($"band {band.Lo:+0;-0}..{band.Hi:+0;-0} ppm");
         return Record(r, key, band, reason, forcedLabel);
     }
 
+    // Among the bands the part fits, one already holding parts (the one nearest to completing a set), else a planned
+    // band of an empty cup, placed again first when the sample has grown.
+    private NominalBands.Band? Choose(NominalBands state, double dev, double u)
+    {
+        bool Empty(string label) => _ledger.Count(state.Nominal, label) == 0;
+        var holding = state.Bands.Where(b => !Empty(b.Label) && b.Fits(dev, u))
+            .MaxBy(b => (_ledger.Count(state.Nominal, b.Label) % state.PartsPerSet,
+                _ledger.Count(state.Nominal, b.Label)));
+        if (holding is not null || state.Bands.Count(b => !Empty(b.Label)) >= options.CupCount)
+        {
+            return holding;
+        }
+
+        if (state.Stale)
+        {
+            state.Replan(Empty);
+            Log.BandsPlanned(_logger, state.Nominal, state.Samples.Count, string.Join(" ", state.Bands
+                .OrderBy(b => b.Lo)
+                .Select(b => FormattableString.Invariant($"{b.Label}[{b.Lo:0},{b.Hi:0}]"))));
+        }
+
+        return state.Bands.FirstOrDefault(b => Empty(b.Label) && b.Fits(dev, u));
+    }
+
+    // A restart replays the history: the recorded cup wins; a cup the replay has no band for gets one around the part.
+    private NominalBands.Band? Forced(NominalBands state, string label, double dev, double u)
+    {
+        if (label == CupLabels.Reject)
+        {
+            return null;
+        }
+
+        var band = state.Bands.FirstOrDefault(b => b.Label == label);
+        return band is not null && (_ledger.Count(state.Nominal, label) > 0 || band.Fits(dev, u))
+            ? band
+            : state.OpenFor(label, dev, u);
+    }
+
     private CupDecision Record(CupRequest r, double key, NominalBands.Band? band, string reason, string? forcedLabel)
     {
-        if (forcedLabel is not null && forcedLabel != (band?.Label ?? CupLabels.Reject))
+        if (forcedLabel is not null)
         {
-            band = forcedLabel == CupLabels.Reject ? null
-                : _nominals.GetValueOrDefault(key)?.Bands.FirstOrDefault(b => b.Label == forcedLabel)
-                  ?? throw new ArgumentException($"cup label '{forcedLabel}' of part {r.PartNumber} is not a band of nominal {key}", nameof(forcedLabel));
             reason = "restored from history";
+            if (forcedLabel != (band?.Label ?? CupLabels.Reject))
+            {
+                throw new ArgumentException(
+                    $"cup label '{forcedLabel}' of part {r.PartNumber} is not a cup of nominal {key}",
+                    nameof(forcedLabel));
+            }
         }
 
         var label = band?.Label ?? CupLabels.Reject;

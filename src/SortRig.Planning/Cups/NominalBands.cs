@@ -1,69 +1,151 @@
+using MathNet.Numerics.Distributions;
+
 namespace SortRig.Planning.Cups;
 
-/// <summary>The bands of one nominal in the adaptive planner, and what it has learned so far.</summary>
-internal sealed class NominalBands(double nominal, AdaptiveCupOptions options)
+/// <summary>
+/// The bands of one nominal in the adaptive planner and the parts seen so far. Bands sit on a lattice of the log
+/// scale (<see cref="LogPpm"/>) with a step of 1/<see cref="StepsPerBand"/> band; each is exactly as wide as the
+/// match tolerance allows (ratio of its edges 1 + tolerance, less a hair for rounding). A band that holds parts never
+/// moves; the bands of empty cups are placed again (<see cref="Replan"/>) from the grown sample.
+/// </summary>
+internal sealed class NominalBands
 {
-    public double Nominal { get; } = nominal;
+    private const int StepsPerBand = 20;
+    private readonly AdaptiveCupOptions _options;
+    private readonly double _width;
+    private readonly double _step;
+    private readonly int _firstIndex;
+    private readonly int _points;
+    private readonly double _range;
+    private int _plannedAt;
 
-    public int PartsPerSet { get; } = options.PartsPerSet[nominal];
+    public NominalBands(double nominal, AdaptiveCupOptions options)
+    {
+        _options = options;
+        Nominal = nominal;
+        PartsPerSet = options.PartsPerSet[nominal];
+        // A thousandth of a ppm below the limit, so that rounding in the edges never lets a cup exceed it.
+        _width = LogPpm.From(options.MatchTolerancePpm) - 1e-3;
+        _step = _width / StepsPerBand;
+        var range = _range = options.StockTolerancePercent * 1e4;
+        _firstIndex = (int)Math.Floor((LogPpm.From(-range) - _width) / _step);
+        _points = (int)Math.Ceiling(LogPpm.From(range) / _step) - _firstIndex + 1;
+    }
 
-    public List<(long Part, double Dev)> Samples { get; } = [];
+    public double Nominal { get; }
 
+    public int PartsPerSet { get; }
+
+    /// <summary>Parts accepted so far: deviation and expanded uncertainty, ppm.</summary>
+    public List<(long Part, double Dev, double U)> Samples { get; } = [];
+
+    /// <summary>Every band: those holding parts and the planned bands of empty cups.</summary>
     public List<Band> Bands { get; } = [];
 
-    public bool Learned { get; private set; }
-
-    private double Width => options.MatchTolerancePpm;
-
-    private double Anchor => -options.CupCount * Width / 2;
-
-    public Band? Find(double dev) => Bands.FirstOrDefault(b => dev >= b.Lo && dev < b.Hi);
-
     /// <summary>
-    /// Before the first learning: opens the centred-grid band holding <paramref name="dev"/> (the layout of
-    /// <see cref="BandCupAssigner"/>, band i labelled as cup i); null outside the K centred bands.
+    /// True when the sample has grown enough since the last plan to place the empty cups' bands again: at every
+    /// part up to the learn count, then each time it has grown by a tenth.
     /// </summary>
-    public Band? TryOpenGridBand(double dev)
+    public bool Stale => Samples.Count <= _options.LearnCount
+        ? Samples.Count != _plannedAt
+        : Samples.Count >= _plannedAt * 1.1;
+
+    /// <summary>Places the empty cups' bands where most coming parts are expected; bands with parts stay.</summary>
+    public void Replan(Func<string, bool> isEmpty)
     {
-        var i = (int)Math.Floor((dev - Anchor) / Width);
-        if (i < 0 || i >= options.CupCount || Bands.Any(b => b.Index == i))
-        {
-            return null;
-        }
-
-        var band = new Band(i, CupLabels.For(i), Anchor + (i * Width), Anchor + ((i + 1) * Width));
-        Bands.Add(band);
-        return band;
-    }
-
-    /// <summary>True when the sample count has reached the learn count times a power of two.</summary>
-    public bool DueToLearn => Samples.Count >= options.LearnCount && (Samples.Count % options.LearnCount) == 0
-        && int.IsPow2(Samples.Count / options.LearnCount);
-
-    /// <summary>
-    /// Places the bands of every empty cup from the distribution learned so far (first at the learn count, then again
-    /// at twice, four times ... as many parts); bands holding parts never move.
-    /// </summary>
-    public void Learn(Func<string, bool> isEmpty)
-    {
-        Learned = true;
+        _plannedAt = Samples.Count;
         Bands.RemoveAll(b => isEmpty(b.Label));
-        var free = options.CupCount - Bands.Count;
-        var placed = BandPlacer.Place(Samples.Select(s => s.Dev).ToList(), Bands.Select(b => (b.Lo, b.Hi)).ToList(), free, Width, options.StockTolerancePercent * 1e4, Anchor);
-        foreach (var (lo, hi) in placed)
+        var free = _options.CupCount - Bands.Count;
+        if (free == 0)
         {
-            Open(lo, hi);
+            return;
+        }
+
+        var centres = Samples.Select(s =>
+        {
+            var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
+            return ((lo + hi) / 2, (hi - lo) / 2);
+        }).ToList();
+        var first = _firstIndex * _step;
+        var gains = Estimate(centres, first);
+        var pinned = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).ToList();
+        // Beside bands with parts, a planned band either touches one of them or leaves room for a whole band on both
+        // sides: a narrower gap could never be used, and plans drawn from few parts would scatter such gaps.
+        var allowed = Enumerable.Range(0, _points).Select(j =>
+        {
+            var s = first + (j * _step);
+            if (!pinned.All(p => p.Item1 >= s + _width - 1e-6 || p.Item2 <= s + 1e-6))
+            {
+                return false;
+            }
+
+            var left = pinned.Select(p => s - p.Item2).Where(g => g >= -1e-6)
+                .DefaultIfEmpty(double.PositiveInfinity).Min();
+            var right = pinned.Select(p => p.Item1 - s - _width).Where(g => g >= -1e-6)
+                .DefaultIfEmpty(double.PositiveInfinity).Min();
+            return left <= 1e-6 || right <= 1e-6 || (left >= _width - 1e-6 && right >= _width - 1e-6);
+        }).ToList();
+        foreach (var j in WindowCover.Best(gains, StepsPerBand, allowed, free).Starts)
+        {
+            var s = first + (j * _step);
+            Open(LogPpm.ToPpm(s), LogPpm.ToPpm(s + _width));
         }
     }
 
-    private Band Open(double lo, double hi)
+    /// <summary>
+    /// A band for a cup the history names but the plan does not have (a restart after parts were taken back): the
+    /// lattice band holding the part's interval nearest to centred on it.
+    /// </summary>
+    public Band OpenFor(string label, double dev, double u)
     {
-        var index = Enumerable.Range(0, options.CupCount).First(i => Bands.All(b => b.Index != i));
-        var band = new Band(index, CupLabels.For(index), lo, hi);
+        var index = CupLabels.IndexOf(label);
+        if (index < 0 || index >= _options.CupCount)
+        {
+            throw new ArgumentException(
+                $"cup label '{label}' is not one of the {_options.CupCount} cups", nameof(label));
+        }
+
+        Bands.RemoveAll(b => b.Label == label);
+        var centre = (LogPpm.From(dev - u) + LogPpm.From(dev + u)) / 2;
+        var s = Math.Round((centre - (_width / 2)) / _step) * _step;
+        var band = new Band(index, label, LogPpm.ToPpm(s), LogPpm.ToPpm(s + _width));
         Bands.Add(band);
         return band;
     }
 
-    /// <summary>One cup's band, ppm from nominal, [Lo, Hi).</summary>
-    internal sealed record Band(int Index, string Label, double Lo, double Hi);
+    // The kernel density of the parts seen, plus while the sample is small (weights fading as learn count / (learn
+    // count + n)) the same parts mirrored about the nominal, since a lot is made about its nominal and tighter parts
+    // are binned out of it symmetrically (common practice, no source), and for the very first parts a prior of 5 parts
+    // about the nominal with σ = a third of the tolerance (no source).
+    private double[] Estimate(List<(double Centre, double Half)> centres, double first)
+    {
+        var n = centres.Count;
+        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3);
+        List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
+        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3);
+        var half = n > 0 ? centres.Min(c => c.Half) : 0;
+        var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
+        const double Prior = 5;
+        for (var j = 0; j < _points; j++)
+        {
+            var s = first + (j * _step);
+            var prior = _width > 2 * half
+                ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half) : 0;
+            gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
+        }
+
+        return gains;
+    }
+
+    private void Open(double lo, double hi)
+    {
+        var index = Enumerable.Range(0, _options.CupCount).First(i => Bands.All(b => b.Index != i));
+        Bands.Add(new Band(index, CupLabels.For(index), lo, hi));
+    }
+
+    /// <summary>One cup's band, ppm from nominal: a part goes in only if [dev − U, dev + U] lies in [Lo, Hi].</summary>
+    internal sealed record Band(int Index, string Label, double Lo, double Hi)
+    {
+        public bool Fits(double dev, double u) => dev - u >= Lo && dev + u <= Hi;
+    }
 }
