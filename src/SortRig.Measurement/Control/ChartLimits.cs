@@ -9,7 +9,8 @@ namespace SortRig.Measurement.Control;
 /// <param name="Sigma">Estimated sigma of one value (MR-bar / d2, raised to the floor when smaller).</param>
 /// <param name="Upper">Upper control limit, centre + 3 sigma.</param>
 /// <param name="Lower">Lower control limit, centre - 3 sigma.</param>
-/// <param name="MovingRangeUpper">Upper limit of the moving-range chart, D4 · MR-bar (infinite when provisional).</param>
+/// <param name="MovingRangeUpper">Upper limit of the moving-range chart, D4 · MR-bar (infinite when
+/// provisional).</param>
 /// <param name="MovingRangeLower">Lower limit of the moving-range chart, D3 · MR-bar (0 for n = 2).</param>
 /// <param name="HistoryCount">Values the limits were computed from.</param>
 public sealed record ChartLimits(
@@ -30,7 +31,8 @@ public sealed record ChartLimits(
 
         if (!double.IsFinite(sigmaFloor) || sigmaFloor < 0)
         {
-            throw new ArgumentOutOfRangeException(nameof(sigmaFloor), sigmaFloor, "sigmaFloor must be finite and >= 0.");
+            throw new ArgumentOutOfRangeException(
+                nameof(sigmaFloor), sigmaFloor, "sigmaFloor must be finite and >= 0.");
         }
 
         double sum = 0, rangeSum = 0;
@@ -73,6 +75,7 @@ public sealed record ChartLimits(
             throw new ArgumentOutOfRangeException(nameof(sigma), sigma, "sigma must be finite and > 0.");
         }
 
-        return new ChartLimits(centre, 0, sigma, centre + (3 * sigma), centre - (3 * sigma), double.PositiveInfinity, 0, 0);
+        return new ChartLimits(
+            centre, 0, sigma, centre + (3 * sigma), centre - (3 * sigma), double.PositiveInfinity, 0, 0);
     }
 }

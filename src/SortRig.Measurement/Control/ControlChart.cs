@@ -9,7 +9,8 @@ namespace SortRig.Measurement.Control;
 /// </summary>
 public static class ControlChart
 {
-    /// <summary>Verdict on the last of <paramref name="points"/>, the points judged against these limits so far.</summary>
+    /// <summary>Verdict on the last of <paramref name="points"/>, the points judged against these limits so
+    /// far.</summary>
     /// <param name="limits">Limits set from history.</param>
     /// <param name="points">Points since the limits were set, oldest first; at least 1, all finite.</param>
     /// <param name="ewma">EWMA options; default <see cref="EwmaOptions.Default"/>.</param>
@@ -45,8 +46,9 @@ public static class ControlChart
 
         if (n >= 2 && Math.Abs(x - points[n - 2]) > limits.MovingRangeUpper)
         {
+            double moved = Math.Abs(x - points[n - 2]), limit = limits.MovingRangeUpper;
             return Verdict(ControlRule.MovingRangeAboveLimit, Text(
-                $"the check moved {Math.Abs(x - points[n - 2]):G4} since the last check, above the moving-range limit {limits.MovingRangeUpper:G4}"));
+                $"the check moved {moved:G4} since the last check, above the moving-range limit {limit:G4}"));
         }
 
         if (TwoOfThree(points, limits))
@@ -62,8 +64,9 @@ public static class ControlChart
 
         if (Math.Abs(z[n - 1] - limits.Centre) > half)
         {
+            double drift = (z[n - 1] - limits.Centre) / sigma;
             return Verdict(ControlRule.EwmaBeyondLimits, Text(
-                $"the checks' weighted average drifted {(z[n - 1] - limits.Centre) / sigma:+0.00;-0.00} sigma, beyond its limits"));
+                $"the checks' weighted average drifted {drift:+0.00;-0.00} sigma, beyond its limits"));
         }
 
         return Verdict(ControlRule.None, string.Empty);

@@ -33,7 +33,8 @@ public sealed class ChartFactorsTests
 
     [Theory]
     [MemberData(nameof(Published))]
-    public void Factors_AgreeWithRangeDistributionOfNormalSamples(int n, double d2, double d3, double bigD3, double bigD4)
+    public void Factors_AgreeWithRangeDistributionOfNormalSamples(
+        int n, double d2, double d3, double bigD3, double bigD4)
     {
         // Textbook identities (Tippett 1925; Montgomery ch. 6): for the range W of n standard normal values,
         // E[W] = integral of 1 - Phi(x)^n - (1 - Phi(x))^n dx, and
