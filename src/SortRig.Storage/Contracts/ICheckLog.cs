@@ -24,4 +24,7 @@ public interface ICheckLog
     /// <summary>Part ids of the session that are flagged and still live (suspect until measured again), by part
     /// number.</summary>
     Task<IReadOnlyList<long>> GetSuspectPartsAsync(long sessionId, CancellationToken cancellationToken);
+
+    /// <summary>Part ids of the session ever flagged by a check (live or since measured again), by part number.</summary>
+    Task<IReadOnlyList<long>> GetFlaggedPartsAsync(long sessionId, CancellationToken cancellationToken);
 }

@@ -10,7 +10,7 @@ internal abstract partial class AdoPrecisionLog
         "c.id, c.seq, c.after_part_number, c.flagged_count, c.commit_key, c.session_id, c.check_name, c.taken_at, " +
         "c.value_ohms, c.range_ohms, c.u_standard_ohms, c.calibrated_ohms, c.centre_ohms, c.sigma_ohms, " +
         "c.in_control, " +
-        "c.rule, c.reason";
+        "c.rule, c.reason, c.scale_factor";
 
     public Task<CheckRecord> RecordCheckAsync(CheckCommit commit, CancellationToken cancellationToken)
     {
@@ -95,6 +95,16 @@ internal abstract partial class AdoPrecisionLog
                 .With("id", sessionId).ListAsync(r => r.GetInt64(0), ct).ConfigureAwait(false), cancellationToken);
     }
 
+    public Task<IReadOnlyList<long>> GetFlaggedPartsAsync(long sessionId, CancellationToken cancellationToken)
+    {
+        Guard.Id(sessionId, nameof(sessionId));
+        return ReadAsync<IReadOnlyList<long>>("read flagged parts", async (s, ct) =>
+            await s.Sql(
+                    "SELECT p.id FROM parts p JOIN suspect_parts sp ON sp.part_id = p.id " +
+                    "WHERE p.session_id = @id ORDER BY p.part_number")
+                .With("id", sessionId).ListAsync(r => r.GetInt64(0), ct).ConfigureAwait(false), cancellationToken);
+    }
+
     private async Task FlagSinceLastGoodAsync(DbScope s, long sessionId, long checkId, CancellationToken ct)
     {
         long since = await s.Sql(
@@ -114,14 +124,14 @@ internal abstract partial class AdoPrecisionLog
         await s.Sql(
                 "INSERT INTO check_readings (commit_key, session_id, seq, check_name, taken_at, value_ohms, " +
                 "range_ohms, u_standard_ohms, calibrated_ohms, centre_ohms, sigma_ohms, in_control, rule, reason, " +
-                "after_part_number, flagged_count) VALUES (@key, @session, @seq, @name, @at, @value, @range, @u, @cal, @centre, @sigma, " +
-                "@ok, @rule, @reason, @after, 0) RETURNING id")
+                "after_part_number, flagged_count, scale_factor) VALUES (@key, @session, @seq, @name, @at, @value, @range, @u, @cal, @centre, @sigma, " +
+                "@ok, @rule, @reason, @after, 0, @scale) RETURNING id")
             .With("key", GuidValue(c.CommitKey)).With("session", c.SessionId).With("seq", seq).With("name", c.CheckName)
             .With("at", TimeValue(c.At)).With("value", c.ValueOhms).With("range", c.RangeOhms)
             .With("u", c.UStandardOhms)
             .With("cal", c.CalibratedOhms).With("centre", c.CentreOhms).With("sigma", c.SigmaOhms)
             .With("ok", c.InControl)
-            .With("rule", c.Rule).With("reason", c.Reason).With("after", after)
+            .With("rule", c.Rule).With("reason", c.Reason).With("after", after).With("scale", c.ScaleFactor)
             .ScalarLongAsync(ct).ConfigureAwait(false) ?? throw new InvalidOperationException("INSERT returned no id.");
 
     private Task<CheckRecord?> FindCheckAsync(DbScope s, Guid key, CancellationToken ct) =>
@@ -133,7 +143,7 @@ internal abstract partial class AdoPrecisionLog
         new CheckCommit(
             r.GetGuid(4), r.GetInt64(5), r.GetString(6), ReadTime(r, 7), r.GetDouble(8), r.GetDouble(9),
             r.GetDouble(10), ReadDouble(r, 11), ReadDouble(r, 12), ReadDouble(r, 13), r.GetBoolean(14),
-            r.GetString(15), ReadText(r, 16)));
+            r.GetString(15), ReadText(r, 16), r.GetDouble(17)));
 
     private static void CheckArguments(CheckCommit commit)
     {
@@ -148,5 +158,6 @@ internal abstract partial class AdoPrecisionLog
         if (commit.SigmaOhms is { } sigma) { Guard.NonNegative(sigma, nameof(commit.SigmaOhms)); }
         Guard.Text(commit.Rule, nameof(commit.Rule));
         Guard.TextOrNull(commit.Reason, nameof(commit.Reason));
+        Guard.Positive(commit.ScaleFactor, nameof(commit.ScaleFactor));
     }
 }

@@ -13,7 +13,7 @@ public abstract partial class PrecisionLogContractTests
         long sessionId, double value, bool inControl, int index = 0, Guid? key = null) => new(
         key ?? Guid.NewGuid(), sessionId, CheckName, Bench.T0.AddMinutes(index), value, 100_000, value * 2e-6,
         10_000.0, 10_000.0, 0.02, inControl, inControl ? "None" : "BeyondThreeSigma",
-        inControl ? null : "the check read +9.0 sigma from its centre");
+        inControl ? null : "the check read +9.0 sigma from its centre", ScaleFactor: 1 - 50e-6);
 
     [SkippableFact]
     public async Task Check_Recorded_ReadsBackWithSeqAndPartNumberAndGain()
@@ -29,6 +29,7 @@ public abstract partial class PrecisionLogContractTests
         Assert.Equal((1, 0, 0), (first.Seq, first.AfterPartNumber, first.FlaggedCount));
         Assert.Equal((2, 2), (second.Seq, second.AfterPartNumber));
         Assert.Equal(50, second.GainPpm!.Value, 6); // 10 000.5 / 10 000 - 1 = 50e-6
+        Assert.Equal(10_000.5 * (1 - 50e-6), second.Commit.ScaledOhms, 9);
         await log.DisposeAsync();
         var reopened = await CreateLogAsync();
         var checks = await reopened.GetSessionChecksAsync(id, CancellationToken.None);
@@ -60,6 +61,7 @@ public abstract partial class PrecisionLogContractTests
         // Measured again: the flagged record becomes Remeasured and is no longer suspect.
         await log.UndoPartAsync(new PartCorrection(p2.Id, PartCorrectionKind.Remeasure), CancellationToken.None);
         Assert.Equal([p3.Id], await log.GetSuspectPartsAsync(id, CancellationToken.None));
+        Assert.Equal([p2.Id, p3.Id], await log.GetFlaggedPartsAsync(id, CancellationToken.None));
 
         // A second check out of control flags nothing twice.
         var again = await log.RecordCheckAsync(Check(id, 10_001.0, false, 7), CancellationToken.None);

@@ -14,6 +14,7 @@ CREATE TABLE check_readings (
     calibrated_ohms   DOUBLE PRECISION,
     centre_ohms       DOUBLE PRECISION,
     sigma_ohms        DOUBLE PRECISION,
+    scale_factor      DOUBLE PRECISION NOT NULL CHECK (scale_factor > 0),
     in_control        BOOLEAN          NOT NULL,
     rule              TEXT             NOT NULL,
     reason            TEXT,

@@ -14,6 +14,7 @@ CREATE TABLE check_readings (
     calibrated_ohms   REAL,
     centre_ohms       REAL,
     sigma_ohms        REAL,
+    scale_factor      REAL    NOT NULL CHECK (scale_factor > 0),
     in_control        INTEGER NOT NULL CHECK (in_control IN (0, 1)),
     rule              TEXT    NOT NULL,
     reason            TEXT,
