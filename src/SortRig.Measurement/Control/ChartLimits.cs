@@ -9,8 +9,8 @@ namespace SortRig.Measurement.Control;
 /// <param name="Sigma">Estimated sigma of one value (MR-bar / d2, raised to the floor when smaller).</param>
 /// <param name="Upper">Upper control limit, centre + 3 sigma.</param>
 /// <param name="Lower">Lower control limit, centre - 3 sigma.</param>
-/// <param name="MovingRangeUpper">Upper limit of the moving-range chart, D4 · MR-bar (infinite when
-/// provisional).</param>
+/// <param name="MovingRangeUpper">Upper limit of the moving-range chart, D4 · MR-bar (D4 · d2 · sigma when sigma
+/// was raised to its floor; infinite when provisional).</param>
 /// <param name="MovingRangeLower">Lower limit of the moving-range chart, D3 · MR-bar (0 for n = 2).</param>
 /// <param name="HistoryCount">Values the limits were computed from.</param>
 public sealed record ChartLimits(
@@ -54,9 +54,13 @@ public sealed record ChartLimits(
         double centre = sum / history.Count;
         double mrBar = rangeSum / (history.Count - 1);
         double sigma = Math.Max(mrBar / ChartFactors.D2(2), sigmaFloor);
+
+        // A raised sigma raises the moving-range limit with it (MR-bar = d2 sigma), or a step of one floored sigma
+        // would fail the moving-range test while inside the individuals limits.
+        double mrForLimits = Math.Max(mrBar, ChartFactors.D2(2) * sigma);
         return new ChartLimits(
             centre, mrBar, sigma, centre + (3 * sigma), centre - (3 * sigma),
-            ChartFactors.BigD4(2) * mrBar, ChartFactors.BigD3(2) * mrBar, history.Count);
+            ChartFactors.BigD4(2) * mrForLimits, ChartFactors.BigD3(2) * mrForLimits, history.Count);
     }
 
     /// <summary>Provisional limits before there is history: a stated centre and sigma (e.g. the

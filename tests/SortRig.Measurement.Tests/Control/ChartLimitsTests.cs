@@ -29,7 +29,7 @@ public sealed class ChartLimitsTests
     }
 
     [Fact]
-    public void FromHistory_RepeatingValues_UsesSigmaFloor()
+    public void FromHistory_RepeatingValues_UsesSigmaFloorForBothCharts()
     {
         // A simulated meter may repeat exactly: MR-bar = 0 would give zero-width limits.
         ChartLimits limits = ChartLimits.FromHistory([5.0, 5.0, 5.0], sigmaFloor: 0.01);
@@ -37,6 +37,10 @@ public sealed class ChartLimitsTests
         Assert.Equal(0.01, limits.Sigma, 12);
         Assert.Equal(5.03, limits.Upper, 12);
         Assert.Equal(4.97, limits.Lower, 12);
+
+        // The moving-range limit follows the floored sigma: D4 * d2 * sigma = 3.267 * 1.128 * 0.01 = 0.03685176.
+        // (Found by the check crash test: a 2 ppm step failed the MR test against an unfloored MR-bar.)
+        Assert.Equal(0.03685176, limits.MovingRangeUpper, 10);
     }
 
     [Fact]
