@@ -72,7 +72,10 @@ public sealed partial class SortingLoop
             if (_checkBaseline.Count >= Options.CheckBaseline)
             {
                 SetCheckLimits();
-                await SayAsync($"check limits set from {_checkBaseline.Count} readings: centre {_checkLimits!.Centre:F4} Ohm, sigma {_checkLimits.Sigma / _checkLimits.Centre * 1e6:0.0} ppm", ct).ConfigureAwait(false);
+                double centre = _checkLimits!.Centre, sigmaPpm = _checkLimits.Sigma / centre * 1e6;
+                int n = _checkBaseline.Count;
+                await SayAsync($"check limits set: {n} readings, centre {centre:F4} Ohm, sigma {sigmaPpm:0.0} ppm", ct)
+                    .ConfigureAwait(false);
                 FinishCheck(resumeFeeding);
                 return;
             }
@@ -85,7 +88,8 @@ public sealed partial class SortingLoop
             verdict.InControl ? null : verdict.Reason, ct).ConfigureAwait(false);
         if (verdict.InControl)
         {
-            await SayAsync($"check {record.Seq} in control ({verdict.SigmaScore:+0.0;-0.0} sigma)", ct).ConfigureAwait(false);
+            await SayAsync($"check {record.Seq} in control ({verdict.SigmaScore:+0.0;-0.0} sigma)", ct)
+                .ConfigureAwait(false);
         }
         else
         {
@@ -115,7 +119,8 @@ public sealed partial class SortingLoop
             Guid.NewGuid(), _session.Id, check.Name, at, raw.Value, _ctx.Plan.Range, raw.StandardUncertainty,
             check.CalibratedOhms, _checkLimits?.Centre, _checkLimits?.Sigma, verdict?.InControl ?? true, rule, reason,
             _checkScale);
-        var record = await DurablyAsync("the check", c => _ctx.Log.RecordCheckAsync(commit, c), ct).ConfigureAwait(false);
+        var record = await DurablyAsync("the check", c => _ctx.Log.RecordCheckAsync(commit, c), ct)
+            .ConfigureAwait(false);
         CrashPoint.Pass(CrashSite.Checked);
         var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
         _ctx.Snapshot.SetCheck(new CheckView(
@@ -128,11 +133,14 @@ public sealed partial class SortingLoop
     private async Task<(MeasuredValue Value, DateTimeOffset At)> ReadCheckAsync(string when, CancellationToken ct)
     {
         var check = _check!;
-        await SayAsync($"check ({when}): put the check standard {check.Name} ({check.Nominal:G6} Ohm) in the fixture", ct).ConfigureAwait(false);
+        await SayAsync(
+                $"check ({when}): put the check standard {check.Name} ({check.Nominal:G6} Ohm) in the fixture", ct)
+            .ConfigureAwait(false);
         await _ctx.Hands.PlaceCheckPartAsync(check.Nominal, ct).ConfigureAwait(false);
         var (acceptance, _) = await SettleOneAsync("the check standard", ct).ConfigureAwait(false);
         var value = acceptance.Value;
-        await SayAsync($"check read {value.Value * _checkScale:F4} Ohm: take the check standard out", ct).ConfigureAwait(false);
+        await SayAsync($"check read {value.Value * _checkScale:F4} Ohm: take the check standard out", ct)
+            .ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
         return (value, acceptance.Readings[^1].Time);

@@ -16,7 +16,10 @@ public sealed partial class SortingLoop
         var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
         _paused = true;
         _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
-        await SayTextAsync(Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts measured since the last good check are flagged: R to re-reference to the check and measure them again, P to carry on leaving them flagged, F to finish"), ct).ConfigureAwait(false);
+        var said = Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts ")
+            + "measured since the last good check are flagged: R to re-reference to the check and measure them again, "
+            + "P to carry on leaving them flagged, F to finish";
+        await SayTextAsync(said, ct).ConfigureAwait(false);
         while (true)
         {
             var command = await _ctx.Commands.TakeAsync(ct).ConfigureAwait(false);
@@ -27,7 +30,8 @@ public sealed partial class SortingLoop
                     await RemeasureFlaggedAsync(ct).ConfigureAwait(false);
                     break;
                 case OperatorCommand.TogglePause:
-                    await SayAsync($"carrying on; {suspects.Count} parts stay flagged until measured again", ct).ConfigureAwait(false);
+                    await SayAsync($"carrying on; {suspects.Count} parts stay flagged until measured again", ct)
+                        .ConfigureAwait(false);
                     break;
                 case OperatorCommand.Finish:
                     _finishRequested = true;
@@ -67,7 +71,8 @@ public sealed partial class SortingLoop
             }
 
             var where = part.SlotLabel is { } slot ? $"slot {slot}" : $"cup {part.CupLabel}";
-            await SayAsync($"measure again: take part {part.Number} out of {where} and put it in the fixture", ct).ConfigureAwait(false);
+            await SayAsync($"measure again: take part {part.Number} out of {where} and put it in the fixture", ct)
+                .ConfigureAwait(false);
             await _ctx.Hands.PlacePartAgainAsync(ReelPosition(part.Number), ct).ConfigureAwait(false);
             var (acceptance, readings) = await SettleOneAsync($"part {part.Number}", ct).ConfigureAwait(false);
             var measured = OnReferenceScale(acceptance.Value);
@@ -76,13 +81,18 @@ public sealed partial class SortingLoop
             var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
             var commit = new PartCommit(
                 Guid.NewGuid(), _session.Id, _batch.Id, measured, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
-                readings[^1].Time, decision.IsSlot ? null : decision.CupLabel, decision.IsSlot ? decision.CupLabel : null,
+                readings[^1].Time,
+                decision.IsSlot ? null : decision.CupLabel,
+                decision.IsSlot ? decision.CupLabel : null,
                 readings, PartState.Accepted, acceptance.AcceptedBy);
-            var stored = await DurablyAsync($"part {part.Number} measured again", c => _ctx.Log.CommitPartAsync(commit, c), ct)
+            var stored = await DurablyAsync(
+                    $"part {part.Number} measured again", c => _ctx.Log.CommitPartAsync(commit, c), ct)
                 .ConfigureAwait(false);
             _extraPositions[stored.Number] = ReelPosition(part.Number);
-            var old = await DurablyAsync($"part {part.Number} marked measured again", c => _ctx.Log.UndoPartAsync(
-                new PartCorrection(id, PartCorrectionKind.Remeasure, Note: Invariant($"{RemeasuredAs}{stored.Number}")), c), ct)
+            var correction = new PartCorrection(
+                id, PartCorrectionKind.Remeasure, Note: Invariant($"{RemeasuredAs}{stored.Number}"));
+            var old = await DurablyAsync(
+                    $"part {part.Number} marked measured again", c => _ctx.Log.UndoPartAsync(correction, c), ct)
                 .ConfigureAwait(false);
             _ctx.Snapshot.Upsert(ToView(old));
             var kind = decision.IsReject ? AnnouncementKind.Reject : AnnouncementKind.Cup;

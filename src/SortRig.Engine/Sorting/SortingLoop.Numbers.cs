@@ -40,7 +40,9 @@ public sealed partial class SortingLoop
 
             var note = (await _ctx.Log.GetPartHistoryAsync(id, ct).ConfigureAwait(false))
                 .LastOrDefault(e => e.Note?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)?.Note;
-            if (note is not null && int.TryParse(note[RemeasuredAs.Length..], NumberStyles.None, CultureInfo.InvariantCulture, out var number))
+            if (note is not null
+                && int.TryParse(
+                    note[RemeasuredAs.Length..], NumberStyles.None, CultureInfo.InvariantCulture, out var number))
             {
                 _extraPositions[number] = ReelPosition(old.Number);
             }
@@ -83,7 +85,8 @@ public sealed partial class SortingLoop
             }
             else if (verdict.State is SettleState.Unstable or SettleState.Removed)
             {
-                await SayAsync($"{what} did not settle ({verdict.State}): reseat it; measuring again", ct).ConfigureAwait(false);
+                await SayAsync($"{what} did not settle ({verdict.State}): reseat it; measuring again", ct)
+                    .ConfigureAwait(false);
                 tracker.Reset();
                 readings.Clear();
             }

@@ -15,7 +15,8 @@ namespace SortRig.Host.ReportVerb;
 internal static class CheckReport
 {
     public static async Task<IReadOnlyList<string>> WriteAsync(
-        IPrecisionLog log, string sessionNameOrId, string folder, PlotSize size, List<string> notes, CancellationToken ct)
+        IPrecisionLog log, string sessionNameOrId, string folder, PlotSize size, List<string> notes,
+        CancellationToken ct)
     {
         var session = await ReportInputBuilder.FindSessionAsync(log, sessionNameOrId, ct).ConfigureAwait(false);
         var checks = await log.GetSessionChecksAsync(session.Id, ct).ConfigureAwait(false);
@@ -45,12 +46,14 @@ internal static class CheckReport
         return files;
     }
 
-    private static async Task<string?> HealthAsync(IPrecisionLog log, SessionInfo session, CheckCommit last, CancellationToken ct)
+    private static async Task<string?> HealthAsync(
+        IPrecisionLog log, SessionInfo session, CheckCommit last, CancellationToken ct)
     {
         var history = await log.GetCheckHistoryAsync(last.CheckName, 100_000, ct).ConfigureAwait(false);
         var sessions = (await log.ListSessionsAsync(ct).ConfigureAwait(false)).ToDictionary(s => s.Id);
         var gains = history
-            .Where(c => c.GainPpm is not null && c.Commit.ScaleFactor == 1) // before any re-reference: the meter as it is
+            // Before any re-reference: the meter as it is.
+            .Where(c => c.GainPpm is not null && c.Commit.ScaleFactor == 1)
             .GroupBy(c => c.Commit.SessionId)
             .Select(g => new SessionGain(
                 sessions.TryGetValue(g.Key, out var s) ? s.Name : g.Key.ToString(CultureInfo.InvariantCulture),
@@ -73,14 +76,17 @@ internal static class CheckReport
         md.AppendLine(CultureInfo.InvariantCulture, $"# Meter health: check {last.CheckName}");
         md.AppendLine();
         md.AppendLine(CultureInfo.InvariantCulture,
-            $"Apparent gain = mean of (reading / calibrated - 1) per session; allowed movement {allowed:0.0} ppm (profile '{family}', one-year specification on the {last.RangeOhms:G6} Ohm range).");
+            $"Apparent gain = mean of (reading / calibrated - 1) per session; allowed movement {allowed:0.0} ppm ");
+        md.AppendLine(CultureInfo.InvariantCulture,
+            $"(profile '{family}', one-year specification on the {last.RangeOhms:G6} Ohm range).");
         md.AppendLine();
         md.AppendLine("| Session | First check (UTC) | Checks | Gain (ppm) | Moved (ppm) | Health |");
         md.AppendLine("| --- | --- | --- | --- | --- | --- |");
         foreach (var r in rows)
         {
             md.AppendLine(CultureInfo.InvariantCulture,
-                $"| {r.Gain.Session} | {r.Gain.At:yyyy-MM-dd HH:mm} | {r.Gain.Checks} | {r.Gain.GainPpm:+0.0;-0.0} | {r.MovedPpm:+0.0;-0.0} | {r.Warning ?? "ok"} |");
+                $"| {r.Gain.Session} | {r.Gain.At:yyyy-MM-dd HH:mm} | {r.Gain.Checks} | {r.Gain.GainPpm:+0.0;-0.0} | ");
+            md.AppendLine(CultureInfo.InvariantCulture, $"{r.MovedPpm:+0.0;-0.0} | {r.Warning ?? "ok"} |");
         }
 
         return md.ToString();

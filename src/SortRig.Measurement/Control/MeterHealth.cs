@@ -3,7 +3,8 @@ namespace SortRig.Measurement.Control;
 /// <summary>One session's apparent meter gain against the check's calibrated value.</summary>
 /// <param name="Session">Session name or id, for the table.</param>
 /// <param name="At">When the session's checks were read (the first of them).</param>
-/// <param name="GainPpm">Mean of (reading / calibrated - 1) · 1e6 over the session's checks, before any re-reference.</param>
+/// <param name="GainPpm">Mean of (reading / calibrated - 1) · 1e6 over the session's checks, before any
+/// re-reference.</param>
 /// <param name="Checks">Check readings the mean is taken over.</param>
 public sealed record SessionGain(string Session, DateTimeOffset At, double GainPpm, int Checks);
 
@@ -43,15 +44,18 @@ public static class MeterHealth
         return ordered.Select(g =>
         {
             double moved = g.GainPpm - first;
+            string since = ordered[0].Session;
             string? warning = Math.Abs(moved) > allowedPpm
                 ? FormattableString.Invariant(
-                    $"the meter moved {moved:+0.0;-0.0} ppm since {ordered[0].Session}, more than the {allowedPpm:0.0} ppm its one-year specification allows: have it calibrated")
+                    $"the meter moved {moved:+0.0;-0.0} ppm since {since}, more than the {allowedPpm:0.0} ppm ")
+                  + "its one-year specification allows: have it calibrated"
                 : null;
             return new MeterHealthRow(g, moved, allowedPpm, warning);
         }).ToList();
     }
 
-    /// <summary>The movement a one-year specification allows at a value, ppm: reading term + range term · range / value.</summary>
+    /// <summary>The movement a one-year specification allows at a value, ppm: reading term + range term · range /
+    /// value.</summary>
     /// <param name="readingPct">One-year accuracy, % of reading.</param>
     /// <param name="rangePct">One-year accuracy, % of range.</param>
     /// <param name="rangeOhms">Range full scale, ohms.</param>

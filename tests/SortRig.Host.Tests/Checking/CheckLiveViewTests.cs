@@ -13,10 +13,10 @@ public sealed class CheckLiveViewTests
     {
         var m = LiveViewModel.Empty(10)
             .Apply(Notice(1, "check (start): put the check standard fixture:10000 (10000 Ohm) in the fixture"))
-            .Apply(Notice(2, "check limits set from 5 readings: centre 9998.1100 Ohm, sigma 2.0 ppm"));
+            .Apply(Notice(2, "check limits set: 5 readings, centre 9998.1100 Ohm, sigma 2.0 ppm"));
         Assert.StartsWith("check limits set", m.LastCheck, StringComparison.Ordinal);
 
-        m = m.Apply(Notice(3, "check 7 out of control: the check read +25.0 sigma from its centre, beyond the 3-sigma limits."))
+        m = m.Apply(Notice(3, "check 7 out of control: the check read +25.0 sigma from its centre, beyond the limits."))
             .Apply(Notice(4, "check (re-reference): put the check standard fixture:10000 (10000 Ohm) in the fixture"))
             .Apply(Notice(5, "check read 9998.6038 Ohm: take the check standard out"))
             .Apply(Notice(6, "measure again: take part 101 out of cup F and put it in the fixture"))
