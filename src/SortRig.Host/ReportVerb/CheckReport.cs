@@ -84,7 +84,7 @@ internal static class CheckReport
         md.AppendLine("| --- | --- | --- | --- | --- | --- |");
         foreach (var r in rows)
         {
-            md.AppendLine(CultureInfo.InvariantCulture,
+            md.Append(CultureInfo.InvariantCulture,
                 $"| {r.Gain.Session} | {r.Gain.At:yyyy-MM-dd HH:mm} | {r.Gain.Checks} | {r.Gain.GainPpm:+0.0;-0.0} | ");
             md.AppendLine(CultureInfo.InvariantCulture, $"{r.MovedPpm:+0.0;-0.0} | {r.Warning ?? "ok"} |");
         }
