@@ -21,6 +21,7 @@ public sealed partial class SimulatedBench : IAsyncDisposable
     private readonly ScpiDevice _device;
     private readonly ILoggerFactory _loggers;
     private readonly LooseParts _loose;
+    private readonly Dictionary<double, SimulatedPart> _checkParts = [];
 
     /// <summary>Builds the bench; nothing runs until a Start method is called.</summary>
     /// <param name="options">Bench options; validated here (throws naming the bad option).</param>
@@ -125,6 +126,41 @@ public sealed partial class SimulatedBench : IAsyncDisposable
     {
         OptionGuard.InRange(nominalOhms, 1e-3, 1e9, nameof(nominalOhms), "ohm");
         return _loose.Take(nominalOhms);
+    }
+
+    /// <summary>
+    /// Test hook, like the SCPI side channel SIMulation:GAIN:STEP: after <paramref name="afterConversions"/> more
+    /// conversions every range reads <paramref name="ppm"/> ppm higher (the meter's gain steps); 0 clears it.
+    /// </summary>
+    /// <param name="ppm">Step, ppm of reading; within ±10 000.</param>
+    /// <param name="afterConversions">Conversions before it takes effect; &gt;= 0.</param>
+    public void StepGain(double ppm, long afterConversions = 0)
+    {
+        OptionGuard.InRange(ppm, -10_000, 10_000, nameof(ppm), "ppm");
+        OptionGuard.InRange(afterConversions, 0, long.MaxValue, nameof(afterConversions));
+        _device.Context.Engine.Gains.StepGain(ppm, afterConversions);
+    }
+
+    /// <summary>Test-only truth: the gain step in force now, ppm (see <see cref="StepGain"/>).</summary>
+    public double GainStepPpm => _device.Context.Engine.Gains.StepPpm;
+
+    /// <summary>
+    /// The bench's check standard of the given nominal: one loose part drawn on first request and the same part
+    /// every time after (the operator keeps it beside the fixture). <see cref="Truth"/> knows it by its index.
+    /// </summary>
+    /// <param name="nominalOhms">Marked value, ohms; finite, &gt; 0.</param>
+    public SimulatedPart CheckPart(double nominalOhms)
+    {
+        OptionGuard.InRange(nominalOhms, 1e-3, 1e9, nameof(nominalOhms), "ohm");
+        lock (_checkParts)
+        {
+            if (!_checkParts.TryGetValue(nominalOhms, out var part))
+            {
+                _checkParts[nominalOhms] = part = _loose.Take(nominalOhms);
+            }
+
+            return part;
+        }
     }
 
     /// <summary>In-process SCPI (tests): runs one program message as a client would; returns the reply or null.</summary>

@@ -14,4 +14,7 @@ public enum OperatorCommand
 
     /// <summary>End the session after the current part (key F).</summary>
     Finish,
+
+    /// <summary>After a check out of control: re-reference to the check and measure the flagged parts again (key R).</summary>
+    RemeasureFlagged,
 }

@@ -17,13 +17,15 @@ public sealed class OperatorCommands
     /// <summary>Waits for the next action.</summary>
     public ValueTask<OperatorCommand> TakeAsync(CancellationToken cancellationToken) => _channel.Reader.ReadAsync(cancellationToken);
 
-    /// <summary>Maps a key to an action: U undo, M measure again, P or space pause, F finish.</summary>
+    /// <summary>Maps a key to an action: U undo, M measure again, P or space pause, F finish, R measure the flagged
+    /// parts again.</summary>
     public static OperatorCommand? FromKey(char key) => char.ToUpperInvariant(key) switch
     {
         'U' => OperatorCommand.UndoLast,
         'M' => OperatorCommand.Remeasure,
         'P' or ' ' => OperatorCommand.TogglePause,
         'F' => OperatorCommand.Finish,
+        'R' => OperatorCommand.RemeasureFlagged,
         _ => null,
     };
 }

@@ -43,4 +43,18 @@ public sealed class SimulatorHands(SimulatedBench bench) : IFixtureHands
 
     /// <inheritdoc />
     public void RemoveBridgingPart() => bench.Operator.TakeOut();
+
+    /// <inheritdoc />
+    public async Task PlaceCheckPartAsync(double nominal, CancellationToken ct)
+    {
+        _stoppedForBridge = true;
+        await bench.Operator.HandInAsync(bench.CheckPart(nominal), ct).ConfigureAwait(false);
+    }
+
+    /// <inheritdoc />
+    public async Task PlacePartAgainAsync(int reelPosition, CancellationToken ct)
+    {
+        _stoppedForBridge = true;
+        await bench.Operator.HandInAsync(bench.Reel[reelPosition], ct).ConfigureAwait(false);
+    }
 }

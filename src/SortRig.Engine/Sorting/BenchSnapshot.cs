@@ -9,12 +9,19 @@ public sealed class BenchSnapshot
     private readonly Lock _gate = new();
     private readonly List<PartView> _parts = [];
     private SessionView? _session;
+    private SortRig.Engine.Checking.CheckView? _check;
     private IReadOnlyDictionary<string, int> _counts = new Dictionary<string, int>();
 
     /// <summary>The session, or null before one is open.</summary>
     public SessionView? Session
     {
         get { lock (_gate) { return _session; } }
+    }
+
+    /// <summary>The last check of the check standard, or null when the session has no check (or none yet).</summary>
+    public SortRig.Engine.Checking.CheckView? LastCheck
+    {
+        get { lock (_gate) { return _check; } }
     }
 
     /// <summary>Cup label to count of parts currently in it.</summary>
@@ -30,6 +37,11 @@ public sealed class BenchSnapshot
         {
             return [.. _parts];
         }
+    }
+
+    internal void SetCheck(SortRig.Engine.Checking.CheckView check)
+    {
+        lock (_gate) { _check = check; }
     }
 
     internal void SetSession(SessionView session)

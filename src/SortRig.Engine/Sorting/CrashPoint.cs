@@ -9,7 +9,8 @@ namespace SortRig.Engine.Sorting;
 /// <c>read</c> (a part settled and checked, not yet committed), <c>commit</c> (committed, not yet
 /// announced), <c>announce</c> (announced, not yet marked announced in the log), <c>bridge</c> (a range
 /// transfer's bridging part read on both ranges, the correction not yet recorded) and <c>bridged</c>
-/// (the correction recorded, not yet announced).
+/// (the correction recorded, not yet announced), <c>check</c> (a check read and judged, not yet recorded) and
+/// <c>checked</c> (recorded with its flags, not yet acted on).
 /// Unset, empty or malformed: no effect.
 /// </summary>
 internal static class CrashPoint

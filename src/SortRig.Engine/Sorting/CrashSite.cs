@@ -17,4 +17,10 @@ internal enum CrashSite
 
     /// <summary>The correction recorded, not yet announced.</summary>
     Bridged,
+
+    /// <summary>The check standard read and judged, its record not yet written.</summary>
+    Check,
+
+    /// <summary>The check's record written (with any flags), not yet shown or acted on.</summary>
+    Checked,
 }

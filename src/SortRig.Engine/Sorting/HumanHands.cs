@@ -25,4 +25,10 @@ public sealed class HumanHands : IFixtureHands
     public void RemoveBridgingPart()
     {
     }
+
+    /// <inheritdoc />
+    public Task PlaceCheckPartAsync(double nominal, CancellationToken ct) => Task.CompletedTask;
+
+    /// <inheritdoc />
+    public Task PlacePartAgainAsync(int reelPosition, CancellationToken ct) => Task.CompletedTask;
 }

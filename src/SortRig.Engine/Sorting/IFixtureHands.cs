@@ -21,6 +21,18 @@ public interface IFixtureHands
     /// </summary>
     Task PlaceBridgingPartAsync(double nominal, CancellationToken ct);
 
-    /// <summary>The operator was asked to take the bridging part out.</summary>
+    /// <summary>The operator was asked to take the bridging part out (also the check part or a part measured again).</summary>
     void RemoveBridgingPart();
+
+    /// <summary>
+    /// The operator was asked to put the check standard of <paramref name="nominal"/> ohms in the fixture; feeding
+    /// reel parts stops until <see cref="ResumeAt"/>. Returns once it is handed in (at once for a person).
+    /// </summary>
+    Task PlaceCheckPartAsync(double nominal, CancellationToken ct);
+
+    /// <summary>
+    /// The operator was asked to put an already sorted part back in the fixture to be measured again: the
+    /// <paramref name="reelPosition"/>-th part fed in this session (0-based). Returns once it is handed in.
+    /// </summary>
+    Task PlacePartAgainAsync(int reelPosition, CancellationToken ct);
 }

@@ -70,6 +70,38 @@ public sealed class SortOptions
     public BridgeMode Bridge { get; set; } = BridgeMode.Auto;
 
     /// <summary>
+    /// The check standard: "fixture:&lt;ohms&gt;" (a reference part kept at the fixture) or "library:&lt;part id&gt;";
+    /// empty (default) for no check. Read at the session's start, on the cadence below and at the end
+    /// (docs/checking.md).
+    /// </summary>
+    public string Check { get; set; } = "";
+
+    /// <summary>Parts between checks. Default 25; 0 for no part count (then <see cref="CheckMinutes"/> must be set);
+    /// 0..10 000.</summary>
+    [Range(0, 10_000)]
+    public int CheckEvery { get; set; } = 25;
+
+    /// <summary>Minutes between checks (whichever of this and <see cref="CheckEvery"/> comes first). Default 0 (no
+    /// clock); 0..1440.</summary>
+    [Range(0, 1440)]
+    public double CheckMinutes { get; set; }
+
+    /// <summary>The check's calibrated value, ohms, for the meter's apparent gain; 0 (default) when unknown (a library
+    /// check uses its logged value).</summary>
+    [Range(0, 1e9)]
+    public double CheckValue { get; set; }
+
+    /// <summary>Least sigma of the check's control chart, ppm of its value (a meter that repeats exactly would give
+    /// zero-width limits). Default 2 ppm; 0.01..1000.</summary>
+    [Range(0.01, 1000)]
+    public double CheckSigmaFloorPpm { get; set; } = 2;
+
+    /// <summary>Readings the check's limits need before the chart judges; a check with less history is re-seated
+    /// and read at the session's start until it has them. Default 5; 2..50.</summary>
+    [Range(2, 50)]
+    public int CheckBaseline { get; set; } = 5;
+
+    /// <summary>
     /// Which settle rule accepts parts: averaging (the mean of the last readings once they stopped moving) or
     /// predictive (also fits each part's thermal recovery and may accept earlier with the extrapolated final value;
     /// the averaging rule decides whenever no model fits); bound case-insensitively. Default

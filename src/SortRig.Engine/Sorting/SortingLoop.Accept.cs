@@ -19,7 +19,7 @@ public sealed partial class SortingLoop
         }
 
         CrashPoint.Pass(CrashSite.Read);
-        var number = _partsRecorded + 1;
+        var number = NextNumber;
         var measured = OnReferenceScale(acceptance.Value);
         var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
         var commit = new PartCommit(

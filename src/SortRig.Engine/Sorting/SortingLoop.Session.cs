@@ -29,7 +29,8 @@ public sealed partial class SortingLoop
             : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
 
         var parts = await log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
-        _partsRecorded = parts.Count;
+        await LoadExtraNumbersAsync(parts, ct).ConfigureAwait(false);
+        _partsRecorded = parts.Count - _extraPositions.Count;
         var history = parts
             .Where(p => p.IsLive && (p.CupLabel ?? p.SlotLabel) is not null)
             .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), (p.CupLabel ?? p.SlotLabel)!))
@@ -64,6 +65,7 @@ public sealed partial class SortingLoop
             await PrepareRangeTransferAsync(state.Batches, ct).ConfigureAwait(false);
         }
 
+        await PrepareCheckAsync(ct).ConfigureAwait(false);
         _ctx.Hands.ResumeAt(_partsRecorded);
     }
 

@@ -11,8 +11,17 @@ public sealed partial class SortingLoop
     // Puts values read on this batch's range onto the session's first range; null when none applies.
     private RangeCorrection? _correction;
 
-    private MeasuredValue OnReferenceScale(MeasuredValue value) =>
-        _correction is { } c && c.FromRangeFullScale == _ctx.Plan.Range ? c.Apply(value) : value;
+    // Then onto the check's scale when the session re-referenced to its check standard after a shift.
+    private MeasuredValue OnReferenceScale(MeasuredValue value)
+    {
+        var onRange = _correction is { } c && c.FromRangeFullScale == _ctx.Plan.Range ? c.Apply(value) : value;
+        return _checkScale == 1 ? onRange : onRange with
+        {
+            Value = onRange.Value * _checkScale,
+            StandardUncertainty = onRange.StandardUncertainty * _checkScale,
+            TransferUncertainty = onRange.TransferUncertainty * _checkScale,
+        };
+    }
 
     // A batch on another range than the session's first batch: plan the transfer between the two ranges
     // (docs/range-transfer.md) and put this batch's values on the first batch's scale, from above (2R after R)

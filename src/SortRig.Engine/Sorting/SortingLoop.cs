@@ -47,6 +47,11 @@ public sealed partial class SortingLoop
             // Meet the meter first: the batch records which instrument measured it.
             await ConnectWithRetryAsync(cancellationToken).ConfigureAwait(false);
             await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
+            if (_check is not null && !Done)
+            {
+                await RunCheckAsync("start", resumeFeeding: true, cancellationToken).ConfigureAwait(false);
+            }
+
             await AnnounceReadyAsync(cancellationToken).ConfigureAwait(false);
             while (!cancellationToken.IsCancellationRequested && !Done)
             {
@@ -62,11 +67,22 @@ public sealed partial class SortingLoop
                     break;
                 }
 
+                if (CheckDue)
+                {
+                    await RunCheckAsync(CheckWhen, resumeFeeding: true, cancellationToken).ConfigureAwait(false);
+                    continue;
+                }
+
                 var reading = await ReadAsync(cancellationToken).ConfigureAwait(false);
                 if (reading is { } r)
                 {
                     await OnReadingAsync(r, cancellationToken).ConfigureAwait(false);
                 }
+            }
+
+            if (Done && _check is not null && _partsRecorded > _partsAtLastCheck)
+            {
+                await RunCheckAsync("end", resumeFeeding: false, cancellationToken).ConfigureAwait(false);
             }
 
             if (Done)
@@ -88,6 +104,8 @@ public sealed partial class SortingLoop
     private bool Done => _finishRequested || SetsComplete || (PlannedParts > 0 && _partsRecorded >= PlannedParts && !_tracker.State.IsBusy());
 
     private int PlannedParts => Options.Parts;
+
+    private string CheckWhen => Invariant($"after {_partsRecorded - _partsAtLastCheck} parts");
 
     private async Task OnReadingAsync(Reading reading, CancellationToken ct)
     {

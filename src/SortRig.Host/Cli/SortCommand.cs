@@ -33,6 +33,10 @@ internal static class SortCommand
         map.Add(command, new Option<string>("--assigner") { Description = "bands (default), adaptive (edges learned from the reel) or slots (numbered tray slots)" }, "Sort:Assigner");
         map.Add(command, new Option<double>("--nplc") { Description = "Integration time in power-line cycles (default 1)" }, "Sort:Nplc");
         map.Add(command, new Option<string>("--bridge") { Description = "Range transfer for a batch on another range than the session's first: auto (when the match needs it, default), always, off" }, "Sort:Bridge");
+        map.Add(command, new Option<string>("--check") { Description = "Check standard read at the start, on a cadence and at the end, kept on a control chart: fixture:OHMS (a reference part kept at the fixture) or library:PART_ID (docs/checking.md); default none" }, "Sort:Check");
+        map.Add(command, new Option<int>("--check-every") { Description = "Parts between two checks (default 25; 0 for none, then give --check-minutes)" }, "Sort:CheckEvery");
+        map.Add(command, new Option<double>("--check-minutes") { Description = "Minutes between two checks, whichever of this and --check-every comes first (default 0: none)" }, "Sort:CheckMinutes");
+        map.Add(command, new Option<double>("--check-value") { Description = "The check's calibrated value in ohms (10000, 10k), for the meter's apparent gain; a library check uses its logged value", CustomParser = TradeValueParser.Ohms }, "Sort:CheckValue");
         map.Add(command, new Option<string>("--settle") { Description = "Settle rule: averaging (default) or predictive (fits each part's cooling and may accept earlier; not the default because it has not yet held the false-accept bound on the rich simulated bench, see docs/bench-settle.md)" }, "Sort:Settle");
         map.Add(command, new Option<bool>("--reopen") { Description = "Carry on the latest session of this name even if finished (another batch of the same job; --parts counts the whole session)" }, "Sort:Reopen");
         map.Add(command, new Option<bool>("--four-wire") { Description = "Measure 4-wire" }, "Sort:FourWire");

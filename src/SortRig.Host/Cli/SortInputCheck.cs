@@ -100,12 +100,47 @@ internal static partial class SortInputCheck
             }
         }
 
+        if (CheckCheck(options, section, flags) is { } badCheck)
+        {
+            return (null, badCheck);
+        }
+
         if (CheckBuild(options, flags) is { } badBuild)
         {
             return (null, badBuild);
         }
 
         return (options, null);
+    }
+
+    // The check standard: its text must name one; the cadence and value flags need it; a cadence must be given.
+    private static string? CheckCheck(SortOptions options, IConfigurationSection section, FlagMap? flags)
+    {
+        if (string.IsNullOrWhiteSpace(options.Check))
+        {
+            foreach (var member in (string[])[nameof(SortOptions.CheckEvery), nameof(SortOptions.CheckMinutes), nameof(SortOptions.CheckValue)])
+            {
+                if (section[member] is not null)
+                {
+                    return $"{Name(member, flags)}: applies only with a check standard ({Name(nameof(SortOptions.Check), flags)})";
+                }
+            }
+
+            return null;
+        }
+
+        try
+        {
+            _ = Engine.Checking.CheckSource.Parse(options.Check, options.CheckValue);
+        }
+        catch (FormatException e)
+        {
+            return $"{Name(nameof(SortOptions.Check), flags)}: {e.Message}";
+        }
+
+        return options.CheckEvery == 0 && options.CheckMinutes == 0
+            ? $"{Name(nameof(SortOptions.CheckEvery), flags)}: 0 with no {Name(nameof(SortOptions.CheckMinutes), flags)} would read the check only at the start and the end; give one of them"
+            : null;
     }
 
     private static string Describe(ValidationResult result, SortOptions options, FlagMap? flags)

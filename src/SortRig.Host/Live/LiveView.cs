@@ -100,7 +100,12 @@ internal static class LiveView
             new Panel(cup).Header("cup"),
             new Panel(reading).Header("fixture"),
             m.Counts.Count > 0 ? counts : new Text(""),
+            m.LastCheck is { } check
+                ? new Markup(check.Contains("out of control", StringComparison.Ordinal)
+                    ? $"[bold red]{Markup.Escape(check)}[/]"
+                    : $"[green]{Markup.Escape(check)}[/]")
+                : new Text(""),
             notices,
-            new Markup("[grey]keys: U undo last · M measure again · P pause · F finish[/]"));
+            new Markup("[grey]keys: U undo last · M measure again · P pause · F finish · R measure flagged parts again[/]"));
     }
 }

@@ -15,6 +15,10 @@ internal sealed record LiveViewModel(
     IReadOnlyList<string> Notices,
     bool Finished)
 {
+    /// <summary>The last word about the check standard ("check 4 in control (+0.3 sigma)", "... out of control: ..."),
+    /// or null when the session reads no check.</summary>
+    public string? LastCheck { get; init; }
+
     private const int NoticeLines = 4;
 
     /// <summary>The view before anything happened.</summary>
@@ -31,8 +35,18 @@ internal sealed record LiveViewModel(
             PartsDone = e.State == "Repeat" ? PartsDone : PartsDone + 1,
         },
         BenchEventKind.Counts => this with { Counts = e.Counts ?? Counts },
-        BenchEventKind.Notice => this with { Notices = [.. Notices.TakeLast(NoticeLines - 1), e.Text ?? ""] },
+        BenchEventKind.Notice => this with
+        {
+            Notices = [.. Notices.TakeLast(NoticeLines - 1), e.Text ?? ""],
+            LastCheck = IsCheckState(e.Text) ? e.Text : LastCheck,
+        },
         BenchEventKind.Finished => this with { Finished = true },
         _ => this,
     };
+
+    // The check's state lines (not its prompts: "check (start): put the check standard ...").
+    private static bool IsCheckState(string? text) =>
+        text is not null && (text.StartsWith("check limits set", StringComparison.Ordinal)
+            || (text.StartsWith("check ", StringComparison.Ordinal) && text.Contains(" control", StringComparison.Ordinal))
+            || text.StartsWith("re-referenced", StringComparison.Ordinal));
 }

@@ -48,7 +48,7 @@ internal static class ReportInputBuilder
         return (new ReportInput("SortRig report: " + string.Join(", ", titles), parts, reels, drift), notes);
     }
 
-    private static async Task<SessionInfo> FindSessionAsync(ISessionReader log, string nameOrId, CancellationToken ct)
+    internal static async Task<SessionInfo> FindSessionAsync(ISessionReader log, string nameOrId, CancellationToken ct)
     {
         var sessions = await log.ListSessionsAsync(ct).ConfigureAwait(false);
         var byId = long.TryParse(nameOrId, NumberStyles.None, CultureInfo.InvariantCulture, out var id) ? sessions.FirstOrDefault(s => s.Id == id) : null;

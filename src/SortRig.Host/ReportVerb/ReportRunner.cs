@@ -46,6 +46,14 @@ internal static class ReportRunner
             files.Add(name);
         }
 
+        if (!string.IsNullOrWhiteSpace(request.Session))
+        {
+            var more = notes.ToList();
+            files.AddRange(await CheckReport.WriteAsync(log, request.Session, manifest.Folder, options.PlotSize, more, ct)
+                .ConfigureAwait(false));
+            notes = more;
+        }
+
         return new ReportResult(manifest.Folder, files, notes);
     }
 }

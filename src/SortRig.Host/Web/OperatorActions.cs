@@ -19,6 +19,7 @@ internal static class OperatorActions
         "remeasure" => OperatorCommand.Remeasure,
         "pause" => OperatorCommand.TogglePause,
         "finish" => OperatorCommand.Finish,
+        "remeasure-flagged" => OperatorCommand.RemeasureFlagged,
         _ => null,
     };
 }

@@ -31,6 +31,7 @@ internal static class WebEndpoints
         api.MapGet("/session", (BenchSnapshot s) => s.Session is { } v ? Results.Json(v, Json) : Results.Json(new { error = "no session is open yet" }, Json, statusCode: 404));
         api.MapGet("/parts", (BenchSnapshot s) => Results.Json(s.Parts(), Json));
         api.MapGet("/cups", (BenchSnapshot s) => Results.Json(s.Counts, Json));
+        api.MapGet("/check", (BenchSnapshot s) => s.LastCheck is { } c ? Results.Json(c, Json) : Results.Json(new { error = "no check read yet" }, Json, statusCode: 404));
         api.MapGet("/events/recent", (BenchEventHub hub) => Results.Json(hub.History(), Json));
         api.MapGet("/events", EventStream.StreamAsync);
         TypedEndpoints.Map(api);

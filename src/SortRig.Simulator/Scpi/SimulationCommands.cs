@@ -20,6 +20,8 @@ internal static class SimulationCommands
             .Add("SIMulation:PART:INDex?", (c, _) => Reply(Nr3.Format(c.Device.Fixture.Occupant?.Index ?? -1)))
             .Add("SIMulation:PART:TRUE?", (c, _) => Reply(Nr3.Format(Truth(c))), 1, 1)
             .Add("SIMulation:GAIN?", (c, _) => Reply(Nr3.Format(c.Device.Engine.Gains.ErrorPpm(c.Number(0, NumericParameter.Ohms(null, null, null))))), 1, 1)
+            .Add("SIMulation:GAIN:STEP", (c, _) => Done(() => StepGain(c)), 1, 2)
+            .Add("SIMulation:GAIN:STEP?", (c, _) => Reply(Nr3.Format(c.Device.Engine.Gains.StepPpm)))
             .Add("SIMulation:REEL:COUNt?", (c, _) => Reply(Nr3.Format(c.Device.Reel.Count)))
             .Add("SIMulation:OPERator:ANNounce", (c, _) => Done(() => c.Device.Operator.OnPartAnnounced()))
             .Add("SIMulation:OPERator:SKIP", (c, _) => Done(() => c.Device.Operator.SkipTo(c.Count(0, 0, c.Device.Reel.Count))), 1, 1)
@@ -30,6 +32,14 @@ internal static class SimulationCommands
             .Add("SIMulation:AMBient?", (c, _) => Reply(Nr3.Format(c.Device.Environment.AmbientAt(c.Device.Environment.Now))))
             .Add("SIMulation:TIME?", (c, _) => Reply(Nr3.Format((c.Device.Environment.Now - c.Device.Environment.Epoch).TotalSeconds)));
         FaultCommands.Register(table);
+    }
+
+    /// <summary>GAIN:STEP &lt;ppm&gt;[,&lt;after conversions&gt;]: every range reads ppm higher from then on.</summary>
+    private static void StepGain(ScpiCall call)
+    {
+        var ppm = call.Number(0, NumericParameter.Unitless(-10_000, 10_000, 0));
+        var after = call.Has(1) ? call.Count(1, 0, int.MaxValue) : 0;
+        call.Device.Engine.Gains.StepGain(ppm, after);
     }
 
     /// <summary>INSert [&lt;reel index&gt;[,&lt;warm K&gt;]]: without an index, the operator's next part (manual step).</summary>

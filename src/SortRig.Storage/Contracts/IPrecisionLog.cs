@@ -5,10 +5,11 @@ namespace SortRig.Storage.Contracts;
 /// Every write is one transaction, committed durably before the method returns. Faults of the store surface as
 /// <see cref="StorageException"/>; caller cancellation as <see cref="OperationCanceledException"/>.
 /// Bad arguments throw <see cref="ArgumentException"/> naming the field. Safe to call from several threads.
-/// The roles (<see cref="ISessionLog"/>, <see cref="ISessionReader"/>, <see cref="IPartLibrary"/>, <see cref="IDriftLog"/>) are
+/// The roles (<see cref="ISessionLog"/>, <see cref="ISessionReader"/>, <see cref="IPartLibrary"/>,
+/// <see cref="IDriftLog"/>, <see cref="ICheckLog"/>) are
 /// what its contract tests and its callers use; a caller that needs one role takes that interface.
 /// </summary>
-public interface IPrecisionLog : ISessionLog, ISessionReader, IPartLibrary, IDriftLog, IAsyncDisposable
+public interface IPrecisionLog : ISessionLog, ISessionReader, IPartLibrary, IDriftLog, ICheckLog, IAsyncDisposable
 {
     /// <summary>Engine behind this log.</summary>
     StorageEngine Engine { get; }

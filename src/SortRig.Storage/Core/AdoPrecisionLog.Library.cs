@@ -20,7 +20,9 @@ internal abstract partial class AdoPrecisionLog
         return ReadAsync<IReadOnlyList<PartRecord>>("find library parts", async (s, ct) =>
         {
             // Only fixed SQL fragments are appended; every value is a bound parameter.
-            var sql = new StringBuilder($"SELECT {PartColumns} FROM parts p WHERE p.state IN {LiveStates}");
+            // Parts flagged by a check out of control stay out of planning and picking until measured again.
+            var sql = new StringBuilder($"SELECT {PartColumns} FROM parts p WHERE p.state IN {LiveStates} " +
+                "AND NOT EXISTS (SELECT 1 FROM suspect_parts sp WHERE sp.part_id = p.id)");
             if (query.Nominal is not null) { sql.Append(" AND p.nominal_ohms BETWEEN @nlo AND @nhi"); }
             if (query.MinDeviationPpm is not null) { sql.Append(" AND p.deviation_ppm >= @dlo"); }
             if (query.MaxDeviationPpm is not null) { sql.Append(" AND p.deviation_ppm <= @dhi"); }

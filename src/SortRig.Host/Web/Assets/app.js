@@ -59,6 +59,17 @@ function showSession(s) {
   showProgress();
 }
 
+// The last check of the check standard (/api/check): its number, sigma score and state; red when out of control.
+function showCheck(c) {
+  const box = $("check");
+  if (!c || c.error) return;
+  box.hidden = false;
+  box.textContent = "check " + c.seq + ": " + (c.inControl ? "in control" : "OUT OF CONTROL")
+    + " (" + c.sigmaScore.toFixed(1) + " σ)" + (c.flagged > 0 ? " · " + c.flagged + " parts flagged" : "")
+    + (c.gainPpm != null ? " · gain " + c.gainPpm.toFixed(1) + " ppm" : "");
+  box.className = c.inControl ? "" : "alarm";
+}
+
 function showProgress() {
   const s = page.session, n = page.parts.size;
   const planned = s && s.partsPlanned > 0 ? " / " + s.partsPlanned : "";

@@ -17,7 +17,10 @@ function onEvent(e) {
     case "Reading": queueReading(e); break;
     case "Announcement": onAnnouncement(e); break;
     case "Counts": showCounts(e.counts ?? {}); scheduleRefresh(); break;
-    case "Notice": addNotice(e.text ?? ""); getJson("/api/session").then(showSession); scheduleRefresh(); break;
+    case "Notice":
+      addNotice(e.text ?? ""); getJson("/api/session").then(showSession); scheduleRefresh();
+      if ((e.text ?? "").startsWith("check ") || (e.text ?? "").startsWith("re-referenced")) getJson("/api/check").then(showCheck);
+      break;
     case "Finished": onFinished(); break;
     case "Drift": onDrift(e); break;
   }

@@ -1,0 +1,107 @@
+using SortRig.Engine.Announcing;
+using SortRig.Engine.Operator;
+using SortRig.Measurement.Control;
+using SortRig.Planning.Cups;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Engine.Sorting;
+
+// A check out of control: pause and say why; the parts since the last good check are already flagged (in the same
+// transaction as the check). The operator chooses: re-reference to the check and measure the flagged parts again (R),
+// carry on leaving them flagged (P; they stay out of planning and picking), or finish (F).
+public sealed partial class SortingLoop
+{
+    private async Task OutOfControlAsync(CheckRecord record, ControlVerdict verdict, CancellationToken ct)
+    {
+        var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
+        _paused = true;
+        _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
+        var said = Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts ")
+            + "measured since the last good check are flagged: R to re-reference to the check and measure them again, "
+            + "P to carry on leaving them flagged, F to finish";
+        await SayTextAsync(said, ct).ConfigureAwait(false);
+        while (true)
+        {
+            var command = await _ctx.Commands.TakeAsync(ct).ConfigureAwait(false);
+            switch (command)
+            {
+                case OperatorCommand.RemeasureFlagged:
+                    await ReReferenceAsync(ct).ConfigureAwait(false);
+                    await RemeasureFlaggedAsync(ct).ConfigureAwait(false);
+                    break;
+                case OperatorCommand.TogglePause:
+                    await SayAsync($"carrying on; {suspects.Count} parts stay flagged until measured again", ct)
+                        .ConfigureAwait(false);
+                    break;
+                case OperatorCommand.Finish:
+                    _finishRequested = true;
+                    break;
+                default:
+                    continue; // undo and measure-again concern a part in the fixture: there is none while paused here
+            }
+
+            _paused = false;
+            _ctx.Snapshot.UpdateSession(s => s with { Paused = false });
+            return;
+        }
+    }
+
+    // Reads the check again and puts the meter's values back on the check's scale from here on.
+    private async Task ReReferenceAsync(CancellationToken ct)
+    {
+        var (value, at) = await ReadCheckAsync("re-reference", ct).ConfigureAwait(false);
+        var centre = _checkLimits!.Centre;
+        _checkScale = centre / value.Value;
+        var shiftPpm = ((value.Value / centre) - 1) * 1e6;
+        _checkPoints.Clear();
+        var why = Invariant($"re-referenced: the meter reads {shiftPpm:+0.0;-0.0} ppm against the check's centre");
+        await RecordCheckAsync(_check!, value, at, null, "ReReferenced", why, ct).ConfigureAwait(false);
+        await SayTextAsync(why + "; values are put back on the check's scale", ct).ConfigureAwait(false);
+    }
+
+    private async Task RemeasureFlaggedAsync(CancellationToken ct)
+    {
+        var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
+        foreach (var id in suspects)
+        {
+            var part = await _ctx.Log.GetPartAsync(id, ct).ConfigureAwait(false);
+            if (part is not { IsLive: true })
+            {
+                continue;
+            }
+
+            var where = part.SlotLabel is { } slot ? $"slot {slot}" : $"cup {part.CupLabel}";
+            await SayAsync($"measure again: take part {part.Number} out of {where} and put it in the fixture", ct)
+                .ConfigureAwait(false);
+            await _ctx.Hands.PlacePartAgainAsync(ReelPosition(part.Number), ct).ConfigureAwait(false);
+            var (acceptance, readings) = await SettleOneAsync($"part {part.Number}", ct).ConfigureAwait(false);
+            var measured = OnReferenceScale(acceptance.Value);
+            _ctx.Cups.Undo(part.Number);
+            var number = NextNumber;
+            var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
+            var commit = new PartCommit(
+                Guid.NewGuid(), _session.Id, _batch.Id, measured, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
+                readings[^1].Time,
+                decision.IsSlot ? null : decision.CupLabel,
+                decision.IsSlot ? decision.CupLabel : null,
+                readings, PartState.Accepted, acceptance.AcceptedBy);
+            var stored = await DurablyAsync(
+                    $"part {part.Number} measured again", c => _ctx.Log.CommitPartAsync(commit, c), ct)
+                .ConfigureAwait(false);
+            _extraPositions[stored.Number] = ReelPosition(part.Number);
+            var correction = new PartCorrection(
+                id, PartCorrectionKind.Remeasure, Note: Invariant($"{RemeasuredAs}{stored.Number}"));
+            var old = await DurablyAsync(
+                    $"part {part.Number} marked measured again", c => _ctx.Log.UndoPartAsync(correction, c), ct)
+                .ConfigureAwait(false);
+            _ctx.Snapshot.Upsert(ToView(old));
+            var kind = decision.IsReject ? AnnouncementKind.Reject : AnnouncementKind.Cup;
+            await AnnounceStoredAsync(stored, kind, decision.CompletesSet, ct).ConfigureAwait(false);
+            PublishCounts();
+            _ctx.Hands.RemoveBridgingPart();
+            await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
+        }
+
+        await SayAsync($"{suspects.Count} flagged parts measured again", ct).ConfigureAwait(false);
+    }
+}

@@ -1,0 +1,107 @@
+using SortRig.Engine.Operator;
+using SortRig.Engine.Sorting;
+using SortRig.Host.Tests.Reliability.Support;
+using SortRig.Host.Tests.Sorting;
+using SortRig.Storage;
+using SortRig.Storage.Contracts;
+
+namespace SortRig.Host.Tests.Checking;
+
+/// <summary>
+/// The check standard end to end on the embedded simulator (real TCP socket, SQLite file): the meter's gain steps by
+/// 50 ppm in the middle of a 200-part sort; the session pauses at the next check, the parts since the last good check
+/// are flagged, measured again after the operator's answer, and no part ends in the wrong cup against the simulator's
+/// truth (its side channel, the outside reference). Self-contained: one file, the shared harness only.
+/// </summary>
+public sealed class CheckEndToEndTests : IDisposable
+{
+    private const string RemeasuredAs = SortingLoop.RemeasuredAs;
+    private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-check-").FullName;
+
+    public void Dispose() => Directory.Delete(_dir, recursive: true);
+
+    [Fact]
+    public async Task Sort_GainStepsBy50PpmMidReel_PausesFlagsAndRemeasures_NoPartInTheWrongCup()
+    {
+        const int parts = 200, every = 20, stepAt = 110;
+        var options = new SortOptions
+        {
+            Database = Path.Combine(_dir, "check.db"),
+            Session = "check-e2e",
+            Parts = parts,
+            Seed = 4242,
+            Speed = 30,
+            Speech = false,
+            Live = false,
+            Check = "fixture:10000",
+            CheckEvery = every,
+        };
+        var sort = new InProcessSort(options);
+        var pauses = 0;
+        sort.Ears.OnLine = line =>
+        {
+            if (line.Contains("out of control", StringComparison.Ordinal))
+            {
+                pauses++;
+                Assert.True(sort.Services.Snapshot.Session!.Paused, "the session pauses at the check out of control");
+                sort.Services.Commands.Post(OperatorCommand.RemeasureFlagged); // the operator's answer
+            }
+        };
+        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(9));
+        var run = sort.RunAsync(null, timeout.Token);
+        var bench = await sort.Bench;
+        await InProcessSort.UntilAsync(
+            () => sort.Services.Snapshot.Parts().Count >= stepAt || run.IsCompleted, TimeSpan.FromMinutes(6), "part 110");
+        bench.StepGain(50); // the fault: every range reads 50 ppm high from the next conversion on
+        var outcome = await run;
+
+        Assert.Equal(parts, outcome.PartsRecorded);
+        Assert.Equal(50, bench.GainStepPpm);
+        Assert.Equal(1, pauses);
+        await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
+        var checks = await log.GetSessionChecksAsync(outcome.SessionId, default);
+        var stored = await log.GetPartsAsync(outcome.SessionId, default);
+
+        // Exactly one check out of control, the first after the step; it flagged the parts since the last good check.
+        var bad = Assert.Single(checks, c => !c.Commit.InControl);
+        var lastGood = checks.Last(c => c.Seq < bad.Seq && c.Commit.InControl);
+        Assert.InRange(bad.AfterPartNumber, stepAt, stepAt + every);
+        Assert.Equal(bad.AfterPartNumber - lastGood.AfterPartNumber, bad.FlaggedCount);
+        var flagged = await log.GetFlaggedPartsAsync(outcome.SessionId, default);
+        Assert.Equal(
+            stored.Where(p => p.Number > lastGood.AfterPartNumber && p.Number <= bad.AfterPartNumber).Select(p => p.Id),
+            flagged);
+        Assert.Empty(await log.GetSuspectPartsAsync(outcome.SessionId, default)); // all measured again
+
+        // The re-reference saw the step: the meter read about 50 ppm high against the check's centre.
+        var reReference = Assert.Single(checks, c => c.Commit.Rule == "ReReferenced");
+        var shiftPpm = ((reReference.Commit.ValueOhms / reReference.Commit.CentreOhms!.Value) - 1) * 1e6;
+        Assert.InRange(shiftPpm, 40, 60);
+        Assert.All(checks.Where(c => c.Seq > reReference.Seq), c => Assert.True(c.Commit.InControl, c.Commit.Reason));
+
+        // Reel position of each live record: reel parts in order, records measured again map to their first record.
+        var again = new Dictionary<int, int>(); // new number -> old number
+        foreach (var id in flagged)
+        {
+            var old = stored.Single(p => p.Id == id);
+            Assert.Equal(PartState.Remeasured, old.State);
+            var note = (await log.GetPartHistoryAsync(id, default)).Select(e => e.Note)
+                .Single(n => n?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)!;
+            again[int.Parse(note[RemeasuredAs.Length..], System.Globalization.CultureInfo.InvariantCulture)] = old.Number;
+        }
+
+        var position = new Dictionary<int, int>();
+        var next = 0;
+        foreach (var p in stored.OrderBy(p => p.Number))
+        {
+            position[p.Number] = again.TryGetValue(p.Number, out var first) ? position[first] : next++;
+        }
+
+        var live = stored.Where(p => p.IsLive).ToList();
+        Assert.Equal(parts, live.Count);
+        Assert.Equal(Enumerable.Range(0, parts), live.Select(p => position[p.Number]).Order());
+        var (misplaced, excused) = TruthCheck.Compare(options, live, number => bench.Truth(position[number]));
+        Assert.Empty(misplaced);
+        Assert.True(excused <= parts / 20, $"{excused} parts sat on a band edge");
+    }
+}
