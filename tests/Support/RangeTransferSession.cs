@@ -1,8 +1,4 @@
-using Microsoft.Extensions.Logging.Abstractions;
 using SortRig.Engine.Announcing;
-using SortRig.Engine.Composition;
-using SortRig.Engine.Events;
-using SortRig.Engine.Operator;
 using SortRig.Engine.Simulation;
 using SortRig.Engine.Sorting;
 using SortRig.Simulator;
@@ -11,7 +7,8 @@ namespace SortRig.Tests.Support;
 
 /// <summary>
 /// Runs one sort verb session in-process on the embedded simulator (real TCP socket, real SQLite file,
-/// scaled clock) for the range-transfer tests: an R-2R ladder's R (10 kOhm) then 2R (20 kOhm).
+/// virtual clock, <see cref="VirtualSort"/>) for the range-transfer tests: an R-2R ladder's R (10 kOhm) then
+/// 2R (20 kOhm).
 /// </summary>
 internal sealed class RangeTransferSession(string database, double gainErrorPpm = DemoBench.RangeGainErrorPpm)
 {
@@ -26,7 +23,6 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
         Nplc = 10,
         Parts = totalParts,
         Seed = Seed,
-        Speed = 40,
         Bridge = bridge,
         Speech = false,
         Live = false,
@@ -38,33 +34,25 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
     /// </summary>
     public async Task<Run> RunAsync(SortOptions options, Func<Announcement, bool>? stopWhen = null)
     {
-        var time = new ScaledTimeProvider(options.Speed);
-        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(3));
-        using var stop = CancellationTokenSource.CreateLinkedTokenSource(timeout.Token);
+        using var stop = new CancellationTokenSource();
         var heard = new StringWriter();
-        var announcer = new StoppingAnnouncer(new PlainTextAnnouncer(heard), stopWhen, stop);
-        var services = new SortServices(time, new BenchEventHub(time), new BenchSnapshot(), new OperatorCommands(), announcer, NullLoggerFactory.Instance);
-        SimulatedBench? bench = null;
+        var sort = new VirtualSort(new StoppingAnnouncer(new PlainTextAnnouncer(heard), stopWhen, stop));
         SortOutcome? outcome = null;
         try
         {
-            var hooks = new SimulatorHooks
-            {
-                Configure = b => b with { RangeGainErrorPpm = gainErrorPpm },
-                Started = b => bench = b,
-            };
-            outcome = await SortRunner.RunWithHooksAsync(options, services, hooks, stop.Token);
+            outcome = await sort.RunAsync(options, b => b with { RangeGainErrorPpm = gainErrorPpm }, ct: stop.Token);
         }
-        catch (OperationCanceledException) when (stopWhen is not null && !timeout.IsCancellationRequested)
+        catch (OperationCanceledException) when (stopWhen is not null && stop.IsCancellationRequested)
         {
             // Stopped on purpose right after the announcement.
         }
-        catch (OperationCanceledException) when (timeout.IsCancellationRequested)
+        catch (TimeoutException e)
         {
-            throw new TimeoutException("the session did not end in 3 minutes; last heard:\n" + string.Join('\n', heard.ToString().Split('\n').TakeLast(12)));
+            var last = string.Join('\n', heard.ToString().Split('\n').TakeLast(12));
+            throw new TimeoutException(e.Message + "; last heard:\n" + last, e);
         }
 
-        return new Run(outcome, bench!, heard.ToString());
+        return new Run(outcome, sort.Bench, heard.ToString());
     }
 
     /// <summary>

@@ -11,6 +11,7 @@ namespace SortRig.Engine.Tests.Reliability;
 /// at random. The simulator's truth is the outside reference for every part's value and cup.
 /// </summary>
 [Collection(ReliabilityCollection.Name)]
+[Trait(ReliabilityCollection.Clock, ReliabilityCollection.Wall)]
 public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
 {
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-soak-").FullName;

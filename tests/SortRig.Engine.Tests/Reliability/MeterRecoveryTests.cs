@@ -10,6 +10,7 @@ namespace SortRig.Engine.Tests.Reliability;
 
 /// <summary>Meter recoveries of the sorting loop, each provoked on purpose on the real simulator.</summary>
 [Collection(ReliabilityCollection.Name)]
+[Trait(ReliabilityCollection.Clock, ReliabilityCollection.Wall)]
 public sealed class MeterRecoveryTests : IDisposable
 {
     private static readonly TimeSpan s_limit = TimeSpan.FromSeconds(60);

@@ -15,6 +15,7 @@ namespace SortRig.Engine.Tests.Reliability;
 /// stalled while a part settled. Each provoked on purpose on the real simulator.
 /// </summary>
 [Collection(ReliabilityCollection.Name)]
+[Trait(ReliabilityCollection.Clock, ReliabilityCollection.Wall)]
 public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposable
 {
     private static readonly TimeSpan s_limit = TimeSpan.FromSeconds(60);

@@ -13,6 +13,7 @@ namespace SortRig.Engine.Tests.Reliability;
 /// accepted while it lasts), leave nothing half-written, and carry on once the fault is cleared.
 /// </summary>
 [Collection(ReliabilityCollection.Name)]
+[Trait(ReliabilityCollection.Clock, ReliabilityCollection.Wall)]
 public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
 {
     private const int Parts = 8;

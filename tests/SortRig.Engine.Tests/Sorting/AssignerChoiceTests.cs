@@ -1,15 +1,11 @@
-using Microsoft.Extensions.Logging.Abstractions;
 using SortRig.Engine.Announcing;
-using SortRig.Engine.Composition;
-using SortRig.Engine.Events;
-using SortRig.Engine.Operator;
 using SortRig.Engine.Sorting;
-using SortRig.Simulator;
 using SortRig.Storage;
+using SortRig.Tests.Support;
 
 namespace SortRig.Engine.Tests.Sorting;
 
-/// <summary>The planning layer's cup planners plug into the sort through Sort:Assigner.</summary>
+/// <summary>The planning layer's cup planners plug into the sort through Sort:Assigner (on a virtual clock).</summary>
 public sealed class AssignerChoiceTests : IDisposable
 {
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-assigner-").FullName;
@@ -27,17 +23,12 @@ public sealed class AssignerChoiceTests : IDisposable
             Session = assigner.ToString(),
             Parts = 8,
             Seed = 77,
-            Speed = 30,
             Speech = false,
             Live = false,
             Assigner = assigner,
         };
-        var time = new ScaledTimeProvider(options.Speed);
-        var services = new SortServices(time, new BenchEventHub(time), new BenchSnapshot(), new OperatorCommands(),
-            new PlainTextAnnouncer(TextWriter.Null), NullLoggerFactory.Instance);
-        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(3));
 
-        var outcome = await SortRunner.RunAsync(options, services, null, timeout.Token);
+        var outcome = await new VirtualSort(new PlainTextAnnouncer(TextWriter.Null)).RunAsync(options);
 
         await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
         var parts = await log.GetPartsAsync(outcome.SessionId, default);

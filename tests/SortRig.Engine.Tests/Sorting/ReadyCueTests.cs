@@ -7,6 +7,7 @@ namespace SortRig.Engine.Tests.Sorting;
 
 /// <summary>The operator is told when to put the first part in: after the meter is set up, not while it connects.</summary>
 [Collection(ReliabilityCollection.Name)]
+[Trait(ReliabilityCollection.Clock, ReliabilityCollection.Wall)]
 public sealed class ReadyCueTests : IDisposable
 {
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-cue-").FullName;
