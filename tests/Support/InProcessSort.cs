@@ -44,13 +44,6 @@ internal sealed class InProcessSort
     }
 
     /// <summary>Polls until <paramref name="condition"/> holds; fails the test after <paramref name="limit"/>.</summary>
-    public static async Task UntilAsync(Func<bool> condition, TimeSpan limit, string what)
-    {
-        var deadline = DateTimeOffset.UtcNow + limit;
-        while (!condition())
-        {
-            Assert.True(DateTimeOffset.UtcNow < deadline, $"timed out waiting for {what}");
-            await Task.Delay(1);
-        }
-    }
+    public static Task UntilAsync(Func<bool> condition, TimeSpan limit, string what) =>
+        Eventually.HoldsAsync(condition, limit, what);
 }

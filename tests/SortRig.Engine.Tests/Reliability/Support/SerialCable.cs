@@ -102,15 +102,3 @@ internal sealed class SerialCable : IAsyncDisposable
         }
     }
 }
-
-/// <summary>A fact that needs socat: skipped only when socat is absent and CI is not "true".</summary>
-public sealed class SocatFactAttribute : FactAttribute
-{
-    public SocatFactAttribute()
-    {
-        if (!SerialCable.Available && Environment.GetEnvironmentVariable("CI") != "true")
-        {
-            Skip = "socat is not installed (apt-get install socat)";
-        }
-    }
-}

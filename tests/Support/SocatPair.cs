@@ -1,6 +1,6 @@
 using System.Diagnostics;
 
-namespace SortRig.Instruments.Tests.Support;
+namespace SortRig.Tests.Support;
 
 /// <summary>
 /// A real pseudo-terminal pair made by socat (pty,raw,echo=0 on both ends), so serial links are
@@ -21,9 +21,12 @@ internal sealed class SocatPair : IAsyncDisposable
 
     public string EndB { get; }
 
+    /// <summary>Whether socat is on the PATH.</summary>
+    public static bool Available => Which("socat") is not null;
+
     /// <summary>Null when socat can be used; otherwise why tests needing it are skipped. On CI (CI=true) never skipped.</summary>
     public static string? SkipReason() =>
-        Which("socat") is not null || Environment.GetEnvironmentVariable("CI") == "true"
+        Available || Environment.GetEnvironmentVariable("CI") == "true"
             ? null
             : "socat is not installed (apt-get install socat); serial link tests need a pseudo-terminal pair";
 
@@ -60,6 +63,8 @@ internal sealed class SocatPair : IAsyncDisposable
     {
         await StopAsync();
         _process.Dispose();
+        File.Delete(EndA); // a killed socat leaves its pty links behind
+        File.Delete(EndB);
     }
 
     private static string? Which(string name) =>
