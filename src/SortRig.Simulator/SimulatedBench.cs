@@ -27,7 +27,14 @@ public sealed partial class SimulatedBench : IAsyncDisposable
     /// <param name="options">Bench options; validated here (throws naming the bad option).</param>
     /// <param name="timeProvider">The bench clock; default <see cref="TimeProvider.System"/>. Use FakeTimeProvider in tests, <see cref="ScaledTimeProvider"/> to run fast.</param>
     /// <param name="loggerFactory">Logging; default none.</param>
-    public SimulatedBench(SimulatedBenchOptions options, TimeProvider? timeProvider = null, ILoggerFactory? loggerFactory = null)
+    /// <param name="operatorTimeProvider">The virtual operator's clock; default the bench clock. A test driving a
+    /// virtual clock gives the operator a view of its own, so that the driver tells the operator's waits from the
+    /// meter's.</param>
+    public SimulatedBench(
+        SimulatedBenchOptions options,
+        TimeProvider? timeProvider = null,
+        ILoggerFactory? loggerFactory = null,
+        TimeProvider? operatorTimeProvider = null)
     {
         ArgumentNullException.ThrowIfNull(options);
         Options = options.Validate();
@@ -41,7 +48,13 @@ public sealed partial class SimulatedBench : IAsyncDisposable
         _loose = new LooseParts(options.Reel, Reel.Count, SeedStreams.Derive(options.Seed, SeedStreams.LooseParts), physics);
         Scanner = new Scanner(_env, options.ScannerPartChannels, options.EffectivePt100Channel);
         Faults = new FaultInjector(options.Faults, SeedStreams.Derive(options.Seed, SeedStreams.Faults));
-        Operator = new VirtualOperator(options.Operator, Reel, Fixture, _env.Time, SeedStreams.Derive(options.Seed, SeedStreams.Operator), _loggers.CreateLogger<VirtualOperator>());
+        Operator = new VirtualOperator(
+            options.Operator,
+            Reel,
+            Fixture,
+            operatorTimeProvider ?? _env.Time,
+            SeedStreams.Derive(options.Seed, SeedStreams.Operator),
+            _loggers.CreateLogger<VirtualOperator>());
         var state = new MeterState();
         var engine = new MeasurementEngine(
             _env, Fixture, Scanner, new NoiseSource(SeedStreams.Derive(options.Seed, SeedStreams.Noise)),

@@ -1,5 +1,6 @@
 using MathNet.Numerics.Distributions;
 using MathNet.Numerics.Random;
+using SortRig.Engine.Simulation;
 using SortRig.Simulator;
 using SortRig.Simulator.Meter;
 using SortRig.Simulator.Operator;

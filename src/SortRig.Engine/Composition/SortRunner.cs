@@ -45,7 +45,11 @@ public static class SortRunner
                 var parts = options.Parts > 0 ? options.Parts : DemoBench.DefaultParts;
                 options.Parts = parts;
                 var benchOptions = DemoBench.For(options, parts);
-                bench = new SimulatedBench(hooks.Configure?.Invoke(benchOptions) ?? benchOptions, services.Time, services.Loggers);
+                bench = new SimulatedBench(
+                    hooks.Configure?.Invoke(benchOptions) ?? benchOptions,
+                    services.Time,
+                    services.Loggers,
+                    hooks.OperatorTime);
                 resource = hooks.Serve is { } serve
                     ? await serve(bench, ct).ConfigureAwait(false)
                     : $"TCPIP::127.0.0.1::{(await bench.StartTcpAsync(0, ct).ConfigureAwait(false)).Port}::SOCKET";
@@ -54,7 +58,8 @@ public static class SortRunner
             }
 
             ResourceStringParser.Parse(resource); // a bad resource fails here, before the log is opened
-            var connector = new MeterConnector(new MessageLinkFactory(services.Time), services.Time, services.Loggers);
+            var links = new MessageLinkFactory(services.LinkTime ?? services.Time);
+            var connector = new MeterConnector(links, services.Time, services.Loggers);
             await using var log = await PrecisionLogFactory.OpenAsync(
                 options.Database,
                 new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },

@@ -12,6 +12,10 @@ internal sealed record SimulatorHooks
     /// <summary>Adjusts the bench options built from the sort options (fault rates, operator patience).</summary>
     public Func<SimulatedBenchOptions, SimulatedBenchOptions>? Configure { get; init; }
 
+    /// <summary>The virtual operator's clock (<see cref="VirtualClock.OperatorView"/>); null: the session's
+    /// clock.</summary>
+    public TimeProvider? OperatorTime { get; init; }
+
     /// <summary>Called with the bench once it serves (tests read its truth and fault log).</summary>
     public Action<SimulatedBench>? Started { get; init; }
 

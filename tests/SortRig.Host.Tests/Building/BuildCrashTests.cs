@@ -1,8 +1,8 @@
-using Xunit.Abstractions;
-using SortRig.Host.Tests.Planning;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
+using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Building;
 

@@ -1,10 +1,9 @@
-using SortRig.Host.Tests.Reliability.Support;
-
 namespace SortRig.Host.Tests.Cli;
 
 /// <summary>
 /// The sort verb as a new user meets it, run as a process: a bad value is one line naming the flag as
-/// typed, exit code 2, no stack trace, and nothing is started or created (no database, no log folder).
+/// typed, exit code 2, no stack trace, and nothing is started or created (no database, no log folder;
+/// <see cref="BadInput"/>).
 /// </summary>
 public sealed class SortBadInputTests
 {
@@ -20,65 +19,16 @@ public sealed class SortBadInputTests
     [InlineData("--db", "/dev/null", "--db")] // a device: SQLite would leave a journal beside it
     [InlineData("--db", "/no-such-folder-sortrig/bench.db", "--db")] // was: two stack traces ending in "unable to open database file"
     [InlineData("--db", "/proc/bench.db", "--db")] // a folder that cannot be written, even by root
-    public async Task Sort_BadValue_OneLineNamingTheFlag_Exit2_NothingCreated(string flag, string value, string named)
-    {
-        var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
-        try
-        {
-            var run = await HostProcess.RunAsync(
-                dir.FullName, ["sort", flag, value, "--plain", "--no-speech"], null, null, null, TimeSpan.FromSeconds(60));
-
-            Assert.Equal(2, run.ExitCode);
-            var lines = run.Log.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
-            var line = Assert.Single(lines);
-            Assert.StartsWith("error: " + named + ":", line, StringComparison.Ordinal);
-            Assert.Contains(value, line, StringComparison.Ordinal);
-            Assert.DoesNotContain(run.Lines, l => l.TrimStart().StartsWith("at ", StringComparison.Ordinal));
-            Assert.Empty(dir.GetFileSystemInfos());
-        }
-        finally
-        {
-            dir.Delete(recursive: true);
-        }
-    }
+    public Task Sort_BadValue_OneLineNamingTheFlag_Exit2_NothingCreated(string flag, string value, string named) =>
+        BadInput.AssertRefusedAsync(["sort", flag, value, "--plain", "--no-speech"], named, value);
 
     [Fact]
-    public async Task Sort_SpeedWithARealMeter_Refused_Exit2()
-    {
-        var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
-        try
-        {
-            var run = await HostProcess.RunAsync(
-                dir.FullName, ["sort", "--speed", "5", "--resource", "TCPIP::127.0.0.1::5025::SOCKET"], null, null, null,
-                TimeSpan.FromSeconds(60));
-
-            Assert.Equal(2, run.ExitCode);
-            Assert.StartsWith("error: --speed:", run.Log.Trim(), StringComparison.Ordinal);
-            Assert.Empty(dir.GetFileSystemInfos());
-        }
-        finally
-        {
-            dir.Delete(recursive: true);
-        }
-    }
+    public Task Sort_SpeedWithARealMeter_Refused_Exit2() =>
+        BadInput.AssertRefusedAsync(["sort", "--speed", "5", "--resource", RealMeter], "--speed", "");
 
     [Fact]
-    public async Task Sort_PhysicsWithARealMeter_Refused_Exit2()
-    {
-        var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
-        try
-        {
-            var run = await HostProcess.RunAsync(
-                dir.FullName, ["sort", "--physics", "rich", "--resource", "TCPIP::127.0.0.1::5025::SOCKET"], null, null, null,
-                TimeSpan.FromSeconds(60));
+    public Task Sort_PhysicsWithARealMeter_Refused_Exit2() =>
+        BadInput.AssertRefusedAsync(["sort", "--physics", "rich", "--resource", RealMeter], "--physics", "");
 
-            Assert.Equal(2, run.ExitCode);
-            Assert.StartsWith("error: --physics:", run.Log.Trim(), StringComparison.Ordinal);
-            Assert.Empty(dir.GetFileSystemInfos());
-        }
-        finally
-        {
-            dir.Delete(recursive: true);
-        }
-    }
+    private const string RealMeter = "TCPIP::127.0.0.1::5025::SOCKET";
 }

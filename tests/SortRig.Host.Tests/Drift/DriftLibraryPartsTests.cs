@@ -10,6 +10,7 @@ using SortRig.Host.LibraryVerb;
 using SortRig.Host.Tests.Library;
 using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 
 namespace SortRig.Host.Tests.Drift;
 

@@ -3,6 +3,7 @@ using System.Text.RegularExpressions;
 using SortRig.Host.Tests.Lab.Support;
 using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Lab;

@@ -1,8 +1,7 @@
 using SortRig.Engine.DriftLogging;
-using SortRig.Host.Tests.Drift;
 using SortRig.Host.Tests.Lab.Support;
-using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 
 namespace SortRig.Host.Tests.Lab;
 

@@ -3,10 +3,9 @@ using SortRig.Engine.DriftLogging;
 using SortRig.Engine.Events;
 using SortRig.Engine.Sorting;
 using SortRig.Host.Tests.Lab.Support;
-using SortRig.Host.Tests.Reliability.Support;
-using SortRig.Host.Tests.Sorting;
 using SortRig.Simulator;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Lab;

@@ -4,6 +4,7 @@ using SortRig.Host.OrderVerb;
 using SortRig.Host.Tests.Library;
 using SortRig.Host.Tests.Planning;
 using SortRig.Host.VerbSupport;
+using SortRig.Tests.Support;
 
 namespace SortRig.Host.Tests.OrderVerb;
 

@@ -1,10 +1,11 @@
 using System.CommandLine;
+using SortRig.Engine.Picking;
 using SortRig.Host.Cli;
 using SortRig.Host.LibraryVerb;
 using SortRig.Host.PlanVerb;
 using SortRig.Host.Tests.Library;
 using SortRig.Host.VerbSupport;
-using SortRig.Engine.Picking;
+using SortRig.Tests.Support;
 
 namespace SortRig.Host.Tests.Planning;
 

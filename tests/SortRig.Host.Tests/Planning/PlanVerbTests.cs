@@ -4,6 +4,7 @@ using SortRig.Host.PlanVerb;
 using SortRig.Host.Tests.Library;
 using SortRig.Host.VerbSupport;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 
 namespace SortRig.Host.Tests.Planning;
 

@@ -1,12 +1,12 @@
 using System.Globalization;
-using Xunit.Abstractions;
 using SortRig.Engine.Simulation;
 using SortRig.Engine.Sorting;
 using SortRig.Host.Tests.Reliability.Support;
-using SortRig.Host.Tests.Sorting;
 using SortRig.Simulator;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
+using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Reliability;
 

@@ -1,9 +1,7 @@
 using CsvHelper;
-using Spectre.Console;
 using SortRig.Engine.DriftLogging;
 using SortRig.Host.Cli;
 using SortRig.Host.ReportVerb;
-using SortRig.Host.Tests.Drift;
 using SortRig.Measurement.Uncertainty;
 using SortRig.Planning.Cups;
 using SortRig.Reporting.Reports;
@@ -11,6 +9,8 @@ using SortRig.Simulator;
 using SortRig.Simulator.Physics;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
+using Spectre.Console;
 
 namespace SortRig.Host.Tests.Reports;
 

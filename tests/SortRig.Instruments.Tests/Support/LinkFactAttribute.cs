@@ -1,6 +1,7 @@
 using System.Reflection;
 using Xunit.Abstractions;
 using Xunit.Sdk;
+using SortRig.Tests.Support;
 
 namespace SortRig.Instruments.Tests.Support;
 

@@ -3,6 +3,7 @@ using System.Text;
 using SortRig.Instruments.Resources;
 using SortRig.Instruments.Tests.Support;
 using SortRig.Instruments.Transports;
+using SortRig.Tests.Support;
 
 namespace SortRig.Instruments.Tests.Transports;
 

@@ -1,6 +1,7 @@
 using System.IO.Ports;
 using SortRig.Simulator.Faults;
 using SortRig.Simulator.Tests.Support;
+using SortRig.Tests.Support;
 
 namespace SortRig.Simulator.Tests.Serving;
 
@@ -10,10 +11,10 @@ public sealed class SerialServerTests
     [SocatFact]
     public async Task Idn_OverSerial_RepliesOneLine()
     {
-        using var pair = await SocatPair.StartAsync();
+        await using var pair = await SocatPair.StartAsync();
         await using var bench = new SimulatedBench(Benches.Manual(), new ScaledTimeProvider(1000));
-        await bench.StartSerialAsync(pair.DeviceSide);
-        using var port = Open(pair.ClientSide);
+        await bench.StartSerialAsync(pair.EndA);
+        using var port = Open(pair.EndB);
 
         Assert.Equal(bench.Identity, await QueryAsync(port, "*IDN?"));
         Assert.Equal("+9.90000000E+37", await QueryAsync(port, "READ?"));
@@ -22,11 +23,11 @@ public sealed class SerialServerTests
     [SocatFact]
     public async Task Drop_OverSerial_GoesSilentThenAnswersAgain()
     {
-        using var pair = await SocatPair.StartAsync();
+        await using var pair = await SocatPair.StartAsync();
         var clock = Benches.FakeClock();
         await using var bench = new SimulatedBench(Benches.Manual(), clock);
-        await bench.StartSerialAsync(pair.DeviceSide);
-        using var port = Open(pair.ClientSide);
+        await bench.StartSerialAsync(pair.EndA);
+        using var port = Open(pair.EndB);
         bench.Faults.Inject(FaultKind.DropConnection);
 
         await Assert.ThrowsAsync<TimeoutException>(() => QueryAsync(port, "*IDN?", TimeSpan.FromMilliseconds(300)));

@@ -1,4 +1,5 @@
 using Microsoft.Extensions.Time.Testing;
+using SortRig.Tests.Support;
 
 namespace SortRig.Simulator.Tests.Support;
 
@@ -24,18 +25,7 @@ internal static class VirtualTime
         return await task;
     }
 
-    /// <summary>Polls a condition in real time (for work finishing on the thread pool).</summary>
-    public static async Task EventuallyAsync(Func<bool> condition, string what)
-    {
-        var deadline = DateTime.UtcNow + TimeSpan.FromSeconds(10);
-        while (!condition())
-        {
-            if (DateTime.UtcNow > deadline)
-            {
-                throw new TimeoutException($"Timed out waiting for: {what}");
-            }
-
-            await Task.Delay(2);
-        }
-    }
+    /// <summary>Polls a condition in real time (for work finishing on the thread pool), at most 10 s.</summary>
+    public static Task EventuallyAsync(Func<bool> condition, string what) =>
+        Eventually.HoldsAsync(condition, TimeSpan.FromSeconds(10), what);
 }
