@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text.RegularExpressions;
 using SortRig.Host.Tests.Reliability;
 using SortRig.Host.Tests.Reliability.Support;
+using SortRig.Tests.Support;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
 using Xunit.Abstractions;

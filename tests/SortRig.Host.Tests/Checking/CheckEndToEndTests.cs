@@ -4,6 +4,7 @@ using SortRig.Host.Tests.Reliability.Support;
 using SortRig.Host.Tests.Sorting;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 
 namespace SortRig.Host.Tests.Checking;
 
@@ -13,6 +14,7 @@ namespace SortRig.Host.Tests.Checking;
 /// are flagged, measured again after the operator's answer, and no part ends in the wrong cup against the simulator's
 /// truth (its side channel, the outside reference). Self-contained: one file, the shared harness only.
 /// </summary>
+[Collection(ReliabilityCollection.Name)]
 public sealed class CheckEndToEndTests : IDisposable
 {
     private const string RemeasuredAs = SortingLoop.RemeasuredAs;

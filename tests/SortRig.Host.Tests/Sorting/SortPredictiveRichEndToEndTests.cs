@@ -11,6 +11,7 @@ using SortRig.Simulator;
 using SortRig.Simulator.Physics;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Sorting;
@@ -21,6 +22,7 @@ namespace SortRig.Host.Tests.Sorting;
 /// log. The simulator's truth (its side channel) is the outside reference the cups are checked against; the
 /// session summary's pace (parts per hour) is printed to the test output.
 /// </summary>
+[Collection(ReliabilityCollection.Name)]
 public sealed class SortPredictiveRichEndToEndTests(ITestOutputHelper output) : IDisposable
 {
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-e2e-rich-").FullName;
