@@ -19,7 +19,10 @@ if (args.Length > 0 && args[0] == "settle-diag")
 
 if (args.Length > 0 && args[0] == "order")
 {
-    return await SortRig.Bench.Ordering.OrderBenchmark.RunAsync(args.Length > 1 ? args[1] : "all", CancellationToken.None);
+    return await SortRig.Bench.Ordering.OrderBenchmark.RunAsync(
+        args.Length > 1 ? args[1] : "all",
+        CancellationToken.None
+    );
 }
 
 if (args.Length > 0 && args[0] == "build")
@@ -39,8 +42,17 @@ if (args.Length > 0 && args[0] == "lab")
 
 if (args.Length == 4 && args[0] == "lab-worker")
 {
-    return await SortRig.Bench.Lab.LabWorker.RunAsync(args[1], args[2], double.Parse(args[3], System.Globalization.CultureInfo.InvariantCulture), CancellationToken.None);
+    return await SortRig.Bench.Lab.LabWorker.RunAsync(
+        args[1],
+        args[2],
+        double.Parse(args[3], System.Globalization.CultureInfo.InvariantCulture),
+        CancellationToken.None
+    );
 }
 
-Console.WriteLine("usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning [gap|reels|big|cups|cups-seeds|show:REEL:K:SEED|timing|probe], settle [parts], order [quad], drift, lab, build [seeds])");
+Console.WriteLine(
+    "usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning "
+        + "[gap|reels|big|cups|cups-seeds|show:REEL:K:SEED|timing|probe], settle [parts], order [quad], drift, lab, "
+        + "build [seeds])"
+);
 return 0;

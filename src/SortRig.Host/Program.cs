@@ -21,7 +21,10 @@ internal static class Program
     public static ParseResult Parse(IReadOnlyList<string> args)
     {
         // Named as README and help call the program (scripts/sortrig), not after the assembly.
-        var root = new Command("sortrig", "SortRig: sorts and matches resistors at the bench through a SCPI multimeter.")
+        var root = new Command(
+            "sortrig",
+            "SortRig: sorts and matches resistors at the bench through a SCPI multimeter."
+        )
         {
             new HelpOption(),
             new VersionOption(),

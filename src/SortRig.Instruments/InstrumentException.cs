@@ -8,7 +8,5 @@ public abstract class InstrumentException : Exception
 {
     /// <summary>Creates the exception with a message and an optional cause.</summary>
     protected InstrumentException(string message, Exception? innerException = null)
-        : base(message, innerException)
-    {
-    }
+        : base(message, innerException) { }
 }

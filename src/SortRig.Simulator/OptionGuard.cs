@@ -7,7 +7,11 @@ internal static class OptionGuard
     {
         if (!double.IsFinite(value) || value < min || value > max)
         {
-            throw new ArgumentOutOfRangeException(option, value, $"{option} must be between {min} and {max}{Unit(unit)}; was {value}.");
+            throw new ArgumentOutOfRangeException(
+                option,
+                value,
+                $"{option} must be between {min} and {max}{Unit(unit)}; was {value}."
+            );
         }
     }
 
@@ -15,7 +19,11 @@ internal static class OptionGuard
     {
         if (value < min || value > max)
         {
-            throw new ArgumentOutOfRangeException(option, value, $"{option} must be between {min} and {max}; was {value}.");
+            throw new ArgumentOutOfRangeException(
+                option,
+                value,
+                $"{option} must be between {min} and {max}; was {value}."
+            );
         }
     }
 
@@ -23,7 +31,11 @@ internal static class OptionGuard
     {
         if (value < min || value > max)
         {
-            throw new ArgumentOutOfRangeException(option, value, $"{option} must be between {min} and {max}; was {value}.");
+            throw new ArgumentOutOfRangeException(
+                option,
+                value,
+                $"{option} must be between {min} and {max}; was {value}."
+            );
         }
     }
 

@@ -12,13 +12,18 @@ public sealed class ScaledTimeProvider : TimeProvider
     private readonly long _originTimestamp;
 
     /// <summary>Creates a scaled clock.</summary>
-    /// <param name="speed">How many times faster than <paramref name="inner"/>; above 0 and at most 10 000 (1 keeps the pace).</param>
+    /// <param name="speed">How many times faster than <paramref name="inner"/>; above 0 and at most 10 000 (1 keeps the
+    /// pace).</param>
     /// <param name="inner">The clock to scale; default <see cref="TimeProvider.System"/>.</param>
     public ScaledTimeProvider(double speed, TimeProvider? inner = null)
     {
         if (!double.IsFinite(speed) || speed <= 0 || speed > 10_000)
         {
-            throw new ArgumentOutOfRangeException(nameof(speed), speed, $"speed must be above 0 and at most 10000; was {speed}.");
+            throw new ArgumentOutOfRangeException(
+                nameof(speed),
+                speed,
+                $"speed must be above 0 and at most 10000; was {speed}."
+            );
         }
 
         Speed = speed;
@@ -60,7 +65,8 @@ public sealed class ScaledTimeProvider : TimeProvider
 
     private sealed class ScaledTimer(ITimer inner, ScaledTimeProvider owner) : ITimer
     {
-        public bool Change(TimeSpan dueTime, TimeSpan period) => inner.Change(owner.ToInner(dueTime), owner.ToInner(period));
+        public bool Change(TimeSpan dueTime, TimeSpan period) =>
+            inner.Change(owner.ToInner(dueTime), owner.ToInner(period));
 
         public void Dispose() => inner.Dispose();
 

@@ -57,7 +57,14 @@ public sealed partial class SimulatedBench
                 throw new InvalidOperationException($"Already serving serial on {_serial.Path}.");
             }
 
-            _serial = SerialScpiServer.Start(_device, devicePath, Options.SerialBaudRate, Time, _loggers.CreateLogger<SerialScpiServer>(), _lifetime.Token);
+            _serial = SerialScpiServer.Start(
+                _device,
+                devicePath,
+                Options.SerialBaudRate,
+                Time,
+                _loggers.CreateLogger<SerialScpiServer>(),
+                _lifetime.Token
+            );
         }
 
         StartOperatorIfAuto();

@@ -15,18 +15,28 @@ public sealed partial class SimulatedBench
     public static Task RunStandaloneAsync(SimulatedBenchOptions options, CancellationToken ct) =>
         RunStandaloneAsync(options, null, null, ct);
 
-    /// <summary>As <see cref="RunStandaloneAsync(SimulatedBenchOptions, CancellationToken)"/>, with logging and a started callback.</summary>
+    /// <summary>As <see cref="RunStandaloneAsync(SimulatedBenchOptions, CancellationToken)"/>, with logging and a
+    /// started callback.</summary>
     /// <param name="options">Bench options; at least one of TcpPort and SerialPath must be set.</param>
     /// <param name="loggerFactory">Logging; default none.</param>
-    /// <param name="started">Called once serving, with the running bench (e.g. to print <see cref="TcpEndpoint"/>).</param>
+    /// <param name="started">Called once serving, with the running bench (e.g. to print <see
+    /// cref="TcpEndpoint"/>).</param>
     /// <param name="ct">Stops the bench; the task then completes normally.</param>
-    public static async Task RunStandaloneAsync(SimulatedBenchOptions options, ILoggerFactory? loggerFactory, Action<SimulatedBench>? started, CancellationToken ct)
+    public static async Task RunStandaloneAsync(
+        SimulatedBenchOptions options,
+        ILoggerFactory? loggerFactory,
+        Action<SimulatedBench>? started,
+        CancellationToken ct
+    )
     {
         ArgumentNullException.ThrowIfNull(options);
         options.Validate();
         if (options.TcpPort is null && options.SerialPath is null)
         {
-            throw new ArgumentException("Set SimulatedBenchOptions.TcpPort or SimulatedBenchOptions.SerialPath (or both) to run standalone.", nameof(options));
+            throw new ArgumentException(
+                "Set SimulatedBenchOptions.TcpPort or SimulatedBenchOptions.SerialPath (or both) to run standalone.",
+                nameof(options)
+            );
         }
 
         var clock = options.TimeScale == 1 ? TimeProvider.System : new ScaledTimeProvider(options.TimeScale);

@@ -25,7 +25,8 @@ public sealed partial class SimulatedBench : IAsyncDisposable
 
     /// <summary>Builds the bench; nothing runs until a Start method is called.</summary>
     /// <param name="options">Bench options; validated here (throws naming the bad option).</param>
-    /// <param name="timeProvider">The bench clock; default <see cref="TimeProvider.System"/>. Use FakeTimeProvider in tests, <see cref="ScaledTimeProvider"/> to run fast.</param>
+    /// <param name="timeProvider">The bench clock; default <see cref="TimeProvider.System"/>. Use FakeTimeProvider in
+    /// tests, <see cref="ScaledTimeProvider"/> to run fast.</param>
     /// <param name="loggerFactory">Logging; default none.</param>
     /// <param name="operatorTimeProvider">The virtual operator's clock; default the bench clock. A test driving a
     /// virtual clock gives the operator a view of its own, so that the driver tells the operator's waits from the
@@ -34,18 +35,29 @@ public sealed partial class SimulatedBench : IAsyncDisposable
         SimulatedBenchOptions options,
         TimeProvider? timeProvider = null,
         ILoggerFactory? loggerFactory = null,
-        TimeProvider? operatorTimeProvider = null)
+        TimeProvider? operatorTimeProvider = null
+    )
     {
         ArgumentNullException.ThrowIfNull(options);
         Options = options.Validate();
         _loggers = loggerFactory ?? NullLoggerFactory.Instance;
         var physics = options.Physics;
-        var wander = physics.IsRich ? new AmbientWander(physics.AmbientWanderKelvin, SeedStreams.Derive(options.Seed, SeedStreams.Wander)) : null;
+        var wander = physics.IsRich
+            ? new AmbientWander(physics.AmbientWanderKelvin, SeedStreams.Derive(options.Seed, SeedStreams.Wander))
+            : null;
         _env = new BenchEnvironment(timeProvider ?? TimeProvider.System, options.Ambient, wander);
         Reel = PartThermal.Enrich(
-            ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel)), physics, SeedStreams.Derive(options.Seed, SeedStreams.Physics));
+            ReelBuilder.Build(options.Reel, SeedStreams.Derive(options.Seed, SeedStreams.Reel)),
+            physics,
+            SeedStreams.Derive(options.Seed, SeedStreams.Physics)
+        );
         Fixture = new Fixture(_env, physics, SeedStreams.Derive(options.Seed, SeedStreams.Excess));
-        _loose = new LooseParts(options.Reel, Reel.Count, SeedStreams.Derive(options.Seed, SeedStreams.LooseParts), physics);
+        _loose = new LooseParts(
+            options.Reel,
+            Reel.Count,
+            SeedStreams.Derive(options.Seed, SeedStreams.LooseParts),
+            physics
+        );
         Scanner = new Scanner(_env, options.ScannerPartChannels, options.EffectivePt100Channel);
         Faults = new FaultInjector(options.Faults, SeedStreams.Derive(options.Seed, SeedStreams.Faults));
         Operator = new VirtualOperator(
@@ -54,28 +66,38 @@ public sealed partial class SimulatedBench : IAsyncDisposable
             Fixture,
             operatorTimeProvider ?? _env.Time,
             SeedStreams.Derive(options.Seed, SeedStreams.Operator),
-            _loggers.CreateLogger<VirtualOperator>());
+            _loggers.CreateLogger<VirtualOperator>()
+        );
         var state = new MeterState();
         var engine = new MeasurementEngine(
-            _env, Fixture, Scanner, new NoiseSource(SeedStreams.Derive(options.Seed, SeedStreams.Noise)),
-            new ContactBounce(options.ContactBounce, SeedStreams.Derive(options.Seed, SeedStreams.Bounce)), state, options.LineFrequencyHz, options.LeadResistanceOhms,
-            new RangeGains(options.RangeGainErrorPpm, SeedStreams.Derive(options.Seed, SeedStreams.Gain)));
-        _device = new ScpiDevice(new DeviceContext
-        {
-            Identity = Identity,
-            Environment = _env,
-            State = state,
-            Errors = new ErrorQueue(),
-            Status = new StatusRegisters(),
-            Engine = engine,
-            Acquisition = new Acquisition(engine, state),
-            Fixture = Fixture,
-            Scanner = Scanner,
-            Reel = Reel,
-            Operator = Operator,
-            Faults = Faults,
-            Lifetime = _lifetime.Token,
-        });
+            _env,
+            Fixture,
+            Scanner,
+            new NoiseSource(SeedStreams.Derive(options.Seed, SeedStreams.Noise)),
+            new ContactBounce(options.ContactBounce, SeedStreams.Derive(options.Seed, SeedStreams.Bounce)),
+            state,
+            options.LineFrequencyHz,
+            options.LeadResistanceOhms,
+            new RangeGains(options.RangeGainErrorPpm, SeedStreams.Derive(options.Seed, SeedStreams.Gain))
+        );
+        _device = new ScpiDevice(
+            new DeviceContext
+            {
+                Identity = Identity,
+                Environment = _env,
+                State = state,
+                Errors = new ErrorQueue(),
+                Status = new StatusRegisters(),
+                Engine = engine,
+                Acquisition = new Acquisition(engine, state),
+                Fixture = Fixture,
+                Scanner = Scanner,
+                Reel = Reel,
+                Operator = Operator,
+                Faults = Faults,
+                Lifetime = _lifetime.Token,
+            }
+        );
     }
 
     /// <summary>The validated options.</summary>
@@ -176,7 +198,8 @@ public sealed partial class SimulatedBench : IAsyncDisposable
         }
     }
 
-    /// <summary>In-process SCPI (tests): runs one program message as a client would; returns the reply or null.</summary>
+    /// <summary>In-process SCPI (tests): runs one program message as a client would; returns the reply or
+    /// null.</summary>
     internal Task<string?> ExecuteAsync(string message, CancellationToken ct = default) =>
         _device.ExecuteAsync(message, new ScpiSession(), null, ct);
 

@@ -9,8 +9,8 @@ namespace SortRig.Storage;
 public static class PrecisionLogFactory
 {
     private const string Expected =
-        "expected a SQLite file ('Data Source=sortrig.db' or a bare path such as /var/lib/sortrig/log.db) " +
-        "or PostgreSQL ('Host=127.0.0.1;Port=5432;Database=sortrig;Username=bench')";
+        "expected a SQLite file ('Data Source=sortrig.db' or a bare path such as /var/lib/sortrig/log.db) "
+        + "or PostgreSQL ('Host=127.0.0.1;Port=5432;Database=sortrig;Username=bench')";
 
     /// <summary>
     /// Tells the engine from a connection string: a bare path or one with Data Source/DataSource/Filename is SQLite,
@@ -36,7 +36,11 @@ public static class PrecisionLogFactory
         }
         catch (ArgumentException e)
         {
-            throw new ArgumentException($"Connection string is malformed ({e.Message}); {Expected}.", nameof(connectionString), e);
+            throw new ArgumentException(
+                $"Connection string is malformed ({e.Message}); {Expected}.",
+                nameof(connectionString),
+                e
+            );
         }
 
         if (builder.ContainsKey("Host") || builder.ContainsKey("Server"))
@@ -56,7 +60,8 @@ public static class PrecisionLogFactory
     /// Checks a connection string without opening anything: the engine is known, and a SQLite path is neither a folder
     /// nor a device. Verbs call it before they start, so a bad --db is one line and nothing is created.
     /// </summary>
-    /// <exception cref="ArgumentException">The string names no engine, or a SQLite path that is a folder or a device.</exception>
+    /// <exception cref="ArgumentException">The string names no engine, or a SQLite path that is a folder or a
+    /// device.</exception>
     /// <exception cref="StorageException">The SQLite file's folder does not exist or cannot be written.</exception>
     public static void CheckTarget(string connectionString)
     {
@@ -70,7 +75,10 @@ public static class PrecisionLogFactory
             : new Microsoft.Data.Sqlite.SqliteConnectionStringBuilder { DataSource = connectionString.Trim() };
         if (!string.IsNullOrWhiteSpace(builder.DataSource) && builder.DataSource != ":memory:")
         {
-            SqlitePrecisionLog.RequireFilePath(builder.DataSource, writes: builder.Mode != Microsoft.Data.Sqlite.SqliteOpenMode.ReadOnly);
+            SqlitePrecisionLog.RequireFilePath(
+                builder.DataSource,
+                writes: builder.Mode != Microsoft.Data.Sqlite.SqliteOpenMode.ReadOnly
+            );
         }
     }
 
@@ -79,13 +87,21 @@ public static class PrecisionLogFactory
     /// <param name="options">Options; null for defaults.</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
     /// <exception cref="StorageException">The store cannot be opened or migrated.</exception>
-    public static async Task<IPrecisionLog> OpenAsync(string connectionString, PrecisionLogOptions? options, CancellationToken cancellationToken)
+    public static async Task<IPrecisionLog> OpenAsync(
+        string connectionString,
+        PrecisionLogOptions? options,
+        CancellationToken cancellationToken
+    )
     {
         options ??= new PrecisionLogOptions();
         return DetectEngine(connectionString) switch
         {
-            StorageEngine.Postgres => await PostgresPrecisionLog.OpenAsync(connectionString, options, null, cancellationToken).ConfigureAwait(false),
-            _ => await SqlitePrecisionLog.OpenAsync(connectionString, options, null, cancellationToken).ConfigureAwait(false),
+            StorageEngine.Postgres => await PostgresPrecisionLog
+                .OpenAsync(connectionString, options, null, cancellationToken)
+                .ConfigureAwait(false),
+            _ => await SqlitePrecisionLog
+                .OpenAsync(connectionString, options, null, cancellationToken)
+                .ConfigureAwait(false),
         };
     }
 }

@@ -21,7 +21,8 @@ public sealed class CpSatRefereeTests
         "  - { name: A, nominal: 10k }\n  - { name: B, nominal: 10k }\n  - { name: C, nominal: 10k }\n",
         "  - { name: A, nominal: 10k }\n  - { name: B, nominal: 20k }\n  - { name: C, nominal: 10k }\n",
         "  - { name: A, nominal: 10k, pairs: [parallel] }\n  - { name: B, nominal: 10k, pairs: [parallel] }\n",
-        "  - { name: A, nominal: 10k, pairs: [parallel] }\n  - { name: B, nominal: 20k, pairs: [series] }\n  - { name: C, nominal: 10k }\n",
+        "  - { name: A, nominal: 10k, pairs: [parallel] }\n  - { name: B, nominal: 20k, pairs: [series] }\n  - { "
+            + "name: C, nominal: 10k }\n",
     ];
 
     public static TheoryData<int> Cases => new(Enumerable.Range(0, 32));
@@ -31,13 +32,19 @@ public sealed class CpSatRefereeTests
     public void ExactAssembler_MatchesCpSat(int seed)
     {
         var rng = new Random(90_000 + seed);
-        var recipe = RecipeLoader.Load($"recipe: cp{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}", "cp.yaml");
+        var recipe = RecipeLoader.Load(
+            $"recipe: cp{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}",
+            "cp.yaml"
+        );
         var parts = Parts(rng, rng.Next(9, 13));
         var mine = new SetAssembler().Assemble(recipe, parts);
         var (count, cpScore) = SolveWithCpSat(recipe, parts);
         Assert.Equal(AssemblyMethod.Exact, mine.Method);
         Assert.Equal(count, mine.Sets.Count);
-        Assert.True(mine.TotalScore <= cpScore + 1e-9, $"assembler score {mine.TotalScore} > CP-SAT solution's {cpScore}");
+        Assert.True(
+            mine.TotalScore <= cpScore + 1e-9,
+            $"assembler score {mine.TotalScore} > CP-SAT solution's {cpScore}"
+        );
     }
 
     [Theory]
@@ -47,9 +54,14 @@ public sealed class CpSatRefereeTests
         // The reel-scale path (exact search off, windows that hold two sets) on 12 parts, more than the brute force
         // can take: its proven bound must not fall below CP-SAT's optimum, its count must not exceed it.
         var rng = new Random(95_000 + seed);
-        var recipe = RecipeLoader.Load($"recipe: cpl{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}", "cpl.yaml");
+        var recipe = RecipeLoader.Load(
+            $"recipe: cpl{seed}\nform: matched\nmatch-ppm: 1000\npositions:\n{s_shapes[seed % s_shapes.Length]}",
+            "cpl.yaml"
+        );
         var parts = Parts(rng, 12);
-        var mine = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)).Assemble(recipe, parts);
+        var mine = new SetAssembler(
+            new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)
+        ).Assemble(recipe, parts);
         // Under load CP-SAT may stop at its time limit: then its best solution and its own bound bracket the optimum.
         var (found, cpBound) = SolveWithCpSat(recipe, parts, requireOptimal: false);
         Assert.True(mine.Sets.Count <= cpBound, $"{mine.Sets.Count} sets > CP-SAT bound {cpBound}");
@@ -58,13 +70,26 @@ public sealed class CpSatRefereeTests
 
     public static TheoryData<int> Larger => new(Enumerable.Range(0, 12));
 
-    private static List<PartCandidate> Parts(Random rng, int count) => Enumerable.Range(1, count).Select(i =>
-    {
-        var n = rng.Next(3) == 0 ? 20e3 : 10e3;
-        var v = n * (1 + (700e-6 * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble())));
-        var u = v * rng.NextDouble() * 120e-6;
-        return new PartCandidate(i, n, new MeasuredValue(v, u, u / 2), null);
-    }).ToList();
+    private static List<PartCandidate> Parts(Random rng, int count) =>
+        Enumerable
+            .Range(1, count)
+            .Select(i =>
+            {
+                var n = rng.Next(3) == 0 ? 20e3 : 10e3;
+                var v =
+                    n
+                    * (
+                        1
+                        + (
+                            700e-6
+                            * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble()))
+                            * Math.Cos(2 * Math.PI * rng.NextDouble())
+                        )
+                    );
+                var u = v * rng.NextDouble() * 120e-6;
+                return new PartCandidate(i, n, new MeasuredValue(v, u, u / 2), null);
+            })
+            .ToList();
 
     private sealed record Cand(int[] Parts, double Value, double U, double Nominal)
     {
@@ -75,9 +100,18 @@ public sealed class CpSatRefereeTests
 
     private static List<Cand> Candidates(PositionSpec pos, List<PartCandidate> parts)
     {
-        var list = parts.Select((p, i) => (p, i)).Where(t => t.p.Nominal == pos.Nominal)
-            .Select(t => new Cand([t.i], t.p.Value.Value, t.p.Value.ExpandedTransfer, pos.Nominal)).ToList();
-        foreach (var (flag, partNominal) in new[] { (PairBuilds.Series, pos.Nominal / 2), (PairBuilds.Parallel, pos.Nominal * 2) })
+        var list = parts
+            .Select((p, i) => (p, i))
+            .Where(t => t.p.Nominal == pos.Nominal)
+            .Select(t => new Cand([t.i], t.p.Value.Value, t.p.Value.ExpandedTransfer, pos.Nominal))
+            .ToList();
+        foreach (
+            var (flag, partNominal) in new[]
+            {
+                (PairBuilds.Series, pos.Nominal / 2),
+                (PairBuilds.Parallel, pos.Nominal * 2),
+            }
+        )
         {
             if (!pos.Pairs.HasFlag(flag))
             {
@@ -89,10 +123,20 @@ public sealed class CpSatRefereeTests
             {
                 foreach (var b in idx.Where(b => b > a))
                 {
-                    double r1 = parts[a].Value.Value, r2 = parts[b].Value.Value, u1 = parts[a].Value.ExpandedTransfer, u2 = parts[b].Value.ExpandedTransfer;
-                    list.Add(flag == PairBuilds.Series
-                        ? new Cand([a, b], r1 + r2, u1 + u2, pos.Nominal)
-                        : new Cand([a, b], r1 * r2 / (r1 + r2), (Math.Pow(r2 / (r1 + r2), 2) * u1) + (Math.Pow(r1 / (r1 + r2), 2) * u2), pos.Nominal));
+                    double r1 = parts[a].Value.Value,
+                        r2 = parts[b].Value.Value,
+                        u1 = parts[a].Value.ExpandedTransfer,
+                        u2 = parts[b].Value.ExpandedTransfer;
+                    list.Add(
+                        flag == PairBuilds.Series
+                            ? new Cand([a, b], r1 + r2, u1 + u2, pos.Nominal)
+                            : new Cand(
+                                [a, b],
+                                r1 * r2 / (r1 + r2),
+                                (Math.Pow(r2 / (r1 + r2), 2) * u1) + (Math.Pow(r1 / (r1 + r2), 2) * u2),
+                                pos.Nominal
+                            )
+                    );
                 }
             }
         }
@@ -112,7 +156,11 @@ public sealed class CpSatRefereeTests
         return (found, bound);
     }
 
-    private static (int Found, int Bound, int Count, double Score) Solve(Recipe recipe, List<PartCandidate> parts, bool requireOptimal)
+    private static (int Found, int Bound, int Count, double Score) Solve(
+        Recipe recipe,
+        List<PartCandidate> parts,
+        bool requireOptimal
+    )
     {
         var model = new CpModel();
         var cands = recipe.Positions.Select(p => Candidates(p, parts)).ToList();
@@ -141,10 +189,16 @@ public sealed class CpSatRefereeTests
 
                 // Identical neighbouring positions take their candidates in increasing order (symmetry breaking).
                 var prev = k > 0 ? recipe.Positions[k - 1] : null;
-                if (prev is not null && prev.Nominal == recipe.Positions[k].Nominal && prev.Pairs == recipe.Positions[k].Pairs)
+                if (
+                    prev is not null
+                    && prev.Nominal == recipe.Positions[k].Nominal
+                    && prev.Pairs == recipe.Positions[k].Pairs
+                )
                 {
                     var weights = Enumerable.Range(0, cands[k].Count).Select(i => (long)i).ToArray();
-                    model.Add(LinearExpr.WeightedSum(x[s][k - 1], weights) < LinearExpr.WeightedSum(x[s][k], weights)).OnlyEnforceIf(y[s]);
+                    model
+                        .Add(LinearExpr.WeightedSum(x[s][k - 1], weights) < LinearExpr.WeightedSum(x[s][k], weights))
+                        .OnlyEnforceIf(y[s]);
                 }
             }
 
@@ -153,7 +207,9 @@ public sealed class CpSatRefereeTests
             {
                 for (var b = a; b < chosen.Count; b++)
                 {
-                    var hull = Math.Log(Math.Max(chosen[a].Cand.LinHi, chosen[b].Cand.LinHi)) - Math.Log(Math.Min(chosen[a].Cand.LinLo, chosen[b].Cand.LinLo));
+                    var hull =
+                        Math.Log(Math.Max(chosen[a].Cand.LinHi, chosen[b].Cand.LinHi))
+                        - Math.Log(Math.Min(chosen[a].Cand.LinLo, chosen[b].Cand.LinLo));
                     if ((long)Math.Round(hull * Scale) > window)
                     {
                         model.AddBoolOr(a == b ? [chosen[a].Var.Not()] : [chosen[a].Var.Not(), chosen[b].Var.Not()]);
@@ -181,7 +237,10 @@ public sealed class CpSatRefereeTests
         }
 
         Assert.True(status is CpSolverStatus.Optimal or CpSolverStatus.Feasible, $"CP-SAT: {status}");
-        var (found, bound) = ((int)Math.Round(solver.ObjectiveValue), (int)Math.Floor(solver.BestObjectiveBound + 1e-6));
+        var (found, bound) = (
+            (int)Math.Round(solver.ObjectiveValue),
+            (int)Math.Floor(solver.BestObjectiveBound + 1e-6)
+        );
 
         var count = 0;
         var score = 0.0;
@@ -193,7 +252,10 @@ public sealed class CpSatRefereeTests
             }
 
             count++;
-            var chosen = Enumerable.Range(0, recipe.Positions.Count).Select(k => cands[k][Array.FindIndex(x[s][k], v => solver.BooleanValue(v))]).ToList();
+            var chosen = Enumerable
+                .Range(0, recipe.Positions.Count)
+                .Select(k => cands[k][Array.FindIndex(x[s][k], v => solver.BooleanValue(v))])
+                .ToList();
             score += ((chosen.Max(c => c.LinHi) / chosen.Min(c => c.LinLo)) - 1) * 1e6 / recipe.MatchTolerancePpm;
         }
 

@@ -59,7 +59,12 @@ public sealed class ScaledTimeProviderTests
         var inner = Benches.FakeClock();
         var scaled = new ScaledTimeProvider(50, inner);
         var fired = 0;
-        using var timer = scaled.CreateTimer(_ => fired++, null, TimeSpan.FromMilliseconds(10), Timeout.InfiniteTimeSpan);
+        using var timer = scaled.CreateTimer(
+            _ => fired++,
+            null,
+            TimeSpan.FromMilliseconds(10),
+            Timeout.InfiniteTimeSpan
+        );
 
         inner.Advance(TimeSpan.FromMilliseconds(0.5));
         Assert.Equal(0, fired);

@@ -9,7 +9,16 @@ public sealed class StandaloneTests
     {
         using var stop = new CancellationTokenSource();
         var started = new TaskCompletionSource<SimulatedBench>();
-        var run = SimulatedBench.RunStandaloneAsync(Benches.Manual() with { TcpPort = 0, TimeScale = 100 }, null, b => started.SetResult(b), stop.Token);
+        var run = SimulatedBench.RunStandaloneAsync(
+            Benches.Manual() with
+            {
+                TcpPort = 0,
+                TimeScale = 100,
+            },
+            null,
+            b => started.SetResult(b),
+            stop.Token
+        );
         var bench = await started.Task.WaitAsync(ScpiTestClient.Guard);
 
         await using (var client = await ScpiTestClient.ConnectAsync(bench.TcpEndpoint!))
@@ -24,5 +33,6 @@ public sealed class StandaloneTests
     [Fact]
     public async Task RunStandalone_NeitherTcpNorSerial_Throws() =>
         await Assert.ThrowsAsync<ArgumentException>(() =>
-            SimulatedBench.RunStandaloneAsync(new SimulatedBenchOptions { TcpPort = null }, CancellationToken.None));
+            SimulatedBench.RunStandaloneAsync(new SimulatedBenchOptions { TcpPort = null }, CancellationToken.None)
+        );
 }

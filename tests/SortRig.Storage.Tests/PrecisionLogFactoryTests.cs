@@ -34,7 +34,8 @@ public sealed class PrecisionLogFactoryTests
     public async Task OpenAsync_InMemorySqlite_RefusedAsNotDurable()
     {
         var error = await Assert.ThrowsAsync<ArgumentException>(() =>
-            PrecisionLogFactory.OpenAsync("Data Source=:memory:", null, CancellationToken.None));
+            PrecisionLogFactory.OpenAsync("Data Source=:memory:", null, CancellationToken.None)
+        );
 
         Assert.Contains("in-memory", error.Message, StringComparison.Ordinal);
     }
@@ -46,16 +47,20 @@ public sealed class PrecisionLogFactoryTests
     public async Task OpenAsync_DeviceOrFolderAsSqlite_RefusedAndNoJournalLeftBeside(string database, string said)
     {
         var error = await Assert.ThrowsAsync<ArgumentException>(() =>
-            PrecisionLogFactory.OpenAsync(database, null, CancellationToken.None));
+            PrecisionLogFactory.OpenAsync(database, null, CancellationToken.None)
+        );
 
         Assert.Contains(said, error.Message, StringComparison.Ordinal);
         var path = database.Replace("Data Source=", "", StringComparison.Ordinal);
-        Assert.All(new[] { "-journal", "-wal", "-shm" }, suffix => Assert.False(File.Exists(path + suffix), path + suffix));
+        Assert.All(new[] { "-journal", "-wal", "-shm" }, suffix =>
+            Assert.False(File.Exists(path + suffix), path + suffix)
+        );
     }
 
     [Theory]
     [InlineData("/nonexistent-sortrig/x.db", "the folder '/nonexistent-sortrig' does not exist")]
-    [InlineData("/proc/sortrig.db", "the folder '/proc' is not writable")] // procfs refuses new files, even to root (common practice, no source)
+    // procfs refuses new files, even to root (common practice, no source)
+    [InlineData("/proc/sortrig.db", "the folder '/proc' is not writable")]
     public void CheckTarget_FolderMissingOrNotWritable_UnavailableSayingWhy_NothingCreated(string database, string said)
     {
         var error = Assert.Throws<StorageException>(() => PrecisionLogFactory.CheckTarget(database));
@@ -79,12 +84,19 @@ public sealed class PrecisionLogFactoryTests
     [InlineData(601)]
     public void Options_BusyTimeoutOutOfRange_ThrowsNamingTheOption(double seconds)
     {
-        var error = Assert.Throws<ArgumentOutOfRangeException>(() => new PrecisionLogOptions { BusyTimeout = TimeSpan.FromSeconds(seconds) });
+        var error = Assert.Throws<ArgumentOutOfRangeException>(() =>
+            new PrecisionLogOptions { BusyTimeout = TimeSpan.FromSeconds(seconds) }
+        );
 
         Assert.Equal("BusyTimeout", error.ParamName);
     }
 
     [Fact]
     public void Options_NegativeRetries_ThrowsNamingTheOption() =>
-        Assert.Equal("TransientRetries", Assert.Throws<ArgumentOutOfRangeException>(() => new PrecisionLogOptions { TransientRetries = -1 }).ParamName);
+        Assert.Equal(
+            "TransientRetries",
+            Assert
+                .Throws<ArgumentOutOfRangeException>(() => new PrecisionLogOptions { TransientRetries = -1 })
+                .ParamName
+        );
 }

@@ -10,7 +10,10 @@ internal static partial class Announcements
 {
     /// <summary>Every "part N: cup X" line, in order.</summary>
     public static List<Heard> Cups(string text) =>
-        CupLine().Matches(text).Select(m => new Heard(int.Parse(m.Groups[1].Value), m.Groups[2].Value, m.Groups[3].Success)).ToList();
+        CupLine()
+            .Matches(text)
+            .Select(m => new Heard(int.Parse(m.Groups[1].Value), m.Groups[2].Value, m.Groups[3].Success))
+            .ToList();
 
     /// <summary>Every "note: ..." line's text, in order.</summary>
     public static List<string> Notes(string text) =>

@@ -14,10 +14,17 @@ internal static class DriftRuns
     public static readonly DateTimeOffset Start = new(2025, 11, 14, 18, 0, 0, TimeSpan.Zero);
 
     public static async Task<(DriftOutcome Outcome, SimulatedBench Bench)> RunAsync(
-        DriftSettings settings, Action<SimulatedBench, DateTimeOffset>? beforeJump = null)
+        DriftSettings settings,
+        Action<SimulatedBench, DateTimeOffset>? beforeJump = null
+    )
     {
         var clock = new VirtualClock(Start);
-        var services = new DriftServices(clock, TimeProvider.System, new BenchEventHub(clock), NullLoggerFactory.Instance);
+        var services = new DriftServices(
+            clock,
+            TimeProvider.System,
+            new BenchEventHub(clock),
+            NullLoggerFactory.Instance
+        );
         SimulatedBench? bench = null;
         var run = DriftRunner.RunAsync(settings, services, b => bench = b, CancellationToken.None);
         using var limit = new CancellationTokenSource(TimeSpan.FromMinutes(2));
@@ -30,7 +37,8 @@ internal static class DriftRuns
                     beforeJump?.Invoke(bench, t);
                 }
             },
-            limit.Token);
+            limit.Token
+        );
         return (await run, bench!);
     }
 

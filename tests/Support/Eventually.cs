@@ -11,7 +11,9 @@ internal static class Eventually
         while (!condition())
         {
             Assert.True(
-                DateTimeOffset.UtcNow < deadline, $"timed out after {limit.TotalSeconds:0.#} s waiting for {what}");
+                DateTimeOffset.UtcNow < deadline,
+                $"timed out after {limit.TotalSeconds:0.#} s waiting for {what}"
+            );
             await Task.Delay(1);
         }
     }

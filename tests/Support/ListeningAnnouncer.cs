@@ -19,7 +19,13 @@ internal sealed class ListeningAnnouncer : IAnnouncer
     /// <summary>Everything said so far, one line each.</summary>
     public string Text
     {
-        get { lock (_gate) { return string.Join('\n', _lines); } }
+        get
+        {
+            lock (_gate)
+            {
+                return string.Join('\n', _lines);
+            }
+        }
     }
 
     public ValueTask AnnounceAsync(Announcement announcement, CancellationToken cancellationToken)

@@ -15,7 +15,12 @@ internal static class MatchedBruteForce
 
     /// <summary>All good sets of <paramref name="size"/> parts, as bit masks; throws when one lies within 1 ppm of the
     /// tolerance, so that rounding cannot decide a test.</summary>
-    public static List<int> GoodSets(IReadOnlyList<(double Value, double U)> parts, int size, double nominal, double tolerancePpm)
+    public static List<int> GoodSets(
+        IReadOnlyList<(double Value, double U)> parts,
+        int size,
+        double nominal,
+        double tolerancePpm
+    )
     {
         var good = new List<int>();
         for (var mask = 0; mask < 1 << parts.Count; mask++)
@@ -25,10 +30,15 @@ internal static class MatchedBruteForce
                 continue;
             }
 
-            var worst = WorstPpm(Enumerable.Range(0, parts.Count).Where(i => (mask & (1 << i)) != 0).Select(i => parts[i]), nominal);
+            var worst = WorstPpm(
+                Enumerable.Range(0, parts.Count).Where(i => (mask & (1 << i)) != 0).Select(i => parts[i]),
+                nominal
+            );
             if (Math.Abs(worst - tolerancePpm) < 1)
             {
-                throw new InvalidOperationException($"set {mask:X} lies on the tolerance ({worst} ppm): choose other test values");
+                throw new InvalidOperationException(
+                    $"set {mask:X} lies on the tolerance ({worst} ppm): choose other test values"
+                );
             }
 
             if (worst <= tolerancePpm)
@@ -41,7 +51,12 @@ internal static class MatchedBruteForce
     }
 
     /// <summary>Most disjoint good sets (memoised over the used-part mask; branch on the lowest free part).</summary>
-    public static int MaxDisjoint(IReadOnlyList<(double Value, double U)> parts, int size, double nominal, double tolerancePpm)
+    public static int MaxDisjoint(
+        IReadOnlyList<(double Value, double U)> parts,
+        int size,
+        double nominal,
+        double tolerancePpm
+    )
     {
         var good = GoodSets(parts, size, nominal, tolerancePpm);
         var full = (1 << parts.Count) - 1;

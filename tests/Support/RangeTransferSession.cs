@@ -12,21 +12,23 @@ namespace SortRig.Tests.Support;
 /// </summary>
 internal sealed class RangeTransferSession(string database, double gainErrorPpm = DemoBench.RangeGainErrorPpm)
 {
-    public const int Seed = 2026; // the demo seed: at the demo's 20 ppm bound its 10 k and 100 k ranges differ by about 32 ppm of gain
+    // the demo seed: at the demo's 20 ppm bound its 10 k and 100 k ranges differ by about 32 ppm of gain
+    public const int Seed = 2026;
 
-    public SortOptions Options(double nominal, int totalParts, BridgeMode bridge, double match = 0.001) => new()
-    {
-        Database = database,
-        Session = "ladder",
-        Nominal = nominal,
-        MatchTolerance = match,
-        Nplc = 10,
-        Parts = totalParts,
-        Seed = Seed,
-        Bridge = bridge,
-        Speech = false,
-        Live = false,
-    };
+    public SortOptions Options(double nominal, int totalParts, BridgeMode bridge, double match = 0.001) =>
+        new()
+        {
+            Database = database,
+            Session = "ladder",
+            Nominal = nominal,
+            MatchTolerance = match,
+            Nplc = 10,
+            Parts = totalParts,
+            Seed = Seed,
+            Bridge = bridge,
+            Speech = false,
+            Live = false,
+        };
 
     /// <summary>
     /// Runs to the end, or until an announcement matches <paramref name="stopWhen"/>: the run is then stopped as
@@ -57,7 +59,8 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
 
     /// <summary>
     /// The correction that truly puts values read on <paramref name="fromRange"/> onto <paramref name="toRange"/>'s
-    /// scale, ppm, from the simulator's truth: a reading on range r is (1 + g_r) × the true value, so F = (1 + g_to)/(1 + g_from).
+    /// scale, ppm, from the simulator's truth: a reading on range r is (1 + g_r) × the true value, so F = (1 + g_to)/(1
+    /// + g_from).
     /// </summary>
     public static double TrueCorrectionPpm(SimulatedBench bench, double fromRange, double toRange) =>
         (((1 + (bench.GainErrorPpm(toRange) * 1e-6)) / (1 + (bench.GainErrorPpm(fromRange) * 1e-6))) - 1) * 1e6;
@@ -72,7 +75,11 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
     public static Func<Announcement, bool> AfterNote(string text) =>
         a => a.Kind == AnnouncementKind.Info && a.Text.Contains(text, StringComparison.Ordinal);
 
-    private sealed class StoppingAnnouncer(IAnnouncer inner, Func<Announcement, bool>? stopWhen, CancellationTokenSource stop) : IAnnouncer
+    private sealed class StoppingAnnouncer(
+        IAnnouncer inner,
+        Func<Announcement, bool>? stopWhen,
+        CancellationTokenSource stop
+    ) : IAnnouncer
     {
         public async ValueTask AnnounceAsync(Announcement announcement, CancellationToken cancellationToken)
         {

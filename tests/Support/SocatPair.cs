@@ -24,7 +24,8 @@ internal sealed class SocatPair : IAsyncDisposable
     /// <summary>Whether socat is on the PATH.</summary>
     public static bool Available => Which("socat") is not null;
 
-    /// <summary>Null when socat can be used; otherwise why tests needing it are skipped. On CI (CI=true) never skipped.</summary>
+    /// <summary>Null when socat can be used; otherwise why tests needing it are skipped. On CI (CI=true) never
+    /// skipped.</summary>
     public static string? SkipReason() =>
         Available || Environment.GetEnvironmentVariable("CI") == "true"
             ? null
@@ -32,10 +33,16 @@ internal sealed class SocatPair : IAsyncDisposable
 
     public static async Task<SocatPair> StartAsync()
     {
-        var socat = Which("socat") ?? throw new InvalidOperationException("socat is not installed; on CI it must be (see .ci/run)");
+        var socat = Which("socat")
+            ?? throw new InvalidOperationException("socat is not installed; on CI it must be (see .ci/run)");
         var id = Guid.NewGuid().ToString("N")[..12];
         var (a, b) = ($"/tmp/sortrig-{id}A", $"/tmp/sortrig-{id}B");
-        var info = new ProcessStartInfo(socat) { RedirectStandardError = true, RedirectStandardOutput = true, UseShellExecute = false };
+        var info = new ProcessStartInfo(socat)
+        {
+            RedirectStandardError = true,
+            RedirectStandardOutput = true,
+            UseShellExecute = false,
+        };
         info.ArgumentList.Add($"pty,raw,echo=0,link={a}");
         info.ArgumentList.Add($"pty,raw,echo=0,link={b}");
         var process = Process.Start(info) ?? throw new InvalidOperationException("socat did not start");
@@ -46,7 +53,9 @@ internal sealed class SocatPair : IAsyncDisposable
 
         return File.Exists(a) && File.Exists(b)
             ? new SocatPair(process, a, b)
-            : throw new InvalidOperationException($"socat made no pty pair: {await process.StandardError.ReadToEndAsync()}");
+            : throw new InvalidOperationException(
+                $"socat made no pty pair: {await process.StandardError.ReadToEndAsync()}"
+            );
     }
 
     /// <summary>Ends socat: both pseudo-terminals hang up, as when a USB-serial cable is pulled.</summary>
@@ -68,6 +77,8 @@ internal sealed class SocatPair : IAsyncDisposable
     }
 
     private static string? Which(string name) =>
-        (Environment.GetEnvironmentVariable("PATH") ?? string.Empty).Split(':')
-            .Select(dir => Path.Combine(dir, name)).FirstOrDefault(File.Exists);
+        (Environment.GetEnvironmentVariable("PATH") ?? string.Empty)
+            .Split(':')
+            .Select(dir => Path.Combine(dir, name))
+            .FirstOrDefault(File.Exists);
 }

@@ -29,9 +29,11 @@ internal sealed class HeldLock(string db) : IStorageFault
         };
         start.ArgumentList.Add("-c");
         start.ArgumentList.Add(
-            "import sqlite3,sys\n" +
-            "c=sqlite3.connect(sys.argv[1],isolation_level=None,timeout=30)\n" +
-            "c.execute('BEGIN EXCLUSIVE')\nprint('locked',flush=True)\nsys.stdin.readline()\nc.execute('COMMIT')\n");
+            "import sqlite3,sys\n"
+                + "c=sqlite3.connect(sys.argv[1],isolation_level=None,timeout=30)\n"
+                + "c.execute('BEGIN "
+                + "EXCLUSIVE')\nprint('locked',flush=True)\nsys.stdin.readline()\nc.execute('COMMIT')\n"
+        );
         start.ArgumentList.Add(db);
         _holder = Process.Start(start) ?? throw new InvalidOperationException("python3 did not start");
         var line = await _holder.StandardOutput.ReadLineAsync();
@@ -84,7 +86,14 @@ internal sealed class FullDisk(string mountPoint) : IStorageFault
     public async Task InjectAsync()
     {
         var block = new byte[64 * 1024];
-        await using var stream = new FileStream(_filler, FileMode.Create, FileAccess.Write, FileShare.None, 1, FileOptions.None);
+        await using var stream = new FileStream(
+            _filler,
+            FileMode.Create,
+            FileAccess.Write,
+            FileShare.None,
+            1,
+            FileOptions.None
+        );
         try
         {
             while (true)

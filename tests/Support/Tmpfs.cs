@@ -36,7 +36,12 @@ internal static class Shell
 {
     public static async Task<(int Code, string Output)> RunAsync(string file, params string[] args)
     {
-        var start = new ProcessStartInfo(file) { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        var start = new ProcessStartInfo(file)
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
         foreach (var a in args)
         {
             start.ArgumentList.Add(a);

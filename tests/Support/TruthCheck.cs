@@ -13,8 +13,13 @@ namespace SortRig.Tests.Support;
 /// </summary>
 internal static class TruthCheck
 {
-    /// <summary>Problems found (empty when every part is where its truth puts it) and the number excused on a band edge.</summary>
-    public static (List<string> Problems, int OnEdge) Compare(SortOptions o, IReadOnlyList<PartRecord> parts, Func<int, double> truthOfNumber)
+    /// <summary>Problems found (empty when every part is where its truth puts it) and the number excused on a band
+    /// edge.</summary>
+    public static (List<string> Problems, int OnEdge) Compare(
+        SortOptions o,
+        IReadOnlyList<PartRecord> parts,
+        Func<int, double> truthOfNumber
+    )
     {
         var problems = new List<string>();
         var onEdge = 0;
@@ -43,7 +48,10 @@ internal static class TruthCheck
                 continue;
             }
 
-            problems.Add($"part {part.Number}: true {t:F3} -> cup {expected}, measured {part.Value:F3} ± {part.Measured.Expanded:F3} -> cup {part.CupLabel}");
+            problems.Add(
+                $"part {part.Number}: true {t:F3} -> cup {expected}, measured {part.Value:F3} ± "
+                    + $"{part.Measured.Expanded:F3} -> cup {part.CupLabel}"
+            );
         }
 
         return (problems, onEdge);
@@ -51,7 +59,8 @@ internal static class TruthCheck
 
     private static string CupFor(SortOptions o, long number, double ohms) =>
         new BandCupAssigner(new BandCupOptions(o.Cups, o.MatchTolerance * 1e6, o.Nominal, o.StockTolerance * 100))
-            .Assign(new CupRequest(number, o.Nominal, new MeasuredValue(ohms, 0, 0))).CupLabel;
+            .Assign(new CupRequest(number, o.Nominal, new MeasuredValue(ohms, 0, 0)))
+            .CupLabel;
 
     private static double EdgeBetween(SortOptions o, long number, double a, double b)
     {

@@ -31,7 +31,8 @@ internal sealed class VirtualSort
             snapshot ?? new BenchSnapshot(),
             new OperatorCommands(),
             announcer,
-            NullLoggerFactory.Instance)
+            NullLoggerFactory.Instance
+        )
         {
             LinkTime = TimeProvider.System,
         };
@@ -52,7 +53,8 @@ internal sealed class VirtualSort
         SortOptions options,
         Func<SimulatedBenchOptions, SimulatedBenchOptions>? configure = null,
         TimeSpan? limit = null,
-        CancellationToken ct = default)
+        CancellationToken ct = default
+    )
     {
         using var timeout = new CancellationTokenSource(limit ?? TimeSpan.FromMinutes(3));
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(timeout.Token, ct);

@@ -8,7 +8,8 @@ namespace SortRig.Bench.Lab;
 /// <summary>
 /// `lab` benchmark: parts committed per second by 1, 2, 4 and 8 benches (separate processes) writing at once to one
 /// PostgreSQL server as the lab's writer role, and by one bench on a SQLite file, on this machine. Starts its own
-/// PostgreSQL server with fsync on (scripts/pg-test-server, SORTRIG_PG_FSYNC=on) and stops it. Writes docs/bench-lab.md.
+/// PostgreSQL server with fsync on (scripts/pg-test-server, SORTRIG_PG_FSYNC=on) and stops it. Writes
+/// docs/bench-lab.md.
 /// </summary>
 internal static class LabBenchmark
 {
@@ -25,7 +26,15 @@ internal static class LabBenchmark
         {
             var names = new LabRoleNames("bench_owner", "bench_writer", "bench_lab");
             await LabRoles.ApplyAsync(admin, names, ct).ConfigureAwait(false);
-            await using (await PrecisionLogFactory.OpenAsync(admin.Replace("Username=sortrig", "Username=bench_owner", StringComparison.Ordinal), null, ct).ConfigureAwait(false))
+            await using (
+                await PrecisionLogFactory
+                    .OpenAsync(
+                        admin.Replace("Username=sortrig", "Username=bench_owner", StringComparison.Ordinal),
+                        null,
+                        ct
+                    )
+                    .ConfigureAwait(false)
+            )
             {
                 // The owner migrates.
             }
@@ -33,7 +42,10 @@ internal static class LabBenchmark
             var writer = admin.Replace("Username=sortrig", "Username=bench_writer", StringComparison.Ordinal);
             foreach (var benches in new[] { 1, 2, 4, 8 })
             {
-                rows.Add(await MeasureAsync($"PostgreSQL 15 (fsync on), writer role", benches, writer, $"pg{benches}", ct).ConfigureAwait(false));
+                rows.Add(
+                    await MeasureAsync($"PostgreSQL 15 (fsync on), writer role", benches, writer, $"pg{benches}", ct)
+                        .ConfigureAwait(false)
+                );
             }
         }
         finally
@@ -45,7 +57,9 @@ internal static class LabBenchmark
         var sqlite = Path.Combine(Path.GetTempPath(), $"sortrig-bench-lab-{Guid.NewGuid():N}.db");
         try
         {
-            rows.Add(await MeasureAsync("SQLite (WAL, synchronous=FULL)", 1, sqlite, "sqlite1", ct).ConfigureAwait(false));
+            rows.Add(
+                await MeasureAsync("SQLite (WAL, synchronous=FULL)", 1, sqlite, "sqlite1", ct).ConfigureAwait(false)
+            );
         }
         finally
         {
@@ -60,42 +74,93 @@ internal static class LabBenchmark
         {
             "# Lab benchmark: many benches on one PostgreSQL server",
             "",
-            "Reproduce: `dotnet run -c Release --project bench/SortRig.Bench -- lab` (writes this file; starts and stops its own server).",
-            FormattableString.Invariant($"Machine: {Environment.ProcessorCount} cores, .NET {Environment.Version}; shared with other jobs, so the figures vary; the server, the benches and everything else share the same cores."),
+            "Reproduce: `dotnet run -c Release --project bench/SortRig.Bench -- lab` (writes this file; starts and "
+                + "stops its own server).",
+            string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"Machine: {Environment.ProcessorCount} cores, .NET {Environment.Version}; shared with other jobs, "
+                    + $"so the figures vary; the server, the benches and everything else share the same cores."
+            ),
             "",
-            FormattableString.Invariant($"Each bench is its own process (like a bench PC) with its own session, committing parts one after another for {Seconds:0} s"),
-            "after a common start signal (warm-up parts before it): each part is one transaction with its row and 12 raw readings,",
-            "committed before the next, as the sorting loop does. PostgreSQL: a throw-away server on the same machine, same disk,",
-            "fsync and full_page_writes on, benches logged in as the writer role over TCP on 127.0.0.1. SQLite: one bench on a file",
+            string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"Each bench is its own process (like a bench PC) with its own session, committing parts one after "
+                    + $"another for {Seconds:0} s"
+            ),
+            "after a common start signal (warm-up parts before it): each part is one transaction with its row and 12 "
+                + "raw readings,",
+            "committed before the next, as the sorting loop does. PostgreSQL: a throw-away server on the same "
+                + "machine, same disk,",
+            "fsync and full_page_writes on, benches logged in as the writer role over TCP on 127.0.0.1. SQLite: one "
+                + "bench on a file",
             "in the temp folder on the same disk. Rate = parts committed by all benches / the longest bench's time.",
-            $"Load average (1 min) before and after the run: {loadBefore} / {loadAfter} (other helpers' builds and tests on the same 2 cores).",
+            $"Load average (1 min) before and after the run: {loadBefore} / {loadAfter} (other helpers' builds and "
+                + $"tests on the same 2 cores).",
             "",
-            "| store | benches | parts committed | parts/s (all benches) | parts/s per bench | commit p50 (ms) | commit p95 (ms, worst bench) |",
+            "| store | benches | parts committed | parts/s (all benches) | parts/s per bench | commit p50 (ms) | "
+                + "commit p95 (ms, worst bench) |",
             "| --- | --- | --- | --- | --- | --- | --- |",
         };
         md.AddRange(rows);
         md.Add("");
-        md.Add("More benches than cores: beyond 2 benches the processes, the server and the machine's other work take turns on");
-        md.Add("2 cores, so the total stays flat or dips and each bench's commit takes longer (p95 a few hundred ms); no commit");
-        md.Add("failed (a failing worker stops the run). SQLite in-process needs no round trips (one bench only: it is a file on one machine).");
+        md.Add(
+            "More benches than cores: beyond 2 benches the processes, the server and the machine's other work take "
+                + "turns on"
+        );
+        md.Add(
+            "2 cores, so the total stays flat or dips and each bench's commit takes longer (p95 a few hundred ms); "
+                + "no commit"
+        );
+        md.Add(
+            "failed (a failing worker stops the run). SQLite in-process needs no round trips (one bench only: it is "
+                + "a file on one machine)."
+        );
         md.Add("");
-        md.Add("A sorting bench commits a part every few seconds (a settled reading at NPLC 1-10 plus handling), so even the");
-        md.Add("slowest row leaves the server idle most of the time: eight benches at one part per 3 s need under 3 parts/s, about");
-        md.Add("a twentieth of what the 8-bench row committed here. The lab's limit is not the server but the operators.");
+        md.Add(
+            "A sorting bench commits a part every few seconds (a settled reading at NPLC 1-10 plus handling), so "
+                + "even the"
+        );
+        md.Add(
+            "slowest row leaves the server idle most of the time: eight benches at one part per 3 s need under 3 "
+                + "parts/s, about"
+        );
+        md.Add(
+            "a twentieth of what the 8-bench row committed here. The lab's limit is not the server but the operators."
+        );
         await File.WriteAllLinesAsync(Path.Combine(root, "docs", "bench-lab.md"), md, ct).ConfigureAwait(false);
         Console.WriteLine(string.Join('\n', md));
         return 0;
     }
 
-    private static async Task<string> MeasureAsync(string store, int benches, string database, string prefix, CancellationToken ct)
+    private static async Task<string> MeasureAsync(
+        string store,
+        int benches,
+        string database,
+        string prefix,
+        CancellationToken ct
+    )
     {
         var workers = new List<Process>();
         try
         {
             for (int i = 0; i < benches; i++)
             {
-                var start = new ProcessStartInfo("dotnet") { RedirectStandardInput = true, RedirectStandardOutput = true, UseShellExecute = false };
-                foreach (var a in new[] { typeof(LabBenchmark).Assembly.Location, "lab-worker", database, $"{prefix}-bench-{i + 1}", Seconds.ToString(CultureInfo.InvariantCulture) })
+                var start = new ProcessStartInfo("dotnet")
+                {
+                    RedirectStandardInput = true,
+                    RedirectStandardOutput = true,
+                    UseShellExecute = false,
+                };
+                foreach (
+                    var a in new[]
+                    {
+                        typeof(LabBenchmark).Assembly.Location,
+                        "lab-worker",
+                        database,
+                        $"{prefix}-bench-{i + 1}",
+                        Seconds.ToString(CultureInfo.InvariantCulture),
+                    }
+                )
                 {
                     start.ArgumentList.Add(a);
                 }
@@ -121,18 +186,28 @@ internal static class LabBenchmark
             var done = new List<(int Count, double Seconds, double P50, double P95)>();
             foreach (var w in workers)
             {
-                var line = await w.StandardOutput.ReadLineAsync(ct).ConfigureAwait(false) ?? throw new InvalidOperationException("worker ended without a result");
+                var line = await w.StandardOutput.ReadLineAsync(ct).ConfigureAwait(false)
+                    ?? throw new InvalidOperationException("worker ended without a result");
                 var f = line.Split(' ');
-                done.Add((int.Parse(f[1], CultureInfo.InvariantCulture), double.Parse(f[2], CultureInfo.InvariantCulture),
-                    double.Parse(f[3], CultureInfo.InvariantCulture), double.Parse(f[4], CultureInfo.InvariantCulture)));
+                done.Add(
+                    (
+                        int.Parse(f[1], CultureInfo.InvariantCulture),
+                        double.Parse(f[2], CultureInfo.InvariantCulture),
+                        double.Parse(f[3], CultureInfo.InvariantCulture),
+                        double.Parse(f[4], CultureInfo.InvariantCulture)
+                    )
+                );
                 await w.WaitForExitAsync(ct).ConfigureAwait(false);
             }
 
             int parts = done.Sum(d => d.Count);
             double rate = parts / done.Max(d => d.Seconds);
             var p50 = done.Select(d => d.P50).Order().ToList()[done.Count / 2];
-            return string.Create(CultureInfo.InvariantCulture,
-                $"| {store} | {benches} | {parts} | {rate:F0} | {rate / benches:F0} | {p50:F1} | {done.Max(d => d.P95):F1} |");
+            return string.Create(
+                CultureInfo.InvariantCulture,
+                $"| {store} | {benches} | {parts} | {rate:F0} | {rate / benches:F0} | {p50:F1} | "
+                    + $"{done.Max(d => d.P95):F1} |"
+            );
         }
         finally
         {
@@ -150,7 +225,12 @@ internal static class LabBenchmark
 
     private static async Task<string> ScriptAsync(string root, string verb, string dir, CancellationToken ct)
     {
-        var start = new ProcessStartInfo("bash") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        var start = new ProcessStartInfo("bash")
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
         start.ArgumentList.Add(Path.Combine(root, "scripts", "pg-test-server"));
         start.ArgumentList.Add(verb);
         start.ArgumentList.Add(dir);

@@ -27,9 +27,25 @@ internal static class LabWorker
         {
             n++;
             double value = 10_000 * (1 + ((random.NextDouble() - 0.5) * 0.02)); // invented 1 % stock
-            var raw = Enumerable.Range(0, 12).Select(k => Reading.Finite(value + ((k - 6) * 0.0005), at.AddSeconds(n * 3).AddMilliseconds(k * 40), 100_000)).ToArray();
-            return new PartCommit(Guid.NewGuid(), state.Session.Id, batch.Id, new MeasuredValue(value, value * 12e-6, value * 1.5e-6),
-                100_000, 1, 23.1, at.AddSeconds(n * 3), "C" + (n % 12), null, raw);
+            var raw = Enumerable
+                .Range(0, 12)
+                .Select(k =>
+                    Reading.Finite(value + ((k - 6) * 0.0005), at.AddSeconds(n * 3).AddMilliseconds(k * 40), 100_000)
+                )
+                .ToArray();
+            return new PartCommit(
+                Guid.NewGuid(),
+                state.Session.Id,
+                batch.Id,
+                new MeasuredValue(value, value * 12e-6, value * 1.5e-6),
+                100_000,
+                1,
+                23.1,
+                at.AddSeconds(n * 3),
+                "C" + (n % 12),
+                null,
+                raw
+            );
         }
 
         for (int i = 0; i < 10; i++)
@@ -54,8 +70,13 @@ internal static class LabWorker
 
         var elapsed = total.Elapsed.TotalSeconds;
         latencies.Sort();
-        Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-            $"done {latencies.Count} {elapsed:F3} {latencies[latencies.Count / 2]:F2} {latencies[(int)(latencies.Count * 0.95)]:F2}"));
+        Console.WriteLine(
+            string.Create(
+                CultureInfo.InvariantCulture,
+                $"done {latencies.Count} {elapsed:F3} {latencies[latencies.Count / 2]:F2} "
+                    + $"{latencies[(int)(latencies.Count * 0.95)]:F2}"
+            )
+        );
         return 0;
     }
 }

@@ -13,11 +13,21 @@ internal static class GapBench
 {
     private static readonly int s_instances = 40;
 
-    public static List<string> Run(IReadOnlyList<(string Label, Recipe Recipe, double[] Nominals, int Parts, double SigmaPpm, double MaxUPpm)> cases)
+    public static List<string> Run(
+        IReadOnlyList<(
+            string Label,
+            Recipe Recipe,
+            double[] Nominals,
+            int Parts,
+            double SigmaPpm,
+            double MaxUPpm
+        )> cases
+    )
     {
         var rows = new List<string>
         {
-            "| case | instances | exact sets | sweep alone | gap | search (10-part windows) | gap | instances search < exact | bound sum | bound < exact |",
+            "| case | instances | exact sets | sweep alone | gap | search (10-part windows) | gap | instances search "
+                + "< exact | bound sum | bound < exact |",
             "|---|---|---|---|---|---|---|---|---|---|",
         };
         var sweepOnly = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 0));
@@ -25,11 +35,27 @@ internal static class GapBench
         var exact = new SetAssembler(new AssemblyOptions(exactPartLimit: 64, exactSetLimit: 5_000_000));
         foreach (var (label, recipe, nominals, count, sigma, maxU) in cases)
         {
-            int e = 0, s = 0, n = 0, worse = 0, done = 0, bound = 0, below = 0;
+            int e = 0,
+                s = 0,
+                n = 0,
+                worse = 0,
+                done = 0,
+                bound = 0,
+                below = 0;
             for (var seed = 0; seed < s_instances; seed++)
             {
                 var rng = new Random(seed);
-                var parts = Enumerable.Range(1, count).Select(i => Reels.Part(i, nominals[rng.Next(nominals.Length)], sigma * Reels.Gauss(rng), rng.NextDouble() * maxU)).ToList();
+                var parts = Enumerable
+                    .Range(1, count)
+                    .Select(i =>
+                        Reels.Part(
+                            i,
+                            nominals[rng.Next(nominals.Length)],
+                            sigma * Reels.Gauss(rng),
+                            rng.NextDouble() * maxU
+                        )
+                    )
+                    .ToList();
                 var ex = exact.Assemble(recipe, parts);
                 if (ex.Method != AssemblyMethod.Exact)
                 {
@@ -47,8 +73,13 @@ internal static class GapBench
                 below += ns.UpperBound < ex.Sets.Count ? 1 : 0;
             }
 
-            rows.Add(FormattableString.Invariant(
-                $"| {label} | {done} | {e} | {s} | {Gap(e, s):0.0} % | {n} | {Gap(e, n):0.0} % | {worse} | {bound} | {below} |"));
+            rows.Add(
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"| {label} | {done} | {e} | {s} | {Gap(e, s):0.0} % | {n} | {Gap(e, n):0.0} % | {worse} | "
+                        + $"{bound} | {below} |"
+                )
+            );
         }
 
         return rows;

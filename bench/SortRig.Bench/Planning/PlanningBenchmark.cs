@@ -3,18 +3,24 @@ using SortRig.Planning.Recipes;
 
 namespace SortRig.Bench.Planning;
 
-/// <summary>`planning` benchmark: cup-planner yield, assembler time, sweep-vs-exact gap; writes docs/bench-planning.md.</summary>
+/// <summary>`planning` benchmark: cup-planner yield, assembler time, sweep-vs-exact gap; writes
+/// docs/bench-planning.md.</summary>
 internal static class PlanningBenchmark
 {
     public static async Task<int> RunAsync(string section, CancellationToken ct)
     {
         var root = FindRoot();
-        async Task<Recipe> Load(string f) => await RecipeLoader.LoadFileAsync(Path.Combine(root, "recipes", f), ct).ConfigureAwait(false);
+        async Task<Recipe> Load(string f) =>
+            await RecipeLoader.LoadFileAsync(Path.Combine(root, "recipes", f), ct).ConfigureAwait(false);
         var quad = await Load("matched-quad.yaml").ConfigureAwait(false);
         var r2r = await Load("r2r-dac-8bit.yaml").ConfigureAwait(false);
         var diffAmp = await Load("diff-amp-g10.yaml").ConfigureAwait(false);
         var divider = await Load("decade-divider.yaml").ConfigureAwait(false);
-        var triple = RecipeLoader.Load("recipe: triple-pairs\nform: matched\nmatch-ppm: 1000\npositions:\n  - { name: A, nominal: 10k, pairs: [parallel] }\n  - { name: B, nominal: 10k }\n  - { name: C, nominal: 20k, pairs: [series] }\n", "bench");
+        var triple = RecipeLoader.Load(
+            "recipe: triple-pairs\nform: matched\nmatch-ppm: 1000\npositions:\n  - { name: A, nominal: 10k, pairs: "
+                + "[parallel] }\n  - { name: B, nominal: 10k }\n  - { name: C, nominal: 20k, pairs: [series] }\n",
+            "bench"
+        );
 
         var all = section == "all";
         var yield = all || section == "cups" ? YieldBench.Run(quad) : [];
@@ -22,7 +28,12 @@ internal static class PlanningBenchmark
         if (section.StartsWith("show:", StringComparison.Ordinal))
         {
             var w = section.Split(':');
-            YieldBench.Show(quad, w[1], int.Parse(w[2], CultureInfo.InvariantCulture), int.Parse(w[3], CultureInfo.InvariantCulture));
+            YieldBench.Show(
+                quad,
+                w[1],
+                int.Parse(w[2], CultureInfo.InvariantCulture),
+                int.Parse(w[3], CultureInfo.InvariantCulture)
+            );
             return 0;
         }
 
@@ -32,18 +43,22 @@ internal static class PlanningBenchmark
             return 0;
         }
 
-        var gap = all || section == "gap" ? GapBench.Run(
-        [
-            ("matched-quad, unequal uncertainty, 16 parts", quad, [10e3], 16, 700, 150),
-            ("10k∥pair / 10k / 20k-series, 14 parts", triple, [10e3, 20e3], 14, 700, 100),
-            ("diff-amp-g10, 16 parts", diffAmp, [1e3, 10e3], 16, 400, 20),
-            ("decade-divider, 12 parts", divider, [90e3, 9e3, 1e3, 2e3], 12, 300, 20),
-        ]) : [];
+        var gap =
+            all || section == "gap"
+                ? GapBench.Run([
+                    ("matched-quad, unequal uncertainty, 16 parts", quad, [10e3], 16, 700, 150),
+                    ("10k∥pair / 10k / 20k-series, 14 parts", triple, [10e3, 20e3], 14, 700, 100),
+                    ("diff-amp-g10, 16 parts", diffAmp, [1e3, 10e3], 16, 400, 20),
+                    ("decade-divider, 12 parts", divider, [90e3, 9e3, 1e3, 2e3], 12, 300, 20),
+                ])
+                : [];
         Console.WriteLine(string.Join('\n', gap));
         var every = new List<(string, Recipe)>();
         foreach (var f in Directory.GetFiles(Path.Combine(root, "recipes"), "*.yaml").Order(StringComparer.Ordinal))
         {
-            every.Add((Path.GetFileNameWithoutExtension(f), await RecipeLoader.LoadFileAsync(f, ct).ConfigureAwait(false)));
+            every.Add(
+                (Path.GetFileNameWithoutExtension(f), await RecipeLoader.LoadFileAsync(f, ct).ConfigureAwait(false))
+            );
         }
 
         if (section == "probe")
@@ -59,14 +74,26 @@ internal static class PlanningBenchmark
         }
 
         // `reels=a,b` runs the reel section for the named recipes only (a quick check while working on one recipe).
-        var only = section.StartsWith("reels=", StringComparison.Ordinal) ? section["reels=".Length..].Split(',') : null;
+        var only = section.StartsWith("reels=", StringComparison.Ordinal)
+            ? section["reels=".Length..].Split(',')
+            : null;
         var chosen = only is null ? every : every.Where(e => only.Contains(e.Item1)).ToList();
-        var reels = all || section == "reels" || only is not null
-            ? ReelBench.Run(chosen, 1000, TimeSpan.FromSeconds(10), seed: 1)
-            : [];
-        var big = all || section == "big" ? ReelBench.Run([("matched-quad", quad)], 10_000, TimeSpan.FromSeconds(60), seed: 1) : [];
-        var paired = every.Where(e => e.Item2.Form == RecipeForm.Matched && e.Item2.Positions.Any(p => p.Pairs != PairBuilds.None)).Take(1).Select(e => (e.Item1 + " (pairs)", e.Item2));
-        var timing = all || section == "timing" ? TimingBench.Run([("matched-quad", quad), .. paired, ("r2r-dac-8bit", r2r)]) : [];
+        var reels =
+            all || section == "reels" || only is not null
+                ? ReelBench.Run(chosen, 1000, TimeSpan.FromSeconds(10), seed: 1)
+                : [];
+        var big =
+            all || section == "big"
+                ? ReelBench.Run([("matched-quad", quad)], 10_000, TimeSpan.FromSeconds(60), seed: 1)
+                : [];
+        var paired = every
+            .Where(e => e.Item2.Form == RecipeForm.Matched && e.Item2.Positions.Any(p => p.Pairs != PairBuilds.None))
+            .Take(1)
+            .Select(e => (e.Item1 + " (pairs)", e.Item2));
+        var timing =
+            all || section == "timing"
+                ? TimingBench.Run([("matched-quad", quad), .. paired, ("r2r-dac-8bit", r2r)])
+                : [];
         Console.WriteLine(string.Join('\n', timing));
         if (!all)
         {
@@ -77,16 +104,25 @@ internal static class PlanningBenchmark
         {
             "# Planning benchmark",
             "",
-            "Reproduce: `dotnet run -c Release --project bench/SortRig.Bench -- planning` (writes this file; `planning gap|reels|big|cups|timing` runs one section",
-            "without writing). Deterministic: every reel and instance is seeded; the neighbourhood search is seeded too.",
-            FormattableString.Invariant($"Machine: {Environment.ProcessorCount} cores shared with other builds and test runs while this ran, .NET {Environment.Version};"),
+            "Reproduce: `dotnet run -c Release --project bench/SortRig.Bench -- planning` (writes this file; "
+                + "`planning gap|reels|big|cups|timing` runs one section",
+            "without writing). Deterministic: every reel and instance is seeded; the neighbourhood search is seeded "
+                + "too.",
+            string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"Machine: {Environment.ProcessorCount} cores shared with other builds and test runs while this ran, "
+                    + $".NET {Environment.Version};"
+            ),
             "times are wall times on that loaded machine. Simulated data is our own (seeded), not a reference.",
             "",
             "## Reel-scale search vs the exact search (small instances)",
             "",
-            "The reel-scale path (exact search off: window sweep, then neighbourhood search with windows of 10 parts, smaller than",
-            "the instances) against the exact search; the sweep alone for comparison (the previous assembler). Seeds 0–39; expanded",
-            "uncertainty uniform up to the stated ppm. 'bound sum' is the reel-scale path's proven upper bound summed over the instances;",
+            "The reel-scale path (exact search off: window sweep, then neighbourhood search with windows of 10 "
+                + "parts, smaller than",
+            "the instances) against the exact search; the sweep alone for comparison (the previous assembler). Seeds "
+                + "0–39; expanded",
+            "uncertainty uniform up to the stated ppm. 'bound sum' is the reel-scale path's proven upper bound "
+                + "summed over the instances;",
             "'bound < exact' counts instances where it fell below the exact optimum (must be 0).",
             "",
         };
@@ -95,26 +131,35 @@ internal static class PlanningBenchmark
             "",
             "## Reels of 1 000 parts, every recipe in recipes/",
             "",
-            "Default options (time limit 10 s). Nominals drawn in proportion to one set's needs (a position allowing pairs shares its",
-            "weight with its pair nominal); 'normal' σ = 1 %/3 truncated at ±1 %, 'bimodal' σ = 1 %/2 with |deviation| < 0.4 % missing;",
-            "expanded transfer uncertainty uniform 5–15 ppm (unequal: the sweep's exact case does not apply); seed 1. 'upper bound' is proven (never below the optimum); gap = (bound − sets) / bound.",
-            "'part count' = the smaller of the Hall-type counting bound and the supply LP over nominal classes (a part in a pair",
-            "gives half a fill; docs/planning.md); for the matched form parts that fit no common window are not counted, for networks",
-            "of at most 7 positions parts that no set within the reel's range can hold. Time includes the bound; a search that stops",
+            "Default options (time limit 10 s). Nominals drawn in proportion to one set's needs (a position allowing "
+                + "pairs shares its",
+            "weight with its pair nominal); 'normal' σ = 1 %/3 truncated at ±1 %, 'bimodal' σ = 1 %/2 with "
+                + "|deviation| < 0.4 % missing;",
+            "expanded transfer uncertainty uniform 5–15 ppm (unequal: the sweep's exact case does not apply); seed "
+                + "1. 'upper bound' is proven (never below the optimum); gap = (bound − sets) / bound.",
+            "'part count' = the smaller of the Hall-type counting bound and the supply LP over nominal classes (a "
+                + "part in a pair",
+            "gives half a fill; docs/planning.md); for the matched form parts that fit no common window are not "
+                + "counted, for networks",
+            "of at most 7 positions parts that no set within the reel's range can hold. Time includes the bound; a "
+                + "search that stops",
             "at the time limit shows about 10 s.",
             "",
         ]);
         md.AddRange(reels);
         md.AddRange(["", "## 10 000 parts, matched quad", "", "Time limit 60 s; otherwise as above.", ""]);
         md.AddRange(big);
+        md.AddRange(["", "## Online cups vs their K-cup bound", "", .. YieldBench.Description]);
+        md.AddRange(yield);
         md.AddRange([
             "",
-            "## Online cups vs their K-cup bound",
+            "## Sweep time",
             "",
-            .. YieldBench.Description,
+            "The window sweep alone (neighbourhood search off), median of 3 runs after a warm-up. Parts of the "
+                + "recipe's nominals",
+            "(and pair nominals), deviations normal σ = 0.3 %, 10 ppm uncertainty.",
+            "",
         ]);
-        md.AddRange(yield);
-        md.AddRange(["", "## Sweep time", "", "The window sweep alone (neighbourhood search off), median of 3 runs after a warm-up. Parts of the recipe's nominals", "(and pair nominals), deviations normal σ = 0.3 %, 10 ppm uncertainty.", ""]);
         md.AddRange(timing);
         await File.WriteAllLinesAsync(Path.Combine(root, "docs", "bench-planning.md"), md, ct).ConfigureAwait(false);
         return 0;

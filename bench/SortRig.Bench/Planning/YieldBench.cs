@@ -13,13 +13,16 @@ internal static class YieldBench
     /// <summary>The text above the table in docs/bench-planning.md.</summary>
     public static readonly string[] Description =
     [
-        "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad (4 parts",
-        "within 0.1 %). 'normal' and 'bimodal' as above; seeds 1–5, mean of 5 reels. Sets from cups = Σ floor(count / 4).",
+        "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad (4 "
+            + "parts within 0.1 %). 'normal' and 'bimodal' as above; seeds 1–5, mean of 5 reels. Sets from cups = Σ "
+            + "floor(count / 4).",
         "'K-cup bound' = most parts K disjoint 1000 ppm windows of measured values can hold on that reel, / 4 (not",
         "floored). 'worst-case K-cup bound' = the same for cups whose parts meet the recipe in the worst case, as the",
-        "adaptive planner's do: a part counts only when its whole interval x ± U is in the window, and the window's edges",
+        "adaptive planner's do: a part counts only when its whole interval x ± U is in the window, and the window's "
+            + "edges",
         "are 1 + 0.1 % apart as a ratio; no such K-cup plan can beat it. 'fixed bands' are centred 1000 ppm bands of",
-        "measured values (their cups can exceed 0.1 % in the worst case). Both bounds know the whole reel in advance; the",
+        "measured values (their cups can exceed 0.1 % in the worst case). Both bounds know the whole reel in "
+            + "advance; the",
         "online planner does not. 'lowest reel' is the worst of the 5 reels. The offline optimum is the assembler's.",
         "Target: adaptive ≥ 98 % of the K-cup bound. A check on other reels: `planning cups-seeds` (seeds 101–120;",
         "normal, bimodal, uniform and off-centre reels; not written).",
@@ -28,16 +31,25 @@ internal static class YieldBench
 
     /// <summary>The reels of the written table (seeds 1–5, normal and bimodal).</summary>
     public static List<string> Run(Recipe quad) =>
-        Run(quad, [.. Enumerable.Range(1, 5)],
-            [("normal", s => Reels.Normal(s, 1000)), ("bimodal", s => Reels.Bimodal(s, 1000))]);
+        Run(
+            quad,
+            [.. Enumerable.Range(1, 5)],
+            [("normal", s => Reels.Normal(s, 1000)), ("bimodal", s => Reels.Bimodal(s, 1000))]
+        );
 
     /// <summary>Seeds the written table does not use (101–120) and reel shapes it does not have; not written.</summary>
     public static List<string> RunOtherSeeds(Recipe quad) =>
-        Run(quad, [.. Enumerable.Range(101, 20)],
-        [
-            ("normal", s => Reels.Normal(s, 1000)), ("bimodal", s => Reels.Bimodal(s, 1000)),
-            ("uniform", s => Reels.Uniform(s, 1000)), ("offset", s => Reels.Offset(s, 1000)),
-        ], optimum: false);
+        Run(
+            quad,
+            [.. Enumerable.Range(101, 20)],
+            [
+                ("normal", s => Reels.Normal(s, 1000)),
+                ("bimodal", s => Reels.Bimodal(s, 1000)),
+                ("uniform", s => Reels.Uniform(s, 1000)),
+                ("offset", s => Reels.Offset(s, 1000)),
+            ],
+            optimum: false
+        );
 
     /// <summary>Debug: the bands and counts one reel ends with.</summary>
     public static void Show(Recipe quad, string kind, int k, int seed)
@@ -53,16 +65,21 @@ internal static class YieldBench
         var firstReject = new List<int>();
         for (var i = 0; i < devs.Count; i++)
         {
-            if (planner.Assign(new CupRequest(i + 1, 10e3, Reels.Part(i + 1, 10e3, devs[i], s_uPpm).Value)).IsReject
-                && Math.Abs(devs[i]) < 10_000)
+            if (
+                planner.Assign(new CupRequest(i + 1, 10e3, Reels.Part(i + 1, 10e3, devs[i], s_uPpm).Value)).IsReject
+                && Math.Abs(devs[i]) < 10_000
+            )
             {
                 firstReject.Add(i);
             }
         }
 
         var bound = CoverBound([.. devs], k, s_matchPpm) / 4.0;
-        Console.WriteLine(FormattableString.Invariant(
-            $"{kind} K={k} seed {seed}: sets {Sets(planner)} bound {bound} rejects {firstReject.Count}"));
+        Console.WriteLine(
+            FormattableString.Invariant(
+                $"{kind} K={k} seed {seed}: sets {Sets(planner)} bound {bound} rejects {firstReject.Count}"
+            )
+        );
         foreach (var c in planner.Counts.OrderBy(c => c.LowPpm))
         {
             Console.WriteLine(FormattableString.Invariant($"  {c.CupLabel} [{c.LowPpm:0},{c.HighPpm:0}] {c.Count}"));
@@ -72,20 +89,30 @@ internal static class YieldBench
     private static int Sets(ICupAssigner cups) => cups.Counts.Where(c => !c.IsReject).Sum(c => c.Count / 4);
 
     private static List<string> Run(
-        Recipe quad, int[] seeds, (string, Func<int, List<double>>)[] reels, bool optimum = true)
+        Recipe quad,
+        int[] seeds,
+        (string, Func<int, List<double>>)[] reels,
+        bool optimum = true
+    )
     {
         var rows = new List<string>
         {
             "| reel | K | fixed bands | adaptive | K-cup bound | worst-case K-cup bound | offline optimum "
-            + "| adaptive / K-cup bound "
-            + "| adaptive / worst-case bound | adaptive / optimum | ≥ 98 % of bound | lowest reel / worst-case bound |",
+                + "| adaptive / K-cup bound "
+                + "| adaptive / worst-case bound | adaptive / optimum | ≥ 98 % of bound | lowest reel / worst-case "
+                + "bound |",
             "|---|---|---|---|---|---|---|---|---|---|---|---|",
         };
         foreach (var (name, reel) in reels)
         {
             foreach (var k in new[] { 8, 12, 20 })
             {
-                double fixedSets = 0, adaptive = 0, bound = 0, strict = 0, best = 0, worst = double.MaxValue;
+                double fixedSets = 0,
+                    adaptive = 0,
+                    bound = 0,
+                    strict = 0,
+                    best = 0,
+                    worst = double.MaxValue;
                 foreach (var seed in seeds)
                 {
                     var devs = reel(seed);
@@ -106,13 +133,18 @@ internal static class YieldBench
                 var n = seeds.Length;
                 var opt = optimum ? FormattableString.Invariant($"{best / n:0.0}") : "–";
                 var ofOpt = optimum ? FormattableString.Invariant($"{100 * adaptive / best:0.0} %") : "–";
-                rows.Add(FormattableString.Invariant(
-                    $"| {name} | {k} | {fixedSets / n:0.0} | {adaptive / n:0.0} | {bound / n:0.0} ")
-                    + FormattableString.Invariant($"| {strict / n:0.0} | {opt} ")
-                    + FormattableString.Invariant(
-                    $"| {100 * adaptive / bound:0.0} % | {100 * adaptive / strict:0.0} % | {ofOpt} ")
-                    + FormattableString.Invariant(
-                    $"| {(adaptive >= 0.98 * bound ? "met" : "not met")} | {100 * worst:0.0} % |"));
+                rows.Add(
+                    FormattableString.Invariant(
+                        $"| {name} | {k} | {fixedSets / n:0.0} | {adaptive / n:0.0} | {bound / n:0.0} "
+                    )
+                        + FormattableString.Invariant($"| {strict / n:0.0} | {opt} ")
+                        + FormattableString.Invariant(
+                            $"| {100 * adaptive / bound:0.0} % | {100 * adaptive / strict:0.0} % | {ofOpt} "
+                        )
+                        + FormattableString.Invariant(
+                            $"| {(adaptive >= 0.98 * bound ? "met" : "not met")} | {100 * worst:0.0} % |"
+                        )
+                );
             }
         }
 

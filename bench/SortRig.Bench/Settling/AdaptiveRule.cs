@@ -3,7 +3,8 @@ using SortRig.Measurement.Specs;
 
 namespace SortRig.Bench.Settling;
 
-/// <summary>The adaptive settle rule: a <see cref="SettleTracker"/> fed the free-running readings until its verdict.</summary>
+/// <summary>The adaptive settle rule: a <see cref="SettleTracker"/> fed the free-running readings until its
+/// verdict.</summary>
 internal static class AdaptiveRule
 {
     private const int MaxReadings = 200_000;
@@ -18,7 +19,17 @@ internal static class AdaptiveRule
             if (verdict is { State: SettleState.Accepted, Acceptance: { } a })
             {
                 var v = a.Value;
-                return RuleOutcome.Measured(seconds, k + 1, v.Value, v.ExpandedTransfer, v.Expanded, insertion.Truth) with { Predicted = a.AcceptedBy == SettleRule.Predictive };
+                return RuleOutcome.Measured(
+                    seconds,
+                    k + 1,
+                    v.Value,
+                    v.ExpandedTransfer,
+                    v.Expanded,
+                    insertion.Truth
+                ) with
+                {
+                    Predicted = a.AcceptedBy == SettleRule.Predictive,
+                };
             }
 
             if (verdict.State == SettleState.Unstable)

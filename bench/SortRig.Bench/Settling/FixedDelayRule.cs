@@ -35,6 +35,13 @@ internal static class FixedDelayRule
 
         var value = ResistanceUncertainty.For(window, range, nplc, SpecPeriod.Year1, fourWire);
         // The meter may idle while the rule waits: one reading to see the contact, then the averaged ones.
-        return RuleOutcome.Measured(insertion.Since(first + Averaged - 1).TotalSeconds, Averaged + 1, value.Value, value.ExpandedTransfer, value.Expanded, insertion.Truth);
+        return RuleOutcome.Measured(
+            insertion.Since(first + Averaged - 1).TotalSeconds,
+            Averaged + 1,
+            value.Value,
+            value.ExpandedTransfer,
+            value.Expanded,
+            insertion.Truth
+        );
     }
 }

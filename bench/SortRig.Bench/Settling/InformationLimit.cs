@@ -10,7 +10,13 @@ namespace SortRig.Bench.Settling;
 /// </summary>
 internal static class InformationLimit
 {
-    public static RuleOutcome Run(Insertion insertion, double targetPpm, double readingSigmaOhms, TimeSpan bounce, TimeSpan horizon)
+    public static RuleOutcome Run(
+        Insertion insertion,
+        double targetPpm,
+        double readingSigmaOhms,
+        TimeSpan bounce,
+        TimeSpan horizon
+    )
     {
         var target = targetPpm * 1e-6 * insertion.Truth;
         var target2 = target * target;

@@ -17,11 +17,21 @@ namespace SortRig.Bench.Settling;
 /// <param name="Period">Time per reading (aperture with autozero + overhead).</param>
 /// <param name="Phase">Where in its aperture the meter was at contact, 0..1.</param>
 /// <param name="Range">Full scale of the locked range, ohms.</param>
-/// <param name="Read">The simulator's reading at a time since contact (ohms or 9.9E37); draws one noise value per call.</param>
+/// <param name="Read">The simulator's reading at a time since contact (ohms or 9.9E37); draws one noise value per
+/// call.</param>
 /// <param name="Presented">The noise-free value the part presents at a time since contact, ohms.</param>
 internal sealed record Insertion(
-    int Index, double WarmKelvin, double TempcoPpmPerKelvin, double Truth, DateTimeOffset InsertedAt, TimeSpan Period, double Phase, double Range,
-    Func<TimeSpan, double> Read, Func<TimeSpan, double> Presented)
+    int Index,
+    double WarmKelvin,
+    double TempcoPpmPerKelvin,
+    double Truth,
+    DateTimeOffset InsertedAt,
+    TimeSpan Period,
+    double Phase,
+    double Range,
+    Func<TimeSpan, double> Read,
+    Func<TimeSpan, double> Presented
+)
 {
     private readonly List<Reading> _readings = [];
     private readonly List<double> _clean = [];
@@ -44,7 +54,8 @@ internal sealed record Insertion(
     }
 
     /// <summary>Index of the first aperture ending at or after the given time since contact.</summary>
-    public int FirstEndingAtOrAfter(TimeSpan since) => Math.Max(0, (int)Math.Ceiling((since.Ticks / (double)Period.Ticks) - Phase - 1e-9));
+    public int FirstEndingAtOrAfter(TimeSpan since) =>
+        Math.Max(0, (int)Math.Ceiling((since.Ticks / (double)Period.Ticks) - Phase - 1e-9));
 
     private void Ensure(int k)
     {

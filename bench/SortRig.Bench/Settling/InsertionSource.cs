@@ -30,7 +30,14 @@ internal sealed class InsertionSource
     public InsertionSource(ReelSpec reel, PhysicsModel physics, int seed, double range, double nplc)
     {
         _clock = new VirtualClock(new DateTimeOffset(2026, 1, 5, 8, 0, 0, TimeSpan.Zero));
-        var options = new SimulatedBenchOptions { Seed = seed, Reel = reel, Physics = new PhysicsSpec { Model = physics }, Operator = new OperatorOptions { Mode = OperatorMode.Manual }, TcpPort = null };
+        var options = new SimulatedBenchOptions
+        {
+            Seed = seed,
+            Reel = reel,
+            Physics = new PhysicsSpec { Model = physics },
+            Operator = new OperatorOptions { Mode = OperatorMode.Manual },
+            TcpPort = null,
+        };
         _bench = new SimulatedBench(options, _clock);
         _bounce = new ContactBounce(options.ContactBounce, SeedStreams.Derive(seed, SeedStreams.Bounce));
         _settings = MeterSettings.Default with
@@ -48,7 +55,8 @@ internal sealed class InsertionSource
     /// <summary>The reel's part at an index (diagnosis only: the rules never see it).</summary>
     public SimulatedPart Part(int index) => _bench.Reel[index];
 
-    /// <summary>Inserts each part in turn (the previous one is removed first); readings are generated while it is in.</summary>
+    /// <summary>Inserts each part in turn (the previous one is removed first); readings are generated while it is
+    /// in.</summary>
     public IEnumerable<Insertion> Insertions()
     {
         var engine = _bench.Device.Engine;
@@ -65,7 +73,18 @@ internal sealed class InsertionSource
             var at = fixture.InsertedAt!.Value;
             double Read(TimeSpan since) => engine.Convert(fixture.Sample(at + since, _bounce), _settings);
             double Presented(TimeSpan since) => fixture.Presented(at + since, _range);
-            yield return new Insertion(i, warm, part.TempcoPpmPerKelvin, fixture.Settled(at, _range), at, _period, phase, _range, Read, Presented);
+            yield return new Insertion(
+                i,
+                warm,
+                part.TempcoPpmPerKelvin,
+                fixture.Settled(at, _range),
+                at,
+                _period,
+                phase,
+                _range,
+                Read,
+                Presented
+            );
         }
 
         fixture.Remove();

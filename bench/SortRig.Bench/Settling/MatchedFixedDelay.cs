@@ -15,9 +15,14 @@ internal sealed class MatchedFixedDelay(RangeSpec range, NplcSpec nplc)
     private readonly List<RuleOutcome[]> _outcomes = [];
 
     public void Add(Insertion insertion) =>
-        _outcomes.Add([.. Enumerable.Range(1, Steps).Select(k => FixedDelayRule.Run(insertion, range, nplc, fourWire: true, Step * k))]);
+        _outcomes.Add([
+            .. Enumerable
+                .Range(1, Steps)
+                .Select(k => FixedDelayRule.Run(insertion, range, nplc, fourWire: true, Step * k)),
+        ]);
 
-    /// <summary>The matched delay and its outcomes, or the longest delay (and null delay) when none qualifies.</summary>
+    /// <summary>The matched delay and its outcomes, or the longest delay (and null delay) when none
+    /// qualifies.</summary>
     public (TimeSpan? Delay, IReadOnlyList<RuleOutcome> Outcomes) Match(double targetPpm)
     {
         for (var k = 0; k < Steps; k++)

@@ -13,9 +13,12 @@ internal static class ResultsTable
     {
         var lines = new List<string>
         {
-            "### Overview (targets: predictive ≤ 0.6 × limit; false accepts vs 2 × target ≤ 0.1 % at the 95 % upper bound; ≥ 2 × faster than the matched fixed delay)",
+            "### Overview (targets: predictive ≤ 0.6 × limit; false accepts vs 2 × target ≤ 0.1 % at the 95 % upper "
+                + "bound; ≥ 2 × faster than the matched fixed delay)",
             "",
-            "| case | limit s | averaging s (× limit) | predictive s (× limit) | predictive parts/h | by prediction | predictive false accepts vs 2 × target: n / accepted, 95 % upper | matched fixed delay s | fixed / predictive | targets |",
+            "| case | limit s | averaging s (× limit) | predictive s (× limit) | predictive parts/h | by prediction "
+                + "| predictive false accepts vs 2 × target: n / accepted, 95 % upper | matched fixed delay s | fixed "
+                + "/ predictive | targets |",
             "|---|---|---|---|---|---|---|---|---|---|",
         };
         foreach (var c in cases)
@@ -25,21 +28,42 @@ internal static class ResultsTable
             var speedup = c.Fixed.Seconds.Mean / p.Seconds.Mean;
             var met = ratio <= 0.6 && p.UpperTarget <= 0.001 && speedup >= 2 && c.FixedMatched;
             var fixedText = c.FixedMatched ? FormattableString.Invariant($"{c.Fixed.Seconds.Mean:0.00}") : "> 40";
-            lines.Add(FormattableString.Invariant(
-                $"| {c.Name} | {c.Limit.Seconds.Mean:0.00} | {c.Averaging.Seconds.Mean:0.00} ({c.Averaging.Seconds.Mean / c.Limit.Seconds.Mean:0.00}) | {p.Seconds.Mean:0.00} ({ratio:0.00}) | {p.PartsPerHour:0} | {100.0 * p.Predicted / Math.Max(1, p.Accepted):0.0} % | {p.FalseAcceptsTarget} / {p.Accepted}, {100 * p.UpperTarget:0.###} % | {fixedText} | {(c.FixedMatched ? "" : "> ")}{speedup:0.0} | {Verdict(met)} |"));
+            lines.Add(
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"| {c.Name} | {c.Limit.Seconds.Mean:0.00} | {c.Averaging.Seconds.Mean:0.00} ("
+                        + $"{c.Averaging.Seconds.Mean / c.Limit.Seconds.Mean:0.00}) | {p.Seconds.Mean:0.00} ("
+                        + $"{ratio:0.00}) | {p.PartsPerHour:0} | "
+                        + $"{100.0 * p.Predicted / Math.Max(1, p.Accepted):0.0} % | {p.FalseAcceptsTarget} / "
+                        + $"{p.Accepted}, {100 * p.UpperTarget:0.###} % | {fixedText} | "
+                        + $"{(c.FixedMatched ? "" : "> ")}{speedup:0.0} | {Verdict(met)} |"
+                )
+            );
         }
 
         lines.Add("");
         return lines;
     }
 
-    public static List<string> Section(SettleCase c, NplcSpec nplc, IReadOnlyList<RuleSummary> adaptive, RuleSummary fixedDelay, RuleSummary limit)
+    public static List<string> Section(
+        SettleCase c,
+        NplcSpec nplc,
+        IReadOnlyList<RuleSummary> adaptive,
+        RuleSummary fixedDelay,
+        RuleSummary limit
+    )
     {
         var lines = new List<string>
         {
-            FormattableString.Invariant($"### {c.Name} ({c.Reel.Count} insertions, seed {c.Seed}, {nplc.ReadingsPerSecond:G3} readings/s in the profile)"),
+            string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"### {c.Name} ({c.Reel.Count} insertions, seed {c.Seed}, {nplc.ReadingsPerSecond:G3} readings/s in "
+                    + $"the profile)"
+            ),
             "",
-            "| rule | accepted / unstable | s mean | s median | s p95 | parts/h | × limit | readings mean | false accepts vs U (k=2): n, rate, 95 % upper | vs 2 × target: n, rate, 95 % upper | abs. error ppm: median / p99 / max | median U ppm |",
+            "| rule | accepted / unstable | s mean | s median | s p95 | parts/h | × limit | readings mean | false "
+                + "accepts vs U (k=2): n, rate, 95 % upper | vs 2 × target: n, rate, 95 % upper | abs. error ppm: "
+                + "median / p99 / max | median U ppm |",
             "|---|---|---|---|---|---|---|---|---|---|---|---|",
         };
         lines.AddRange(adaptive.Append(fixedDelay).Append(limit).Select(s => Row(s, limit)));
@@ -49,12 +73,16 @@ internal static class ResultsTable
 
     public static async Task WriteAsync(string path, IReadOnlyList<string> results, CancellationToken ct)
     {
-        var text = File.Exists(path) ? await File.ReadAllTextAsync(path, ct).ConfigureAwait(false) : $"# Settle rule benchmark\n\n{Begin}\n{End}\n";
+        var text = File.Exists(path)
+            ? await File.ReadAllTextAsync(path, ct).ConfigureAwait(false)
+            : $"# Settle rule benchmark\n\n{Begin}\n{End}\n";
         var begin = text.IndexOf(Begin, StringComparison.Ordinal);
         var end = text.IndexOf(End, StringComparison.Ordinal);
         if (begin < 0 || end < begin)
         {
-            throw new InvalidDataException($"{path}: the markers '{Begin}' and '{End}' (in that order) are needed to place the results.");
+            throw new InvalidDataException(
+                $"{path}: the markers '{Begin}' and '{End}' (in that order) are needed to place the results."
+            );
         }
 
         var body = string.Join('\n', results).TrimEnd();
@@ -64,11 +92,21 @@ internal static class ResultsTable
 
     private static string Row(RuleSummary s, RuleSummary limit)
     {
-        string Fa(int n, double rate, double upper) => s.Measures ? FormattableString.Invariant($"{n}, {100 * rate:0.###} %, {100 * upper:0.###} %") : "—";
-        var errors = s.Measures ? FormattableString.Invariant($"{s.MedianAbsErrorPpm:0.0} / {s.P99AbsErrorPpm:0.0} / {s.MaxAbsErrorPpm:0.0}") : "—";
+        string Fa(int n, double rate, double upper) =>
+            s.Measures ? FormattableString.Invariant($"{n}, {100 * rate:0.###} %, {100 * upper:0.###} %") : "—";
+        var errors = s.Measures
+            ? FormattableString.Invariant(
+                $"{s.MedianAbsErrorPpm:0.0} / {s.P99AbsErrorPpm:0.0} / {s.MaxAbsErrorPpm:0.0}"
+            )
+            : "—";
         var u = s.Measures ? FormattableString.Invariant($"{s.MedianUPpm:0.0}") : "—";
-        return FormattableString.Invariant(
-            $"| {s.Rule} | {s.Accepted} / {s.Unstable} | {s.Seconds.Mean:0.00} | {s.Seconds.Median:0.00} | {s.Seconds.P95:0.00} | {s.PartsPerHour:0} | {s.Seconds.Mean / limit.Seconds.Mean:0.00} | {s.Readings.Mean:0.0} | {Fa(s.FalseAcceptsU, s.RateU, s.UpperU)} | {Fa(s.FalseAcceptsTarget, s.RateTarget, s.UpperTarget)} | {errors} | {u} |");
+        return string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"| {s.Rule} | {s.Accepted} / {s.Unstable} | {s.Seconds.Mean:0.00} | {s.Seconds.Median:0.00} | "
+                + $"{s.Seconds.P95:0.00} | {s.PartsPerHour:0} | {s.Seconds.Mean / limit.Seconds.Mean:0.00} | "
+                + $"{s.Readings.Mean:0.0} | {Fa(s.FalseAcceptsU, s.RateU, s.UpperU)} | "
+                + $"{Fa(s.FalseAcceptsTarget, s.RateTarget, s.UpperTarget)} | {errors} | {u} |"
+        );
     }
 
     private static string Verdict(bool met) => met ? "**met**" : "**not met**";

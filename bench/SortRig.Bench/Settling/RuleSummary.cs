@@ -2,10 +2,22 @@ using MathNet.Numerics.Statistics;
 
 namespace SortRig.Bench.Settling;
 
-/// <summary>Figures of one rule over a reel. Quantiles are MathNet's default (R-8, approximately median-unbiased).</summary>
+/// <summary>Figures of one rule over a reel. Quantiles are MathNet's default (R-8, approximately
+/// median-unbiased).</summary>
 internal sealed record RuleSummary(
-    string Rule, int Parts, int Accepted, Spread Seconds, Spread Readings,
-    int FalseAcceptsU, int FalseAcceptsTarget, double MedianAbsErrorPpm, double P99AbsErrorPpm, double MaxAbsErrorPpm, double MedianUPpm, int Predicted)
+    string Rule,
+    int Parts,
+    int Accepted,
+    Spread Seconds,
+    Spread Readings,
+    int FalseAcceptsU,
+    int FalseAcceptsTarget,
+    double MedianAbsErrorPpm,
+    double P99AbsErrorPpm,
+    double MaxAbsErrorPpm,
+    double MedianUPpm,
+    int Predicted
+)
 {
     public int Unstable => Parts - Accepted;
 
@@ -22,7 +34,8 @@ internal sealed record RuleSummary(
 
     public bool Measures => Accepted > 0 && !double.IsNaN(MedianAbsErrorPpm);
 
-    /// <summary>Summarises outcomes; a false accept is an accepted value whose |error| exceeds its stated U, or 2 × target.</summary>
+    /// <summary>Summarises outcomes; a false accept is an accepted value whose |error| exceeds its stated U, or 2 ×
+    /// target.</summary>
     public static RuleSummary Of(string rule, IReadOnlyList<RuleOutcome> outcomes, double targetPpm)
     {
         var accepted = outcomes.Where(o => o.Accepted).ToList();
@@ -31,14 +44,19 @@ internal sealed record RuleSummary(
         var faU = measured.Count(o => Math.Abs(o.ErrorPpm) > o.ExpandedTransferPpm);
         var faT = measured.Count(o => Math.Abs(o.ErrorPpm) > 2 * targetPpm);
         return new RuleSummary(
-            rule, outcomes.Count, accepted.Count,
-            Spread.Of(outcomes.Select(o => o.Seconds)), Spread.Of(outcomes.Select(o => (double)o.Readings)),
-            faU, faT,
+            rule,
+            outcomes.Count,
+            accepted.Count,
+            Spread.Of(outcomes.Select(o => o.Seconds)),
+            Spread.Of(outcomes.Select(o => (double)o.Readings)),
+            faU,
+            faT,
             abs.Length > 0 ? abs.Median() : double.NaN,
             abs.Length > 0 ? abs.Quantile(0.99) : double.NaN,
             abs.Length > 0 ? abs.Max() : double.NaN,
             measured.Count > 0 ? measured.Select(o => o.ExpandedTransferPpm).Median() : double.NaN,
-            accepted.Count(o => o.Predicted));
+            accepted.Count(o => o.Predicted)
+        );
     }
 }
 

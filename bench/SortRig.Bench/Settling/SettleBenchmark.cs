@@ -18,7 +18,8 @@ internal static class SettleBenchmark
         int? simpleParts = args.Length > 2 && int.TryParse(args[2], out var q) ? q : null;
         var root = RepositoryRoot.Find();
         var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
-        var range = profile.FindRange(SettleCase.Range) ?? throw new InvalidOperationException("simulator profile has no 10 kOhm range");
+        var range = profile.FindRange(SettleCase.Range)
+            ?? throw new InvalidOperationException("simulator profile has no 10 kOhm range");
         var averaging = SettleCase.SortOptions();
         var variants = new (string, SettleOptions)[]
         {
@@ -33,14 +34,19 @@ internal static class SettleBenchmark
         Parallel.For(0, cases.Count, new ParallelOptions { MaxDegreeOfParallelism = 4, CancellationToken = ct }, i =>
         {
             var c = cases[i];
-            var nplc = profile.FindNplc(c.Nplc) ?? throw new InvalidOperationException($"simulator profile has no NPLC {c.Nplc}");
+            var nplc = profile.FindNplc(c.Nplc)
+                ?? throw new InvalidOperationException($"simulator profile has no NPLC {c.Nplc}");
             var setting = NplcSetting.Find(c.Nplc)!;
-            var sigma = Math.Sqrt(Math.Pow(setting.NoiseOhms(range.FullScale), 2) + (Math.Pow(setting.Step(range.FullScale), 2) / 12));
+            var sigma = Math.Sqrt(
+                Math.Pow(setting.NoiseOhms(range.FullScale), 2) + (Math.Pow(setting.Step(range.FullScale), 2) / 12)
+            );
             var bounce = new SimulatedBenchOptions().ContactBounce;
             var outcomes = c.Variants.Select(_ => new List<RuleOutcome>()).ToList();
             var fixedDelay = new MatchedFixedDelay(range, nplc);
             var limit = new List<RuleOutcome>();
-            foreach (var insertion in new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc).Insertions())
+            foreach (
+                var insertion in new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc).Insertions()
+            )
             {
                 ct.ThrowIfCancellationRequested();
                 for (var v = 0; v < c.Variants.Count; v++)
@@ -49,10 +55,14 @@ internal static class SettleBenchmark
                 }
 
                 fixedDelay.Add(insertion);
-                limit.Add(InformationLimit.Run(insertion, SettleCase.TargetPpm, sigma, bounce, TimeSpan.FromSeconds(55)));
+                limit.Add(
+                    InformationLimit.Run(insertion, SettleCase.TargetPpm, sigma, bounce, TimeSpan.FromSeconds(55))
+                );
             }
 
-            var summaries = c.Variants.Select((v, i) => RuleSummary.Of(v.Name, outcomes[i], SettleCase.TargetPpm)).ToList();
+            var summaries = c
+                .Variants.Select((v, i) => RuleSummary.Of(v.Name, outcomes[i], SettleCase.TargetPpm))
+                .ToList();
             var (delay, matched) = fixedDelay.Match(SettleCase.TargetPpm);
             var delayName = delay is { } d
                 ? FormattableString.Invariant($"fixed delay, accuracy-matched: {d.TotalSeconds:0.0} s + 10 readings")
@@ -61,7 +71,13 @@ internal static class SettleBenchmark
             var limitSummary = RuleSummary.Of("information limit (oracle)", limit, SettleCase.TargetPpm);
             var section = ResultsTable.Section(c, nplc, summaries, fixedSummary, limitSummary);
             var caseOverview = new CaseOverview(
-                c.Name, summaries[0], summaries[1], fixedSummary, delay is not null, limitSummary);
+                c.Name,
+                summaries[0],
+                summaries[1],
+                fixedSummary,
+                delay is not null,
+                limitSummary
+            );
             results[i] = (section, caseOverview);
             var elapsed = FormattableString.Invariant($"\n({clock.Elapsed.TotalSeconds:0} s so far)");
             Console.WriteLine(string.Join('\n', section) + elapsed);
@@ -69,19 +85,29 @@ internal static class SettleBenchmark
 
         var all = ResultsTable.Overview([.. results.Select(r => r.Overview)]);
         all.AddRange(results.SelectMany(r => r.Section));
-        var counts = simpleParts is { } sp && sp != parts
-            ? FormattableString.Invariant($"{parts} insertions per rich case, {sp} per simple case")
-            : FormattableString.Invariant($"{parts} insertions per case");
+        var counts =
+            simpleParts is { } sp && sp != parts
+                ? FormattableString.Invariant($"{parts} insertions per rich case, {sp} per simple case")
+                : FormattableString.Invariant($"{parts} insertions per case");
         var wall = clock.Elapsed.TotalSeconds;
-        all.Add(FormattableString.Invariant($"Run: {counts}, four cases at a time, {wall:0} s wall ")
-            + FormattableString.Invariant($"on {Environment.ProcessorCount} cores, .NET {Environment.Version}."));
+        all.Add(
+            FormattableString.Invariant($"Run: {counts}, four cases at a time, {wall:0} s wall ")
+                + FormattableString.Invariant($"on {Environment.ProcessorCount} cores, .NET {Environment.Version}.")
+        );
         await ResultsTable.WriteAsync(Path.Combine(root, "docs", "bench-settle.md"), all, ct).ConfigureAwait(false);
         return 0;
     }
 }
 
 /// <summary>One case's figures for the overview table.</summary>
-internal sealed record CaseOverview(string Name, RuleSummary Averaging, RuleSummary Predictive, RuleSummary Fixed, bool FixedMatched, RuleSummary Limit);
+internal sealed record CaseOverview(
+    string Name,
+    RuleSummary Averaging,
+    RuleSummary Predictive,
+    RuleSummary Fixed,
+    bool FixedMatched,
+    RuleSummary Limit
+);
 
 /// <summary>Finds the repository root (the folder holding SortRig.sln) from the working directory up.</summary>
 internal static class RepositoryRoot
@@ -94,6 +120,9 @@ internal static class RepositoryRoot
             dir = dir.Parent;
         }
 
-        return dir?.FullName ?? throw new InvalidOperationException("Run from inside the repository (no SortRig.sln found above the working directory).");
+        return dir?.FullName
+            ?? throw new InvalidOperationException(
+                "Run from inside the repository (no SortRig.sln found above the working directory)."
+            );
     }
 }

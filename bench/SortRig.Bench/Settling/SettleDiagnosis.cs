@@ -55,9 +55,12 @@ internal static class SettleDiagnosis
                 {
                     bad++;
                     var left = (ins.Clean(k) - ins.Truth) / ins.Truth * 1e6;
-                    Console.WriteLine(Inv($"#{ins.Index} err {err,6:0.0} ppm at {ins.Since(k).TotalSeconds,5:0.00} s ")
-                        + Inv($"by {a.AcceptedBy}; left {left,6:0.0} ppm; ")
-                        + (a.Fit is { } f ? FitText(f, ins.Truth) : "") + PartText(source.Part(ins.Index), ins));
+                    Console.WriteLine(
+                        Inv($"#{ins.Index} err {err, 6:0.0} ppm at {ins.Since(k).TotalSeconds, 5:0.00} s ")
+                            + Inv($"by {a.AcceptedBy}; left {left, 6:0.0} ppm; ")
+                            + (a.Fit is { } f ? FitText(f, ins.Truth) : "")
+                            + PartText(source.Part(ins.Index), ins)
+                    );
                 }
 
                 break;
@@ -65,9 +68,11 @@ internal static class SettleDiagnosis
         }
 
         var fallback = (seconds - predictedSeconds) / (n - predicted);
-        Console.WriteLine(Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
-            + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
-            + Inv($"mean {seconds / n:0.00} s"));
+        Console.WriteLine(
+            Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
+                + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
+                + Inv($"mean {seconds / n:0.00} s")
+        );
         return 0;
     }
 
@@ -98,12 +103,14 @@ internal static class SettleDiagnosis
                 {
                     var ppm = 1e6 / ins.Truth;
                     var err = (f.FinalValue - ins.Truth) * ppm;
-                    Console.WriteLine(Inv($"  {ins.Since(k).TotalSeconds,5:0.0} s err {err,6:0.0} ")
-                        + Inv($"white {white} left {(ins.Clean(k) - ins.Truth) * ppm:0.0}; ") + FitText(f, ins.Truth));
+                    Console.WriteLine(
+                        Inv($"  {ins.Since(k).TotalSeconds, 5:0.0} s err {err, 6:0.0} ")
+                            + Inv($"white {white} left {(ins.Clean(k) - ins.Truth) * ppm:0.0}; ")
+                            + FitText(f, ins.Truth)
+                    );
                 }
             }
         }
-
     }
 
     private static string Inv(FormattableString text) => FormattableString.Invariant(text);

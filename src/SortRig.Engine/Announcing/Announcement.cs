@@ -15,7 +15,8 @@ public sealed record Announcement(
     double Ohms,
     double DeviationPpm,
     string Text,
-    bool CompletesSet = false)
+    bool CompletesSet = false
+)
 {
     /// <summary>An information-only announcement.</summary>
     public static Announcement Info(string text) => new(AnnouncementKind.Info, 0, "", double.NaN, double.NaN, text);

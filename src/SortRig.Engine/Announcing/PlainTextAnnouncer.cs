@@ -25,11 +25,23 @@ public sealed class PlainTextAnnouncer(TextWriter writer) : IAnnouncer
     }
 
     /// <summary>The line written for an announcement.</summary>
-    public static string Describe(Announcement a) => a.Kind switch
-    {
-        AnnouncementKind.Info => "note: " + a.Text,
-        AnnouncementKind.Unstable => string.Create(CultureInfo.InvariantCulture, $"part {a.PartNumber}: unstable - {a.Text}"),
-        AnnouncementKind.Repeat => string.Create(CultureInfo.InvariantCulture, $"part {a.PartNumber}: cup {a.Label} (repeated)  {OhmsText.Format(a.Ohms)}  {OhmsText.Ppm(a.DeviationPpm)}"),
-        _ => string.Create(CultureInfo.InvariantCulture, $"part {a.PartNumber}: cup {a.Label}  {OhmsText.Format(a.Ohms)}  {OhmsText.Ppm(a.DeviationPpm)}{(a.CompletesSet ? "  set complete" : "")}"),
-    };
+    public static string Describe(Announcement a) =>
+        a.Kind switch
+        {
+            AnnouncementKind.Info => "note: " + a.Text,
+            AnnouncementKind.Unstable => string.Create(
+                CultureInfo.InvariantCulture,
+                $"part {a.PartNumber}: unstable - {a.Text}"
+            ),
+            AnnouncementKind.Repeat => string.Create(
+                CultureInfo.InvariantCulture,
+                $"part {a.PartNumber}: cup {a.Label} (repeated)  {OhmsText.Format(a.Ohms)}  "
+                    + $"{OhmsText.Ppm(a.DeviationPpm)}"
+            ),
+            _ => string.Create(
+                CultureInfo.InvariantCulture,
+                $"part {a.PartNumber}: cup {a.Label}  {OhmsText.Format(a.Ohms)}  {OhmsText.Ppm(a.DeviationPpm)}"
+                    + $"{(a.CompletesSet ? "  set complete" : "")}"
+            ),
+        };
 }

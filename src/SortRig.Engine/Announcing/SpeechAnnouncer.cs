@@ -45,13 +45,16 @@ public sealed class SpeechAnnouncer : IAnnouncer
     }
 
     /// <summary>What is said: the cup label spelled clearly, never the raw numbers.</summary>
-    public static string Words(Announcement a) => a.Kind switch
-    {
-        AnnouncementKind.Cup or AnnouncementKind.Repeat => "cup " + a.Label + (a.CompletesSet ? ", set complete" : ""),
-        AnnouncementKind.Reject => "reject",
-        AnnouncementKind.Unstable => "unstable, reseat the part",
-        _ => a.Text,
-    };
+    public static string Words(Announcement a) =>
+        a.Kind switch
+        {
+            AnnouncementKind.Cup or AnnouncementKind.Repeat => "cup "
+                + a.Label
+                + (a.CompletesSet ? ", set complete" : ""),
+            AnnouncementKind.Reject => "reject",
+            AnnouncementKind.Unstable => "unstable, reseat the part",
+            _ => a.Text,
+        };
 
     private static string? FindOnPath(string name)
     {

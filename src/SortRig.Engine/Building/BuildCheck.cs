@@ -14,7 +14,8 @@ namespace SortRig.Engine.Building;
 /// </summary>
 /// <param name="target">The target.</param>
 /// <param name="options">Assembler limits for the check (a short time limit keeps the check cheap).</param>
-/// <param name="stockTolerance">Stock tolerance of the reel, fraction: the span the completing band is searched in.</param>
+/// <param name="stockTolerance">Stock tolerance of the reel, fraction: the span the completing band is searched
+/// in.</param>
 internal sealed class BuildCheck(BuildTarget target, AssemblyOptions options, double stockTolerance)
 {
     // Most offered parts for which the completing band is probed (each probe is one assembly).
@@ -27,7 +28,8 @@ internal sealed class BuildCheck(BuildTarget target, AssemblyOptions options, do
     public AssemblyOptions Options => options;
 
     /// <summary>Evaluates the build.</summary>
-    /// <param name="parts">Every logged part of the session (any state; only those the plan verb would offer are used).</param>
+    /// <param name="parts">Every logged part of the session (any state; only those the plan verb would offer are
+    /// used).</param>
     /// <param name="feeding">Nominal of the batch being fed, ohms (preferred on ties).</param>
     public BuildStatus Evaluate(IReadOnlyList<PartRecord> parts, double feeding)
     {
@@ -57,8 +59,12 @@ internal sealed class BuildCheck(BuildTarget target, AssemblyOptions options, do
     private PlanOutcome PreferCups(Recipe recipe, IReadOnlyList<PartRecord> parts, PlanOutcome byPart)
     {
         var offered = byPart.Offered;
-        if (recipe.Form != RecipeForm.Matched || recipe.Positions.Select(p => p.Nominal).Distinct().Count() > 1
-            || offered.Count == 0 || !offered.All(PartWhere.InSharedCup))
+        if (
+            recipe.Form != RecipeForm.Matched
+            || recipe.Positions.Select(p => p.Nominal).Distinct().Count() > 1
+            || offered.Count == 0
+            || !offered.All(PartWhere.InSharedCup)
+        )
         {
             return byPart;
         }
@@ -75,9 +81,10 @@ internal sealed class BuildCheck(BuildTarget target, AssemblyOptions options, do
         }
 
         var sets = plan.List.Sets.Take(target.Sets).ToList();
-        var picked = plan.List.Source == PickSource.Cups
-            ? plan.PickedIds.Take(sets.Sum(s => s.Items.Count)).ToList()
-            : sets.SelectMany(s => s.Items).Select(i => i.PartId!.Value).ToList();
+        var picked =
+            plan.List.Source == PickSource.Cups
+                ? plan.PickedIds.Take(sets.Sum(s => s.Items.Count)).ToList()
+                : sets.SelectMany(s => s.Items).Select(i => i.PartId!.Value).ToList();
         var unused = plan.Offered.Select(p => p.Id).Except(picked).Order().ToList();
         var list = plan.List with { Sets = sets, UnusedPartIds = plan.List.Source == PickSource.Cups ? [] : unused };
         return plan with { List = list, PickedIds = picked };
@@ -97,7 +104,11 @@ internal sealed class BuildCheck(BuildTarget target, AssemblyOptions options, do
         }
 
         var candidates = offered.Select(p => PlanParts.Candidate(p, qualify: false)).ToList();
-        var same = offered.Where(p => options.SameNominal(p.Nominal, nominal)).Select(p => p.Measured.ExpandedTransfer / p.Value).Order().ToList();
+        var same = offered
+            .Where(p => options.SameNominal(p.Nominal, nominal))
+            .Select(p => p.Measured.ExpandedTransfer / p.Value)
+            .Order()
+            .ToList();
         var relativeU = same.Count > 0 ? same[same.Count / 2] : 0;
         var span = stockTolerance * 1e6;
         var step = 2 * span / (ProbeSteps - 1);

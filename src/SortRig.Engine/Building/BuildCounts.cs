@@ -5,8 +5,8 @@ namespace SortRig.Engine.Building;
 
 /// <summary>
 /// Lower bounds on the parts a build still needs, from counts alone (pure). The recipe's positions fall in classes by
-/// nominal; class j needs N·D_j fills for N sets. A part of nominal n gives one fill to class j = n as a single, or half
-/// a fill to a class it may pair for (series: n = j/2, parallel: n = 2j). Parts are given out as singles first (a
+/// nominal; class j needs N·D_j fills for N sets. A part of nominal n gives one fill to class j = n as a single, or
+/// half a fill to a class it may pair for (series: n = j/2, parallel: n = 2j). Parts are given out as singles first (a
 /// single fill never costs more parts than a half), then the leftovers as halves by a small maximum flow; what stays
 /// short, in fills, is a lower bound on the parts still needed, since a new part gives at most one fill.
 /// </summary>
@@ -22,8 +22,12 @@ internal static class BuildCounts
         ArgumentOutOfRangeException.ThrowIfLessThan(sets, 1);
         var classes = recipe.Positions.Select(p => p.Nominal).Distinct().Order().ToArray();
         var demand = classes.Select(c => recipe.Positions.Count(p => p.Nominal == c)).ToArray();
-        var series = classes.Select(c => recipe.Positions.Any(p => p.Nominal == c && p.Pairs.HasFlag(PairBuilds.Series))).ToArray();
-        var parallel = classes.Select(c => recipe.Positions.Any(p => p.Nominal == c && p.Pairs.HasFlag(PairBuilds.Parallel))).ToArray();
+        var series = classes
+            .Select(c => recipe.Positions.Any(p => p.Nominal == c && p.Pairs.HasFlag(PairBuilds.Series)))
+            .ToArray();
+        var parallel = classes
+            .Select(c => recipe.Positions.Any(p => p.Nominal == c && p.Pairs.HasFlag(PairBuilds.Parallel)))
+            .ToArray();
 
         // Parts grouped by what they can do: (single class or -1, bit mask of classes they may be half a pair for).
         var groups = new Dictionary<(int Single, int Halves), int>();
@@ -33,14 +37,20 @@ internal static class BuildCounts
             var halves = 0;
             for (var j = 0; j < classes.Length; j++)
             {
-                halves |= (series[j] && options.SameNominal(n, classes[j] / 2)) || (parallel[j] && options.SameNominal(n, classes[j] * 2)) ? 1 << j : 0;
+                halves |=
+                    (series[j] && options.SameNominal(n, classes[j] / 2))
+                    || (parallel[j] && options.SameNominal(n, classes[j] * 2))
+                        ? 1 << j
+                        : 0;
             }
 
             groups[(single, halves)] = groups.GetValueOrDefault((single, halves)) + 1;
         }
 
         var (shortFills, onHand) = Short(sets, demand, groups);
-        var needs = classes.Select((c, j) => new NominalNeed(c, sets * demand[j], onHand[j], (int)Math.Ceiling(shortFills[j] - 1e-9))).ToList();
+        var needs = classes
+            .Select((c, j) => new NominalNeed(c, sets * demand[j], onHand[j], (int)Math.Ceiling(shortFills[j] - 1e-9)))
+            .ToList();
         var more = (int)Math.Ceiling(shortFills.Sum() - 1e-9);
         var bound = 0;
         while (bound < partNominals.Count && Short(bound + 1, demand, groups).Short.Sum() < 1e-9)
@@ -52,7 +62,11 @@ internal static class BuildCounts
     }
 
     // Fills short per class for `sets` sets, and the fills the parts give each class, singles first then halves.
-    private static (double[] Short, double[] Given) Short(int sets, int[] demand, Dictionary<(int Single, int Halves), int> groups)
+    private static (double[] Short, double[] Given) Short(
+        int sets,
+        int[] demand,
+        Dictionary<(int Single, int Halves), int> groups
+    )
     {
         var k = demand.Length;
         var left = demand.Select(d => (double)(sets * d)).ToArray();

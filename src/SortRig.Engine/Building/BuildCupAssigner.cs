@@ -8,9 +8,11 @@ namespace SortRig.Engine.Building;
 /// the reject cup (the slot tray's reject bin in slot mode) instead of a cup or slot; every other part is placed as
 /// before. The log keeps the reject label, so a restart restores it through the inner assigner.
 /// </summary>
-internal sealed class BuildCupAssigner(ICupAssigner inner, double stockTolerance, AssemblyOptions options, bool slots) : ICupAssigner
+internal sealed class BuildCupAssigner(ICupAssigner inner, double stockTolerance, AssemblyOptions options, bool slots)
+    : ICupAssigner
 {
-    /// <summary>The build; null places every part as the inner assigner does (set once the session's target is known).</summary>
+    /// <summary>The build; null places every part as the inner assigner does (set once the session's target is
+    /// known).</summary>
     public BuildTarget? Target { get; set; }
 
     private readonly Dictionary<long, CupRequest> _turnedAway = [];
@@ -32,7 +34,9 @@ internal sealed class BuildCupAssigner(ICupAssigner inner, double stockTolerance
             var i = counts.FindIndex(c => c.IsReject);
             if (i < 0)
             {
-                counts.Add(new CupCount(0, CupLabels.Reject, counts.Count, true, _turnedAway.Count, double.NaN, double.NaN, 0));
+                counts.Add(
+                    new CupCount(0, CupLabels.Reject, counts.Count, true, _turnedAway.Count, double.NaN, double.NaN, 0)
+                );
             }
             else
             {
@@ -46,7 +50,9 @@ internal sealed class BuildCupAssigner(ICupAssigner inner, double stockTolerance
     /// <inheritdoc />
     public CupDecision Assign(CupRequest request)
     {
-        var use = Target is { } target ? PartUse.Judge(target.Recipe, request.Nominal, request.Value, stockTolerance, options) : new PartUse(true, "");
+        var use = Target is { } target
+            ? PartUse.Judge(target.Recipe, request.Nominal, request.Value, stockTolerance, options)
+            : new PartUse(true, "");
         LastReason = use.Reason;
         if (use.Helps)
         {
@@ -59,7 +65,10 @@ internal sealed class BuildCupAssigner(ICupAssigner inner, double stockTolerance
         }
 
         var index = inner.Counts.FirstOrDefault(c => c.IsReject)?.CupIndex ?? inner.Counts.Count;
-        return new CupDecision(CupLabels.Reject, index, true, "cannot help the build: " + use.Reason, false) { IsSlot = slots };
+        return new CupDecision(CupLabels.Reject, index, true, "cannot help the build: " + use.Reason, false)
+        {
+            IsSlot = slots,
+        };
     }
 
     /// <inheritdoc />

@@ -18,7 +18,11 @@ internal static class BuildTargets
 
         var yaml = await RecipeLimits.ReadAsync(options.Recipe, ct).ConfigureAwait(false);
         var recipe = RecipeLoader.Load(yaml, options.Recipe);
-        return new BuildTarget(recipe, Math.Max(1, options.Sets), CsvPath(options)) { RecipePath = options.Recipe, RecipeYaml = yaml };
+        return new BuildTarget(recipe, Math.Max(1, options.Sets), CsvPath(options))
+        {
+            RecipePath = options.Recipe,
+            RecipeYaml = yaml,
+        };
     }
 
     /// <summary>The record kept with the session.</summary>
@@ -28,7 +32,11 @@ internal static class BuildTargets
     /// <summary>The target from the session's record (the recipe from its stored text).</summary>
     /// <exception cref="RecipeException">The stored text is no longer a valid recipe.</exception>
     public static BuildTarget FromRecord(BuildTargetRecord record) =>
-        new(RecipeLoader.Load(record.RecipeYaml, record.RecipePath), record.Sets, record.CsvPath) { RecipePath = record.RecipePath, RecipeYaml = record.RecipeYaml };
+        new(RecipeLoader.Load(record.RecipeYaml, record.RecipePath), record.Sets, record.CsvPath)
+        {
+            RecipePath = record.RecipePath,
+            RecipeYaml = record.RecipeYaml,
+        };
 
     /// <summary>The pick list's CSV path: the option, else SESSION-sets.csv in the working directory.</summary>
     public static string CsvPath(SortOptions options)

@@ -24,11 +24,23 @@ internal sealed record PartUse(bool Helps, string Reason)
     /// <param name="value">Its value on the session's reference scale.</param>
     /// <param name="stockTolerance">Stock tolerance of the reel, fraction.</param>
     /// <param name="options">Nominal match window.</param>
-    public static PartUse Judge(Recipe recipe, double nominal, MeasuredValue value, double stockTolerance, AssemblyOptions options)
+    public static PartUse Judge(
+        Recipe recipe,
+        double nominal,
+        MeasuredValue value,
+        double stockTolerance,
+        AssemblyOptions options
+    )
     {
         if (!Picking.PlanParts.Wanted(nominal, recipe, options))
         {
-            return new PartUse(false, string.Create(CultureInfo.InvariantCulture, $"no position of {recipe.Name} takes {BuildStatus.Ohms(nominal)} parts"));
+            return new PartUse(
+                false,
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"no position of {recipe.Name} takes {BuildStatus.Ohms(nominal)} parts"
+                )
+            );
         }
 
         if (recipe.Form != RecipeForm.Matched)
@@ -47,8 +59,14 @@ internal sealed record PartUse(bool Helps, string Reason)
         if (high > (1 + stockTolerance) * window || low < (1 - stockTolerance) / window)
         {
             var ppm = (value.Value / nominal - 1) * 1e6;
-            return new PartUse(false, string.Create(CultureInfo.InvariantCulture,
-                $"at {ppm:+0;-0} ppm no part within the reel's ±{stockTolerance * 1e6:0} ppm can match it within {recipe.MatchTolerancePpm:0.###} ppm"));
+            return new PartUse(
+                false,
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"at {ppm:+0;-0} ppm no part within the reel's ±{stockTolerance * 1e6:0} ppm can match it within "
+                        + $"{recipe.MatchTolerancePpm:0.###} ppm"
+                )
+            );
         }
 
         return s_helps;

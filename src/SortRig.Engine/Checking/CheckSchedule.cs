@@ -1,6 +1,7 @@
 namespace SortRig.Engine.Checking;
 
-/// <summary>When the check is due between parts: every N parts and/or every M minutes (whichever comes first).</summary>
+/// <summary>When the check is due between parts: every N parts and/or every M minutes (whichever comes
+/// first).</summary>
 /// <param name="EveryParts">Parts between checks; 0 for no count.</param>
 /// <param name="Every">Time between checks; zero for no clock.</param>
 public sealed record CheckSchedule(int EveryParts, TimeSpan Every)

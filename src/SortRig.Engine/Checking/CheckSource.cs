@@ -10,9 +10,10 @@ namespace SortRig.Engine.Checking;
 public sealed record CheckSource(CheckSourceKind Kind, double Nominal, long? LibraryPartId, double? CalibratedOhms)
 {
     /// <summary>The name its readings are kept under in the log ("fixture:10000", "library:41").</summary>
-    public string Name => Kind == CheckSourceKind.Library
-        ? string.Create(CultureInfo.InvariantCulture, $"library:{LibraryPartId}")
-        : string.Create(CultureInfo.InvariantCulture, $"fixture:{Nominal:G9}");
+    public string Name =>
+        Kind == CheckSourceKind.Library
+            ? string.Create(CultureInfo.InvariantCulture, $"library:{LibraryPartId}")
+            : string.Create(CultureInfo.InvariantCulture, $"fixture:{Nominal:G9}");
 
     /// <summary>
     /// Reads the --check text: "fixture:&lt;ohms&gt;" (or just "&lt;ohms&gt;") for a reference part at the fixture,
@@ -35,8 +36,11 @@ public sealed record CheckSource(CheckSourceKind Kind, double Nominal, long? Lib
         switch (kind)
         {
             case "fixture":
-                if (!double.TryParse(rest, NumberStyles.Float, CultureInfo.InvariantCulture, out var nominal)
-                    || !double.IsFinite(nominal) || nominal is < 1e-3 or > 1e9)
+                if (
+                    !double.TryParse(rest, NumberStyles.Float, CultureInfo.InvariantCulture, out var nominal)
+                    || !double.IsFinite(nominal)
+                    || nominal is < 1e-3 or > 1e9
+                )
                 {
                     throw new FormatException($"'{text}' is not fixture:<ohms> with ohms in [0.001, 1e9]");
                 }

@@ -11,5 +11,13 @@ namespace SortRig.Engine.Checking;
 /// <param name="Flagged">Parts waiting to be measured again.</param>
 /// <param name="GainPpm">The meter's apparent gain against the calibrated value, ppm, when known.</param>
 public sealed record CheckView(
-    string Name, int Seq, DateTimeOffset At, double ValueOhms, double SigmaScore, bool InControl, string Reason,
-    int Flagged, double? GainPpm);
+    string Name,
+    int Seq,
+    DateTimeOffset At,
+    double ValueOhms,
+    double SigmaScore,
+    bool InControl,
+    string Reason,
+    int Flagged,
+    double? GainPpm
+);

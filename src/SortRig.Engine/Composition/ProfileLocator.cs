@@ -7,10 +7,10 @@ public static class ProfileLocator
 {
     /// <summary>Folders searched for "&lt;name&gt;.yaml", in order.</summary>
     public static IReadOnlyList<string> SearchFolders =>
-    [
-        Path.Combine(Environment.CurrentDirectory, "instruments"),
-        Path.Combine(AppContext.BaseDirectory, "instruments"),
-    ];
+        [
+            Path.Combine(Environment.CurrentDirectory, "instruments"),
+            Path.Combine(AppContext.BaseDirectory, "instruments"),
+        ];
 
     /// <summary>Loads the profile; throws <see cref="FileNotFoundException"/> listing where it looked.</summary>
     public static MeterProfile Load(string nameOrPath)
@@ -20,7 +20,9 @@ public static class ProfileLocator
             return MeterProfileLoader.Load(nameOrPath);
         }
 
-        var fileName = nameOrPath.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) ? nameOrPath : nameOrPath + ".yaml";
+        var fileName = nameOrPath.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase)
+            ? nameOrPath
+            : nameOrPath + ".yaml";
         foreach (var folder in SearchFolders)
         {
             var candidate = Path.Combine(folder, fileName);
@@ -31,6 +33,8 @@ public static class ProfileLocator
         }
 
         throw new FileNotFoundException(
-            $"No meter profile '{nameOrPath}': not a file, and no {fileName} in {string.Join(" or ", SearchFolders)}.", nameOrPath);
+            $"No meter profile '{nameOrPath}': not a file, and no {fileName} in {string.Join(" or ", SearchFolders)}.",
+            nameOrPath
+        );
     }
 }

@@ -24,14 +24,23 @@ public static class SortRunner
     /// <summary>Runs one session to its end. The embedded simulator, if any, lives for the call.</summary>
     /// <param name="options">Session settings.</param>
     /// <param name="services">Shared services.</param>
-    /// <param name="onSimulatorStarted">Called with the embedded simulator once it serves (tests read its truth).</param>
+    /// <param name="onSimulatorStarted">Called with the embedded simulator once it serves (tests read its
+    /// truth).</param>
     /// <param name="ct">Stops the session.</param>
     public static Task<SortOutcome> RunAsync(
-        SortOptions options, SortServices services, Action<SimulatedBench>? onSimulatorStarted, CancellationToken ct) =>
-        RunWithHooksAsync(options, services, new SimulatorHooks { Started = onSimulatorStarted }, ct);
+        SortOptions options,
+        SortServices services,
+        Action<SimulatedBench>? onSimulatorStarted,
+        CancellationToken ct
+    ) => RunWithHooksAsync(options, services, new SimulatorHooks { Started = onSimulatorStarted }, ct);
 
     /// <summary>Runs one session to its end with test hooks for the embedded simulator.</summary>
-    internal static async Task<SortOutcome> RunWithHooksAsync(SortOptions options, SortServices services, SimulatorHooks hooks, CancellationToken ct)
+    internal static async Task<SortOutcome> RunWithHooksAsync(
+        SortOptions options,
+        SortServices services,
+        SimulatorHooks hooks,
+        CancellationToken ct
+    )
     {
         var profile = ProfileLocator.Load(options.Profile);
         var plan = SortPlan.For(options, profile.Spec);
@@ -49,7 +58,8 @@ public static class SortRunner
                     hooks.Configure?.Invoke(benchOptions) ?? benchOptions,
                     services.Time,
                     services.Loggers,
-                    hooks.OperatorTime);
+                    hooks.OperatorTime
+                );
                 resource = hooks.Serve is { } serve
                     ? await serve(bench, ct).ConfigureAwait(false)
                     : $"TCPIP::127.0.0.1::{(await bench.StartTcpAsync(0, ct).ConfigureAwait(false)).Port}::SOCKET";
@@ -60,12 +70,20 @@ public static class SortRunner
             ResourceStringParser.Parse(resource); // a bad resource fails here, before the log is opened
             var links = new MessageLinkFactory(services.LinkTime ?? services.Time);
             var connector = new MeterConnector(links, services.Time, services.Loggers);
-            await using var log = await PrecisionLogFactory.OpenAsync(
-                options.Database,
-                new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
-                ct).ConfigureAwait(false);
+            await using var log = await PrecisionLogFactory
+                .OpenAsync(
+                    options.Database,
+                    new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
+                    ct
+                )
+                .ConfigureAwait(false);
             var target = await BuildTargets.LoadAsync(options, ct).ConfigureAwait(false);
-            var cups = new BuildCupAssigner(CupAssignerFactory.Create(options), options.StockTolerance, new AssemblyOptions(), options.Assigner == AssignerKind.Slots);
+            var cups = new BuildCupAssigner(
+                CupAssignerFactory.Create(options),
+                options.StockTolerance,
+                new AssemblyOptions(),
+                options.Assigner == AssignerKind.Slots
+            );
             var context = new SortContext(
                 plan,
                 c => connector.ConnectAsync(resource, profile, checkIdentity: true, c),
@@ -77,7 +95,11 @@ public static class SortRunner
                 services.Commands,
                 hands,
                 services.Time,
-                services.Loggers.CreateLogger("SortRig.Engine.Sorting")) { Build = target };
+                services.Loggers.CreateLogger("SortRig.Engine.Sorting")
+            )
+            {
+                Build = target,
+            };
             return await new SortingLoop(context).RunAsync(ct).ConfigureAwait(false);
         }
         finally

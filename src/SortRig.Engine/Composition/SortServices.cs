@@ -26,7 +26,8 @@ public sealed record SortServices(
     BenchSnapshot Snapshot,
     OperatorCommands Commands,
     IAnnouncer Announcer,
-    ILoggerFactory Loggers)
+    ILoggerFactory Loggers
+)
 {
     /// <summary>Clock of link timeouts (connect, write, reply); null: <see cref="Time"/>. A session on a
     /// <see cref="VirtualClock"/> gives the system clock here, so that virtual time never times out real socket

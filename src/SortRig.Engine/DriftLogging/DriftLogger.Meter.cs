@@ -6,7 +6,8 @@ using SortRig.Measurement.Readings;
 
 namespace SortRig.Engine.DriftLogging;
 
-/// <summary>The meter side: connect, scan, verify the setup, recover from faults and keep the gap open meanwhile.</summary>
+/// <summary>The meter side: connect, scan, verify the setup, recover from faults and keep the gap open
+/// meanwhile.</summary>
 internal sealed partial class DriftLogger
 {
     private static readonly Backoff s_backoff = new(TimeSpan.FromMilliseconds(500), TimeSpan.FromSeconds(30));
@@ -61,11 +62,21 @@ internal sealed partial class DriftLogger
         }
 
         _gap = (_lastGood, reason);
-        hub.Publish(new BenchEvent(0, BenchEventKind.Notice, default, State: "drift-gap",
-            Text: $"drift log: {reason}; reconnecting (gap from {_lastGood:HH:mm:ss})"));
+        hub.Publish(
+            new BenchEvent(
+                0,
+                BenchEventKind.Notice,
+                default,
+                State: "drift-gap",
+                Text: $"drift log: {reason}; reconnecting (gap from {_lastGood:HH:mm:ss})"
+            )
+        );
     }
 
-    private async Task CloseGapAtEndAsync(System.Threading.Channels.ChannelWriter<DriftWrite> writer, CancellationToken storageFailed)
+    private async Task CloseGapAtEndAsync(
+        System.Threading.Channels.ChannelWriter<DriftWrite> writer,
+        CancellationToken storageFailed
+    )
     {
         if (_gap is not { } gap || storageFailed.IsCancellationRequested)
         {
@@ -74,7 +85,15 @@ internal sealed partial class DriftLogger
 
         _gap = null;
         var to = time.GetUtcNow();
-        var item = new DriftWrite(default, new Storage.Contracts.DriftGap(_runId, gap.From, to < gap.From ? gap.From : to, $"{gap.Reason}; the run ended before the meter came back"));
+        var item = new DriftWrite(
+            default,
+            new Storage.Contracts.DriftGap(
+                _runId,
+                gap.From,
+                to < gap.From ? gap.From : to,
+                $"{gap.Reason}; the run ended before the meter came back"
+            )
+        );
         try
         {
             await writer.WriteAsync(item, storageFailed).ConfigureAwait(false);

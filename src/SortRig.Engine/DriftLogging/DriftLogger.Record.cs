@@ -7,12 +7,17 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.DriftLogging;
 
-/// <summary>Turns one good scan into stored samples: Pt100 to degC, temperature interpolated to each part reading.</summary>
+/// <summary>Turns one good scan into stored samples: Pt100 to degC, temperature interpolated to each part
+/// reading.</summary>
 internal sealed partial class DriftLogger
 {
     private double[]? _firstOhms;
 
-    private async Task RecordAsync(IReadOnlyList<Reading> readings, ChannelWriter<DriftWrite> writer, CancellationToken ct)
+    private async Task RecordAsync(
+        IReadOnlyList<Reading> readings,
+        ChannelWriter<DriftWrite> writer,
+        CancellationToken ct
+    )
     {
         var began = time.GetUtcNow();
         var finite = readings.Where(r => r.Kind == ReadingKind.Finite).Select(r => r.Time).ToList();
@@ -20,15 +25,28 @@ internal sealed partial class DriftLogger
         {
             _gap = null;
             var to = finite.Min();
-            await writer.WriteAsync(new DriftWrite(default, new DriftGap(_runId, gap.From, to, gap.Reason)), ct).ConfigureAwait(false);
-            hub.Publish(new BenchEvent(0, BenchEventKind.Notice, default, State: "drift-resumed",
-                Text: $"drift log: meter back; gap {gap.From:HH:mm:ss}..{to:HH:mm:ss} marked ({gap.Reason})"));
+            await writer
+                .WriteAsync(new DriftWrite(default, new DriftGap(_runId, gap.From, to, gap.Reason)), ct)
+                .ConfigureAwait(false);
+            hub.Publish(
+                new BenchEvent(
+                    0,
+                    BenchEventKind.Notice,
+                    default,
+                    State: "drift-resumed",
+                    Text: $"drift log: meter back; gap {gap.From:HH:mm:ss}..{to:HH:mm:ss} marked ({gap.Reason})"
+                )
+            );
         }
 
         var parts = settings.Channels.Count;
         var thermometer = settings.Pt100Channel is not null;
-        (Reading Reading, double? Celsius)? before = thermometer ? (readings[0], ScanTemperature.Celsius(readings[0])) : null;
-        (Reading Reading, double? Celsius)? after = thermometer ? (readings[^1], ScanTemperature.Celsius(readings[^1])) : null;
+        (Reading Reading, double? Celsius)? before = thermometer
+            ? (readings[0], ScanTemperature.Celsius(readings[0]))
+            : null;
+        (Reading Reading, double? Celsius)? after = thermometer
+            ? (readings[^1], ScanTemperature.Celsius(readings[^1]))
+            : null;
         _firstOhms ??= new double[parts];
         for (var i = 0; i < readings.Count; i++)
         {
@@ -41,8 +59,15 @@ internal sealed partial class DriftLogger
 
             var isPt100 = thermometer && (i == 0 || i == readings.Count - 1);
             var channel = isPt100 ? parts : (thermometer ? i - 1 : i);
-            var celsius = isPt100 ? ScanTemperature.Celsius(reading) : ScanTemperature.Interpolate(before, after, reading.Time);
-            await writer.WriteAsync(new DriftWrite(new StoredDriftSample(_runId, channel, reading.Time, reading.Value, celsius), null), ct).ConfigureAwait(false);
+            var celsius = isPt100
+                ? ScanTemperature.Celsius(reading)
+                : ScanTemperature.Interpolate(before, after, reading.Time);
+            await writer
+                .WriteAsync(
+                    new DriftWrite(new StoredDriftSample(_runId, channel, reading.Time, reading.Value, celsius), null),
+                    ct
+                )
+                .ConfigureAwait(false);
             if (!isPt100)
             {
                 Publish(channel, reading, celsius);
@@ -67,8 +92,16 @@ internal sealed partial class DriftLogger
 
         _gap = (_lastGood, "storage unreachable: the sample buffer was full and scans were held back");
         Log.DriftHeldBack(logger, _runId, waited.TotalSeconds);
-        hub.Publish(new BenchEvent(0, BenchEventKind.Notice, default, State: "drift-gap",
-            Text: $"drift log: the database did not take samples for {waited.TotalSeconds:0} s; buffered samples are written, the scans missed are marked as a gap from {_lastGood:HH:mm:ss}"));
+        hub.Publish(
+            new BenchEvent(
+                0,
+                BenchEventKind.Notice,
+                default,
+                State: "drift-gap",
+                Text: $"drift log: the database did not take samples for {waited.TotalSeconds:0} s; buffered samples "
+                    + $"are written, the scans missed are marked as a gap from {_lastGood:HH:mm:ss}"
+            )
+        );
     }
 
     private void Publish(int channel, Reading reading, double? celsius)
@@ -82,7 +115,19 @@ internal sealed partial class DriftLogger
         var label = DriftSettings.PartLabel(settings.Channels[channel]);
         var ppm = ((reading.Value / first) - 1) * 1e6;
         var temperature = celsius is { } c ? c.ToString(" 0.000 °C", CultureInfo.InvariantCulture) : "";
-        hub.Publish(new BenchEvent(0, BenchEventKind.Drift, default, Value: reading.Value, DeviationPpm: ppm, State: label,
-            Text: string.Create(CultureInfo.InvariantCulture, $"{label} {reading.Value:F4} Ω {ppm:+0.00;-0.00} ppm{temperature}")));
+        hub.Publish(
+            new BenchEvent(
+                0,
+                BenchEventKind.Drift,
+                default,
+                Value: reading.Value,
+                DeviationPpm: ppm,
+                State: label,
+                Text: string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"{label} {reading.Value:F4} Ω {ppm:+0.00;-0.00} ppm{temperature}"
+                )
+            )
+        );
     }
 }

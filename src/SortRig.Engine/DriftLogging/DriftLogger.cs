@@ -19,7 +19,8 @@ internal sealed partial class DriftLogger(
     IPrecisionLog log,
     BenchEventHub hub,
     TimeProvider time,
-    ILogger logger)
+    ILogger logger
+)
 {
     private readonly ResilientMeter _meter = new(connect, settings.Setup, identify: false);
     private long _runId;
@@ -27,27 +28,37 @@ internal sealed partial class DriftLogger(
     private long _skipped;
     private long _overloads;
 
-    /// <summary>Runs until the duration has passed or <paramref name="ct"/> is cancelled, then analyses the run.</summary>
+    /// <summary>Runs until the duration has passed or <paramref name="ct"/> is cancelled, then analyses the
+    /// run.</summary>
     /// <returns>The outcome; also after cancellation (everything read by then is stored).</returns>
     public async Task<DriftOutcome> RunAsync(CancellationToken ct)
     {
-        var labels = settings.Channels
-            .Select(c => new DriftChannel(DriftSettings.PartLabel(c), settings.LibraryParts.TryGetValue(c, out var part) ? part : null))
+        var labels = settings
+            .Channels.Select(c => new DriftChannel(
+                DriftSettings.PartLabel(c),
+                settings.LibraryParts.TryGetValue(c, out var part) ? part : null
+            ))
             .ToList();
         if (settings.Pt100Channel is { } pt)
         {
             labels.Add(new DriftChannel(DriftSettings.Pt100Label(pt)));
         }
 
-        var run = await log.StartDriftRunAsync(new DriftRunRequest(settings.RunName, labels, settings.Interval, settings.Notes), ct).ConfigureAwait(false);
+        var run = await log.StartDriftRunAsync(
+                new DriftRunRequest(settings.RunName, labels, settings.Interval, settings.Notes),
+                ct
+            )
+            .ConfigureAwait(false);
         _runId = run.Id;
         Log.DriftStarted(logger, run.Id, run.Name, labels.Count, settings.Interval.TotalSeconds);
-        var queue = Channel.CreateBounded<DriftWrite>(new BoundedChannelOptions(settings.BatchSize * 4)
-        {
-            FullMode = BoundedChannelFullMode.Wait,
-            SingleReader = true,
-            SingleWriter = true,
-        });
+        var queue = Channel.CreateBounded<DriftWrite>(
+            new BoundedChannelOptions(settings.BatchSize * 4)
+            {
+                FullMode = BoundedChannelFullMode.Wait,
+                SingleReader = true,
+                SingleWriter = true,
+            }
+        );
         var store = new DriftStore(log, settings.BatchSize, run.Id, time, logger);
         using var storageFailed = new CancellationTokenSource();
         using var measuring = CancellationTokenSource.CreateLinkedTokenSource(ct, storageFailed.Token);
@@ -78,7 +89,11 @@ internal sealed partial class DriftLogger(
         return new DriftOutcome(run.Id, _scans, store.Stored, store.Gaps, _skipped, _overloads, channels);
     }
 
-    private static async Task StoreAsync(DriftStore store, ChannelReader<DriftWrite> reader, CancellationTokenSource failed)
+    private static async Task StoreAsync(
+        DriftStore store,
+        ChannelReader<DriftWrite> reader,
+        CancellationTokenSource failed
+    )
     {
         try
         {
@@ -100,7 +115,7 @@ internal sealed partial class DriftLogger(
         var end = settings.Duration is { } d ? start + d : DateTimeOffset.MaxValue;
         _lastGood = start;
         var backoff = s_backoff.First;
-        for (long tick = 0; ;)
+        for (long tick = 0; ; )
         {
             var due = start + TimeSpan.FromTicks(interval.Ticks * tick);
             if (due >= end)

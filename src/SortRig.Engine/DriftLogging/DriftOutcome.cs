@@ -17,4 +17,5 @@ public sealed record DriftOutcome(
     int Gaps,
     long SkippedTicks,
     long Overloads,
-    IReadOnlyList<DriftChannelResult> Channels);
+    IReadOnlyList<DriftChannelResult> Channels
+);

@@ -14,7 +14,11 @@ public static class DriftRunAnalysis
     /// <param name="runId">Drift run id.</param>
     /// <param name="ct">Caller cancellation.</param>
     /// <exception cref="ArgumentException">No run has this id.</exception>
-    public static async Task<IReadOnlyList<DriftChannelResult>> AnalyzeAsync(IDriftLog log, long runId, CancellationToken ct)
+    public static async Task<IReadOnlyList<DriftChannelResult>> AnalyzeAsync(
+        IDriftLog log,
+        long runId,
+        CancellationToken ct
+    )
     {
         ArgumentNullException.ThrowIfNull(log);
         var run = await log.GetDriftRunAsync(runId, ct).ConfigureAwait(false)
@@ -28,7 +32,8 @@ public static class DriftRunAnalysis
         return [.. run.Channels.Select((c, i) => Analyze(c.Label, byChannel[i], run.Interval))];
     }
 
-    /// <summary>Analyses one channel's samples (ordered by time); the Pt100 channel gets its count and mean only.</summary>
+    /// <summary>Analyses one channel's samples (ordered by time); the Pt100 channel gets its count and mean
+    /// only.</summary>
     public static DriftChannelResult Analyze(string label, IReadOnlyList<DriftSample> samples, TimeSpan interval)
     {
         ArgumentNullException.ThrowIfNull(samples);
@@ -46,9 +51,14 @@ public static class DriftRunAnalysis
         var spread = samples.Count >= 3 && samples[^1].Time > samples[0].Time;
         var drift = spread ? DriftAnalysis.Drift(samples, mean) : null;
         (DriftTempcoFit? joint, string? note) = Joint(samples, mean);
-        var adev = samples.Count >= 3
-            ? AllanDeviation.Overlapping(AllanDeviation.FractionalDeviations(samples.Select(s => s.Ohms), mean), interval.TotalSeconds, AllanDeviation.OctaveFactors(samples.Count))
-            : [];
+        var adev =
+            samples.Count >= 3
+                ? AllanDeviation.Overlapping(
+                    AllanDeviation.FractionalDeviations(samples.Select(s => s.Ohms), mean),
+                    interval.TotalSeconds,
+                    AllanDeviation.OctaveFactors(samples.Count)
+                )
+                : [];
         return new DriftChannelResult(label, samples.Count, mean, drift, joint, note, adev);
     }
 

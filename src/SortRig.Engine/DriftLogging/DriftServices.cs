@@ -10,8 +10,10 @@ using SortRig.Storage;
 
 namespace SortRig.Engine.DriftLogging;
 
-/// <summary>Shared services of one drift run, owned by whoever hosts it (the drift verb, the worker or a test).</summary>
-/// <param name="Time">Clock of the logger, the meter driver and the embedded simulator (scaled or virtual for the simulator).</param>
+/// <summary>Shared services of one drift run, owned by whoever hosts it (the drift verb, the worker or a
+/// test).</summary>
+/// <param name="Time">Clock of the logger, the meter driver and the embedded simulator (scaled or virtual for the
+/// simulator).</param>
 /// <param name="LinkTime">Clock of link timeouts (connect, write, reply): the system clock, so that a scaled or
 /// virtual bench clock never times out real socket I/O.</param>
 /// <param name="Hub">Event stream (samples and notices).</param>

@@ -29,9 +29,11 @@ public sealed record DriftSettings(
     int BatchSize,
     string? Notes,
     int Seed,
-    double Speed)
+    double Speed
+)
 {
-    /// <summary>Library part id by part channel (stored as the channel's part); channels not in it hold no library part. Default none.</summary>
+    /// <summary>Library part id by part channel (stored as the channel's part); channels not in it hold no library
+    /// part. Default none.</summary>
     public IReadOnlyDictionary<int, long> LibraryParts { get; init; } = new Dictionary<int, long>();
 
     /// <summary>Prefix of a part channel's stored label ("ch101").</summary>
@@ -49,6 +51,7 @@ public sealed record DriftSettings(
     /// <summary>True when a stored label names the thermometer channel.</summary>
     public static bool IsPt100Label(string label) => label.StartsWith(Pt100LabelPrefix, StringComparison.Ordinal);
 
-    /// <summary>Scanner channels read in one scan: the Pt100 first and last (bracketing the parts), the parts between.</summary>
+    /// <summary>Scanner channels read in one scan: the Pt100 first and last (bracketing the parts), the parts
+    /// between.</summary>
     public IReadOnlyList<int> ScanOrder => Pt100Channel is { } pt ? [pt, .. Channels, pt] : Channels;
 }

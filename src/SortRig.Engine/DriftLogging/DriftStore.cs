@@ -60,7 +60,8 @@ internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeP
 
         // A retried append after an unknown outcome is safe: the log ignores samples it already has.
         var added = 0;
-        await RetryAsync(async c => added = await log.AppendDriftSamplesAsync(_batch, c).ConfigureAwait(false), ct).ConfigureAwait(false);
+        await RetryAsync(async c => added = await log.AppendDriftSamplesAsync(_batch, c).ConfigureAwait(false), ct)
+            .ConfigureAwait(false);
         Stored += added;
         _batch.Clear();
     }
@@ -76,7 +77,10 @@ internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeP
                 await write(ct).ConfigureAwait(false);
                 return;
             }
-            catch (StorageException e) when (StorageFaultRule.ClearsByItself(e.Fault) && WaitOut(e.Fault, attempt, firstFailure ??= time.GetUtcNow()))
+            catch (StorageException e)
+                when (StorageFaultRule.ClearsByItself(e.Fault)
+                    && WaitOut(e.Fault, attempt, firstFailure ??= time.GetUtcNow())
+                )
             {
                 Log.DriftStorageRetry(logger, runId, e.Fault.ToString(), e.Message, delay.TotalSeconds);
                 await Task.Delay(delay, time, ct).ConfigureAwait(false);
@@ -85,7 +89,6 @@ internal sealed class DriftStore(IDriftLog log, int batchSize, long runId, TimeP
         }
     }
 
-    private bool WaitOut(StorageFault fault, int attempt, DateTimeOffset firstFailure) => fault == StorageFault.Unavailable
-        ? time.GetUtcNow() - firstFailure < MaxOutage
-        : attempt < MaxAttempts;
+    private bool WaitOut(StorageFault fault, int attempt, DateTimeOffset firstFailure) =>
+        fault == StorageFault.Unavailable ? time.GetUtcNow() - firstFailure < MaxOutage : attempt < MaxAttempts;
 }

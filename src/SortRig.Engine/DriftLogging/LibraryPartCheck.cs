@@ -9,8 +9,13 @@ namespace SortRig.Engine.DriftLogging;
 /// </summary>
 internal static class LibraryPartCheck
 {
-    /// <exception cref="ArgumentException">Names <see cref="LibraryPartMap.Option"/>, the channel=part item and why it is refused.</exception>
-    public static async Task CheckAsync(IPrecisionLog log, IReadOnlyDictionary<int, long> parts, CancellationToken cancellationToken)
+    /// <exception cref="ArgumentException">Names <see cref="LibraryPartMap.Option"/>, the channel=part item and why it
+    /// is refused.</exception>
+    public static async Task CheckAsync(
+        IPrecisionLog log,
+        IReadOnlyDictionary<int, long> parts,
+        CancellationToken cancellationToken
+    )
     {
         foreach (var (channel, id) in parts.OrderBy(p => p.Key))
         {
@@ -24,7 +29,10 @@ internal static class LibraryPartCheck
             };
             if (why is not null)
             {
-                throw LibraryPartMap.Bad(string.Create(CultureInfo.InvariantCulture, $"{channel}={id}"), why + "; nothing was logged");
+                throw LibraryPartMap.Bad(
+                    string.Create(CultureInfo.InvariantCulture, $"{channel}={id}"),
+                    why + "; nothing was logged"
+                );
             }
         }
     }

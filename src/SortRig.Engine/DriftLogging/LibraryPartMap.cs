@@ -20,8 +20,8 @@ public static class LibraryPartMap
     /// <param name="text">Comma-separated items channel=part.</param>
     /// <param name="channels">The part channels being scanned.</param>
     /// <returns>Library part id by scanner channel.</returns>
-    /// <exception cref="ArgumentException">A malformed item, a channel not in the scan list or given twice, or a part on two channels;
-    /// the message names <see cref="Option"/> and the item.</exception>
+    /// <exception cref="ArgumentException">A malformed item, a channel not in the scan list or given twice, or a part
+    /// on two channels; the message names <see cref="Option"/> and the item.</exception>
     public static IReadOnlyDictionary<int, long> Parse(string? text, IReadOnlyList<int> channels)
     {
         ArgumentNullException.ThrowIfNull(channels);
@@ -98,8 +98,10 @@ public static class LibraryPartMap
         }
     }
 
-    private static string Tail(string message) => message.StartsWith(Option, StringComparison.Ordinal) ? message[Option.Length..].TrimStart(':', ' ') : message;
+    private static string Tail(string message) =>
+        message.StartsWith(Option, StringComparison.Ordinal) ? message[Option.Length..].TrimStart(':', ' ') : message;
 
     /// <summary>The error for one item; its ParamName is the configuration key.</summary>
-    internal static ArgumentException Bad(string item, string why, string key = Key) => new($"{Option}: item '{item}': {why}.", key);
+    internal static ArgumentException Bad(string item, string why, string key = Key) =>
+        new($"{Option}: item '{item}': {why}.", key);
 }

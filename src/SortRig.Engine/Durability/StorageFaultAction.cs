@@ -5,7 +5,8 @@ namespace SortRig.Engine.Durability;
 /// <summary>What a job does about a write to the precision log that failed (<see cref="StorageFaultRule"/>).</summary>
 internal enum StorageFaultAction
 {
-    /// <summary>Clears by itself (another program holds the lock, the server is briefly unreachable): retry with back-off.</summary>
+    /// <summary>Clears by itself (another program holds the lock, the server is briefly unreachable): retry with
+    /// back-off.</summary>
     Retry,
 
     /// <summary>
@@ -15,6 +16,7 @@ internal enum StorageFaultAction
     /// </summary>
     AskOperator,
 
-    /// <summary>A corrupt store, a constraint or a conflict: a bug or a misuse that retrying cannot cure; stop.</summary>
+    /// <summary>A corrupt store, a constraint or a conflict: a bug or a misuse that retrying cannot cure;
+    /// stop.</summary>
     Stop,
 }

@@ -13,26 +13,29 @@ namespace SortRig.Engine.Durability;
 internal static class StorageFaultRule
 {
     /// <summary>The action for a fault.</summary>
-    public static StorageFaultAction For(StorageFault fault) => fault switch
-    {
-        StorageFault.Locked or StorageFault.Unavailable => StorageFaultAction.Retry,
-        StorageFault.ReadOnly or StorageFault.DiskFull or StorageFault.Other => StorageFaultAction.AskOperator,
-        _ => StorageFaultAction.Stop,
-    };
+    public static StorageFaultAction For(StorageFault fault) =>
+        fault switch
+        {
+            StorageFault.Locked or StorageFault.Unavailable => StorageFaultAction.Retry,
+            StorageFault.ReadOnly or StorageFault.DiskFull or StorageFault.Other => StorageFaultAction.AskOperator,
+            _ => StorageFaultAction.Stop,
+        };
 
-    /// <summary>True when an operator at the bench can wait it out: every fault but <see cref="StorageFaultAction.Stop"/>.</summary>
+    /// <summary>True when an operator at the bench can wait it out: every fault but <see
+    /// cref="StorageFaultAction.Stop"/>.</summary>
     public static bool OperatorCanClear(StorageFault fault) => For(fault) != StorageFaultAction.Stop;
 
     /// <summary>True when an unattended job should retry: only faults that clear by themselves.</summary>
     public static bool ClearsByItself(StorageFault fault) => For(fault) == StorageFaultAction.Retry;
 
     /// <summary>The fault in plain words for the operator.</summary>
-    public static string Plain(StorageFault fault) => fault switch
-    {
-        StorageFault.ReadOnly => "the database cannot be written (read-only)",
-        StorageFault.Locked => "the database is locked by another program",
-        StorageFault.DiskFull => "the disk is full",
-        StorageFault.Unavailable => "the database cannot be reached",
-        _ => "the database could not write",
-    };
+    public static string Plain(StorageFault fault) =>
+        fault switch
+        {
+            StorageFault.ReadOnly => "the database cannot be written (read-only)",
+            StorageFault.Locked => "the database is locked by another program",
+            StorageFault.DiskFull => "the disk is full",
+            StorageFault.Unavailable => "the database cannot be reached",
+            _ => "the database could not write",
+        };
 }

@@ -23,4 +23,5 @@ public sealed record BenchEvent(
     double? DeviationPpm = null,
     string? State = null,
     string? Text = null,
-    IReadOnlyDictionary<string, int>? Counts = null);
+    IReadOnlyDictionary<string, int>? Counts = null
+);

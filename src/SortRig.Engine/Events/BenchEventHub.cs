@@ -51,7 +51,8 @@ public sealed class BenchEventHub
     /// <summary>Streams events published after the call (and, if asked, the kept history first).</summary>
     public async IAsyncEnumerable<BenchEvent> SubscribeAsync(
         bool includeHistory,
-        [System.Runtime.CompilerServices.EnumeratorCancellation] CancellationToken cancellationToken)
+        [System.Runtime.CompilerServices.EnumeratorCancellation] CancellationToken cancellationToken
+    )
     {
         var queue = new SubscriberQueue(SubscriberCapacity);
         lock (_gate)

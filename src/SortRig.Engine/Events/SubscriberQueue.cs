@@ -28,10 +28,17 @@ internal sealed class SubscriberQueue
     /// <summary>Events waiting to be read.</summary>
     public int Count
     {
-        get { lock (_gate) { return _events.Count; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _events.Count;
+            }
+        }
     }
 
-    /// <summary>True for the events a reader may miss: live readings and drift samples, superseded by the next one.</summary>
+    /// <summary>True for the events a reader may miss: live readings and drift samples, superseded by the next
+    /// one.</summary>
     public static bool MayDrop(BenchEvent e) => e.Kind is BenchEventKind.Reading or BenchEventKind.Drift;
 
     public void Write(BenchEvent e)

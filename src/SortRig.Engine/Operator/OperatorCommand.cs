@@ -15,6 +15,7 @@ public enum OperatorCommand
     /// <summary>End the session after the current part (key F).</summary>
     Finish,
 
-    /// <summary>After a check out of control: re-reference to the check and measure the flagged parts again (key R).</summary>
+    /// <summary>After a check out of control: re-reference to the check and measure the flagged parts again (key
+    /// R).</summary>
     RemeasureFlagged,
 }

@@ -6,7 +6,8 @@ namespace SortRig.Engine.Operator;
 public sealed class OperatorCommands
 {
     private readonly Channel<OperatorCommand> _channel = Channel.CreateUnbounded<OperatorCommand>(
-        new UnboundedChannelOptions { SingleReader = true });
+        new UnboundedChannelOptions { SingleReader = true }
+    );
 
     /// <summary>Queues an action.</summary>
     public void Post(OperatorCommand command) => _channel.Writer.TryWrite(command);
@@ -15,17 +16,19 @@ public sealed class OperatorCommands
     public bool TryTake(out OperatorCommand command) => _channel.Reader.TryRead(out command);
 
     /// <summary>Waits for the next action.</summary>
-    public ValueTask<OperatorCommand> TakeAsync(CancellationToken cancellationToken) => _channel.Reader.ReadAsync(cancellationToken);
+    public ValueTask<OperatorCommand> TakeAsync(CancellationToken cancellationToken) =>
+        _channel.Reader.ReadAsync(cancellationToken);
 
     /// <summary>Maps a key to an action: U undo, M measure again, P or space pause, F finish, R measure the flagged
     /// parts again.</summary>
-    public static OperatorCommand? FromKey(char key) => char.ToUpperInvariant(key) switch
-    {
-        'U' => OperatorCommand.UndoLast,
-        'M' => OperatorCommand.Remeasure,
-        'P' or ' ' => OperatorCommand.TogglePause,
-        'F' => OperatorCommand.Finish,
-        'R' => OperatorCommand.RemeasureFlagged,
-        _ => null,
-    };
+    public static OperatorCommand? FromKey(char key) =>
+        char.ToUpperInvariant(key) switch
+        {
+            'U' => OperatorCommand.UndoLast,
+            'M' => OperatorCommand.Remeasure,
+            'P' or ' ' => OperatorCommand.TogglePause,
+            'F' => OperatorCommand.Finish,
+            'R' => OperatorCommand.RemeasureFlagged,
+            _ => null,
+        };
 }

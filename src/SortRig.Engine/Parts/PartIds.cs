@@ -2,13 +2,15 @@ using System.Globalization;
 
 namespace SortRig.Engine.Parts;
 
-/// <summary>Parses part id lists given on the command line: "3,4,9" or ranges "12-15", mixed, in order, repeats dropped.</summary>
+/// <summary>Parses part id lists given on the command line: "3,4,9" or ranges "12-15", mixed, in order, repeats
+/// dropped.</summary>
 internal static class PartIds
 {
     /// <summary>Longest range accepted in one token.</summary>
     public const int MaxRange = 100_000;
 
-    /// <exception cref="ArgumentException">A token is not an id &gt; 0 or a range low-high with low &lt;= high.</exception>
+    /// <exception cref="ArgumentException">A token is not an id &gt; 0 or a range low-high with low &lt;=
+    /// high.</exception>
     public static IReadOnlyList<long> Parse(string? text, string option = "--ids")
     {
         var ids = new List<long>();
@@ -16,7 +18,8 @@ internal static class PartIds
         foreach (var raw in (text ?? "").Split([',', ' '], StringSplitOptions.RemoveEmptyEntries))
         {
             var dash = raw.IndexOf('-', 1);
-            long low, high;
+            long low,
+                high;
             if (dash < 0)
             {
                 low = high = Id(raw, raw, option);
@@ -27,7 +30,9 @@ internal static class PartIds
                 high = Id(raw[(dash + 1)..], raw, option);
                 if (high < low || high - low >= MaxRange)
                 {
-                    throw new ArgumentException($"{option}: '{raw}' must be a range low-high with low <= high and at most {MaxRange} ids");
+                    throw new ArgumentException(
+                        $"{option}: '{raw}' must be a range low-high with low <= high and at most {MaxRange} ids"
+                    );
                 }
             }
 
@@ -46,5 +51,7 @@ internal static class PartIds
     private static long Id(string text, string token, string option) =>
         long.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var id) && id > 0
             ? id
-            : throw new ArgumentException($"{option}: '{token}' is not a part id (a whole number > 0) or a range such as 12-15");
+            : throw new ArgumentException(
+                $"{option}: '{token}' is not a part id (a whole number > 0) or a range such as 12-15"
+            );
 }

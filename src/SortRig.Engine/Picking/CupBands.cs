@@ -12,7 +12,12 @@ namespace SortRig.Engine.Picking;
 /// </summary>
 internal static class CupBands
 {
-    public static IReadOnlyList<CupContent> From(Recipe recipe, IEnumerable<PartRecord> parts, AssemblyOptions options, bool qualify)
+    public static IReadOnlyList<CupContent> From(
+        Recipe recipe,
+        IEnumerable<PartRecord> parts,
+        AssemblyOptions options,
+        bool qualify
+    )
     {
         var nominals = recipe.Positions.Select(p => p.Nominal).Distinct().ToList();
         var result = new List<CupContent>();
@@ -21,7 +26,8 @@ internal static class CupBands
             .Select(p => (Part: p, Nominal: nominals.FirstOrDefault(n => options.SameNominal(p.Nominal, n))))
             .Where(t => t.Nominal > 0)
             .GroupBy(t => (t.Nominal, Label: PartWhere.Of(t.Part, qualify)))
-            .OrderBy(g => g.Key.Nominal).ThenBy(g => g.Key.Label, StringComparer.Ordinal);
+            .OrderBy(g => g.Key.Nominal)
+            .ThenBy(g => g.Key.Label, StringComparer.Ordinal);
         foreach (var g in groups)
         {
             var n = g.Key.Nominal;

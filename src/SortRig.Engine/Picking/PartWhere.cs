@@ -19,18 +19,23 @@ internal static class PartWhere
         }
 
         var place = SlotOf(part) ?? (CupOf(part) is { } cup ? "cup " + cup : null);
-        return place is null ? "" : qualify ? $"S{part.SessionId} {place}" : place;
+        return place is null ? ""
+            : qualify ? $"S{part.SessionId} {place}"
+            : place;
     }
 
-    /// <summary>The part's own slot, if it has one: a slot label, or a cup label that is not one of our cup letters.</summary>
+    /// <summary>The part's own slot, if it has one: a slot label, or a cup label that is not one of our cup
+    /// letters.</summary>
     public static string? SlotOf(PartRecord part) =>
         part.SlotLabel ?? (part.CupLabel is { } c && c != CupLabels.Reject && CupLabels.IndexOf(c) < 0 ? c : null);
 
-    /// <summary>The part's cup: its cup label when that is one of our cup letters or the reject cup, else null.</summary>
+    /// <summary>The part's cup: its cup label when that is one of our cup letters or the reject cup, else
+    /// null.</summary>
     public static string? CupOf(PartRecord part) =>
         part.CupLabel is { } c && (c == CupLabels.Reject || CupLabels.IndexOf(c) >= 0) ? c : null;
 
-    /// <summary>True when the part sits in a shared cup (a regular cup letter or the reject cup) and nowhere more exact.</summary>
+    /// <summary>True when the part sits in a shared cup (a regular cup letter or the reject cup) and nowhere more
+    /// exact.</summary>
     public static bool InSharedCup(PartRecord part) =>
         string.IsNullOrWhiteSpace(part.Location) && SlotOf(part) is null && CupOf(part) is not null;
 

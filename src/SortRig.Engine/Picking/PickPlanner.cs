@@ -6,23 +6,34 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.Picking;
 
-/// <summary>Plans the sets of a recipe from logged parts: by part with the set assembler, or by cup and count. Pure.</summary>
+/// <summary>Plans the sets of a recipe from logged parts: by part with the set assembler, or by cup and count.
+/// Pure.</summary>
 internal static class PickPlanner
 {
     /// <param name="recipe">Loaded recipe.</param>
     /// <param name="parts">Logged parts (any state; only those <see cref="PlanParts.Offered"/> are used).</param>
-    /// <param name="mode">How to name parts; Auto picks cups when every offered part is in a shared cup and the recipe is matched.</param>
+    /// <param name="mode">How to name parts; Auto picks cups when every offered part is in a shared cup and the recipe
+    /// is matched.</param>
     /// <param name="qualify">Prefix slots and cups with their session (parts from several sessions).</param>
     /// <param name="assembler">The set assembler.</param>
     /// <param name="options">Its options (nominal match window).</param>
     /// <exception cref="ArgumentException">Cups asked for a network-form recipe.</exception>
-    public static PlanOutcome Plan(Recipe recipe, IReadOnlyList<PartRecord> parts, PickMode mode, bool qualify, SetAssembler assembler, AssemblyOptions options)
+    public static PlanOutcome Plan(
+        Recipe recipe,
+        IReadOnlyList<PartRecord> parts,
+        PickMode mode,
+        bool qualify,
+        SetAssembler assembler,
+        AssemblyOptions options
+    )
     {
         var offered = parts.Where(p => PlanParts.Offered(p, recipe, options)).OrderBy(p => p.Id).ToList();
         var allInCups = offered.Count > 0 && offered.All(PartWhere.InSharedCup);
         if (mode == PickMode.Cups && recipe.Form != RecipeForm.Matched)
         {
-            throw new ArgumentException($"--pick cups needs a matched-form recipe; '{recipe.Name}' is a network recipe: use --pick parts");
+            throw new ArgumentException(
+                $"--pick cups needs a matched-form recipe; '{recipe.Name}' is a network recipe: use --pick parts"
+            );
         }
 
         if (mode == PickMode.Cups || (mode == PickMode.Auto && allInCups && recipe.Form == RecipeForm.Matched))
@@ -33,7 +44,11 @@ internal static class PickPlanner
         var result = assembler.Assemble(recipe, offered.Select(p => PlanParts.Candidate(p, qualify)).ToList());
         var list = PickListBuilder.FromAssembly(result);
         var picked = list.Sets.SelectMany(s => s.Items).Select(i => i.PartId!.Value).ToList();
-        var note = result.Note + (result.ProvenOptimal ? "; the number of sets is proven maximal" : "") + "\n" + AssemblySummary.Line(result);
+        var note =
+            result.Note
+            + (result.ProvenOptimal ? "; the number of sets is proven maximal" : "")
+            + "\n"
+            + AssemblySummary.Line(result);
         if (allInCups)
         {
             note += "; the parts share cups, so telling them apart by id needs each one measured again";
@@ -67,8 +82,14 @@ internal static class PickPlanner
             sets.Add(set with { Number = sets.Count + 1, Outputs = [check], Score = check.Score });
         }
 
-        var list = drafted with { Sets = sets, UnusedPartIds = offered.Select(p => p.Id).Except(picked).Order().ToList() };
-        var note = $"by cup: each set takes any parts of the named cups; bands from the logged values with U ({cups.Count} cups)";
+        var list = drafted with
+        {
+            Sets = sets,
+            UnusedPartIds = offered.Select(p => p.Id).Except(picked).Order().ToList(),
+        };
+        var note =
+            $"by cup: each set takes any parts of the named cups; bands from the logged values with U ({cups.Count} "
+            + $"cups)";
         return new PlanOutcome(list, offered, picked, bands, note);
     }
 }

@@ -8,20 +8,31 @@ namespace SortRig.Engine.Picking;
 internal static class PlanParts
 {
     /// <summary>
-    /// Live (Accepted/Announced), library status Available, not in the reject cup (rejects sit mixed in one cup), and of
-    /// a nominal some position of the recipe takes, singly or as a series/parallel pair.
+    /// Live (Accepted/Announced), library status Available, not in the reject cup (rejects sit mixed in one cup), and
+    /// of a nominal some position of the recipe takes, singly or as a series/parallel pair.
     /// </summary>
     public static bool Offered(PartRecord part, Recipe recipe, AssemblyOptions options) =>
-        part.IsLive && part.LibraryStatus == LibraryStatus.Available && !PartWhere.InRejectCup(part) && Wanted(part.Nominal, recipe, options);
+        part.IsLive
+        && part.LibraryStatus == LibraryStatus.Available
+        && !PartWhere.InRejectCup(part)
+        && Wanted(part.Nominal, recipe, options);
 
     /// <summary>True when some position takes a part of this nominal.</summary>
     public static bool Wanted(double nominal, Recipe recipe, AssemblyOptions options) =>
         recipe.Positions.Any(pos =>
             options.SameNominal(nominal, pos.Nominal)
-            || (pos.Pairs.HasFlag(PairBuilds.Series) && options.SameNominal(nominal, PositionSpec.PartNominal(pos.Nominal, PositionBuild.Series)))
-            || (pos.Pairs.HasFlag(PairBuilds.Parallel) && options.SameNominal(nominal, PositionSpec.PartNominal(pos.Nominal, PositionBuild.Parallel))));
+            || (
+                pos.Pairs.HasFlag(PairBuilds.Series)
+                && options.SameNominal(nominal, PositionSpec.PartNominal(pos.Nominal, PositionBuild.Series))
+            )
+            || (
+                pos.Pairs.HasFlag(PairBuilds.Parallel)
+                && options.SameNominal(nominal, PositionSpec.PartNominal(pos.Nominal, PositionBuild.Parallel))
+            )
+        );
 
-    /// <summary>The part as the assembler sees it: id, nominal, value with uncertainties, and where to find it.</summary>
+    /// <summary>The part as the assembler sees it: id, nominal, value with uncertainties, and where to find
+    /// it.</summary>
     public static PartCandidate Candidate(PartRecord part, bool qualify) =>
         new(part.Id, part.Nominal, part.Measured, PartWhere.Of(part, qualify));
 }

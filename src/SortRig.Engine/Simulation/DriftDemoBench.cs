@@ -12,15 +12,20 @@ namespace SortRig.Engine.Simulation;
 /// </summary>
 public static class DriftDemoBench
 {
-    /// <summary>Simulator options with one reel part per drift channel and the Pt100 on the settings' channel.</summary>
-    /// <exception cref="ArgumentException">A channel is outside 101..140, or the Pt100 channel does not follow the part channels.</exception>
+    /// <summary>Simulator options with one reel part per drift channel and the Pt100 on the settings'
+    /// channel.</summary>
+    /// <exception cref="ArgumentException">A channel is outside 101..140, or the Pt100 channel does not follow the part
+    /// channels.</exception>
     public static SimulatedBenchOptions For(DriftSettings settings)
     {
         ArgumentNullException.ThrowIfNull(settings);
         var bad = settings.Channels.FirstOrDefault(c => c is < 101 or > 140);
         if (bad != 0)
         {
-            throw new ArgumentException($"Drift.Channels: the simulator's part channels are 101..140; {bad} is not one.", nameof(settings));
+            throw new ArgumentException(
+                $"Drift.Channels: the simulator's part channels are 101..140; {bad} is not one.",
+                nameof(settings)
+            );
         }
 
         // Our own layout: part channels 101 up to the highest one asked, the Pt100 after them (0: the next channel).
@@ -28,7 +33,10 @@ public static class DriftDemoBench
         var pt100 = settings.Pt100Channel ?? 0;
         if (pt100 != 0 && (pt100 < 101 + partChannels || pt100 > 199))
         {
-            throw new ArgumentException($"Drift.Pt100Channel: on the simulator it must be {101 + partChannels}..199; was {pt100}.", nameof(settings));
+            throw new ArgumentException(
+                $"Drift.Pt100Channel: on the simulator it must be {101 + partChannels}..199; was {pt100}.",
+                nameof(settings)
+            );
         }
 
         return new SimulatedBenchOptions
@@ -38,7 +46,12 @@ public static class DriftDemoBench
             ScannerPartChannels = partChannels,
             Pt100Channel = pt100,
             Operator = new OperatorOptions { Mode = OperatorMode.Manual },
-            Ambient = new AmbientSpec { MeanCelsius = 21, SwingKelvin = 1.5, Period = TimeSpan.FromHours(24) },
+            Ambient = new AmbientSpec
+            {
+                MeanCelsius = 21,
+                SwingKelvin = 1.5,
+                Period = TimeSpan.FromHours(24),
+            },
             Reel = new ReelSpec
             {
                 Count = settings.Channels.Count,

@@ -64,7 +64,8 @@ public sealed class VirtualClock : TimeProvider
 
     /// <summary>Drives <paramref name="work"/> to completion, jumping to each pending timer in turn.</summary>
     /// <param name="work">The task that waits on this clock.</param>
-    /// <param name="beforeJump">Called with the time about to be reached, before each forward jump (e.g. to sample memory).</param>
+    /// <param name="beforeJump">Called with the time about to be reached, before each forward jump (e.g. to sample
+    /// memory).</param>
     /// <param name="ct">Stops driving (the work is not cancelled).</param>
     public async Task DriveAsync(Task work, Action<DateTimeOffset>? beforeJump, CancellationToken ct)
     {
@@ -203,7 +204,11 @@ public sealed class VirtualClock : TimeProvider
         {
             var finite = dueTime != Timeout.InfiniteTimeSpan;
             var repeat = period == Timeout.InfiniteTimeSpan ? TimeSpan.Zero : period;
-            clock.Schedule(this, finite ? clock.GetUtcNow() + (dueTime < TimeSpan.Zero ? TimeSpan.Zero : dueTime) : null, repeat);
+            clock.Schedule(
+                this,
+                finite ? clock.GetUtcNow() + (dueTime < TimeSpan.Zero ? TimeSpan.Zero : dueTime) : null,
+                repeat
+            );
             return true;
         }
 

@@ -15,19 +15,37 @@ public sealed class BenchSnapshot
     /// <summary>The session, or null before one is open.</summary>
     public SessionView? Session
     {
-        get { lock (_gate) { return _session; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _session;
+            }
+        }
     }
 
     /// <summary>The last check of the check standard, or null when the session has no check (or none yet).</summary>
     public SortRig.Engine.Checking.CheckView? LastCheck
     {
-        get { lock (_gate) { return _check; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _check;
+            }
+        }
     }
 
     /// <summary>Cup label to count of parts currently in it.</summary>
     public IReadOnlyDictionary<string, int> Counts
     {
-        get { lock (_gate) { return _counts; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _counts;
+            }
+        }
     }
 
     /// <summary>Parts in number order.</summary>
@@ -41,12 +59,18 @@ public sealed class BenchSnapshot
 
     internal void SetCheck(SortRig.Engine.Checking.CheckView check)
     {
-        lock (_gate) { _check = check; }
+        lock (_gate)
+        {
+            _check = check;
+        }
     }
 
     internal void SetSession(SessionView session)
     {
-        lock (_gate) { _session = session; }
+        lock (_gate)
+        {
+            _session = session;
+        }
     }
 
     internal void UpdateSession(Func<SessionView, SessionView> change)
@@ -62,7 +86,10 @@ public sealed class BenchSnapshot
 
     internal void SetCounts(IReadOnlyDictionary<string, int> counts)
     {
-        lock (_gate) { _counts = counts; }
+        lock (_gate)
+        {
+            _counts = counts;
+        }
     }
 
     internal void Upsert(PartView part)

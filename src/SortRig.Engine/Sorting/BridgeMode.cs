@@ -1,6 +1,7 @@
 namespace SortRig.Engine.Sorting;
 
-/// <summary>When a range transfer measures a bridging part (Sort:Bridge, --bridge). See docs/range-transfer.md.</summary>
+/// <summary>When a range transfer measures a bridging part (Sort:Bridge, --bridge). See
+/// docs/range-transfer.md.</summary>
 public enum BridgeMode
 {
     /// <summary>When the two ranges' gain uncertainty does not fit the match band (the default).</summary>

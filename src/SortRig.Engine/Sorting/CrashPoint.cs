@@ -34,7 +34,8 @@ internal static class CrashPoint
         Environment.FailFast($"{Variable}={Name(point)}:{armed.Count}");
     }
 
-    /// <summary>The point and count of a <c>point:n</c> value; null when unset, empty or malformed (names are lower case).</summary>
+    /// <summary>The point and count of a <c>point:n</c> value; null when unset, empty or malformed (names are lower
+    /// case).</summary>
     internal static (CrashSite Point, int Count)? Parse(string? value)
     {
         var parts = value?.Split(':') ?? [];

@@ -1,6 +1,7 @@
 namespace SortRig.Engine.Sorting;
 
-/// <summary>The points of the sorting loop where the crash tests may kill the process (<see cref="CrashPoint"/>).</summary>
+/// <summary>The points of the sorting loop where the crash tests may kill the process (<see
+/// cref="CrashPoint"/>).</summary>
 internal enum CrashSite
 {
     /// <summary>A part settled and checked, not yet committed.</summary>

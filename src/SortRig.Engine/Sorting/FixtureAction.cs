@@ -6,7 +6,8 @@ internal enum FixtureAction
     /// <summary>Nothing: the reading goes to the settle rule as it is.</summary>
     None,
 
-    /// <summary>Readings were late (an outage, a slow host): that time does not count against the settle limit.</summary>
+    /// <summary>Readings were late (an outage, a slow host): that time does not count against the settle
+    /// limit.</summary>
     Excuse,
 
     /// <summary>The readings stopped while the part settled: measure the part in the fixture again.</summary>

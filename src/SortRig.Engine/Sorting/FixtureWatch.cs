@@ -11,7 +11,8 @@ namespace SortRig.Engine.Sorting;
 /// </summary>
 /// <param name="readingPeriod">Time between two readings at the batch's NPLC.</param>
 /// <param name="stallGap">A gap between readings of a settling part longer than this is a stall.</param>
-/// <param name="swapThreshold">Distance from the decided value (ohms, given the value) beyond which a reading is another part.</param>
+/// <param name="swapThreshold">Distance from the decided value (ohms, given the value) beyond which a reading is
+/// another part.</param>
 internal sealed class FixtureWatch(TimeSpan readingPeriod, TimeSpan stallGap, Func<double, double> swapThreshold)
 {
     // Readings in a row, all far from the part just decided, that mean another part is in the fixture.
@@ -52,7 +53,8 @@ internal sealed class FixtureWatch(TimeSpan readingPeriod, TimeSpan stallGap, Fu
         _swapReadings = 0;
     }
 
-    /// <summary>The stall check, first for each reading; <paramref name="state"/> is the tracker's before the reading.</summary>
+    /// <summary>The stall check, first for each reading; <paramref name="state"/> is the tracker's before the
+    /// reading.</summary>
     public FixtureVerdict CheckStall(Reading reading, SettleState state)
     {
         var gap = reading.Time - (_lastReadingTime ?? reading.Time);
@@ -75,13 +77,16 @@ internal sealed class FixtureWatch(TimeSpan readingPeriod, TimeSpan stallGap, Fu
         // Time the meter could not deliver readings in (an outage, a slow host) is not time the part
         // failed to settle in: the settle limit counts only time with readings coming.
         return !fault && gap > stallGap
-            ? new FixtureVerdict(FixtureAction.Remeasure, Message: FormattableString.Invariant($"no reading for {gap.TotalSeconds:0} s: measuring the part again"))
+            ? new FixtureVerdict(
+                FixtureAction.Remeasure,
+                Message: FormattableString.Invariant($"no reading for {gap.TotalSeconds:0} s: measuring the part again")
+            )
             : new FixtureVerdict(FixtureAction.Excuse, gap - readingPeriod);
     }
 
     /// <summary>
-    /// The swap check, after the stall check's verdict was applied: readings far from the decided part's value (twice in
-    /// a row, so one garbled reply is not enough) are a new part; so is a part that reads like it but stays in the
+    /// The swap check, after the stall check's verdict was applied: readings far from the decided part's value (twice
+    /// in a row, so one garbled reply is not enough) are a new part; so is a part that reads like it but stays in the
     /// fixture (values alone cannot tell two parts closer than the threshold apart).
     /// </summary>
     /// <param name="reading">The reading.</param>
@@ -113,15 +118,23 @@ internal sealed class FixtureWatch(TimeSpan readingPeriod, TimeSpan stallGap, Fu
         string? why = null;
         if (Math.Abs(reading.Value - decided) > swapThreshold(decided))
         {
-            why = ++_swapReadings >= SwapEvidence ? "a new part went in before the fixture was seen empty: measuring it" : null;
+            why =
+                ++_swapReadings >= SwapEvidence
+                    ? "a new part went in before the fixture was seen empty: measuring it"
+                    : null;
         }
         else
         {
             _swapReadings = 0;
-            why = reading.Time - _ambiguousSince.Value > s_stillThere
-                ? "a part is still in the fixture after the meter came back: measuring it as a new part"
-                    + (lastLive is { } last ? $" (if it is part {last.Number}, put it in cup {last.Cup} and press U)" : "")
-                : null;
+            why =
+                reading.Time - _ambiguousSince.Value > s_stillThere
+                    ? "a part is still in the fixture after the meter came back: measuring it as a new part"
+                        + (
+                            lastLive is { } last
+                                ? $" (if it is part {last.Number}, put it in cup {last.Cup} and press U)"
+                                : ""
+                        )
+                    : null;
         }
 
         if (why is null)

@@ -4,27 +4,19 @@ namespace SortRig.Engine.Sorting;
 public sealed class HumanHands : IFixtureHands
 {
     /// <inheritdoc />
-    public void PartAnnounced()
-    {
-    }
+    public void PartAnnounced() { }
 
     /// <inheritdoc />
-    public void ResumeAt(int partsRecorded)
-    {
-    }
+    public void ResumeAt(int partsRecorded) { }
 
     /// <inheritdoc />
-    public void Ready()
-    {
-    }
+    public void Ready() { }
 
     /// <inheritdoc />
     public Task PlaceBridgingPartAsync(double nominal, CancellationToken ct) => Task.CompletedTask;
 
     /// <inheritdoc />
-    public void RemoveBridgingPart()
-    {
-    }
+    public void RemoveBridgingPart() { }
 
     /// <inheritdoc />
     public Task PlaceCheckPartAsync(double nominal, CancellationToken ct) => Task.CompletedTask;

@@ -17,11 +17,13 @@ public interface IFixtureHands
 
     /// <summary>
     /// The operator was asked to put one part of <paramref name="nominal"/> ohms in the fixture as a bridging part
-    /// (range transfer): from the earlier batch, or from this one when it is on the lower range. Returns once it is handed in (at once for a person).
+    /// (range transfer): from the earlier batch, or from this one when it is on the lower range. Returns once it is
+    /// handed in (at once for a person).
     /// </summary>
     Task PlaceBridgingPartAsync(double nominal, CancellationToken ct);
 
-    /// <summary>The operator was asked to take the bridging part out (also the check part or a part measured again).</summary>
+    /// <summary>The operator was asked to take the bridging part out (also the check part or a part measured
+    /// again).</summary>
     void RemoveBridgingPart();
 
     /// <summary>

@@ -20,4 +20,5 @@ public sealed record PartView(
     string? Cup,
     string State,
     DateTimeOffset Time,
-    string? AcceptedBy = null);
+    string? AcceptedBy = null
+);

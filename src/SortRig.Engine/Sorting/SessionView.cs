@@ -12,4 +12,5 @@ public sealed record SessionView(
     double Nplc,
     int PartsPlanned,
     bool Paused,
-    bool Finished);
+    bool Finished
+);

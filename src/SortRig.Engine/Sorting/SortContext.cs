@@ -32,8 +32,10 @@ public sealed record SortContext(
     OperatorCommands Commands,
     IFixtureHands Hands,
     TimeProvider Time,
-    ILogger Logger)
+    ILogger Logger
+)
 {
-    /// <summary>The build the session sorts toward (a recipe and a number of sets); null to sort the whole reel.</summary>
+    /// <summary>The build the session sorts toward (a recipe and a number of sets); null to sort the whole
+    /// reel.</summary>
     public BuildTarget? Build { get; init; }
 }

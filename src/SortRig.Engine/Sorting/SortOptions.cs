@@ -19,7 +19,8 @@ public sealed class SortOptions
     /// <summary>Meter profile file or family name under instruments/. Default "simulator".</summary>
     public string Profile { get; set; } = "simulator";
 
-    /// <summary>Storage connection: a SQLite file path or "Data Source=..."; or a PostgreSQL "Host=..." string. Default sortrig.db.</summary>
+    /// <summary>Storage connection: a SQLite file path or "Data Source=..."; or a PostgreSQL "Host=..." string. Default
+    /// sortrig.db.</summary>
     [Required]
     public string Database { get; set; } = "sortrig.db";
 
@@ -35,7 +36,8 @@ public sealed class SortOptions
     [Range(1e-6, 0.2)]
     public double StockTolerance { get; set; } = 0.01;
 
-    /// <summary>Match tolerance as a fraction (0.001 = 0.1 %). Default 0.001; must be below the stock tolerance.</summary>
+    /// <summary>Match tolerance as a fraction (0.001 = 0.1 %). Default 0.001; must be below the stock
+    /// tolerance.</summary>
     [Range(1e-7, 0.1)]
     public double MatchTolerance { get; set; } = 0.001;
 
@@ -64,7 +66,8 @@ public sealed class SortOptions
     /// Range transfer when this batch sits on a higher meter range than the session's first batch (an R-2R
     /// ladder's 2R after its R): "auto" measures a bridging part when the two ranges' gain uncertainty does not
     /// fit the match band, "always" measures one whenever the ranges differ, "off" never (ratios across the ranges
-    /// then carry the gain error); bound case-insensitively. Default <see cref="BridgeMode.Auto"/>. See docs/range-transfer.md.
+    /// then carry the gain error); bound case-insensitively. Default <see cref="BridgeMode.Auto"/>. See
+    /// docs/range-transfer.md.
     /// </summary>
     [EnumDataType(typeof(BridgeMode), ErrorMessage = "Sort:Bridge must be auto, always or off.")]
     public BridgeMode Bridge { get; set; } = BridgeMode.Auto;
@@ -136,7 +139,8 @@ public sealed class SortOptions
     [Range(2, 10)]
     public int Agree { get; set; } = 2;
 
-    /// <summary>Typed meter only: least time between two counted entries, in seconds (let go, wait, read again). Default 3; 0..60.</summary>
+    /// <summary>Typed meter only: least time between two counted entries, in seconds (let go, wait, read again).
+    /// Default 3; 0..60.</summary>
     [Range(0, 60)]
     public double Gap { get; set; } = 3;
 
@@ -151,7 +155,8 @@ public sealed class SortOptions
     [EnumDataType(typeof(PhysicsModel), ErrorMessage = "Sort:Physics must be simple or rich.")]
     public PhysicsModel Physics { get; set; } = PhysicsModel.Simple;
 
-    /// <summary>Simulator only: how many times faster than the wall clock virtual time runs. Default 1; 1..1000.</summary>
+    /// <summary>Simulator only: how many times faster than the wall clock virtual time runs. Default 1;
+    /// 1..1000.</summary>
     [Range(1, 1000)]
     public double Speed { get; set; } = 1;
 
@@ -165,14 +170,17 @@ public sealed class SortOptions
     /// </summary>
     public string Recipe { get; set; } = "";
 
-    /// <summary>Sets of <see cref="Recipe"/> to sort toward; 0 means 1 when a recipe is given. Default 0; 0..64.</summary>
+    /// <summary>Sets of <see cref="Recipe"/> to sort toward; 0 means 1 when a recipe is given. Default 0;
+    /// 0..64.</summary>
     [Range(0, 64)]
     public int Sets { get; set; }
 
-    /// <summary>Where the pick list is exported (CSV) once the sets are in hand; empty for SESSION-sets.csv in the working directory.</summary>
+    /// <summary>Where the pick list is exported (CSV) once the sets are in hand; empty for SESSION-sets.csv in the
+    /// working directory.</summary>
     public string SetsCsv { get; set; } = "";
 
-    /// <summary>Show the live console view (otherwise one plain line per announcement). Default true when interactive.</summary>
+    /// <summary>Show the live console view (otherwise one plain line per announcement). Default true when
+    /// interactive.</summary>
     public bool? Live { get; set; }
 
     /// <summary>Keep serving the page after the session ends, until stopped (Ctrl+C). Default false.</summary>

@@ -17,7 +17,15 @@ namespace SortRig.Engine.Sorting;
 /// <param name="Faults">Instrument faults recovered from during this run.</param>
 /// <param name="FinishedByOperator">True when the operator pressed finish.</param>
 /// <param name="StorageFaults">Failed writes to the precision log that were retried until they went through.</param>
-public sealed record SortOutcome(long SessionId, int PartsRecorded, int Accepted, int Unstable, int Faults, bool FinishedByOperator, int StorageFaults = 0)
+public sealed record SortOutcome(
+    long SessionId,
+    int PartsRecorded,
+    int Accepted,
+    int Unstable,
+    int Faults,
+    bool FinishedByOperator,
+    int StorageFaults = 0
+)
 {
     /// <summary>How the build ended when the session sorted toward one (--recipe, --sets); null otherwise.</summary>
     public BuildReport? Build { get; init; }

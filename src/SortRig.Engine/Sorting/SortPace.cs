@@ -9,7 +9,8 @@ namespace SortRig.Engine.Sorting;
 /// <param name="Span">From the first acceptance to the last; zero with fewer than two parts.</param>
 public readonly record struct SortPace(int Parts, TimeSpan Span)
 {
-    /// <summary>Mean seconds between consecutive acceptances, Span / (Parts − 1); null with fewer than two parts.</summary>
+    /// <summary>Mean seconds between consecutive acceptances, Span / (Parts − 1); null with fewer than two
+    /// parts.</summary>
     public double? SecondsPerPart => Parts >= 2 ? Span.TotalSeconds / (Parts - 1) : null;
 
     /// <summary>3600 / <see cref="SecondsPerPart"/>; null with fewer than two parts or a zero span.</summary>
@@ -20,7 +21,8 @@ public readonly record struct SortPace(int Parts, TimeSpan Span)
     {
         ArgumentNullException.ThrowIfNull(acceptedAt);
         int n = 0;
-        DateTimeOffset first = DateTimeOffset.MaxValue, last = DateTimeOffset.MinValue;
+        DateTimeOffset first = DateTimeOffset.MaxValue,
+            last = DateTimeOffset.MinValue;
         foreach (var t in acceptedAt)
         {
             n++;

@@ -28,7 +28,13 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
     /// </summary>
     public static SortPlan For(SortOptions options, MeterSpec meter)
     {
-        var request = new RangeRequest(options.Nominal, options.StockTolerance, options.MatchTolerance, options.Nplc, options.FourWire);
+        var request = new RangeRequest(
+            options.Nominal,
+            options.StockTolerance,
+            options.MatchTolerance,
+            options.Nplc,
+            options.FourWire
+        );
         RangeDecision decision;
         try
         {
@@ -37,7 +43,9 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         catch (ArgumentException e)
         {
             // The reason without .NET's "(Parameter 'nplc')" tail: the operator typed a flag, not a parameter.
-            var reason = e.ParamName is { } name ? e.Message.Replace($" (Parameter '{name}')", "", StringComparison.Ordinal) : e.Message;
+            var reason = e.ParamName is { } name
+                ? e.Message.Replace($" (Parameter '{name}')", "", StringComparison.Ordinal)
+                : e.Message;
             throw new SortPlanException($"The meter '{meter.Family}' cannot take this batch: {reason}", []);
         }
 
@@ -45,9 +53,15 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         {
             var remedies = decision.Remedies.Where(r => r.Resolves).Select(Describe).ToList();
             throw new SortPlanException(
-                string.Create(CultureInfo.InvariantCulture,
-                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm needs an expanded transfer uncertainty of at most {decision.AllowedExpanded:G3} Ohm; the {decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC gives {decision.ExpandedTransfer:G3} Ohm."),
-                remedies);
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm needs an expanded "
+                        + $"transfer uncertainty of at most {decision.AllowedExpanded:G3} Ohm; the "
+                        + $"{decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC gives "
+                        + $"{decision.ExpandedTransfer:G3} Ohm."
+                ),
+                remedies
+            );
         }
 
         var settle = SettleOptions.Default with
@@ -70,24 +84,42 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
         {
             var window = rule.WindowFits
                 ? ""
-                : string.Create(CultureInfo.InvariantCulture,
-                    $", and {settle.RequiredReadings} readings take more than half of the {settle.MaxSettleTime.TotalSeconds:G} s settle time");
+                : string.Create(
+                    CultureInfo.InvariantCulture,
+                    $", and {settle.RequiredReadings} readings take more than half of the "
+                        + $"{settle.MaxSettleTime.TotalSeconds:G} s settle time"
+                );
             throw new SortPlanException(
-                string.Create(CultureInfo.InvariantCulture,
-                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm allows a settle target of at most {rule.CapPpm:0.##} ppm; on the {decision.Range.FullScale:G6} Ohm range at {options.Nplc:G} NPLC the reading noise lets a settled part reach {rule.FloorPpm:0.##} ppm, and the target must be {SettleTargetRule.ReachMargin:G} times that ({SettleTargetRule.ReachMargin * rule.FloorPpm:0.##} ppm){window}: parts would end unstable."),
-                SettleTargetRule.Remedies(meter, decision, settle, rule));
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"A {options.MatchTolerance * 100:0.####} % match at {options.Nominal:G6} Ohm allows a settle "
+                        + $"target of at most {rule.CapPpm:0.##} ppm; on the {decision.Range.FullScale:G6} Ohm range "
+                        + $"at {options.Nplc:G} NPLC the reading noise lets a settled part reach "
+                        + $"{rule.FloorPpm:0.##} ppm, and the target must be {SettleTargetRule.ReachMargin:G} "
+                        + $"times that ({SettleTargetRule.ReachMargin * rule.FloorPpm:0.##} ppm){window}: "
+                        + $"parts would end unstable."
+                ),
+                SettleTargetRule.Remedies(meter, decision, settle, rule)
+            );
         }
 
         settle = settle with { Target = SettleTarget.Ppm(rule.TargetPpm) };
         return new SortPlan(options, decision, settle, meter);
     }
 
-    private static string Describe(Remedy r) => r.Kind switch
-    {
-        RemedyKind.RaiseNplc => string.Create(CultureInfo.InvariantCulture, $"raise the integration time to {r.Setting:G} NPLC (--nplc {r.Setting:G})"),
-        RemedyKind.UseFourWire => "measure 4-wire (--four-wire) with a Kelvin fixture",
-        RemedyKind.UseRange => string.Create(CultureInfo.InvariantCulture, $"use the {r.Setting:G6} Ohm range"),
-        RemedyKind.LoosenMatch => string.Create(CultureInfo.InvariantCulture, $"loosen the match to {r.Setting * 100:0.####} % (--match {r.Setting:G4})"),
-        _ => r.Kind.ToString(),
-    };
+    private static string Describe(Remedy r) =>
+        r.Kind switch
+        {
+            RemedyKind.RaiseNplc => string.Create(
+                CultureInfo.InvariantCulture,
+                $"raise the integration time to {r.Setting:G} NPLC (--nplc {r.Setting:G})"
+            ),
+            RemedyKind.UseFourWire => "measure 4-wire (--four-wire) with a Kelvin fixture",
+            RemedyKind.UseRange => string.Create(CultureInfo.InvariantCulture, $"use the {r.Setting:G6} Ohm range"),
+            RemedyKind.LoosenMatch => string.Create(
+                CultureInfo.InvariantCulture,
+                $"loosen the match to {r.Setting * 100:0.####} % (--match {r.Setting:G4})"
+            ),
+            _ => r.Kind.ToString(),
+        };
 }

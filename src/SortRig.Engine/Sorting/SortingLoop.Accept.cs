@@ -23,16 +23,26 @@ public sealed partial class SortingLoop
         var measured = OnReferenceScale(acceptance.Value);
         var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
         var commit = new PartCommit(
-            Guid.NewGuid(), _session.Id, _batch.Id, measured, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
+            Guid.NewGuid(),
+            _session.Id,
+            _batch.Id,
+            measured,
+            _ctx.Plan.Range,
+            _ctx.Plan.Nplc,
+            null,
             acceptance.Readings[^1].Time,
             decision.IsSlot ? null : decision.CupLabel,
             decision.IsSlot ? decision.CupLabel : null,
-            [.. _partReadings], PartState.Accepted, acceptance.AcceptedBy,
-            acceptance.AcceptedBy == SettleRule.Predictive ? acceptance.Fit : null);
+            [.. _partReadings],
+            PartState.Accepted,
+            acceptance.AcceptedBy,
+            acceptance.AcceptedBy == SettleRule.Predictive ? acceptance.Fit : null
+        );
         PartRecord stored;
         try
         {
-            stored = await DurablyAsync($"part {number}", c => _ctx.Log.CommitPartAsync(commit, c), ct).ConfigureAwait(false);
+            stored = await DurablyAsync($"part {number}", c => _ctx.Log.CommitPartAsync(commit, c), ct)
+                .ConfigureAwait(false);
         }
         catch
         {
@@ -57,9 +67,21 @@ public sealed partial class SortingLoop
         var mean = finite.Length > 0 ? finite.Average() : 0;
         var spread = finite.Length > 1 ? MathNet.Numerics.Statistics.Statistics.StandardDeviation(finite) : 0;
         var commit = new PartCommit(
-            Guid.NewGuid(), _session.Id, _batch.Id, new MeasuredValue(mean, spread, spread), _ctx.Plan.Range, _ctx.Plan.Nplc, null,
-            _ctx.Time.GetUtcNow(), null, null, [.. _partReadings], PartState.Unstable);
-        var stored = await DurablyAsync($"part {_partsRecorded + 1}", c => _ctx.Log.CommitPartAsync(commit, c), ct).ConfigureAwait(false);
+            Guid.NewGuid(),
+            _session.Id,
+            _batch.Id,
+            new MeasuredValue(mean, spread, spread),
+            _ctx.Plan.Range,
+            _ctx.Plan.Nplc,
+            null,
+            _ctx.Time.GetUtcNow(),
+            null,
+            null,
+            [.. _partReadings],
+            PartState.Unstable
+        );
+        var stored = await DurablyAsync($"part {_partsRecorded + 1}", c => _ctx.Log.CommitPartAsync(commit, c), ct)
+            .ConfigureAwait(false);
         _partsRecorded++;
         _unstable++;
         _ctx.Snapshot.Upsert(ToView(stored));
@@ -70,13 +92,27 @@ public sealed partial class SortingLoop
             UnstableReason.NoisySem => "too noisy: check the contact and the leads",
             _ => "too few readings: check the contact",
         };
-        await _ctx.Announcer.AnnounceAsync(
-            new Announcement(AnnouncementKind.Unstable, stored.Number, "", mean, double.NaN, why), ct).ConfigureAwait(false);
-        await DurablyAsync($"the announcement of part {stored.Number}", c => _ctx.Log.MarkAnnouncedAsync(stored.Id, c), ct).ConfigureAwait(false);
+        await _ctx
+            .Announcer.AnnounceAsync(
+                new Announcement(AnnouncementKind.Unstable, stored.Number, "", mean, double.NaN, why),
+                ct
+            )
+            .ConfigureAwait(false);
+        await DurablyAsync(
+                $"the announcement of part {stored.Number}",
+                c => _ctx.Log.MarkAnnouncedAsync(stored.Id, c),
+                ct
+            )
+            .ConfigureAwait(false);
         _ctx.Hands.PartAnnounced();
     }
 
-    private async Task AnnounceStoredAsync(PartRecord part, AnnouncementKind kind, bool completesSet, CancellationToken ct)
+    private async Task AnnounceStoredAsync(
+        PartRecord part,
+        AnnouncementKind kind,
+        bool completesSet,
+        CancellationToken ct
+    )
     {
         var label = part.CupLabel ?? part.SlotLabel ?? "";
         if (kind == AnnouncementKind.Repeat && label.Length == 0)
@@ -84,10 +120,19 @@ public sealed partial class SortingLoop
             kind = AnnouncementKind.Unstable;
         }
 
-        await _ctx.Announcer.AnnounceAsync(
-            new Announcement(kind, part.Number, label, part.Value, part.DeviationPpm, "", completesSet), ct).ConfigureAwait(false);
+        await _ctx
+            .Announcer.AnnounceAsync(
+                new Announcement(kind, part.Number, label, part.Value, part.DeviationPpm, "", completesSet),
+                ct
+            )
+            .ConfigureAwait(false);
         CrashPoint.Pass(CrashSite.Announce);
-        var announced = await DurablyAsync($"the announcement of part {part.Number}", c => _ctx.Log.MarkAnnouncedAsync(part.Id, c), ct).ConfigureAwait(false);
+        var announced = await DurablyAsync(
+                $"the announcement of part {part.Number}",
+                c => _ctx.Log.MarkAnnouncedAsync(part.Id, c),
+                ct
+            )
+            .ConfigureAwait(false);
         _ctx.Snapshot.Upsert(ToView(announced));
     }
 }

@@ -12,7 +12,12 @@ public sealed partial class SortingLoop
     // the first range (thermallySettled), the second range judges the window alone: the fitted-span
     // criterion would read the higher range's larger noise at the bridge value as residual cooling.
     // Meter faults reconnect and settle again; a part that does not settle is settled again after a word.
-    private async Task<MeasuredValue> SettleBridgeAsync(RangeSpec range, double bridgeNominal, bool thermallySettled, CancellationToken ct)
+    private async Task<MeasuredValue> SettleBridgeAsync(
+        RangeSpec range,
+        double bridgeNominal,
+        bool thermallySettled,
+        CancellationToken ct
+    )
     {
         SetActiveRange(range.FullScale);
         await ApplySetupAsync(ct).ConfigureAwait(false);
@@ -56,7 +61,15 @@ public sealed partial class SortingLoop
             }
             else if (verdict.State == SettleState.Unstable)
             {
-                await SayAsync(string.Create(CultureInfo.InvariantCulture, $"bridging part not settling on the {range.FullScale:G6} Ohm range ({verdict.Failure!.Reason}): reseat it; measuring again"), ct).ConfigureAwait(false);
+                await SayAsync(
+                        string.Create(
+                            CultureInfo.InvariantCulture,
+                            $"bridging part not settling on the {range.FullScale:G6} Ohm range ("
+                                + $"{verdict.Failure!.Reason}): reseat it; measuring again"
+                        ),
+                        ct
+                    )
+                    .ConfigureAwait(false);
                 tracker.Reset();
             }
         }

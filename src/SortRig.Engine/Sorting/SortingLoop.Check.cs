@@ -23,7 +23,8 @@ public sealed partial class SortingLoop
     private DateTimeOffset _lastCheckAt;
 
     private bool CheckDue =>
-        _check is not null && _tracker.State == SettleState.Empty
+        _check is not null
+        && _tracker.State == SettleState.Empty
         && _checkSchedule.Due(_partsRecorded - _partsAtLastCheck, _ctx.Time.GetUtcNow() - _lastCheckAt);
 
     private async Task PrepareCheckAsync(CancellationToken ct)
@@ -72,7 +73,8 @@ public sealed partial class SortingLoop
             if (_checkBaseline.Count >= Options.CheckBaseline)
             {
                 SetCheckLimits();
-                double centre = _checkLimits!.Centre, sigmaPpm = _checkLimits.Sigma / centre * 1e6;
+                double centre = _checkLimits!.Centre,
+                    sigmaPpm = _checkLimits.Sigma / centre * 1e6;
                 int n = _checkBaseline.Count;
                 await SayAsync($"check limits set: {n} readings, centre {centre:F4} Ohm, sigma {sigmaPpm:0.0} ppm", ct)
                     .ConfigureAwait(false);
@@ -84,8 +86,16 @@ public sealed partial class SortingLoop
         var (value, time) = await ReadCheckAsync(when, ct).ConfigureAwait(false);
         _checkPoints.Add(value.Value * _checkScale);
         var verdict = ControlChart.Judge(_checkLimits, _checkPoints);
-        var record = await RecordCheckAsync(check, value, time, verdict, verdict.Rule.ToString(),
-            verdict.InControl ? null : verdict.Reason, ct).ConfigureAwait(false);
+        var record = await RecordCheckAsync(
+                check,
+                value,
+                time,
+                verdict,
+                verdict.Rule.ToString(),
+                verdict.InControl ? null : verdict.Reason,
+                ct
+            )
+            .ConfigureAwait(false);
         if (verdict.InControl)
         {
             await SayAsync($"check {record.Seq} in control ({verdict.SigmaScore:+0.0;-0.0} sigma)", ct)
@@ -111,21 +121,49 @@ public sealed partial class SortingLoop
     }
 
     private async Task<CheckRecord> RecordCheckAsync(
-        CheckSource check, MeasuredValue raw, DateTimeOffset at, ControlVerdict? verdict, string rule, string? reason,
-        CancellationToken ct)
+        CheckSource check,
+        MeasuredValue raw,
+        DateTimeOffset at,
+        ControlVerdict? verdict,
+        string rule,
+        string? reason,
+        CancellationToken ct
+    )
     {
         CrashPoint.Pass(CrashSite.Check);
         var commit = new CheckCommit(
-            Guid.NewGuid(), _session.Id, check.Name, at, raw.Value, _ctx.Plan.Range, raw.StandardUncertainty,
-            check.CalibratedOhms, _checkLimits?.Centre, _checkLimits?.Sigma, verdict?.InControl ?? true, rule, reason,
-            _checkScale);
+            Guid.NewGuid(),
+            _session.Id,
+            check.Name,
+            at,
+            raw.Value,
+            _ctx.Plan.Range,
+            raw.StandardUncertainty,
+            check.CalibratedOhms,
+            _checkLimits?.Centre,
+            _checkLimits?.Sigma,
+            verdict?.InControl ?? true,
+            rule,
+            reason,
+            _checkScale
+        );
         var record = await DurablyAsync("the check", c => _ctx.Log.RecordCheckAsync(commit, c), ct)
             .ConfigureAwait(false);
         CrashPoint.Pass(CrashSite.Checked);
         var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
-        _ctx.Snapshot.SetCheck(new CheckView(
-            check.Name, record.Seq, at, commit.ScaledOhms, verdict?.SigmaScore ?? 0, commit.InControl,
-            reason ?? "", suspects.Count, record.GainPpm));
+        _ctx.Snapshot.SetCheck(
+            new CheckView(
+                check.Name,
+                record.Seq,
+                at,
+                commit.ScaledOhms,
+                verdict?.SigmaScore ?? 0,
+                commit.InControl,
+                reason ?? "",
+                suspects.Count,
+                record.GainPpm
+            )
+        );
         return record;
     }
 
@@ -134,7 +172,9 @@ public sealed partial class SortingLoop
     {
         var check = _check!;
         await SayAsync(
-                $"check ({when}): put the check standard {check.Name} ({check.Nominal:G6} Ohm) in the fixture", ct)
+                $"check ({when}): put the check standard {check.Name} ({check.Nominal:G6} Ohm) in the fixture",
+                ct
+            )
             .ConfigureAwait(false);
         await _ctx.Hands.PlaceCheckPartAsync(check.Nominal, ct).ConfigureAwait(false);
         var (acceptance, _) = await SettleOneAsync("the check standard", ct).ConfigureAwait(false);

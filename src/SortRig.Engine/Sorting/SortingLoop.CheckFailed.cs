@@ -16,7 +16,8 @@ public sealed partial class SortingLoop
         var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
         _paused = true;
         _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
-        var said = Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts ")
+        var said =
+            Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts ")
             + "measured since the last good check are flagged: R to re-reference to the check and measure them again, "
             + "P to carry on leaving them flagged, F to finish";
         await SayTextAsync(said, ct).ConfigureAwait(false);
@@ -80,19 +81,37 @@ public sealed partial class SortingLoop
             var number = NextNumber;
             var decision = _ctx.Cups.Assign(new CupRequest(number, Options.Nominal, measured));
             var commit = new PartCommit(
-                Guid.NewGuid(), _session.Id, _batch.Id, measured, _ctx.Plan.Range, _ctx.Plan.Nplc, null,
+                Guid.NewGuid(),
+                _session.Id,
+                _batch.Id,
+                measured,
+                _ctx.Plan.Range,
+                _ctx.Plan.Nplc,
+                null,
                 readings[^1].Time,
                 decision.IsSlot ? null : decision.CupLabel,
                 decision.IsSlot ? decision.CupLabel : null,
-                readings, PartState.Accepted, acceptance.AcceptedBy);
+                readings,
+                PartState.Accepted,
+                acceptance.AcceptedBy
+            );
             var stored = await DurablyAsync(
-                    $"part {part.Number} measured again", c => _ctx.Log.CommitPartAsync(commit, c), ct)
+                    $"part {part.Number} measured again",
+                    c => _ctx.Log.CommitPartAsync(commit, c),
+                    ct
+                )
                 .ConfigureAwait(false);
             _extraPositions[stored.Number] = ReelPosition(part.Number);
             var correction = new PartCorrection(
-                id, PartCorrectionKind.Remeasure, Note: Invariant($"{RemeasuredAs}{stored.Number}"));
+                id,
+                PartCorrectionKind.Remeasure,
+                Note: Invariant($"{RemeasuredAs}{stored.Number}")
+            );
             var old = await DurablyAsync(
-                    $"part {part.Number} marked measured again", c => _ctx.Log.UndoPartAsync(correction, c), ct)
+                    $"part {part.Number} marked measured again",
+                    c => _ctx.Log.UndoPartAsync(correction, c),
+                    ct
+                )
                 .ConfigureAwait(false);
             _ctx.Snapshot.Upsert(ToView(old));
             var kind = decision.IsReject ? AnnouncementKind.Reject : AnnouncementKind.Cup;

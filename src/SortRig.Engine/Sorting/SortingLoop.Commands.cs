@@ -37,17 +37,23 @@ public sealed partial class SortingLoop
                 }
 
                 _tracker.Remeasure();
-                await _ctx.Announcer.AnnounceAsync(Announcement.Info("measuring the part in the fixture again"), ct).ConfigureAwait(false);
+                await _ctx
+                    .Announcer.AnnounceAsync(Announcement.Info("measuring the part in the fixture again"), ct)
+                    .ConfigureAwait(false);
                 break;
             case OperatorCommand.TogglePause:
                 _paused = !_paused;
                 _ctx.Snapshot.UpdateSession(s => s with { Paused = _paused });
-                await _ctx.Announcer.AnnounceAsync(Announcement.Info(_paused ? "paused (P to carry on)" : "carrying on"), ct).ConfigureAwait(false);
+                await _ctx
+                    .Announcer.AnnounceAsync(Announcement.Info(_paused ? "paused (P to carry on)" : "carrying on"), ct)
+                    .ConfigureAwait(false);
                 break;
             case OperatorCommand.Finish:
                 _finishRequested = true;
                 _paused = false;
-                await _ctx.Announcer.AnnounceAsync(Announcement.Info("finishing the session"), ct).ConfigureAwait(false);
+                await _ctx
+                    .Announcer.AnnounceAsync(Announcement.Info("finishing the session"), ct)
+                    .ConfigureAwait(false);
                 break;
         }
     }
@@ -62,14 +68,20 @@ public sealed partial class SortingLoop
             return;
         }
 
-        var undone = await _ctx.Log.UndoPartAsync(new PartCorrection(last.Id, kind, Note: "operator"), ct).ConfigureAwait(false);
+        var undone = await _ctx
+            .Log.UndoPartAsync(new PartCorrection(last.Id, kind, Note: "operator"), ct)
+            .ConfigureAwait(false);
         _ctx.Cups.Undo(last.Number);
         _ctx.Snapshot.Upsert(ToView(undone));
         _lastLive = null;
         _lastLiveStillInFixture = false;
         PublishCounts();
         var where = last.CupLabel ?? last.SlotLabel ?? "its cup";
-        await _ctx.Announcer.AnnounceAsync(
-            Announcement.Info($"part {last.Number} undone: take it out of {where} and measure it again"), ct).ConfigureAwait(false);
+        await _ctx
+            .Announcer.AnnounceAsync(
+                Announcement.Info($"part {last.Number} undone: take it out of {where} and measure it again"),
+                ct
+            )
+            .ConfigureAwait(false);
     }
 }

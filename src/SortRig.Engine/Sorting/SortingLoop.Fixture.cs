@@ -34,7 +34,11 @@ public sealed partial class SortingLoop
             await _ctx.Announcer.AnnounceAsync(Announcement.Info(stall.Message!), ct).ConfigureAwait(false);
         }
 
-        var swap = _fixture.CheckSwap(reading, _tracker.State, _lastLive is { } last ? (last.Number, last.CupLabel) : null);
+        var swap = _fixture.CheckSwap(
+            reading,
+            _tracker.State,
+            _lastLive is { } last ? (last.Number, last.CupLabel) : null
+        );
         if (swap.Action == FixtureAction.NewPart)
         {
             _tracker.Reset();

@@ -38,9 +38,20 @@ public sealed partial class SortingLoop
 
         // A reply that is not a reading (the link is fine): wait longer each time; the limit stops the session.
         var wait = fault is ScpiResponseException reply ? _unreadable.Note(reply) : TimeSpan.Zero;
-        await _ctx.Announcer.AnnounceAsync(Announcement.Info(wait > TimeSpan.Zero
-            ? FormattableString.Invariant($"meter: {MeterFaults.Describe(fault)}; reading again in {wait.TotalSeconds:0.##} s ({_unreadable.Count} of {_unreadable.Limit} in a row)")
-            : $"meter: {MeterFaults.Describe(fault)}; reconnecting"), ct).ConfigureAwait(false);
+        await _ctx
+            .Announcer.AnnounceAsync(
+                Announcement.Info(
+                    wait > TimeSpan.Zero
+                        ? string.Create(
+                            System.Globalization.CultureInfo.InvariantCulture,
+                            $"meter: {MeterFaults.Describe(fault)}; reading again in {wait.TotalSeconds:0.##} s ("
+                                + $"{_unreadable.Count} of {_unreadable.Limit} in a row)"
+                        )
+                        : $"meter: {MeterFaults.Describe(fault)}; reconnecting"
+                ),
+                ct
+            )
+            .ConfigureAwait(false);
         await _meter.DropAsync().ConfigureAwait(false);
         if (_tracker.State.IsBusy())
         {
@@ -56,12 +67,24 @@ public sealed partial class SortingLoop
     // Every failed attempt is told to the operator; a setup read-back that keeps differing stops the session
     // (ResilientMeter.ConnectWithRetryAsync).
     private Task<IResistanceMeter> ConnectWithRetryAsync(CancellationToken ct) =>
-        _meter.ConnectWithRetryAsync(s_backoff, _ctx.Time, async (e, wait, c) =>
-        {
-            _faults++;
-            Log.SortMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
-            await _ctx.Announcer.AnnounceAsync(
-                Announcement.Info(FormattableString.Invariant($"meter: {MeterFaults.Describe(e)}; trying again in {wait.TotalSeconds:0.##} s")), c)
-                .ConfigureAwait(false);
-        }, ct);
+        _meter.ConnectWithRetryAsync(
+            s_backoff,
+            _ctx.Time,
+            async (e, wait, c) =>
+            {
+                _faults++;
+                Log.SortMeterFault(_ctx.Logger, e.GetType().Name, e.Message);
+                await _ctx
+                    .Announcer.AnnounceAsync(
+                        Announcement.Info(
+                            FormattableString.Invariant(
+                                $"meter: {MeterFaults.Describe(e)}; trying again in {wait.TotalSeconds:0.##} s"
+                            )
+                        ),
+                        c
+                    )
+                    .ConfigureAwait(false);
+            },
+            ct
+        );
 }

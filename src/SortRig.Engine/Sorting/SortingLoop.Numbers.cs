@@ -39,10 +39,17 @@ public sealed partial class SortingLoop
             }
 
             var note = (await _ctx.Log.GetPartHistoryAsync(id, ct).ConfigureAwait(false))
-                .LastOrDefault(e => e.Note?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)?.Note;
-            if (note is not null
+                .LastOrDefault(e => e.Note?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)
+                ?.Note;
+            if (
+                note is not null
                 && int.TryParse(
-                    note[RemeasuredAs.Length..], NumberStyles.None, CultureInfo.InvariantCulture, out var number))
+                    note[RemeasuredAs.Length..],
+                    NumberStyles.None,
+                    CultureInfo.InvariantCulture,
+                    out var number
+                )
+            )
             {
                 _extraPositions[number] = ReelPosition(old.Number);
             }
@@ -52,7 +59,9 @@ public sealed partial class SortingLoop
     // Settles one part the loop asked for (the check, or a part measured again) on the batch's range with the batch's
     // settle rule; meter faults settle it again; a part that does not settle is settled again after a word.
     private async Task<(SettleAcceptance Acceptance, IReadOnlyList<Reading> Readings)> SettleOneAsync(
-        string what, CancellationToken ct)
+        string what,
+        CancellationToken ct
+    )
     {
         var tracker = new SettleTracker(_ctx.Plan.Decision.Range, _ctx.Plan.Decision.Nplc, _ctx.Plan.Settle);
         var readings = new List<Reading>();

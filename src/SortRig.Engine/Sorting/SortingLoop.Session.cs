@@ -13,7 +13,11 @@ public sealed partial class SortingLoop
     private async Task OpenSessionAsync(CancellationToken ct)
     {
         var log = _ctx.Log;
-        var state = await log.OpenOrResumeSessionAsync(new SessionRequest(Options.Session, ReopenFinished: Options.Reopen), ct).ConfigureAwait(false);
+        var state = await log.OpenOrResumeSessionAsync(
+                new SessionRequest(Options.Session, ReopenFinished: Options.Reopen),
+                ct
+            )
+            .ConfigureAwait(false);
         _session = state.Session;
         var setup = new BatchSetup(
             Options.Nominal,
@@ -23,10 +27,12 @@ public sealed partial class SortingLoop
             _ctx.Plan.Nplc,
             Options.FourWire,
             _ctx.Plan.Meter.Family,
-            _meter.Identity);
-        _batch = state.CurrentBatch is { } current && SameBatch(current.Setup, setup)
-            ? current
-            : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
+            _meter.Identity
+        );
+        _batch =
+            state.CurrentBatch is { } current && SameBatch(current.Setup, setup)
+                ? current
+                : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
 
         var parts = await log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
         await LoadExtraNumbersAsync(parts, ct).ConfigureAwait(false);
@@ -42,15 +48,31 @@ public sealed partial class SortingLoop
         }
 
         _lastLive = parts.Where(p => p.IsLive).OrderBy(p => p.Number).LastOrDefault();
-        _ctx.Snapshot.SetSession(new SessionView(
-            _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
-            _meter.Identity, FormattableString.Invariant($"{_ctx.Plan.Range:G6} Ohm"), _ctx.Plan.Nplc, PlannedParts, false, false));
+        _ctx.Snapshot.SetSession(
+            new SessionView(
+                _session.Name,
+                _session.Id,
+                Options.Nominal,
+                Options.StockTolerance,
+                Options.MatchTolerance,
+                _meter.Identity,
+                FormattableString.Invariant($"{_ctx.Plan.Range:G6} Ohm"),
+                _ctx.Plan.Nplc,
+                PlannedParts,
+                false,
+                false
+            )
+        );
         PublishCounts();
 
         if (state.Resumed)
         {
-            await _ctx.Announcer.AnnounceAsync(
-                Announcement.Info($"resuming session '{_session.Name}' at part {state.NextPartNumber}"), ct).ConfigureAwait(false);
+            await _ctx
+                .Announcer.AnnounceAsync(
+                    Announcement.Info($"resuming session '{_session.Name}' at part {state.NextPartNumber}"),
+                    ct
+                )
+                .ConfigureAwait(false);
         }
 
         foreach (var p in state.Unannounced.OrderBy(p => p.Number))
@@ -74,15 +96,27 @@ public sealed partial class SortingLoop
     {
         if (!Done)
         {
-            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"ready: {Options.Nominal:G6} Ohm on the {_ctx.Plan.Range:G6} Ohm range at NPLC {_ctx.Plan.Nplc:G4}; put part {_partsRecorded + 1} in the fixture"), ct).ConfigureAwait(false);
+            await SayAsync(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"ready: {Options.Nominal:G6} Ohm on the {_ctx.Plan.Range:G6} Ohm range at NPLC "
+                            + $"{_ctx.Plan.Nplc:G4}; put part {_partsRecorded + 1} in the fixture"
+                    ),
+                    ct
+                )
+                .ConfigureAwait(false);
         }
 
         _ctx.Hands.Ready();
     }
 
     private static bool SameBatch(BatchSetup a, BatchSetup b) =>
-        a.Nominal == b.Nominal && a.Range == b.Range && a.Nplc == b.Nplc && a.FourWire == b.FourWire
-        && a.MatchTolerancePpm == b.MatchTolerancePpm && a.StockTolerancePpm == b.StockTolerancePpm;
+        a.Nominal == b.Nominal
+        && a.Range == b.Range
+        && a.Nplc == b.Nplc
+        && a.FourWire == b.FourWire
+        && a.MatchTolerancePpm == b.MatchTolerancePpm
+        && a.StockTolerancePpm == b.StockTolerancePpm;
 
     private void PublishCounts()
     {
@@ -91,14 +125,16 @@ public sealed partial class SortingLoop
         _ctx.Hub.Publish(new BenchEvent(0, BenchEventKind.Counts, default, Counts: counts));
     }
 
-    private static PartView ToView(PartRecord p) => new(
-        p.Number,
-        p.Nominal,
-        p.Value,
-        p.DeviationPpm,
-        p.Measured.ExpandedTransfer,
-        p.CupLabel ?? p.SlotLabel,
-        p.State.ToString(),
-        p.AcceptedAt,
-        p.AcceptedBy?.ToString());
+    private static PartView ToView(PartRecord p) =>
+        new(
+            p.Number,
+            p.Nominal,
+            p.Value,
+            p.DeviationPpm,
+            p.Measured.ExpandedTransfer,
+            p.CupLabel ?? p.SlotLabel,
+            p.State.ToString(),
+            p.AcceptedAt,
+            p.AcceptedBy?.ToString()
+        );
 }

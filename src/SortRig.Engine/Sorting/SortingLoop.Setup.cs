@@ -8,7 +8,8 @@ public sealed partial class SortingLoop
     // The range the meter is set to: the batch's (0), except while a bridging part is read on another range.
     private double _activeRange;
 
-    private ResistanceSetup Setup => new(_activeRange > 0 ? _activeRange : _ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
+    private ResistanceSetup Setup =>
+        new(_activeRange > 0 ? _activeRange : _ctx.Plan.Range, _ctx.Plan.Nplc, Options.FourWire);
 
     // Every later (re)connection applies the new range too.
     private void SetActiveRange(double range)
@@ -42,7 +43,12 @@ public sealed partial class SortingLoop
             }
 
             _faults++;
-            await _ctx.Announcer.AnnounceAsync(Announcement.Info("meter lost its range/NPLC settings (reset?): re-applied, measuring again"), ct).ConfigureAwait(false);
+            await _ctx
+                .Announcer.AnnounceAsync(
+                    Announcement.Info("meter lost its range/NPLC settings (reset?): re-applied, measuring again"),
+                    ct
+                )
+                .ConfigureAwait(false);
             await _meter.ApplyAsync(ct).ConfigureAwait(false);
             return false;
         }

@@ -22,7 +22,9 @@ public sealed partial class SortingLoop
                 if (told)
                 {
                     _ctx.Snapshot.UpdateSession(s => s with { Paused = _paused });
-                    await _ctx.Announcer.AnnounceAsync(Announcement.Info($"storage is back: {what} saved, carrying on"), ct).ConfigureAwait(false);
+                    await _ctx
+                        .Announcer.AnnounceAsync(Announcement.Info($"storage is back: {what} saved, carrying on"), ct)
+                        .ConfigureAwait(false);
                 }
 
                 return result;
@@ -35,9 +37,16 @@ public sealed partial class SortingLoop
                 {
                     told = true;
                     _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
-                    await _ctx.Announcer.AnnounceAsync(
-                        Announcement.Info($"storage fault, {StorageFaultRule.Plain(e.Fault)}: paused, nothing lost; {what} is not saved yet and the part stays in the fixture. Retrying every {s_storageRetry.TotalSeconds:0} s. {e.Message}"),
-                        ct).ConfigureAwait(false);
+                    await _ctx
+                        .Announcer.AnnounceAsync(
+                            Announcement.Info(
+                                $"storage fault, {StorageFaultRule.Plain(e.Fault)}: paused, nothing lost; {what} is "
+                                    + $"not saved yet and the part stays in the fixture. Retrying every "
+                                    + $"{s_storageRetry.TotalSeconds:0} s. {e.Message}"
+                            ),
+                            ct
+                        )
+                        .ConfigureAwait(false);
                 }
 
                 await Task.Delay(s_storageRetry, _ctx.Time, ct).ConfigureAwait(false);

@@ -15,12 +15,14 @@ public sealed partial class SortingLoop
     private MeasuredValue OnReferenceScale(MeasuredValue value)
     {
         var onRange = _correction is { } c && c.FromRangeFullScale == _ctx.Plan.Range ? c.Apply(value) : value;
-        return _checkScale == 1 ? onRange : onRange with
-        {
-            Value = onRange.Value * _checkScale,
-            StandardUncertainty = onRange.StandardUncertainty * _checkScale,
-            TransferUncertainty = onRange.TransferUncertainty * _checkScale,
-        };
+        return _checkScale == 1
+            ? onRange
+            : onRange with
+            {
+                Value = onRange.Value * _checkScale,
+                StandardUncertainty = onRange.StandardUncertainty * _checkScale,
+                TransferUncertainty = onRange.TransferUncertainty * _checkScale,
+            };
     }
 
     // A batch on another range than the session's first batch: plan the transfer between the two ranges
@@ -30,8 +32,22 @@ public sealed partial class SortingLoop
     {
         if (_batch.RangeTransfer is { } recorded)
         {
-            _correction = new RangeCorrection(1 + (recorded.CorrectionPpm * 1e-6), recorded.StandardUncertaintyPpm * 1e-6, recorded.ToRange, recorded.FromRange);
-            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer already recorded for this batch: values on the {recorded.FromRange:G6} Ohm range corrected by {recorded.CorrectionPpm:+0.0;-0.0} ppm (u = {recorded.StandardUncertaintyPpm:0.0} ppm)"), ct).ConfigureAwait(false);
+            _correction = new RangeCorrection(
+                1 + (recorded.CorrectionPpm * 1e-6),
+                recorded.StandardUncertaintyPpm * 1e-6,
+                recorded.ToRange,
+                recorded.FromRange
+            );
+            await SayAsync(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"range transfer already recorded for this batch: values on the {recorded.FromRange:G6} Ohm "
+                            + $"range corrected by {recorded.CorrectionPpm:+0.0;-0.0} ppm (u = "
+                            + $"{recorded.StandardUncertaintyPpm:0.0} ppm)"
+                    ),
+                    ct
+                )
+                .ConfigureAwait(false);
             return;
         }
 
@@ -45,14 +61,31 @@ public sealed partial class SortingLoop
         try
         {
             var earlier = first.Setup;
-            var plan = RangeRule.Plan(_ctx.Plan.Meter, [
-                new RangeRequest(earlier.Nominal, earlier.StockTolerancePpm * 1e-6, earlier.MatchTolerancePpm * 1e-6, _ctx.Plan.Nplc, Options.FourWire),
-                _ctx.Plan.Decision.Request]);
+            var plan = RangeRule.Plan(
+                _ctx.Plan.Meter,
+                [
+                    new RangeRequest(
+                        earlier.Nominal,
+                        earlier.StockTolerancePpm * 1e-6,
+                        earlier.MatchTolerancePpm * 1e-6,
+                        _ctx.Plan.Nplc,
+                        Options.FourWire
+                    ),
+                    _ctx.Plan.Decision.Request,
+                ]
+            );
             transfer = plan.Transfers.Single();
         }
         catch (Exception e) when (e is ArgumentException or InvalidOperationException)
         {
-            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer cannot be planned ({e.Message}); values on this range are not corrected"), ct).ConfigureAwait(false);
+            await SayAsync(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"range transfer cannot be planned ({e.Message}); values on this range are not corrected"
+                    ),
+                    ct
+                )
+                .ConfigureAwait(false);
             return;
         }
 
@@ -62,7 +95,15 @@ public sealed partial class SortingLoop
         if (Options.Bridge == BridgeMode.Off || (Options.Bridge == BridgeMode.Auto && !needed))
         {
             var why = needed ? "the match band needs one, but range transfer is off" : "the match band allows it";
-            await SayAsync(string.Create(CultureInfo.InvariantCulture, $"ratios to the {first.Setup.Range:G6} Ohm range batch carry up to ±{gainPpm:0} ppm of range gain error (allowed {allowedPpm:0} ppm), not corrected: {why}"), ct).ConfigureAwait(false);
+            await SayAsync(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"ratios to the {first.Setup.Range:G6} Ohm range batch carry up to ±{gainPpm:0} ppm of range "
+                            + $"gain error (allowed {allowedPpm:0} ppm), not corrected: {why}"
+                    ),
+                    ct
+                )
+                .ConfigureAwait(false);
             return;
         }
 
@@ -76,13 +117,24 @@ public sealed partial class SortingLoop
         var bridge = transfer.BridgeNominal;
         var ontoLow = transfer.HighRange.FullScale == _ctx.Plan.Range;
         var whose = ontoLow ? "from the earlier batch" : "of this batch";
-        await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer: the {transfer.HighRange.FullScale:G6} Ohm range may read up to ±{gainPpm:0} ppm off the {transfer.LowRange.FullScale:G6} Ohm range. Put one {bridge:G6} Ohm part {whose} in the fixture as a bridging part (it is not stored)"), ct).ConfigureAwait(false);
+        await SayAsync(
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"range transfer: the {transfer.HighRange.FullScale:G6} Ohm range may read up to ±{gainPpm:0} "
+                        + $"ppm off the {transfer.LowRange.FullScale:G6} Ohm range. Put one {bridge:G6} Ohm part "
+                        + $"{whose} in the fixture as a bridging part (it is not stored)"
+                ),
+                ct
+            )
+            .ConfigureAwait(false);
         await _ctx.Hands.PlaceBridgingPartAsync(bridge, ct).ConfigureAwait(false);
         RangeCorrection correction;
         while (true)
         {
-            var onLow = await SettleBridgeAsync(transfer.LowRange, bridge, thermallySettled: false, ct).ConfigureAwait(false);
-            var onHigh = await SettleBridgeAsync(transfer.HighRange, bridge, thermallySettled: true, ct).ConfigureAwait(false);
+            var onLow = await SettleBridgeAsync(transfer.LowRange, bridge, thermallySettled: false, ct)
+                .ConfigureAwait(false);
+            var onHigh = await SettleBridgeAsync(transfer.HighRange, bridge, thermallySettled: true, ct)
+                .ConfigureAwait(false);
             try
             {
                 var highOntoLow = transfer.Correction(onLow, onHigh);
@@ -91,18 +143,45 @@ public sealed partial class SortingLoop
             }
             catch (ArgumentException e)
             {
-                await SayAsync(string.Create(CultureInfo.InvariantCulture, $"bridging part: {e.Message} Leave one part in the fixture; measuring it again"), ct).ConfigureAwait(false);
+                await SayAsync(
+                        string.Create(
+                            CultureInfo.InvariantCulture,
+                            $"bridging part: {e.Message} Leave one part in the fixture; measuring it again"
+                        ),
+                        ct
+                    )
+                    .ConfigureAwait(false);
             }
         }
 
         var ppm = (correction.Factor - 1) * 1e6;
         var uPpm = correction.RelativeStandardUncertainty * 1e6;
         CrashPoint.Pass(CrashSite.Bridge);
-        var record = new RangeTransferCorrection(correction.FromRangeFullScale, correction.ToRangeFullScale, ppm, uPpm, _ctx.Time.GetUtcNow());
-        _batch = await DurablyAsync("the range transfer", c => _ctx.Log.RecordRangeTransferAsync(_batch.Id, record, c), ct).ConfigureAwait(false);
+        var record = new RangeTransferCorrection(
+            correction.FromRangeFullScale,
+            correction.ToRangeFullScale,
+            ppm,
+            uPpm,
+            _ctx.Time.GetUtcNow()
+        );
+        _batch = await DurablyAsync(
+                "the range transfer",
+                c => _ctx.Log.RecordRangeTransferAsync(_batch.Id, record, c),
+                ct
+            )
+            .ConfigureAwait(false);
         _correction = correction;
         CrashPoint.Pass(CrashSite.Bridged);
-        await SayAsync(string.Create(CultureInfo.InvariantCulture, $"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out"), ct).ConfigureAwait(false);
+        await SayAsync(
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"range transfer recorded: values on the {correction.FromRangeFullScale:G6} Ohm range corrected "
+                        + $"by {ppm:+0.0;-0.0} ppm onto the {correction.ToRangeFullScale:G6} Ohm range (u = {uPpm:0.0} "
+                        + $"ppm, U = {2 * uPpm:0.0} ppm at k = 2). Take the bridging part out"
+                ),
+                ct
+            )
+            .ConfigureAwait(false);
         _ctx.Hands.RemoveBridgingPart();
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
         SetActiveRange(0); // the batch's own range from here on

@@ -87,7 +87,12 @@ public sealed partial class SortingLoop
 
             if (Done)
             {
-                await DurablyAsync("the end of the session", c => _ctx.Log.FinishSessionAsync(_session.Id, c), cancellationToken).ConfigureAwait(false);
+                await DurablyAsync(
+                        "the end of the session",
+                        c => _ctx.Log.FinishSessionAsync(_session.Id, c),
+                        cancellationToken
+                    )
+                    .ConfigureAwait(false);
                 _ctx.Snapshot.UpdateSession(s => s with { Finished = true });
                 _ctx.Hub.Publish(new BenchEvent(0, BenchEventKind.Finished, default, Text: $"{_partsRecorded} parts"));
             }
@@ -97,11 +102,19 @@ public sealed partial class SortingLoop
             await _meter.DisposeAsync().ConfigureAwait(false);
         }
 
-        var live = _ctx.Snapshot.Parts().Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
-        return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, _faults, _finishRequested, _storageFaults) { Build = BuildOutcome };
+        var live = _ctx
+            .Snapshot.Parts()
+            .Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
+        return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, _faults, _finishRequested, _storageFaults)
+        {
+            Build = BuildOutcome,
+        };
     }
 
-    private bool Done => _finishRequested || SetsComplete || (PlannedParts > 0 && _partsRecorded >= PlannedParts && !_tracker.State.IsBusy());
+    private bool Done =>
+        _finishRequested
+        || SetsComplete
+        || (PlannedParts > 0 && _partsRecorded >= PlannedParts && !_tracker.State.IsBusy());
 
     private int PlannedParts => Options.Parts;
 
@@ -117,7 +130,8 @@ public sealed partial class SortingLoop
             _lastLiveStillInFixture = false;
         }
 
-        var collecting = before is SettleState.Bouncing or SettleState.Settling || (before is SettleState.Empty && reading.IsFinite);
+        var collecting =
+            before is SettleState.Bouncing or SettleState.Settling || (before is SettleState.Empty && reading.IsFinite);
         if (collecting)
         {
             _partReadings.Add(reading);
@@ -132,7 +146,9 @@ public sealed partial class SortingLoop
                 await AcceptAsync(verdict.Acceptance!, ct).ConfigureAwait(false);
                 break;
             case SettleState.Unstable:
-                _fixture.NoteDecided(_partReadings.Where(r => r.IsFinite).Select(r => r.Value).DefaultIfEmpty(double.NaN).Average());
+                _fixture.NoteDecided(
+                    _partReadings.Where(r => r.IsFinite).Select(r => r.Value).DefaultIfEmpty(double.NaN).Average()
+                );
                 await RecordUnstableAsync(verdict.Failure!, ct).ConfigureAwait(false);
                 break;
             case SettleState.Removed:
@@ -146,13 +162,20 @@ public sealed partial class SortingLoop
     {
         var live = verdict.Live;
         var text = live.SemPpm is { } sem
-            ? FormattableString.Invariant($"sem {sem:0.0} ppm  slope {live.SlopePpmPerSecond:0.0} ppm/s  {live.Elapsed.TotalSeconds:0.0} s")
+            ? FormattableString.Invariant(
+                $"sem {sem:0.0} ppm  slope {live.SlopePpmPerSecond:0.0} ppm/s  {live.Elapsed.TotalSeconds:0.0} s"
+            )
             : null;
-        _ctx.Hub.Publish(new BenchEvent(
-            0, BenchEventKind.Reading, default,
-            Value: reading.IsFinite ? reading.Value : double.PositiveInfinity,
-            DeviationPpm: reading.IsFinite ? (reading.Value - Options.Nominal) / Options.Nominal * 1e6 : null,
-            State: verdict.State.ToString(),
-            Text: text));
+        _ctx.Hub.Publish(
+            new BenchEvent(
+                0,
+                BenchEventKind.Reading,
+                default,
+                Value: reading.IsFinite ? reading.Value : double.PositiveInfinity,
+                DeviationPpm: reading.IsFinite ? (reading.Value - Options.Nominal) / Options.Nominal * 1e6 : null,
+                State: verdict.State.ToString(),
+                Text: text
+            )
+        );
     }
 }

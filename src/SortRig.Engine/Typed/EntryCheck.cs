@@ -15,7 +15,8 @@ public static class EntryCheck
 {
     private static readonly double s_decade = Math.Sqrt(10);
 
-    /// <summary>Checks <paramref name="text"/> typed while <paramref name="range"/> is set, for a batch of <paramref name="nominal"/> ohms.</summary>
+    /// <summary>Checks <paramref name="text"/> typed while <paramref name="range"/> is set, for a batch of <paramref
+    /// name="nominal"/> ohms.</summary>
     public static EntryVerdict Check(string? text, DisplayRange range, double nominal)
     {
         ArgumentNullException.ThrowIfNull(range);
@@ -34,12 +35,16 @@ public static class EntryCheck
         var letters = t.Where(c => !char.IsAsciiDigit(c) && c != '.').ToArray();
         if (letters.Length > 1 || (letters.Length == 1 && Multiplier(letters[0]) is null))
         {
-            return EntryVerdict.Refuse($"'{text}' has letters or signs in it: type only the digits of the display, e.g. {example}");
+            return EntryVerdict.Refuse(
+                $"'{text}' has letters or signs in it: type only the digits of the display, e.g. {example}"
+            );
         }
 
         if (letters.Length == 1 && t.Contains('.', StringComparison.Ordinal) && t[^1] != letters[0])
         {
-            return EntryVerdict.Refuse($"'{text}' has two decimal points (a '.' and a letter in the middle): re-enter, e.g. {example}");
+            return EntryVerdict.Refuse(
+                $"'{text}' has two decimal points (a '.' and a letter in the middle): re-enter, e.g. {example}"
+            );
         }
 
         if (!TryValue(t, range, out var ohms))
@@ -59,23 +64,40 @@ public static class EntryCheck
 
         if (ohms > range.DisplayMax * (1 + 1e-9))
         {
-            return EntryVerdict.Refuse(Invariant(
-                $"'{text}' ({OhmsText.Format(ohms, 6)}) is above what the {range.Name} range shows ({range.Show(range.DisplayMax)}): re-enter; if the meter shows OL the part is open or not this value"));
+            return EntryVerdict.Refuse(
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"'{text}' ({OhmsText.Format(ohms, 6)}) is above what the {range.Name} range shows ("
+                        + $"{range.Show(range.DisplayMax)}): re-enter; if the meter shows OL the part is open or not "
+                        + $"this value"
+                )
+            );
         }
 
         var steps = ohms / range.Step;
         if (Math.Abs(steps - Math.Round(steps)) > 1e-6 * Math.Max(1, steps))
         {
-            return EntryVerdict.Refuse(Invariant(
-                $"'{text}' has more digits than the {range.Name} range shows (one digit = {range.Show(range.Step)}): re-enter the display as shown"));
+            return EntryVerdict.Refuse(
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"'{text}' has more digits than the {range.Name} range shows (one digit = "
+                        + $"{range.Show(range.Step)}): re-enter the display as shown"
+                )
+            );
         }
 
         var ratio = ohms / nominal;
         if (ratio >= s_decade || ratio <= 1 / s_decade)
         {
             var times = ratio >= 1 ? ratio : 1 / ratio;
-            return EntryVerdict.Refuse(Invariant(
-                $"'{text}' ({OhmsText.Format(ohms, 6)}) is {times:0.#} times {(ratio >= 1 ? "above" : "below")} the nominal {OhmsText.Nominal(nominal)}: a misplaced decimal point? re-enter, e.g. {example}; a part that really reads this is not from this reel"));
+            return EntryVerdict.Refuse(
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"'{text}' ({OhmsText.Format(ohms, 6)}) is {times:0.#} times {(ratio >= 1 ? "above" : "below")} "
+                        + $"the nominal {OhmsText.Nominal(nominal)}: a misplaced decimal point? re-enter, e.g. "
+                        + $"{example}; a part that really reads this is not from this reel"
+                )
+            );
         }
 
         return EntryVerdict.Value(Math.Round(steps) * range.Step);
@@ -97,7 +119,11 @@ public static class EntryCheck
         }
 
         ohms = double.NaN;
-        if (digits.Length == 0 || digits == "." || !double.TryParse(digits, NumberStyles.AllowDecimalPoint, CultureInfo.InvariantCulture, out var x))
+        if (
+            digits.Length == 0
+            || digits == "."
+            || !double.TryParse(digits, NumberStyles.AllowDecimalPoint, CultureInfo.InvariantCulture, out var x)
+        )
         {
             return false;
         }
@@ -106,14 +132,16 @@ public static class EntryCheck
         return double.IsFinite(ohms);
     }
 
-    // 'm' is taken as mega: a hand-held shows no milliohms on a resistance range, and a typist often misses the shift key.
-    private static double? Multiplier(char c) => c switch
-    {
-        'R' or 'r' => 1,
-        'k' or 'K' => 1e3,
-        'M' or 'm' => 1e6,
-        _ => null,
-    };
+    // 'm' is taken as mega: a hand-held shows no milliohms on a resistance range, and a typist often misses the shift
+    // key.
+    private static double? Multiplier(char c) =>
+        c switch
+        {
+            'R' or 'r' => 1,
+            'k' or 'K' => 1e3,
+            'M' or 'm' => 1e6,
+            _ => null,
+        };
 
     private static string StripUnit(string t)
     {

@@ -32,4 +32,5 @@ internal sealed record TypedContext(
     BenchEventHub Hub,
     BenchSnapshot Snapshot,
     TimeProvider Time,
-    ILogger Logger);
+    ILogger Logger
+);

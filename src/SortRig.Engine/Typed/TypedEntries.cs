@@ -9,7 +9,8 @@ namespace SortRig.Engine.Typed;
 public sealed class TypedEntries
 {
     private readonly Channel<string> _lines = Channel.CreateBounded<string>(
-        new BoundedChannelOptions(64) { SingleReader = true, FullMode = BoundedChannelFullMode.Wait });
+        new BoundedChannelOptions(64) { SingleReader = true, FullMode = BoundedChannelFullMode.Wait }
+    );
     private volatile string _prompt = "";
 
     /// <summary>Raised with each new prompt (the console prints it).</summary>

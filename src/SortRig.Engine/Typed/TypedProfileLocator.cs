@@ -16,7 +16,9 @@ public static class TypedProfileLocator
             return TypedProfileLoader.Load(nameOrPath);
         }
 
-        var fileName = nameOrPath.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) ? nameOrPath : nameOrPath + ".yaml";
+        var fileName = nameOrPath.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase)
+            ? nameOrPath
+            : nameOrPath + ".yaml";
         var folders = ProfileLocator.SearchFolders.Select(f => Path.Combine(f, "typed")).ToList();
         foreach (var folder in folders)
         {
@@ -28,6 +30,8 @@ public static class TypedProfileLocator
         }
 
         throw new FileNotFoundException(
-            $"No typed-meter profile '{nameOrPath}': no {fileName} in {string.Join(" or ", folders)}.", nameOrPath);
+            $"No typed-meter profile '{nameOrPath}': no {fileName} in {string.Join(" or ", folders)}.",
+            nameOrPath
+        );
     }
 }

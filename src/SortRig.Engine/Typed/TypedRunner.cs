@@ -22,17 +22,26 @@ public static class TypedRunner
     /// <param name="ct">Stops the session; it stays resumable.</param>
     /// <exception cref="ResourceStringException">The resource is not a TYPED resource.</exception>
     public static async Task<SortOutcome> RunAsync(
-        SortOptions options, SortServices services, TypedEntries entries, HandSettleOptions? settle, CancellationToken ct)
+        SortOptions options,
+        SortServices services,
+        TypedEntries entries,
+        HandSettleOptions? settle,
+        CancellationToken ct
+    )
     {
         ArgumentNullException.ThrowIfNull(options);
         ArgumentNullException.ThrowIfNull(services);
-        var resource = ResourceStringParser.Parse(options.Resource) as TypedResource
+        var resource =
+            ResourceStringParser.Parse(options.Resource) as TypedResource
             ?? throw new ArgumentException($"'{options.Resource}' is not a TYPED::profile resource", nameof(options));
         var meter = TypedProfileLocator.Load(resource.Profile);
-        await using var log = await PrecisionLogFactory.OpenAsync(
-            options.Database,
-            new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
-            ct).ConfigureAwait(false);
+        await using var log = await PrecisionLogFactory
+            .OpenAsync(
+                options.Database,
+                new PrecisionLogOptions { TimeProvider = services.Time, LoggerFactory = services.Loggers },
+                ct
+            )
+            .ConfigureAwait(false);
         var context = new TypedContext(
             options,
             meter,
@@ -44,7 +53,8 @@ public static class TypedRunner
             services.Hub,
             services.Snapshot,
             services.Time,
-            services.Loggers.CreateLogger("SortRig.Engine.Typed"));
+            services.Loggers.CreateLogger("SortRig.Engine.Typed")
+        );
         return await new TypedSortingLoop(context).RunAsync(ct).ConfigureAwait(false);
     }
 }

@@ -16,29 +16,53 @@ internal sealed partial class TypedSortingLoop
     // committed but never announced is announced again first.
     private async Task OpenSessionAsync(CancellationToken ct)
     {
-        var state = await DurablyAsync("the session", c => _ctx.Log.OpenOrResumeSessionAsync(new SessionRequest(Options.Session, ReopenFinished: Options.Reopen), c), ct).ConfigureAwait(false);
+        var state = await DurablyAsync(
+                "the session",
+                c =>
+                    _ctx.Log.OpenOrResumeSessionAsync(
+                        new SessionRequest(Options.Session, ReopenFinished: Options.Reopen),
+                        c
+                    ),
+                ct
+            )
+            .ConfigureAwait(false);
         _session = state.Session;
         _batch = state.CurrentBatch;
         var parts = await _ctx.Log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
         _partsRecorded = parts.Count;
         _lastLive = parts.Where(p => p.IsLive).OrderBy(p => p.Number).LastOrDefault();
-        _ctx.Cups.Restore(parts
-            .Where(p => p.IsLive && (p.CupLabel ?? p.SlotLabel) is not null)
-            .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), (p.CupLabel ?? p.SlotLabel)!))
-            .ToList());
+        _ctx.Cups.Restore(
+            parts
+                .Where(p => p.IsLive && (p.CupLabel ?? p.SlotLabel) is not null)
+                .Select(p => (new CupRequest(p.Number, p.Nominal, p.Measured), (p.CupLabel ?? p.SlotLabel)!))
+                .ToList()
+        );
         foreach (var p in parts)
         {
             _ctx.Snapshot.Upsert(ToView(p));
         }
 
         // The page knows the session at once; the range follows once the operator has set it.
-        _ctx.Snapshot.SetSession(new SessionView(
-            _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
-            MeterIdentity, "range not set yet", TypedNplc, Options.Parts, false, false));
+        _ctx.Snapshot.SetSession(
+            new SessionView(
+                _session.Name,
+                _session.Id,
+                Options.Nominal,
+                Options.StockTolerance,
+                Options.MatchTolerance,
+                MeterIdentity,
+                "range not set yet",
+                TypedNplc,
+                Options.Parts,
+                false,
+                false
+            )
+        );
         PublishCounts();
         if (state.Resumed)
         {
-            await SayAsync($"resuming session '{_session.Name}' at part {state.NextPartNumber}", ct).ConfigureAwait(false);
+            await SayAsync($"resuming session '{_session.Name}' at part {state.NextPartNumber}", ct)
+                .ConfigureAwait(false);
         }
 
         foreach (var p in state.Unannounced.OrderBy(p => p.Number))
@@ -54,7 +78,8 @@ internal sealed partial class TypedSortingLoop
         var request = new HandRangeRequest(Options.Nominal, Options.StockTolerance, Options.MatchTolerance);
         var recommended = HandRangeRule.Choose(_ctx.Meter, request);
         await SayAsync($"{OhmsText(Options.Nominal)} parts: {recommended.Instruction}", ct).ConfigureAwait(false);
-        var prompt = $"range set on the meter: press Enter for {recommended.Recommended.Name}, or type the range you set";
+        var prompt =
+            $"range set on the meter: press Enter for {recommended.Recommended.Name}, or type the range you set";
         while (true)
         {
             var line = await _ctx.Entries.AskAsync(prompt, ct).ConfigureAwait(false);
@@ -67,7 +92,10 @@ internal sealed partial class TypedSortingLoop
             var selected = line.Trim().Length == 0 ? recommended.Recommended : FindRange(line.Trim());
             if (selected is null)
             {
-                prompt = $"'{line.Trim()}' is not a range of {_ctx.Meter.Family} ({string.Join(", ", _ctx.Meter.Ranges.Select(r => r.Name))}): type the range you set, or Enter for {recommended.Recommended.Name}";
+                prompt =
+                    $"'{line.Trim()}' is not a range of {_ctx.Meter.Family} ("
+                    + $"{string.Join(", ", _ctx.Meter.Ranges.Select(r => r.Name))}): type the range you set, or "
+                    + $"Enter for {recommended.Recommended.Name}";
                 continue;
             }
 
@@ -79,13 +107,19 @@ internal sealed partial class TypedSortingLoop
 
             if (!decision.Usable)
             {
-                prompt = $"set another range: press Enter for {recommended.Recommended.Name}, or type the range you set";
+                prompt =
+                    $"set another range: press Enter for {recommended.Recommended.Name}, or type the range you set";
                 continue;
             }
 
             _range = selected;
             await StartBatchAsync(ct).ConfigureAwait(false);
-            await SayAsync($"ready: {OhmsText(Options.Nominal)} on the {_range.Name} range; put part {_partsRecorded + 1} in the fixture and read the display", ct).ConfigureAwait(false);
+            await SayAsync(
+                    $"ready: {OhmsText(Options.Nominal)} on the {_range.Name} range; put part {_partsRecorded + 1} "
+                        + $"in the fixture and read the display",
+                    ct
+                )
+                .ConfigureAwait(false);
             return true;
         }
     }
@@ -101,7 +135,16 @@ internal sealed partial class TypedSortingLoop
             }
         }
 
-        var scale = t.Length == 0 ? 1 : t[^1] switch { 'k' or 'K' => 1e3, 'M' or 'm' => 1e6, 'R' or 'r' => 1, _ => 0 };
+        var scale =
+            t.Length == 0
+                ? 1
+                : t[^1] switch
+                {
+                    'k' or 'K' => 1e3,
+                    'M' or 'm' => 1e6,
+                    'R' or 'r' => 1,
+                    _ => 0,
+                };
         var digits = scale == 0 ? t : t[..^1];
         return double.TryParse(digits, NumberStyles.AllowDecimalPoint, CultureInfo.InvariantCulture, out var x)
             ? _ctx.Meter.Find(x * (scale == 0 ? 1 : scale))
@@ -111,18 +154,43 @@ internal sealed partial class TypedSortingLoop
     private async Task StartBatchAsync(CancellationToken ct)
     {
         var setup = new BatchSetup(
-            Options.Nominal, Options.StockTolerance * 1e6, Options.MatchTolerance * 1e6, _range.FullScale, TypedNplc,
-            Options.FourWire, _ctx.Meter.Family, MeterIdentity);
-        if (_batch is not { } b || b.Setup.Nominal != setup.Nominal || b.Setup.Range != setup.Range
-            || b.Setup.MatchTolerancePpm != setup.MatchTolerancePpm || b.Setup.StockTolerancePpm != setup.StockTolerancePpm
-            || b.Setup.MeterFamily != setup.MeterFamily)
+            Options.Nominal,
+            Options.StockTolerance * 1e6,
+            Options.MatchTolerance * 1e6,
+            _range.FullScale,
+            TypedNplc,
+            Options.FourWire,
+            _ctx.Meter.Family,
+            MeterIdentity
+        );
+        if (
+            _batch is not { } b
+            || b.Setup.Nominal != setup.Nominal
+            || b.Setup.Range != setup.Range
+            || b.Setup.MatchTolerancePpm != setup.MatchTolerancePpm
+            || b.Setup.StockTolerancePpm != setup.StockTolerancePpm
+            || b.Setup.MeterFamily != setup.MeterFamily
+        )
         {
-            _batch = await DurablyAsync("the batch", c => _ctx.Log.StartBatchAsync(_session.Id, setup, c), ct).ConfigureAwait(false);
+            _batch = await DurablyAsync("the batch", c => _ctx.Log.StartBatchAsync(_session.Id, setup, c), ct)
+                .ConfigureAwait(false);
         }
 
-        _ctx.Snapshot.SetSession(new SessionView(
-            _session.Name, _session.Id, Options.Nominal, Options.StockTolerance, Options.MatchTolerance,
-            setup.MeterIdentity, _range.Name, TypedNplc, Options.Parts, false, false));
+        _ctx.Snapshot.SetSession(
+            new SessionView(
+                _session.Name,
+                _session.Id,
+                Options.Nominal,
+                Options.StockTolerance,
+                Options.MatchTolerance,
+                setup.MeterIdentity,
+                _range.Name,
+                TypedNplc,
+                Options.Parts,
+                false,
+                false
+            )
+        );
     }
 
     private string MeterIdentity => $"typed by hand ({_ctx.Meter.Family})";

@@ -17,12 +17,22 @@ internal sealed partial class TypedSortingLoop
             return;
         }
 
-        var undone = await DurablyAsync($"the undo of part {last.Number}", c => _ctx.Log.UndoPartAsync(new PartCorrection(last.Id, PartCorrectionKind.Undo, Note: "operator"), c), ct).ConfigureAwait(false);
+        var undone = await DurablyAsync(
+                $"the undo of part {last.Number}",
+                c => _ctx.Log.UndoPartAsync(new PartCorrection(last.Id, PartCorrectionKind.Undo, Note: "operator"), c),
+                ct
+            )
+            .ConfigureAwait(false);
         _ctx.Cups.Undo(last.Number);
         _ctx.Snapshot.Upsert(ToView(undone));
         _lastLive = null;
         PublishCounts();
-        await SayAsync($"part {last.Number} undone: take it out of {last.CupLabel ?? last.SlotLabel ?? "its cup"} and measure it again", ct).ConfigureAwait(false);
+        await SayAsync(
+                $"part {last.Number} undone: take it out of {last.CupLabel ?? last.SlotLabel ?? "its cup"} and "
+                    + $"measure it again",
+                ct
+            )
+            .ConfigureAwait(false);
         _next = null;
     }
 }

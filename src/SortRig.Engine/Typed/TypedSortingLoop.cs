@@ -31,7 +31,8 @@ internal sealed partial class TypedSortingLoop(TypedContext context)
 
     private bool Done => _finishRequested || (Options.Parts > 0 && _partsRecorded >= Options.Parts);
 
-    /// <summary>Runs until the planned parts are recorded, the operator types "finish", input ends, or cancellation.</summary>
+    /// <summary>Runs until the planned parts are recorded, the operator types "finish", input ends, or
+    /// cancellation.</summary>
     public async Task<SortOutcome> RunAsync(CancellationToken cancellationToken)
     {
         await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
@@ -53,17 +54,25 @@ internal sealed partial class TypedSortingLoop(TypedContext context)
 
         if (Done && !_inputEnded)
         {
-            await DurablyAsync("the end of the session", c => _ctx.Log.FinishSessionAsync(_session.Id, c), cancellationToken).ConfigureAwait(false);
+            await DurablyAsync(
+                    "the end of the session",
+                    c => _ctx.Log.FinishSessionAsync(_session.Id, c),
+                    cancellationToken
+                )
+                .ConfigureAwait(false);
             _ctx.Snapshot.UpdateSession(s => s with { Finished = true });
             _ctx.Hub.Publish(new BenchEvent(0, BenchEventKind.Finished, default, Text: $"{_partsRecorded} parts"));
         }
 
-        var live = _ctx.Snapshot.Parts().Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
+        var live = _ctx
+            .Snapshot.Parts()
+            .Count(p => p.State is nameof(PartState.Accepted) or nameof(PartState.Announced));
         return new SortOutcome(_session.Id, _partsRecorded, live, _unstable, 0, _finishRequested, _storageFaults);
     }
 
     private string PartPrompt() =>
-        $"part {_partsRecorded + 1}: type the display ({_range.UnitName} on the {_range.Name} range), or 'undo', 'again', 'finish'";
+        $"part {_partsRecorded + 1}: type the display ({_range.UnitName} on the {_range.Name} range), or 'undo', "
+        + $"'again', 'finish'";
 
     private async Task OnLineAsync(string line, CancellationToken ct)
     {
@@ -115,10 +124,15 @@ internal sealed partial class TypedSortingLoop(TypedContext context)
     }
 
     private void PublishEntry(Reading entry, HandSettleVerdict verdict) =>
-        _ctx.Hub.Publish(new BenchEvent(
-            0, BenchEventKind.Reading, default,
-            Value: entry.Value,
-            DeviationPpm: (entry.Value - Options.Nominal) / Options.Nominal * 1e6,
-            State: verdict.State.ToString(),
-            Text: verdict.Prompt));
+        _ctx.Hub.Publish(
+            new BenchEvent(
+                0,
+                BenchEventKind.Reading,
+                default,
+                Value: entry.Value,
+                DeviationPpm: (entry.Value - Options.Nominal) / Options.Nominal * 1e6,
+                State: verdict.State.ToString(),
+                Text: verdict.Prompt
+            )
+        );
 }

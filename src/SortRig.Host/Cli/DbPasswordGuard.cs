@@ -11,8 +11,9 @@ namespace SortRig.Host.Cli;
 internal static class DbPasswordGuard
 {
     public const string Message =
-        "--db: the connection string holds a password, which the process list would show to every user; " +
-        "leave it out and set PGPASSWORD, a passfile (Passfile=/path or ~/.pgpass) or SORTRIG_Sort__Database instead (docs/lab.md)";
+        "--db: the connection string holds a password, which the process list would show to every user; "
+        + "leave it out and set PGPASSWORD, a passfile (Passfile=/path or ~/.pgpass) or SORTRIG_Sort__Database "
+        + "instead (docs/lab.md)";
 
     /// <summary>Adds the check to every --db option of <paramref name="command"/> and its subcommands.</summary>
     public static void Attach(Command command)

@@ -19,7 +19,8 @@ internal static partial class SortInputCheck
         if (string.IsNullOrWhiteSpace(options.Recipe))
         {
             return options.Sets > 0
-                ? $"{Name(nameof(SortOptions.Sets), flags)}: {options.Sets.ToString(CultureInfo.InvariantCulture)} sets of what? give the recipe too ({recipeFlag} FILE)"
+                ? $"{Name(nameof(SortOptions.Sets), flags)}: {options.Sets.ToString(CultureInfo.InvariantCulture)} "
+                    + $"sets of what? give the recipe too ({recipeFlag} FILE)"
                 : null;
         }
 
@@ -42,11 +43,18 @@ internal static partial class SortInputCheck
         if (!PlanParts.Wanted(options.Nominal, recipe, new AssemblyOptions()))
         {
             var takes = string.Join(", ", recipe.Positions.Select(p => BuildStatus.Ohms(p.Nominal)).Distinct());
-            return string.Create(CultureInfo.InvariantCulture,
-                $"{Name(nameof(SortOptions.Nominal), flags)}: {options.Nominal:G6} Ohm is not a nominal recipe '{recipe.Name}' takes ({takes}, or their pair halves where allowed)");
+            return string.Create(
+                CultureInfo.InvariantCulture,
+                $"{Name(nameof(SortOptions.Nominal), flags)}: {options.Nominal:G6} Ohm is not a nominal recipe '"
+                    + $"{recipe.Name}' takes ({takes}, or their pair halves where allowed)"
+            );
         }
 
-        if (!string.IsNullOrWhiteSpace(options.SetsCsv) && Path.GetDirectoryName(Path.GetFullPath(options.SetsCsv)) is { } folder && !Directory.Exists(folder))
+        if (
+            !string.IsNullOrWhiteSpace(options.SetsCsv)
+            && Path.GetDirectoryName(Path.GetFullPath(options.SetsCsv)) is { } folder
+            && !Directory.Exists(folder)
+        )
         {
             return $"{Name(nameof(SortOptions.SetsCsv), flags)}: no folder '{folder}' to write the pick list in";
         }

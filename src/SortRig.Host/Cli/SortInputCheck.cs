@@ -22,8 +22,11 @@ internal static partial class SortInputCheck
         foreach (var property in typeof(SortOptions).GetProperties())
         {
             var type = Nullable.GetUnderlyingType(property.PropertyType) ?? property.PropertyType;
-            if (type.IsEnum && section[property.Name] is { } text
-                && (!Enum.TryParse(type, text, ignoreCase: true, out _) || int.TryParse(text, out _)))
+            if (
+                type.IsEnum
+                && section[property.Name] is { } text
+                && (!Enum.TryParse(type, text, ignoreCase: true, out _) || int.TryParse(text, out _))
+            )
             {
                 var allowed = string.Join(", ", Enum.GetNames(type).Select(n => n.ToLowerInvariant()));
                 return (null, $"{Name(property, flags)}: '{text}' is not one of {allowed}");
@@ -91,12 +94,20 @@ internal static partial class SortInputCheck
 
             if (section[nameof(SortOptions.Physics)] is not null)
             {
-                return (null, $"{Name(nameof(SortOptions.Physics), flags)}: applies to the simulator only; a real meter measures real parts");
+                return (
+                    null,
+                    $"{Name(nameof(SortOptions.Physics), flags)}: applies to the simulator only; a real meter "
+                        + $"measures real parts"
+                );
             }
 
             if (options.Speed != 1)
             {
-                return (null, $"{Name(nameof(SortOptions.Speed), flags)}: applies to the simulator only; a real meter runs in real time");
+                return (
+                    null,
+                    $"{Name(nameof(SortOptions.Speed), flags)}: applies to the simulator only; a real meter runs in "
+                        + $"real time"
+                );
             }
         }
 
@@ -118,11 +129,15 @@ internal static partial class SortInputCheck
     {
         if (string.IsNullOrWhiteSpace(options.Check))
         {
-            foreach (var member in (string[])[nameof(SortOptions.CheckEvery), nameof(SortOptions.CheckMinutes), nameof(SortOptions.CheckValue)])
+            foreach (
+                var member in (string[])
+                    [nameof(SortOptions.CheckEvery), nameof(SortOptions.CheckMinutes), nameof(SortOptions.CheckValue)]
+            )
             {
                 if (section[member] is not null)
                 {
-                    return $"{Name(member, flags)}: applies only with a check standard ({Name(nameof(SortOptions.Check), flags)})";
+                    return $"{Name(member, flags)}: applies only with a check standard ("
+                        + $"{Name(nameof(SortOptions.Check), flags)})";
                 }
             }
 
@@ -139,7 +154,9 @@ internal static partial class SortInputCheck
         }
 
         return options.CheckEvery == 0 && options.CheckMinutes == 0
-            ? $"{Name(nameof(SortOptions.CheckEvery), flags)}: 0 with no {Name(nameof(SortOptions.CheckMinutes), flags)} would read the check only at the start and the end; give one of them"
+            ? $"{Name(nameof(SortOptions.CheckEvery), flags)}: 0 with no "
+                + $"{Name(nameof(SortOptions.CheckMinutes), flags)} would read the check only at the start and the "
+                + $"end; give one of them"
             : null;
     }
 
@@ -154,8 +171,10 @@ internal static partial class SortInputCheck
 
         var value = Convert.ToString(property.GetValue(options), CultureInfo.InvariantCulture);
         return property.GetCustomAttribute<RangeAttribute>() is { } range
-            ? string.Create(CultureInfo.InvariantCulture,
-                $"{Name(property, flags)}: {value} is out of range; allowed {range.Minimum} to {range.Maximum}")
+            ? string.Create(
+                CultureInfo.InvariantCulture,
+                $"{Name(property, flags)}: {value} is out of range; allowed {range.Minimum} to {range.Maximum}"
+            )
             : $"{Name(property, flags)}: {result.ErrorMessage}";
     }
 

@@ -37,14 +37,26 @@ internal static class TradeValueParser
     {
         var t = text.Trim();
         var at = t.IndexOfAny(['R', 'r', 'k', 'K', 'M', 'G']);
-        var scale = at < 0 ? 1.0 : t[at] switch { 'k' or 'K' => 1e3, 'M' => 1e6, 'G' => 1e9, _ => 1.0 };
-        var digits = at < 0 ? t
+        var scale =
+            at < 0
+                ? 1.0
+                : t[at] switch
+                {
+                    'k' or 'K' => 1e3,
+                    'M' => 1e6,
+                    'G' => 1e9,
+                    _ => 1.0,
+                };
+        var digits =
+            at < 0 ? t
             : at == t.Length - 1 ? t[..at]
-            : t[..at].Contains('.', StringComparison.Ordinal) || t[(at + 1)..].Contains('.', StringComparison.Ordinal) ? "x"
+            : t[..at].Contains('.', StringComparison.Ordinal) || t[(at + 1)..].Contains('.', StringComparison.Ordinal)
+                ? "x"
             : (at == 0 ? "0" : t[..at]) + "." + t[(at + 1)..];
-        ohms = digits.Length > 0 && double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var x)
-            ? x * scale
-            : double.NaN;
+        ohms =
+            digits.Length > 0 && double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var x)
+                ? x * scale
+                : double.NaN;
         return ohms > 0 && double.IsFinite(ohms);
     }
 
@@ -62,7 +74,9 @@ internal static class TradeValueParser
             (t, scale) = (t[..^1], 1e-2);
         }
 
-        fraction = double.TryParse(t.Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out var x) ? x * scale : double.NaN;
+        fraction = double.TryParse(t.Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out var x)
+            ? x * scale
+            : double.NaN;
         return double.IsFinite(fraction);
     }
 

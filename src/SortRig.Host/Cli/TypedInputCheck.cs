@@ -6,7 +6,8 @@ using SortRig.Measurement.Ranging;
 
 namespace SortRig.Host.Cli;
 
-/// <summary>Checks a TYPED::profile resource before anything starts: the profile loads and one of its ranges shows the batch.</summary>
+/// <summary>Checks a TYPED::profile resource before anything starts: the profile loads and one of its ranges shows the
+/// batch.</summary>
 internal static class TypedInputCheck
 {
     /// <summary>Null when the resource is not typed or all is well; else one line naming the resource flag.</summary>
@@ -20,7 +21,10 @@ internal static class TypedInputCheck
         try
         {
             var meter = TypedProfileLocator.Load(typed.Profile);
-            HandRangeRule.Recommend(meter, new HandRangeRequest(options.Nominal, options.StockTolerance, options.MatchTolerance));
+            HandRangeRule.Recommend(
+                meter,
+                new HandRangeRequest(options.Nominal, options.StockTolerance, options.MatchTolerance)
+            );
             return null;
         }
         catch (Exception e) when (e is FileNotFoundException or ProfileException or ArgumentException)

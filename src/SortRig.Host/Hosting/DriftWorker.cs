@@ -1,13 +1,13 @@
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
-using Spectre.Console;
 using SortRig.Engine.DriftLogging;
 using SortRig.Engine.Events;
 using SortRig.Engine.Simulation;
 using SortRig.Host.LibraryVerb;
 using SortRig.Host.Live;
 using SortRig.Host.VerbSupport;
+using Spectre.Console;
 
 namespace SortRig.Host.Hosting;
 
@@ -20,9 +20,11 @@ internal sealed class DriftWorker(
     TimeProvider time,
     BenchEventHub hub,
     ILoggerFactory loggers,
-    IHostApplicationLifetime lifetime) : BackgroundService
+    IHostApplicationLifetime lifetime
+) : BackgroundService
 {
-    /// <summary>0 finished or stopped, 1 failed, 2 bad settings (<see cref="VerbExit.BadInput"/>: also a library part that cannot be logged).</summary>
+    /// <summary>0 finished or stopped, 1 failed, 2 bad settings (<see cref="VerbExit.BadInput"/>: also a library part
+    /// that cannot be logged).</summary>
     public int ExitCode { get; private set; }
 
     /// <summary>The outcome once the run has ended.</summary>
@@ -50,7 +52,9 @@ internal sealed class DriftWorker(
         catch (ArgumentException e)
         {
             ExitCode = VerbExit.BadInput;
-            AnsiConsole.MarkupLine($"[red]cannot log drift with these settings:[/] {Markup.Escape(e.Message.Split(" (Parameter", 2)[0])}");
+            AnsiConsole.MarkupLine(
+                $"[red]cannot log drift with these settings:[/] {Markup.Escape(e.Message.Split(" (Parameter", 2)[0])}"
+            );
         }
         catch (OperationCanceledException) when (stoppingToken.IsCancellationRequested)
         {

@@ -26,8 +26,12 @@ internal static class HostSetup
     {
         var probe = new ConfigurationBuilder().AddInMemoryCollection(flags).Build();
         IHostApplicationBuilder builder = probe.GetValue<bool>("Web:Enabled")
-            ? WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = Environment.CurrentDirectory })
-            : Microsoft.Extensions.Hosting.Host.CreateApplicationBuilder(new HostApplicationBuilderSettings { Args = [], ContentRootPath = Environment.CurrentDirectory });
+            ? WebApplication.CreateBuilder(
+                new WebApplicationOptions { Args = [], ContentRootPath = Environment.CurrentDirectory }
+            )
+            : Microsoft.Extensions.Hosting.Host.CreateApplicationBuilder(
+                new HostApplicationBuilderSettings { Args = [], ContentRootPath = Environment.CurrentDirectory }
+            );
         Configure(builder, flags, quietConsole);
         return builder;
     }
@@ -48,7 +52,11 @@ internal static class HostSetup
         return ((HostApplicationBuilder)builder).Build();
     }
 
-    public static void Configure(IHostApplicationBuilder builder, IReadOnlyDictionary<string, string?> flags, bool quietConsole)
+    public static void Configure(
+        IHostApplicationBuilder builder,
+        IReadOnlyDictionary<string, string?> flags,
+        bool quietConsole
+    )
     {
         builder.Configuration.AddJsonFile(Path.Combine(AppContext.BaseDirectory, "appsettings.json"), optional: true);
         builder.Configuration.AddJsonFile("appsettings.json", optional: true);
@@ -56,28 +64,38 @@ internal static class HostSetup
         builder.Configuration.AddInMemoryCollection(flags);
 
         var logFile = builder.Configuration["Logging:File"] ?? "logs/sortrig-.log";
-        builder.Services.AddSerilog((_, logger) => logger
-            .ReadFrom.Configuration(builder.Configuration)
-            .Enrich.FromLogContext()
-            // The console gets one line per event, never a stack trace (those go to the log file only), and not the
-            // failures the verb itself tells the operator in plain words.
-            .WriteTo.Logger(console => console
-                .Filter.ByExcluding(IsToldByTheVerb)
-                .WriteTo.Console(
-                    restrictedToMinimumLevel: quietConsole ? LogEventLevel.Warning : LogEventLevel.Information,
-                    standardErrorFromLevel: LogEventLevel.Verbose,
-                    outputTemplate: "[{Timestamp:HH:mm:ss} {Level:u3}] {Message:lj}{NewLine}",
-                    formatProvider: System.Globalization.CultureInfo.InvariantCulture))
-            .WriteTo.File(
-                logFile,
-                rollingInterval: RollingInterval.Day,
-                retainedFileCountLimit: 14,
-                formatProvider: System.Globalization.CultureInfo.InvariantCulture));
+        builder.Services.AddSerilog(
+            (_, logger) =>
+                logger
+                    .ReadFrom.Configuration(builder.Configuration)
+                    .Enrich.FromLogContext()
+                    // The console gets one line per event, never a stack trace (those go to the log file only), and not
+                    // the failures the verb itself tells the operator in plain words.
+                    .WriteTo.Logger(console =>
+                        console
+                            .Filter.ByExcluding(IsToldByTheVerb)
+                            .WriteTo.Console(
+                                restrictedToMinimumLevel: quietConsole
+                                    ? LogEventLevel.Warning
+                                    : LogEventLevel.Information,
+                                standardErrorFromLevel: LogEventLevel.Verbose,
+                                outputTemplate: "[{Timestamp:HH:mm:ss} {Level:u3}] {Message:lj}{NewLine}",
+                                formatProvider: System.Globalization.CultureInfo.InvariantCulture
+                            )
+                    )
+                    .WriteTo.File(
+                        logFile,
+                        rollingInterval: RollingInterval.Day,
+                        retainedFileCountLimit: 14,
+                        formatProvider: System.Globalization.CultureInfo.InvariantCulture
+                    )
+        );
         builder.Services.AddSystemd();
     }
 
     // Event ids of failures the verbs print themselves ("sorting stopped: ..."): Host 7001.
     private static bool IsToldByTheVerb(Serilog.Events.LogEvent e) =>
-        e.Properties.TryGetValue("EventId", out var id) && id is Serilog.Events.StructureValue s
+        e.Properties.TryGetValue("EventId", out var id)
+        && id is Serilog.Events.StructureValue s
         && s.Properties.Any(p => p.Name == "Id" && p.Value is Serilog.Events.ScalarValue { Value: 7001 });
 }

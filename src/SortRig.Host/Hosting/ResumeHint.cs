@@ -24,7 +24,8 @@ internal static class ResumeHint
     }
 
     private static string Quote(string word) =>
-        word.Length > 0 && word.All(c => char.IsAsciiLetterOrDigit(c) || "-_.:/=@%+,".Contains(c, StringComparison.Ordinal))
+        word.Length > 0
+        && word.All(c => char.IsAsciiLetterOrDigit(c) || "-_.:/=@%+,".Contains(c, StringComparison.Ordinal))
             ? word
             : "'" + word.Replace("'", "'\\''", StringComparison.Ordinal) + "'";
 }

@@ -3,7 +3,6 @@ using Microsoft.Extensions.Configuration;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Options;
-using Spectre.Console;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Composition;
 using SortRig.Engine.Events;
@@ -14,6 +13,7 @@ using SortRig.Host.Live;
 using SortRig.Host.Operator;
 using SortRig.Instruments.Drivers;
 using SortRig.Instruments.Resources;
+using Spectre.Console;
 
 namespace SortRig.Host.Hosting;
 
@@ -30,12 +30,15 @@ internal sealed class SortWorker(
     TypedEntries typedEntries,
     IConfiguration configuration,
     ILoggerFactory loggers,
-    IHostApplicationLifetime lifetime) : BackgroundService
+    IHostApplicationLifetime lifetime
+) : BackgroundService
 {
-    /// <summary>0 finished, 1 failed, 2 the batch cannot be measured as asked, 130 stopped by Ctrl+C (resumable).</summary>
+    /// <summary>0 finished, 1 failed, 2 the batch cannot be measured as asked, 130 stopped by Ctrl+C
+    /// (resumable).</summary>
     public int ExitCode { get; private set; }
 
-    /// <summary>Longest wait, after the session ended, for the live view to draw what a slow terminal has not yet shown.</summary>
+    /// <summary>Longest wait, after the session ended, for the live view to draw what a slow terminal has not yet
+    /// shown.</summary>
     private static readonly TimeSpan s_viewCatchUp = TimeSpan.FromSeconds(20);
 
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
@@ -43,7 +46,8 @@ internal sealed class SortWorker(
         var sort = options.Value;
         var typed = ResourceStringParser.IsTyped(sort.Resource);
         // A typed meter runs in prompt mode: plain lines and a prompt, no live view redrawing under the typing.
-        var live = !typed && (sort.Live ?? (!Console.IsOutputRedirected && AnsiConsole.Profile.Capabilities.Interactive));
+        var live =
+            !typed && (sort.Live ?? (!Console.IsOutputRedirected && AnsiConsole.Profile.Capabilities.Interactive));
         var announcers = new List<IAnnouncer>();
         if (!live)
         {
@@ -61,7 +65,17 @@ internal sealed class SortWorker(
         try
         {
             var outcome = typed
-                ? await TypedConsole.RunAsync(sort, services, typedEntries, Console.In, Console.Out, endWithInput: !configuration.GetValue<bool>("Web:Enabled"), stoppingToken).ConfigureAwait(false)
+                ? await TypedConsole
+                    .RunAsync(
+                        sort,
+                        services,
+                        typedEntries,
+                        Console.In,
+                        Console.Out,
+                        endWithInput: !configuration.GetValue<bool>("Web:Enabled"),
+                        stoppingToken
+                    )
+                    .ConfigureAwait(false)
                 : await SortRunner.RunAsync(sort, services, null, stoppingToken).ConfigureAwait(false);
 
             // A terminal that reads slowly leaves the view behind the session: let it catch up with the events still
@@ -89,10 +103,20 @@ internal sealed class SortWorker(
             await StopViewAsync(viewStop, view).ConfigureAwait(false);
             var recorded = snapshot.Parts().Count(p => p.State is "Accepted" or "Announced");
             // Plain lines, never wrapped: the resume command must survive a copy and paste.
-            await Console.Out.WriteLineAsync(string.Create(CultureInfo.InvariantCulture,
-                $"stopped: session '{sort.Session}' keeps its {recorded} logged part(s); a part still in the fixture was not recorded and is measured again.")).ConfigureAwait(false);
-            await Console.Out.WriteLineAsync(
-                $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}").ConfigureAwait(false);
+            await Console
+                .Out.WriteLineAsync(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"stopped: session '{sort.Session}' keeps its {recorded} logged part(s); a part still in the "
+                            + $"fixture was not recorded and is measured again."
+                    )
+                )
+                .ConfigureAwait(false);
+            await Console
+                .Out.WriteLineAsync(
+                    $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}"
+                )
+                .ConfigureAwait(false);
         }
         catch (MeterUnreachableException e)
         {
@@ -109,8 +133,11 @@ internal sealed class SortWorker(
             Log.SortFailed(loggers.CreateLogger<SortWorker>(), e.Message, e);
             await StopViewAsync(viewStop, view).ConfigureAwait(false);
             AnsiConsole.MarkupLine($"[red]sorting stopped:[/] {Markup.Escape(e.Message)}");
-            await Console.Out.WriteLineAsync(
-                $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}").ConfigureAwait(false);
+            await Console
+                .Out.WriteLineAsync(
+                    $"to go on: {ResumeHint.Command(Environment.GetCommandLineArgs()[1..], sort.Session)}"
+                )
+                .ConfigureAwait(false);
         }
         catch (Exception e)
         {
@@ -130,7 +157,9 @@ internal sealed class SortWorker(
         if (sort.StayAfterFinish && ExitCode == 0)
         {
             // The page keeps showing the finished session until the operator stops the program.
-            await Task.Delay(Timeout.InfiniteTimeSpan, stoppingToken).ContinueWith(_ => { }, TaskScheduler.Default).ConfigureAwait(false);
+            await Task.Delay(Timeout.InfiniteTimeSpan, stoppingToken)
+                .ContinueWith(_ => { }, TaskScheduler.Default)
+                .ConfigureAwait(false);
         }
 
         lifetime.StopApplication();

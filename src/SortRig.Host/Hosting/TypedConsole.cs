@@ -22,7 +22,14 @@ internal static class TypedConsole
     /// <param name="endWithInput">End the run at the end of input; false when the bench page can still type.</param>
     /// <param name="ct">Stops the session; it stays resumable.</param>
     public static async Task<SortOutcome> RunAsync(
-        SortOptions sort, SortServices services, TypedEntries entries, TextReader input, TextWriter output, bool endWithInput, CancellationToken ct)
+        SortOptions sort,
+        SortServices services,
+        TypedEntries entries,
+        TextReader input,
+        TextWriter output,
+        bool endWithInput,
+        CancellationToken ct
+    )
     {
         var gate = new Lock();
         void Print(string prompt)
@@ -37,10 +44,21 @@ internal static class TypedConsole
         entries.Prompted += Print;
         using var stop = CancellationTokenSource.CreateLinkedTokenSource(ct);
         var pump = Task.Run(() => PumpAsync(input, entries, endWithInput, stop.Token), CancellationToken.None);
-        var forward = Task.Run(() => ForwardCommandsAsync(services.Commands, entries, stop.Token), CancellationToken.None);
+        var forward = Task.Run(
+            () => ForwardCommandsAsync(services.Commands, entries, stop.Token),
+            CancellationToken.None
+        );
         try
         {
-            return await TypedRunner.RunAsync(sort, services, entries, new HandSettleOptions { Agreeing = sort.Agree, MinGap = TimeSpan.FromSeconds(sort.Gap) }, ct).ConfigureAwait(false);
+            return await TypedRunner
+                .RunAsync(
+                    sort,
+                    services,
+                    entries,
+                    new HandSettleOptions { Agreeing = sort.Agree, MinGap = TimeSpan.FromSeconds(sort.Gap) },
+                    ct
+                )
+                .ConfigureAwait(false);
         }
         finally
         {
@@ -53,7 +71,11 @@ internal static class TypedConsole
     }
 
     // The page's buttons (and keys) post operator commands; on a typed meter they become the typed words.
-    private static async Task ForwardCommandsAsync(OperatorCommands commands, TypedEntries entries, CancellationToken ct)
+    private static async Task ForwardCommandsAsync(
+        OperatorCommands commands,
+        TypedEntries entries,
+        CancellationToken ct
+    )
     {
         try
         {

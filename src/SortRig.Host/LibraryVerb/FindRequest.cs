@@ -1,9 +1,9 @@
 using System.Globalization;
-using Spectre.Console;
 using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
 using SortRig.Storage.Contracts;
+using Spectre.Console;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -15,4 +15,12 @@ namespace SortRig.Host.LibraryVerb;
 /// <param name="Status">available (default), taken, used, retired or any.</param>
 /// <param name="Location">Exact storage location; null for any.</param>
 /// <param name="Limit">At most this many parts, 1..100 000.</param>
-internal sealed record FindRequest(string Database, string? Nominal, double? MinPpm, double? MaxPpm, string Status = "available", string? Location = null, int Limit = 1000);
+internal sealed record FindRequest(
+    string Database,
+    string? Nominal,
+    double? MinPpm,
+    double? MaxPpm,
+    string Status = "available",
+    string? Location = null,
+    int Limit = 1000
+);

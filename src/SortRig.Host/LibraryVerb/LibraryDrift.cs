@@ -11,17 +11,23 @@ namespace SortRig.Host.LibraryVerb;
 internal static class LibraryDrift
 {
     /// <summary>
-    /// Smallest equivalent degrees of freedom (white frequency noise, NIST SP 1065) of an Allan point reported as reliable.
-    /// At 10 the 68 % chi-square interval of sigma is about -16 % / +33 %; the threshold is our choice, no source.
+    /// Smallest equivalent degrees of freedom (white frequency noise, NIST SP 1065) of an Allan point reported as
+    /// reliable. At 10 the 68 % chi-square interval of sigma is about -16 % / +33 %; the threshold is our choice, no
+    /// source.
     /// </summary>
     public const double ReliableEdf = 10;
 
-    /// <summary>Above this many parts every drift record is read and filtered here, instead of binding the ids.</summary>
+    /// <summary>Above this many parts every drift record is read and filtered here, instead of binding the
+    /// ids.</summary>
     private const int MaxIdsBound = 10_000;
 
     /// <summary>Each part's latest run with samples (by run start, then run id); parts never logged are absent.
     /// Reads each run needed once, keeping only the channels of the given parts.</summary>
-    public static async Task<IReadOnlyDictionary<long, PartDrift>> LatestAsync(IDriftLog log, IReadOnlyList<PartRecord> parts, CancellationToken cancellationToken)
+    public static async Task<IReadOnlyDictionary<long, PartDrift>> LatestAsync(
+        IDriftLog log,
+        IReadOnlyList<PartRecord> parts,
+        CancellationToken cancellationToken
+    )
     {
         var wanted = parts.Select(p => p.Id).ToHashSet();
         if (wanted.Count == 0)
@@ -29,7 +35,8 @@ internal static class LibraryDrift
             return new Dictionary<long, PartDrift>();
         }
 
-        var rows = await log.GetPartDriftRunsAsync(wanted.Count <= MaxIdsBound ? [.. wanted] : null, cancellationToken).ConfigureAwait(false);
+        var rows = await log.GetPartDriftRunsAsync(wanted.Count <= MaxIdsBound ? [.. wanted] : null, cancellationToken)
+            .ConfigureAwait(false);
         var latest = rows.Where(r => r.SampleCount > 0 && wanted.Contains(r.PartId))
             .GroupBy(r => r.PartId)
             .Select(g => g.MaxBy(r => (r.RunStartedAt, r.RunId, r.Channel))!)
@@ -54,7 +61,10 @@ internal static class LibraryDrift
 
             foreach (var r in run)
             {
-                result[r.PartId] = PartDrift.From(r, DriftRunAnalysis.Analyze(r.ChannelLabel, byChannel[r.Channel], stored.Interval));
+                result[r.PartId] = PartDrift.From(
+                    r,
+                    DriftRunAnalysis.Analyze(r.ChannelLabel, byChannel[r.Channel], stored.Interval)
+                );
             }
         }
 

@@ -1,12 +1,12 @@
 using System.Globalization;
 using CsvHelper;
-using SortRig.Reporting.Reports;
-using Spectre.Console;
 using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
-using SortRig.Storage.Contracts;
 using SortRig.Measurement.Uncertainty;
+using SortRig.Reporting.Reports;
+using SortRig.Storage.Contracts;
+using Spectre.Console;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -15,7 +15,20 @@ internal static class LibraryLabels
 {
     /// <summary>CSV columns, in order (the *_text columns are rounded as on the text label).</summary>
     public static IReadOnlyList<string> Columns { get; } =
-        ["id", "nominal_ohm", "value_ohm", "expanded_u_ohm", "k", "deviation_ppm", "temperature_c", "date", "location", "nominal_text", "value_text", "u_text"];
+    [
+        "id",
+        "nominal_ohm",
+        "value_ohm",
+        "expanded_u_ohm",
+        "k",
+        "deviation_ppm",
+        "temperature_c",
+        "date",
+        "location",
+        "nominal_text",
+        "value_text",
+        "u_text",
+    ];
 
     /// <param name="database">SQLite path or PostgreSQL connection string.</param>
     /// <param name="ids">Parts to label, in this order.</param>
@@ -24,8 +37,15 @@ internal static class LibraryLabels
     /// <param name="console">Where messages go.</param>
     /// <param name="stdout">Where labels go without a file.</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
-    public static Task<int> RunAsync(string database, IReadOnlyList<long> ids, string? format, string? outPath, IAnsiConsole console, TextWriter stdout, CancellationToken cancellationToken) =>
-        VerbGuard.RunAsync(console, async () =>
+    public static Task<int> RunAsync(
+        string database,
+        IReadOnlyList<long> ids,
+        string? format,
+        string? outPath,
+        IAnsiConsole console,
+        TextWriter stdout,
+        CancellationToken cancellationToken
+    ) => VerbGuard.RunAsync(console, async () =>
         {
             var csv = (format ?? "text").Trim().ToLowerInvariant() switch
             {
@@ -100,9 +120,18 @@ internal static class LibraryLabels
             var (value, u) = UncertaintyRounding.Round(p.Value, p.Measured.Expanded);
             string[] fields =
             [
-                p.Id.ToString(CultureInfo.InvariantCulture), R(p.Nominal), R(p.Value), R(p.Measured.Expanded), R(p.Measured.CoverageFactor),
-                p.DeviationPpm.ToString("0.0", CultureInfo.InvariantCulture), Format.Celsius(p.Temperature), Format.Date(p.AcceptedAt),
-                PartWhere.Of(p, qualify), OhmsText.Nominal(p.Nominal), value, u,
+                p.Id.ToString(CultureInfo.InvariantCulture),
+                R(p.Nominal),
+                R(p.Value),
+                R(p.Measured.Expanded),
+                R(p.Measured.CoverageFactor),
+                p.DeviationPpm.ToString("0.0", CultureInfo.InvariantCulture),
+                Format.Celsius(p.Temperature),
+                Format.Date(p.AcceptedAt),
+                PartWhere.Of(p, qualify),
+                OhmsText.Nominal(p.Nominal),
+                value,
+                u,
             ];
             foreach (var f in fields)
             {

@@ -1,5 +1,5 @@
-using Spectre.Console;
 using SortRig.Host.VerbSupport;
+using Spectre.Console;
 
 namespace SortRig.Host.LibraryVerb;
 
@@ -11,8 +11,13 @@ internal static class LibraryLocate
     /// <param name="at">New location (1..200 characters), or null to clear.</param>
     /// <param name="console">Where messages go.</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
-    public static Task<int> RunAsync(string database, long id, string? at, IAnsiConsole console, CancellationToken cancellationToken) =>
-        VerbGuard.RunAsync(console, async () =>
+    public static Task<int> RunAsync(
+        string database,
+        long id,
+        string? at,
+        IAnsiConsole console,
+        CancellationToken cancellationToken
+    ) => VerbGuard.RunAsync(console, async () =>
         {
             TextArg.Check(at, "--at");
             var location = string.IsNullOrWhiteSpace(at) ? null : at.Trim();
@@ -28,8 +33,12 @@ internal static class LibraryLocate
             }
 
             var after = await log.SetLocationAsync(id, location, cancellationToken).ConfigureAwait(false);
-            console.MarkupLine(Markup.Escape(
-                $"part {id}: {(before.Location is { } b ? "'" + b + "'" : "no location")} -> {(after.Location is { } a ? "'" + a + "'" : "no location")}"));
+            console.MarkupLine(
+                Markup.Escape(
+                    $"part {id}: {(before.Location is { } b ? "'" + b + "'" : "no location")} -> "
+                        + $"{(after.Location is { } a ? "'" + a + "'" : "no location")}"
+                )
+            );
             return VerbExit.Ok;
         });
 }

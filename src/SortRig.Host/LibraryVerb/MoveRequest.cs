@@ -1,7 +1,7 @@
-using Spectre.Console;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
 using SortRig.Storage.Contracts;
+using Spectre.Console;
 
 namespace SortRig.Host.LibraryVerb;
 

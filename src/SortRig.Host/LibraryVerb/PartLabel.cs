@@ -2,8 +2,8 @@ using System.Globalization;
 using SortRig.Engine.Picking;
 using SortRig.Host.VerbSupport;
 using SortRig.Measurement.Readings;
-using SortRig.Storage.Contracts;
 using SortRig.Measurement.Uncertainty;
+using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.LibraryVerb;
 

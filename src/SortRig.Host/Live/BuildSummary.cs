@@ -1,10 +1,11 @@
-using Spectre.Console;
 using SortRig.Engine.Sorting;
 using SortRig.Host.PlanVerb;
+using Spectre.Console;
 
 namespace SortRig.Host.Live;
 
-/// <summary>After a session that sorted toward a build: the pick list when the sets are in hand, else where it stands.</summary>
+/// <summary>After a session that sorted toward a build: the pick list when the sets are in hand, else where it
+/// stands.</summary>
 internal static class BuildSummary
 {
     public static void Write(IAnsiConsole console, SortOutcome outcome, string session)

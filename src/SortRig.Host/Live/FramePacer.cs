@@ -9,7 +9,8 @@ namespace SortRig.Host.Live;
 /// fall behind the bench.
 /// </summary>
 /// <param name="time">Clock of the frames (the system clock in the program, a fake one in tests).</param>
-/// <param name="interval">Shortest time between two frames drawn for readings. Default 250 ms (4 frames a second).</param>
+/// <param name="interval">Shortest time between two frames drawn for readings. Default 250 ms (4 frames a
+/// second).</param>
 internal sealed class FramePacer(TimeProvider time, TimeSpan? interval = null)
 {
     private long? _lastFrame;

@@ -1,8 +1,8 @@
 using System.Globalization;
-using Spectre.Console;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Sorting;
 using SortRig.Measurement.Readings;
+using Spectre.Console;
 
 namespace SortRig.Host.Live;
 
@@ -16,14 +16,20 @@ internal static class SortSummary
     public static void Write(IAnsiConsole console, SortOutcome outcome, BenchSnapshot snapshot)
     {
         var parts = snapshot.Parts();
-        var table = new Table().Border(TableBorder.Rounded).Title($"session {outcome.SessionId}: {outcome.PartsRecorded} parts");
+        var table = new Table()
+            .Border(TableBorder.Rounded)
+            .Title($"session {outcome.SessionId}: {outcome.PartsRecorded} parts");
         table.AddColumn("cup");
         table.AddColumn(new TableColumn("parts").RightAligned());
         table.AddColumn(new TableColumn("lowest").RightAligned());
         table.AddColumn(new TableColumn("highest").RightAligned());
         table.AddColumn(new TableColumn("spread").RightAligned());
-        foreach (var cup in parts.Where(p => p.Cup is not null && p.State is "Accepted" or "Announced")
-                     .GroupBy(p => p.Cup!).OrderBy(g => g.Key, StringComparer.Ordinal))
+        foreach (
+            var cup in parts
+                .Where(p => p.Cup is not null && p.State is "Accepted" or "Announced")
+                .GroupBy(p => p.Cup!)
+                .OrderBy(g => g.Key, StringComparer.Ordinal)
+        )
         {
             var lo = cup.Min(p => p.DeviationPpm ?? 0);
             var hi = cup.Max(p => p.DeviationPpm ?? 0);
@@ -32,7 +38,8 @@ internal static class SortSummary
                 cup.Count().ToString(CultureInfo.InvariantCulture),
                 OhmsText.Ppm(lo),
                 OhmsText.Ppm(hi),
-                OhmsText.Ppm(hi - lo));
+                OhmsText.Ppm(hi - lo)
+            );
         }
 
         console.Write(table);
@@ -40,14 +47,30 @@ internal static class SortSummary
         var pace = SortPace.From(accepted.Select(p => p.Time));
         if (pace.SecondsPerPart is { } perPart && pace.PartsPerHour is { } perHour)
         {
-            var byRule = string.Join(", ", accepted.Where(p => p.AcceptedBy is not null).GroupBy(p => p.AcceptedBy!)
-                .OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Key.ToLowerInvariant()} {g.Count()}"));
-            console.MarkupLine(string.Create(CultureInfo.InvariantCulture,
-                $"pace {perPart:0.0} s per part, {perHour:0} parts per hour (first accepted part to last, {pace.Parts} parts){(byRule.Length > 0 ? $"; settled by {byRule}" : "")}"));
+            var byRule = string.Join(
+                ", ",
+                accepted
+                    .Where(p => p.AcceptedBy is not null)
+                    .GroupBy(p => p.AcceptedBy!)
+                    .OrderBy(g => g.Key, StringComparer.Ordinal)
+                    .Select(g => $"{g.Key.ToLowerInvariant()} {g.Count()}")
+            );
+            console.MarkupLine(
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"pace {perPart:0.0} s per part, {perHour:0} parts per hour (first accepted part to last, "
+                        + $"{pace.Parts} parts){(byRule.Length > 0 ? $"; settled by {byRule}" : "")}"
+                )
+            );
         }
 
-
-        console.MarkupLine(string.Create(CultureInfo.InvariantCulture,
-            $"accepted {outcome.Accepted}, unstable {outcome.Unstable}, meter faults recovered {outcome.Faults}{(outcome.StorageFaults > 0 ? $", storage faults waited out {outcome.StorageFaults}" : "")}{(outcome.FinishedByOperator ? ", finished by the operator" : "")}"));
+        console.MarkupLine(
+            string.Create(
+                CultureInfo.InvariantCulture,
+                $"accepted {outcome.Accepted}, unstable {outcome.Unstable}, meter faults recovered {outcome.Faults}"
+                    + $"{(outcome.StorageFaults > 0 ? $", storage faults waited out {outcome.StorageFaults}" : "")}"
+                    + $"{(outcome.FinishedByOperator ? ", finished by the operator" : "")}"
+            )
+        );
     }
 }

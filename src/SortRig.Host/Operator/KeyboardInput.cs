@@ -15,7 +15,10 @@ internal sealed class KeyboardInput(OperatorCommands commands, TimeProvider time
 
         while (!stoppingToken.IsCancellationRequested)
         {
-            if (Console.KeyAvailable && OperatorCommands.FromKey(Console.ReadKey(intercept: true).KeyChar) is { } command)
+            if (
+                Console.KeyAvailable
+                && OperatorCommands.FromKey(Console.ReadKey(intercept: true).KeyChar) is { } command
+            )
             {
                 commands.Post(command);
                 continue;

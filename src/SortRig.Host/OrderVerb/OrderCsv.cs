@@ -5,13 +5,32 @@ using SortRig.Reporting.Reports;
 
 namespace SortRig.Host.OrderVerb;
 
-/// <summary>The order and its curve as CSV (CsvHelper with <see cref="SpreadsheetCsv"/> options, invariant culture).</summary>
+/// <summary>The order and its curve as CSV (CsvHelper with <see cref="SpreadsheetCsv"/> options, invariant
+/// culture).</summary>
 internal static class OrderCsv
 {
     public static readonly string[] OrderColumns =
-        ["confidence", "nominal_ohm", "per_set", "quantity", "expected_leftover", "cost", "cheaper_quantity", "cheaper_cost", "reached"];
+    [
+        "confidence",
+        "nominal_ohm",
+        "per_set",
+        "quantity",
+        "expected_leftover",
+        "cost",
+        "cheaper_quantity",
+        "cheaper_cost",
+        "reached",
+    ];
 
-    public static readonly string[] CurveColumns = ["set_equivalents", "parts_bought", "mean_sets", "sets_p05", "sets_median", "sets_p95"];
+    public static readonly string[] CurveColumns =
+    [
+        "set_equivalents",
+        "parts_bought",
+        "mean_sets",
+        "sets_p05",
+        "sets_median",
+        "sets_p95",
+    ];
 
     public static void WriteOrder(TextWriter writer, OrderEstimate estimate)
     {
@@ -21,8 +40,20 @@ internal static class OrderCsv
         {
             foreach (var line in level.Lines)
             {
-                Row(csv, [R(level.Confidence), R(line.Nominal), I(line.PerSet), I(line.Quantity), R(line.ExpectedLeftover), O(line.Cost),
-                    line.CheaperQuantity is { } q ? I(q) : "", O(line.CheaperCost), R(level.Reached)]);
+                Row(
+                    csv,
+                    [
+                        R(level.Confidence),
+                        R(line.Nominal),
+                        I(line.PerSet),
+                        I(line.Quantity),
+                        R(line.ExpectedLeftover),
+                        O(line.Cost),
+                        line.CheaperQuantity is { } q ? I(q) : "",
+                        O(line.CheaperCost),
+                        R(level.Reached),
+                    ]
+                );
             }
         }
 

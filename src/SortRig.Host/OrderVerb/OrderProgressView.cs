@@ -1,10 +1,11 @@
 using System.Globalization;
-using Spectre.Console;
 using SortRig.Planning.Ordering;
+using Spectre.Console;
 
 namespace SortRig.Host.OrderVerb;
 
-/// <summary>Shows the trials' progress on a long run: one line per quarter of each phase once a second has passed.</summary>
+/// <summary>Shows the trials' progress on a long run: one line per quarter of each phase once a second has
+/// passed.</summary>
 internal sealed class OrderProgressView(IAnsiConsole console) : IProgress<OrderProgress>
 {
     private static readonly TimeSpan s_quiet = TimeSpan.FromSeconds(1);
@@ -22,8 +23,14 @@ internal sealed class OrderProgressView(IAnsiConsole console) : IProgress<OrderP
             }
 
             _shown[value.Phase] = quarter;
-            console.MarkupLine(Markup.Escape(string.Create(CultureInfo.InvariantCulture,
-                $"  trials ({value.Phase}): {value.Done} of {value.Total}, {value.Elapsed.TotalSeconds:0.0} s")));
+            console.MarkupLine(
+                Markup.Escape(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"  trials ({value.Phase}): {value.Done} of {value.Total}, {value.Elapsed.TotalSeconds:0.0} s"
+                    )
+                )
+            );
         }
     }
 }

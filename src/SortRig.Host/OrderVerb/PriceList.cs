@@ -16,7 +16,12 @@ internal static class PriceList
     /// <summary>Largest price file read.</summary>
     public const long MaxFileBytes = 64 * 1024;
 
-    public static async Task<IReadOnlyDictionary<double, PriceBreaks>> LoadAsync(string? file, string? inline, IEnumerable<double> nominals, CancellationToken cancellationToken)
+    public static async Task<IReadOnlyDictionary<double, PriceBreaks>> LoadAsync(
+        string? file,
+        string? inline,
+        IEnumerable<double> nominals,
+        CancellationToken cancellationToken
+    )
     {
         var byNominal = new Dictionary<double, PriceBreaks>();
         PriceBreaks? fallback = inline is null ? null : ParseInline(inline);
@@ -66,8 +71,11 @@ internal static class PriceList
         foreach (var item in text.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries))
         {
             var parts = item.Split(':', StringSplitOptions.TrimEntries);
-            if (parts.Length != 2 || !int.TryParse(parts[0], NumberStyles.None, CultureInfo.InvariantCulture, out var q)
-                || !double.TryParse(parts[1], NumberStyles.Float, CultureInfo.InvariantCulture, out var price))
+            if (
+                parts.Length != 2
+                || !int.TryParse(parts[0], NumberStyles.None, CultureInfo.InvariantCulture, out var q)
+                || !double.TryParse(parts[1], NumberStyles.Float, CultureInfo.InvariantCulture, out var price)
+            )
             {
                 throw new VerbException($"--price: '{item}' is not QUANTITY:UNIT-PRICE (e.g. 1:0.10,100:0.05)");
             }
@@ -92,7 +100,9 @@ internal static class PriceList
 
         if (stream.Documents.Count != 1 || stream.Documents[0].RootNode is not YamlMappingNode root)
         {
-            throw new VerbException($"--prices: {file}: expected a map of nominal (e.g. 10k, or default) to quantity breaks");
+            throw new VerbException(
+                $"--prices: {file}: expected a map of nominal (e.g. 10k, or default) to quantity breaks"
+            );
         }
 
         foreach (var (k, v) in root.Children)
@@ -100,7 +110,10 @@ internal static class PriceList
             var key = (k as YamlScalarNode)?.Value ?? "";
             if (v is not YamlMappingNode map)
             {
-                throw new VerbException($"--prices: {file}:{k.Start.Line}:{k.Start.Column}: {key}: expected a map of quantity to unit price, e.g. {{ 1: 0.10, 100: 0.05 }}");
+                throw new VerbException(
+                    $"--prices: {file}:{k.Start.Line}:{k.Start.Column}: {key}: expected a map of quantity to unit "
+                        + $"price, e.g. {{ 1: 0.10, 100: 0.05 }}"
+                );
             }
 
             var breaks = new List<PriceBreak>();
@@ -108,10 +121,15 @@ internal static class PriceList
             {
                 var qText = (q as YamlScalarNode)?.Value;
                 var pText = (p as YamlScalarNode)?.Value;
-                if (!int.TryParse(qText, NumberStyles.None, CultureInfo.InvariantCulture, out var quantity)
-                    || !double.TryParse(pText, NumberStyles.Float, CultureInfo.InvariantCulture, out var price))
+                if (
+                    !int.TryParse(qText, NumberStyles.None, CultureInfo.InvariantCulture, out var quantity)
+                    || !double.TryParse(pText, NumberStyles.Float, CultureInfo.InvariantCulture, out var price)
+                )
                 {
-                    throw new VerbException($"--prices: {file}:{q.Start.Line}:{q.Start.Column}: {key}.{qText}: expected a whole quantity and a unit price number");
+                    throw new VerbException(
+                        $"--prices: {file}:{q.Start.Line}:{q.Start.Column}: {key}.{qText}: expected a whole quantity "
+                            + $"and a unit price number"
+                    );
                 }
 
                 breaks.Add(new PriceBreak(quantity, price));
@@ -134,5 +152,7 @@ internal static class PriceList
     }
 
     private static double Ohms(string key, string file) =>
-        TradeValueParser.TryOhms(key, out var ohms) ? ohms : throw new VerbException($"--prices: {file}: '{key}' is not a nominal (e.g. 10k, 4.99k) nor 'default'");
+        TradeValueParser.TryOhms(key, out var ohms)
+            ? ohms
+            : throw new VerbException($"--prices: {file}: '{key}' is not a nominal (e.g. 10k, 4.99k) nor 'default'");
 }

@@ -6,4 +6,10 @@ namespace SortRig.Host.OrderVerb;
 /// <param name="Recipe">Recipe file, or a name under recipes/.</param>
 /// <param name="Sets">Sets wanted.</param>
 /// <param name="TimeLimit">Assembler search time per run; null for the fast sweep (repeatable).</param>
-internal sealed record ReachRequest(string Database, string? Session, string Recipe, int Sets, TimeSpan? TimeLimit = null);
+internal sealed record ReachRequest(
+    string Database,
+    string? Session,
+    string Recipe,
+    int Sets,
+    TimeSpan? TimeLimit = null
+);

@@ -1,11 +1,11 @@
-using Spectre.Console;
+using SortRig.Engine.Picking;
 using SortRig.Host.LibraryVerb;
 using SortRig.Host.VerbSupport;
 using SortRig.Planning.Assembly;
 using SortRig.Planning.PickLists;
 using SortRig.Planning.Recipes;
 using SortRig.Storage.Contracts;
-using SortRig.Engine.Picking;
+using Spectre.Console;
 
 namespace SortRig.Host.PlanVerb;
 
@@ -18,5 +18,11 @@ namespace SortRig.Host.PlanVerb;
 /// <param name="Mode">How the pick list names parts.</param>
 /// <param name="TimeLimit">Search time for large reels; null for the assembler's default (10 s).</param>
 internal sealed record PlanRequest(
-    string Database, string? Session, string Recipe, string? CsvPath = null, string? TakeBy = null, PickMode Mode = PickMode.Auto,
-    TimeSpan? TimeLimit = null);
+    string Database,
+    string? Session,
+    string Recipe,
+    string? CsvPath = null,
+    string? TakeBy = null,
+    PickMode Mode = PickMode.Auto,
+    TimeSpan? TimeLimit = null
+);

@@ -1,11 +1,11 @@
-using Spectre.Console;
+using SortRig.Engine.Picking;
 using SortRig.Host.LibraryVerb;
 using SortRig.Host.VerbSupport;
 using SortRig.Planning.Assembly;
 using SortRig.Planning.PickLists;
 using SortRig.Planning.Recipes;
 using SortRig.Storage.Contracts;
-using SortRig.Engine.Picking;
+using Spectre.Console;
 
 namespace SortRig.Host.PlanVerb;
 
@@ -18,20 +18,31 @@ internal static class PlanRunner
     public static Task<int> RunAsync(PlanRequest request, IAnsiConsole console, CancellationToken cancellationToken) =>
         VerbGuard.RunAsync(console, async () =>
         {
-            var recipe = await RecipeLoader.LoadFileAsync(RecipePath(request.Recipe), cancellationToken).ConfigureAwait(false);
-            await using var log = await VerbGuard.OpenLogAsync(request.Database, cancellationToken).ConfigureAwait(false);
+            var recipe = await RecipeLoader
+                .LoadFileAsync(RecipePath(request.Recipe), cancellationToken)
+                .ConfigureAwait(false);
+            await using var log = await VerbGuard
+                .OpenLogAsync(request.Database, cancellationToken)
+                .ConfigureAwait(false);
             IReadOnlyList<PartRecord> parts;
             string title;
             if (request.Session is { } name)
             {
-                var session = await SessionLookup.FindAsync(log, name, cancellationToken, t => console.MarkupLine($"[yellow]{Markup.Escape(t)}[/]")).ConfigureAwait(false);
+                var session = await SessionLookup
+                    .FindAsync(log, name, cancellationToken, t => console.MarkupLine($"[yellow]{Markup.Escape(t)}[/]"))
+                    .ConfigureAwait(false);
                 parts = await log.GetPartsAsync(session.Id, cancellationToken).ConfigureAwait(false);
                 title = $"session '{session.Name}' (id {session.Id})";
             }
             else
             {
-                parts = await log.FindPartsAsync(new LibraryQuery(Status: LibraryStatus.Available, Limit: LibraryLimit), cancellationToken).ConfigureAwait(false);
-                title = $"the library's available parts ({parts.Select(p => p.SessionId).Distinct().Count()} session(s))";
+                parts = await log.FindPartsAsync(
+                        new LibraryQuery(Status: LibraryStatus.Available, Limit: LibraryLimit),
+                        cancellationToken
+                    )
+                    .ConfigureAwait(false);
+                title =
+                    $"the library's available parts ({parts.Select(p => p.SessionId).Distinct().Count()} session(s))";
                 if (parts.Count == LibraryLimit)
                 {
                     console.MarkupLine($"[yellow]only the first {LibraryLimit} available parts are planned[/]");
@@ -58,12 +69,14 @@ internal static class PlanRunner
             }
 
             var taken = await log.TakePartsAsync(outcome.PickedIds, by, cancellationToken).ConfigureAwait(false);
-            return await LibraryMoves.ReportAsync(log, LibraryMove.Take, taken, console, cancellationToken).ConfigureAwait(false);
+            return await LibraryMoves
+                .ReportAsync(log, LibraryMove.Take, taken, console, cancellationToken)
+                .ConfigureAwait(false);
         });
 
     /// <summary>
-    /// The path as given when it exists; else recipes/NAME.yaml (or recipes/NAME) in the working directory or any folder
-    /// above it or above the program (so a name works anywhere inside a checkout, also under dotnet run).
+    /// The path as given when it exists; else recipes/NAME.yaml (or recipes/NAME) in the working directory or any
+    /// folder above it or above the program (so a name works anywhere inside a checkout, also under dotnet run).
     /// </summary>
     public static string RecipePath(string recipe)
     {
@@ -85,6 +98,8 @@ internal static class PlanRunner
             }
         }
 
-        throw new VerbException($"--recipe: no file '{recipe}' (also looked for {relative} here and in the folders above)");
+        throw new VerbException(
+            $"--recipe: no file '{recipe}' (also looked for {relative} here and in the folders above)"
+        );
     }
 }

@@ -1,6 +1,6 @@
 using System.Globalization;
-using Spectre.Console;
 using SortRig.Planning.Assembly;
+using Spectre.Console;
 
 namespace SortRig.Host.PlanVerb;
 
@@ -14,8 +14,15 @@ internal sealed class SearchProgress(IAnsiConsole console) : IProgress<AssemblyP
     {
         if (value.Elapsed >= s_quiet)
         {
-            console.MarkupLine(Markup.Escape(string.Create(CultureInfo.InvariantCulture,
-                $"  searching: {value.Phase}, {value.Sets} set(s), upper bound {value.UpperBound}, {value.Elapsed.TotalSeconds:0.0} s")));
+            console.MarkupLine(
+                Markup.Escape(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"  searching: {value.Phase}, {value.Sets} set(s), upper bound {value.UpperBound}, "
+                            + $"{value.Elapsed.TotalSeconds:0.0} s"
+                    )
+                )
+            );
         }
     }
 }

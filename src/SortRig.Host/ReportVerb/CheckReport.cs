@@ -15,8 +15,13 @@ namespace SortRig.Host.ReportVerb;
 internal static class CheckReport
 {
     public static async Task<IReadOnlyList<string>> WriteAsync(
-        IPrecisionLog log, string sessionNameOrId, string folder, PlotSize size, List<string> notes,
-        CancellationToken ct)
+        IPrecisionLog log,
+        string sessionNameOrId,
+        string folder,
+        PlotSize size,
+        List<string> notes,
+        CancellationToken ct
+    )
     {
         var session = await ReportInputBuilder.FindSessionAsync(log, sessionNameOrId, ct).ConfigureAwait(false);
         var checks = await log.GetSessionChecksAsync(session.Id, ct).ConfigureAwait(false);
@@ -28,9 +33,16 @@ internal static class CheckReport
 
         var files = new List<string>();
         var last = judged[^1].Commit;
-        var chart = ControlChartPlot.Render(new ControlChartInput(
-            last.CheckName, [.. judged.Select(c => c.Commit.ScaledOhms)], [.. judged.Select(c => !c.Commit.InControl)],
-            last.CentreOhms!.Value, last.SigmaOhms!.Value), size);
+        var chart = ControlChartPlot.Render(
+            new ControlChartInput(
+                last.CheckName,
+                [.. judged.Select(c => c.Commit.ScaledOhms)],
+                [.. judged.Select(c => !c.Commit.InControl)],
+                last.CentreOhms!.Value,
+                last.SigmaOhms!.Value
+            ),
+            size
+        );
         await File.WriteAllBytesAsync(Path.Combine(folder, "check_chart.png"), chart.Png, ct).ConfigureAwait(false);
         files.Add("check_chart.png");
         if (await HealthAsync(log, session, last, ct).ConfigureAwait(false) is { } md)
@@ -47,7 +59,11 @@ internal static class CheckReport
     }
 
     private static async Task<string?> HealthAsync(
-        IPrecisionLog log, SessionInfo session, CheckCommit last, CancellationToken ct)
+        IPrecisionLog log,
+        SessionInfo session,
+        CheckCommit last,
+        CancellationToken ct
+    )
     {
         var history = await log.GetCheckHistoryAsync(last.CheckName, 100_000, ct).ConfigureAwait(false);
         var sessions = (await log.ListSessionsAsync(ct).ConfigureAwait(false)).ToDictionary(s => s.Id);
@@ -57,7 +73,10 @@ internal static class CheckReport
             .GroupBy(c => c.Commit.SessionId)
             .Select(g => new SessionGain(
                 sessions.TryGetValue(g.Key, out var s) ? s.Name : g.Key.ToString(CultureInfo.InvariantCulture),
-                g.Min(c => c.Commit.At), g.Average(c => c.GainPpm!.Value), g.Count()))
+                g.Min(c => c.Commit.At),
+                g.Average(c => c.GainPpm!.Value),
+                g.Count()
+            ))
             .ToList();
         if (gains.Count == 0)
         {
@@ -69,23 +88,33 @@ internal static class CheckReport
         var range = ProfileLocator.Load(family).FindRange(last.RangeOhms);
         var allowed = range is null
             ? double.PositiveInfinity
-            : MeterHealth.AllowedPpm(range.Accuracy1Year.PercentOfReading, range.Accuracy1Year.PercentOfRange,
-                last.RangeOhms, last.CalibratedOhms ?? last.ValueOhms);
+            : MeterHealth.AllowedPpm(
+                range.Accuracy1Year.PercentOfReading,
+                range.Accuracy1Year.PercentOfRange,
+                last.RangeOhms,
+                last.CalibratedOhms ?? last.ValueOhms
+            );
         var rows = double.IsFinite(allowed) ? MeterHealth.Judge(gains, allowed) : [];
         var md = new StringBuilder();
         md.AppendLine(CultureInfo.InvariantCulture, $"# Meter health: check {last.CheckName}");
         md.AppendLine();
-        md.AppendLine(CultureInfo.InvariantCulture,
-            $"Apparent gain = mean of (reading / calibrated - 1) per session; allowed movement {allowed:0.0} ppm ");
-        md.AppendLine(CultureInfo.InvariantCulture,
-            $"(profile '{family}', one-year specification on the {last.RangeOhms:G6} Ohm range).");
+        md.AppendLine(
+            CultureInfo.InvariantCulture,
+            $"Apparent gain = mean of (reading / calibrated - 1) per session; allowed movement {allowed:0.0} ppm "
+        );
+        md.AppendLine(
+            CultureInfo.InvariantCulture,
+            $"(profile '{family}', one-year specification on the {last.RangeOhms:G6} Ohm range)."
+        );
         md.AppendLine();
         md.AppendLine("| Session | First check (UTC) | Checks | Gain (ppm) | Moved (ppm) | Health |");
         md.AppendLine("| --- | --- | --- | --- | --- | --- |");
         foreach (var r in rows)
         {
-            md.Append(CultureInfo.InvariantCulture,
-                $"| {r.Gain.Session} | {r.Gain.At:yyyy-MM-dd HH:mm} | {r.Gain.Checks} | {r.Gain.GainPpm:+0.0;-0.0} | ");
+            md.Append(
+                CultureInfo.InvariantCulture,
+                $"| {r.Gain.Session} | {r.Gain.At:yyyy-MM-dd HH:mm} | {r.Gain.Checks} | {r.Gain.GainPpm:+0.0;-0.0} | "
+            );
             md.AppendLine(CultureInfo.InvariantCulture, $"{r.MovedPpm:+0.0;-0.0} | {r.Warning ?? "ok"} |");
         }
 

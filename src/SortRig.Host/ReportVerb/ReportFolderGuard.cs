@@ -30,13 +30,18 @@ internal static class ReportFolderGuard
         if (entries.FirstOrDefault(e => e.LinkTarget is not null) is { } link)
         {
             throw new ArgumentException(
-                $"--out: '{output}' holds a symbolic link ({link.Name}); a report is never written through a link.", nameof(output));
+                $"--out: '{output}' holds a symbolic link ({link.Name}); a report is never written through a link.",
+                nameof(output)
+            );
         }
 
         if (entries.Length > 0 && !force)
         {
             throw new ArgumentException(
-                $"--out: folder '{output}' is not empty; add --force to replace the report in it, or choose a new folder.", nameof(output));
+                $"--out: folder '{output}' is not empty; add --force to replace the report in it, or choose a new "
+                    + $"folder.",
+                nameof(output)
+            );
         }
     }
 }

@@ -6,10 +6,15 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Host.ReportVerb;
 
-/// <summary>Maps stored rows (sessions, batches, parts, drift samples) to the Reporting layer's <see cref="ReportInput"/>.</summary>
+/// <summary>Maps stored rows (sessions, batches, parts, drift samples) to the Reporting layer's <see
+/// cref="ReportInput"/>.</summary>
 internal static class ReportInputBuilder
 {
-    public static async Task<(ReportInput Input, IReadOnlyList<string> Notes)> BuildAsync(IPrecisionLog log, ReportRequest request, CancellationToken ct)
+    public static async Task<(ReportInput Input, IReadOnlyList<string> Notes)> BuildAsync(
+        IPrecisionLog log,
+        ReportRequest request,
+        CancellationToken ct
+    )
     {
         var notes = new List<string>();
         var titles = new List<string>();
@@ -20,8 +25,18 @@ internal static class ReportInputBuilder
             var session = await FindSessionAsync(log, request.Session, ct).ConfigureAwait(false);
             titles.Add($"session '{session.Name}' (id {session.Id})");
             var live = (await log.GetPartsAsync(session.Id, ct).ConfigureAwait(false)).Where(p => p.IsLive).ToList();
-            parts = [.. live.Select(p => new ReportPart(p.Number, p.Nominal, p.Value, p.Measured.StandardUncertainty, p.CupLabel ?? p.SlotLabel,
-                p.AcceptedAt, p.AcceptedBy?.ToString()))];
+            parts =
+            [
+                .. live.Select(p => new ReportPart(
+                    p.Number,
+                    p.Nominal,
+                    p.Value,
+                    p.Measured.StandardUncertainty,
+                    p.CupLabel ?? p.SlotLabel,
+                    p.AcceptedAt,
+                    p.AcceptedBy?.ToString()
+                )),
+            ];
             reels = await ReelsAsync(log, session.Id, live, request.Cups, notes, ct).ConfigureAwait(false);
         }
 
@@ -29,7 +44,11 @@ internal static class ReportInputBuilder
         if (request.DriftRunId is { } runId)
         {
             var run = await log.GetDriftRunAsync(runId, ct).ConfigureAwait(false)
-                ?? throw new ArgumentException($"--drift-run: no drift run with id {runId} in {SortRig.Storage.Lab.ConnectionText.Mask(request.Database)}.", nameof(request));
+                ?? throw new ArgumentException(
+                    $"--drift-run: no drift run with id {runId} in "
+                        + $"{SortRig.Storage.Lab.ConnectionText.Mask(request.Database)}.",
+                    nameof(request)
+                );
             titles.Add($"drift run '{run.Name}' (id {run.Id})");
             var labels = run.Channels.Select(c => c.Label).ToArray();
             await foreach (var s in log.ReadDriftSamplesAsync(runId, ct).ConfigureAwait(false))
@@ -51,16 +70,27 @@ internal static class ReportInputBuilder
     internal static async Task<SessionInfo> FindSessionAsync(ISessionReader log, string nameOrId, CancellationToken ct)
     {
         var sessions = await log.ListSessionsAsync(ct).ConfigureAwait(false);
-        var byId = long.TryParse(nameOrId, NumberStyles.None, CultureInfo.InvariantCulture, out var id) ? sessions.FirstOrDefault(s => s.Id == id) : null;
-        var known = sessions.Count == 0 ? "none" : string.Join(", ", sessions.Take(10).Select(s => $"'{s.Name}' ({s.Id})"));
-        return byId ?? sessions.FirstOrDefault(s => s.Name == nameOrId)
+        var byId = long.TryParse(nameOrId, NumberStyles.None, CultureInfo.InvariantCulture, out var id)
+            ? sessions.FirstOrDefault(s => s.Id == id)
+            : null;
+        var known =
+            sessions.Count == 0 ? "none" : string.Join(", ", sessions.Take(10).Select(s => $"'{s.Name}' ({s.Id})"));
+        return byId
+            ?? sessions.FirstOrDefault(s => s.Name == nameOrId)
             ?? throw new ArgumentException(
                 $"--session: no session named or numbered '{nameOrId}'; sessions are {known}.",
-                nameof(nameOrId));
+                nameof(nameOrId)
+            );
     }
 
     private static async Task<IReadOnlyList<ReportReel>> ReelsAsync(
-        IPrecisionLog log, long sessionId, IReadOnlyList<PartRecord> parts, int? cups, List<string> notes, CancellationToken ct)
+        IPrecisionLog log,
+        long sessionId,
+        IReadOnlyList<PartRecord> parts,
+        int? cups,
+        List<string> notes,
+        CancellationToken ct
+    )
     {
         var batches = await log.GetBatchesAsync(sessionId, ct).ConfigureAwait(false);
         var reels = new List<ReportReel>();
@@ -68,13 +98,29 @@ internal static class ReportInputBuilder
         {
             var nominal = batch.Setup.Nominal;
             var match = batch.Setup.MatchTolerancePpm;
-            var k = cups ?? CupEdgeInference.InferCupCount(parts.Where(p => p.Nominal.Equals(nominal)).Select(p => (p.DeviationPpm, p.CupLabel)), match);
+            var k = cups
+                ?? CupEdgeInference.InferCupCount(
+                    parts.Where(p => p.Nominal.Equals(nominal)).Select(p => (p.DeviationPpm, p.CupLabel)),
+                    match
+                );
             if (k is null)
             {
-                notes.Add(string.Create(CultureInfo.InvariantCulture, $"{nominal} ohm: no fixed-band cup count fits the recorded cups; band edges not drawn (give --cups)"));
+                notes.Add(
+                    string.Create(
+                        CultureInfo.InvariantCulture,
+                        $"{nominal} ohm: no fixed-band cup count fits the recorded cups; band edges not drawn (give "
+                            + $"--cups)"
+                    )
+                );
             }
 
-            reels.Add(new ReportReel(nominal, batch.Setup.StockTolerancePpm / 1e4, k is { } n ? CupEdgeInference.Edges(n, match) : []));
+            reels.Add(
+                new ReportReel(
+                    nominal,
+                    batch.Setup.StockTolerancePpm / 1e4,
+                    k is { } n ? CupEdgeInference.Edges(n, match) : []
+                )
+            );
         }
 
         return reels;

@@ -1,20 +1,33 @@
 namespace SortRig.Host.ReportVerb;
 
-/// <summary>What the report verb is asked for. At least one of <see cref="Session"/> and <see cref="DriftRunId"/>.</summary>
+/// <summary>What the report verb is asked for. At least one of <see cref="Session"/> and <see
+/// cref="DriftRunId"/>.</summary>
 /// <param name="Database">Storage connection string (SQLite path or PostgreSQL).</param>
-/// <param name="Output">Report folder: new or empty (created), or with <paramref name="Force"/> an earlier report's folder.</param>
+/// <param name="Output">Report folder: new or empty (created), or with <paramref name="Force"/> an earlier report's
+/// folder.</param>
 /// <param name="Session">Session name (the newest with that name) or id, or null.</param>
 /// <param name="DriftRunId">Drift run id, or null.</param>
 /// <param name="Cups">Cups of the sort, to draw band edges; null infers it from the parts' recorded cups.</param>
-/// <param name="Force">Replace the files of a report already in <paramref name="Output"/> (never through a symbolic link).</param>
-internal sealed record ReportRequest(string Database, string Output, string? Session, long? DriftRunId, int? Cups = null, bool Force = false)
+/// <param name="Force">Replace the files of a report already in <paramref name="Output"/> (never through a symbolic
+/// link).</param>
+internal sealed record ReportRequest(
+    string Database,
+    string Output,
+    string? Session,
+    long? DriftRunId,
+    int? Cups = null,
+    bool Force = false
+)
 {
     /// <summary>Throws <see cref="ArgumentException"/> naming the bad flag.</summary>
     public ReportRequest Validate()
     {
         if (string.IsNullOrWhiteSpace(Database))
         {
-            throw new ArgumentException("--db must name a SQLite file or a PostgreSQL connection string.", nameof(Database));
+            throw new ArgumentException(
+                "--db must name a SQLite file or a PostgreSQL connection string.",
+                nameof(Database)
+            );
         }
 
         if (string.IsNullOrWhiteSpace(Output))
@@ -34,7 +47,10 @@ internal sealed record ReportRequest(string Database, string Output, string? Ses
 
         if (Cups is < 1 or > global::SortRig.Planning.Cups.CupLabels.MaxCups)
         {
-            throw new ArgumentException($"--cups must be 1..{(global::SortRig.Planning.Cups.CupLabels.MaxCups)}; was {Cups}.", nameof(Cups));
+            throw new ArgumentException(
+                $"--cups must be 1..{(global::SortRig.Planning.Cups.CupLabels.MaxCups)}; was {Cups}.",
+                nameof(Cups)
+            );
         }
 
         return this;

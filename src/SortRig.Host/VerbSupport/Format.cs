@@ -12,7 +12,8 @@ internal static class Format
     /// <summary>Signed deviation, one decimal: "-12.5".</summary>
     public static string Ppm(double ppm) => ppm.ToString("+0.0;-0.0;0.0", CultureInfo.InvariantCulture);
 
-    /// <summary>Drift rate to two significant digits, signed: "+12 ppm/h", "-2.5 ppm/h", "+0.80 ppm/h"; "—" when unknown.</summary>
+    /// <summary>Drift rate to two significant digits, signed: "+12 ppm/h", "-2.5 ppm/h", "+0.80 ppm/h"; "—" when
+    /// unknown.</summary>
     public static string DriftRate(double? ppmPerHour)
     {
         if (ppmPerHour is not { } x || !double.IsFinite(x))
@@ -21,7 +22,10 @@ internal static class Format
         }
 
         var a = Math.Abs(x);
-        var f = a >= 9.95 ? "+0;-0;0" : a >= 0.995 ? "+0.0;-0.0;0.0" : "+0.00;-0.00;0.00";
+        var f =
+            a >= 9.95 ? "+0;-0;0"
+            : a >= 0.995 ? "+0.0;-0.0;0.0"
+            : "+0.00;-0.00;0.00";
         return x.ToString(f, CultureInfo.InvariantCulture) + " ppm/h";
     }
 

@@ -7,13 +7,20 @@ namespace SortRig.Host.VerbSupport;
 internal static class Refusals
 {
     /// <summary>"7 (unknown id)", "9 (Taken by mira)": one line per id, in order.</summary>
-    public static async Task<IReadOnlyList<string>> DescribeAsync(IPrecisionLog log, IReadOnlyList<long> ids, CancellationToken cancellationToken) =>
-        await DescribeAsync(log, ids, [], cancellationToken).ConfigureAwait(false);
-
-    /// <summary>As above, preferring what the refusal itself saw (<see cref="LibraryResult.Holders"/>): after a lost race
-    /// it names the bench that won even if it has released the part since.</summary>
     public static async Task<IReadOnlyList<string>> DescribeAsync(
-        IPrecisionLog log, IReadOnlyList<long> ids, IReadOnlyList<LibraryHolder> holders, CancellationToken cancellationToken)
+        IPrecisionLog log,
+        IReadOnlyList<long> ids,
+        CancellationToken cancellationToken
+    ) => await DescribeAsync(log, ids, [], cancellationToken).ConfigureAwait(false);
+
+    /// <summary>As above, preferring what the refusal itself saw (<see cref="LibraryResult.Holders"/>): after a lost
+    /// race it names the bench that won even if it has released the part since.</summary>
+    public static async Task<IReadOnlyList<string>> DescribeAsync(
+        IPrecisionLog log,
+        IReadOnlyList<long> ids,
+        IReadOnlyList<LibraryHolder> holders,
+        CancellationToken cancellationToken
+    )
     {
         var parts = new List<string>();
         foreach (var id in ids)
@@ -32,7 +39,11 @@ internal static class Refusals
     }
 
     /// <summary>Ids that name no part, in order.</summary>
-    public static async Task<IReadOnlyList<long>> UnknownAsync(IPrecisionLog log, IReadOnlyList<long> ids, CancellationToken cancellationToken)
+    public static async Task<IReadOnlyList<long>> UnknownAsync(
+        IPrecisionLog log,
+        IReadOnlyList<long> ids,
+        CancellationToken cancellationToken
+    )
     {
         var unknown = new List<long>();
         foreach (var id in ids)
@@ -46,21 +57,23 @@ internal static class Refusals
         return unknown;
     }
 
-    private static string Why(PartState state, LibraryStatus status, string? takenBy) => state is PartState.Accepted or PartState.Announced
-        ? status switch
-        {
-            LibraryStatus.Taken => $"Taken by {takenBy ?? "someone"}",
-            LibraryStatus.Used => $"Used{(takenBy is { } by ? " (taken by " + by + ")" : "")}",
-            _ => status.ToString(),
-        }
-        : $"not in the library: {state}";
+    private static string Why(PartState state, LibraryStatus status, string? takenBy) =>
+        state is PartState.Accepted or PartState.Announced
+            ? status switch
+            {
+                LibraryStatus.Taken => $"Taken by {takenBy ?? "someone"}",
+                LibraryStatus.Used => $"Used{(takenBy is { } by ? " (taken by " + by + ")" : "")}",
+                _ => status.ToString(),
+            }
+            : $"not in the library: {state}";
 
-    private static string Why(PartRecord? part) => part switch
-    {
-        null => "unknown id",
-        { IsLive: false } => $"not in the library: {part.State}",
-        { LibraryStatus: LibraryStatus.Taken } => $"Taken by {part.TakenBy ?? "someone"}",
-        { LibraryStatus: LibraryStatus.Used } => $"Used{(part.TakenBy is { } by ? " (taken by " + by + ")" : "")}",
-        _ => part.LibraryStatus.ToString(),
-    };
+    private static string Why(PartRecord? part) =>
+        part switch
+        {
+            null => "unknown id",
+            { IsLive: false } => $"not in the library: {part.State}",
+            { LibraryStatus: LibraryStatus.Taken } => $"Taken by {part.TakenBy ?? "someone"}",
+            { LibraryStatus: LibraryStatus.Used } => $"Used{(part.TakenBy is { } by ? " (taken by " + by + ")" : "")}",
+            _ => part.LibraryStatus.ToString(),
+        };
 }

@@ -7,7 +7,8 @@ namespace SortRig.Host.VerbSupport;
 /// </summary>
 internal static class TextArg
 {
-    /// <summary>The problem with <paramref name="value"/> as the value of <paramref name="option"/>, or null when it is fine.</summary>
+    /// <summary>The problem with <paramref name="value"/> as the value of <paramref name="option"/>, or null when it is
+    /// fine.</summary>
     public static string? Problem(string? value, string option) =>
         value is not null && value.FirstOrDefault(char.IsControl) is var c && c != default
             ? $"{option}: control characters are not allowed (found U+{(int)c:X4}); use plain text"

@@ -1,8 +1,8 @@
-using Spectre.Console;
 using SortRig.Host.LibraryVerb;
 using SortRig.Planning.Recipes;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using Spectre.Console;
 
 namespace SortRig.Host.VerbSupport;
 

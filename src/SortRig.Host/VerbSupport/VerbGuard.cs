@@ -1,8 +1,8 @@
-using Spectre.Console;
 using SortRig.Host.LibraryVerb;
 using SortRig.Planning.Recipes;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using Spectre.Console;
 
 namespace SortRig.Host.VerbSupport;
 
@@ -15,8 +15,15 @@ internal static class VerbGuard
         {
             return await body().ConfigureAwait(false);
         }
-        catch (Exception e) when (e is VerbException or RecipeException or StorageException or ArgumentException
-                                      or IOException or UnauthorizedAccessException)
+        catch (Exception e)
+            when (e
+                    is VerbException
+                        or RecipeException
+                        or StorageException
+                        or ArgumentException
+                        or IOException
+                        or UnauthorizedAccessException
+            )
         {
             console.MarkupLine($"[red]error:[/] {Markup.Escape(e.Message)}");
             return VerbExit.BadInput;
@@ -34,7 +41,8 @@ internal static class VerbGuard
         return PrecisionLogFactory.OpenAsync(database, null, cancellationToken);
     }
 
-    /// <summary>Throws <see cref="VerbException"/> when <paramref name="database"/> is a SQLite file that does not exist.</summary>
+    /// <summary>Throws <see cref="VerbException"/> when <paramref name="database"/> is a SQLite file that does not
+    /// exist.</summary>
     public static void RequireExisting(string database)
     {
         if (PrecisionLogFactory.DetectEngine(database) != StorageEngine.Sqlite)
@@ -46,8 +54,14 @@ internal static class VerbGuard
         if (database.Contains('=', StringComparison.Ordinal))
         {
             var builder = new System.Data.Common.DbConnectionStringBuilder { ConnectionString = database };
-            path = (builder.TryGetValue("Data Source", out var a) ? a : builder.TryGetValue("DataSource", out var b) ? b
-                : builder.TryGetValue("Filename", out var c) ? c : null) as string ?? "";
+            path =
+                (
+                    builder.TryGetValue("Data Source", out var a) ? a
+                    : builder.TryGetValue("DataSource", out var b) ? b
+                    : builder.TryGetValue("Filename", out var c) ? c
+                    : null
+                ) as string
+                ?? "";
         }
 
         if (path != ":memory:" && !File.Exists(path))

@@ -50,8 +50,14 @@ internal sealed class BrowserGuard(RequestDelegate next, bool loopbackOnly)
     {
         var origin = request.Headers.Origin.ToString();
         return origin.Length == 0
-            || (Uri.TryCreate(origin, UriKind.Absolute, out var uri)
-                && string.Equals(uri.GetLeftPart(UriPartial.Authority), $"{request.Scheme}://{request.Host}", StringComparison.OrdinalIgnoreCase));
+            || (
+                Uri.TryCreate(origin, UriKind.Absolute, out var uri)
+                && string.Equals(
+                    uri.GetLeftPart(UriPartial.Authority),
+                    $"{request.Scheme}://{request.Host}",
+                    StringComparison.OrdinalIgnoreCase
+                )
+            );
     }
 
     private static Task RefuseAsync(HttpContext context, string why)

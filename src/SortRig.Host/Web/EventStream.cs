@@ -17,19 +17,27 @@ internal static class EventStream
     /// <summary>Marks this run of the host in event ids.</summary>
     public static readonly string Run = Guid.NewGuid().ToString("N")[..8];
 
-    /// <summary>The last sequence a client saw in this run, from its Last-Event-ID; 0 when none or another run's.</summary>
+    /// <summary>The last sequence a client saw in this run, from its Last-Event-ID; 0 when none or another
+    /// run's.</summary>
     public static long LastSeen(string lastEventId)
     {
         var dot = lastEventId.IndexOf('.', StringComparison.Ordinal);
         var run = dot < 0 ? Run : lastEventId[..dot];
-        return run == Run && long.TryParse(lastEventId[(dot + 1)..], NumberStyles.None, CultureInfo.InvariantCulture, out var seen) ? seen : 0;
+        return
+            run == Run
+            && long.TryParse(lastEventId[(dot + 1)..], NumberStyles.None, CultureInfo.InvariantCulture, out var seen)
+            ? seen
+            : 0;
     }
 
     public static async Task StreamAsync(HttpContext context, BenchEventHub hub, IHostApplicationLifetime lifetime)
     {
         // The stream ends when the browser goes away or the application stops: an open stream must
         // never hold up shutdown.
-        using var stop = CancellationTokenSource.CreateLinkedTokenSource(context.RequestAborted, lifetime.ApplicationStopping);
+        using var stop = CancellationTokenSource.CreateLinkedTokenSource(
+            context.RequestAborted,
+            lifetime.ApplicationStopping
+        );
         var ct = stop.Token;
         context.Response.Headers.ContentType = "text/event-stream";
         context.Response.Headers.CacheControl = "no-cache";
@@ -47,7 +55,9 @@ internal static class EventStream
                 }
 
                 var data = JsonSerializer.Serialize(e, WebEndpoints.Json);
-                await context.Response.WriteAsync($"id: {Run}.{e.Sequence}\ndata: {data}\n\n", ct).ConfigureAwait(false);
+                await context
+                    .Response.WriteAsync($"id: {Run}.{e.Sequence}\ndata: {data}\n\n", ct)
+                    .ConfigureAwait(false);
                 await context.Response.Body.FlushAsync(ct).ConfigureAwait(false);
             }
         }

@@ -13,13 +13,14 @@ internal static class OperatorActions
     public static IReadOnlyList<string> Names { get; } = ["undo", "remeasure", "pause", "finish"];
 
     /// <summary>The operator command for an action name (exact, lower case), or null when unknown.</summary>
-    public static OperatorCommand? Parse(string action) => action switch
-    {
-        "undo" => OperatorCommand.UndoLast,
-        "remeasure" => OperatorCommand.Remeasure,
-        "pause" => OperatorCommand.TogglePause,
-        "finish" => OperatorCommand.Finish,
-        "remeasure-flagged" => OperatorCommand.RemeasureFlagged,
-        _ => null,
-    };
+    public static OperatorCommand? Parse(string action) =>
+        action switch
+        {
+            "undo" => OperatorCommand.UndoLast,
+            "remeasure" => OperatorCommand.Remeasure,
+            "pause" => OperatorCommand.TogglePause,
+            "finish" => OperatorCommand.Finish,
+            "remeasure-flagged" => OperatorCommand.RemeasureFlagged,
+            _ => null,
+        };
 }

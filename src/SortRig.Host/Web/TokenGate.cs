@@ -21,7 +21,8 @@ internal sealed class TokenGate(RequestDelegate next, string token)
         var request = context.Request;
         var fromQuery = request.Query["token"].ToString();
         var fromHeader = request.Headers.Authorization.ToString();
-        var offered = fromHeader.StartsWith("Bearer ", StringComparison.Ordinal) ? fromHeader[7..].Trim()
+        var offered =
+            fromHeader.StartsWith("Bearer ", StringComparison.Ordinal) ? fromHeader[7..].Trim()
             : fromQuery.Length > 0 ? fromQuery
             : request.Cookies[CookieName] ?? "";
         if (!Matches(offered))
@@ -34,13 +35,17 @@ internal sealed class TokenGate(RequestDelegate next, string token)
 
         if (fromQuery.Length > 0 && offered == fromQuery)
         {
-            context.Response.Cookies.Append(CookieName, fromQuery, new CookieOptions
-            {
-                HttpOnly = true,
-                SameSite = SameSiteMode.Strict,
-                Path = "/",
-                Secure = request.IsHttps,
-            });
+            context.Response.Cookies.Append(
+                CookieName,
+                fromQuery,
+                new CookieOptions
+                {
+                    HttpOnly = true,
+                    SameSite = SameSiteMode.Strict,
+                    Path = "/",
+                    Secure = request.IsHttps,
+                }
+            );
             if (HttpMethods.IsGet(request.Method) && request.Path == "/")
             {
                 context.Response.Redirect("/");

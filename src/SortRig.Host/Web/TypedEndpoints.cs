@@ -22,18 +22,27 @@ internal static class TypedEndpoints
         api.MapGet("/typed", (HttpContext http) =>
             http.RequestServices.GetService<TypedEntries>() is { CurrentPrompt.Length: > 0 } entries
                 ? Results.Json(new TypedPrompt(true, entries.CurrentPrompt), WebEndpoints.Json)
-                : Results.Json(new TypedPrompt(false, ""), WebEndpoints.Json));
+                : Results.Json(new TypedPrompt(false, ""), WebEndpoints.Json)
+        );
         api.MapPost("/typed", async (TypedLine body, HttpContext http, CancellationToken ct) =>
         {
             if (http.RequestServices.GetService<TypedEntries>() is not { CurrentPrompt.Length: > 0 } entries)
             {
-                return Results.Json(new { error = "this session has no typed meter" }, WebEndpoints.Json, statusCode: StatusCodes.Status404NotFound);
+                return Results.Json(
+                    new { error = "this session has no typed meter" },
+                    WebEndpoints.Json,
+                    statusCode: StatusCodes.Status404NotFound
+                );
             }
 
             var line = body.Line ?? "";
             if (line.Length > MaxLine || line.Any(char.IsControl))
             {
-                return Results.Json(new { error = $"line: at most {MaxLine} printable characters" }, WebEndpoints.Json, statusCode: StatusCodes.Status400BadRequest);
+                return Results.Json(
+                    new { error = $"line: at most {MaxLine} printable characters" },
+                    WebEndpoints.Json,
+                    statusCode: StatusCodes.Status400BadRequest
+                );
             }
 
             await entries.PostAsync(line, ct).ConfigureAwait(false);

@@ -13,21 +13,26 @@ internal static class WebAssets
     private static readonly Assembly s_assembly = typeof(WebAssets).Assembly;
 
     /// <summary>File names of the embedded assets, e.g. "index.html", "app.js".</summary>
-    public static IReadOnlyList<string> Names { get; } = [.. s_assembly.GetManifestResourceNames()
-        .Where(n => n.StartsWith(Prefix, StringComparison.Ordinal))
-        .Select(n => n[Prefix.Length..])
-        .Order(StringComparer.Ordinal)];
+    public static IReadOnlyList<string> Names { get; } =
+    [
+        .. s_assembly
+            .GetManifestResourceNames()
+            .Where(n => n.StartsWith(Prefix, StringComparison.Ordinal))
+            .Select(n => n[Prefix.Length..])
+            .Order(StringComparer.Ordinal),
+    ];
 
     /// <summary>The content type an asset is served with.</summary>
-    public static string ContentType(string name) => Path.GetExtension(name) switch
-    {
-        ".html" => "text/html; charset=utf-8",
-        ".js" => "text/javascript; charset=utf-8",
-        ".css" => "text/css; charset=utf-8",
-        ".svg" => "image/svg+xml",
-        ".png" => "image/png",
-        _ => "application/octet-stream",
-    };
+    public static string ContentType(string name) =>
+        Path.GetExtension(name) switch
+        {
+            ".html" => "text/html; charset=utf-8",
+            ".js" => "text/javascript; charset=utf-8",
+            ".css" => "text/css; charset=utf-8",
+            ".svg" => "image/svg+xml",
+            ".png" => "image/png",
+            _ => "application/octet-stream",
+        };
 
     public static IResult Serve(string name)
     {

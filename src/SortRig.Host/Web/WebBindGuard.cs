@@ -19,7 +19,9 @@ internal static class WebBindGuard
         if (options.Token.Length > 0 && options.Token.Trim().Length < MinimumTokenLength)
         {
             throw new InvalidOperationException(
-                $"Web:Token is too short: use at least {MinimumTokenLength} characters (e.g. the output of `openssl rand -hex 16`).");
+                $"Web:Token is too short: use at least {MinimumTokenLength} characters (e.g. the output of `openssl "
+                    + $"rand -hex 16`)."
+            );
         }
 
         foreach (var url in Urls(options))
@@ -27,7 +29,9 @@ internal static class WebBindGuard
             if (!IsLoopback(url) && options.Token.Length == 0)
             {
                 throw new InvalidOperationException(
-                    $"Web:Urls '{url}' binds an address other than loopback; set Web:Token (or SORTRIG_Web__Token) to allow it.");
+                    $"Web:Urls '{url}' binds an address other than loopback; set Web:Token (or SORTRIG_Web__Token) "
+                        + $"to allow it."
+                );
             }
         }
     }
@@ -43,9 +47,18 @@ internal static class WebBindGuard
     public static bool IsLoopback(string url)
     {
         ArgumentNullException.ThrowIfNull(url);
-        if (!Uri.TryCreate(url.Replace("://*", "://0.0.0.0", StringComparison.Ordinal).Replace("://+", "://0.0.0.0", StringComparison.Ordinal), UriKind.Absolute, out var uri))
+        if (
+            !Uri.TryCreate(
+                url.Replace("://*", "://0.0.0.0", StringComparison.Ordinal)
+                    .Replace("://+", "://0.0.0.0", StringComparison.Ordinal),
+                UriKind.Absolute,
+                out var uri
+            )
+        )
         {
-            throw new InvalidOperationException($"Web:Urls '{url}' is not a URL (expected e.g. http://127.0.0.1:5080).");
+            throw new InvalidOperationException(
+                $"Web:Urls '{url}' is not a URL (expected e.g. http://127.0.0.1:5080)."
+            );
         }
 
         return uri.IsLoopback || (IPAddress.TryParse(uri.Host.Trim('[', ']'), out var ip) && IPAddress.IsLoopback(ip));

@@ -28,10 +28,18 @@ internal static class WebEndpoints
         }
 
         var api = app.MapGroup("/api");
-        api.MapGet("/session", (BenchSnapshot s) => s.Session is { } v ? Results.Json(v, Json) : Results.Json(new { error = "no session is open yet" }, Json, statusCode: 404));
+        api.MapGet("/session", (BenchSnapshot s) =>
+            s.Session is { } v
+                ? Results.Json(v, Json)
+                : Results.Json(new { error = "no session is open yet" }, Json, statusCode: 404)
+        );
         api.MapGet("/parts", (BenchSnapshot s) => Results.Json(s.Parts(), Json));
         api.MapGet("/cups", (BenchSnapshot s) => Results.Json(s.Counts, Json));
-        api.MapGet("/check", (BenchSnapshot s) => s.LastCheck is { } c ? Results.Json(c, Json) : Results.Json(new { error = "no check read yet" }, Json, statusCode: 404));
+        api.MapGet("/check", (BenchSnapshot s) =>
+            s.LastCheck is { } c
+                ? Results.Json(c, Json)
+                : Results.Json(new { error = "no check read yet" }, Json, statusCode: 404)
+        );
         api.MapGet("/events/recent", (BenchEventHub hub) => Results.Json(hub.History(), Json));
         api.MapGet("/events", EventStream.StreamAsync);
         TypedEndpoints.Map(api);
@@ -45,11 +53,16 @@ internal static class WebEndpoints
                 return Results.Json(
                     new { error = "unknown action; expected one of " + string.Join(", ", OperatorActions.Names) },
                     Json,
-                    statusCode: StatusCodes.Status400BadRequest);
+                    statusCode: StatusCodes.Status400BadRequest
+                );
             }
 
             commands.Post(command);
-            return Results.Json(new { action, queued = command.ToString() }, Json, statusCode: StatusCodes.Status202Accepted);
+            return Results.Json(
+                new { action, queued = command.ToString() },
+                Json,
+                statusCode: StatusCodes.Status202Accepted
+            );
         });
     }
 }

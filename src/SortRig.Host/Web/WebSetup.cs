@@ -26,7 +26,9 @@ internal static class WebSetup
         {
             // The token is never logged, whatever levels the configuration asks for: the request
             // line logger is held at Warning (added last, so it overrides appsettings and flags).
-            builder.Configuration.AddInMemoryCollection([new($"Serilog:MinimumLevel:Override:{RequestLineLogger}", "Warning")]);
+            builder.Configuration.AddInMemoryCollection([
+                new($"Serilog:MinimumLevel:Override:{RequestLineLogger}", "Warning"),
+            ]);
             builder.Logging.AddFilter(RequestLineLogger, LogLevel.Warning);
         }
 

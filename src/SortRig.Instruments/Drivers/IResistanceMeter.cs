@@ -22,7 +22,8 @@ public interface IResistanceMeter : IAsyncDisposable
     /// <exception cref="InstrumentSetupException">The read-back differs from the request.</exception>
     Task ConfigureAsync(ResistanceSetup setup, CancellationToken ct);
 
-    /// <summary>Takes one triggered reading; 9.9E37 gives <see cref="Reading.Overload"/>. Timestamped from the injected clock.</summary>
+    /// <summary>Takes one triggered reading; 9.9E37 gives <see cref="Reading.Overload"/>. Timestamped from the injected
+    /// clock.</summary>
     /// <exception cref="InvalidOperationException">Not configured yet.</exception>
     Task<Reading> ReadAsync(CancellationToken ct);
 
@@ -30,6 +31,7 @@ public interface IResistanceMeter : IAsyncDisposable
     /// <exception cref="NotSupportedException">The profile has no scanner commands.</exception>
     Task<IReadOnlyList<Reading>> ReadChannelsAsync(IReadOnlyList<int> channels, CancellationToken ct);
 
-    /// <summary>Reads range and NPLC back; false when they differ from the last setup (e.g. the meter was reset) or none was made.</summary>
+    /// <summary>Reads range and NPLC back; false when they differ from the last setup (e.g. the meter was reset) or
+    /// none was made.</summary>
     Task<bool> VerifySetupAsync(CancellationToken ct);
 }

@@ -25,7 +25,8 @@ public sealed class MeterConnector
         _loggers = loggers ?? NullLoggerFactory.Instance;
     }
 
-    /// <summary>Opens a SCPI session to the meter at <paramref name="resource"/> with the profile's terminator and timeout.</summary>
+    /// <summary>Opens a SCPI session to the meter at <paramref name="resource"/> with the profile's terminator and
+    /// timeout.</summary>
     /// <exception cref="ResourceStringException">The resource string is malformed.</exception>
     /// <exception cref="InstrumentSetupException">The profile does not allow the resource's transport.</exception>
     /// <exception cref="InstrumentLinkException">The link could not be opened.</exception>
@@ -35,16 +36,33 @@ public sealed class MeterConnector
         if (!profile.Comms.Transports.Contains(parsed.Transport))
         {
             throw new InstrumentSetupException(
-                "transport", $"one of {string.Join(", ", profile.Comms.Transports)} (profile '{profile.Family}')", $"{parsed.Transport} ({resource})");
+                "transport",
+                $"one of {string.Join(", ", profile.Comms.Transports)} (profile '{profile.Family}')",
+                $"{parsed.Transport} ({resource})"
+            );
         }
 
-        var link = await _links.OpenAsync(parsed, new MessageLinkOptions(profile.Comms.Terminator), profile.Comms.Serial, ct).ConfigureAwait(false);
-        return new ScpiSession(link, new ScpiSessionOptions(profile.Comms.QueryTimeout), _time, _loggers.CreateLogger<ScpiSession>());
+        var link = await _links
+            .OpenAsync(parsed, new MessageLinkOptions(profile.Comms.Terminator), profile.Comms.Serial, ct)
+            .ConfigureAwait(false);
+        return new ScpiSession(
+            link,
+            new ScpiSessionOptions(profile.Comms.QueryTimeout),
+            _time,
+            _loggers.CreateLogger<ScpiSession>()
+        );
     }
 
-    /// <summary>Opens the meter and, when <paramref name="checkIdentity"/>, checks its *IDN? model against the profile.</summary>
-    /// <exception cref="InstrumentSetupException">Transport not allowed, or the model does not match the profile.</exception>
-    public async Task<IResistanceMeter> ConnectAsync(string resource, MeterProfile profile, bool checkIdentity, CancellationToken ct)
+    /// <summary>Opens the meter and, when <paramref name="checkIdentity"/>, checks its *IDN? model against the
+    /// profile.</summary>
+    /// <exception cref="InstrumentSetupException">Transport not allowed, or the model does not match the
+    /// profile.</exception>
+    public async Task<IResistanceMeter> ConnectAsync(
+        string resource,
+        MeterProfile profile,
+        bool checkIdentity,
+        CancellationToken ct
+    )
     {
         var session = await OpenSessionAsync(resource, profile, ct).ConfigureAwait(false);
         var meter = new ScpiResistanceMeter(session, profile, _time, _loggers.CreateLogger<ScpiResistanceMeter>());
@@ -55,7 +73,11 @@ public sealed class MeterConnector
                 var identity = await meter.IdentifyAsync(ct).ConfigureAwait(false);
                 if (!profile.MatchesModel(identity.Model))
                 {
-                    throw new InstrumentSetupException("model", $"a match for /{profile.ModelPattern}/ (profile '{profile.Family}')", $"'{identity.Model}'");
+                    throw new InstrumentSetupException(
+                        "model",
+                        $"a match for /{profile.ModelPattern}/ (profile '{profile.Family}')",
+                        $"'{identity.Model}'"
+                    );
                 }
             }
 

@@ -10,14 +10,20 @@ namespace SortRig.Instruments.Drivers;
 /// <summary>Which exceptions are a meter fault to recover from, and how to say them to a person.</summary>
 public static class MeterFaults
 {
-    /// <summary>True for faults a reconnect can cure; false for configuration mistakes, which must stop the session.</summary>
-    public static bool IsFault(Exception e) => e switch
-    {
-        ResourceStringException or ProfileException or InstrumentSetupException or MeterUnreadableException or MeterUnreachableException => false,
-        InstrumentException => true,
-        IOException or SocketException or ObjectDisposedException => true,
-        _ => false,
-    };
+    /// <summary>True for faults a reconnect can cure; false for configuration mistakes, which must stop the
+    /// session.</summary>
+    public static bool IsFault(Exception e) =>
+        e switch
+        {
+            ResourceStringException
+            or ProfileException
+            or InstrumentSetupException
+            or MeterUnreadableException
+            or MeterUnreachableException => false,
+            InstrumentException => true,
+            IOException or SocketException or ObjectDisposedException => true,
+            _ => false,
+        };
 
     /// <summary>
     /// Setup read-backs that differ (or a model that does not match) in a row before the session
@@ -41,15 +47,17 @@ public static class MeterFaults
         IsFault(e) || (setupMayRetry && e is InstrumentSetupException { Setting: not "transport" });
 
     /// <summary>A short plain description for the operator.</summary>
-    public static string Describe(Exception e) => e switch
-    {
-        InstrumentTimeoutException => "no answer in time",
-        ScpiResponseException r when r.Expected.StartsWith("a reading", StringComparison.Ordinal) => $"not a number ('{ReplyText.Printable(r.Reply)}')",
-        InstrumentSetupException s => $"setting read back wrong ({s.Message})",
-        InstrumentLinkException { OpenFailed: true } l => $"not reached ({l.Message})",
-        InstrumentLinkException => "connection lost",
-        ScpiResponseException => "garbled reply",
-        ScpiInstrumentException s => $"instrument error {s.Code}",
-        _ => e.GetType().Name,
-    };
+    public static string Describe(Exception e) =>
+        e switch
+        {
+            InstrumentTimeoutException => "no answer in time",
+            ScpiResponseException r when r.Expected.StartsWith("a reading", StringComparison.Ordinal) =>
+                $"not a number ('{ReplyText.Printable(r.Reply)}')",
+            InstrumentSetupException s => $"setting read back wrong ({s.Message})",
+            InstrumentLinkException { OpenFailed: true } l => $"not reached ({l.Message})",
+            InstrumentLinkException => "connection lost",
+            ScpiResponseException => "garbled reply",
+            ScpiInstrumentException s => $"instrument error {s.Code}",
+            _ => e.GetType().Name,
+        };
 }

@@ -14,8 +14,14 @@ public sealed class MeterUnreachableException : InstrumentException
     /// <param name="waited">Time spent waiting between them.</param>
     /// <param name="last">The last attempt's failure.</param>
     public MeterUnreachableException(int attempts, TimeSpan waited, InstrumentLinkException last)
-        : base(string.Create(System.Globalization.CultureInfo.InvariantCulture,
-            $"cannot reach the meter: {last?.Message} ({attempts} attempts over {waited.TotalSeconds:0.##} s); check that it is switched on, the resource string (address, port or device) and the cable"), last)
+        : base(
+            string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"cannot reach the meter: {last?.Message} ({attempts} attempts over {waited.TotalSeconds:0.##} s); "
+                    + $"check that it is switched on, the resource string (address, port or device) and the cable"
+            ),
+            last
+        )
     {
         ArgumentNullException.ThrowIfNull(last);
         Attempts = attempts;

@@ -14,8 +14,11 @@ public sealed class MeterUnreadableException : InstrumentException
     /// <param name="lastReply">The last such reply, as received.</param>
     /// <param name="innerException">The last reply's fault.</param>
     public MeterUnreadableException(int count, string lastReply, Exception? innerException = null)
-        : base($"the meter answered {count} reading requests in a row with '{Shown(lastReply)}' instead of a reading; "
-            + "check its function, range and input terminals, then resume the session", innerException)
+        : base(
+            $"the meter answered {count} reading requests in a row with '{Shown(lastReply)}' instead of a reading; "
+                + "check its function, range and input terminals, then resume the session",
+            innerException
+        )
     {
         Count = count;
         LastReply = lastReply;

@@ -53,21 +53,40 @@ public sealed class ProfileCheck
             }
         }
 
-        await Step("clear status (*CLS)", async () => { await session.ClearStatusAsync(ct).ConfigureAwait(false); return "sent"; }).ConfigureAwait(false);
-        await Step("identify (*IDN?)", async () => (identity = await session.IdentifyAsync(ct).ConfigureAwait(false)).ToString()).ConfigureAwait(false);
-        rows.Add(identity is null
-            ? new ProfileCheckRow("model matches profile", CheckOutcome.Skipped, "no identity")
-            : new ProfileCheckRow("model matches profile", profile.MatchesModel(identity.Model) ? CheckOutcome.Pass : CheckOutcome.Fail,
-                $"'{identity.Model}' against /{profile.ModelPattern}/"));
+        await Step("clear status (*CLS)", async () =>
+            {
+                await session.ClearStatusAsync(ct).ConfigureAwait(false);
+                return "sent";
+            })
+            .ConfigureAwait(false);
+        await Step("identify (*IDN?)", async () =>
+                (identity = await session.IdentifyAsync(ct).ConfigureAwait(false)).ToString()
+            )
+            .ConfigureAwait(false);
+        rows.Add(
+            identity is null
+                ? new ProfileCheckRow("model matches profile", CheckOutcome.Skipped, "no identity")
+                : new ProfileCheckRow(
+                    "model matches profile",
+                    profile.MatchesModel(identity.Model) ? CheckOutcome.Pass : CheckOutcome.Fail,
+                    $"'{identity.Model}' against /{profile.ModelPattern}/"
+                )
+        );
 
         foreach (var range in profile.Spec.Ranges)
         {
-            await Step($"range {Text(range.FullScale)} ohm", () => Configure(new ResistanceSetup(range.FullScale, nplc, !twoWire))).ConfigureAwait(false);
+            await Step($"range {Text(range.FullScale)} ohm", () =>
+                    Configure(new ResistanceSetup(range.FullScale, nplc, !twoWire))
+                )
+                .ConfigureAwait(false);
         }
 
         foreach (var setting in profile.Spec.Nplcs)
         {
-            await Step($"NPLC {Text(setting.Nplc)}", () => Configure(new ResistanceSetup(midRange, setting.Nplc, !twoWire))).ConfigureAwait(false);
+            await Step($"NPLC {Text(setting.Nplc)}", () =>
+                    Configure(new ResistanceSetup(midRange, setting.Nplc, !twoWire))
+                )
+                .ConfigureAwait(false);
         }
 
         if (twoWire && profile.Spec.FourWire)
@@ -77,19 +96,29 @@ public sealed class ProfileCheck
 
         if (configured)
         {
-            await Step($"read ({profile.Commands.Read})", async () => Describe(await meter.ReadAsync(ct).ConfigureAwait(false))).ConfigureAwait(false);
+            await Step($"read ({profile.Commands.Read})", async () =>
+                    Describe(await meter.ReadAsync(ct).ConfigureAwait(false))
+                )
+                .ConfigureAwait(false);
         }
         else
         {
-            rows.Add(new ProfileCheckRow($"read ({profile.Commands.Read})", CheckOutcome.Skipped, "skipped: the last configuration step failed"));
+            rows.Add(
+                new ProfileCheckRow(
+                    $"read ({profile.Commands.Read})",
+                    CheckOutcome.Skipped,
+                    "skipped: the last configuration step failed"
+                )
+            );
         }
         if (profile.Commands is { Init: { } init, Fetch: { } fetch })
         {
             await Step($"init/fetch ({init}, {fetch})", async () =>
-            {
-                await session.WriteAsync(init.Text, ct).ConfigureAwait(false);
-                return Text((await session.QueryNumberAsync(fetch.Text, ct).ConfigureAwait(false)).Value);
-            }).ConfigureAwait(false);
+                {
+                    await session.WriteAsync(init.Text, ct).ConfigureAwait(false);
+                    return Text((await session.QueryNumberAsync(fetch.Text, ct).ConfigureAwait(false)).Value);
+                })
+                .ConfigureAwait(false);
         }
         else
         {
@@ -97,12 +126,13 @@ public sealed class ProfileCheck
         }
 
         await Step("error queue empty", async () =>
-        {
-            var (errors, commands) = await session.DrainErrorsAsync(ct).ConfigureAwait(false);
-            return errors.Count == 0
-                ? "no error"
-                : throw new ScpiInstrumentException(errors[0].Code, errors[0].Message, commands, errors);
-        }).ConfigureAwait(false);
+            {
+                var (errors, commands) = await session.DrainErrorsAsync(ct).ConfigureAwait(false);
+                return errors.Count == 0
+                    ? "no error"
+                    : throw new ScpiInstrumentException(errors[0].Code, errors[0].Message, commands, errors);
+            })
+            .ConfigureAwait(false);
         return new ProfileCheckReport(profile.Family, session.Endpoint, identity, rows);
     }
 

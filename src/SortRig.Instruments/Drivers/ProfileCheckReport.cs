@@ -26,7 +26,12 @@ public sealed record ProfileCheckRow(string Check, CheckOutcome Outcome, string 
 /// <param name="Endpoint">What the session was connected to.</param>
 /// <param name="Identity">The *IDN? answer, or null when it failed.</param>
 /// <param name="Rows">The checks in the order they ran.</param>
-public sealed record ProfileCheckReport(string Family, string Endpoint, InstrumentIdentity? Identity, IReadOnlyList<ProfileCheckRow> Rows)
+public sealed record ProfileCheckReport(
+    string Family,
+    string Endpoint,
+    InstrumentIdentity? Identity,
+    IReadOnlyList<ProfileCheckRow> Rows
+)
 {
     /// <summary>True when no row failed.</summary>
     public bool Passed => Rows.All(r => r.Outcome != CheckOutcome.Fail);

@@ -24,26 +24,30 @@ public sealed class ResilientMeter : IAsyncDisposable
         _identify = identify;
     }
 
-    /// <summary>The setup applied on every connection; change it, then <see cref="ApplyAsync"/>, to switch range.</summary>
+    /// <summary>The setup applied on every connection; change it, then <see cref="ApplyAsync"/>, to switch
+    /// range.</summary>
     public ResistanceSetup Setup { get; set; }
 
-    /// <summary>The identity read on the first connection ("maker model s/n serial fw firmware"); empty before, or when not asked.</summary>
+    /// <summary>The identity read on the first connection ("maker model s/n serial fw firmware"); empty before, or when
+    /// not asked.</summary>
     public string Identity { get; private set; } = "";
 
-    /// <summary>True once a connection has been opened and set up; a link that fails after that was lost, not unreachable.</summary>
+    /// <summary>True once a connection has been opened and set up; a link that fails after that was lost, not
+    /// unreachable.</summary>
     public bool HasConnected { get; private set; }
 
     /// <summary>The open connection; null before the first use and after a drop.</summary>
     public IResistanceMeter? Current { get; private set; }
 
     /// <summary>The open connection, or a fresh one (identified once, configured) when there is none.</summary>
-    public async Task<IResistanceMeter> GetAsync(CancellationToken ct) => Current ??= await OpenAsync(ct).ConfigureAwait(false);
+    public async Task<IResistanceMeter> GetAsync(CancellationToken ct) =>
+        Current ??= await OpenAsync(ct).ConfigureAwait(false);
 
     /// <summary>
-    /// <see cref="GetAsync"/> until it succeeds, waiting with <paramref name="backoff"/> between attempts: every fault a
-    /// reconnect cures, and a setup read-back that differs (or a model that does not match, possibly a reply garbled on
-    /// the way or a reset between the commands and the read-back) up to <see cref="MeterFaults.SetupRetries"/> times in
-    /// a row; then it is a configuration mistake and is thrown. Before any connection existed, a link that cannot be
+    /// <see cref="GetAsync"/> until it succeeds, waiting with <paramref name="backoff"/> between attempts: every fault
+    /// a reconnect cures, and a setup read-back that differs (or a model that does not match, possibly a reply garbled
+    /// on the way or a reset between the commands and the read-back) up to <see cref="MeterFaults.SetupRetries"/> times
+    /// in a row; then it is a configuration mistake and is thrown. Before any connection existed, a link that cannot be
     /// opened at all (<see cref="InstrumentLinkException.OpenFailed"/>) <see cref="MeterFaults.FirstConnectAttempts"/>
     /// times in a row throws <see cref="MeterUnreachableException"/>: a meter never reached is a setup to check, not
     /// a fault to wait out.
@@ -53,7 +57,11 @@ public sealed class ResilientMeter : IAsyncDisposable
     /// <param name="onRetry">Told each failure and the wait before the next attempt.</param>
     /// <param name="ct">Stops the attempts.</param>
     public async Task<IResistanceMeter> ConnectWithRetryAsync(
-        Backoff backoff, TimeProvider time, Func<Exception, TimeSpan, CancellationToken, ValueTask> onRetry, CancellationToken ct)
+        Backoff backoff,
+        TimeProvider time,
+        Func<Exception, TimeSpan, CancellationToken, ValueTask> onRetry,
+        CancellationToken ct
+    )
     {
         ArgumentNullException.ThrowIfNull(backoff);
         ArgumentNullException.ThrowIfNull(onRetry);
@@ -99,7 +107,8 @@ public sealed class ResilientMeter : IAsyncDisposable
         }
     }
 
-    /// <summary>True when there is an open connection and the meter still has <see cref="Setup"/> (no reset under us).</summary>
+    /// <summary>True when there is an open connection and the meter still has <see cref="Setup"/> (no reset under
+    /// us).</summary>
     public async Task<bool> VerifyAsync(CancellationToken ct) =>
         Current is { } meter && await meter.VerifySetupAsync(ct).ConfigureAwait(false);
 

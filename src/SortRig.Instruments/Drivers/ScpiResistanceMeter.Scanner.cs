@@ -8,7 +8,8 @@ internal sealed partial class ScpiResistanceMeter : IResistanceMeter, ITemperatu
 {
     public async Task<IReadOnlyList<Reading>> ReadChannelsAsync(IReadOnlyList<int> channels, CancellationToken ct)
     {
-        var applied = _applied ?? throw new InvalidOperationException("ConfigureAsync must succeed before ReadChannelsAsync");
+        var applied = _applied
+            ?? throw new InvalidOperationException("ConfigureAsync must succeed before ReadChannelsAsync");
         ArgumentOutOfRangeException.ThrowIfZero(channels.Count, nameof(channels));
         foreach (var bad in channels.Where(c => c is < 1 or > 9999))
         {
@@ -33,13 +34,29 @@ internal sealed partial class ScpiResistanceMeter : IResistanceMeter, ITemperatu
             return readings;
         }
 
-        var scan = Commands.ScannerScan ?? throw new NotSupportedException($"profile '{Profile.Family}' has no scanner_close or scanner_scan template");
-        await _session.WriteAsync(scan.Render(applied.With("channels", string.Join(',', channels))), ct).ConfigureAwait(false);
+        var scan = Commands.ScannerScan
+            ?? throw new NotSupportedException(
+                $"profile '{Profile.Family}' has no scanner_close or scanner_scan template"
+            );
+        await _session
+            .WriteAsync(scan.Render(applied.With("channels", string.Join(',', channels))), ct)
+            .ConfigureAwait(false);
         await _session.CheckErrorsAsync(ct).ConfigureAwait(false);
         var command = Commands.Read.Render(applied.Values);
-        var numbers = await _session.QueryNumbersAsync(command, ReadTimeout(applied, channels.Count), ct).ConfigureAwait(false);
+        var numbers = await _session
+            .QueryNumbersAsync(command, ReadTimeout(applied, channels.Count), ct)
+            .ConfigureAwait(false);
         return numbers.Count == channels.Count
-            ? [.. numbers.Select(n => ToReading(n, applied.Range.FullScale, command, string.Join(',', numbers.Select(n => Ohms(n.Value)))))]
-            : throw new ScpiResponseException(command, string.Join(',', numbers.Select(n => Ohms(n.Value))), $"{channels.Count} readings, one per channel");
+            ?
+            [
+                .. numbers.Select(n =>
+                    ToReading(n, applied.Range.FullScale, command, string.Join(',', numbers.Select(n => Ohms(n.Value))))
+                ),
+            ]
+            : throw new ScpiResponseException(
+                command,
+                string.Join(',', numbers.Select(n => Ohms(n.Value))),
+                $"{channels.Count} readings, one per channel"
+            );
     }
 }

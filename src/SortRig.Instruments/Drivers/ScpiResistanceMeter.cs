@@ -16,7 +16,12 @@ internal sealed partial class ScpiResistanceMeter : IResistanceMeter, ITemperatu
     private readonly ILogger _logger;
     private Applied? _applied;
 
-    public ScpiResistanceMeter(ScpiSession session, MeterProfile profile, TimeProvider? time = null, ILogger? logger = null)
+    public ScpiResistanceMeter(
+        ScpiSession session,
+        MeterProfile profile,
+        TimeProvider? time = null,
+        ILogger? logger = null
+    )
     {
         _session = session;
         Profile = profile;
@@ -96,7 +101,8 @@ internal sealed partial class ScpiResistanceMeter : IResistanceMeter, ITemperatu
 
     public async Task<Reading> ReadTemperatureAsync(int channel, CancellationToken ct)
     {
-        var template = Commands.TemperatureChannel ?? throw new NotSupportedException($"profile '{Profile.Family}' has no temperature_channel template");
+        var template = Commands.TemperatureChannel
+            ?? throw new NotSupportedException($"profile '{Profile.Family}' has no temperature_channel template");
         var command = template.Render(("channel", channel));
         var number = await _session.QueryNumberAsync(command, ct).ConfigureAwait(false);
         return ToReading(number, 0, command, Ohms(number.Value));
@@ -124,7 +130,9 @@ internal sealed partial class ScpiResistanceMeter : IResistanceMeter, ITemperatu
 
     private async Task<(double Range, double Nplc)> ReadBackAsync(Applied applied, CancellationToken ct)
     {
-        var range = await _session.QueryNumberAsync(Commands.RangeQuery.Render(applied.Values), ct).ConfigureAwait(false);
+        var range = await _session
+            .QueryNumberAsync(Commands.RangeQuery.Render(applied.Values), ct)
+            .ConfigureAwait(false);
         var nplc = Commands.NplcQuery is { } query
             ? (await _session.QueryNumberAsync(query.Render(applied.Values), ct).ConfigureAwait(false)).Value
             : applied.Nplc.Nplc;
@@ -133,20 +141,35 @@ internal sealed partial class ScpiResistanceMeter : IResistanceMeter, ITemperatu
 
     private Applied Resolve(ResistanceSetup setup)
     {
-        var range = Profile.FindRange(setup.Range) ?? throw new ArgumentOutOfRangeException(nameof(setup), setup.Range,
-            $"range must be one of {string.Join(", ", Profile.Spec.Ranges.Select(r => Ohms(r.FullScale)))} ohm (profile '{Profile.Family}')");
-        var nplc = Profile.FindNplc(setup.Nplc) ?? throw new ArgumentOutOfRangeException(nameof(setup), setup.Nplc,
-            $"NPLC must be one of {string.Join(", ", Profile.Spec.Nplcs.Select(n => Ohms(n.Nplc)))} (profile '{Profile.Family}')");
+        var range = Profile.FindRange(setup.Range)
+            ?? throw new ArgumentOutOfRangeException(
+                nameof(setup),
+                setup.Range,
+                $"range must be one of {string.Join(", ", Profile.Spec.Ranges.Select(r => Ohms(r.FullScale)))} ohm "
+                    + $"(profile '{Profile.Family}')"
+            );
+        var nplc = Profile.FindNplc(setup.Nplc)
+            ?? throw new ArgumentOutOfRangeException(
+                nameof(setup),
+                setup.Nplc,
+                $"NPLC must be one of {string.Join(", ", Profile.Spec.Nplcs.Select(n => Ohms(n.Nplc)))} (profile '"
+                    + $"{Profile.Family}')"
+            );
         var function = setup.FourWire ? Commands.Function4Wire : Commands.Function2Wire;
         return function is null
-            ? throw new ArgumentOutOfRangeException(nameof(setup), setup.FourWire, $"profile '{Profile.Family}' has no {(setup.FourWire ? "4" : "2")}-wire resistance")
+            ? throw new ArgumentOutOfRangeException(
+                nameof(setup),
+                setup.FourWire,
+                $"profile '{Profile.Family}' has no {(setup.FourWire ? "4" : "2")}-wire resistance"
+            )
             : new Applied(function, range, nplc);
     }
 
     /// <summary>A setup resolved against the profile, with its template values.</summary>
     private sealed record Applied(string Function, RangeSpec Range, NplcSpec Nplc)
     {
-        public (string, object)[] Values => [("function", Function), ("range", Range.FullScale), ("nplc", Nplc.Nplc), ("source", "IMM")];
+        public (string, object)[] Values =>
+            [("function", Function), ("range", Range.FullScale), ("nplc", Nplc.Nplc), ("source", "IMM")];
 
         public (string, object)[] With(string name, object value) => [.. Values, (name, value)];
     }

@@ -35,9 +35,10 @@ internal static class CommandSectionReader
         var t = new Dictionary<string, CommandTemplate>(StringComparer.Ordinal);
         foreach (var rule in s_rules)
         {
-            var node = rule.Need == Need.Always || (rule.Need == Need.WhenSeveralNplc && nplcCount > 1)
-                ? map.Required(rule.Key, $"a command template ({rule.Describe()})")
-                : map.Optional(rule.Key);
+            var node =
+                rule.Need == Need.Always || (rule.Need == Need.WhenSeveralNplc && nplcCount > 1)
+                    ? map.Required(rule.Key, $"a command template ({rule.Describe()})")
+                    : map.Optional(rule.Key);
             if (node is { } present)
             {
                 t[rule.Key] = rule.Check(present);
@@ -49,10 +50,20 @@ internal static class CommandSectionReader
         return new MeterCommands(
             Function(map, "function_2wire", twoWire, "two_wire"),
             Function(map, "function_4wire", fourWire, "four_wire"),
-            t["configure"], t["range"], t["range_query"], t.GetValueOrDefault("nplc"), t.GetValueOrDefault("nplc_query"),
-            t.GetValueOrDefault("trigger_source"), t["read"], t.GetValueOrDefault("init"), t.GetValueOrDefault("fetch"),
-            t.GetValueOrDefault("scanner_close"), t.GetValueOrDefault("scanner_open"), t.GetValueOrDefault("scanner_scan"),
-            t.GetValueOrDefault("temperature_channel"));
+            t["configure"],
+            t["range"],
+            t["range_query"],
+            t.GetValueOrDefault("nplc"),
+            t.GetValueOrDefault("nplc_query"),
+            t.GetValueOrDefault("trigger_source"),
+            t["read"],
+            t.GetValueOrDefault("init"),
+            t.GetValueOrDefault("fetch"),
+            t.GetValueOrDefault("scanner_close"),
+            t.GetValueOrDefault("scanner_open"),
+            t.GetValueOrDefault("scanner_scan"),
+            t.GetValueOrDefault("temperature_channel")
+        );
     }
 
     private static string? Function(YamlMap map, string key, bool supported, string wiringKey)
@@ -64,7 +75,10 @@ internal static class CommandSectionReader
                 : null;
         }
 
-        var field = map.Required(key, $"the function mnemonic filled into {{function}}, e.g. RES (wiring.{wiringKey} is true)");
+        var field = map.Required(
+            key,
+            $"the function mnemonic filled into {{function}}, e.g. RES (wiring.{wiringKey} is true)"
+        );
         var value = field.AsString();
         return value.All(c => char.IsAsciiLetterOrDigit(c) || c is ':' or '_')
             ? value
@@ -76,7 +90,8 @@ internal static class CommandSectionReader
         if (t.ContainsKey(first) != t.ContainsKey(second))
         {
             var (given, missing) = t.ContainsKey(first) ? (first, second) : (second, first);
-            throw map.Optional(given)!.Value.Error($"is given without {missing}", $"both {first} and {second}, or neither");
+            throw map.Optional(given)!
+                .Value.Error($"is given without {missing}", $"both {first} and {second}, or neither");
         }
     }
 
@@ -92,7 +107,10 @@ internal static class CommandSectionReader
             foreach (var p in template.Placeholders.Where(p => !Required.Contains(p) && !Allowed.Contains(p)))
             {
                 var allowed = Required.Concat(Allowed).Select(a => $"{{{a}}}").ToList();
-                throw field.Error($"uses unknown placeholder {{{p}}}", allowed.Count == 0 ? "no placeholders" : $"only {string.Join(", ", allowed)}");
+                throw field.Error(
+                    $"uses unknown placeholder {{{p}}}",
+                    allowed.Count == 0 ? "no placeholders" : $"only {string.Join(", ", allowed)}"
+                );
             }
 
             foreach (var p in Required.Where(p => !template.Placeholders.Contains(p)))

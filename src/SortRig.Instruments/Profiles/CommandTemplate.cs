@@ -19,18 +19,24 @@ public sealed partial record CommandTemplate(string Text)
     /// <summary>Fills the placeholders; numbers are written in invariant round-trip form (e.g. 10000, 0.02).</summary>
     /// <exception cref="ArgumentException">A placeholder in the text has no value.</exception>
     public string Render(params (string Name, object Value)[] values) =>
-        PlaceholderPattern().Replace(Text, m =>
-        {
-            foreach (var (name, value) in values)
+        PlaceholderPattern()
+            .Replace(Text, m =>
             {
-                if (name == m.Groups[1].Value)
+                foreach (var (name, value) in values)
                 {
-                    return value is double d ? d.ToString("R", CultureInfo.InvariantCulture) : Convert.ToString(value, CultureInfo.InvariantCulture) ?? string.Empty;
+                    if (name == m.Groups[1].Value)
+                    {
+                        return value is double d
+                            ? d.ToString("R", CultureInfo.InvariantCulture)
+                            : Convert.ToString(value, CultureInfo.InvariantCulture) ?? string.Empty;
+                    }
                 }
-            }
 
-            throw new ArgumentException($"no value for placeholder {{{m.Groups[1].Value}}} in '{Text}'", nameof(values));
-        });
+                throw new ArgumentException(
+                    $"no value for placeholder {{{m.Groups[1].Value}}} in '{Text}'",
+                    nameof(values)
+                );
+            });
 
     /// <inheritdoc/>
     public override string ToString() => Text;

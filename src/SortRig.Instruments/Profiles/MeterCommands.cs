@@ -4,7 +4,8 @@ namespace SortRig.Instruments.Profiles;
 /// The command templates of a meter family. Placeholders: {function} (the 2- or 4-wire function
 /// mnemonic), {range} (ohms), {nplc}, {source} (trigger source), {channels} (comma list), {channel}.
 /// </summary>
-/// <param name="Function2Wire">Mnemonic filled into {function} for 2-wire resistance, e.g. "RES"; null when 2-wire is unsupported.</param>
+/// <param name="Function2Wire">Mnemonic filled into {function} for 2-wire resistance, e.g. "RES"; null when 2-wire is
+/// unsupported.</param>
 /// <param name="Function4Wire">Mnemonic for 4-wire resistance, e.g. "FRES"; null when 4-wire is unsupported.</param>
 /// <param name="Configure">Selects the function and range, e.g. "CONF:{function} {range}".</param>
 /// <param name="Range">Sets the range, e.g. "SENS:{function}:RANG {range}".</param>
@@ -18,7 +19,8 @@ namespace SortRig.Instruments.Profiles;
 /// <param name="ScannerClose">Closes scanner channels, e.g. "ROUT:CLOS (@{channels})"; optional.</param>
 /// <param name="ScannerOpen">Opens scanner channels; optional.</param>
 /// <param name="ScannerScan">Sets a scan list, e.g. "ROUT:SCAN (@{channels})"; optional.</param>
-/// <param name="TemperatureChannel">Reads a temperature channel in degC, e.g. "MEAS:TEMP? (@{channel})"; optional.</param>
+/// <param name="TemperatureChannel">Reads a temperature channel in degC, e.g. "MEAS:TEMP? (@{channel})";
+/// optional.</param>
 public sealed record MeterCommands(
     string? Function2Wire,
     string? Function4Wire,
@@ -34,4 +36,5 @@ public sealed record MeterCommands(
     CommandTemplate? ScannerClose,
     CommandTemplate? ScannerOpen,
     CommandTemplate? ScannerScan,
-    CommandTemplate? TemperatureChannel);
+    CommandTemplate? TemperatureChannel
+);

@@ -10,7 +10,12 @@ namespace SortRig.Instruments.Profiles;
 /// <param name="Terminator">Line terminator, "\n", "\r\n" or "\r".</param>
 /// <param name="QueryTimeout">Reply timeout for ordinary queries (reads add the integration time).</param>
 /// <param name="Serial">Default serial settings; null when the profile gives none (9600 8N1 then).</param>
-public sealed record MeterComms(IReadOnlyList<TransportKind> Transports, string Terminator, TimeSpan QueryTimeout, SerialSettings? Serial);
+public sealed record MeterComms(
+    IReadOnlyList<TransportKind> Transports,
+    string Terminator,
+    TimeSpan QueryTimeout,
+    SerialSettings? Serial
+);
 
 /// <summary>
 /// One meter family loaded from instruments/*.yaml: identity match, comms, metrology and commands.
@@ -29,14 +34,14 @@ public sealed record MeterProfile(
     MeterComms Comms,
     bool TwoWire,
     MeterSpec Spec,
-    MeterCommands Commands)
+    MeterCommands Commands
+)
 {
     /// <summary>True when <paramref name="model"/> (the *IDN? model field) belongs to this family.</summary>
     public bool MatchesModel(string model) => ModelPattern.IsMatch(model);
 
     /// <summary>The range whose full scale equals <paramref name="fullScale"/> within 1 ppm, or null.</summary>
-    public RangeSpec? FindRange(double fullScale) =>
-        Spec.Ranges.FirstOrDefault(r => SameValue(r.FullScale, fullScale));
+    public RangeSpec? FindRange(double fullScale) => Spec.Ranges.FirstOrDefault(r => SameValue(r.FullScale, fullScale));
 
     /// <summary>The NPLC setting equal to <paramref name="nplc"/> within 1 ppm, or null.</summary>
     public NplcSpec? FindNplc(double nplc) => Spec.Nplcs.FirstOrDefault(n => SameValue(n.Nplc, nplc));

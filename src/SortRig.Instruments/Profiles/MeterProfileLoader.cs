@@ -12,7 +12,17 @@ namespace SortRig.Instruments.Profiles;
 public static partial class MeterProfileLoader
 {
     private static readonly string[] s_keys =
-        ["family", "identity", "comms", "wiring", "range_change_settle_s", "over_range", "ranges", "nplc", "commands"];
+    [
+        "family",
+        "identity",
+        "comms",
+        "wiring",
+        "range_change_settle_s",
+        "over_range",
+        "ranges",
+        "nplc",
+        "commands",
+    ];
 
     /// <summary>Loads one profile file.</summary>
     /// <exception cref="ProfileException">The file is not a valid profile.</exception>
@@ -23,7 +33,9 @@ public static partial class MeterProfileLoader
     /// <exception cref="ProfileException">A file is invalid, or two files declare the same family.</exception>
     public static IReadOnlyList<MeterProfile> LoadAll(string directory)
     {
-        var files = Directory.EnumerateFiles(directory, "*.yaml").Concat(Directory.EnumerateFiles(directory, "*.yml"))
+        var files = Directory
+            .EnumerateFiles(directory, "*.yaml")
+            .Concat(Directory.EnumerateFiles(directory, "*.yml"))
             .Order(StringComparer.Ordinal);
         var profiles = new List<MeterProfile>();
         foreach (var file in files)
@@ -31,7 +43,14 @@ public static partial class MeterProfileLoader
             var profile = Load(file);
             if (profiles.Find(p => p.Family == profile.Family) is { } first)
             {
-                throw new ProfileException(file, 0, 0, "family", $"'{profile.Family}' is already declared by {first.SourcePath}", "a family name used by one file only");
+                throw new ProfileException(
+                    file,
+                    0,
+                    0,
+                    "family",
+                    $"'{profile.Family}' is already declared by {first.SourcePath}",
+                    "a family name used by one file only"
+                );
             }
 
             profiles.Add(profile);
@@ -53,7 +72,15 @@ public static partial class MeterProfileLoader
         }
         catch (YamlException ex)
         {
-            throw new ProfileException(file, (int)ex.Start.Line, (int)ex.Start.Column, string.Empty, $"YAML error: {ex.Message}", "well-formed YAML", ex);
+            throw new ProfileException(
+                file,
+                (int)ex.Start.Line,
+                (int)ex.Start.Column,
+                string.Empty,
+                $"YAML error: {ex.Message}",
+                "well-formed YAML",
+                ex
+            );
         }
         catch (Exception ex) when (ex is InvalidOperationException or ArgumentException)
         {
@@ -61,13 +88,27 @@ public static partial class MeterProfileLoader
             // InvalidOperationException; two aliases in a row, "a: *x *y", ArgumentException);
             // the last event it parsed tells where.
             var at = parser.Current?.End ?? Mark.Empty;
-            throw new ProfileException(file, (int)at.Line, (int)at.Column, string.Empty,
-                "YAML error: malformed text near this point (unclosed bracket or quote, or a misplaced alias?)", "well-formed YAML", ex);
+            throw new ProfileException(
+                file,
+                (int)at.Line,
+                (int)at.Column,
+                string.Empty,
+                "YAML error: malformed text near this point (unclosed bracket or quote, or a misplaced alias?)",
+                "well-formed YAML",
+                ex
+            );
         }
 
         if (stream.Documents.Count != 1)
         {
-            throw new ProfileException(file, 1, 1, string.Empty, $"has {stream.Documents.Count} YAML documents", "exactly one");
+            throw new ProfileException(
+                file,
+                1,
+                1,
+                string.Empty,
+                $"has {stream.Documents.Count} YAML documents",
+                "exactly one"
+            );
         }
 
         var root = new YamlField(stream.Documents[0].RootNode, file, string.Empty).AsMap(s_keys);
@@ -75,7 +116,10 @@ public static partial class MeterProfileLoader
         var family = familyField.AsString();
         if (!FamilyPattern().IsMatch(family))
         {
-            throw familyField.Error($"'{family}' is not a family name", "lower-case letters, digits and '-', e.g. bench-6half-lan");
+            throw familyField.Error(
+                $"'{family}' is not a family name",
+                "lower-case letters, digits and '-', e.g. bench-6half-lan"
+            );
         }
 
         var model = ReadModelPattern(root.Required("identity", "a mapping with the model pattern").AsMap("model"));
@@ -89,11 +133,17 @@ public static partial class MeterProfileLoader
             throw fourWireField.Error("and two_wire are both false", "at least one wiring supported");
         }
 
-        var settle = root.Required("range_change_settle_s", "seconds to wait after a range change").AsDouble(0, 60, " s");
+        var settle = root.Required("range_change_settle_s", "seconds to wait after a range change")
+            .AsDouble(0, 60, " s");
         var overRange = root.Required("over_range", "the over-range factor, e.g. 1.2").AsDouble(1.0, 2.0, "");
         var ranges = SpecSectionReader.ReadRanges(root.Required("ranges", "a list of ranges"), overRange);
         var nplcs = SpecSectionReader.ReadNplcs(root.Required("nplc", "a list of NPLC settings"));
-        var commands = CommandSectionReader.Read(root.Required("commands", "a mapping of command templates"), twoWire, fourWire, nplcs.Count);
+        var commands = CommandSectionReader.Read(
+            root.Required("commands", "a mapping of command templates"),
+            twoWire,
+            fourWire,
+            nplcs.Count
+        );
         var spec = new MeterSpec(family, ranges, nplcs, fourWire, TimeSpan.FromSeconds(settle));
         return new MeterProfile(family, file, model, comms, twoWire, spec, commands);
     }

@@ -13,8 +13,19 @@ public sealed class ProfileException : InstrumentException
     /// <param name="problem">What is wrong.</param>
     /// <param name="expected">What was expected instead.</param>
     /// <param name="innerException">The YAML parser fault, if any.</param>
-    public ProfileException(string file, int line, int column, string field, string problem, string expected, Exception? innerException = null)
-        : base($"{file}:{line}:{column}: {(field.Length == 0 ? "(document)" : field)}: {problem}; expected {expected}", innerException)
+    public ProfileException(
+        string file,
+        int line,
+        int column,
+        string field,
+        string problem,
+        string expected,
+        Exception? innerException = null
+    )
+        : base(
+            $"{file}:{line}:{column}: {(field.Length == 0 ? "(document)" : field)}: {problem}; expected {expected}",
+            innerException
+        )
     {
         File = file;
         Line = line;
@@ -33,7 +44,8 @@ public sealed class ProfileException : InstrumentException
     /// <summary>1-based column of the offending node.</summary>
     public int Column { get; }
 
-    /// <summary>Dotted path of the field, e.g. "ranges[2].accuracy_1y.range_pct"; empty for the whole document.</summary>
+    /// <summary>Dotted path of the field, e.g. "ranges[2].accuracy_1y.range_pct"; empty for the whole
+    /// document.</summary>
     public string Field { get; }
 
     /// <summary>What is wrong.</summary>

@@ -37,19 +37,34 @@ public static class ProfileLimits
             // A size of 0 that still yields data is a device or a pipe, not a profile file.
             throw info.Length == 0
                 ? new ProfileException(path, 1, 1, string.Empty, "is not a regular file", "a profile file (YAML)")
-                : new ProfileException(path, 1, 1, string.Empty, $"is over {MaxBytes} bytes", $"a profile of at most {MaxBytes} bytes");
+                : new ProfileException(
+                    path,
+                    1,
+                    1,
+                    string.Empty,
+                    $"is over {MaxBytes} bytes",
+                    $"a profile of at most {MaxBytes} bytes"
+                );
         }
 
         var bom = total >= 3 && buffer[0] == 0xEF && buffer[1] == 0xBB && buffer[2] == 0xBF ? 3 : 0;
         return Encoding.UTF8.GetString(buffer, bom, total - bom);
     }
 
-    /// <summary>Refuses text over <see cref="MaxBytes"/> or nested deeper than <see cref="MaxDepth"/>, naming where.</summary>
+    /// <summary>Refuses text over <see cref="MaxBytes"/> or nested deeper than <see cref="MaxDepth"/>, naming
+    /// where.</summary>
     public static void Check(string yaml, string file)
     {
         if (Encoding.UTF8.GetByteCount(yaml) > MaxBytes)
         {
-            throw new ProfileException(file, 1, 1, string.Empty, $"is over {MaxBytes} bytes", $"a profile of at most {MaxBytes} bytes");
+            throw new ProfileException(
+                file,
+                1,
+                1,
+                string.Empty,
+                $"is over {MaxBytes} bytes",
+                $"a profile of at most {MaxBytes} bytes"
+            );
         }
 
         // Only YamlDotNet's document model recurses; its event parser does not, so the depth is counted on events.
@@ -59,12 +74,23 @@ public static class ProfileLimits
         {
             while (parser.MoveNext())
             {
-                depth += parser.Current switch { MappingStart or SequenceStart => 1, MappingEnd or SequenceEnd => -1, _ => 0 };
+                depth += parser.Current switch
+                {
+                    MappingStart or SequenceStart => 1,
+                    MappingEnd or SequenceEnd => -1,
+                    _ => 0,
+                };
                 if (depth > MaxDepth)
                 {
                     var at = parser.Current!.Start;
-                    throw new ProfileException(file, (int)at.Line, (int)at.Column, string.Empty,
-                        $"nests more than {MaxDepth} levels", $"mappings and lists nested at most {MaxDepth} deep");
+                    throw new ProfileException(
+                        file,
+                        (int)at.Line,
+                        (int)at.Column,
+                        string.Empty,
+                        $"nests more than {MaxDepth} levels",
+                        $"mappings and lists nested at most {MaxDepth} deep"
+                    );
                 }
             }
         }

@@ -5,7 +5,14 @@ namespace SortRig.Instruments.Profiles;
 /// <summary>Reads the "ranges" and "nplc" lists of a profile, checking values and order.</summary>
 internal static class SpecSectionReader
 {
-    private static readonly string[] s_rangeKeys = ["full_scale", "over_range", "accuracy_24h", "accuracy_1y", "test_current_a"];
+    private static readonly string[] s_rangeKeys =
+    [
+        "full_scale",
+        "over_range",
+        "accuracy_24h",
+        "accuracy_1y",
+        "test_current_a",
+    ];
     private static readonly string[] s_accuracyKeys = ["reading_pct", "range_pct"];
     private static readonly string[] s_nplcKeys = ["nplc", "digits", "resolution_ppm", "readings_per_s", "noise_ppm"];
 
@@ -19,19 +26,28 @@ internal static class SpecSectionReader
             var fullScale = fullScaleField.AsDouble(1e-3, 1e12, " ohm");
             if (ranges.Count > 0 && fullScale <= ranges[^1].FullScale)
             {
-                throw fullScaleField.Error($"{fullScale} ohm does not follow {ranges[^1].FullScale} ohm", "ranges in ascending order of full_scale, each once");
+                throw fullScaleField.Error(
+                    $"{fullScale} ohm does not follow {ranges[^1].FullScale} ohm",
+                    "ranges in ascending order of full_scale, each once"
+                );
             }
 
             var overRange = map.Optional("over_range")?.AsDouble(1.0, 2.0, "") ?? defaultOverRange;
-            var day = ReadAccuracy(map.Required("accuracy_24h", "reading_pct and range_pct within 24 h of calibration"));
+            var day = ReadAccuracy(
+                map.Required("accuracy_24h", "reading_pct and range_pct within 24 h of calibration")
+            );
             var yearField = map.Required("accuracy_1y", "reading_pct and range_pct within one year of calibration");
             var year = ReadAccuracy(yearField);
             if (day.PercentOfReading > year.PercentOfReading || day.PercentOfRange > year.PercentOfRange)
             {
-                throw yearField.Error("is tighter than accuracy_24h", "each 1-year term at least as large as the 24 h term");
+                throw yearField.Error(
+                    "is tighter than accuracy_24h",
+                    "each 1-year term at least as large as the 24 h term"
+                );
             }
 
-            var current = map.Required("test_current_a", "the source current in amperes (0 when unknown)").AsDouble(0, 1, " A");
+            var current = map.Required("test_current_a", "the source current in amperes (0 when unknown)")
+                .AsDouble(0, 1, " A");
             ranges.Add(new RangeSpec(fullScale, overRange, day, year, current));
         }
 
@@ -48,15 +64,21 @@ internal static class SpecSectionReader
             var nplc = nplcField.AsDouble(1e-4, 1000, " PLC");
             if (settings.Count > 0 && nplc <= settings[^1].Nplc)
             {
-                throw nplcField.Error($"{nplc} does not follow {settings[^1].Nplc}", "NPLC settings in ascending order, each once");
+                throw nplcField.Error(
+                    $"{nplc} does not follow {settings[^1].Nplc}",
+                    "NPLC settings in ascending order, each once"
+                );
             }
 
-            settings.Add(new NplcSpec(
-                nplc,
-                map.Required("digits", "displayed digits, e.g. 6.5").AsDouble(2.5, 9.5, " digits"),
-                map.Required("resolution_ppm", "the resolution in ppm of range").AsDouble(1e-4, 1e5, " ppm"),
-                map.Required("readings_per_s", "readings per second with autozero on").AsDouble(1e-3, 1e6, "/s"),
-                map.Required("noise_ppm", "rms noise in ppm of range (0 when unknown)").AsDouble(0, 1e5, " ppm")));
+            settings.Add(
+                new NplcSpec(
+                    nplc,
+                    map.Required("digits", "displayed digits, e.g. 6.5").AsDouble(2.5, 9.5, " digits"),
+                    map.Required("resolution_ppm", "the resolution in ppm of range").AsDouble(1e-4, 1e5, " ppm"),
+                    map.Required("readings_per_s", "readings per second with autozero on").AsDouble(1e-3, 1e6, "/s"),
+                    map.Required("noise_ppm", "rms noise in ppm of range (0 when unknown)").AsDouble(0, 1e5, " ppm")
+                )
+            );
         }
 
         return settings;
@@ -67,6 +89,7 @@ internal static class SpecSectionReader
         var map = field.AsMap(s_accuracyKeys);
         return new AccuracySpec(
             map.Required("reading_pct", "the gain term in % of reading").AsDouble(0, 10, " %"),
-            map.Required("range_pct", "the offset term in % of range").AsDouble(0, 10, " %"));
+            map.Required("range_pct", "the offset term in % of range").AsDouble(0, 10, " %")
+        );
     }
 }

@@ -10,9 +10,10 @@ internal readonly record struct YamlField(YamlNode Node, string File, string Pat
     public ProfileException Error(string problem, string expected) =>
         new(File, (int)Node.Start.Line, (int)Node.Start.Column, Path, problem, expected);
 
-    public YamlMap AsMap(params string[] allowedKeys) => Node is YamlMappingNode map
-        ? new YamlMap(map, File, Path, allowedKeys)
-        : throw Error($"is {Describe()}", "a mapping of key: value lines");
+    public YamlMap AsMap(params string[] allowedKeys) =>
+        Node is YamlMappingNode map
+            ? new YamlMap(map, File, Path, allowedKeys)
+            : throw Error($"is {Describe()}", "a mapping of key: value lines");
 
     public IReadOnlyList<YamlField> AsList(int minCount)
     {
@@ -41,9 +42,11 @@ internal readonly record struct YamlField(YamlNode Node, string File, string Pat
     {
         var expected = $"a number {Format(min)} to {Format(max)}{unit}";
         var scalar = Scalar(expected);
-        if (scalar.Style != ScalarStyle.Plain
+        if (
+            scalar.Style != ScalarStyle.Plain
             || !double.TryParse(scalar.Value, NumberStyles.Float, CultureInfo.InvariantCulture, out var value)
-            || !double.IsFinite(value))
+            || !double.IsFinite(value)
+        )
         {
             throw Error($"'{scalar.Value}' is not a number", expected);
         }
@@ -54,7 +57,9 @@ internal readonly record struct YamlField(YamlNode Node, string File, string Pat
     public int AsInt(int min, int max, string unit)
     {
         var value = AsDouble(min, max, unit);
-        return value == Math.Floor(value) ? (int)value : throw Error($"{Format(value)} is not a whole number", $"a whole number {min} to {max}{unit}");
+        return value == Math.Floor(value)
+            ? (int)value
+            : throw Error($"{Format(value)} is not a whole number", $"a whole number {min} to {max}{unit}");
     }
 
     public bool AsBool()
@@ -68,13 +73,14 @@ internal readonly record struct YamlField(YamlNode Node, string File, string Pat
     private YamlScalarNode Scalar(string expected) =>
         Node as YamlScalarNode ?? throw Error($"is {Describe()}", expected);
 
-    private string Describe() => Node switch
-    {
-        YamlMappingNode => "a mapping",
-        YamlSequenceNode => "a list",
-        YamlScalarNode s => $"'{s.Value}'",
-        _ => "an alias",
-    };
+    private string Describe() =>
+        Node switch
+        {
+            YamlMappingNode => "a mapping",
+            YamlSequenceNode => "a list",
+            YamlScalarNode s => $"'{s.Value}'",
+            _ => "an alias",
+        };
 
     private static string Format(double v) => v.ToString("G6", CultureInfo.InvariantCulture);
 }

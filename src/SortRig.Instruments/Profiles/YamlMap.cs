@@ -21,7 +21,10 @@ internal sealed class YamlMap
             var field = new YamlField(valueNode, file, path.Length == 0 ? key : $"{path}.{key}");
             if (!allowedKeys.Contains(key))
             {
-                throw new YamlField(keyNode, file, field.Path).Error($"unknown key '{key}'", $"one of {string.Join(", ", allowedKeys)}");
+                throw new YamlField(keyNode, file, field.Path).Error(
+                    $"unknown key '{key}'",
+                    $"one of {string.Join(", ", allowedKeys)}"
+                );
             }
 
             _fields[key] = field;
@@ -35,6 +38,12 @@ internal sealed class YamlMap
     public YamlField Required(string key, string expected) =>
         _fields.TryGetValue(key, out var f)
             ? f
-            : throw new ProfileException(_file, (int)_node.Start.Line, (int)_node.Start.Column,
-                _path.Length == 0 ? key : $"{_path}.{key}", "is missing", expected);
+            : throw new ProfileException(
+                _file,
+                (int)_node.Start.Line,
+                (int)_node.Start.Column,
+                _path.Length == 0 ? key : $"{_path}.{key}",
+                "is missing",
+                expected
+            );
 }

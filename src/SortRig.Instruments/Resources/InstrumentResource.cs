@@ -21,7 +21,8 @@ public enum TransportKind
     /// <summary>VISA USB::vid::pid::serial::INSTR: parsed, but open it as USBTMC::/dev/usbtmcN::INSTR.</summary>
     UsbInstr = 5,
 
-    /// <summary>No link: the operator types the display of a hand-held meter (our TYPED::profile::INSTR form).</summary>
+    /// <summary>No link: the operator types the display of a hand-held meter (our TYPED::profile::INSTR
+    /// form).</summary>
     Typed = 6,
 }
 
@@ -43,7 +44,8 @@ public sealed record TcpSocketResource(string Text, int Board, string Host, int 
 }
 
 /// <summary>TCPIP[board]::host[::lan device name]::INSTR — parsed, not supported (needs VXI-11).</summary>
-public sealed record VxiInstrumentResource(string Text, int Board, string Host, string DeviceName) : InstrumentResource(Text)
+public sealed record VxiInstrumentResource(string Text, int Board, string Host, string DeviceName)
+    : InstrumentResource(Text)
 {
     /// <inheritdoc/>
     public override TransportKind Transport => TransportKind.Vxi11;
@@ -54,15 +56,23 @@ public sealed record VxiInstrumentResource(string Text, int Board, string Host, 
 /// <param name="Board">The VISA board number, or null when a device path was given.</param>
 /// <param name="DevicePath">Device file: the path given, or /dev/ttyS(board-1) for ASRLn.</param>
 /// <param name="Settings">Serial settings given in the string; the rest come from the profile or defaults.</param>
-public sealed record SerialResource(string Text, int? Board, string DevicePath, SerialOverrides Settings) : InstrumentResource(Text)
+public sealed record SerialResource(string Text, int? Board, string DevicePath, SerialOverrides Settings)
+    : InstrumentResource(Text)
 {
     /// <inheritdoc/>
     public override TransportKind Transport => TransportKind.Serial;
 }
 
-/// <summary>USB[board]::vid::pid::serial[::interface]::INSTR — parsed; open it through USBTMC::/dev/usbtmcN::INSTR.</summary>
-public sealed record UsbInstrumentResource(string Text, int Board, int VendorId, int ProductId, string SerialNumber, int? Interface)
-    : InstrumentResource(Text)
+/// <summary>USB[board]::vid::pid::serial[::interface]::INSTR — parsed; open it through
+/// USBTMC::/dev/usbtmcN::INSTR.</summary>
+public sealed record UsbInstrumentResource(
+    string Text,
+    int Board,
+    int VendorId,
+    int ProductId,
+    string SerialNumber,
+    int? Interface
+) : InstrumentResource(Text)
 {
     /// <inheritdoc/>
     public override TransportKind Transport => TransportKind.UsbInstr;

@@ -52,7 +52,8 @@ internal sealed class ResourceParts
         return new ResourceParts(text, parts, query < 0 ? null : text[(query + 1)..], query + 1);
     }
 
-    /// <summary>Part by 0-based index, or an empty part where the address ends (before any '?') when it is missing.</summary>
+    /// <summary>Part by 0-based index, or an empty part where the address ends (before any '?') when it is
+    /// missing.</summary>
     public (string Value, int Offset) At(int index) =>
         index < Parts.Count ? Parts[index] : (string.Empty, Options is null ? Text.Length : OptionsOffset - 1);
 

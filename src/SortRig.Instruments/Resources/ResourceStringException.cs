@@ -8,14 +8,22 @@ public sealed class ResourceStringException : InstrumentException
 {
     /// <summary>Creates the exception; the message reads "TEXT: part N 'PART' PROBLEM".</summary>
     /// <param name="resource">The whole resource string as given.</param>
-    /// <param name="partNumber">1-based number of the offending part (or of the option, when <paramref name="isOption"/>); 0 for the whole string.</param>
+    /// <param name="partNumber">1-based number of the offending part (or of the option, when <paramref
+    /// name="isOption"/>); 0 for the whole string.</param>
     /// <param name="partText">The offending part's text.</param>
     /// <param name="offset">Character offset of the part in <paramref name="resource"/>.</param>
     /// <param name="problem">What is wrong, e.g. "is not a port number 1-65535".</param>
     /// <param name="expected">What was expected, e.g. "a port number 1-65535".</param>
     /// <param name="isOption">True when the part is a serial option after '?'.</param>
     public ResourceStringException(
-        string resource, int partNumber, string partText, int offset, string problem, string expected, bool isOption = false)
+        string resource,
+        int partNumber,
+        string partText,
+        int offset,
+        string problem,
+        string expected,
+        bool isOption = false
+    )
         : base($"{resource}: {(isOption ? "option" : "part")} {partNumber} '{partText}' {problem}")
     {
         Resource = resource;

@@ -45,7 +45,11 @@ public static partial class ResourceStringParser
 
             return board >= 1
                 ? new SerialResource(parts.Text, board, $"/dev/ttyS{board - 1}", settings)
-                : throw parts.Error(0, "has no device: serial boards count from 1 (ASRL1 is /dev/ttyS0)", "ASRL1 or higher");
+                : throw parts.Error(
+                    0,
+                    "has no device: serial boards count from 1 (ASRL1 is /dev/ttyS0)",
+                    "ASRL1 or higher"
+                );
         }
 
         return new SerialResource(parts.Text, null, DevicePath(parts, 1, body), settings);
@@ -56,7 +60,11 @@ public static partial class ResourceStringParser
         if (body is < 3 or > 4)
         {
             throw body < 3
-                ? parts.Error(body + 1, $"is where the {s_usbFields[body]} should be: USB[n]::vid::pid::serial[::interface]::INSTR", s_usbFields[body])
+                ? parts.Error(
+                    body + 1,
+                    $"is where the {s_usbFields[body]} should be: USB[n]::vid::pid::serial[::interface]::INSTR",
+                    s_usbFields[body]
+                )
                 : parts.Error(5, "is unexpected after the interface number", "'INSTR'");
         }
 
@@ -68,11 +76,13 @@ public static partial class ResourceStringParser
             throw parts.IsNot(3, "a serial number");
         }
 
-        int? intfc = body == 4
-            ? int.TryParse(parts.At(4).Value, NumberStyles.None, CultureInfo.InvariantCulture, out var n) && n <= 255
-                ? n
-                : throw parts.IsNot(4, "a USB interface number 0-255")
-            : null;
+        int? intfc =
+            body == 4
+                ? int.TryParse(parts.At(4).Value, NumberStyles.None, CultureInfo.InvariantCulture, out var n)
+                && n <= 255
+                    ? n
+                    : throw parts.IsNot(4, "a USB interface number 0-255")
+                : null;
         return new UsbInstrumentResource(parts.Text, board, vid, pid, serial, intfc);
     }
 
@@ -84,11 +94,14 @@ public static partial class ResourceStringParser
             return host[1..^1];
         }
 
-        return HostPattern().IsMatch(host) && !IsClass(host) ? host : throw parts.IsNot(index, "a host name or IP address");
+        return HostPattern().IsMatch(host) && !IsClass(host)
+            ? host
+            : throw parts.IsNot(index, "a host name or IP address");
     }
 
     private static int Port(ResourceParts parts, int index) =>
-        int.TryParse(parts.At(index).Value, NumberStyles.None, CultureInfo.InvariantCulture, out var port) && port is >= 1 and <= 65535
+        int.TryParse(parts.At(index).Value, NumberStyles.None, CultureInfo.InvariantCulture, out var port)
+        && port is >= 1 and <= 65535
             ? port
             : throw parts.IsNot(index, "a port number 1-65535");
 
@@ -113,7 +126,9 @@ public static partial class ResourceStringParser
         }
 
         var path = parts.At(index).Value;
-        return path.StartsWith('/') && path.Length > 1 ? path : throw parts.IsNot(index, "a device path starting with '/'");
+        return path.StartsWith('/') && path.Length > 1
+            ? path
+            : throw parts.IsNot(index, "a device path starting with '/'");
     }
 
     private static string SimulatorName(ResourceParts parts, int index, int body)
@@ -123,6 +138,8 @@ public static partial class ResourceStringParser
             throw parts.Error(index + 1, "is unexpected after the simulator name", "'INSTR'");
         }
 
-        return NamePattern().IsMatch(parts.At(index).Value) ? parts.At(index).Value : throw parts.IsNot(index, "a simulator name of letters, digits, '-', '_' or '.'");
+        return NamePattern().IsMatch(parts.At(index).Value)
+            ? parts.At(index).Value
+            : throw parts.IsNot(index, "a simulator name of letters, digits, '-', '_' or '.'");
     }
 }

@@ -2,7 +2,8 @@ namespace SortRig.Instruments.Resources;
 
 public static partial class ResourceStringParser
 {
-    /// <summary>True when <paramref name="text"/> is a TYPED resource (keyword only; the rest is checked by <see cref="Parse"/>).</summary>
+    /// <summary>True when <paramref name="text"/> is a TYPED resource (keyword only; the rest is checked by <see
+    /// cref="Parse"/>).</summary>
     public static bool IsTyped(string? text) =>
         text is not null && text.TrimStart().StartsWith("TYPED::", StringComparison.OrdinalIgnoreCase);
 

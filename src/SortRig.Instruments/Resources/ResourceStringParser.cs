@@ -6,7 +6,8 @@ namespace SortRig.Instruments.Resources;
 /// <summary>
 /// Parses VISA resource strings (IVI VPP-4.3 address grammar, keywords case-insensitive) and our
 /// extensions: ASRL::/dev/path::INSTR, USBTMC::/dev/usbtmcN::INSTR, SIM::name::INSTR,
-/// TCPIP::host::SOCKET (port 5025), TYPED::profile::INSTR (values typed by the operator) and "?baud=..&amp;.." serial options. See docs/instruments.md.
+/// TCPIP::host::SOCKET (port 5025), TYPED::profile::INSTR (values typed by the operator) and "?baud=..&amp;.." serial
+/// options. See docs/instruments.md.
 /// </summary>
 public static partial class ResourceStringParser
 {
@@ -15,7 +16,8 @@ public static partial class ResourceStringParser
     private const string InterfaceKeywords = "TCPIP[n], ASRL[n], USB[n], USBTMC, SIM or TYPED";
 
     /// <summary>Parses <paramref name="text"/> (surrounding white space ignored).</summary>
-    /// <exception cref="ResourceStringException">The string is malformed; names the part and what was expected.</exception>
+    /// <exception cref="ResourceStringException">The string is malformed; names the part and what was
+    /// expected.</exception>
     public static InstrumentResource Parse(string text)
     {
         ArgumentNullException.ThrowIfNull(text);
@@ -30,9 +32,11 @@ public static partial class ResourceStringParser
         int? board = null;
         if (head.Groups[2].Length > 0)
         {
-            board = int.TryParse(head.Groups[2].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var b) && b <= 999
-                ? b
-                : throw parts.IsNot(0, "an interface keyword with a board number 0-999");
+            board =
+                int.TryParse(head.Groups[2].Value, NumberStyles.None, CultureInfo.InvariantCulture, out var b)
+                && b <= 999
+                    ? b
+                    : throw parts.IsNot(0, "an interface keyword with a board number 0-999");
         }
 
         var last = parts.Parts.Count - 1;
@@ -40,8 +44,15 @@ public static partial class ResourceStringParser
         var body = resourceClass is null ? last : last - 1;
         if (parts.Options is not null && keyword != "ASRL")
         {
-            throw new ResourceStringException(parts.Text, 1, parts.Options, parts.OptionsOffset,
-                "is not allowed: serial options follow ASRL resources only", "no '?' options", isOption: true);
+            throw new ResourceStringException(
+                parts.Text,
+                1,
+                parts.Options,
+                parts.OptionsOffset,
+                "is not allowed: serial options follow ASRL resources only",
+                "no '?' options",
+                isOption: true
+            );
         }
 
         if (resourceClass == "SOCKET" && keyword != "TCPIP")
@@ -61,9 +72,13 @@ public static partial class ResourceStringParser
     }
 
     private static bool IsClass(string part) =>
-        part.Equals("INSTR", StringComparison.OrdinalIgnoreCase) || part.Equals("SOCKET", StringComparison.OrdinalIgnoreCase);
+        part.Equals("INSTR", StringComparison.OrdinalIgnoreCase)
+        || part.Equals("SOCKET", StringComparison.OrdinalIgnoreCase);
 
-    [GeneratedRegex("^(TCPIP|ASRL|USBTMC|USB|SIM|TYPED)([0-9]*)$", RegexOptions.IgnoreCase | RegexOptions.CultureInvariant)]
+    [GeneratedRegex(
+        "^(TCPIP|ASRL|USBTMC|USB|SIM|TYPED)([0-9]*)$",
+        RegexOptions.IgnoreCase | RegexOptions.CultureInvariant
+    )]
     private static partial Regex InterfacePattern();
 
     [GeneratedRegex("^[A-Za-z0-9](?:[A-Za-z0-9._-]*[A-Za-z0-9])?$", RegexOptions.CultureInvariant)]

@@ -32,12 +32,23 @@ internal static class SerialOptionParser
                 new(parts.Text, i + 1, item, offset, $"is not {expected}", expected, isOption: true);
             if (!seen.Add(key))
             {
-                throw new ResourceStringException(parts.Text, i + 1, item, offset, "repeats an option given before", "each option once", isOption: true);
+                throw new ResourceStringException(
+                    parts.Text,
+                    i + 1,
+                    item,
+                    offset,
+                    "repeats an option given before",
+                    "each option once",
+                    isOption: true
+                );
             }
 
             result = key.ToLowerInvariant() switch
             {
-                "baud" => result with { BaudRate = Int(value, 50, 4_000_000) ?? throw Bad("baud=<bits per second 50-4000000>") },
+                "baud" => result with
+                {
+                    BaudRate = Int(value, 50, 4_000_000) ?? throw Bad("baud=<bits per second 50-4000000>"),
+                },
                 "parity" => result with { Parity = ParseParity(value) ?? throw Bad("parity=none|odd|even|mark|space") },
                 "data" => result with { DataBits = Int(value, 5, 8) ?? throw Bad("data=5|6|7|8") },
                 "stop" => result with { StopBits = ParseStop(value) ?? throw Bad("stop=1|1.5|2") },
@@ -51,32 +62,37 @@ internal static class SerialOptionParser
     }
 
     private static int? Int(string text, int min, int max) =>
-        int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var v) && v >= min && v <= max ? v : null;
+        int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out var v) && v >= min && v <= max
+            ? v
+            : null;
 
-    private static Parity? ParseParity(string v) => v switch
-    {
-        "none" => Parity.None,
-        "odd" => Parity.Odd,
-        "even" => Parity.Even,
-        "mark" => Parity.Mark,
-        "space" => Parity.Space,
-        _ => null,
-    };
+    private static Parity? ParseParity(string v) =>
+        v switch
+        {
+            "none" => Parity.None,
+            "odd" => Parity.Odd,
+            "even" => Parity.Even,
+            "mark" => Parity.Mark,
+            "space" => Parity.Space,
+            _ => null,
+        };
 
-    private static StopBits? ParseStop(string v) => v switch
-    {
-        "1" => StopBits.One,
-        "1.5" => StopBits.OnePointFive,
-        "2" => StopBits.Two,
-        _ => null,
-    };
+    private static StopBits? ParseStop(string v) =>
+        v switch
+        {
+            "1" => StopBits.One,
+            "1.5" => StopBits.OnePointFive,
+            "2" => StopBits.Two,
+            _ => null,
+        };
 
-    private static Handshake? ParseFlow(string v) => v switch
-    {
-        "none" => Handshake.None,
-        "rts" => Handshake.RequestToSend,
-        "xon" => Handshake.XOnXOff,
-        "rts-xon" => Handshake.RequestToSendXOnXOff,
-        _ => null,
-    };
+    private static Handshake? ParseFlow(string v) =>
+        v switch
+        {
+            "none" => Handshake.None,
+            "rts" => Handshake.RequestToSend,
+            "xon" => Handshake.XOnXOff,
+            "rts-xon" => Handshake.RequestToSendXOnXOff,
+            _ => null,
+        };
 }

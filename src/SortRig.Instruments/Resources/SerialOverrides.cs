@@ -12,16 +12,19 @@ public sealed record SerialOverrides(
     Parity? Parity = null,
     int? DataBits = null,
     StopBits? StopBits = null,
-    Handshake? Handshake = null)
+    Handshake? Handshake = null
+)
 {
     /// <summary>No explicit settings.</summary>
     public static SerialOverrides None { get; } = new();
 
     /// <summary>Fills the missing fields from <paramref name="defaults"/>, validating the result.</summary>
-    public SerialSettings ApplyTo(SerialSettings defaults) => new(
-        BaudRate ?? defaults.BaudRate,
-        Parity ?? defaults.Parity,
-        DataBits ?? defaults.DataBits,
-        StopBits ?? defaults.StopBits,
-        Handshake ?? defaults.Handshake);
+    public SerialSettings ApplyTo(SerialSettings defaults) =>
+        new(
+            BaudRate ?? defaults.BaudRate,
+            Parity ?? defaults.Parity,
+            DataBits ?? defaults.DataBits,
+            StopBits ?? defaults.StopBits,
+            Handshake ?? defaults.Handshake
+        );
 }

@@ -13,7 +13,11 @@ public sealed record InstrumentIdentity(string Manufacturer, string Model, strin
         var fields = reply.Split(',', 4, StringSplitOptions.TrimEntries);
         if (fields.Length < 4 || fields[1].Length == 0)
         {
-            throw new ScpiResponseException(command, reply, "four comma-separated fields: manufacturer,model,serial,firmware");
+            throw new ScpiResponseException(
+                command,
+                reply,
+                "four comma-separated fields: manufacturer,model,serial,firmware"
+            );
         }
 
         return new InstrumentIdentity(fields[0], fields[1], fields[2], fields[3]);

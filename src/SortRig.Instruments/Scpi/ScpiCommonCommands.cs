@@ -18,11 +18,16 @@ public static class ScpiCommonCommands
     }
 
     /// <summary>*CLS — clears the status registers and the error queue (sec. 10.3).</summary>
-    public static Task ClearStatusAsync(this ScpiSession session, CancellationToken ct) => session.WriteAsync("*CLS", ct);
+    public static Task ClearStatusAsync(this ScpiSession session, CancellationToken ct) =>
+        session.WriteAsync("*CLS", ct);
 
     /// <summary>*OPC? — waits until pending operations finish; the instrument answers "1" (sec. 10.19).</summary>
     /// <exception cref="ScpiResponseException">The reply is not 1.</exception>
-    public static async Task WaitOperationCompleteAsync(this ScpiSession session, TimeSpan timeout, CancellationToken ct)
+    public static async Task WaitOperationCompleteAsync(
+        this ScpiSession session,
+        TimeSpan timeout,
+        CancellationToken ct
+    )
     {
         var reply = await session.QueryAsync("*OPC?", timeout, ct).ConfigureAwait(false);
         if (!ScpiNumber.TryParse(reply, out var n) || n.Value != 1)

@@ -46,13 +46,14 @@ public sealed record ScpiError(int Code, string Message)
     public ScpiErrorClass Class => Classify(Code);
 
     /// <summary>Maps a code to its SCPI-99 class.</summary>
-    public static ScpiErrorClass Classify(int code) => code switch
-    {
-        0 => ScpiErrorClass.None,
-        > 0 => ScpiErrorClass.DeviceDefined,
-        <= -100 and >= -899 => (ScpiErrorClass)(-code / 100),
-        _ => ScpiErrorClass.Reserved,
-    };
+    public static ScpiErrorClass Classify(int code) =>
+        code switch
+        {
+            0 => ScpiErrorClass.None,
+            > 0 => ScpiErrorClass.DeviceDefined,
+            <= -100 and >= -899 => (ScpiErrorClass)(-code / 100),
+            _ => ScpiErrorClass.Reserved,
+        };
 
     /// <summary>
     /// Parses a SYST:ERR? reply of the form <c>-113,"Undefined header"</c> (SCPI-99 vol. 2 sec. 21.8;
@@ -63,8 +64,11 @@ public sealed record ScpiError(int Code, string Message)
     {
         var comma = reply.IndexOf(',', StringComparison.Ordinal);
         var codeText = comma < 0 ? reply : reply[..comma];
-        if (!ScpiNumber.TryParse(codeText, out var number) || number.Format != ScpiNumberFormat.NR1
-            || number.Value is < int.MinValue or > int.MaxValue)
+        if (
+            !ScpiNumber.TryParse(codeText, out var number)
+            || number.Format != ScpiNumberFormat.NR1
+            || number.Value is < int.MinValue or > int.MaxValue
+        )
         {
             throw new ScpiResponseException(command, reply, "an error entry <code>,\"<text>\" with an integer code");
         }

@@ -37,7 +37,9 @@ public sealed class ScpiInstrumentException : InstrumentException
 
     private static string Describe(int code, string message, string command, IReadOnlyList<ScpiError>? errors)
     {
-        var more = errors is { Count: > 1 } ? $" (+{errors.Count - 1} more: {string.Join("; ", errors.Skip(1))})" : string.Empty;
+        var more = errors is { Count: > 1 }
+            ? $" (+{errors.Count - 1} more: {string.Join("; ", errors.Skip(1))})"
+            : string.Empty;
         return $"instrument {ScpiError.Classify(code)} error {code},\"{message}\" after '{command}'{more}";
     }
 }

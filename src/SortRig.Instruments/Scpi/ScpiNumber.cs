@@ -45,7 +45,9 @@ public readonly record struct ScpiNumber(double Value, ScpiNumberFormat Format)
     /// <summary>Parses <paramref name="text"/>; leading and trailing white space is ignored.</summary>
     /// <exception cref="FormatException">The text is not an NR1, NR2 or NR3 number.</exception>
     public static ScpiNumber Parse(string text) =>
-        TryParse(text, out var n) ? n : throw new FormatException($"'{text}' is not an IEEE 488.2 decimal number (NR1, NR2 or NR3)");
+        TryParse(text, out var n)
+            ? n
+            : throw new FormatException($"'{text}' is not an IEEE 488.2 decimal number (NR1, NR2 or NR3)");
 
     /// <summary>Parses <paramref name="text"/> without throwing.</summary>
     public static bool TryParse(ReadOnlySpan<char> text, out ScpiNumber number)
@@ -98,9 +100,11 @@ public readonly record struct ScpiNumber(double Value, ScpiNumberFormat Format)
             format = ScpiNumberFormat.NR3;
         }
 
-        if (i != s.Length
+        if (
+            i != s.Length
             || !double.TryParse(compact[..n], NumberStyles.Float, CultureInfo.InvariantCulture, out var value)
-            || !double.IsFinite(value))
+            || !double.IsFinite(value)
+        )
         {
             return false;
         }

@@ -5,7 +5,12 @@ namespace SortRig.Instruments.Scpi;
 /// <summary>One exchange on the link: owed replies first, then write, then read; faults break the session.</summary>
 public sealed partial class ScpiSession : IAsyncDisposable
 {
-    private async Task<string?> ExchangeLockedAsync(string command, TimeSpan? replyTimeout, CancellationToken ct, bool track = true)
+    private async Task<string?> ExchangeLockedAsync(
+        string command,
+        TimeSpan? replyTimeout,
+        CancellationToken ct,
+        bool track = true
+    )
     {
         var written = false;
         if (_brokenBecause is not null)

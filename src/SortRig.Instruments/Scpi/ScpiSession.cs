@@ -24,7 +24,12 @@ public sealed partial class ScpiSession : IAsyncDisposable
     /// <param name="options">Timeouts and error-queue cap; default <see cref="ScpiSessionOptions.Default"/>.</param>
     /// <param name="time">Clock for elapsed times; default system.</param>
     /// <param name="logger">Receives every exchange at Debug level.</param>
-    public ScpiSession(IMessageLink link, ScpiSessionOptions? options = null, TimeProvider? time = null, ILogger? logger = null)
+    public ScpiSession(
+        IMessageLink link,
+        ScpiSessionOptions? options = null,
+        TimeProvider? time = null,
+        ILogger? logger = null
+    )
     {
         _link = link ?? throw new ArgumentNullException(nameof(link));
         Options = options ?? ScpiSessionOptions.Default;
@@ -56,8 +61,10 @@ public sealed partial class ScpiSession : IAsyncDisposable
     }
 
     /// <summary>Sends a query and returns its reply line, waiting up to the session's query timeout.</summary>
-    /// <exception cref="InstrumentTimeoutException">No reply in time (session then broken); carries the command and timeout.</exception>
-    public Task<string> QueryAsync(string command, CancellationToken ct) => QueryAsync(command, Options.QueryTimeout, ct);
+    /// <exception cref="InstrumentTimeoutException">No reply in time (session then broken); carries the command and
+    /// timeout.</exception>
+    public Task<string> QueryAsync(string command, CancellationToken ct) =>
+        QueryAsync(command, Options.QueryTimeout, ct);
 
     /// <summary>Sends a query and returns its reply line, waiting up to <paramref name="timeout"/>.</summary>
     public async Task<string> QueryAsync(string command, TimeSpan timeout, CancellationToken ct)
@@ -88,7 +95,11 @@ public sealed partial class ScpiSession : IAsyncDisposable
     }
 
     /// <summary>Sends a query whose reply is a comma-separated list of numbers.</summary>
-    public async Task<IReadOnlyList<ScpiNumber>> QueryNumbersAsync(string command, TimeSpan timeout, CancellationToken ct)
+    public async Task<IReadOnlyList<ScpiNumber>> QueryNumbersAsync(
+        string command,
+        TimeSpan timeout,
+        CancellationToken ct
+    )
     {
         var reply = await QueryAsync(command, timeout, ct).ConfigureAwait(false);
         var fields = reply.Split(',');
@@ -97,7 +108,11 @@ public sealed partial class ScpiSession : IAsyncDisposable
         {
             numbers[i] = ScpiNumber.TryParse(fields[i], out var n)
                 ? n
-                : throw new ScpiResponseException(command, reply, $"a comma-separated list of numbers (item {i + 1} '{fields[i]}' is not one)");
+                : throw new ScpiResponseException(
+                    command,
+                    reply,
+                    $"a comma-separated list of numbers (item {i + 1} '{fields[i]}' is not one)"
+                );
         }
 
         return numbers;
@@ -107,7 +122,8 @@ public sealed partial class ScpiSession : IAsyncDisposable
     /// Reads the error queue until it reports 0 (at most <see cref="ScpiSessionOptions.MaxErrorQueueReads"/>
     /// reads) and throws if it held any error. Closes the current command group.
     /// </summary>
-    /// <exception cref="ScpiInstrumentException">The queue held errors; the first is reported with the group's commands.</exception>
+    /// <exception cref="ScpiInstrumentException">The queue held errors; the first is reported with the group's
+    /// commands.</exception>
     public async Task CheckErrorsAsync(CancellationToken ct)
     {
         var (errors, group) = await DrainErrorsAsync(ct).ConfigureAwait(false);
@@ -129,7 +145,10 @@ public sealed partial class ScpiSession : IAsyncDisposable
             for (var i = 0; i < Options.MaxErrorQueueReads; i++)
             {
                 var query = Options.ErrorQueryCommand;
-                var error = ScpiError.Parse((await ExchangeLockedAsync(query, Options.QueryTimeout, ct, track: false).ConfigureAwait(false))!, query);
+                var error = ScpiError.Parse(
+                    (await ExchangeLockedAsync(query, Options.QueryTimeout, ct, track: false).ConfigureAwait(false))!,
+                    query
+                );
                 if (error.Code == 0)
                 {
                     break;

@@ -14,20 +14,34 @@ public sealed class ScpiSessionOptions
     public ScpiSessionOptions(
         TimeSpan? queryTimeout = null,
         int maxErrorQueueReads = 32,
-        string errorQueryCommand = "SYST:ERR?")
+        string errorQueryCommand = "SYST:ERR?"
+    )
     {
         QueryTimeout = queryTimeout ?? TimeSpan.FromSeconds(5);
         if (QueryTimeout < TimeSpan.FromMilliseconds(10) || QueryTimeout > TimeSpan.FromSeconds(600))
         {
-            throw new ArgumentOutOfRangeException(nameof(queryTimeout), QueryTimeout, "queryTimeout must be 0.01 to 600 s");
+            throw new ArgumentOutOfRangeException(
+                nameof(queryTimeout),
+                QueryTimeout,
+                "queryTimeout must be 0.01 to 600 s"
+            );
         }
 
         MaxErrorQueueReads = maxErrorQueueReads is >= 1 and <= 1000
             ? maxErrorQueueReads
-            : throw new ArgumentOutOfRangeException(nameof(maxErrorQueueReads), maxErrorQueueReads, "maxErrorQueueReads must be 1 to 1000");
-        ErrorQueryCommand = !string.IsNullOrWhiteSpace(errorQueryCommand) && errorQueryCommand.EndsWith('?')
-            ? errorQueryCommand
-            : throw new ArgumentOutOfRangeException(nameof(errorQueryCommand), errorQueryCommand, "errorQueryCommand must be a query ending in '?'");
+            : throw new ArgumentOutOfRangeException(
+                nameof(maxErrorQueueReads),
+                maxErrorQueueReads,
+                "maxErrorQueueReads must be 1 to 1000"
+            );
+        ErrorQueryCommand =
+            !string.IsNullOrWhiteSpace(errorQueryCommand) && errorQueryCommand.EndsWith('?')
+                ? errorQueryCommand
+                : throw new ArgumentOutOfRangeException(
+                    nameof(errorQueryCommand),
+                    errorQueryCommand,
+                    "errorQueryCommand must be a query ending in '?'"
+                );
     }
 
     /// <summary>Time allowed for a reply.</summary>

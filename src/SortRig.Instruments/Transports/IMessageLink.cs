@@ -17,7 +17,8 @@ public interface IMessageLink : IAsyncDisposable
 
     /// <summary>Sends <paramref name="line"/> followed by the link's terminator.</summary>
     /// <exception cref="InstrumentLinkException">I/O fault (the link is then broken).</exception>
-    /// <exception cref="InstrumentTimeoutException">The write did not complete within the write timeout (link broken).</exception>
+    /// <exception cref="InstrumentTimeoutException">The write did not complete within the write timeout (link
+    /// broken).</exception>
     ValueTask WriteLineAsync(string line, CancellationToken ct);
 
     /// <summary>

@@ -10,8 +10,14 @@ public sealed class InstrumentLinkException : InstrumentException
     /// <param name="endpoint">What the link was connected to (resource text or device path).</param>
     /// <param name="message">What went wrong.</param>
     /// <param name="innerException">The underlying I/O fault, if any.</param>
-    /// <param name="openFailed">True when the link could not be opened at all (refused, no answer, no such device).</param>
-    public InstrumentLinkException(string endpoint, string message, Exception? innerException = null, bool openFailed = false)
+    /// <param name="openFailed">True when the link could not be opened at all (refused, no answer, no such
+    /// device).</param>
+    public InstrumentLinkException(
+        string endpoint,
+        string message,
+        Exception? innerException = null,
+        bool openFailed = false
+    )
         : base($"{endpoint}: {message}", innerException)
     {
         Endpoint = endpoint;

@@ -23,7 +23,8 @@ public sealed class InstrumentTimeoutException : InstrumentException
     /// <summary>The timeout that expired.</summary>
     public TimeSpan Timeout { get; }
 
-    private static string Describe(string? command, TimeSpan timeout) => command is null
-        ? $"no complete reply from the instrument within {timeout.TotalMilliseconds:0} ms"
-        : $"no reply to '{command}' within {timeout.TotalMilliseconds:0} ms";
+    private static string Describe(string? command, TimeSpan timeout) =>
+        command is null
+            ? $"no complete reply from the instrument within {timeout.TotalMilliseconds:0} ms"
+            : $"no reply to '{command}' within {timeout.TotalMilliseconds:0} ms";
 }

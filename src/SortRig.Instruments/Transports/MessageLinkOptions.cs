@@ -7,7 +7,8 @@ public sealed class MessageLinkOptions
     public static MessageLinkOptions Default { get; } = new();
 
     /// <summary>Creates validated options.</summary>
-    /// <param name="terminator">Line terminator, 1-2 characters; default "\n". With "\n" a trailing "\r" is also removed from replies.</param>
+    /// <param name="terminator">Line terminator, 1-2 characters; default "\n". With "\n" a trailing "\r" is also
+    /// removed from replies.</param>
     /// <param name="connectTimeout">Time allowed to open the connection; 0.01-300 s, default 5 s.</param>
     /// <param name="writeTimeout">Time allowed for one write to complete; 0.01-300 s, default 5 s.</param>
     /// <param name="maxLineLength">Longest reply line accepted, in bytes; 16 B-16 MiB, default 65 536.</param>
@@ -16,11 +17,16 @@ public sealed class MessageLinkOptions
         string terminator = "\n",
         TimeSpan? connectTimeout = null,
         TimeSpan? writeTimeout = null,
-        int maxLineLength = 65_536)
+        int maxLineLength = 65_536
+    )
     {
         if (string.IsNullOrEmpty(terminator) || terminator.Length > 2)
         {
-            throw new ArgumentOutOfRangeException(nameof(terminator), terminator, "terminator must be 1 or 2 characters, e.g. \"\\n\" or \"\\r\\n\"");
+            throw new ArgumentOutOfRangeException(
+                nameof(terminator),
+                terminator,
+                "terminator must be 1 or 2 characters, e.g. \"\\n\" or \"\\r\\n\""
+            );
         }
 
         Terminator = terminator;
@@ -28,7 +34,11 @@ public sealed class MessageLinkOptions
         WriteTimeout = CheckTime(writeTimeout ?? TimeSpan.FromSeconds(5), nameof(writeTimeout));
         if (maxLineLength is < 16 or > 16 * 1024 * 1024)
         {
-            throw new ArgumentOutOfRangeException(nameof(maxLineLength), maxLineLength, "maxLineLength must be 16 to 16 777 216 bytes");
+            throw new ArgumentOutOfRangeException(
+                nameof(maxLineLength),
+                maxLineLength,
+                "maxLineLength must be 16 to 16 777 216 bytes"
+            );
         }
 
         MaxLineLength = maxLineLength;

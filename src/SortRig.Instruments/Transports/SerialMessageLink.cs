@@ -17,14 +17,23 @@ internal sealed class SerialMessageLink : StreamMessageLink
     }
 
     /// <summary>Opens the port (e.g. /dev/ttyUSB0) with the given line settings.</summary>
-    public static IMessageLink Open(string portName, SerialSettings settings, MessageLinkOptions options, TimeProvider time)
+    public static IMessageLink Open(
+        string portName,
+        SerialSettings settings,
+        MessageLinkOptions options,
+        TimeProvider time
+    )
     {
         var endpoint = $"serial://{portName} ({settings})";
         if (!OperatingSystem.IsWindows() && !File.Exists(portName))
         {
             // SerialPort reports a missing device as "access denied"; say what is wrong.
-            throw new InstrumentLinkException(endpoint,
-                $"no such device '{portName}'; check the cable and the device name (ls /dev/ttyUSB* /dev/ttyACM*)", null, openFailed: true);
+            throw new InstrumentLinkException(
+                endpoint,
+                $"no such device '{portName}'; check the cable and the device name (ls /dev/ttyUSB* /dev/ttyACM*)",
+                null,
+                openFailed: true
+            );
         }
 
         var port = new SerialPort(portName, settings.BaudRate, settings.Parity, settings.DataBits, settings.StopBits)
@@ -39,10 +48,16 @@ internal sealed class SerialMessageLink : StreamMessageLink
             port.DiscardInBuffer();
             return new SerialMessageLink(endpoint, port, options, time);
         }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException or InvalidOperationException)
+        catch (Exception ex)
+            when (ex is IOException or UnauthorizedAccessException or ArgumentException or InvalidOperationException)
         {
             port.Dispose();
-            throw new InstrumentLinkException(endpoint, $"could not open the serial port: {ex.Message}", ex, openFailed: true);
+            throw new InstrumentLinkException(
+                endpoint,
+                $"could not open the serial port: {ex.Message}",
+                ex,
+                openFailed: true
+            );
         }
     }
 

@@ -13,25 +13,33 @@ public sealed record SerialSettings
     /// <param name="parity">Parity; default none.</param>
     /// <param name="dataBits">Data bits, 5-8; default 8.</param>
     /// <param name="stopBits">Stop bits, One, OnePointFive or Two; default One.</param>
-    /// <param name="handshake">Flow control: None, RequestToSend, XOnXOff or RequestToSendXOnXOff; default None.</param>
+    /// <param name="handshake">Flow control: None, RequestToSend, XOnXOff or RequestToSendXOnXOff; default
+    /// None.</param>
     /// <exception cref="ArgumentOutOfRangeException">A value is outside its valid range.</exception>
     public SerialSettings(
         int baudRate = 9600,
         Parity parity = Parity.None,
         int dataBits = 8,
         StopBits stopBits = StopBits.One,
-        Handshake handshake = Handshake.None)
+        Handshake handshake = Handshake.None
+    )
     {
         BaudRate = baudRate is >= 50 and <= 4_000_000
             ? baudRate
             : throw new ArgumentOutOfRangeException(nameof(baudRate), baudRate, "baudRate must be 50 to 4 000 000");
-        Parity = Enum.IsDefined(parity) ? parity : throw new ArgumentOutOfRangeException(nameof(parity), parity, "unknown parity");
+        Parity = Enum.IsDefined(parity)
+            ? parity
+            : throw new ArgumentOutOfRangeException(nameof(parity), parity, "unknown parity");
         DataBits = dataBits is >= 5 and <= 8
             ? dataBits
             : throw new ArgumentOutOfRangeException(nameof(dataBits), dataBits, "dataBits must be 5 to 8");
         StopBits = stopBits is StopBits.One or StopBits.OnePointFive or StopBits.Two
             ? stopBits
-            : throw new ArgumentOutOfRangeException(nameof(stopBits), stopBits, "stopBits must be One, OnePointFive or Two");
+            : throw new ArgumentOutOfRangeException(
+                nameof(stopBits),
+                stopBits,
+                "stopBits must be One, OnePointFive or Two"
+            );
         Handshake = Enum.IsDefined(handshake)
             ? handshake
             : throw new ArgumentOutOfRangeException(nameof(handshake), handshake, "unknown handshake");
@@ -55,5 +63,11 @@ public sealed record SerialSettings
     /// <inheritdoc/>
     public override string ToString() => $"{BaudRate} {DataBits}{Parity.ToString()[0]}{StopBitsText} {Handshake}";
 
-    private string StopBitsText => StopBits switch { StopBits.OnePointFive => "1.5", StopBits.Two => "2", _ => "1" };
+    private string StopBitsText =>
+        StopBits switch
+        {
+            StopBits.OnePointFive => "1.5",
+            StopBits.Two => "2",
+            _ => "1",
+        };
 }

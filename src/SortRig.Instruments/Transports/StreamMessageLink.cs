@@ -36,7 +36,10 @@ internal partial class StreamMessageLink : IMessageLink
         ThrowIfUnusable();
         if (line.Contains(Options.Terminator, StringComparison.Ordinal))
         {
-            throw new ArgumentException($"the line must not contain the terminator {Escape(Options.Terminator)}", nameof(line));
+            throw new ArgumentException(
+                $"the line must not contain the terminator {Escape(Options.Terminator)}",
+                nameof(line)
+            );
         }
 
         ct.ThrowIfCancellationRequested();
@@ -89,7 +92,8 @@ internal partial class StreamMessageLink : IMessageLink
                 var n = await NextChunkAsync(linked.Token).ConfigureAwait(false);
                 _lines.Append(_chunk.AsSpan(0, n));
             }
-            catch (OperationCanceledException ex) when (!ct.IsCancellationRequested && timeoutCts.IsCancellationRequested)
+            catch (OperationCanceledException ex)
+                when (!ct.IsCancellationRequested && timeoutCts.IsCancellationRequested)
             {
                 throw new InstrumentTimeoutException(null, timeout, ex);
             }
@@ -133,7 +137,12 @@ internal partial class StreamMessageLink : IMessageLink
         await _stream.DisposeAsync().ConfigureAwait(false);
 
         // A read still blocked in the OS ends with an error once the handle closes; observe it.
-        _pendingRead?.ContinueWith(static t => _ = t.Exception, CancellationToken.None, TaskContinuationOptions.OnlyOnFaulted, TaskScheduler.Default);
+        _pendingRead?.ContinueWith(
+            static t => _ = t.Exception,
+            CancellationToken.None,
+            TaskContinuationOptions.OnlyOnFaulted,
+            TaskScheduler.Default
+        );
         GC.SuppressFinalize(this);
     }
 
@@ -144,9 +153,15 @@ internal partial class StreamMessageLink : IMessageLink
     protected virtual bool IsNoDataYet(Exception ex) => false;
 
     private static bool IsIoFault(Exception ex) =>
-        ex is IOException or ObjectDisposedException or UnauthorizedAccessException or InvalidOperationException or System.Net.Sockets.SocketException;
+        ex
+            is IOException
+                or ObjectDisposedException
+                or UnauthorizedAccessException
+                or InvalidOperationException
+                or System.Net.Sockets.SocketException;
 
-    private static string Escape(string s) => s.Replace("\r", "\\r", StringComparison.Ordinal).Replace("\n", "\\n", StringComparison.Ordinal);
+    private static string Escape(string s) =>
+        s.Replace("\r", "\\r", StringComparison.Ordinal).Replace("\n", "\\n", StringComparison.Ordinal);
 
     private async Task WriteCoreAsync(byte[] bytes)
     {

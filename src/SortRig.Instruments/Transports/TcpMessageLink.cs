@@ -15,7 +15,12 @@ internal sealed class TcpMessageLink : StreamMessageLink
 
     /// <summary>Connects within the connect timeout, with Nagle off and TCP keep-alive on.</summary>
     public static async Task<IMessageLink> OpenAsync(
-        string host, int port, MessageLinkOptions options, TimeProvider time, CancellationToken ct)
+        string host,
+        int port,
+        MessageLinkOptions options,
+        TimeProvider time,
+        CancellationToken ct
+    )
     {
         var endpoint = $"tcp://{host}:{port}";
         var client = new TcpClient { NoDelay = true };
@@ -30,7 +35,12 @@ internal sealed class TcpMessageLink : StreamMessageLink
         catch (OperationCanceledException ex) when (!ct.IsCancellationRequested)
         {
             client.Dispose();
-            throw new InstrumentLinkException(endpoint, $"no connection within {options.ConnectTimeout.TotalMilliseconds:0} ms", ex, openFailed: true);
+            throw new InstrumentLinkException(
+                endpoint,
+                $"no connection within {options.ConnectTimeout.TotalMilliseconds:0} ms",
+                ex,
+                openFailed: true
+            );
         }
         catch (SocketException ex)
         {

@@ -10,9 +10,7 @@ internal sealed class UsbTmcMessageLink : StreamMessageLink
     private const int LinuxTimedOut = 110;
 
     private UsbTmcMessageLink(string endpoint, Stream stream, MessageLinkOptions options, TimeProvider time)
-        : base(endpoint, stream, options, time)
-    {
-    }
+        : base(endpoint, stream, options, time) { }
 
     /// <summary>Opens the device read/write, unbuffered.</summary>
     public static IMessageLink Open(string devicePath, MessageLinkOptions options, TimeProvider time)
@@ -20,24 +18,36 @@ internal sealed class UsbTmcMessageLink : StreamMessageLink
         var endpoint = $"usbtmc://{devicePath}";
         if (!File.Exists(devicePath))
         {
-            throw new InstrumentLinkException(endpoint,
-                $"no such device '{devicePath}'; check the cable and the device name (ls /dev/usbtmc*)", null, openFailed: true);
+            throw new InstrumentLinkException(
+                endpoint,
+                $"no such device '{devicePath}'; check the cable and the device name (ls /dev/usbtmc*)",
+                null,
+                openFailed: true
+            );
         }
 
         try
         {
-            var stream = new FileStream(devicePath, new FileStreamOptions
-            {
-                Mode = FileMode.Open,
-                Access = FileAccess.ReadWrite,
-                Share = FileShare.ReadWrite,
-                BufferSize = 0,
-            });
+            var stream = new FileStream(
+                devicePath,
+                new FileStreamOptions
+                {
+                    Mode = FileMode.Open,
+                    Access = FileAccess.ReadWrite,
+                    Share = FileShare.ReadWrite,
+                    BufferSize = 0,
+                }
+            );
             return new UsbTmcMessageLink(endpoint, stream, options, time);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            throw new InstrumentLinkException(endpoint, $"could not open the device: {ex.Message}", ex, openFailed: true);
+            throw new InstrumentLinkException(
+                endpoint,
+                $"could not open the device: {ex.Message}",
+                ex,
+                openFailed: true
+            );
         }
     }
 

@@ -32,7 +32,15 @@ public static partial class TypedProfileLoader
         }
         catch (YamlException ex)
         {
-            throw new ProfileException(file, (int)ex.Start.Line, (int)ex.Start.Column, string.Empty, $"YAML error: {ex.Message}", "well-formed YAML", ex);
+            throw new ProfileException(
+                file,
+                (int)ex.Start.Line,
+                (int)ex.Start.Column,
+                string.Empty,
+                $"YAML error: {ex.Message}",
+                "well-formed YAML",
+                ex
+            );
         }
         catch (Exception ex) when (ex is InvalidOperationException or ArgumentException)
         {
@@ -41,7 +49,14 @@ public static partial class TypedProfileLoader
 
         if (stream.Documents.Count != 1)
         {
-            throw new ProfileException(file, 1, 1, string.Empty, $"has {stream.Documents.Count} YAML documents", "exactly one");
+            throw new ProfileException(
+                file,
+                1,
+                1,
+                string.Empty,
+                $"has {stream.Documents.Count} YAML documents",
+                "exactly one"
+            );
         }
 
         var root = new YamlField(stream.Documents[0].RootNode, file, string.Empty).AsMap(s_keys);
@@ -49,7 +64,10 @@ public static partial class TypedProfileLoader
         var family = familyField.AsString();
         if (!FamilyPattern().IsMatch(family))
         {
-            throw familyField.Error($"'{family}' is not a family name", "lower-case letters, digits and '-', e.g. handheld-typed");
+            throw familyField.Error(
+                $"'{family}' is not a family name",
+                "lower-case letters, digits and '-', e.g. handheld-typed"
+            );
         }
 
         var counts = root.Required("counts", "the display counts, e.g. 50000").AsInt(100, 10_000_000, " counts");
@@ -64,11 +82,14 @@ public static partial class TypedProfileLoader
                 throw fullScaleField.Error("is not above the range before it", "ranges in ascending full_scale");
             }
 
-            ranges.Add(new DisplayRange(
-                fullScale,
-                counts,
-                map.Required("reading_pct", "the % of reading accuracy term").AsDouble(0, 10, " %"),
-                map.Required("digits", "the digits accuracy term").AsDouble(0, 1000, " digits")));
+            ranges.Add(
+                new DisplayRange(
+                    fullScale,
+                    counts,
+                    map.Required("reading_pct", "the % of reading accuracy term").AsDouble(0, 10, " %"),
+                    map.Required("digits", "the digits accuracy term").AsDouble(0, 1000, " digits")
+                )
+            );
         }
 
         return new DisplayMeterSpec(family, ranges);

@@ -14,8 +14,15 @@ namespace SortRig.Measurement.Control;
 /// <param name="MovingRangeLower">Lower limit of the moving-range chart, D3 · MR-bar (0 for n = 2).</param>
 /// <param name="HistoryCount">Values the limits were computed from.</param>
 public sealed record ChartLimits(
-    double Centre, double MovingRangeMean, double Sigma, double Upper, double Lower,
-    double MovingRangeUpper, double MovingRangeLower, int HistoryCount)
+    double Centre,
+    double MovingRangeMean,
+    double Sigma,
+    double Upper,
+    double Lower,
+    double MovingRangeUpper,
+    double MovingRangeLower,
+    int HistoryCount
+)
 {
     /// <summary>Limits from the values' own history (at least two values).</summary>
     /// <param name="history">Values in time order, all finite; at least 2.</param>
@@ -32,10 +39,14 @@ public sealed record ChartLimits(
         if (!double.IsFinite(sigmaFloor) || sigmaFloor < 0)
         {
             throw new ArgumentOutOfRangeException(
-                nameof(sigmaFloor), sigmaFloor, "sigmaFloor must be finite and >= 0.");
+                nameof(sigmaFloor),
+                sigmaFloor,
+                "sigmaFloor must be finite and >= 0."
+            );
         }
 
-        double sum = 0, rangeSum = 0;
+        double sum = 0,
+            rangeSum = 0;
         for (int i = 0; i < history.Count; i++)
         {
             double x = history[i];
@@ -59,8 +70,15 @@ public sealed record ChartLimits(
         // would fail the moving-range test while inside the individuals limits.
         double mrForLimits = Math.Max(mrBar, ChartFactors.D2(2) * sigma);
         return new ChartLimits(
-            centre, mrBar, sigma, centre + (3 * sigma), centre - (3 * sigma),
-            ChartFactors.BigD4(2) * mrForLimits, ChartFactors.BigD3(2) * mrForLimits, history.Count);
+            centre,
+            mrBar,
+            sigma,
+            centre + (3 * sigma),
+            centre - (3 * sigma),
+            ChartFactors.BigD4(2) * mrForLimits,
+            ChartFactors.BigD3(2) * mrForLimits,
+            history.Count
+        );
     }
 
     /// <summary>Provisional limits before there is history: a stated centre and sigma (e.g. the
@@ -80,6 +98,14 @@ public sealed record ChartLimits(
         }
 
         return new ChartLimits(
-            centre, 0, sigma, centre + (3 * sigma), centre - (3 * sigma), double.PositiveInfinity, 0, 0);
+            centre,
+            0,
+            sigma,
+            centre + (3 * sigma),
+            centre - (3 * sigma),
+            double.PositiveInfinity,
+            0,
+            0
+        );
     }
 }

@@ -40,21 +40,28 @@ public static class ControlChart
 
         if (x > limits.Upper || x < limits.Lower)
         {
-            return Verdict(ControlRule.BeyondThreeSigma, Text(
-                $"the check read {score:+0.0;-0.0} sigma from its centre, beyond the 3-sigma limits"));
+            return Verdict(
+                ControlRule.BeyondThreeSigma,
+                Text($"the check read {score:+0.0;-0.0} sigma from its centre, beyond the 3-sigma limits")
+            );
         }
 
         if (n >= 2 && Math.Abs(x - points[n - 2]) > limits.MovingRangeUpper)
         {
-            double moved = Math.Abs(x - points[n - 2]), limit = limits.MovingRangeUpper;
-            return Verdict(ControlRule.MovingRangeAboveLimit, Text(
-                $"the check moved {moved:G4} since the last check, above the moving-range limit {limit:G4}"));
+            double moved = Math.Abs(x - points[n - 2]),
+                limit = limits.MovingRangeUpper;
+            return Verdict(
+                ControlRule.MovingRangeAboveLimit,
+                Text($"the check moved {moved:G4} since the last check, above the moving-range limit {limit:G4}")
+            );
         }
 
         if (TwoOfThree(points, limits))
         {
-            return Verdict(ControlRule.TwoOfThreeBeyondTwoSigma,
-                "two of the last three checks read beyond 2 sigma on the same side");
+            return Verdict(
+                ControlRule.TwoOfThreeBeyondTwoSigma,
+                "two of the last three checks read beyond 2 sigma on the same side"
+            );
         }
 
         if (EightOnOneSide(points, limits.Centre))
@@ -65,8 +72,10 @@ public static class ControlChart
         if (Math.Abs(z[n - 1] - limits.Centre) > half)
         {
             double drift = (z[n - 1] - limits.Centre) / sigma;
-            return Verdict(ControlRule.EwmaBeyondLimits, Text(
-                $"the checks' weighted average drifted {drift:+0.00;-0.00} sigma, beyond its limits"));
+            return Verdict(
+                ControlRule.EwmaBeyondLimits,
+                Text($"the checks' weighted average drifted {drift:+0.00;-0.00} sigma, beyond its limits")
+            );
         }
 
         return Verdict(ControlRule.None, string.Empty);

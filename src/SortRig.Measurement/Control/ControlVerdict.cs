@@ -10,5 +10,11 @@ namespace SortRig.Measurement.Control;
 /// <param name="EwmaValue">The EWMA statistic after the point.</param>
 /// <param name="EwmaHalfWidth">Half-width of the EWMA limits at the point.</param>
 public sealed record ControlVerdict(
-    bool InControl, ControlRule Rule, string Reason, double Value, double SigmaScore,
-    double EwmaValue, double EwmaHalfWidth);
+    bool InControl,
+    ControlRule Rule,
+    string Reason,
+    double Value,
+    double SigmaScore,
+    double EwmaValue,
+    double EwmaHalfWidth
+);

@@ -13,15 +13,19 @@ public sealed record EwmaOptions
     public double Lambda
     {
         get => _lambda;
-        init => _lambda = value is > 0 and <= 1 ? value
-            : throw new ArgumentOutOfRangeException(nameof(Lambda), value, "Lambda must be in (0, 1].");
+        init =>
+            _lambda = value is > 0 and <= 1
+                ? value
+                : throw new ArgumentOutOfRangeException(nameof(Lambda), value, "Lambda must be in (0, 1].");
     }
 
     /// <summary>Width of the limits in sigmas of the EWMA statistic, L. Default 3; valid [1, 6].</summary>
     public double Width
     {
         get => _width;
-        init => _width = value is >= 1 and <= 6 ? value
-            : throw new ArgumentOutOfRangeException(nameof(Width), value, "Width must be in [1, 6].");
+        init =>
+            _width = value is >= 1 and <= 6
+                ? value
+                : throw new ArgumentOutOfRangeException(nameof(Width), value, "Width must be in [1, 6].");
     }
 }

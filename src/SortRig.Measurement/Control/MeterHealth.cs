@@ -41,17 +41,20 @@ public static class MeterHealth
         }
 
         double first = ordered[0].GainPpm;
-        return ordered.Select(g =>
-        {
-            double moved = g.GainPpm - first;
-            string since = ordered[0].Session;
-            string? warning = Math.Abs(moved) > allowedPpm
-                ? FormattableString.Invariant(
-                    $"the meter moved {moved:+0.0;-0.0} ppm since {since}, more than the {allowedPpm:0.0} ppm ")
-                  + "its one-year specification allows: have it calibrated"
-                : null;
-            return new MeterHealthRow(g, moved, allowedPpm, warning);
-        }).ToList();
+        return ordered
+            .Select(g =>
+            {
+                double moved = g.GainPpm - first;
+                string since = ordered[0].Session;
+                string? warning =
+                    Math.Abs(moved) > allowedPpm
+                        ? FormattableString.Invariant(
+                            $"the meter moved {moved:+0.0;-0.0} ppm since {since}, more than the {allowedPpm:0.0} ppm "
+                        ) + "its one-year specification allows: have it calibrated"
+                        : null;
+                return new MeterHealthRow(g, moved, allowedPpm, warning);
+            })
+            .ToList();
     }
 
     /// <summary>The movement a one-year specification allows at a value, ppm: reading term + range term · range /

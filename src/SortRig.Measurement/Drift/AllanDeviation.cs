@@ -17,13 +17,21 @@ public static class AllanDeviation
     /// <param name="fractionalValues">M evenly spaced fractional values (dimensionless), M &gt;= 2, all finite.</param>
     /// <param name="tau0Seconds">Sampling interval, seconds; finite and &gt; 0.</param>
     /// <param name="averagingFactors">Each m must satisfy 1 &lt;= m &lt;= M / 2.</param>
-    public static IReadOnlyList<AllanPoint> Overlapping(IReadOnlyList<double> fractionalValues, double tau0Seconds, IEnumerable<int> averagingFactors)
+    public static IReadOnlyList<AllanPoint> Overlapping(
+        IReadOnlyList<double> fractionalValues,
+        double tau0Seconds,
+        IEnumerable<int> averagingFactors
+    )
     {
         ArgumentNullException.ThrowIfNull(fractionalValues);
         ArgumentNullException.ThrowIfNull(averagingFactors);
         if (!double.IsFinite(tau0Seconds) || tau0Seconds <= 0)
         {
-            throw new ArgumentOutOfRangeException(nameof(tau0Seconds), tau0Seconds, "tau0 must be a finite sampling interval > 0 s.");
+            throw new ArgumentOutOfRangeException(
+                nameof(tau0Seconds),
+                tau0Seconds,
+                "tau0 must be a finite sampling interval > 0 s."
+            );
         }
 
         int count = fractionalValues.Count;
@@ -33,7 +41,10 @@ public static class AllanDeviation
             double y = fractionalValues[i];
             if (!double.IsFinite(y))
             {
-                throw new ArgumentException($"fractionalValues[{i}] must be finite; got {y}.", nameof(fractionalValues));
+                throw new ArgumentException(
+                    $"fractionalValues[{i}] must be finite; got {y}.",
+                    nameof(fractionalValues)
+                );
             }
 
             phase[i + 1] = phase[i] + y; // running sum: phase in units of tau0 (SP 1065 eq. for x from y)
@@ -44,7 +55,11 @@ public static class AllanDeviation
         {
             if (m < 1 || 2 * m > count)
             {
-                throw new ArgumentOutOfRangeException(nameof(averagingFactors), m, $"Averaging factor must be within 1..{count / 2} for {count} values.");
+                throw new ArgumentOutOfRangeException(
+                    nameof(averagingFactors),
+                    m,
+                    $"Averaging factor must be within 1..{count / 2} for {count} values."
+                );
             }
 
             points.Add(AtFactor(phase, m, tau0Seconds));
@@ -75,7 +90,11 @@ public static class AllanDeviation
         ArgumentNullException.ThrowIfNull(ohms);
         if (!double.IsFinite(referenceOhms) || referenceOhms <= 0)
         {
-            throw new ArgumentOutOfRangeException(nameof(referenceOhms), referenceOhms, "Reference must be finite and > 0 ohm.");
+            throw new ArgumentOutOfRangeException(
+                nameof(referenceOhms),
+                referenceOhms,
+                "Reference must be finite and > 0 ohm."
+            );
         }
 
         return ohms.Select(r => (r - referenceOhms) / referenceOhms).ToArray();

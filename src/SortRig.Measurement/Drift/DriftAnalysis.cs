@@ -14,7 +14,15 @@ public static class DriftAnalysis
         var series = DriftSeries.From(samples, referenceOhms, minimumCount: 3, needTemperature: false);
         DriftSeries.RequireSpread(series.Hours, "times", nameof(samples));
         (double intercept, Coefficient slope, double residual) = LeastSquares.Line(series.Hours, series.Ppm);
-        return new DriftFit(slope, intercept, series.ReferenceOhms, series.Origin, series.Hours.Max(), residual, samples.Count);
+        return new DriftFit(
+            slope,
+            intercept,
+            series.ReferenceOhms,
+            series.Origin,
+            series.Hours.Max(),
+            residual,
+            samples.Count
+        );
     }
 
     /// <summary>Tempco by a straight line of ppm against temperature (MathNet Fit.Line); ignores time.</summary>
@@ -38,7 +46,11 @@ public static class DriftAnalysis
     /// <param name="samples">The samples, as for <see cref="Joint"/>.</param>
     /// <param name="referenceOhms">Resistance the ppm refer to, ohms; default the mean of the samples.</param>
     /// <param name="reason">Why there is no fit; null when there is one.</param>
-    public static DriftTempcoFit? TryJoint(IReadOnlyList<DriftSample> samples, double? referenceOhms, out string? reason)
+    public static DriftTempcoFit? TryJoint(
+        IReadOnlyList<DriftSample> samples,
+        double? referenceOhms,
+        out string? reason
+    )
     {
         try
         {
@@ -56,7 +68,8 @@ public static class DriftAnalysis
     /// Joint fit ppm ~ 1 + hours + (T - mean T) by MathNet multiple regression (QR), which separates
     /// a steady drift from a tempco when the temperature does not simply follow time.
     /// </summary>
-    /// <param name="samples">At least 4 samples, every one with a temperature; time and temperature not collinear.</param>
+    /// <param name="samples">At least 4 samples, every one with a temperature; time and temperature not
+    /// collinear.</param>
     /// <param name="referenceOhms">Resistance the ppm refer to, ohms; default the mean of the samples.</param>
     public static DriftTempcoFit Joint(IReadOnlyList<DriftSample> samples, double? referenceOhms = null)
     {
@@ -68,11 +81,24 @@ public static class DriftAnalysis
         double[] ones = Enumerable.Repeat(1.0, series.Hours.Length).ToArray();
         if (Math.Abs(Correlation(series.Hours, dt)) > 0.999999)
         {
-            throw new ArgumentException("Time and temperature are collinear in these samples, so drift and tempco cannot be separated; fit one of them alone.", nameof(samples));
+            throw new ArgumentException(
+                "Time and temperature are collinear in these samples, so drift and tempco cannot be separated; fit "
+                    + "one of them alone.",
+                nameof(samples)
+            );
         }
 
         (Coefficient[] beta, double residual) = LeastSquares.Multiple([ones, series.Hours, dt], series.Ppm);
-        return new DriftTempcoFit(beta[1], beta[2], beta[0].Value, series.ReferenceOhms, series.Origin, meanT, residual, samples.Count);
+        return new DriftTempcoFit(
+            beta[1],
+            beta[2],
+            beta[0].Value,
+            series.ReferenceOhms,
+            series.Origin,
+            meanT,
+            residual,
+            samples.Count
+        );
     }
 
     private static double Correlation(double[] x, double[] y) => MathNet.Numerics.Statistics.Correlation.Pearson(x, y);

@@ -41,7 +41,8 @@ public static class ResistorNetwork
         return Combine(Series(values), parts, sensitivities);
     }
 
-    /// <summary>Parallel with uncertainty: c_i = ∂R/∂R_i = (R/R_i)², u_c² = Σ (c_i u_i)² (JCGM 100:2008 eq. 10).</summary>
+    /// <summary>Parallel with uncertainty: c_i = ∂R/∂R_i = (R/R_i)², u_c² = Σ (c_i u_i)² (JCGM 100:2008 eq.
+    /// 10).</summary>
     public static NetworkValue Parallel(params ResistorEstimate[] parts)
     {
         var values = ValuesOf(parts);
@@ -64,7 +65,11 @@ public static class ResistorNetwork
             var u = parts[i].StandardUncertainty;
             if (!double.IsFinite(u) || u < 0)
             {
-                throw new ArgumentOutOfRangeException(nameof(parts), u, $"Resistor {i}: standard uncertainty must be finite and >= 0 ohms.");
+                throw new ArgumentOutOfRangeException(
+                    nameof(parts),
+                    u,
+                    $"Resistor {i}: standard uncertainty must be finite and >= 0 ohms."
+                );
             }
 
             var contribution = sensitivities[i] * u;
@@ -92,7 +97,11 @@ public static class ResistorNetwork
         {
             if (!double.IsFinite(r[i]) || r[i] <= 0)
             {
-                throw new ArgumentOutOfRangeException(nameof(r), r[i], $"Resistor {i}: value must be finite and > 0 ohms.");
+                throw new ArgumentOutOfRangeException(
+                    nameof(r),
+                    r[i],
+                    $"Resistor {i}: value must be finite and > 0 ohms."
+                );
             }
         }
     }

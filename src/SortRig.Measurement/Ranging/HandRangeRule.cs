@@ -29,14 +29,32 @@ public static class HandRangeRule
         var warnings = new List<HandRangeWarning>();
         if (selected.DisplayMax < request.Highest)
         {
-            warnings.Add(new HandRangeWarning(HandRangeWarningKind.Overflow, Invariant(
-                $"the {selected.Name} range shows at most {selected.Show(selected.DisplayMax)}, but parts up to {Ohms(request.Highest)} are expected and would read overload: set the {recommended.Name} range")));
+            warnings.Add(
+                new HandRangeWarning(
+                    HandRangeWarningKind.Overflow,
+                    string.Create(
+                        System.Globalization.CultureInfo.InvariantCulture,
+                        $"the {selected.Name} range shows at most {selected.Show(selected.DisplayMax)}, but parts up "
+                            + $"to {Ohms(request.Highest)} are expected and would read overload: set the "
+                            + $"{recommended.Name} range"
+                    )
+                )
+            );
         }
         else if (selected.Step > recommended.Step * 1.5)
         {
             var lost = (int)Math.Round(Math.Log10(selected.Step / recommended.Step));
-            warnings.Add(new HandRangeWarning(HandRangeWarningKind.LostDigit, Invariant(
-                $"the {selected.Name} range shows {lost} digit{(lost == 1 ? "" : "s")} less than the {recommended.Name} range (one digit = {Ohms(selected.Step)} instead of {Ohms(recommended.Step)}): set the {recommended.Name} range unless you have a reason")));
+            warnings.Add(
+                new HandRangeWarning(
+                    HandRangeWarningKind.LostDigit,
+                    string.Create(
+                        System.Globalization.CultureInfo.InvariantCulture,
+                        $"the {selected.Name} range shows {lost} digit{(lost == 1 ? "" : "s")} less than the "
+                            + $"{recommended.Name} range (one digit = {Ohms(selected.Step)} instead of "
+                            + $"{Ohms(recommended.Step)}): set the {recommended.Name} range unless you have a reason"
+                    )
+                )
+            );
         }
 
         // One digit read by eye is a rectangular half-digit (GUM 4.3.7): k·u = 2 × step/(2√3) = step/√3.
@@ -45,8 +63,17 @@ public static class HandRangeRule
         if (expandedDigit > allowed)
         {
             var widest = expandedDigit / (UncertaintyRatio * request.Nominal);
-            warnings.Add(new HandRangeWarning(HandRangeWarningKind.Coarse, Invariant(
-                $"one digit on the {selected.Name} range is {selected.Step / request.Nominal * 1e6:0.#} ppm of {Ohms(request.Nominal)}: too coarse for a ±{request.MatchTolerance * 1e6:0.#} ppm match; the display resolves a match of ±{RoundUp2(widest) * 1e6:0.#} ppm or wider")));
+            warnings.Add(
+                new HandRangeWarning(
+                    HandRangeWarningKind.Coarse,
+                    string.Create(
+                        System.Globalization.CultureInfo.InvariantCulture,
+                        $"one digit on the {selected.Name} range is {selected.Step / request.Nominal * 1e6:0.#} ppm "
+                            + $"of {Ohms(request.Nominal)}: too coarse for a ±{request.MatchTolerance * 1e6:0.#} ppm "
+                            + $"match; the display resolves a match of ±{RoundUp2(widest) * 1e6:0.#} ppm or wider"
+                    )
+                )
+            );
         }
 
         return new HandRangeDecision(selected, recommended, warnings);
@@ -59,8 +86,14 @@ public static class HandRangeRule
         ArgumentNullException.ThrowIfNull(request);
         request.Validate();
         return spec.Ranges.FirstOrDefault(r => r.DisplayMax >= request.Highest)
-            ?? throw new ArgumentException(Invariant(
-                $"no range of {spec.Family} shows {Ohms(request.Highest)}: the largest shows {Ohms(spec.Ranges[^1].DisplayMax)}"), nameof(request));
+            ?? throw new ArgumentException(
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"no range of {spec.Family} shows {Ohms(request.Highest)}: the largest shows "
+                        + $"{Ohms(spec.Ranges[^1].DisplayMax)}"
+                ),
+                nameof(request)
+            );
     }
 
     private static double RoundUp2(double x)

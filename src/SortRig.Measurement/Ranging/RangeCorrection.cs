@@ -3,11 +3,17 @@ using SortRig.Measurement.Uncertainty;
 namespace SortRig.Measurement.Ranging;
 
 /// <summary>A measured correction that puts values read on one range onto another range's scale.</summary>
-/// <param name="Factor">Multiply a value read on the "from" range by this to put it on the "to" range's scale; dimensionless.</param>
+/// <param name="Factor">Multiply a value read on the "from" range by this to put it on the "to" range's scale;
+/// dimensionless.</param>
 /// <param name="RelativeStandardUncertainty">u(F)/F, dimensionless.</param>
 /// <param name="ToRangeFullScale">Full scale of the range whose scale the values are put on, ohms.</param>
 /// <param name="FromRangeFullScale">Full scale of the range the corrected values are read on, ohms.</param>
-public sealed record RangeCorrection(double Factor, double RelativeStandardUncertainty, double ToRangeFullScale, double FromRangeFullScale)
+public sealed record RangeCorrection(
+    double Factor,
+    double RelativeStandardUncertainty,
+    double ToRangeFullScale,
+    double FromRangeFullScale
+)
 {
     /// <summary>
     /// A value read on the "from" range expressed on the "to" range's scale: v·F, with the correction's relative
@@ -22,7 +28,8 @@ public sealed record RangeCorrection(double Factor, double RelativeStandardUncer
             value,
             Hypot(valueOnFrom.StandardUncertainty * Factor, fromFactor),
             Hypot(valueOnFrom.TransferUncertainty * Factor, fromFactor),
-            valueOnFrom.CoverageFactor);
+            valueOnFrom.CoverageFactor
+        );
     }
 
     /// <summary>
@@ -30,7 +37,8 @@ public sealed record RangeCorrection(double Factor, double RelativeStandardUncer
     /// standard uncertainty is unchanged (sensitivity of 1/F to F is -1/F², so u(1/F)/(1/F) = u(F)/F; JCGM 100:2008
     /// sec. 5.1.6 with exponent -1).
     /// </summary>
-    public RangeCorrection Inverted() => new(1 / Factor, RelativeStandardUncertainty, FromRangeFullScale, ToRangeFullScale);
+    public RangeCorrection Inverted() =>
+        new(1 / Factor, RelativeStandardUncertainty, FromRangeFullScale, ToRangeFullScale);
 
     private static double Hypot(double a, double b) => Math.Sqrt((a * a) + (b * b));
 }

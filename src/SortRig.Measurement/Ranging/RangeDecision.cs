@@ -11,7 +11,8 @@ namespace SortRig.Measurement.Ranging;
 /// <param name="ResolutionPpm">That step in ppm of the nominal.</param>
 /// <param name="SpecHalfWidth24Hours">24 h spec half-width at nominal, ohms.</param>
 /// <param name="SpecHalfWidth1Year">1 year spec half-width at nominal, ohms.</param>
-/// <param name="TransferBudget">Predicted transfer budget at nominal (resolution, noise of the mean, short-term, lead).</param>
+/// <param name="TransferBudget">Predicted transfer budget at nominal (resolution, noise of the mean, short-term,
+/// lead).</param>
 /// <param name="TransferUncertainty">Its combined standard uncertainty, ohms.</param>
 /// <param name="ExpandedTransfer">k × TransferUncertainty, ohms.</param>
 /// <param name="AllowedExpanded">UncertaintyRatio × MatchTolerance × Nominal, ohms.</param>
@@ -30,7 +31,8 @@ public sealed record RangeDecision(
     double ExpandedTransfer,
     double AllowedExpanded,
     RangeVerdict Verdict,
-    IReadOnlyList<Remedy> Remedies)
+    IReadOnlyList<Remedy> Remedies
+)
 {
     /// <summary>Expanded transfer uncertainty in ppm of nominal.</summary>
     public double ExpandedTransferPpm => ExpandedTransfer / Request.Nominal * 1e6;

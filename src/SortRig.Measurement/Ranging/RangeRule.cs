@@ -22,14 +22,20 @@ public static class RangeRule
         var nplc = NplcOf(meter, request.Nplc);
         if (request.FourWire && !meter.FourWire)
         {
-            throw new ArgumentException($"Meter family '{meter.Family}' cannot measure 4-wire resistance; request 2-wire.", nameof(request));
+            throw new ArgumentException(
+                $"Meter family '{meter.Family}' cannot measure 4-wire resistance; request 2-wire.",
+                nameof(request)
+            );
         }
 
         var range = meter.Ranges.Where(r => r.Limit >= request.RequiredLimit).MinBy(r => r.FullScale)
             ?? throw new ArgumentException(
-                $"Nominal {request.Nominal:G6} ohm needs a range reading up to {request.RequiredLimit:G6} ohm " +
-                $"(nominal × (1 + stock tolerance) × (1 + margin)); the largest limit of meter family '{meter.Family}' is " +
-                $"{(meter.Ranges.Count == 0 ? 0 : meter.Ranges.Max(r => r.Limit)):G6} ohm.", nameof(request));
+                $"Nominal {request.Nominal:G6} ohm needs a range reading up to {request.RequiredLimit:G6} ohm "
+                    + $"(nominal × (1 + stock tolerance) × (1 + margin)); the largest limit of meter family '"
+                    + $"{meter.Family}' is "
+                    + $"{(meter.Ranges.Count == 0 ? 0 : meter.Ranges.Max(r => r.Limit)):G6} ohm.",
+                nameof(request)
+            );
         return On(meter, request, range, nplc, options);
     }
 
@@ -37,7 +43,11 @@ public static class RangeRule
     /// Decisions for every nominal of a job and, where nominals sit on different ranges, one
     /// <see cref="RangeTransfer"/> offer per pair of neighbouring ranges used.
     /// </summary>
-    public static RangePlan Plan(MeterSpec meter, IReadOnlyList<RangeRequest> requests, RangeRuleOptions? options = null)
+    public static RangePlan Plan(
+        MeterSpec meter,
+        IReadOnlyList<RangeRequest> requests,
+        RangeRuleOptions? options = null
+    )
     {
         ArgumentNullException.ThrowIfNull(requests);
         if (requests.Count == 0)
@@ -58,7 +68,13 @@ public static class RangeRule
     }
 
     /// <summary>The decision for a request on a given range (used for remedies and transfers).</summary>
-    internal static RangeDecision On(MeterSpec meter, RangeRequest request, RangeSpec range, NplcSpec nplc, RangeRuleOptions options)
+    internal static RangeDecision On(
+        MeterSpec meter,
+        RangeRequest request,
+        RangeSpec range,
+        NplcSpec nplc,
+        RangeRuleOptions options
+    )
     {
         var nominal = request.Nominal;
         var budget = TransferPrediction.At(nominal, range, nplc, request.FourWire, options);
@@ -66,21 +82,37 @@ public static class RangeRule
         var expanded = options.CoverageFactor * u;
         var allowed = TransferPrediction.Allowed(request, options);
         var verdict = expanded <= allowed ? RangeVerdict.Resolvable : RangeVerdict.Refused;
-        var remedies = verdict == RangeVerdict.Resolvable
-            ? Array.Empty<Remedy>()
-            : RemedyFinder.Find(meter, request, range, nplc, budget, options);
+        var remedies =
+            verdict == RangeVerdict.Resolvable
+                ? Array.Empty<Remedy>()
+                : RemedyFinder.Find(meter, request, range, nplc, budget, options);
         var step = nplc.Resolution(range.FullScale);
         return new RangeDecision(
-            request, range, nplc, step, step / nominal * 1e6,
+            request,
+            range,
+            nplc,
+            step,
+            step / nominal * 1e6,
             range.Accuracy24Hours.HalfWidth(nominal, range.FullScale),
             range.Accuracy1Year.HalfWidth(nominal, range.FullScale),
-            budget, u, expanded, allowed, verdict, remedies);
+            budget,
+            u,
+            expanded,
+            allowed,
+            verdict,
+            remedies
+        );
     }
 
     internal static NplcSpec NplcOf(MeterSpec meter, double nplc) =>
         meter.Nplcs.FirstOrDefault(p => Math.Abs(p.Nplc - nplc) <= 1e-9 * Math.Max(1.0, nplc))
         ?? throw new ArgumentException(
-            $"NPLC {nplc:G6} is not a setting of meter family '{meter.Family}'; expected one of " +
-            string.Join(", ", meter.Nplcs.Select(p => p.Nplc.ToString("G6", System.Globalization.CultureInfo.InvariantCulture))) + ".",
-            nameof(nplc));
+            $"NPLC {nplc:G6} is not a setting of meter family '{meter.Family}'; expected one of "
+                + string.Join(
+                    ", ",
+                    meter.Nplcs.Select(p => p.Nplc.ToString("G6", System.Globalization.CultureInfo.InvariantCulture))
+                )
+                + ".",
+            nameof(nplc)
+        );
 }

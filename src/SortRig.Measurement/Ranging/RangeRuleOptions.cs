@@ -14,34 +14,51 @@ public sealed record RangeRuleOptions
     /// <summary>The default options.</summary>
     public static RangeRuleOptions Default { get; } = new();
 
-    /// <summary>Readings averaged per part (the settle window), for the noise-of-the-mean term. Default 8; valid [1, 10000].</summary>
+    /// <summary>Readings averaged per part (the settle window), for the noise-of-the-mean term. Default 8; valid [1,
+    /// 10000].</summary>
     public int ReadingsAveraged
     {
         get => _readingsAveraged;
-        init => _readingsAveraged = value is >= 1 and <= 10_000
-            ? value
-            : throw new ArgumentOutOfRangeException(nameof(ReadingsAveraged), value, "ReadingsAveraged must be in [1, 10000].");
+        init =>
+            _readingsAveraged = value is >= 1 and <= 10_000
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(ReadingsAveraged),
+                    value,
+                    "ReadingsAveraged must be in [1, 10000]."
+                );
     }
 
     /// <summary>
     /// Largest allowed ratio of the expanded transfer uncertainty to the match band half-width
-    /// (MatchTolerance × Nominal). Default 0.25 (a 4:1 test uncertainty ratio, common practice, no source); valid (0, 1].
+    /// (MatchTolerance × Nominal). Default 0.25 (a 4:1 test uncertainty ratio, common practice, no source); valid (0,
+    /// 1].
     /// </summary>
     public double UncertaintyRatio
     {
         get => _uncertaintyRatio;
-        init => _uncertaintyRatio = value is > 0 and <= 1
-            ? value
-            : throw new ArgumentOutOfRangeException(nameof(UncertaintyRatio), value, "UncertaintyRatio must be in (0, 1].");
+        init =>
+            _uncertaintyRatio = value is > 0 and <= 1
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(UncertaintyRatio),
+                    value,
+                    "UncertaintyRatio must be in (0, 1]."
+                );
     }
 
     /// <summary>Coverage factor k of the expanded uncertainty. Default 2; valid [1, 4].</summary>
     public double CoverageFactor
     {
         get => _coverageFactor;
-        init => _coverageFactor = value is >= 1 and <= 4
-            ? value
-            : throw new ArgumentOutOfRangeException(nameof(CoverageFactor), value, "CoverageFactor must be in [1, 4].");
+        init =>
+            _coverageFactor = value is >= 1 and <= 4
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(CoverageFactor),
+                    value,
+                    "CoverageFactor must be in [1, 4]."
+                );
     }
 
     /// <summary>Short-term and lead assumptions. Default <see cref="UncertaintyModel.Default"/>; not null.</summary>
@@ -55,8 +72,13 @@ public sealed record RangeRuleOptions
     public SpecPeriod GainSpecPeriod
     {
         get => _gainSpecPeriod;
-        init => _gainSpecPeriod = Enum.IsDefined(value)
-            ? value
-            : throw new ArgumentOutOfRangeException(nameof(GainSpecPeriod), value, "GainSpecPeriod must be Hours24 or Year1.");
+        init =>
+            _gainSpecPeriod = Enum.IsDefined(value)
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(GainSpecPeriod),
+                    value,
+                    "GainSpecPeriod must be Hours24 or Year1."
+                );
     }
 }

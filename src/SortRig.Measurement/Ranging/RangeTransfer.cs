@@ -24,7 +24,8 @@ public sealed record RangeTransfer(
     double BridgeNominal,
     double ExpectedCorrectionUncertainty,
     double AllowedRelative,
-    double CoverageFactor)
+    double CoverageFactor
+)
 {
     /// <summary>True when k × GainUncertainty fits the allowed share of the match band without a correction.</summary>
     public bool UncorrectedResolvable => CoverageFactor * GainUncertainty <= AllowedRelative;
@@ -38,30 +39,44 @@ public sealed record RangeTransfer(
     /// </summary>
     /// <param name="valueOnLow">The bridging part accepted on <see cref="LowRange"/>.</param>
     /// <param name="valueOnHigh">The same part accepted on <see cref="HighRange"/>.</param>
-    /// <exception cref="ArgumentException">A value is not &gt; 0, or the two differ by more than 1 % (not the same part).</exception>
+    /// <exception cref="ArgumentException">A value is not &gt; 0, or the two differ by more than 1 % (not the same
+    /// part).</exception>
     public RangeCorrection Correction(MeasuredValue valueOnLow, MeasuredValue valueOnHigh)
     {
         ArgumentNullException.ThrowIfNull(valueOnLow);
         ArgumentNullException.ThrowIfNull(valueOnHigh);
         if (!(valueOnLow.Value > 0) || !(valueOnHigh.Value > 0))
         {
-            throw new ArgumentException($"Bridging values must be > 0 ohms; got {valueOnLow.Value:G9} and {valueOnHigh.Value:G9}.");
+            throw new ArgumentException(
+                $"Bridging values must be > 0 ohms; got {valueOnLow.Value:G9} and {valueOnHigh.Value:G9}."
+            );
         }
 
         var factor = valueOnLow.Value / valueOnHigh.Value;
         if (Math.Abs(factor - 1) > 0.01)
         {
             throw new ArgumentException(
-                $"Bridging values {valueOnLow.Value:G9} and {valueOnHigh.Value:G9} ohm differ by more than 1 %; " +
-                "they cannot be one part read on two ranges.");
+                $"Bridging values {valueOnLow.Value:G9} and {valueOnHigh.Value:G9} ohm differ by more than 1 %; "
+                    + "they cannot be one part read on two ranges."
+            );
         }
 
         var low = valueOnLow.TransferUncertainty / valueOnLow.Value;
         var high = valueOnHigh.TransferUncertainty / valueOnHigh.Value;
-        return new RangeCorrection(factor, Math.Sqrt((low * low) + (high * high)), LowRange.FullScale, HighRange.FullScale);
+        return new RangeCorrection(
+            factor,
+            Math.Sqrt((low * low) + (high * high)),
+            LowRange.FullScale,
+            HighRange.FullScale
+        );
     }
 
-    internal static RangeTransfer Offer(RangeSpec low, RangeSpec high, IReadOnlyList<RangeDecision> decisions, RangeRuleOptions options)
+    internal static RangeTransfer Offer(
+        RangeSpec low,
+        RangeSpec high,
+        IReadOnlyList<RangeDecision> decisions,
+        RangeRuleOptions options
+    )
     {
         var gainLow = low.AccuracyFor(options.GainSpecPeriod).PercentOfReading / 100.0;
         var gainHigh = high.AccuracyFor(options.GainSpecPeriod).PercentOfReading / 100.0;
@@ -72,6 +87,14 @@ public sealed record RangeTransfer(
         var uLow = TransferPrediction.Uncertainty(b, low, bridge.Nplc, bridge.Request.FourWire, options) / b;
         var uHigh = TransferPrediction.Uncertainty(b, high, bridge.Nplc, bridge.Request.FourWire, options) / b;
         var tightest = decisions.Where(d => d.Range == low || d.Range == high).Min(d => d.Request.MatchTolerance);
-        return new RangeTransfer(low, high, gain, b, Math.Sqrt((uLow * uLow) + (uHigh * uHigh)), options.UncertaintyRatio * tightest, options.CoverageFactor);
+        return new RangeTransfer(
+            low,
+            high,
+            gain,
+            b,
+            Math.Sqrt((uLow * uLow) + (uHigh * uHigh)),
+            options.UncertaintyRatio * tightest,
+            options.CoverageFactor
+        );
     }
 }

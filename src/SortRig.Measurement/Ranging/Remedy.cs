@@ -32,4 +32,10 @@ public enum RemedyKind
 /// <param name="TransferUncertainty">Standard transfer uncertainty at nominal after the change, ohms.</param>
 /// <param name="ExpandedTransfer">k × TransferUncertainty, ohms.</param>
 /// <param name="Resolves">True when the change alone makes the request resolvable.</param>
-public sealed record Remedy(RemedyKind Kind, double Setting, double TransferUncertainty, double ExpandedTransfer, bool Resolves);
+public sealed record Remedy(
+    RemedyKind Kind,
+    double Setting,
+    double TransferUncertainty,
+    double ExpandedTransfer,
+    bool Resolves
+);

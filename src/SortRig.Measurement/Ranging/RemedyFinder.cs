@@ -7,7 +7,13 @@ namespace SortRig.Measurement.Ranging;
 internal static class RemedyFinder
 {
     public static IReadOnlyList<Remedy> Find(
-        MeterSpec meter, RangeRequest request, RangeSpec range, NplcSpec nplc, Budget budget, RangeRuleOptions options)
+        MeterSpec meter,
+        RangeRequest request,
+        RangeSpec range,
+        NplcSpec nplc,
+        Budget budget,
+        RangeRuleOptions options
+    )
     {
         var k = options.CoverageFactor;
         var allowed = TransferPrediction.Allowed(request, options);
@@ -19,8 +25,13 @@ internal static class RemedyFinder
 
         if (!request.FourWire && meter.FourWire)
         {
-            var leadDominates = budget.Components.Max(c => c.Contribution) == ResistanceTerms.Lead(false, options.Model);
-            var fourWire = Make(RemedyKind.UseFourWire, 4, TransferPrediction.Uncertainty(nominal, range, nplc, true, options));
+            var leadDominates =
+                budget.Components.Max(c => c.Contribution) == ResistanceTerms.Lead(false, options.Model);
+            var fourWire = Make(
+                RemedyKind.UseFourWire,
+                4,
+                TransferPrediction.Uncertainty(nominal, range, nplc, true, options)
+            );
             if (leadDominates || fourWire.Resolves)
             {
                 remedies.Add(fourWire);
@@ -30,7 +41,11 @@ internal static class RemedyFinder
         Remedy? bestNplc = null;
         foreach (var candidate in meter.Nplcs.Where(p => p.Nplc > nplc.Nplc).OrderBy(p => p.Nplc))
         {
-            var remedy = Make(RemedyKind.RaiseNplc, candidate.Nplc, TransferPrediction.Uncertainty(nominal, range, candidate, request.FourWire, options));
+            var remedy = Make(
+                RemedyKind.RaiseNplc,
+                candidate.Nplc,
+                TransferPrediction.Uncertainty(nominal, range, candidate, request.FourWire, options)
+            );
             if (remedy.Resolves)
             {
                 bestNplc = remedy;
@@ -48,21 +63,37 @@ internal static class RemedyFinder
             remedies.Add(bestNplc);
         }
 
-        var lower = meter.Ranges.Where(r => r.FullScale < range.FullScale).OrderByDescending(r => r.FullScale).FirstOrDefault();
+        var lower = meter
+            .Ranges.Where(r => r.FullScale < range.FullScale)
+            .OrderByDescending(r => r.FullScale)
+            .FirstOrDefault();
         if (lower is not null && nominal * (1 + request.Margin) <= lower.Limit)
         {
-            var remedy = Make(RemedyKind.UseRange, lower.FullScale, TransferPrediction.Uncertainty(nominal, lower, nplc, request.FourWire, options));
+            var remedy = Make(
+                RemedyKind.UseRange,
+                lower.FullScale,
+                TransferPrediction.Uncertainty(nominal, lower, nplc, request.FourWire, options)
+            );
             if (remedy.TransferUncertainty < current)
             {
                 remedies.Add(remedy);
             }
         }
 
-        remedies.Add(new Remedy(RemedyKind.LoosenMatch, LoosestNeeded(k * current, options.UncertaintyRatio * nominal), current, k * current, true));
+        remedies.Add(
+            new Remedy(
+                RemedyKind.LoosenMatch,
+                LoosestNeeded(k * current, options.UncertaintyRatio * nominal),
+                current,
+                k * current,
+                true
+            )
+        );
         return remedies;
     }
 
-    /// <summary>The smallest match tolerance that the expanded uncertainty resolves, rounded up to 2 significant digits.</summary>
+    /// <summary>The smallest match tolerance that the expanded uncertainty resolves, rounded up to 2 significant
+    /// digits.</summary>
     private static double LoosestNeeded(double expanded, double ratioTimesNominal)
     {
         var exact = expanded / ratioTimesNominal;

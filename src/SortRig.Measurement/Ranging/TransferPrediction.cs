@@ -12,20 +12,32 @@ internal static class TransferPrediction
         var components = new List<BudgetComponent>(4)
         {
             new(ResistanceTerms.ResolutionName, ResistanceTerms.Resolution(range, nplc)),
-            new(ResistanceTerms.NoiseName, ResistanceTerms.NoiseOfMean(range, nplc, n), 1.0,
-                n > 1 ? n - 1 : double.PositiveInfinity, UncertaintyKind.TypeA),
+            new(
+                ResistanceTerms.NoiseName,
+                ResistanceTerms.NoiseOfMean(range, nplc, n),
+                1.0,
+                n > 1 ? n - 1 : double.PositiveInfinity,
+                UncertaintyKind.TypeA
+            ),
             new(ResistanceTerms.ShortTermName, ResistanceTerms.ShortTerm(range, value, options.Model)),
         };
         if (!fourWire)
         {
-            components.Add(new BudgetComponent(ResistanceTerms.LeadName, ResistanceTerms.Lead(fourWire, options.Model)));
+            components.Add(
+                new BudgetComponent(ResistanceTerms.LeadName, ResistanceTerms.Lead(fourWire, options.Model))
+            );
         }
 
         return new Budget(components);
     }
 
-    public static double Uncertainty(double value, RangeSpec range, NplcSpec nplc, bool fourWire, RangeRuleOptions options) =>
-        At(value, range, nplc, fourWire, options).CombinedStandardUncertainty;
+    public static double Uncertainty(
+        double value,
+        RangeSpec range,
+        NplcSpec nplc,
+        bool fourWire,
+        RangeRuleOptions options
+    ) => At(value, range, nplc, fourWire, options).CombinedStandardUncertainty;
 
     /// <summary>The largest allowed expanded transfer uncertainty, ohms.</summary>
     public static double Allowed(RangeRequest request, RangeRuleOptions options) =>

@@ -9,7 +9,8 @@ namespace SortRig.Measurement.Readings;
 /// </summary>
 public static class OhmsText
 {
-    /// <summary>"10.00321 kOhm": engineering prefix and <paramref name="significant"/> digits (default 7); "OPEN" for an overload, "-" for NaN.</summary>
+    /// <summary>"10.00321 kOhm": engineering prefix and <paramref name="significant"/> digits (default 7); "OPEN" for
+    /// an overload, "-" for NaN.</summary>
     public static string Format(double ohms, int significant = 7)
     {
         if (double.IsNaN(ohms))
@@ -26,15 +27,22 @@ public static class OhmsText
         var scaled = ohms / scale;
         var intDigits = Math.Max(1, (int)Math.Floor(Math.Log10(Math.Max(Math.Abs(scaled), 1))) + 1);
         var decimals = Math.Max(0, significant - intDigits);
-        return scaled.ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture) + " " + prefix + "Ohm";
+        return scaled.ToString("F" + decimals.ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture)
+            + " "
+            + prefix
+            + "Ohm";
     }
 
-    /// <summary>A nominal, short, plain ASCII for labels: "10 kOhm", "4.990 kOhm", "100 Ohm" (four digits; all-zero decimals dropped).</summary>
+    /// <summary>A nominal, short, plain ASCII for labels: "10 kOhm", "4.990 kOhm", "100 Ohm" (four digits; all-zero
+    /// decimals dropped).</summary>
     public static string Nominal(double ohms) =>
-        Format(ohms, 4).Replace(".000 ", " ", StringComparison.Ordinal).Replace(".00 ", " ", StringComparison.Ordinal)
+        Format(ohms, 4)
+            .Replace(".000 ", " ", StringComparison.Ordinal)
+            .Replace(".00 ", " ", StringComparison.Ordinal)
             .Replace(".0 ", " ", StringComparison.Ordinal);
 
-    /// <summary>Compact, for plot titles and report tables: "4.99k Ω", "10k Ω", "1M Ω", "470 Ω" (four significant digits).</summary>
+    /// <summary>Compact, for plot titles and report tables: "4.99k Ω", "10k Ω", "1M Ω", "470 Ω" (four significant
+    /// digits).</summary>
     public static string Compact(double ohms)
     {
         var (scale, prefix) = Prefix(ohms);
@@ -47,10 +55,13 @@ public static class OhmsText
         var (scale, prefix) = Prefix(ohms);
         var suffix = prefix.Length == 0 ? "R" : prefix;
         var text = (ohms / scale).ToString("G4", CultureInfo.InvariantCulture);
-        return text.Contains('.', StringComparison.Ordinal) ? text.Replace(".", suffix, StringComparison.Ordinal) : text + suffix;
+        return text.Contains('.', StringComparison.Ordinal)
+            ? text.Replace(".", suffix, StringComparison.Ordinal)
+            : text + suffix;
     }
 
-    /// <summary>"+320 ppm" style, signed, whole ppm below 1 % and two decimals of percent from 1 % up; "-" for NaN.</summary>
+    /// <summary>"+320 ppm" style, signed, whole ppm below 1 % and two decimals of percent from 1 % up; "-" for
+    /// NaN.</summary>
     public static string Ppm(double ppm)
     {
         if (double.IsNaN(ppm))
@@ -63,10 +74,11 @@ public static class OhmsText
             : ppm.ToString("+0;-0;0", CultureInfo.InvariantCulture) + " ppm";
     }
 
-    private static (double Scale, string Prefix) Prefix(double ohms) => Math.Abs(ohms) switch
-    {
-        >= 1e6 => (1e6, "M"),
-        >= 1e3 => (1e3, "k"),
-        _ => (1.0, ""),
-    };
+    private static (double Scale, string Prefix) Prefix(double ohms) =>
+        Math.Abs(ohms) switch
+        {
+            >= 1e6 => (1e6, "M"),
+            >= 1e3 => (1e3, "k"),
+            _ => (1.0, ""),
+        };
 }

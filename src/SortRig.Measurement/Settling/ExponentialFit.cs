@@ -13,12 +13,14 @@ internal sealed record ExponentialFit(
     double[] TimeConstants,
     double Rss,
     int Count,
-    bool Converged)
+    bool Converged
+)
 {
     /// <summary>Number of fitted parameters p: A, and one amplitude and one time constant per exponential.</summary>
     public int Parameters => 1 + (2 * TimeConstants.Length);
 
-    /// <summary>Corrected Akaike information criterion (Hurvich and Tsai 1989, from memory): n ln(RSS/n) + 2p + 2p(p+1)/(n−p−1).</summary>
+    /// <summary>Corrected Akaike information criterion (Hurvich and Tsai 1989, from memory): n ln(RSS/n) + 2p +
+    /// 2p(p+1)/(n−p−1).</summary>
     public double Aicc
     {
         get

@@ -20,7 +20,8 @@ internal static partial class ExponentialFitter
     /// </summary>
     public const double ChiSquareThreshold = 9.141;
 
-    /// <summary>√<see cref="ChiSquareThreshold"/>: the matching multiple of a linearised standard uncertainty.</summary>
+    /// <summary>√<see cref="ChiSquareThreshold"/>: the matching multiple of a linearised standard
+    /// uncertainty.</summary>
     public const double Z = 3.0234;
 
     /// <summary>
@@ -49,7 +50,8 @@ internal static partial class ExponentialFitter
         double s2,
         double tauMin,
         double tauMax,
-        bool sameSign = true)
+        bool sameSign = true
+    )
     {
         var n = t.Length;
         var taus = new List<double>(best.TimeConstants);
@@ -91,7 +93,8 @@ internal static partial class ExponentialFitter
             }
 
             mean /= n;
-            double sxy = 0, sxx = 0;
+            double sxy = 0,
+                sxx = 0;
             for (var i = 0; i < n; i++)
             {
                 column[i] -= mean;

@@ -12,9 +12,17 @@ internal static partial class ExponentialFitter
     private static readonly double s_golden = (Math.Sqrt(5) - 1) / 2;
 
     /// <summary>Fits one exponential with τ in [tauMin, tauMax] seconds; tolerance is on ln τ.</summary>
-    public static ExponentialFit One(ReadOnlySpan<double> t, ReadOnlySpan<double> y, double tauMin, double tauMax, double noiseFloorVariance, double tolerance = 1e-7)
+    public static ExponentialFit One(
+        ReadOnlySpan<double> t,
+        ReadOnlySpan<double> y,
+        double tauMin,
+        double tauMax,
+        double noiseFloorVariance,
+        double tolerance = 1e-7
+    )
     {
-        double[] tt = t.ToArray(), yy = y.ToArray();
+        double[] tt = t.ToArray(),
+            yy = y.ToArray();
         double Rss(double u) => Project(tt, yy, [Math.Exp(u)], out _);
         var (lo, hi) = (Math.Log(tauMin), Math.Log(tauMax));
         var u = GridThenGolden(Rss, lo, hi, 24, tolerance);
@@ -26,12 +34,23 @@ internal static partial class ExponentialFitter
     }
 
     /// <summary>Fits two exponentials, τ₁ &lt; τ₂/1.5, both in [tauMin, tauMax] seconds.</summary>
-    public static ExponentialFit Two(ReadOnlySpan<double> t, ReadOnlySpan<double> y, double tauMin, double tauMax, double noiseFloorVariance, double tolerance = 1e-5)
+    public static ExponentialFit Two(
+        ReadOnlySpan<double> t,
+        ReadOnlySpan<double> y,
+        double tauMin,
+        double tauMax,
+        double noiseFloorVariance,
+        double tolerance = 1e-5
+    )
     {
-        double[] tt = t.ToArray(), yy = y.ToArray();
+        double[] tt = t.ToArray(),
+            yy = y.ToArray();
         var (lo, hi) = (Math.Log(tauMin), Math.Log(tauMax));
         var gap = Math.Log(1.5);
-        double Rss(double u1, double u2) => u2 - u1 < gap || u1 < lo || u2 > hi ? double.PositiveInfinity : Project(tt, yy, [Math.Exp(u1), Math.Exp(u2)], out _);
+        double Rss(double u1, double u2) =>
+            u2 - u1 < gap || u1 < lo || u2 > hi
+                ? double.PositiveInfinity
+                : Project(tt, yy, [Math.Exp(u1), Math.Exp(u2)], out _);
 
         // Coarse grid over the ordered pairs, then alternating golden-section refinement of each coordinate.
         const int Grid = 12;
@@ -83,7 +102,6 @@ internal static partial class ExponentialFitter
                     g[(a * m) + b] += row[a] * row[b];
                 }
             }
-
         }
 
         for (var a = 0; a < m; a++)
@@ -118,7 +136,16 @@ internal static partial class ExponentialFitter
         return rss;
     }
 
-    private static ExponentialFit Finish(RecoveryModel model, double[] t, double[] y, double[] beta, double[] taus, double rss, double floor, bool converged)
+    private static ExponentialFit Finish(
+        RecoveryModel model,
+        double[] t,
+        double[] y,
+        double[] beta,
+        double[] taus,
+        double rss,
+        double floor,
+        bool converged
+    )
     {
         var n = t.Length;
         var p = 1 + (2 * taus.Length);
@@ -154,7 +181,16 @@ internal static partial class ExponentialFitter
             variance = double.IsFinite(c) && c > 0 && jtj.ConditionNumber() < 1e14 ? s2 * c : double.PositiveInfinity;
         }
 
-        return new ExponentialFit(model, beta[0], variance, amplitudes, taus, rss, n, converged && double.IsFinite(variance));
+        return new ExponentialFit(
+            model,
+            beta[0],
+            variance,
+            amplitudes,
+            taus,
+            rss,
+            n,
+            converged && double.IsFinite(variance)
+        );
     }
 
     private static double GridThenGolden(Func<double, double> f, double lo, double hi, int grid, double tolerance)
@@ -173,7 +209,8 @@ internal static partial class ExponentialFitter
         return Golden(f, Math.Max(lo, bestU - step), Math.Min(hi, bestU + step), tolerance);
     }
 
-    /// <summary>Golden-section search for a minimum in [a, b] down to a bracket of the given width (Kiefer 1953).</summary>
+    /// <summary>Golden-section search for a minimum in [a, b] down to a bracket of the given width (Kiefer
+    /// 1953).</summary>
     private static double Golden(Func<double, double> f, double a, double b, double tolerance)
     {
         if (!(b > a))

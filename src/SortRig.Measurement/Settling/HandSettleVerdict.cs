@@ -26,7 +26,13 @@ public enum HandSettleState
 /// <param name="State">Where the part stands.</param>
 /// <param name="Prompt">What to tell the operator next, in plain words.</param>
 /// <param name="Counted">Entries counted for this part so far.</param>
-/// <param name="Value">When accepted: the mean of the agreeing entries with its uncertainty from the range's spec.</param>
+/// <param name="Value">When accepted: the mean of the agreeing entries with its uncertainty from the range's
+/// spec.</param>
 /// <param name="Entries">When accepted or unstable: every counted entry of the part, oldest first.</param>
 public sealed record HandSettleVerdict(
-    HandSettleState State, string Prompt, int Counted, MeasuredValue? Value = null, IReadOnlyList<Reading>? Entries = null);
+    HandSettleState State,
+    string Prompt,
+    int Counted,
+    MeasuredValue? Value = null,
+    IReadOnlyList<Reading>? Entries = null
+);

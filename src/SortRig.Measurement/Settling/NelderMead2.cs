@@ -6,18 +6,30 @@ namespace SortRig.Measurement.Settling;
 /// </summary>
 internal static class NelderMead2
 {
-    public static (double X, double Y) Minimum(Func<double, double, double> f, double x0, double y0, double step, double tolerance, int maxEvaluations)
+    public static (double X, double Y) Minimum(
+        Func<double, double, double> f,
+        double x0,
+        double y0,
+        double step,
+        double tolerance,
+        int maxEvaluations
+    )
     {
         double F(double x, double y) => f(x, y) is var v && double.IsFinite(v) ? v : double.PositiveInfinity;
         var p = new (double X, double Y, double V)[]
         {
-            (x0, y0, F(x0, y0)), (x0 + step, y0, F(x0 + step, y0)), (x0, y0 + step, F(x0, y0 + step)),
+            (x0, y0, F(x0, y0)),
+            (x0 + step, y0, F(x0 + step, y0)),
+            (x0, y0 + step, F(x0, y0 + step)),
         };
         var evaluations = 3;
         while (evaluations < maxEvaluations)
         {
             Array.Sort(p, (a, b) => a.V.CompareTo(b.V));
-            var size = Math.Max(Math.Max(Math.Abs(p[1].X - p[0].X), Math.Abs(p[2].X - p[0].X)), Math.Max(Math.Abs(p[1].Y - p[0].Y), Math.Abs(p[2].Y - p[0].Y)));
+            var size = Math.Max(
+                Math.Max(Math.Abs(p[1].X - p[0].X), Math.Abs(p[2].X - p[0].X)),
+                Math.Max(Math.Abs(p[1].Y - p[0].Y), Math.Abs(p[2].Y - p[0].Y))
+            );
             if (size < tolerance)
             {
                 break;

@@ -18,21 +18,44 @@ public sealed record PredictiveOptions
     /// <summary>The default options.</summary>
     public static PredictiveOptions Default { get; } = new();
 
-    /// <summary>Least time between two fits (the fit is the costly part). Default 0.25 s; valid [0, 60 s]; 0 fits on every reading.</summary>
-    public TimeSpan FitInterval { get => _fitInterval; init => _fitInterval = InRange(value, TimeSpan.Zero, TimeSpan.FromSeconds(60), nameof(FitInterval)); }
+    /// <summary>Least time between two fits (the fit is the costly part). Default 0.25 s; valid [0, 60 s]; 0 fits on
+    /// every reading.</summary>
+    public TimeSpan FitInterval
+    {
+        get => _fitInterval;
+        init => _fitInterval = InRange(value, TimeSpan.Zero, TimeSpan.FromSeconds(60), nameof(FitInterval));
+    }
 
-    /// <summary>Readings older than this (before the newest) are left out of the fit. Default 20 s; valid [1 s, 10 min].</summary>
-    public TimeSpan FitSpan { get => _fitSpan; init => _fitSpan = InRange(value, TimeSpan.FromSeconds(1), TimeSpan.FromMinutes(10), nameof(FitSpan)); }
+    /// <summary>Readings older than this (before the newest) are left out of the fit. Default 20 s; valid [1 s, 10
+    /// min].</summary>
+    public TimeSpan FitSpan
+    {
+        get => _fitSpan;
+        init => _fitSpan = InRange(value, TimeSpan.FromSeconds(1), TimeSpan.FromMinutes(10), nameof(FitSpan));
+    }
 
-    /// <summary>Finite readings after the bounce before a fit may accept. Default 12; valid [6, 100 000] (two exponentials have 5 parameters).</summary>
+    /// <summary>Finite readings after the bounce before a fit may accept. Default 12; valid [6, 100 000] (two
+    /// exponentials have 5 parameters).</summary>
     public int MinReadings
     {
         get => _minReadings;
-        init => _minReadings = value is >= 6 and <= 100_000 ? value : throw new ArgumentOutOfRangeException(nameof(MinReadings), value, "MinReadings must be in [6, 100000].");
+        init =>
+            _minReadings = value is >= 6 and <= 100_000
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(MinReadings),
+                    value,
+                    "MinReadings must be in [6, 100000]."
+                );
     }
 
-    /// <summary>Least time covered by the fitted readings before a fit may accept. Default 1 s; valid [0, 10 min].</summary>
-    public TimeSpan MinSpan { get => _minSpan; init => _minSpan = InRange(value, TimeSpan.Zero, TimeSpan.FromMinutes(10), nameof(MinSpan)); }
+    /// <summary>Least time covered by the fitted readings before a fit may accept. Default 1 s; valid [0, 10
+    /// min].</summary>
+    public TimeSpan MinSpan
+    {
+        get => _minSpan;
+        init => _minSpan = InRange(value, TimeSpan.Zero, TimeSpan.FromMinutes(10), nameof(MinSpan));
+    }
 
     /// <summary>
     /// Model-misfit allowance: the part of the recovery still to come at the newest reading (fitted value there
@@ -42,16 +65,37 @@ public sealed record PredictiveOptions
     public double MisfitFraction
     {
         get => _misfitFraction;
-        init => _misfitFraction = value is >= 0 and <= 1 ? value : throw new ArgumentOutOfRangeException(nameof(MisfitFraction), value, "MisfitFraction must be in [0, 1].");
+        init =>
+            _misfitFraction = value is >= 0 and <= 1
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(MisfitFraction),
+                    value,
+                    "MisfitFraction must be in [0, 1]."
+                );
     }
 
-    /// <summary>One-sided significance of the runs test on the residuals (too few runs: not noise). Default 0.01; valid (0, 0.5].</summary>
+    /// <summary>One-sided significance of the runs test on the residuals (too few runs: not noise). Default 0.01; valid
+    /// (0, 0.5].</summary>
     public double WhitenessAlpha
     {
         get => _whitenessAlpha;
-        init => _whitenessAlpha = value is > 0 and <= 0.5 ? value : throw new ArgumentOutOfRangeException(nameof(WhitenessAlpha), value, "WhitenessAlpha must be in (0, 0.5].");
+        init =>
+            _whitenessAlpha = value is > 0 and <= 0.5
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(WhitenessAlpha),
+                    value,
+                    "WhitenessAlpha must be in (0, 0.5]."
+                );
     }
 
     private static TimeSpan InRange(TimeSpan value, TimeSpan min, TimeSpan max, string name) =>
-        value >= min && value <= max ? value : throw new ArgumentOutOfRangeException(name, value, $"{name} must be in [{min.TotalSeconds:G4} s, {max.TotalSeconds:G4} s].");
+        value >= min && value <= max
+            ? value
+            : throw new ArgumentOutOfRangeException(
+                name,
+                value,
+                $"{name} must be in [{min.TotalSeconds:G4} s, {max.TotalSeconds:G4} s]."
+            );
 }

@@ -54,7 +54,10 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         }
 
         var newest = _readings[^1].Time;
-        if (newest - _readings[0].Time < options.MinSpan || (_lastFit is { } last && newest - last < options.FitInterval))
+        if (
+            newest - _readings[0].Time < options.MinSpan
+            || (_lastFit is { } last && newest - last < options.FitInterval)
+        )
         {
             return null;
         }
@@ -127,7 +130,8 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         var best = candidates[bestIndex];
 
         var residuals = new double[n];
-        double sumSquares = 0, lagProducts = 0;
+        double sumSquares = 0,
+            lagProducts = 0;
         for (var i = 0; i < n; i++)
         {
             residuals[i] = y[i] - best.At(t[i]);
@@ -150,9 +154,13 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         var (low, high) = (final, final);
         // The two-exponential profile is always taken, even when that fit failed: a short record cannot refuse a
         // second, slower path, and one exponential is the special case B₂ = 0 of two.
-        var twoProfile = two is { } fitted && double.IsFinite(fitted.Rss)
-            ? fitted
-            : one with { Model = RecoveryModel.TwoExponentials };
+        var twoProfile =
+            two is { } fitted && double.IsFinite(fitted.Rss)
+                ? fitted
+                : one with
+                {
+                    Model = RecoveryModel.TwoExponentials,
+                };
         foreach (var c in new[] { one, twoProfile })
         {
             if (!double.IsFinite(c.Rss))
@@ -164,17 +172,38 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
             var (pl, ph) = ExponentialFitter.ProfileInterval(t, y, c, s2, MinTimeConstantSeconds, maxTau);
             var quantile = ExponentialFitter.Threshold(c.Count - c.Parameters);
             var linear = c.Converged ? Math.Sqrt(quantile * c.VarianceOfFinal * inflation) : 0;
-            (low, high) = (Math.Min(low, Math.Min(pl, c.Final - linear)), Math.Max(high, Math.Max(ph, c.Final + linear)));
+            (low, high) = (
+                Math.Min(low, Math.Min(pl, c.Final - linear)),
+                Math.Max(high, Math.Max(ph, c.Final + linear))
+            );
         }
 
         var fitUncertainty = Math.Max(final - low, high - final) / 1.959963984540054;
         var toCome = Math.Abs(best.At(t[^1]) - best.Final);
         var allowance = options.MisfitFraction * toCome / Math.Sqrt(3);
         var z = RunsTest.Z(residuals);
-        white = RunsTest.LooksWhite(residuals, options.WhitenessAlpha)
-            && !StepTest.Significant(t, y, StepCandidates(one, two, maxTau), candidates.Min(c => c.Rss), _floor, inflation, options.WhitenessAlpha);
+        white =
+            RunsTest.LooksWhite(residuals, options.WhitenessAlpha)
+            && !StepTest.Significant(
+                t,
+                y,
+                StepCandidates(one, two, maxTau),
+                candidates.Min(c => c.Rss),
+                _floor,
+                inflation,
+                options.WhitenessAlpha
+            );
         return new RecoveryFit(
-            best.Model, final + reference, fitUncertainty, allowance,
-            [.. best.TimeConstants.Order()], n, t[^1], Math.Sqrt(sumSquares / n), z, weights[bestIndex]);
+            best.Model,
+            final + reference,
+            fitUncertainty,
+            allowance,
+            [.. best.TimeConstants.Order()],
+            n,
+            t[^1],
+            Math.Sqrt(sumSquares / n),
+            z,
+            weights[bestIndex]
+        );
     }
 }

@@ -25,8 +25,10 @@ public sealed record RecoveryFit(
     double SpanSeconds,
     double ResidualRms,
     double RunsZ,
-    double Weight)
+    double Weight
+)
 {
     /// <summary>Combined standard uncertainty of <see cref="FinalValue"/>, ohms.</summary>
-    public double StandardUncertainty => Math.Sqrt((FitUncertainty * FitUncertainty) + (MisfitUncertainty * MisfitUncertainty));
+    public double StandardUncertainty =>
+        Math.Sqrt((FitUncertainty * FitUncertainty) + (MisfitUncertainty * MisfitUncertainty));
 }

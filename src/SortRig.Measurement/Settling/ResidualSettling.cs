@@ -22,7 +22,8 @@ internal sealed class ResidualSettling(SettleOptions options, double resolutionO
     /// <summary>True when a settling span is fitted and judged (SettlingSpan &gt; 0).</summary>
     public bool SpanMode { get; } = options.SettlingSpan > TimeSpan.Zero;
 
-    /// <summary>Keeps the finite readings of the last SettlingSpan, never fewer than <paramref name="atLeast"/>.</summary>
+    /// <summary>Keeps the finite readings of the last SettlingSpan, never fewer than <paramref
+    /// name="atLeast"/>.</summary>
     public void Add(Reading reading, int atLeast)
     {
         if (!SpanMode)
@@ -68,9 +69,11 @@ internal sealed class ResidualSettling(SettleOptions options, double resolutionO
         return (Math.Abs(fit.Slope) + (t * SlopeError(fit))) * _tau * Math.Exp(-Math.Max(0, lag) / _tau);
     }
 
-    private double SlopeError(WindowStatistics fit) => Math.Max(fit.SlopeStandardError, _scatterFloor / Math.Sqrt(fit.Sxx));
+    private double SlopeError(WindowStatistics fit) =>
+        Math.Max(fit.SlopeStandardError, _scatterFloor / Math.Sqrt(fit.Sxx));
 
-    /// <summary>Adds a rectangular component of half-width a to both standard uncertainties (GUM 4.3.7, 5.1.2).</summary>
+    /// <summary>Adds a rectangular component of half-width a to both standard uncertainties (GUM 4.3.7,
+    /// 5.1.2).</summary>
     public static MeasuredValue Widen(MeasuredValue value, double halfWidth)
     {
         if (!(halfWidth > 0))

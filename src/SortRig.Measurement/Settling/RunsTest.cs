@@ -13,11 +13,16 @@ internal static class RunsTest
     /// <summary>The z statistic; 0 when there are too few residuals of either sign to judge.</summary>
     public static double Z(ReadOnlySpan<double> residuals)
     {
-        int positive = 0, negative = 0, runs = 0;
+        int positive = 0,
+            negative = 0,
+            runs = 0;
         var last = 0;
         foreach (var r in residuals)
         {
-            var sign = r > 0 ? 1 : r < 0 ? -1 : 0;
+            var sign =
+                r > 0 ? 1
+                : r < 0 ? -1
+                : 0;
             if (sign == 0)
             {
                 continue;
@@ -34,7 +39,8 @@ internal static class RunsTest
         var n = positive + negative;
         if (positive < 2 || negative < 2)
         {
-            return positive + negative >= 10 ? double.NegativeInfinity : 0; // all of one sign over many points: no noise around the model
+            // all of one sign over many points: no noise around the model
+            return positive + negative >= 10 ? double.NegativeInfinity : 0;
         }
 
         var product = 2.0 * positive * negative;
@@ -43,6 +49,8 @@ internal static class RunsTest
         return variance > 0 ? (runs - mean) / Math.Sqrt(variance) : 0;
     }
 
-    /// <summary>True when the residuals pass at one-sided significance <paramref name="alpha"/> (reject only too few runs).</summary>
-    public static bool LooksWhite(ReadOnlySpan<double> residuals, double alpha) => Z(residuals) >= Normal.InvCDF(0, 1, alpha);
+    /// <summary>True when the residuals pass at one-sided significance <paramref name="alpha"/> (reject only too few
+    /// runs).</summary>
+    public static bool LooksWhite(ReadOnlySpan<double> residuals, double alpha) =>
+        Z(residuals) >= Normal.InvCDF(0, 1, alpha);
 }

@@ -23,55 +23,105 @@ public sealed record SettleOptions
     public static SettleOptions Default { get; } = new();
 
     /// <summary>Readings in the judged window (N). Default 8; valid [3, 1000].</summary>
-    public int WindowLength { get => _windowLength; init => _windowLength = Check(value, 3, 1000, nameof(WindowLength)); }
+    public int WindowLength
+    {
+        get => _windowLength;
+        init => _windowLength = Check(value, 3, 1000, nameof(WindowLength));
+    }
 
     /// <summary>Finite readings after the bounce before acceptance is possible; at least N are always needed.
     /// Default 8; valid [1, 100000].</summary>
-    public int MinReadings { get => _minReadings; init => _minReadings = Check(value, 1, 100_000, nameof(MinReadings)); }
+    public int MinReadings
+    {
+        get => _minReadings;
+        init => _minReadings = Check(value, 1, 100_000, nameof(MinReadings));
+    }
 
     /// <summary>Target standard error of the window mean, ohms or ppm. Default 10 ppm; must be &gt; 0.</summary>
     public SettleTarget Target
     {
         get => _target;
-        init => _target = value.IsValid ? value : throw new ArgumentOutOfRangeException(nameof(Target), value, "Target must be > 0 ohms or ppm.");
+        init =>
+            _target = value.IsValid
+                ? value
+                : throw new ArgumentOutOfRangeException(nameof(Target), value, "Target must be > 0 ohms or ppm.");
     }
 
-    /// <summary>Significance level of the two-sided t test on the window's regression slope. Default 0.05; valid (0, 0.5].</summary>
+    /// <summary>Significance level of the two-sided t test on the window's regression slope. Default 0.05; valid (0,
+    /// 0.5].</summary>
     public double SlopeAlpha
     {
         get => _slopeAlpha;
-        init => _slopeAlpha = value is > 0 and <= 0.5 ? value : throw new ArgumentOutOfRangeException(nameof(SlopeAlpha), value, "SlopeAlpha must be in (0, 0.5].");
+        init =>
+            _slopeAlpha = value is > 0 and <= 0.5
+                ? value
+                : throw new ArgumentOutOfRangeException(nameof(SlopeAlpha), value, "SlopeAlpha must be in (0, 0.5].");
     }
 
-    /// <summary>|slope| × window duration must not exceed this fraction of the target. Default 0.5; valid (0, 10].</summary>
+    /// <summary>|slope| × window duration must not exceed this fraction of the target. Default 0.5; valid (0,
+    /// 10].</summary>
     public double SlopeFractionOfTarget
     {
         get => _slopeFraction;
-        init => _slopeFraction = value is > 0 and <= 10 ? value : throw new ArgumentOutOfRangeException(nameof(SlopeFractionOfTarget), value, "SlopeFractionOfTarget must be in (0, 10].");
+        init =>
+            _slopeFraction = value is > 0 and <= 10
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(SlopeFractionOfTarget),
+                    value,
+                    "SlopeFractionOfTarget must be in (0, 10]."
+                );
     }
 
-    /// <summary>Readings within this time of the insertion are ignored (contact bounce). Default 50 ms; valid [0, 10 s].</summary>
+    /// <summary>Readings within this time of the insertion are ignored (contact bounce). Default 50 ms; valid [0, 10
+    /// s].</summary>
     public TimeSpan BounceIgnore
     {
         get => _bounceIgnore;
-        init => _bounceIgnore = value >= TimeSpan.Zero && value <= TimeSpan.FromSeconds(10) ? value : throw new ArgumentOutOfRangeException(nameof(BounceIgnore), value, "BounceIgnore must be in [0, 10 s].");
+        init =>
+            _bounceIgnore =
+                value >= TimeSpan.Zero && value <= TimeSpan.FromSeconds(10)
+                    ? value
+                    : throw new ArgumentOutOfRangeException(
+                        nameof(BounceIgnore),
+                        value,
+                        "BounceIgnore must be in [0, 10 s]."
+                    );
     }
 
-    /// <summary>Longest time from insertion to a verdict before the part is declared unstable. Default 20 s; valid (0, 1 h].</summary>
+    /// <summary>Longest time from insertion to a verdict before the part is declared unstable. Default 20 s; valid (0,
+    /// 1 h].</summary>
     public TimeSpan MaxSettleTime
     {
         get => _maxSettleTime;
-        init => _maxSettleTime = value > TimeSpan.Zero && value <= TimeSpan.FromHours(1) ? value : throw new ArgumentOutOfRangeException(nameof(MaxSettleTime), value, "MaxSettleTime must be in (0, 1 h].");
+        init =>
+            _maxSettleTime =
+                value > TimeSpan.Zero && value <= TimeSpan.FromHours(1)
+                    ? value
+                    : throw new ArgumentOutOfRangeException(
+                        nameof(MaxSettleTime),
+                        value,
+                        "MaxSettleTime must be in (0, 1 h]."
+                    );
     }
 
-    /// <summary>Consecutive overload readings (after the bounce) that mean the part was removed. Default 2; valid [1, 100].</summary>
-    public int RemovalOverloads { get => _removalOverloads; init => _removalOverloads = Check(value, 1, 100, nameof(RemovalOverloads)); }
+    /// <summary>Consecutive overload readings (after the bounce) that mean the part was removed. Default 2; valid [1,
+    /// 100].</summary>
+    public int RemovalOverloads
+    {
+        get => _removalOverloads;
+        init => _removalOverloads = Check(value, 1, 100, nameof(RemovalOverloads));
+    }
 
     /// <summary>
     /// Successive differences kept for the robust noise guard: the judged SEM is the larger of the window's s/√N
     /// and the guard's σ/√N. Default 64; valid [0, 10000]; 0 judges the window alone.
     /// </summary>
-    public int NoiseHistoryLength { get => _noiseHistory; init => _noiseHistory = Check(value, 0, 10_000, nameof(NoiseHistoryLength)); }
+    public int NoiseHistoryLength
+    {
+        get => _noiseHistory;
+        init => _noiseHistory = Check(value, 0, 10_000, nameof(NoiseHistoryLength));
+    }
 
     /// <summary>
     /// Assumed upper bound of the time constant with which a handled part's excess temperature, and so its excess
@@ -84,7 +134,15 @@ public sealed record SettleOptions
     public TimeSpan AssumedTimeConstant
     {
         get => _assumedTimeConstant;
-        init => _assumedTimeConstant = value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10) ? value : throw new ArgumentOutOfRangeException(nameof(AssumedTimeConstant), value, "AssumedTimeConstant must be in [0, 10 min].");
+        init =>
+            _assumedTimeConstant =
+                value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10)
+                    ? value
+                    : throw new ArgumentOutOfRangeException(
+                        nameof(AssumedTimeConstant),
+                        value,
+                        "AssumedTimeConstant must be in [0, 10 min]."
+                    );
     }
 
     /// <summary>
@@ -97,7 +155,15 @@ public sealed record SettleOptions
     public TimeSpan SettlingSpan
     {
         get => _settlingSpan;
-        init => _settlingSpan = value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10) ? value : throw new ArgumentOutOfRangeException(nameof(SettlingSpan), value, "SettlingSpan must be in [0, 10 min].");
+        init =>
+            _settlingSpan =
+                value >= TimeSpan.Zero && value <= TimeSpan.FromMinutes(10)
+                    ? value
+                    : throw new ArgumentOutOfRangeException(
+                        nameof(SettlingSpan),
+                        value,
+                        "SettlingSpan must be in [0, 10 min]."
+                    );
     }
 
     /// <summary>
@@ -114,15 +180,29 @@ public sealed record SettleOptions
     public SpecPeriod SpecPeriod
     {
         get => _specPeriod;
-        init => _specPeriod = Enum.IsDefined(value) ? value : throw new ArgumentOutOfRangeException(nameof(SpecPeriod), value, "SpecPeriod must be Hours24 or Year1.");
+        init =>
+            _specPeriod = Enum.IsDefined(value)
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(SpecPeriod),
+                    value,
+                    "SpecPeriod must be Hours24 or Year1."
+                );
     }
 
-    /// <summary>Uncertainty model assumptions for accepted values. Default <see cref="UncertaintyModel.Default"/>.</summary>
-    public UncertaintyModel Model { get => _model; init => _model = value ?? throw new ArgumentNullException(nameof(Model)); }
+    /// <summary>Uncertainty model assumptions for accepted values. Default <see
+    /// cref="UncertaintyModel.Default"/>.</summary>
+    public UncertaintyModel Model
+    {
+        get => _model;
+        init => _model = value ?? throw new ArgumentNullException(nameof(Model));
+    }
 
     /// <summary>Finite readings needed before acceptance: max(MinReadings, WindowLength).</summary>
     public int RequiredReadings => Math.Max(MinReadings, WindowLength);
 
     private static int Check(int value, int min, int max, string name) =>
-        value >= min && value <= max ? value : throw new ArgumentOutOfRangeException(name, value, $"{name} must be in [{min}, {max}].");
+        value >= min && value <= max
+            ? value
+            : throw new ArgumentOutOfRangeException(name, value, $"{name} must be in [{min}, {max}].");
 }

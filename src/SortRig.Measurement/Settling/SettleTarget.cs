@@ -28,5 +28,7 @@ public readonly record struct SettleTarget(double Value, SettleTargetUnit Unit)
     public double InOhms(double value) => Unit == SettleTargetUnit.Ohms ? Value : Value * 1e-6 * Math.Abs(value);
 
     private static double Positive(double x) =>
-        double.IsFinite(x) && x > 0 ? x : throw new ArgumentOutOfRangeException(nameof(x), x, "A settle target must be finite and > 0.");
+        double.IsFinite(x) && x > 0
+            ? x
+            : throw new ArgumentOutOfRangeException(nameof(x), x, "A settle target must be finite and > 0.");
 }

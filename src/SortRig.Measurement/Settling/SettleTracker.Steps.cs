@@ -16,7 +16,9 @@ public sealed partial class SettleTracker
                 return Removed(reading);
             }
 
-            return TimedOut(reading) ? Unstable(reading, UnstableReason.IntermittentContact) : Verdict(SettleState.Settling, reading);
+            return TimedOut(reading)
+                ? Unstable(reading, UnstableReason.IntermittentContact)
+                : Verdict(SettleState.Settling, reading);
         }
 
         if (_overloadRun > 0)
@@ -45,12 +47,32 @@ public sealed partial class SettleTracker
 
         var window = _window.ToArray();
         _stats = WindowStatistics.Of(window, _criticalT) is { } raw
-            ? raw with { Sem = Math.Max(raw.Sem, _noise.Sigma / Math.Sqrt(window.Length)) }
+            ? raw with
+            {
+                Sem = Math.Max(raw.Sem, _noise.Sigma / Math.Sqrt(window.Length)),
+            }
             : null;
-        if (_collected >= _options.RequiredReadings && _window.Count == _options.WindowLength && _stats is { } s && Judge(s, window, out var residual))
+        if (
+            _collected >= _options.RequiredReadings
+            && _window.Count == _options.WindowLength
+            && _stats is { } s
+            && Judge(s, window, out var residual)
+        )
         {
-            var value = ResistanceUncertainty.For(window, _range, _nplc, _options.SpecPeriod, _options.FourWire, _options.Model);
-            var acceptance = new SettleAcceptance(ResidualSettling.Widen(value, residual), window, reading.Time - _insertedAt!.Value, residual);
+            var value = ResistanceUncertainty.For(
+                window,
+                _range,
+                _nplc,
+                _options.SpecPeriod,
+                _options.FourWire,
+                _options.Model
+            );
+            var acceptance = new SettleAcceptance(
+                ResidualSettling.Widen(value, residual),
+                window,
+                reading.Time - _insertedAt!.Value,
+                residual
+            );
             var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
             _state = SettleState.AwaitingRemoval;
             return verdict;
@@ -70,7 +92,14 @@ public sealed partial class SettleTracker
     /// </summary>
     private SettleVerdict AcceptPredicted(Reading reading, Reading[] window, RecoveryFit fit)
     {
-        var meter = ResistanceUncertainty.For([reading], _range, _nplc, _options.SpecPeriod, _options.FourWire, _options.Model);
+        var meter = ResistanceUncertainty.For(
+            [reading],
+            _range,
+            _nplc,
+            _options.SpecPeriod,
+            _options.FourWire,
+            _options.Model
+        );
         var u = fit.StandardUncertainty;
         var value = meter with
         {
@@ -78,13 +107,21 @@ public sealed partial class SettleTracker
             StandardUncertainty = Math.Sqrt((meter.StandardUncertainty * meter.StandardUncertainty) + (u * u)),
             TransferUncertainty = Math.Sqrt((meter.TransferUncertainty * meter.TransferUncertainty) + (u * u)),
         };
-        var acceptance = new SettleAcceptance(value, window, reading.Time - _insertedAt!.Value, 0, SettleRule.Predictive, fit);
+        var acceptance = new SettleAcceptance(
+            value,
+            window,
+            reading.Time - _insertedAt!.Value,
+            0,
+            SettleRule.Predictive,
+            fit
+        );
         var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
         _state = SettleState.AwaitingRemoval;
         return verdict;
     }
 
-    /// <summary>Judges a full window; counts why it failed, for the reason given on timeout. Gives the residual half-width, ohms.</summary>
+    /// <summary>Judges a full window; counts why it failed, for the reason given on timeout. Gives the residual
+    /// half-width, ohms.</summary>
     private bool Judge(WindowStatistics s, Reading[] window, out double residual)
     {
         var target = _options.Target.InOhms(s.Mean);
@@ -143,7 +180,10 @@ public sealed partial class SettleTracker
 
     private SettleVerdict Unstable(Reading reading, UnstableReason reason)
     {
-        var verdict = Verdict(SettleState.Unstable, reading) with { Failure = new SettleFailure(reason, reading.Time - _insertedAt!.Value) };
+        var verdict = Verdict(SettleState.Unstable, reading) with
+        {
+            Failure = new SettleFailure(reason, reading.Time - _insertedAt!.Value),
+        };
         _state = SettleState.AwaitingRemoval;
         _overloadRun = 0;
         return verdict;
@@ -159,7 +199,9 @@ public sealed partial class SettleTracker
         }
 
         _overloadRun++;
-        return _overloadRun >= _options.RemovalOverloads ? Removed(reading) : Verdict(SettleState.AwaitingRemoval, reading);
+        return _overloadRun >= _options.RemovalOverloads
+            ? Removed(reading)
+            : Verdict(SettleState.AwaitingRemoval, reading);
     }
 
     private SettleVerdict Removed(Reading reading)

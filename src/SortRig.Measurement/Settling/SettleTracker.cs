@@ -44,19 +44,29 @@ public sealed partial class SettleTracker
         _window = new Queue<Reading>(_options.WindowLength + 1);
         _noise = new NoiseGuard(_options.NoiseHistoryLength);
         _residual = new ResidualSettling(_options, _nplc.ResolutionPpmOfRange * 1e-6 * _range.FullScale);
-        _predictive = _options.Predictive is { } predictive ? new PredictiveSettling(predictive, _nplc.ResolutionPpmOfRange * 1e-6 * _range.FullScale, _options.AssumedTimeConstant) : null;
+        _predictive = _options.Predictive is { } predictive
+            ? new PredictiveSettling(
+                predictive,
+                _nplc.ResolutionPpmOfRange * 1e-6 * _range.FullScale,
+                _options.AssumedTimeConstant
+            )
+            : null;
         if (_predictive is not null && _options.AssumedTimeConstant < TimeSpan.FromSeconds(0.1))
         {
             throw new ArgumentException(
-                "SettleOptions.Predictive needs SettleOptions.AssumedTimeConstant >= 0.1 s: it bounds the time constants the recovery fit may use.",
-                nameof(options));
+                "SettleOptions.Predictive needs SettleOptions.AssumedTimeConstant >= 0.1 s: it bounds the time "
+                    + "constants the recovery fit may use.",
+                nameof(options)
+            );
         }
 
         if (_residual.SpanMode && _options.AssumedTimeConstant == TimeSpan.Zero)
         {
             throw new ArgumentException(
-                $"SettleOptions.SettlingSpan ({_options.SettlingSpan.TotalSeconds:G4} s) needs SettleOptions.AssumedTimeConstant > 0: the span's residual is judged in units of it.",
-                nameof(options));
+                $"SettleOptions.SettlingSpan ({_options.SettlingSpan.TotalSeconds:G4} s) needs "
+                    + $"SettleOptions.AssumedTimeConstant > 0: the span's residual is judged in units of it.",
+                nameof(options)
+            );
         }
     }
 
@@ -145,7 +155,12 @@ public sealed partial class SettleTracker
     /// <summary>
     /// Feeds readings until a verdict (Accepted or Unstable) or the end of the sequence. For benchmarks and replays.
     /// </summary>
-    public static SettleRun Run(IEnumerable<Reading> readings, RangeSpec range, NplcSpec nplc, SettleOptions? options = null)
+    public static SettleRun Run(
+        IEnumerable<Reading> readings,
+        RangeSpec range,
+        NplcSpec nplc,
+        SettleOptions? options = null
+    )
     {
         ArgumentNullException.ThrowIfNull(readings);
         var tracker = new SettleTracker(range, nplc, options);

@@ -11,7 +11,8 @@ namespace SortRig.Measurement.Settling;
 /// <param name="SemPpm">The same in ppm of the mean.</param>
 /// <param name="TargetOhms">The target SEM in ohms at the current mean; null before any finite reading.</param>
 /// <param name="Elapsed">Time since insertion (zero when empty).</param>
-/// <param name="ReadingsCollected">Finite readings counted toward acceptance since the bounce or the last flicker.</param>
+/// <param name="ReadingsCollected">Finite readings counted toward acceptance since the bounce or the last
+/// flicker.</param>
 /// <param name="Flickers">Overload flickers seen since insertion.</param>
 public sealed record SettleLive(
     DateTimeOffset Time,
@@ -22,20 +23,27 @@ public sealed record SettleLive(
     double? TargetOhms,
     TimeSpan Elapsed,
     int ReadingsCollected,
-    int Flickers);
+    int Flickers
+);
 
 /// <summary>An accepted part.</summary>
 /// <param name="Value">The window mean with its absolute and transfer uncertainties (k = 2).</param>
 /// <param name="Readings">The window readings the value was computed from, oldest first.</param>
 /// <param name="TimeToSettle">From insertion (first finite reading) to the accepting reading.</param>
 /// <param name="ResidualHalfWidth">Half-width a of the residual-settling component included (rectangular) in the
-/// uncertainties of <paramref name="Value"/>, ohms; 0 when <see cref="SettleOptions.AssumedTimeConstant"/> is 0.</param>
+/// uncertainties of <paramref name="Value"/>, ohms; 0 when <see cref="SettleOptions.AssumedTimeConstant"/> is
+/// 0.</param>
 /// <param name="AcceptedBy">The rule that accepted the part.</param>
 /// <param name="Fit">The recovery fit when <paramref name="AcceptedBy"/> is Predictive: then <paramref name="Value"/>
 /// is its predicted final value, with the fit's uncertainty added to the meter's terms; null otherwise.</param>
 public sealed record SettleAcceptance(
-    MeasuredValue Value, IReadOnlyList<Reading> Readings, TimeSpan TimeToSettle, double ResidualHalfWidth = 0,
-    SettleRule AcceptedBy = SettleRule.Averaging, RecoveryFit? Fit = null);
+    MeasuredValue Value,
+    IReadOnlyList<Reading> Readings,
+    TimeSpan TimeToSettle,
+    double ResidualHalfWidth = 0,
+    SettleRule AcceptedBy = SettleRule.Averaging,
+    RecoveryFit? Fit = null
+);
 
 /// <summary>A part declared unstable.</summary>
 /// <param name="Reason">Why.</param>
@@ -47,7 +55,12 @@ public sealed record SettleFailure(UnstableReason Reason, TimeSpan Elapsed);
 /// <param name="Live">Figures for a live view.</param>
 /// <param name="Acceptance">Set only when <paramref name="State"/> is Accepted.</param>
 /// <param name="Failure">Set only when <paramref name="State"/> is Unstable.</param>
-public sealed record SettleVerdict(SettleState State, SettleLive Live, SettleAcceptance? Acceptance = null, SettleFailure? Failure = null);
+public sealed record SettleVerdict(
+    SettleState State,
+    SettleLive Live,
+    SettleAcceptance? Acceptance = null,
+    SettleFailure? Failure = null
+);
 
 /// <summary>The outcome of <see cref="SettleTracker.Run"/>.</summary>
 /// <param name="Final">The Accepted or Unstable verdict, or the last verdict when the readings ran out first.</param>

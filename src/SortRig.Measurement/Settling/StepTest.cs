@@ -21,7 +21,15 @@ internal static class StepTest
     /// <param name="floorVariance">Least variance of one reading (quantisation).</param>
     /// <param name="inflation">Factor for correlated residuals (≥ 1).</param>
     /// <param name="alpha">Significance over all positions.</param>
-    public static bool Significant(double[] t, double[] y, IEnumerable<double[]> tauSets, double rssToBeat, double floorVariance, double inflation, double alpha)
+    public static bool Significant(
+        double[] t,
+        double[] y,
+        IEnumerable<double[]> tauSets,
+        double rssToBeat,
+        double floorVariance,
+        double inflation,
+        double alpha
+    )
     {
         var n = t.Length;
         if (n < 10)
@@ -73,7 +81,9 @@ internal static class StepTest
 
         // Suffix sums give the normal equations with the step column H_k (1 from reading k on) in O(1) per k.
         var suffixRow = new double[m];
-        double suffixY = 0, count = 0, best = double.PositiveInfinity;
+        double suffixY = 0,
+            count = 0,
+            best = double.PositiveInfinity;
         var big = Matrix<double>.Build.Dense(m + 1, m + 1);
         var rhs = Vector<double>.Build.Dense(m + 1);
         for (var k = n - 1; k >= 3; k--)

@@ -15,7 +15,15 @@ namespace SortRig.Measurement.Settling;
 /// <param name="Sem">s/√n of the window values, ohms.</param>
 /// <param name="SlopeStandardError">SE(b) = √(SSR/(n−2)/Sxx), ohms per second.</param>
 /// <param name="Sxx">Σ(t − t̄)² of the reading times, s².</param>
-internal readonly record struct WindowStatistics(double Mean, double Slope, bool SlopeSignificant, double Duration, double Sem, double SlopeStandardError, double Sxx)
+internal readonly record struct WindowStatistics(
+    double Mean,
+    double Slope,
+    bool SlopeSignificant,
+    double Duration,
+    double Sem,
+    double SlopeStandardError,
+    double Sxx
+)
 {
     /// <summary>|slope| × window duration, ohms: how far the value moved across the window.</summary>
     public double Excursion => Math.Abs(Slope) * Duration;
@@ -50,7 +58,8 @@ internal readonly record struct WindowStatistics(double Mean, double Slope, bool
 
         var (intercept, slope) = Fit.Line(x, y);
         var xMean = x.Average();
-        double sxx = 0, ssr = 0;
+        double sxx = 0,
+            ssr = 0;
         for (var i = 0; i < n; i++)
         {
             var dx = x[i] - xMean;
@@ -62,6 +71,14 @@ internal readonly record struct WindowStatistics(double Mean, double Slope, bool
         var seSlope = Math.Sqrt(ssr / (n - 2) / sxx);
         var significant = seSlope > 0 ? Math.Abs(slope / seSlope) > criticalT : slope != 0;
         var (meanOffset, variance) = MathNet.Numerics.Statistics.ArrayStatistics.MeanVariance(y);
-        return new WindowStatistics(v0 + meanOffset, slope, significant, duration, Math.Sqrt(variance / n), seSlope, sxx);
+        return new WindowStatistics(
+            v0 + meanOffset,
+            slope,
+            significant,
+            duration,
+            Math.Sqrt(variance / n),
+            seSlope,
+            sxx
+        );
     }
 }

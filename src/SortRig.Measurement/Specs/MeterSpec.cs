@@ -14,4 +14,5 @@ public sealed record MeterSpec(
     IReadOnlyList<RangeSpec> Ranges,
     IReadOnlyList<NplcSpec> Nplcs,
     bool FourWire,
-    TimeSpan RangeChangeSettle);
+    TimeSpan RangeChangeSettle
+);

@@ -6,7 +6,13 @@ namespace SortRig.Measurement.Specs;
 /// <param name="ResolutionPpmOfRange">Least significant step, in ppm of the range full scale.</param>
 /// <param name="ReadingsPerSecond">Reading rate with autozero on, at 50 Hz line.</param>
 /// <param name="NoisePpmOfRange">RMS reading noise in ppm of range (typical); 0 when unknown.</param>
-public sealed record NplcSpec(double Nplc, double Digits, double ResolutionPpmOfRange, double ReadingsPerSecond, double NoisePpmOfRange)
+public sealed record NplcSpec(
+    double Nplc,
+    double Digits,
+    double ResolutionPpmOfRange,
+    double ReadingsPerSecond,
+    double NoisePpmOfRange
+)
 {
     /// <summary>Resolution in ohms on a range of the given full scale.</summary>
     public double Resolution(double rangeFullScale) => ResolutionPpmOfRange * 1e-6 * rangeFullScale;

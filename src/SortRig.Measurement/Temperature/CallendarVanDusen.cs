@@ -31,22 +31,38 @@ public sealed record CallendarVanDusen
     {
         if (!double.IsFinite(r0) || r0 <= 0)
         {
-            throw new ArgumentOutOfRangeException(nameof(r0), r0, "R0 must be a finite resistance > 0 ohm (100 for Pt100, 1000 for Pt1000).");
+            throw new ArgumentOutOfRangeException(
+                nameof(r0),
+                r0,
+                "R0 must be a finite resistance > 0 ohm (100 for Pt100, 1000 for Pt1000)."
+            );
         }
 
         if (!double.IsFinite(a) || a <= 0)
         {
-            throw new ArgumentOutOfRangeException(nameof(a), a, "Coefficient A must be finite and > 0 1/degC (IEC 60751: 3.9083e-3).");
+            throw new ArgumentOutOfRangeException(
+                nameof(a),
+                a,
+                "Coefficient A must be finite and > 0 1/degC (IEC 60751: 3.9083e-3)."
+            );
         }
 
         if (!double.IsFinite(b) || b >= 0)
         {
-            throw new ArgumentOutOfRangeException(nameof(b), b, "Coefficient B must be finite and < 0 1/degC^2 (IEC 60751: -5.775e-7).");
+            throw new ArgumentOutOfRangeException(
+                nameof(b),
+                b,
+                "Coefficient B must be finite and < 0 1/degC^2 (IEC 60751: -5.775e-7)."
+            );
         }
 
         if (!double.IsFinite(c))
         {
-            throw new ArgumentOutOfRangeException(nameof(c), c, "Coefficient C must be finite (IEC 60751: -4.183e-12 1/degC^4).");
+            throw new ArgumentOutOfRangeException(
+                nameof(c),
+                c,
+                "Coefficient C must be finite (IEC 60751: -4.183e-12 1/degC^4)."
+            );
         }
 
         R0 = r0;
@@ -79,14 +95,20 @@ public sealed record CallendarVanDusen
     {
         if (!double.IsFinite(celsius) || celsius < MinimumCelsius || celsius > MaximumCelsius)
         {
-            throw new ArgumentOutOfRangeException(nameof(celsius), celsius, $"Temperature must be within {MinimumCelsius}..{MaximumCelsius} degC (IEC 60751 range).");
+            throw new ArgumentOutOfRangeException(
+                nameof(celsius),
+                celsius,
+                $"Temperature must be within {MinimumCelsius}..{MaximumCelsius} degC (IEC 60751 range)."
+            );
         }
 
         return R0 * Ratio(celsius);
     }
 
-    /// <summary>Temperature for a measured resistance, degC: closed form at or above 0 degC, Newton iteration below.</summary>
-    /// <param name="ohms">Resistance, ohms, within R(-200 degC)..R(850 degC), widened by 0.01 % of R0 at both ends.</param>
+    /// <summary>Temperature for a measured resistance, degC: closed form at or above 0 degC, Newton iteration
+    /// below.</summary>
+    /// <param name="ohms">Resistance, ohms, within R(-200 degC)..R(850 degC), widened by 0.01 % of R0 at both
+    /// ends.</param>
     public double Temperature(double ohms) => CallendarVanDusenInverse.Solve(this, ohms);
 
     /// <summary>R(t)/R0 without range checks.</summary>

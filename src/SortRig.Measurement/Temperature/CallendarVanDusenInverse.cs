@@ -16,7 +16,11 @@ internal static class CallendarVanDusenInverse
         if (!double.IsFinite(ohms) || ohms < low || ohms > high)
         {
             throw new ArgumentOutOfRangeException(
-                nameof(ohms), ohms, $"Resistance must be within {low:G6}..{high:G6} ohm (R0 = {cvd.R0} ohm over -200..850 degC, plus 0.01 % of R0).");
+                nameof(ohms),
+                ohms,
+                $"Resistance must be within {low:G6}..{high:G6} ohm (R0 = {cvd.R0} ohm over -200..850 degC, plus "
+                    + $"0.01 % of R0)."
+            );
         }
 
         double quadratic = Quadratic(cvd, ohms / cvd.R0);
@@ -44,6 +48,8 @@ internal static class CallendarVanDusenInverse
             }
         }
 
-        throw new InvalidOperationException($"Callendar-Van Dusen inverse did not converge for R/R0 = {ratio:R} within {MaxIterations} iterations.");
+        throw new InvalidOperationException(
+            $"Callendar-Van Dusen inverse did not converge for R/R0 = {ratio:R} within {MaxIterations} iterations."
+        );
     }
 }

@@ -1,6 +1,7 @@
 namespace SortRig.Measurement.Temperature;
 
-/// <summary>Shorthand for the IEC 60751 Pt100 sensor (R0 = 100 ohm), as used by the bench thermometer channel.</summary>
+/// <summary>Shorthand for the IEC 60751 Pt100 sensor (R0 = 100 ohm), as used by the bench thermometer
+/// channel.</summary>
 public static class Pt100
 {
     /// <summary>Resistance of a Pt100 at <paramref name="celsius"/> (-200..850 degC), ohms.</summary>

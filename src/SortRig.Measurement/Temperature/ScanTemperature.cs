@@ -35,10 +35,15 @@ public static class ScanTemperature
     /// the parts; the one that is known when the other is missing (null when both are); their mean when both were
     /// taken at the same instant.
     /// </summary>
-    /// <param name="before">The thermometer reading before the parts and its temperature (null degC when unusable).</param>
+    /// <param name="before">The thermometer reading before the parts and its temperature (null degC when
+    /// unusable).</param>
     /// <param name="after">The thermometer reading after the parts and its temperature.</param>
     /// <param name="time">When the part was read.</param>
-    public static double? Interpolate((Reading Reading, double? Celsius)? before, (Reading Reading, double? Celsius)? after, DateTimeOffset time)
+    public static double? Interpolate(
+        (Reading Reading, double? Celsius)? before,
+        (Reading Reading, double? Celsius)? after,
+        DateTimeOffset time
+    )
     {
         if (before?.Celsius is not { } t1)
         {

@@ -9,16 +9,16 @@ namespace SortRig.Measurement.Uncertainty;
 /// <param name="Components">The lines of the budget; may be empty (u_c = 0).</param>
 public sealed record Budget(IReadOnlyList<BudgetComponent> Components)
 {
-    /// <summary>The level of confidence that k = 2 gives for a normal distribution, 95.45 % (JCGM 100:2008 G.2.3, Table G.1).</summary>
+    /// <summary>The level of confidence that k = 2 gives for a normal distribution, 95.45 % (JCGM 100:2008 G.2.3, Table
+    /// G.1).</summary>
     public const double TwoSigmaLevel = 0.9545;
 
     /// <summary>Creates a budget from components.</summary>
     public Budget(params BudgetComponent[] components)
-        : this((IReadOnlyList<BudgetComponent>)components)
-    {
-    }
+        : this((IReadOnlyList<BudgetComponent>)components) { }
 
-    /// <summary>Combined standard uncertainty u_c(y) = √Σ (c_i u(x_i))² (JCGM 100:2008 eq. 10), unit of the output.</summary>
+    /// <summary>Combined standard uncertainty u_c(y) = √Σ (c_i u(x_i))² (JCGM 100:2008 eq. 10), unit of the
+    /// output.</summary>
     public double CombinedStandardUncertainty
     {
         get
@@ -56,11 +56,16 @@ public sealed record Budget(IReadOnlyList<BudgetComponent> Components)
         }
     }
 
-    /// <summary>Expanded uncertainty U = k u_c (JCGM 100:2008 eq. 18). <paramref name="coverageFactor"/> default 2, must be &gt; 0.</summary>
+    /// <summary>Expanded uncertainty U = k u_c (JCGM 100:2008 eq. 18). <paramref name="coverageFactor"/> default 2,
+    /// must be &gt; 0.</summary>
     public double Expanded(double coverageFactor = 2.0) =>
         coverageFactor > 0 && double.IsFinite(coverageFactor)
             ? coverageFactor * CombinedStandardUncertainty
-            : throw new ArgumentOutOfRangeException(nameof(coverageFactor), coverageFactor, "Coverage factor k must be finite and > 0.");
+            : throw new ArgumentOutOfRangeException(
+                nameof(coverageFactor),
+                coverageFactor,
+                "Coverage factor k must be finite and > 0."
+            );
 
     /// <summary>
     /// Coverage factor k = t_p(ν_eff) from Student's t for a level of confidence p (JCGM 100:2008 G.4.1, G.6.4),
@@ -72,7 +77,11 @@ public sealed record Budget(IReadOnlyList<BudgetComponent> Components)
     {
         if (!(level > 0 && level < 1))
         {
-            throw new ArgumentOutOfRangeException(nameof(level), level, "Level of confidence must be in (0, 1), e.g. 0.9545.");
+            throw new ArgumentOutOfRangeException(
+                nameof(level),
+                level,
+                "Level of confidence must be in (0, 1), e.g. 0.9545."
+            );
         }
 
         var q = (1.0 + level) / 2.0;
@@ -82,6 +91,7 @@ public sealed record Budget(IReadOnlyList<BudgetComponent> Components)
             : StudentT.InvCDF(0, 1, Math.Max(1.0, Math.Floor(Math.Round(nu, 1))), q);
     }
 
-    /// <summary>Expanded uncertainty U_p = t_p(ν_eff) u_c at a level of confidence (see <see cref="CoverageFactorAt"/>).</summary>
+    /// <summary>Expanded uncertainty U_p = t_p(ν_eff) u_c at a level of confidence (see <see
+    /// cref="CoverageFactorAt"/>).</summary>
     public double ExpandedAt(double level = TwoSigmaLevel) => CoverageFactorAt(level) * CombinedStandardUncertainty;
 }

@@ -22,28 +22,46 @@ public sealed record BudgetComponent(
     double StandardUncertainty,
     double Sensitivity = 1.0,
     double DegreesOfFreedom = double.PositiveInfinity,
-    UncertaintyKind Kind = UncertaintyKind.TypeB)
+    UncertaintyKind Kind = UncertaintyKind.TypeB
+)
 {
     /// <summary>Name of the component; not empty.</summary>
-    public string Name { get; init; } = string.IsNullOrWhiteSpace(Name)
-        ? throw new ArgumentException("A budget component needs a name.", nameof(Name))
-        : Name;
+    public string Name { get; init; } =
+        string.IsNullOrWhiteSpace(Name)
+            ? throw new ArgumentException("A budget component needs a name.", nameof(Name))
+            : Name;
 
     /// <summary>u(x_i), finite and &gt;= 0.</summary>
-    public double StandardUncertainty { get; init; } = double.IsFinite(StandardUncertainty) && StandardUncertainty >= 0
-        ? StandardUncertainty
-        : throw new ArgumentOutOfRangeException(nameof(StandardUncertainty), StandardUncertainty, $"Component '{Name}': u must be finite and >= 0.");
+    public double StandardUncertainty { get; init; } =
+        double.IsFinite(StandardUncertainty) && StandardUncertainty >= 0
+            ? StandardUncertainty
+            : throw new ArgumentOutOfRangeException(
+                nameof(StandardUncertainty),
+                StandardUncertainty,
+                $"Component '{Name}': u must be finite and >= 0."
+            );
 
     /// <summary>c_i, finite.</summary>
-    public double Sensitivity { get; init; } = double.IsFinite(Sensitivity)
-        ? Sensitivity
-        : throw new ArgumentOutOfRangeException(nameof(Sensitivity), Sensitivity, $"Component '{Name}': sensitivity must be finite.");
+    public double Sensitivity { get; init; } =
+        double.IsFinite(Sensitivity)
+            ? Sensitivity
+            : throw new ArgumentOutOfRangeException(
+                nameof(Sensitivity),
+                Sensitivity,
+                $"Component '{Name}': sensitivity must be finite."
+            );
 
     /// <summary>ν_i, &gt; 0 (may be +∞).</summary>
-    public double DegreesOfFreedom { get; init; } = DegreesOfFreedom > 0
-        ? DegreesOfFreedom
-        : throw new ArgumentOutOfRangeException(nameof(DegreesOfFreedom), DegreesOfFreedom, $"Component '{Name}': degrees of freedom must be > 0 (or +infinity).");
+    public double DegreesOfFreedom { get; init; } =
+        DegreesOfFreedom > 0
+            ? DegreesOfFreedom
+            : throw new ArgumentOutOfRangeException(
+                nameof(DegreesOfFreedom),
+                DegreesOfFreedom,
+                $"Component '{Name}': degrees of freedom must be > 0 (or +infinity)."
+            );
 
-    /// <summary>Contribution u_i(y) = |c_i| u(x_i) to the output, in the unit of the output (JCGM 100:2008 eq. 11b).</summary>
+    /// <summary>Contribution u_i(y) = |c_i| u(x_i) to the output, in the unit of the output (JCGM 100:2008 eq.
+    /// 11b).</summary>
     public double Contribution => Math.Abs(Sensitivity) * StandardUncertainty;
 }

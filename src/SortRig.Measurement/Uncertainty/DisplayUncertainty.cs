@@ -16,7 +16,8 @@ public static class DisplayUncertainty
         return TypeB.Rectangular(range.Step / 2);
     }
 
-    /// <summary>Standard uncertainty of the accuracy spec at <paramref name="value"/>: a / √3, a = % rdg × value + digits × step.</summary>
+    /// <summary>Standard uncertainty of the accuracy spec at <paramref name="value"/>: a / √3, a = % rdg × value +
+    /// digits × step.</summary>
     public static double Accuracy(DisplayRange range, double value)
     {
         ArgumentNullException.ThrowIfNull(range);
@@ -42,6 +43,10 @@ public static class DisplayUncertainty
         var f = (model ?? UncertaintyModel.Default).ShortTermFractionOf24Hours;
         var res = Resolution(range);
         var acc = Accuracy(range, value);
-        return new MeasuredValue(value, Math.Sqrt((res * res) + (acc * acc)), Math.Sqrt((res * res) + (f * f * acc * acc)));
+        return new MeasuredValue(
+            value,
+            Math.Sqrt((res * res) + (acc * acc)),
+            Math.Sqrt((res * res) + (f * f * acc * acc))
+        );
     }
 }

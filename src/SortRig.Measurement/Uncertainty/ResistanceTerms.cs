@@ -12,8 +12,10 @@ internal static class ResistanceTerms
     public const string ShortTermName = "short-term stability (fraction of 24 h spec)";
     public const string LeadName = "2-wire lead and contact variation (rectangular)";
 
-    /// <summary>Resolution: half the least significant step as a rectangular half-width (JCGM 100:2008 F.2.2.1).</summary>
-    public static double Resolution(RangeSpec range, NplcSpec nplc) => TypeB.Rectangular(nplc.Resolution(range.FullScale) / 2.0);
+    /// <summary>Resolution: half the least significant step as a rectangular half-width (JCGM 100:2008
+    /// F.2.2.1).</summary>
+    public static double Resolution(RangeSpec range, NplcSpec nplc) =>
+        TypeB.Rectangular(nplc.Resolution(range.FullScale) / 2.0);
 
     /// <summary>Predicted noise of the mean of n readings from the spec'd RMS noise.</summary>
     public static double NoiseOfMean(RangeSpec range, NplcSpec nplc, int n) =>

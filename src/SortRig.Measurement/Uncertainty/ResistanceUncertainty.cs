@@ -21,11 +21,21 @@ public static class ResistanceUncertainty
     /// <param name="fourWire">True for a 4-wire measurement (default); false adds the lead term.</param>
     /// <param name="model">Model assumptions; <see cref="UncertaintyModel.Default"/> when null.</param>
     public static MeasuredValue For(
-        IReadOnlyList<Reading> readings, RangeSpec range, NplcSpec nplc, SpecPeriod period, bool fourWire = true, UncertaintyModel? model = null)
+        IReadOnlyList<Reading> readings,
+        RangeSpec range,
+        NplcSpec nplc,
+        SpecPeriod period,
+        bool fourWire = true,
+        UncertaintyModel? model = null
+    )
     {
         var absolute = AbsoluteBudget(readings, range, nplc, period, fourWire, model);
         var transfer = TransferBudget(readings, range, nplc, fourWire, model);
-        return new MeasuredValue(Mean(Values(readings)), absolute.CombinedStandardUncertainty, transfer.CombinedStandardUncertainty);
+        return new MeasuredValue(
+            Mean(Values(readings)),
+            absolute.CombinedStandardUncertainty,
+            transfer.CombinedStandardUncertainty
+        );
     }
 
     /// <summary>
@@ -33,7 +43,13 @@ public static class ResistanceUncertainty
     /// the transfer uncertainty never exceeds the absolute one.
     /// </summary>
     public static Budget AbsoluteBudget(
-        IReadOnlyList<Reading> readings, RangeSpec range, NplcSpec nplc, SpecPeriod period, bool fourWire = true, UncertaintyModel? model = null)
+        IReadOnlyList<Reading> readings,
+        RangeSpec range,
+        NplcSpec nplc,
+        SpecPeriod period,
+        bool fourWire = true,
+        UncertaintyModel? model = null
+    )
     {
         model ??= UncertaintyModel.Default;
         var values = Values(readings);
@@ -44,21 +60,41 @@ public static class ResistanceUncertainty
 
     /// <summary>The transfer budget, ohms: what matters when comparing parts on one range within a session.</summary>
     public static Budget TransferBudget(
-        IReadOnlyList<Reading> readings, RangeSpec range, NplcSpec nplc, bool fourWire = true, UncertaintyModel? model = null)
+        IReadOnlyList<Reading> readings,
+        RangeSpec range,
+        NplcSpec nplc,
+        bool fourWire = true,
+        UncertaintyModel? model = null
+    )
     {
         model ??= UncertaintyModel.Default;
         var values = Values(readings);
         var shortTerm = ResistanceTerms.ShortTerm(range, Mean(values), model);
-        return Build(values, range, nplc, fourWire, model, new BudgetComponent(ResistanceTerms.ShortTermName, shortTerm));
+        return Build(
+            values,
+            range,
+            nplc,
+            fourWire,
+            model,
+            new BudgetComponent(ResistanceTerms.ShortTermName, shortTerm)
+        );
     }
 
-    private static Budget Build(double[] values, RangeSpec range, NplcSpec nplc, bool fourWire, UncertaintyModel model, BudgetComponent stability)
+    private static Budget Build(
+        double[] values,
+        RangeSpec range,
+        NplcSpec nplc,
+        bool fourWire,
+        UncertaintyModel model,
+        BudgetComponent stability
+    )
     {
         ArgumentNullException.ThrowIfNull(range);
         ArgumentNullException.ThrowIfNull(nplc);
-        var repeatability = values.Length >= 2
-            ? TypeA.Component(ResistanceTerms.TypeAName, values)
-            : new BudgetComponent(ResistanceTerms.NoiseName, ResistanceTerms.NoiseOfMean(range, nplc, 1));
+        var repeatability =
+            values.Length >= 2
+                ? TypeA.Component(ResistanceTerms.TypeAName, values)
+                : new BudgetComponent(ResistanceTerms.NoiseName, ResistanceTerms.NoiseOfMean(range, nplc, 1));
         var components = new List<BudgetComponent>(4)
         {
             repeatability,
@@ -85,9 +121,13 @@ public static class ResistanceUncertainty
         for (var i = 0; i < values.Length; i++)
         {
             var r = readings[i];
-            values[i] = r.IsFinite && double.IsFinite(r.Value)
-                ? r.Value
-                : throw new ArgumentException($"Reading {i} at {r.Time:O} is an overload; only finite readings make a measured value.", nameof(readings));
+            values[i] =
+                r.IsFinite && double.IsFinite(r.Value)
+                    ? r.Value
+                    : throw new ArgumentException(
+                        $"Reading {i} at {r.Time:O} is an overload; only finite readings make a measured value.",
+                        nameof(readings)
+                    );
         }
 
         return values;

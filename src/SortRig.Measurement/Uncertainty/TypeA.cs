@@ -20,14 +20,19 @@ public static class TypeA
         if (values.Count < 2)
         {
             throw new ArgumentException(
-                $"Type A needs at least 2 observations to estimate a standard deviation; got {values.Count}.", nameof(values));
+                $"Type A needs at least 2 observations to estimate a standard deviation; got {values.Count}.",
+                nameof(values)
+            );
         }
 
         for (var i = 0; i < values.Count; i++)
         {
             if (!double.IsFinite(values[i]))
             {
-                throw new ArgumentException($"Observation {i} is {values[i]}; every observation must be finite.", nameof(values));
+                throw new ArgumentException(
+                    $"Observation {i} is {values[i]}; every observation must be finite.",
+                    nameof(values)
+                );
             }
         }
 

@@ -24,7 +24,11 @@ public static class TypeB
         Check(expanded, nameof(expanded));
         if (!(coverageFactor > 0) || !double.IsFinite(coverageFactor))
         {
-            throw new ArgumentOutOfRangeException(nameof(coverageFactor), coverageFactor, "Coverage factor k must be finite and > 0.");
+            throw new ArgumentOutOfRangeException(
+                nameof(coverageFactor),
+                coverageFactor,
+                "Coverage factor k must be finite and > 0."
+            );
         }
 
         return expanded / coverageFactor;

@@ -20,9 +20,15 @@ public sealed record UncertaintyModel
     public double ShortTermFractionOf24Hours
     {
         get => _shortTermFraction;
-        init => _shortTermFraction = double.IsFinite(value) && value is >= 0 and <= 1
-            ? value
-            : throw new ArgumentOutOfRangeException(nameof(ShortTermFractionOf24Hours), value, "ShortTermFractionOf24Hours must be in [0, 1].");
+        init =>
+            _shortTermFraction =
+                double.IsFinite(value) && value is >= 0 and <= 1
+                    ? value
+                    : throw new ArgumentOutOfRangeException(
+                        nameof(ShortTermFractionOf24Hours),
+                        value,
+                        "ShortTermFractionOf24Hours must be in [0, 1]."
+                    );
     }
 
     /// <summary>
@@ -33,8 +39,14 @@ public sealed record UncertaintyModel
     public double LeadVariationOhms
     {
         get => _leadVariation;
-        init => _leadVariation = double.IsFinite(value) && value is >= 0 and <= 10
-            ? value
-            : throw new ArgumentOutOfRangeException(nameof(LeadVariationOhms), value, "LeadVariationOhms must be in [0, 10] ohms.");
+        init =>
+            _leadVariation =
+                double.IsFinite(value) && value is >= 0 and <= 10
+                    ? value
+                    : throw new ArgumentOutOfRangeException(
+                        nameof(LeadVariationOhms),
+                        value,
+                        "LeadVariationOhms must be in [0, 10] ohms."
+                    );
     }
 }

@@ -8,8 +8,15 @@ namespace SortRig.Planning.Assembly;
 /// <param name="Build">One part, or two in series or parallel.</param>
 /// <param name="Parts">The one or two parts used.</param>
 /// <param name="Value">Effective resistance, ohms.</param>
-/// <param name="ExpandedUncertainty">Expanded transfer uncertainty of the effective value (worst-case sum for pairs), ohms.</param>
-public sealed record PositionFill(string Position, PositionBuild Build, IReadOnlyList<PartCandidate> Parts, double Value, double ExpandedUncertainty);
+/// <param name="ExpandedUncertainty">Expanded transfer uncertainty of the effective value (worst-case sum for pairs),
+/// ohms.</param>
+public sealed record PositionFill(
+    string Position,
+    PositionBuild Build,
+    IReadOnlyList<PartCandidate> Parts,
+    double Value,
+    double ExpandedUncertainty
+);
 
 /// <summary>One complete set and what it does.</summary>
 /// <param name="Number">1-based set number.</param>
@@ -44,7 +51,8 @@ public enum AssemblyMethod
 /// <param name="Sets">Disjoint complete sets meeting every spec in the worst case.</param>
 /// <param name="Unused">Parts in no set.</param>
 /// <param name="Method">The search used.</param>
-/// <param name="ProvenOptimal">True when the set count is proven maximal (exact search, or the sweep in its exact case).</param>
+/// <param name="ProvenOptimal">True when the set count is proven maximal (exact search, or the sweep in its exact
+/// case).</param>
 /// <param name="Note">One line on how the result was found.</param>
 /// <param name="UpperBound">Proven upper bound on the number of sets any plan can make from these parts (never below
 /// the optimum; equal to the set count when <paramref name="ProvenOptimal"/>).</param>
@@ -61,7 +69,8 @@ public sealed record AssemblyResult(
     int UpperBound,
     string BoundMethod,
     string TieBreak,
-    TimeSpan Elapsed)
+    TimeSpan Elapsed
+)
 {
     /// <summary>Sum of the sets' scores: the tie-break, smaller is better.</summary>
     public double TotalScore => Sets.Sum(s => s.Score);

@@ -11,7 +11,8 @@ internal static class DenseSimplex
     /// <summary>The optimal objective value; +∞ when unbounded; NaN when the iteration cap is hit.</summary>
     public static double Maximize(double[] c, double[][] a, double[] b)
     {
-        int m = b.Length, n = c.Length;
+        int m = b.Length,
+            n = c.Length;
         // Tableau rows 0..m-1: [A | I | b]; the objective row holds the reduced costs (negated) and −value.
         var t = new double[m + 1][];
         for (var i = 0; i < m; i++)

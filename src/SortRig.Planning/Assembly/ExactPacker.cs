@@ -43,7 +43,7 @@ internal sealed class ExactPacker(Recipe recipe, CandidatePool pool, ISetRule ru
         }
 
         var result = new List<(Option[], SetVerdict)>();
-        for (var avail = all; _memo.TryGetValue(avail, out var node) && node.Count > 0;)
+        for (var avail = all; _memo.TryGetValue(avail, out var node) && node.Count > 0; )
         {
             if (node.Choice < 0)
             {

@@ -13,12 +13,20 @@ internal sealed class FeasibleSets(Recipe recipe, CandidatePool pool, ISetRule r
 
     public List<(ulong Mask, double Score, Option[] Fills, SetVerdict Verdict)> Sets { get; } = [];
 
-    /// <summary>Enumerates; false when more than <see cref="AssemblyOptions.ExactSetLimit"/> assignments would be judged.</summary>
+    /// <summary>Enumerates; false when more than <see cref="AssemblyOptions.ExactSetLimit"/> assignments would be
+    /// judged.</summary>
     public bool Enumerate()
     {
         var fills = new Option[recipe.Positions.Count];
-        var symmetric = recipe.Positions.Select((p, k) => rule is MatchedRule && k > 0
-            && p.Nominal == recipe.Positions[k - 1].Nominal && p.Pairs == recipe.Positions[k - 1].Pairs).ToArray();
+        var symmetric = recipe
+            .Positions.Select(
+                (p, k) =>
+                    rule is MatchedRule
+                    && k > 0
+                    && p.Nominal == recipe.Positions[k - 1].Nominal
+                    && p.Pairs == recipe.Positions[k - 1].Pairs
+            )
+            .ToArray();
         return Enumerate(0, 0UL, fills, symmetric, double.PositiveInfinity, double.NegativeInfinity, -1);
     }
 
@@ -60,7 +68,8 @@ internal sealed class FeasibleSets(Recipe recipe, CandidatePool pool, ISetRule r
                 continue;
             }
 
-            double nlo = lo, nhi = hi;
+            double nlo = lo,
+                nhi = hi;
             if (rule is MatchedRule m)
             {
                 nlo = Math.Min(lo, m.Lo(k, o));

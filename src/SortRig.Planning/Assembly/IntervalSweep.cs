@@ -17,8 +17,10 @@ internal static class IntervalSweep
     public static List<List<SweepItem>> Run(IReadOnlyList<SweepItem> items, int[] demand, int[,] pairCaps)
     {
         var classes = demand.Length;
-        var byClass = Enumerable.Range(0, classes).Select(j => items.Where(i => i.Class == j)
-            .OrderBy(i => i.Left).ThenBy(i => i.Right).ToArray()).ToArray();
+        var byClass = Enumerable
+            .Range(0, classes)
+            .Select(j => items.Where(i => i.Class == j).OrderBy(i => i.Left).ThenBy(i => i.Right).ToArray())
+            .ToArray();
         var used = byClass.Select(c => new bool[c.Length]).ToArray();
         var ptr = new int[classes];
         var events = items.Select(i => i.Left).Order().ToArray();
@@ -55,7 +57,8 @@ internal static class IntervalSweep
                 }
 
                 picks[j].Clear();
-                int series = 0, parallel = 0;
+                int series = 0,
+                    parallel = 0;
                 for (var k = ptr[j]; k < list.Length && list[k].Left <= c && picks[j].Count < demand[j]; k++)
                 {
                     var it = list[k];
@@ -89,9 +92,16 @@ internal static class IntervalSweep
 
     /// <summary>True when every class's intervals, sorted by left end, also have non-decreasing right ends.</summary>
     public static bool AllProper(IReadOnlyList<SweepItem> items, int classes) =>
-        Enumerable.Range(0, classes).All(j =>
-        {
-            var rights = items.Where(i => i.Class == j).OrderBy(i => i.Left).ThenBy(i => i.Right).Select(i => i.Right).ToArray();
-            return rights.Zip(rights.Skip(1)).All(t => t.First <= t.Second + 1e-12);
-        });
+        Enumerable
+            .Range(0, classes)
+            .All(j =>
+            {
+                var rights = items
+                    .Where(i => i.Class == j)
+                    .OrderBy(i => i.Left)
+                    .ThenBy(i => i.Right)
+                    .Select(i => i.Right)
+                    .ToArray();
+                return rights.Zip(rights.Skip(1)).All(t => t.First <= t.Second + 1e-12);
+            });
 }

@@ -6,7 +6,12 @@ internal sealed partial class NeighbourhoodSearch
     // Second phase: windows around a leftover part made of items drawn at random from its neighbours (seeded, so
     // deterministic): sets that pair parts far apart in z (a high and a low part in a pair, two legs off together)
     // are reachable when contiguous windows miss them. Stops after as many failures in a row as there are items.
-    private void Scatter(List<(Option[] Fills, SetVerdict Verdict)> sets, int bound, Func<bool> outOfTime, CancellationToken cancellationToken)
+    private void Scatter(
+        List<(Option[] Fills, SetVerdict Verdict)> sets,
+        int bound,
+        Func<bool> outOfTime,
+        CancellationToken cancellationToken
+    )
     {
         var rng = new Random(12);
         var items = Items(sets);
@@ -23,8 +28,11 @@ internal sealed partial class NeighbourhoodSearch
             var at = leftovers[rng.Next(leftovers.Count)];
             var window = new List<Item> { items[at] };
             var parts = items[at].Parts.Length;
-            var near = Enumerable.Range(Math.Max(0, at - limit), Math.Min(items.Count, at + limit + 1) - Math.Max(0, at - limit))
-                .Where(i => i != at).OrderBy(_ => rng.Next()).ToList();
+            var near = Enumerable
+                .Range(Math.Max(0, at - limit), Math.Min(items.Count, at + limit + 1) - Math.Max(0, at - limit))
+                .Where(i => i != at)
+                .OrderBy(_ => rng.Next())
+                .ToList();
             foreach (var i in near)
             {
                 if (parts + items[i].Parts.Length <= limit)

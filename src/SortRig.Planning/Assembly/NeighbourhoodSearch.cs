@@ -5,15 +5,26 @@ namespace SortRig.Planning.Assembly;
 /// <summary>
 /// Large-neighbourhood search over a plan. Sets and leftover parts are ordered by their deviation z = ln(value /
 /// marked nominal) (a set by its members' mean): feasible sets are local in z because every output is unchanged when
-/// all parts move together. A window of neighbouring items holding at most <see cref="AssemblyOptions.NeighbourhoodParts"/>
-/// parts is re-packed by the exact search (<see cref="ExactPacker"/>, every feasible assignment judged by the real
-/// worst-case rule, so error cancellation counts); the window's sets are replaced when the exact packing has more
-/// sets, or as many with a smaller sum of scores. Windows slide by half their length; passes repeat until one
-/// changes nothing or the time runs out. Deterministic.
+/// all parts move together. A window of neighbouring items holding at most <see
+/// cref="AssemblyOptions.NeighbourhoodParts"/> parts is re-packed by the exact search (<see cref="ExactPacker"/>, every
+/// feasible assignment judged by the real worst-case rule, so error cancellation counts); the window's sets are
+/// replaced when the exact packing has more sets, or as many with a smaller sum of scores. Windows slide by half their
+/// length; passes repeat until one changes nothing or the time runs out. Deterministic.
 /// </summary>
-internal sealed partial class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options)
+internal sealed partial class NeighbourhoodSearch(
+    Recipe recipe,
+    IReadOnlyList<PartCandidate> usable,
+    ISetRule rule,
+    AssemblyOptions options
+)
 {
-    private readonly AssemblyOptions _limits = new(exactPartLimit: 64, exactSetLimit: 200_000, exactStateLimit: 400_000, nominalMatchPpm: options.NominalMatchPpm, neighbourhoodParts: 0);
+    private readonly AssemblyOptions _limits = new(
+        exactPartLimit: 64,
+        exactSetLimit: 200_000,
+        exactStateLimit: 400_000,
+        nominalMatchPpm: options.NominalMatchPpm,
+        neighbourhoodParts: 0
+    );
     private readonly double[] _z = usable.Select(p => Math.Log(p.Value.Value / p.Nominal)).ToArray();
 
     public int Passes { get; private set; }
@@ -24,7 +35,12 @@ internal sealed partial class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<P
     public bool Applies => options.NeighbourhoodParts >= 2 * recipe.Positions.Count;
 
     public List<(Option[] Fills, SetVerdict Verdict)> Improve(
-        List<(Option[] Fills, SetVerdict Verdict)> start, int bound, Func<bool> outOfTime, Action<int, int> passDone, CancellationToken cancellationToken)
+        List<(Option[] Fills, SetVerdict Verdict)> start,
+        int bound,
+        Func<bool> outOfTime,
+        Action<int, int> passDone,
+        CancellationToken cancellationToken
+    )
     {
         var sets = new List<(Option[] Fills, SetVerdict Verdict)>(start);
         if (!Applies)
@@ -36,7 +52,7 @@ internal sealed partial class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<P
         {
             var changed = false;
             var items = Items(sets);
-            for (var s = 0; s < items.Count;)
+            for (var s = 0; s < items.Count; )
             {
                 cancellationToken.ThrowIfCancellationRequested();
                 if (outOfTime())
@@ -96,7 +112,9 @@ internal sealed partial class NeighbourhoodSearch(Recipe recipe, IReadOnlyList<P
             return false;
         }
 
-        var better = found.Count > old.Length || (found.Count == old.Length && found.Sum(f => f.Verdict.Score) < oldScore - 1e-6);
+        var better =
+            found.Count > old.Length
+            || (found.Count == old.Length && found.Sum(f => f.Verdict.Score) < oldScore - 1e-6);
         if (!better)
         {
             return false;

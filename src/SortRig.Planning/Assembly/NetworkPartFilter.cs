@@ -7,10 +7,10 @@ namespace SortRig.Planning.Assembly;
 /// Network form: can part p be a single at position k in some feasible set? A relaxation that never says no wrongly.
 /// <para>
 /// Test: every other position l takes a value in a box [lo_l, hi_l] (at first the hull of every value the reel offers
-/// there: singles other than p, and for a pair position the pair values); position k is fixed at p's value. Bounds propagation:
-/// for each position l without pairs, the smallest and the largest offered single value v in the box are searched such
-/// that, with x_l = v and the other positions anywhere in the box, every output error can still lie within its
-/// tolerance; the box shrinks to them. No such v, or no box point at all: p is excluded.
+/// there: singles other than p, and for a pair position the pair values); position k is fixed at p's value. Bounds
+/// propagation: for each position l without pairs, the smallest and the largest offered single value v in the box are
+/// searched such that, with x_l = v and the other positions anywhere in the box, every output error can still lie
+/// within its tolerance; the box shrinks to them. No such v, or no box point at all: p is excluded.
 /// </para>
 /// <para>
 /// Proof that it is a relaxation. (1) A set meets an output only if |error(x)| ≤ tolerance, since the real rule adds
@@ -42,7 +42,13 @@ internal sealed class NetworkPartFilter
     private readonly IReadOnlyList<PartCandidate> _usable;
     private readonly int[] _classOf;
 
-    private NetworkPartFilter(Recipe recipe, NetworkRule rule, SweepGeometry geo, IReadOnlyList<PartCandidate> usable, AssemblyOptions options)
+    private NetworkPartFilter(
+        Recipe recipe,
+        NetworkRule rule,
+        SweepGeometry geo,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options
+    )
     {
         _network = rule.Network;
         _usable = usable;
@@ -55,7 +61,11 @@ internal sealed class NetworkPartFilter
         for (var k = 0; k < n; k++)
         {
             var pos = recipe.Positions[k];
-            _singles[k] = usable.Select((p, i) => (p.Value.Value, i)).Where(t => options.SameNominal(usable[t.i].Nominal, pos.Nominal)).Order().ToArray();
+            _singles[k] = usable
+                .Select((p, i) => (p.Value.Value, i))
+                .Where(t => options.SameNominal(usable[t.i].Nominal, pos.Nominal))
+                .Order()
+                .ToArray();
             _pairs[k] = pos.Pairs != PairBuilds.None;
             foreach (var build in new[] { PositionBuild.Series, PositionBuild.Parallel })
             {
@@ -64,22 +74,40 @@ internal sealed class NetworkPartFilter
                     continue;
                 }
 
-                var halves = usable.Where(p => options.SameNominal(p.Nominal, PositionSpec.PartNominal(pos.Nominal, build))).Select(p => p.Value.Value).ToArray();
+                var halves = usable
+                    .Where(p => options.SameNominal(p.Nominal, PositionSpec.PartNominal(pos.Nominal, build)))
+                    .Select(p => p.Value.Value)
+                    .ToArray();
                 if (halves.Length >= 2)
                 {
                     // Series a + b and parallel ab / (a + b) rise with both parts: the hull is at the two extremes.
                     var (min, max) = (halves.Min(), halves.Max());
-                    var lo = build == PositionBuild.Series ? SeriesParallel.Series(min, min) : SeriesParallel.Parallel(min, min);
-                    var hi = build == PositionBuild.Series ? SeriesParallel.Series(max, max) : SeriesParallel.Parallel(max, max);
+                    var lo =
+                        build == PositionBuild.Series
+                            ? SeriesParallel.Series(min, min)
+                            : SeriesParallel.Parallel(min, min);
+                    var hi =
+                        build == PositionBuild.Series
+                            ? SeriesParallel.Series(max, max)
+                            : SeriesParallel.Parallel(max, max);
                     (_pairLo[k], _pairHi[k]) = (Math.Min(_pairLo[k], lo), Math.Max(_pairHi[k], hi));
                 }
             }
         }
     }
 
-    /// <summary>The filter, or null when the recipe is not a network or has too many positions for the vertex test.</summary>
-    public static NetworkPartFilter? TryCreate(Recipe recipe, ISetRule rule, SweepGeometry geo, IReadOnlyList<PartCandidate> usable, AssemblyOptions options) =>
-        rule is NetworkRule network && recipe.Positions.Count <= MaxPositions ? new NetworkPartFilter(recipe, network, geo, usable, options) : null;
+    /// <summary>The filter, or null when the recipe is not a network or has too many positions for the vertex
+    /// test.</summary>
+    public static NetworkPartFilter? TryCreate(
+        Recipe recipe,
+        ISetRule rule,
+        SweepGeometry geo,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options
+    ) =>
+        rule is NetworkRule network && recipe.Positions.Count <= MaxPositions
+            ? new NetworkPartFilter(recipe, network, geo, usable, options)
+            : null;
 
     /// <summary>False only when the part can be a single of class <paramref name="cls"/> in no feasible set.</summary>
     public bool Fits(int cls, int part)
@@ -215,7 +243,8 @@ internal sealed class NetworkPartFilter
 
     private static int LowerIndex((double Value, int Part)[] sorted, double x)
     {
-        int lo = 0, hi = sorted.Length;
+        int lo = 0,
+            hi = sorted.Length;
         while (lo < hi)
         {
             var mid = (lo + hi) / 2;
@@ -227,7 +256,8 @@ internal sealed class NetworkPartFilter
 
     private static int UpperIndex((double Value, int Part)[] sorted, double x)
     {
-        int lo = 0, hi = sorted.Length;
+        int lo = 0,
+            hi = sorted.Length;
         while (lo < hi)
         {
             var mid = (lo + hi) / 2;

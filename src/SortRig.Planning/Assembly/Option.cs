@@ -18,7 +18,13 @@ internal readonly record struct Option(PositionBuild Build, int A, int B, double
         var parallel = build == PositionBuild.Parallel;
         var (r1, r2) = (a.Value.Value, b.Value.Value);
         var value = parallel ? SeriesParallel.Parallel(r1, r2) : SeriesParallel.Series(r1, r2);
-        var u = SeriesParallel.WorstCaseUncertainty(parallel, r1, a.Value.ExpandedTransfer, r2, b.Value.ExpandedTransfer);
+        var u = SeriesParallel.WorstCaseUncertainty(
+            parallel,
+            r1,
+            a.Value.ExpandedTransfer,
+            r2,
+            b.Value.ExpandedTransfer
+        );
         return new Option(build, i, j, value, u);
     }
 
@@ -70,7 +76,10 @@ internal sealed class CandidatePool
             }
 
             var partNominal = PositionSpec.PartNominal(pos.Nominal, build);
-            var idx = Enumerable.Range(0, Usable.Count).Where(i => o.SameNominal(Usable[i].Nominal, partNominal)).ToList();
+            var idx = Enumerable
+                .Range(0, Usable.Count)
+                .Where(i => o.SameNominal(Usable[i].Nominal, partNominal))
+                .ToList();
             for (var x = 0; x < idx.Count; x++)
             {
                 for (var y = x + 1; y < idx.Count; y++)

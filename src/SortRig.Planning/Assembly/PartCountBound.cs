@@ -15,20 +15,39 @@ namespace SortRig.Planning.Assembly;
 /// </summary>
 internal static class PartCountBound
 {
-    public const string MatchedName = "part-count bound (Hall condition and supply LP over nominal classes; parts that fit no common window not counted)";
+    public const string MatchedName =
+        "part-count bound (Hall condition and supply LP over nominal classes; parts that fit no common window not "
+        + "counted)";
     public const string NetworkName = "part-count bound (Hall condition and supply LP over nominal classes)";
-    public const string NetworkFilteredName = "part-count bound (Hall condition and supply LP over nominal classes; parts that no set within the reel's range can hold not counted)";
+    public const string NetworkFilteredName =
+        "part-count bound (Hall condition and supply LP over nominal classes; parts that no set within the reel's "
+        + "range can hold not counted)";
 
     /// <summary>The bound and its description.</summary>
-    public static (int Bound, string Name) ComputeNamed(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
+    public static (int Bound, string Name) ComputeNamed(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        ISetRule rule,
+        AssemblyOptions options,
+        Func<bool>? stop = null
+    )
     {
         var bound = Compute(recipe, usable, rule, options, stop);
-        var name = recipe.Form == RecipeForm.Matched ? MatchedName : recipe.Positions.Count <= NetworkPartFilter.MaxPositions ? NetworkFilteredName : NetworkName;
+        var name =
+            recipe.Form == RecipeForm.Matched ? MatchedName
+            : recipe.Positions.Count <= NetworkPartFilter.MaxPositions ? NetworkFilteredName
+            : NetworkName;
         return (bound, name);
     }
 
     // stop: the network filter's budget; once true, the remaining parts are counted unfiltered (always valid).
-    public static int Compute(Recipe recipe, IReadOnlyList<PartCandidate> usable, ISetRule rule, AssemblyOptions options, Func<bool>? stop = null)
+    public static int Compute(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        ISetRule rule,
+        AssemblyOptions options,
+        Func<bool>? stop = null
+    )
     {
         var geo = new SweepGeometry(recipe, rule);
         var classes = geo.Nominals.Length;
@@ -43,13 +62,21 @@ internal static class PartCountBound
             pairClass[c] = seriesOk[c] || parallelOk[c];
         }
 
-        Func<int, int, bool>? fits = recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass).Fits
-            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network ? (j, i) => stop?.Invoke() == true || network.Fits(j, i) : null;
+        Func<int, int, bool>? fits =
+            recipe.Form == RecipeForm.Matched ? new WindowFilter(geo, usable, options, pairClass).Fits
+            : NetworkPartFilter.TryCreate(recipe, rule, geo, usable, options) is { } network
+                ? (j, i) => stop?.Invoke() == true || network.Fits(j, i)
+            : null;
         // single[i] / half[i]: class bit masks the part can fill as a single / as half a pair.
         var single = new int[usable.Count];
         var half = new int[usable.Count];
         // Farthest from nominal first: those are the parts a filter can drop, so a time budget is spent on them.
-        foreach (var i in Enumerable.Range(0, usable.Count).OrderByDescending(i => Math.Abs(Math.Log(usable[i].Value.Value / usable[i].Nominal))).ThenBy(i => i))
+        foreach (
+            var i in Enumerable
+                .Range(0, usable.Count)
+                .OrderByDescending(i => Math.Abs(Math.Log(usable[i].Value.Value / usable[i].Nominal)))
+                .ThenBy(i => i)
+        )
         {
             var n = usable[i].Nominal;
             for (var j = 0; j < classes; j++)
@@ -59,7 +86,10 @@ internal static class PartCountBound
                     single[i] |= 1 << j;
                 }
 
-                if ((seriesOk[j] && options.SameNominal(n, geo.Nominals[j] / 2)) || (parallelOk[j] && options.SameNominal(n, geo.Nominals[j] * 2)))
+                if (
+                    (seriesOk[j] && options.SameNominal(n, geo.Nominals[j] / 2))
+                    || (parallelOk[j] && options.SameNominal(n, geo.Nominals[j] * 2))
+                )
                 {
                     half[i] |= 1 << j;
                 }
@@ -78,7 +108,10 @@ internal static class PartCountBound
             var supply = 0.0;
             for (var i = 0; i < usable.Count; i++)
             {
-                supply += (single[i] & subset) != 0 ? 1.0 : (half[i] & subset) != 0 ? 0.5 : 0.0;
+                supply +=
+                    (single[i] & subset) != 0 ? 1.0
+                    : (half[i] & subset) != 0 ? 0.5
+                    : 0.0;
             }
 
             bound = Math.Min(bound, (int)Math.Floor((supply / demand) + 1e-9));

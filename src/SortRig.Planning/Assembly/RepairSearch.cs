@@ -9,7 +9,12 @@ namespace SortRig.Planning.Assembly;
 /// soon as it meets every spec; otherwise every swap is undone. Every set is judged by the real worst-case rule, so
 /// the plan stays valid and the number of sets never falls. Deterministic; stops at the time limit.
 /// </summary>
-internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule rule, SweepGeometry geo, AssemblyOptions options)
+internal sealed class RepairSearch(
+    IReadOnlyList<PartCandidate> usable,
+    ISetRule rule,
+    SweepGeometry geo,
+    AssemblyOptions options
+)
 {
     private const int Donors = 24;
     private const int Rounds = 4;
@@ -19,7 +24,11 @@ internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule
     public int Added { get; private set; }
 
     public List<(Option[] Fills, SetVerdict Verdict)> Improve(
-        List<(Option[] Fills, SetVerdict Verdict)> start, int bound, Func<bool> outOfTime, CancellationToken cancellationToken)
+        List<(Option[] Fills, SetVerdict Verdict)> start,
+        int bound,
+        Func<bool> outOfTime,
+        CancellationToken cancellationToken
+    )
     {
         var sets = new List<(Option[] Fills, SetVerdict Verdict)>(start);
         var owner = Enumerable.Repeat(-1, usable.Count).ToArray();
@@ -39,7 +48,12 @@ internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule
         while (progress && sets.Count < bound)
         {
             progress = false;
-            var centres = Enumerable.Range(0, usable.Count).Where(i => owner[i] < 0).OrderBy(i => _z[i]).ThenBy(i => i).ToList();
+            var centres = Enumerable
+                .Range(0, usable.Count)
+                .Where(i => owner[i] < 0)
+                .OrderBy(i => _z[i])
+                .ThenBy(i => i)
+                .ToList();
             foreach (var centre in centres)
             {
                 cancellationToken.ThrowIfCancellationRequested();
@@ -141,20 +155,41 @@ internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule
     }
 
     // Moves into draft[k] a part nearer to c taken from a set that still meets every spec with a leftover in its place.
-    private bool Swap(List<(Option[] Fills, SetVerdict Verdict)> sets, int[] owner, int[] draft, HashSet<int> taken,
-        List<(int Set, (Option[] Fills, SetVerdict Verdict) Old)> undo, int k, double c)
+    private bool Swap(
+        List<(Option[] Fills, SetVerdict Verdict)> sets,
+        int[] owner,
+        int[] draft,
+        HashSet<int> taken,
+        List<(int Set, (Option[] Fills, SetVerdict Verdict) Old)> undo,
+        int k,
+        double c
+    )
     {
         var gap = Math.Abs(_z[draft[k]] - c);
-        var donors = Enumerable.Range(0, usable.Count)
-            .Where(i => owner[i] >= 0 && !taken.Contains(i) && Fits(k, i) && Math.Abs(_z[i] - c) < gap && IsSingle(sets[owner[i]].Fills, i))
-            .OrderBy(i => Math.Abs(_z[i] - c)).ThenBy(i => i).Take(Donors).ToList();
+        var donors = Enumerable
+            .Range(0, usable.Count)
+            .Where(i =>
+                owner[i] >= 0
+                && !taken.Contains(i)
+                && Fits(k, i)
+                && Math.Abs(_z[i] - c) < gap
+                && IsSingle(sets[owner[i]].Fills, i)
+            )
+            .OrderBy(i => Math.Abs(_z[i] - c))
+            .ThenBy(i => i)
+            .Take(Donors)
+            .ToList();
         foreach (var q in donors)
         {
             var s = owner[q];
             var slot = Array.FindIndex(sets[s].Fills, f => f.A == q && f.B < 0);
-            var fillers = Enumerable.Range(0, usable.Count)
+            var fillers = Enumerable
+                .Range(0, usable.Count)
                 .Where(r => owner[r] < 0 && !taken.Contains(r) && Fits(slot, r))
-                .OrderBy(r => Math.Abs(_z[r] - _z[q])).ThenBy(r => r).Take(Fillers).ToList();
+                .OrderBy(r => Math.Abs(_z[r] - _z[q]))
+                .ThenBy(r => r)
+                .Take(Fillers)
+                .ToList();
             foreach (var r in fillers)
             {
                 var fills = (Option[])sets[s].Fills.Clone();
@@ -180,7 +215,8 @@ internal sealed class RepairSearch(IReadOnlyList<PartCandidate> usable, ISetRule
 
     private SetVerdict Judge(int[] draft) => rule.Judge(draft.Select(i => Option.Single(i, usable[i])).ToArray());
 
-    private bool Fits(int position, int part) => options.SameNominal(usable[part].Nominal, geo.Nominals[geo.ClassOf[position]]);
+    private bool Fits(int position, int part) =>
+        options.SameNominal(usable[part].Nominal, geo.Nominals[geo.ClassOf[position]]);
 
     private static bool IsSingle(Option[] fills, int part) => fills.Any(f => f.A == part && f.B < 0);
 

@@ -13,7 +13,11 @@ namespace SortRig.Planning.Assembly;
 /// <param name="options">Limits; null for the defaults.</param>
 /// <param name="logger">Logger; null for none.</param>
 /// <param name="timeProvider">Clock for the time limit and the reported time; null for the system clock.</param>
-public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAssembler>? logger = null, TimeProvider? timeProvider = null)
+public sealed class SetAssembler(
+    AssemblyOptions? options = null,
+    ILogger<SetAssembler>? logger = null,
+    TimeProvider? timeProvider = null
+)
 {
     private readonly TimeProvider _time = timeProvider ?? TimeProvider.System;
     private readonly AssemblyOptions _options = options ?? new AssemblyOptions();
@@ -21,11 +25,18 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
 
     /// <summary>Assembles sets.</summary>
     /// <param name="recipe">A loaded recipe.</param>
-    /// <param name="parts">Measured parts with unique ids; parts of nominals the recipe cannot use are reported unused.</param>
-    /// <param name="cancellationToken">Stops the search (throws); <see cref="AssemblyOptions.TimeLimit"/> instead returns the best so far.</param>
+    /// <param name="parts">Measured parts with unique ids; parts of nominals the recipe cannot use are reported
+    /// unused.</param>
+    /// <param name="cancellationToken">Stops the search (throws); <see cref="AssemblyOptions.TimeLimit"/> instead
+    /// returns the best so far.</param>
     /// <returns>The sets with a proven upper bound on their number, the gap, the method and the time.</returns>
-    /// <exception cref="ArgumentException">Duplicate part ids, or a part whose value is not finite and &gt; 0.</exception>
-    public AssemblyResult Assemble(Recipe recipe, IReadOnlyList<PartCandidate> parts, CancellationToken cancellationToken = default)
+    /// <exception cref="ArgumentException">Duplicate part ids, or a part whose value is not finite and &gt;
+    /// 0.</exception>
+    public AssemblyResult Assemble(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> parts,
+        CancellationToken cancellationToken = default
+    )
     {
         var ids = new HashSet<long>();
         foreach (var p in parts)
@@ -37,19 +48,33 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
 
             if (!(p.Value.Value > 0) || !double.IsFinite(p.Value.Value) || !(p.Value.ExpandedTransfer >= 0))
             {
-                throw new ArgumentException($"part {p.Id} needs a finite value > 0 and an uncertainty >= 0", nameof(parts));
+                throw new ArgumentException(
+                    $"part {p.Id} needs a finite value > 0 and an uncertainty >= 0",
+                    nameof(parts)
+                );
             }
         }
 
         var started = _time.GetTimestamp();
         ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
-        var exact = parts.Count(p => recipe.Positions.Any(pos => CandidatePool.Wanted(pos, p.Nominal, _options))) <= _options.ExactPartLimit;
+        var exact =
+            parts.Count(p => recipe.Positions.Any(pos => CandidatePool.Wanted(pos, p.Nominal, _options)))
+            <= _options.ExactPartLimit;
         var pool = new CandidatePool(recipe, parts, _options, withPairs: exact);
         AssemblyResult result;
         if (exact && new ExactPacker(recipe, pool, rule, _options).Solve() is { } sets)
         {
-            result = Result(recipe, pool, sets, AssemblyMethod.Exact, $"exact search over {pool.Usable.Count} usable parts",
-                sets.Count, "exact search (every feasible set enumerated and packed)", ExactTieBreak, _time.GetElapsedTime(started));
+            result = Result(
+                recipe,
+                pool,
+                sets,
+                AssemblyMethod.Exact,
+                $"exact search over {pool.Usable.Count} usable parts",
+                sets.Count,
+                "exact search (every feasible set enumerated and packed)",
+                ExactTieBreak,
+                _time.GetElapsedTime(started)
+            );
         }
         else
         {
@@ -62,25 +87,53 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
             result = Search(recipe, pool, rule, started, cancellationToken);
         }
 
-        Log.Assembled(_logger, result.Sets.Count, recipe.Name, parts.Count, result.Method.ToString(), result.ProvenOptimal);
+        Log.Assembled(
+            _logger,
+            result.Sets.Count,
+            recipe.Name,
+            parts.Count,
+            result.Method.ToString(),
+            result.ProvenOptimal
+        );
         return result;
     }
 
-    private AssemblyResult Search(Recipe recipe, CandidatePool pool, ISetRule rule, long started, CancellationToken cancellationToken)
+    private AssemblyResult Search(
+        Recipe recipe,
+        CandidatePool pool,
+        ISetRule rule,
+        long started,
+        CancellationToken cancellationToken
+    )
     {
         var sweep = new SweepPlanner(recipe, pool, rule, _options);
         var found = sweep.Run();
-        var note = (sweep.ProvenOptimal ? "window sweep, exact case (matched form, no pairs, equal-width intervals)" : "window sweep")
-            + (sweep.Dropped > 0 ? $"; {sweep.Dropped} swept sets failed verification" : "");
+        var note =
+            (
+                sweep.ProvenOptimal
+                    ? "window sweep, exact case (matched form, no pairs, equal-width intervals)"
+                    : "window sweep"
+            ) + (sweep.Dropped > 0 ? $"; {sweep.Dropped} swept sets failed verification" : "");
         if (sweep.ProvenOptimal)
         {
-            return Result(recipe, pool, found, AssemblyMethod.Sweep, note, found.Count, "window sweep exact case (see docs/planning.md)",
-                "none: the sweep's sets are kept as found", _time.GetElapsedTime(started));
+            return Result(
+                recipe,
+                pool,
+                found,
+                AssemblyMethod.Sweep,
+                note,
+                found.Count,
+                "window sweep exact case (see docs/planning.md)",
+                "none: the sweep's sets are kept as found",
+                _time.GetElapsedTime(started)
+            );
         }
 
         // The network filter of the bound may take a tenth of the time limit; parts left then are counted unfiltered.
         var filterBudget = _options.TimeLimit / 10;
-        var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () => _time.GetElapsedTime(started) > filterBudget);
+        var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
+            _time.GetElapsedTime(started) > filterBudget
+        );
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;
         var tieBreak = "none: the sweep's sets are kept as found";
@@ -88,39 +141,80 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
         if (found.Count < bound && search.Applies && _options.TimeLimit > TimeSpan.Zero)
         {
             var deadline = _options.TimeLimit;
-            found = search.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline,
-                (pass, count) => _options.Progress?.Report(new AssemblyProgress($"neighbourhood pass {pass}", count, bound, _time.GetElapsedTime(started))),
-                cancellationToken);
+            found = search.Improve(
+                found,
+                bound,
+                () => _time.GetElapsedTime(started) > deadline,
+                (pass, count) =>
+                    _options.Progress?.Report(
+                        new AssemblyProgress($"neighbourhood pass {pass}", count, bound, _time.GetElapsedTime(started))
+                    ),
+                cancellationToken
+            );
             method = AssemblyMethod.SweepAndNeighbourhood;
             tieBreak = "smallest sum of set scores within each re-packed neighbourhood (not over the whole plan)";
-            var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
-            note += FormattableString.Invariant($"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, {_options.NeighbourhoodParts} parts per window{stopped}");
+            var stopped =
+                _time.GetElapsedTime(started) > deadline
+                    ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)"
+                    : "";
+            note += string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, "
+                    + $"{_options.NeighbourhoodParts} parts per window{stopped}"
+            );
         }
-        else if (found.Count < bound && !search.Applies && _options.NeighbourhoodParts > 0 && _options.TimeLimit > TimeSpan.Zero)
+        else if (
+            found.Count < bound
+            && !search.Applies
+            && _options.NeighbourhoodParts > 0
+            && _options.TimeLimit > TimeSpan.Zero
+        )
         {
             var deadline = _options.TimeLimit;
             var repair = new RepairSearch(pool.Usable, rule, new SweepGeometry(recipe, rule), _options);
             var before = found.Count;
             found = repair.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline, cancellationToken);
-            _options.Progress?.Report(new AssemblyProgress("repair", found.Count, bound, _time.GetElapsedTime(started)));
+            _options.Progress?.Report(
+                new AssemblyProgress("repair", found.Count, bound, _time.GetElapsedTime(started))
+            );
             method = AssemblyMethod.SweepAndRepair;
             tieBreak = "none: swept and repaired sets are kept as found";
-            var stopped = _time.GetElapsedTime(started) > deadline ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)" : "";
-            note += FormattableString.Invariant($"; no neighbourhood search ({_options.NeighbourhoodParts} parts cannot hold two sets of {recipe.Positions.Count} positions); swap/repair added {found.Count - before} set(s){stopped}");
+            var stopped =
+                _time.GetElapsedTime(started) > deadline
+                    ? $", stopped by the time limit ({deadline.TotalSeconds:0.#} s)"
+                    : "";
+            note += string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"; no neighbourhood search ({_options.NeighbourhoodParts} parts cannot hold two sets of "
+                    + $"{recipe.Positions.Count} positions); swap/repair added {found.Count - before} set(s){stopped}"
+            );
         }
         else if (found.Count < bound && !search.Applies)
         {
-            note += FormattableString.Invariant($"; no neighbourhood search: {_options.NeighbourhoodParts} parts cannot hold two sets of {recipe.Positions.Count} positions");
+            note += string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"; no neighbourhood search: {_options.NeighbourhoodParts} parts cannot hold two sets of "
+                    + $"{recipe.Positions.Count} positions"
+            );
         }
 
         return Result(recipe, pool, found, method, note, bound, boundName, tieBreak, _time.GetElapsedTime(started));
     }
 
-    private const string ExactTieBreak = "smallest sum of set scores (worst-case error / tolerance per set) among plans with the most sets";
+    private const string ExactTieBreak =
+        "smallest sum of set scores (worst-case error / tolerance per set) among plans with the most sets";
 
     private static AssemblyResult Result(
-        Recipe recipe, CandidatePool pool, List<(Option[] Fills, SetVerdict Verdict)> sets, AssemblyMethod method, string note,
-        int bound, string boundMethod, string tieBreak, TimeSpan elapsed)
+        Recipe recipe,
+        CandidatePool pool,
+        List<(Option[] Fills, SetVerdict Verdict)> sets,
+        AssemblyMethod method,
+        string note,
+        int bound,
+        string boundMethod,
+        string tieBreak,
+        TimeSpan elapsed
+    )
     {
         var used = new bool[pool.Usable.Count];
         var assembled = new List<AssembledSet>();
@@ -140,6 +234,17 @@ public sealed class SetAssembler(AssemblyOptions? options = null, ILogger<SetAss
         }
 
         var unused = pool.Unusable.Concat(pool.Usable.Where((_, i) => !used[i])).ToList();
-        return new AssemblyResult(recipe.Name, assembled, unused, method, assembled.Count >= bound, note, bound, boundMethod, tieBreak, elapsed);
+        return new AssemblyResult(
+            recipe.Name,
+            assembled,
+            unused,
+            method,
+            assembled.Count >= bound,
+            note,
+            bound,
+            boundMethod,
+            tieBreak,
+            elapsed
+        );
     }
 }

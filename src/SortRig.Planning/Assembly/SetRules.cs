@@ -29,13 +29,17 @@ internal sealed class MatchedRule(Recipe recipe) : ISetRule
     /// <summary>Window in log units: a set is feasible iff max Hi − min Lo ≤ Window.</summary>
     public double Window => Math.Log(1 + (TolerancePpm * 1e-6));
 
-    public double Lo(int position, Option o) => o.Value > o.Uncertainty ? Math.Log((o.Value - o.Uncertainty) / _nominals[position]) : double.NegativeInfinity;
+    public double Lo(int position, Option o) =>
+        o.Value > o.Uncertainty ? Math.Log((o.Value - o.Uncertainty) / _nominals[position]) : double.NegativeInfinity;
 
     public double Hi(int position, Option o) => Math.Log((o.Value + o.Uncertainty) / _nominals[position]);
 
     public SetVerdict Judge(ReadOnlySpan<Option> fills)
     {
-        double qMax = double.MinValue, qMin = double.MaxValue, hi = double.MinValue, lo = double.MaxValue;
+        double qMax = double.MinValue,
+            qMin = double.MaxValue,
+            hi = double.MinValue,
+            lo = double.MaxValue;
         for (var k = 0; k < fills.Length; k++)
         {
             var n = _nominals[k];

@@ -21,19 +21,26 @@ internal static class SupplyBound
     /// <param name="classOf">Class of each position.</param>
     /// <param name="options">Nominal matching.</param>
     public static int Compute(
-        Recipe recipe, IReadOnlyList<PartCandidate> usable, int[] singleClasses, int[] classOf, AssemblyOptions options)
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        int[] singleClasses,
+        int[] classOf,
+        AssemblyOptions options
+    )
     {
         var positions = recipe.Positions.Count;
         var types = new Dictionary<(ulong Single, ulong Half), int>();
         for (var i = 0; i < usable.Count; i++)
         {
-            ulong single = 0, half = 0;
+            ulong single = 0,
+                half = 0;
             for (var k = 0; k < positions; k++)
             {
                 var pos = recipe.Positions[k];
                 single |= (singleClasses[i] >> classOf[k] & 1) == 1 ? 1UL << k : 0;
                 var nominal = usable[i].Nominal;
-                var paired = (pos.Pairs.HasFlag(PairBuilds.Series) && options.SameNominal(nominal, pos.Nominal / 2))
+                var paired =
+                    (pos.Pairs.HasFlag(PairBuilds.Series) && options.SameNominal(nominal, pos.Nominal / 2))
                     || (pos.Pairs.HasFlag(PairBuilds.Parallel) && options.SameNominal(nominal, pos.Nominal * 2));
                 half |= paired ? 1UL << k : 0;
             }

@@ -27,13 +27,20 @@ internal sealed class SweepGeometry
             var pairs = recipe.Positions[k].Pairs;
             if (pairs != PairBuilds.None)
             {
-                PairCaps[ClassOf[k], pairs == PairBuilds.Series ? 0 : pairs == PairBuilds.Parallel ? 1 : 2]++;
+                PairCaps[
+                    ClassOf[k],
+                    pairs == PairBuilds.Series ? 0
+                    : pairs == PairBuilds.Parallel ? 1
+                    : 2
+                ]++;
             }
         }
 
         if (_matched)
         {
-            _halfWidth = Enumerable.Repeat(Math.Log(1 + (recipe.MatchTolerancePpm * 1e-6)) / 2, Nominals.Length).ToArray();
+            _halfWidth = Enumerable
+                .Repeat(Math.Log(1 + (recipe.MatchTolerancePpm * 1e-6)) / 2, Nominals.Length)
+                .ToArray();
             return;
         }
 
@@ -70,16 +77,19 @@ internal sealed class SweepGeometry
     /// <summary>Per class: positions allowing series only, parallel only, both.</summary>
     public int[,] PairCaps { get; }
 
-    /// <summary>Network form: how much each position matters (max over outputs of |∂Error/∂ln R| / tolerance).</summary>
+    /// <summary>Network form: how much each position matters (max over outputs of |∂Error/∂ln R| /
+    /// tolerance).</summary>
     public double[] Weights { get; }
 
     /// <summary>Deviation of an option on the common axis, ln(value / nominal).</summary>
     public double Z(int cls, Option o) => Math.Log(o.Value / Nominals[cls]);
 
-    /// <summary>The option's interval of admissible common points, or null when its own uncertainty is too large.</summary>
+    /// <summary>The option's interval of admissible common points, or null when its own uncertainty is too
+    /// large.</summary>
     public SweepItem? Item(int cls, Option o, int kind)
     {
-        double left, right;
+        double left,
+            right;
         if (_matched)
         {
             if (o.Value <= o.Uncertainty)

@@ -26,7 +26,8 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
         var result = new List<(Option[], SetVerdict)>();
         var singles = Singles(exclude: null);
         var anyPairs = recipe.Positions.Any(p => p.Pairs != PairBuilds.None);
-        ProvenOptimal = recipe.Form == RecipeForm.Matched && !anyPairs && IntervalSweep.AllProper(singles, _geo.Demand.Length);
+        ProvenOptimal =
+            recipe.Form == RecipeForm.Matched && !anyPairs && IntervalSweep.AllProper(singles, _geo.Demand.Length);
         Take(IntervalSweep.Run(singles, _geo.Demand, _geo.PairCaps), result);
         if (anyPairs)
         {
@@ -60,7 +61,12 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
         for (var i = 0; i < _used.Length; i++)
         {
             var cls = Array.FindIndex(_geo.Nominals, n => options.SameNominal(pool.Usable[i].Nominal, n));
-            if (!_used[i] && exclude?[i] != true && cls >= 0 && _geo.Item(cls, Option.Single(i, pool.Usable[i]), 0) is { } item)
+            if (
+                !_used[i]
+                && exclude?[i] != true
+                && cls >= 0
+                && _geo.Item(cls, Option.Single(i, pool.Usable[i]), 0) is { } item
+            )
             {
                 items.Add(item);
             }
@@ -82,9 +88,11 @@ internal sealed class SweepPlanner(Recipe recipe, CandidatePool pool, ISetRule r
                 }
 
                 var source = PositionSpec.PartNominal(_geo.Nominals[j], build);
-                var free = Enumerable.Range(0, _used.Length)
+                var free = Enumerable
+                    .Range(0, _used.Length)
                     .Where(i => !_used[i] && !paired[i] && options.SameNominal(pool.Usable[i].Nominal, source))
-                    .OrderBy(i => pool.Usable[i].Value.Value).ToArray();
+                    .OrderBy(i => pool.Usable[i].Value.Value)
+                    .ToArray();
                 var count = (int)Math.Round(free.Length * fraction / 2);
                 var chosen = neighbours ? NeighbourPairs(free.Length, count) : ExtremePairs(free.Length, count);
                 foreach (var (a, b) in chosen)

@@ -17,7 +17,12 @@ internal sealed class WindowFilter
     private readonly bool[] _pairClass;
     private readonly Dictionary<(int Class, int Part), (double Left, double Right)> _own = [];
 
-    public WindowFilter(SweepGeometry geo, IReadOnlyList<PartCandidate> usable, AssemblyOptions options, bool[] pairClass)
+    public WindowFilter(
+        SweepGeometry geo,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options,
+        bool[] pairClass
+    )
     {
         _geo = geo;
         _pairClass = pairClass;
@@ -27,7 +32,10 @@ internal sealed class WindowFilter
         {
             for (var j = 0; j < geo.Nominals.Length; j++)
             {
-                if (options.SameNominal(usable[i].Nominal, geo.Nominals[j]) && geo.Item(j, Option.Single(i, usable[i]), 0) is { } it)
+                if (
+                    options.SameNominal(usable[i].Nominal, geo.Nominals[j])
+                    && geo.Item(j, Option.Single(i, usable[i]), 0) is { } it
+                )
                 {
                     _own[(j, i)] = (it.Left - Slack, it.Right + Slack);
                     lefts[j].Add(it.Left - Slack);
@@ -38,7 +46,13 @@ internal sealed class WindowFilter
 
         _lefts = lefts.Select(l => l.Order().ToArray()).ToArray();
         _rights = rights.Select(r => r.Order().ToArray()).ToArray();
-        _good = Enumerable.Range(0, _lefts.Length).Where(j => !pairClass[j]).SelectMany(j => _lefts[j]).Where(Covered).Order().ToArray();
+        _good = Enumerable
+            .Range(0, _lefts.Length)
+            .Where(j => !pairClass[j])
+            .SelectMany(j => _lefts[j])
+            .Where(Covered)
+            .Order()
+            .ToArray();
     }
 
     public bool Fits(int cls, int part)
@@ -73,7 +87,8 @@ internal sealed class WindowFilter
 
     private static int CountAtMost(double[] sorted, double x)
     {
-        int lo = 0, hi = sorted.Length;
+        int lo = 0,
+            hi = sorted.Length;
         while (lo < hi)
         {
             var mid = (lo + hi) / 2;
@@ -85,7 +100,8 @@ internal sealed class WindowFilter
 
     private static int CountBelow(double[] sorted, double x)
     {
-        int lo = 0, hi = sorted.Length;
+        int lo = 0,
+            hi = sorted.Length;
         while (lo < hi)
         {
             var mid = (lo + hi) / 2;

@@ -9,28 +9,61 @@ public sealed record AdaptiveCupOptions
     /// <param name="cupCount">Regular cups K per nominal, 1 to 23 (plus the reject cup "R").</param>
     /// <param name="matchTolerancePpm">Largest band width, ppm of nominal, 1 to 100 000.</param>
     /// <param name="stockTolerancePercent">Marked tolerance of the reels, percent, 0.001 to 50.</param>
-    /// <param name="partsPerSet">Parts of each nominal (ohms) one set needs, 1 to 100 each; at least one nominal.</param>
+    /// <param name="partsPerSet">Parts of each nominal (ohms) one set needs, 1 to 100 each; at least one
+    /// nominal.</param>
     /// <param name="learnCount">Parts of a nominal while the empty cups' bands are placed again at every part (after
     /// that, each time the sample grows by a tenth); also the weight of the mirrored parts early on. 4 to 10 000,
     /// default 40.</param>
-    /// <param name="uncertaintyLimitPpm">Largest expanded transfer uncertainty accepted, ppm; default half the match tolerance.</param>
-    public AdaptiveCupOptions(int cupCount, double matchTolerancePpm, double stockTolerancePercent, IReadOnlyDictionary<double, int> partsPerSet, int learnCount = 40, double? uncertaintyLimitPpm = null)
+    /// <param name="uncertaintyLimitPpm">Largest expanded transfer uncertainty accepted, ppm; default half the match
+    /// tolerance.</param>
+    public AdaptiveCupOptions(
+        int cupCount,
+        double matchTolerancePpm,
+        double stockTolerancePercent,
+        IReadOnlyDictionary<double, int> partsPerSet,
+        int learnCount = 40,
+        double? uncertaintyLimitPpm = null
+    )
     {
-        CupCount = cupCount is >= 1 and <= CupLabels.MaxCups ? cupCount
-            : throw new ArgumentOutOfRangeException(nameof(cupCount), cupCount, $"CupCount must be 1 to {CupLabels.MaxCups}");
-        MatchTolerancePpm = matchTolerancePpm is >= 1 and <= 100_000 ? matchTolerancePpm
-            : throw new ArgumentOutOfRangeException(nameof(matchTolerancePpm), matchTolerancePpm, "MatchTolerancePpm must be 1 to 100 000");
-        StockTolerancePercent = stockTolerancePercent is >= 0.001 and <= 50 ? stockTolerancePercent
-            : throw new ArgumentOutOfRangeException(nameof(stockTolerancePercent), stockTolerancePercent, "StockTolerancePercent must be 0.001 to 50");
-        PartsPerSet = partsPerSet.Count > 0 && partsPerSet.All(kv => kv.Key > 0 && kv.Value is >= 1 and <= 100)
-            ? new Dictionary<double, int>(partsPerSet)
-            : throw new ArgumentOutOfRangeException(nameof(partsPerSet), "PartsPerSet needs at least one nominal > 0 ohms with 1 to 100 parts");
-        LearnCount = learnCount is >= 4 and <= 10_000 ? learnCount
+        CupCount = cupCount is >= 1 and <= CupLabels.MaxCups
+            ? cupCount
+            : throw new ArgumentOutOfRangeException(
+                nameof(cupCount),
+                cupCount,
+                $"CupCount must be 1 to {CupLabels.MaxCups}"
+            );
+        MatchTolerancePpm = matchTolerancePpm is >= 1 and <= 100_000
+            ? matchTolerancePpm
+            : throw new ArgumentOutOfRangeException(
+                nameof(matchTolerancePpm),
+                matchTolerancePpm,
+                "MatchTolerancePpm must be 1 to 100 000"
+            );
+        StockTolerancePercent = stockTolerancePercent is >= 0.001 and <= 50
+            ? stockTolerancePercent
+            : throw new ArgumentOutOfRangeException(
+                nameof(stockTolerancePercent),
+                stockTolerancePercent,
+                "StockTolerancePercent must be 0.001 to 50"
+            );
+        PartsPerSet =
+            partsPerSet.Count > 0 && partsPerSet.All(kv => kv.Key > 0 && kv.Value is >= 1 and <= 100)
+                ? new Dictionary<double, int>(partsPerSet)
+                : throw new ArgumentOutOfRangeException(
+                    nameof(partsPerSet),
+                    "PartsPerSet needs at least one nominal > 0 ohms with 1 to 100 parts"
+                );
+        LearnCount = learnCount is >= 4 and <= 10_000
+            ? learnCount
             : throw new ArgumentOutOfRangeException(nameof(learnCount), learnCount, "LearnCount must be 4 to 10 000");
         UncertaintyLimitPpm = uncertaintyLimitPpm ?? (matchTolerancePpm / 2);
         if (UncertaintyLimitPpm is < 0 or > 100_000)
         {
-            throw new ArgumentOutOfRangeException(nameof(uncertaintyLimitPpm), uncertaintyLimitPpm, "UncertaintyLimitPpm must be 0 to 100 000");
+            throw new ArgumentOutOfRangeException(
+                nameof(uncertaintyLimitPpm),
+                uncertaintyLimitPpm,
+                "UncertaintyLimitPpm must be 0 to 100 000"
+            );
         }
     }
 
@@ -52,10 +85,22 @@ public sealed record AdaptiveCupOptions
     /// <summary>Largest expanded transfer uncertainty accepted, ppm.</summary>
     public double UncertaintyLimitPpm { get; }
 
-    /// <summary>Options for a matched-form recipe: its match tolerance and its single-part demand per nominal.</summary>
+    /// <summary>Options for a matched-form recipe: its match tolerance and its single-part demand per
+    /// nominal.</summary>
     /// <exception cref="ArgumentException">The recipe is not in the matched form.</exception>
-    public static AdaptiveCupOptions ForRecipe(Recipe recipe, int cupCount, double stockTolerancePercent, int learnCount = 40) =>
+    public static AdaptiveCupOptions ForRecipe(
+        Recipe recipe,
+        int cupCount,
+        double stockTolerancePercent,
+        int learnCount = 40
+    ) =>
         recipe.Form == RecipeForm.Matched
-            ? new AdaptiveCupOptions(cupCount, recipe.MatchTolerancePpm, stockTolerancePercent, recipe.SinglePartDemand, learnCount)
+            ? new AdaptiveCupOptions(
+                cupCount,
+                recipe.MatchTolerancePpm,
+                stockTolerancePercent,
+                recipe.SinglePartDemand,
+                learnCount
+            )
             : throw new ArgumentException("cup bands need a matched-form recipe (a ratio tolerance)", nameof(recipe));
 }

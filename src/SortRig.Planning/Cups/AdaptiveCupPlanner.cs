@@ -22,14 +22,28 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
 
     /// <inheritdoc />
     public IReadOnlyList<CupCount> Counts =>
-        _nominals.Values.SelectMany(n => n.Bands.Select(b =>
-            {
-                var c = _ledger.Count(n.Nominal, b.Label);
-                return new CupCount(n.Nominal, b.Label, b.Index, false, c, b.Lo, b.Hi, c / n.PartsPerSet);
-            }))
-            .Concat(_ledger.NonEmpty.Where(e => e.Key.Label == CupLabels.Reject)
-                .Select(e => new CupCount(
-                    e.Key.Nominal, CupLabels.Reject, options.CupCount, true, e.Count, double.NaN, double.NaN, 0)))
+        _nominals
+            .Values.SelectMany(n =>
+                n.Bands.Select(b =>
+                {
+                    var c = _ledger.Count(n.Nominal, b.Label);
+                    return new CupCount(n.Nominal, b.Label, b.Index, false, c, b.Lo, b.Hi, c / n.PartsPerSet);
+                })
+            )
+            .Concat(
+                _ledger
+                    .NonEmpty.Where(e => e.Key.Label == CupLabels.Reject)
+                    .Select(e => new CupCount(
+                        e.Key.Nominal,
+                        CupLabels.Reject,
+                        options.CupCount,
+                        true,
+                        e.Count,
+                        double.NaN,
+                        double.NaN,
+                        0
+                    ))
+            )
             .ToList();
 
     /// <summary>The bands of a nominal so far (label, low and high edge in ppm); empty before its first part.</summary>
@@ -87,8 +101,13 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
 
         if (u > options.UncertaintyLimitPpm)
         {
-            return Record(r, key, null, FormattableString.Invariant($"uncertainty {u:0} ppm is over the limit"),
-                forcedLabel);
+            return Record(
+                r,
+                key,
+                null,
+                FormattableString.Invariant($"uncertainty {u:0} ppm is over the limit"),
+                forcedLabel
+            );
         }
 
         state.Samples.Add((r.PartNumber, dev, u));
@@ -109,9 +128,11 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
     private NominalBands.Band? Choose(NominalBands state, double dev, double u)
     {
         bool Empty(string label) => _ledger.Count(state.Nominal, label) == 0;
-        var holding = state.Bands.Where(b => !Empty(b.Label) && b.Fits(dev, u))
-            .MaxBy(b => (_ledger.Count(state.Nominal, b.Label) % state.PartsPerSet,
-                _ledger.Count(state.Nominal, b.Label)));
+        var holding = state
+            .Bands.Where(b => !Empty(b.Label) && b.Fits(dev, u))
+            .MaxBy(b =>
+                (_ledger.Count(state.Nominal, b.Label) % state.PartsPerSet, _ledger.Count(state.Nominal, b.Label))
+            );
         if (holding is not null || state.Bands.Count(b => !Empty(b.Label)) >= options.CupCount)
         {
             return holding;
@@ -120,9 +141,17 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         if (state.Stale)
         {
             state.Replan(Empty);
-            Log.BandsPlanned(_logger, state.Nominal, state.Samples.Count, string.Join(" ", state.Bands
-                .OrderBy(b => b.Lo)
-                .Select(b => FormattableString.Invariant($"{b.Label}[{b.Lo:0},{b.Hi:0}]"))));
+            Log.BandsPlanned(
+                _logger,
+                state.Nominal,
+                state.Samples.Count,
+                string.Join(
+                    " ",
+                    state
+                        .Bands.OrderBy(b => b.Lo)
+                        .Select(b => FormattableString.Invariant($"{b.Label}[{b.Lo:0},{b.Hi:0}]"))
+                )
+            );
         }
 
         return state.Bands.FirstOrDefault(b => Empty(b.Label) && b.Fits(dev, u));
@@ -151,7 +180,8 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
             {
                 throw new ArgumentException(
                     $"cup label '{forcedLabel}' of part {r.PartNumber} is not a cup of nominal {key}",
-                    nameof(forcedLabel));
+                    nameof(forcedLabel)
+                );
             }
         }
 

@@ -12,13 +12,26 @@ public sealed class BandCupAssigner(BandCupOptions options) : ICupAssigner
 
     /// <inheritdoc />
     public IReadOnlyList<CupCount> Counts =>
-        Enumerable.Range(0, options.CupCount + 1).Select(i =>
-        {
-            var reject = i == options.CupCount;
-            var label = reject ? CupLabels.Reject : CupLabels.For(i);
-            var n = _ledger.Count(options.Nominal, label);
-            return new CupCount(options.Nominal, label, i, reject, n, reject ? double.NaN : Low(i), reject ? double.NaN : Low(i + 1), reject ? 0 : n / options.PartsPerSet);
-        }).Where(c => c.Count > 0 || c.IsReject).ToList();
+        Enumerable
+            .Range(0, options.CupCount + 1)
+            .Select(i =>
+            {
+                var reject = i == options.CupCount;
+                var label = reject ? CupLabels.Reject : CupLabels.For(i);
+                var n = _ledger.Count(options.Nominal, label);
+                return new CupCount(
+                    options.Nominal,
+                    label,
+                    i,
+                    reject,
+                    n,
+                    reject ? double.NaN : Low(i),
+                    reject ? double.NaN : Low(i + 1),
+                    reject ? 0 : n / options.PartsPerSet
+                );
+            })
+            .Where(c => c.Count > 0 || c.IsReject)
+            .ToList();
 
     /// <inheritdoc />
     public CupDecision Assign(CupRequest request)
@@ -41,7 +54,10 @@ public sealed class BandCupAssigner(BandCupOptions options) : ICupAssigner
             var i = CupLabels.IndexOf(label);
             if (label != CupLabels.Reject && (i < 0 || i >= options.CupCount))
             {
-                throw new ArgumentException($"cup label '{label}' of part {part.PartNumber} is not one of this assigner's cups", nameof(history));
+                throw new ArgumentException(
+                    $"cup label '{label}' of part {part.PartNumber} is not one of this assigner's cups",
+                    nameof(history)
+                );
             }
 
             _ledger.Add(part, options.Nominal, label);
@@ -57,19 +73,33 @@ public sealed class BandCupAssigner(BandCupOptions options) : ICupAssigner
     {
         if (Math.Abs(r.Nominal - options.Nominal) > options.Nominal * 1e-4)
         {
-            return (-1, $"nominal {r.Nominal.ToString(CultureInfo.InvariantCulture)} ohm is not this reel's {options.Nominal.ToString(CultureInfo.InvariantCulture)} ohm");
+            return (
+                -1,
+                $"nominal {r.Nominal.ToString(CultureInfo.InvariantCulture)} ohm is not this reel's "
+                    + $"{options.Nominal.ToString(CultureInfo.InvariantCulture)} ohm"
+            );
         }
 
         var dev = ((r.Value.Value / options.Nominal) - 1) * 1e6;
         var u = r.Value.ExpandedTransfer / options.Nominal * 1e6;
         if (Math.Abs(dev) > options.StockTolerancePercent * 1e4)
         {
-            return (-1, FormattableString.Invariant($"{dev:+0;-0} ppm is outside the stock tolerance ±{options.StockTolerancePercent} %"));
+            return (
+                -1,
+                FormattableString.Invariant(
+                    $"{dev:+0;-0} ppm is outside the stock tolerance ±{options.StockTolerancePercent} %"
+                )
+            );
         }
 
         if (u > options.UncertaintyLimitPpm)
         {
-            return (-1, FormattableString.Invariant($"uncertainty {u:0} ppm is over the {options.UncertaintyLimitPpm:0} ppm limit"));
+            return (
+                -1,
+                FormattableString.Invariant(
+                    $"uncertainty {u:0} ppm is over the {options.UncertaintyLimitPpm:0} ppm limit"
+                )
+            );
         }
 
         var i = (int)Math.Floor((dev - Low(0)) / options.MatchTolerancePpm);

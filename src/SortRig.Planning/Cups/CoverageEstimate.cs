@@ -24,7 +24,8 @@ internal static class CoverageEstimate
         double step,
         int points,
         double width,
-        double cap)
+        double cap
+    )
     {
         var gains = new double[points];
         if (samples.Count == 0)
@@ -70,7 +71,8 @@ internal static class CoverageEstimate
 
         var stride = Math.Max(1, centres.Count / 150);
         var x = centres.Where((_, i) => i % stride == 0).ToArray();
-        double best = double.NegativeInfinity, chosen = cap;
+        double best = double.NegativeInfinity,
+            chosen = cap;
         for (var h = cap / 20; h <= cap * 1.0001; h *= 1.25)
         {
             var score = 0.0;

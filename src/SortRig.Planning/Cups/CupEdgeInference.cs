@@ -8,7 +8,8 @@ namespace SortRig.Planning.Cups;
 /// </summary>
 public static class CupEdgeInference
 {
-    /// <summary>The K + 1 band edges in ppm of nominal for <paramref name="cupCount"/> cups of <paramref name="matchPpm"/>.</summary>
+    /// <summary>The K + 1 band edges in ppm of nominal for <paramref name="cupCount"/> cups of <paramref
+    /// name="matchPpm"/>.</summary>
     public static IReadOnlyList<double> Edges(int cupCount, double matchPpm)
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(cupCount, 1);
@@ -20,7 +21,8 @@ public static class CupEdgeInference
     /// The smallest cup count (1..23) consistent with every part's recorded regular cup, or null when there is no
     /// sorted part or no count fits (e.g. the session used adaptive bands).
     /// </summary>
-    /// <param name="parts">Deviation from nominal in ppm and the cup label of each part; reject and slot labels are ignored.</param>
+    /// <param name="parts">Deviation from nominal in ppm and the cup label of each part; reject and slot labels are
+    /// ignored.</param>
     /// <param name="matchPpm">Band width, ppm.</param>
     public static int? InferCupCount(IEnumerable<(double DeviationPpm, string? Cup)> parts, double matchPpm)
     {
@@ -46,7 +48,8 @@ public static class CupEdgeInference
         return null;
     }
 
-    // The stored deviation is recomputed from the stored value, so allow a part a hair (1e-6 ppm) on either side of an edge.
+    // The stored deviation is recomputed from the stored value, so allow a part a hair (1e-6 ppm) on either side of an
+    // edge.
     private static bool Fits(double dev, int index, double low, double width) =>
         Math.Floor((dev - low) / width) == index
         || Math.Floor((dev + 1e-6 - low) / width) == index

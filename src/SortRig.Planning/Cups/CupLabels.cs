@@ -1,6 +1,7 @@
 namespace SortRig.Planning.Cups;
 
-/// <summary>Our cup labels: letters A–Z without I and O (read as 1 and 0) and without R, which marks the reject cup.</summary>
+/// <summary>Our cup labels: letters A–Z without I and O (read as 1 and 0) and without R, which marks the reject
+/// cup.</summary>
 public static class CupLabels
 {
     private static readonly string s_letters = "ABCDEFGHJKLMNPQSTUVWXYZ";
@@ -15,5 +16,6 @@ public static class CupLabels
     public static string For(int index) => s_letters[index].ToString();
 
     /// <summary>Index of a regular cup label, or -1.</summary>
-    public static int IndexOf(string label) => label.Length == 1 ? s_letters.IndexOf(label[0], StringComparison.Ordinal) : -1;
+    public static int IndexOf(string label) =>
+        label.Length == 1 ? s_letters.IndexOf(label[0], StringComparison.Ordinal) : -1;
 }

@@ -15,7 +15,9 @@ internal sealed class CupLedger
     {
         if (_parts.TryGetValue(partNumber, out var at))
         {
-            throw new InvalidOperationException($"part {partNumber} is already in cup {at.Label}; undo it before assigning it again");
+            throw new InvalidOperationException(
+                $"part {partNumber} is already in cup {at.Label}; undo it before assigning it again"
+            );
         }
     }
 

@@ -10,10 +10,12 @@ public sealed record CupRequest(long PartNumber, double Nominal, MeasuredValue V
 
 /// <summary>Where a part goes.</summary>
 /// <param name="CupLabel">Label shown to the operator ("A", "T1-A07", or "R" for reject).</param>
-/// <param name="CupIndex">0-based index among the regular cups; the reject cup has index = number of regular cups.</param>
+/// <param name="CupIndex">0-based index among the regular cups; the reject cup has index = number of regular
+/// cups.</param>
 /// <param name="IsReject">True for the reject cup.</param>
 /// <param name="Reason">Why, in words (band limits, or why rejected).</param>
-/// <param name="CompletesSet">True when this part makes the cup hold a whole number of sets' worth of this nominal.</param>
+/// <param name="CompletesSet">True when this part makes the cup hold a whole number of sets' worth of this
+/// nominal.</param>
 public sealed record CupDecision(string CupLabel, int CupIndex, bool IsReject, string Reason, bool CompletesSet)
 {
     /// <summary>
@@ -32,7 +34,16 @@ public sealed record CupDecision(string CupLabel, int CupIndex, bool IsReject, s
 /// <param name="LowPpm">Lower band edge, ppm from nominal (NaN for reject and slots).</param>
 /// <param name="HighPpm">Upper band edge, ppm from nominal (NaN for reject and slots).</param>
 /// <param name="SetsReady">Whole sets' worth of this nominal in the cup.</param>
-public sealed record CupCount(double Nominal, string CupLabel, int CupIndex, bool IsReject, int Count, double LowPpm, double HighPpm, int SetsReady);
+public sealed record CupCount(
+    double Nominal,
+    string CupLabel,
+    int CupIndex,
+    bool IsReject,
+    int Count,
+    double LowPpm,
+    double HighPpm,
+    int SetsReady
+);
 
 /// <summary>Tells the sorting pipeline which cup each measured part goes in.</summary>
 public interface ICupAssigner

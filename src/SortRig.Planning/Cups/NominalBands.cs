@@ -46,9 +46,8 @@ internal sealed class NominalBands
     /// True when the sample has grown enough since the last plan to place the empty cups' bands again: at every
     /// part up to the learn count, then each time it has grown by a tenth.
     /// </summary>
-    public bool Stale => Samples.Count <= _options.LearnCount
-        ? Samples.Count != _plannedAt
-        : Samples.Count >= _plannedAt * 1.1;
+    public bool Stale =>
+        Samples.Count <= _options.LearnCount ? Samples.Count != _plannedAt : Samples.Count >= _plannedAt * 1.1;
 
     /// <summary>Places the empty cups' bands where most coming parts are expected; bands with parts stay.</summary>
     public void Replan(Func<string, bool> isEmpty)
@@ -61,30 +60,41 @@ internal sealed class NominalBands
             return;
         }
 
-        var centres = Samples.Select(s =>
-        {
-            var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
-            return ((lo + hi) / 2, (hi - lo) / 2);
-        }).ToList();
+        var centres = Samples
+            .Select(s =>
+            {
+                var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
+                return ((lo + hi) / 2, (hi - lo) / 2);
+            })
+            .ToList();
         var first = _firstIndex * _step;
         var gains = Estimate(centres, first);
         var pinned = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).ToList();
         // Beside bands with parts, a planned band either touches one of them or leaves room for a whole band on both
         // sides: a narrower gap could never be used, and plans drawn from few parts would scatter such gaps.
-        var allowed = Enumerable.Range(0, _points).Select(j =>
-        {
-            var s = first + (j * _step);
-            if (!pinned.All(p => p.Item1 >= s + _width - 1e-6 || p.Item2 <= s + 1e-6))
+        var allowed = Enumerable
+            .Range(0, _points)
+            .Select(j =>
             {
-                return false;
-            }
+                var s = first + (j * _step);
+                if (!pinned.All(p => p.Item1 >= s + _width - 1e-6 || p.Item2 <= s + 1e-6))
+                {
+                    return false;
+                }
 
-            var left = pinned.Select(p => s - p.Item2).Where(g => g >= -1e-6)
-                .DefaultIfEmpty(double.PositiveInfinity).Min();
-            var right = pinned.Select(p => p.Item1 - s - _width).Where(g => g >= -1e-6)
-                .DefaultIfEmpty(double.PositiveInfinity).Min();
-            return left <= 1e-6 || right <= 1e-6 || (left >= _width - 1e-6 && right >= _width - 1e-6);
-        }).ToList();
+                var left = pinned
+                    .Select(p => s - p.Item2)
+                    .Where(g => g >= -1e-6)
+                    .DefaultIfEmpty(double.PositiveInfinity)
+                    .Min();
+                var right = pinned
+                    .Select(p => p.Item1 - s - _width)
+                    .Where(g => g >= -1e-6)
+                    .DefaultIfEmpty(double.PositiveInfinity)
+                    .Min();
+                return left <= 1e-6 || right <= 1e-6 || (left >= _width - 1e-6 && right >= _width - 1e-6);
+            })
+            .ToList();
         foreach (var j in WindowCover.Best(gains, StepsPerBand, allowed, free).Starts)
         {
             var s = first + (j * _step);
@@ -102,7 +112,9 @@ internal sealed class NominalBands
         if (index < 0 || index >= _options.CupCount)
         {
             throw new ArgumentException(
-                $"cup label '{label}' is not one of the {_options.CupCount} cups", nameof(label));
+                $"cup label '{label}' is not one of the {_options.CupCount} cups",
+                nameof(label)
+            );
         }
 
         Bands.RemoveAll(b => b.Label == label);
@@ -129,8 +141,10 @@ internal sealed class NominalBands
         for (var j = 0; j < _points; j++)
         {
             var s = first + (j * _step);
-            var prior = _width > 2 * half
-                ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half) : 0;
+            var prior =
+                _width > 2 * half
+                    ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half)
+                    : 0;
             gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
         }
 

@@ -9,14 +9,29 @@ public sealed class SlotAssigner(SlotOptions options) : ICupAssigner
 {
     private readonly CupLedger _ledger = new();
     private readonly SortedSet<int> _free = new(Enumerable.Range(0, options.Capacity));
-    private readonly Dictionary<string, int> _index = Enumerable.Range(0, options.Capacity).ToDictionary(options.Label, i => i);
+    private readonly Dictionary<string, int> _index = Enumerable
+        .Range(0, options.Capacity)
+        .ToDictionary(options.Label, i => i);
 
     /// <inheritdoc />
     public IReadOnlyList<CupCount> Counts =>
-        _ledger.NonEmpty.Select(e => e.Key.Label == CupLabels.Reject
-                ? new CupCount(0, CupLabels.Reject, options.Capacity, true, e.Count, double.NaN, double.NaN, 0)
-                : new CupCount(e.Key.Nominal, e.Key.Label, _index[e.Key.Label], false, e.Count, double.NaN, double.NaN, 0))
-            .OrderBy(c => c.CupIndex).ToList();
+        _ledger
+            .NonEmpty.Select(e =>
+                e.Key.Label == CupLabels.Reject
+                    ? new CupCount(0, CupLabels.Reject, options.Capacity, true, e.Count, double.NaN, double.NaN, 0)
+                    : new CupCount(
+                        e.Key.Nominal,
+                        e.Key.Label,
+                        _index[e.Key.Label],
+                        false,
+                        e.Count,
+                        double.NaN,
+                        double.NaN,
+                        0
+                    )
+            )
+            .OrderBy(c => c.CupIndex)
+            .ToList();
 
     /// <inheritdoc />
     public CupDecision Assign(CupRequest request)
@@ -25,13 +40,19 @@ public sealed class SlotAssigner(SlotOptions options) : ICupAssigner
         if (options.Nominals is { } wanted && !wanted.Any(n => Math.Abs(n - request.Nominal) <= n * 1e-4))
         {
             _ledger.Add(request, 0, CupLabels.Reject);
-            return new CupDecision(CupLabels.Reject, options.Capacity, true, "nominal not wanted in the trays", false) { IsSlot = true };
+            return new CupDecision(CupLabels.Reject, options.Capacity, true, "nominal not wanted in the trays", false)
+            {
+                IsSlot = true,
+            };
         }
 
         if (_free.Count == 0)
         {
             _ledger.Add(request, 0, CupLabels.Reject);
-            return new CupDecision(CupLabels.Reject, options.Capacity, true, "every slot is full", false) { IsSlot = true };
+            return new CupDecision(CupLabels.Reject, options.Capacity, true, "every slot is full", false)
+            {
+                IsSlot = true,
+            };
         }
 
         var slot = _free.Min;
@@ -56,7 +77,10 @@ public sealed class SlotAssigner(SlotOptions options) : ICupAssigner
 
             if (!_index.TryGetValue(label, out var slot) || !_free.Remove(slot))
             {
-                throw new ArgumentException($"slot '{label}' of part {part.PartNumber} is unknown or already taken", nameof(history));
+                throw new ArgumentException(
+                    $"slot '{label}' of part {part.PartNumber} is unknown or already taken",
+                    nameof(history)
+                );
             }
 
             _ledger.Add(part, part.Nominal, label);

@@ -1,6 +1,7 @@
 namespace SortRig.Planning.Cups;
 
-/// <summary>Options of <see cref="SlotAssigner"/>: trays of rows × columns (a strip is one row). Validated at construction.</summary>
+/// <summary>Options of <see cref="SlotAssigner"/>: trays of rows × columns (a strip is one row). Validated at
+/// construction.</summary>
 public sealed record SlotOptions
 {
     /// <summary>Creates validated options.</summary>
@@ -10,9 +11,15 @@ public sealed record SlotOptions
     /// <param name="nominals">Nominals accepted (ohms); null accepts every nominal.</param>
     public SlotOptions(int trays = 1, int rows = 10, int columns = 10, IReadOnlyList<double>? nominals = null)
     {
-        Trays = trays is >= 1 and <= 99 ? trays : throw new ArgumentOutOfRangeException(nameof(trays), trays, "Trays must be 1 to 99");
-        Rows = rows is >= 1 and <= 26 ? rows : throw new ArgumentOutOfRangeException(nameof(rows), rows, "Rows must be 1 to 26");
-        Columns = columns is >= 1 and <= 99 ? columns : throw new ArgumentOutOfRangeException(nameof(columns), columns, "Columns must be 1 to 99");
+        Trays = trays is >= 1 and <= 99
+            ? trays
+            : throw new ArgumentOutOfRangeException(nameof(trays), trays, "Trays must be 1 to 99");
+        Rows = rows is >= 1 and <= 26
+            ? rows
+            : throw new ArgumentOutOfRangeException(nameof(rows), rows, "Rows must be 1 to 26");
+        Columns = columns is >= 1 and <= 99
+            ? columns
+            : throw new ArgumentOutOfRangeException(nameof(columns), columns, "Columns must be 1 to 99");
         Nominals = nominals;
     }
 

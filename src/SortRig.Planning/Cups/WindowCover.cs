@@ -9,7 +9,11 @@ internal static class WindowCover
 {
     /// <summary>Start indices (ascending) of the best windows and their total gain; no window worth 0.</summary>
     public static (IReadOnlyList<int> Starts, double Total) Best(
-        IReadOnlyList<double> gain, int span, IReadOnlyList<bool> allowed, int count)
+        IReadOnlyList<double> gain,
+        int span,
+        IReadOnlyList<bool> allowed,
+        int count
+    )
     {
         ArgumentOutOfRangeException.ThrowIfLessThan(span, 1);
         ArgumentOutOfRangeException.ThrowIfNegative(count);
@@ -28,7 +32,7 @@ internal static class WindowCover
         }
 
         var starts = new List<int>();
-        for (int i = 0, f = count; i < g && f > 0;)
+        for (int i = 0, f = count; i < g && f > 0; )
         {
             if (allowed[i] && gain[i] > 0 && gain[i] + best[i + span, f - 1] >= best[i + 1, f])
             {

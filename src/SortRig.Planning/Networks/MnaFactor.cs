@@ -25,7 +25,8 @@ internal sealed class MnaFactor
         if (!(Math.Abs(_lu.Determinant) > 0) || double.IsNaN(_lu.Determinant))
         {
             throw new InvalidOperationException(
-                "the network is singular: some node has no DC path to ground, or sources/op-amps over-constrain a node");
+                "the network is singular: some node has no DC path to ground, or sources/op-amps over-constrain a node"
+            );
         }
     }
 

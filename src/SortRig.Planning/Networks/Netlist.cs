@@ -6,7 +6,8 @@ public sealed record NetResistor(string Name, string NodeA, string NodeB);
 /// <summary>An ideal voltage source: V(Plus) - V(Minus) = Volts.</summary>
 public sealed record NetSource(string Name, string Plus, string Minus, double Volts);
 
-/// <summary>An ideal operational amplifier (nullor): drives Output so that V(Plus) = V(Minus), draws no input current.</summary>
+/// <summary>An ideal operational amplifier (nullor): drives Output so that V(Plus) = V(Minus), draws no input
+/// current.</summary>
 public sealed record NetAmplifier(string Name, string Plus, string Minus, string Output);
 
 /// <summary>
@@ -20,7 +21,8 @@ public sealed record Netlist(
     string Ground,
     IReadOnlyList<NetResistor> Resistors,
     IReadOnlyList<NetSource> Sources,
-    IReadOnlyList<NetAmplifier> Amplifiers)
+    IReadOnlyList<NetAmplifier> Amplifiers
+)
 {
     /// <summary>Every node named by an element, ground included, in first-seen order.</summary>
     public IReadOnlyList<string> Nodes
@@ -36,9 +38,22 @@ public sealed record Netlist(
                 }
             }
 
-            foreach (var r in Resistors) { Add(r.NodeA); Add(r.NodeB); }
-            foreach (var s in Sources) { Add(s.Plus); Add(s.Minus); }
-            foreach (var a in Amplifiers) { Add(a.Plus); Add(a.Minus); Add(a.Output); }
+            foreach (var r in Resistors)
+            {
+                Add(r.NodeA);
+                Add(r.NodeB);
+            }
+            foreach (var s in Sources)
+            {
+                Add(s.Plus);
+                Add(s.Minus);
+            }
+            foreach (var a in Amplifiers)
+            {
+                Add(a.Plus);
+                Add(a.Minus);
+                Add(a.Output);
+            }
             return seen;
         }
     }

@@ -9,7 +9,15 @@ namespace SortRig.Planning.Networks;
 /// sensitivities (Σ |∂Error/∂R| U), in <paramref name="Unit"/>.</param>
 /// <param name="Tolerance">Half-width of the spec in <paramref name="Unit"/>.</param>
 /// <param name="Unit">"V" or "ppm".</param>
-public sealed record OutputCheck(string Name, double Value, double Target, double Error, double WorstCaseError, double Tolerance, string Unit)
+public sealed record OutputCheck(
+    string Name,
+    double Value,
+    double Target,
+    double Error,
+    double WorstCaseError,
+    double Tolerance,
+    string Unit
+)
 {
     /// <summary>True when the spec is met in the worst case.</summary>
     public bool Meets => WorstCaseError <= Tolerance;

@@ -3,9 +3,17 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Planning.Networks;
 
 /// <summary>A value of one output for one set of position values, with d(Error)/dR for every position.</summary>
-internal readonly record struct OutputValue(double Value, double Target, double Error, double[] ErrorGradient, double Tolerance, string Unit);
+internal readonly record struct OutputValue(
+    double Value,
+    double Target,
+    double Error,
+    double[] ErrorGradient,
+    double Tolerance,
+    string Unit
+);
 
-/// <summary>Evaluates a network recipe's outputs for position values (positions in recipe order = netlist order).</summary>
+/// <summary>Evaluates a network recipe's outputs for position values (positions in recipe order = netlist
+/// order).</summary>
 internal sealed class RecipeNetwork
 {
     private readonly MnaSystem _system;
@@ -95,11 +103,13 @@ internal sealed class RecipeNetwork
         throw new InvalidOperationException($"no position '{position}'");
     }
 
-    private double? Explicit(OutputSpec o) => o switch
-    {
-        NodeVoltageSpec s => s.TargetVolts,
-        VoltageRatioSpec s => s.Target,
-        PositionRatioSpec s => _recipe.Positions[IndexOf(s.Numerator)].Nominal / _recipe.Positions[IndexOf(s.Denominator)].Nominal,
-        _ => null,
-    };
+    private double? Explicit(OutputSpec o) =>
+        o switch
+        {
+            NodeVoltageSpec s => s.TargetVolts,
+            VoltageRatioSpec s => s.Target,
+            PositionRatioSpec s => _recipe.Positions[IndexOf(s.Numerator)].Nominal
+                / _recipe.Positions[IndexOf(s.Denominator)].Nominal,
+            _ => null,
+        };
 }

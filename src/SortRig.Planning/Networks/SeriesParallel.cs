@@ -16,7 +16,8 @@ public static class SeriesParallel
         return f * f;
     }
 
-    /// <summary>Worst-case (linear) expanded uncertainty of a combination from the parts' expanded uncertainties, ohms.</summary>
+    /// <summary>Worst-case (linear) expanded uncertainty of a combination from the parts' expanded uncertainties,
+    /// ohms.</summary>
     /// <param name="parallel">True for parallel, false for series.</param>
     /// <param name="r1">First part, ohms.</param>
     /// <param name="u1">First part's expanded uncertainty, ohms.</param>

@@ -1,11 +1,13 @@
 namespace SortRig.Planning.Ordering;
 
-/// <summary>One quantity break: from <paramref name="Quantity"/> parts on, each costs <paramref name="UnitPrice"/>.</summary>
+/// <summary>One quantity break: from <paramref name="Quantity"/> parts on, each costs <paramref
+/// name="UnitPrice"/>.</summary>
 /// <param name="Quantity">Smallest order quantity of the break, parts (≥ 1).</param>
 /// <param name="UnitPrice">Price per part at this break, in the caller's currency (≥ 0).</param>
 public readonly record struct PriceBreak(int Quantity, double UnitPrice);
 
-/// <summary>Unit prices by quantity break for one nominal. The first break applies from 1 part even if it says more.</summary>
+/// <summary>Unit prices by quantity break for one nominal. The first break applies from 1 part even if it says
+/// more.</summary>
 public sealed record PriceBreaks
 {
     /// <summary>Creates validated breaks.</summary>
@@ -23,7 +25,12 @@ public sealed record PriceBreaks
         {
             if (b.Quantity < 1 || !double.IsFinite(b.UnitPrice) || b.UnitPrice < 0)
             {
-                throw new ArgumentException(FormattableString.Invariant($"price break {b.Quantity}: quantity must be ≥ 1 and the unit price a number ≥ 0"), nameof(breaks));
+                throw new ArgumentException(
+                    FormattableString.Invariant(
+                        $"price break {b.Quantity}: quantity must be ≥ 1 and the unit price a number ≥ 0"
+                    ),
+                    nameof(breaks)
+                );
             }
         }
 
@@ -38,7 +45,8 @@ public sealed record PriceBreaks
     /// <summary>The breaks by rising quantity.</summary>
     public IReadOnlyList<PriceBreak> Breaks { get; }
 
-    /// <summary>Unit price at <paramref name="quantity"/> parts: the largest break not above it (the first break below it).</summary>
+    /// <summary>Unit price at <paramref name="quantity"/> parts: the largest break not above it (the first break below
+    /// it).</summary>
     public double UnitPriceAt(int quantity) => Breaks.LastOrDefault(b => b.Quantity <= quantity, Breaks[0]).UnitPrice;
 
     /// <summary>Cost of exactly <paramref name="quantity"/> parts.</summary>

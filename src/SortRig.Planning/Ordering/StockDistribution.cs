@@ -11,8 +11,8 @@ public enum StockShape
     /// <summary>Uniform over ± the tolerance.</summary>
     Uniform,
 
-    /// <summary>Normal with σ = tolerance / 2, truncated to ± the tolerance, with |deviation| &lt; gap missing (the centre
-    /// was sold as a tighter grade).</summary>
+    /// <summary>Normal with σ = tolerance / 2, truncated to ± the tolerance, with |deviation| &lt; gap missing (the
+    /// centre was sold as a tighter grade).</summary>
     Bimodal,
 
     /// <summary>Resampled (with replacement) from measured relative deviations.</summary>
@@ -20,8 +20,8 @@ public enum StockShape
 }
 
 /// <summary>
-/// How the relative deviations (value / nominal − 1) of bought parts are distributed. Immutable; draws are repeatable for
-/// a given <see cref="Random"/>.
+/// How the relative deviations (value / nominal − 1) of bought parts are distributed. Immutable; draws are repeatable
+/// for a given <see cref="Random"/>.
 /// </summary>
 public sealed record StockDistribution
 {
@@ -31,7 +31,11 @@ public sealed record StockDistribution
     {
         if (shape != StockShape.Empirical && !(tolerance is > 0 and <= 0.5))
         {
-            throw new ArgumentOutOfRangeException(nameof(tolerance), tolerance, "stock tolerance must be > 0 and at most 0.5 (50 %)");
+            throw new ArgumentOutOfRangeException(
+                nameof(tolerance),
+                tolerance,
+                "stock tolerance must be > 0 and at most 0.5 (50 %)"
+            );
         }
 
         Shape = shape;
@@ -43,7 +47,8 @@ public sealed record StockDistribution
     /// <summary>The shape.</summary>
     public StockShape Shape { get; }
 
-    /// <summary>Stock tolerance, a fraction (0.01 = 1 %); for an empirical stock the largest |deviation| measured.</summary>
+    /// <summary>Stock tolerance, a fraction (0.01 = 1 %); for an empirical stock the largest |deviation|
+    /// measured.</summary>
     public double Tolerance { get; }
 
     /// <summary>Bimodal only: half-width of the missing centre, a fraction; 0 otherwise.</summary>
@@ -66,7 +71,11 @@ public sealed record StockDistribution
     public static StockDistribution Bimodal(double tolerance, double gapFraction = 0.4) =>
         gapFraction is >= 0 and <= 0.9
             ? new(StockShape.Bimodal, tolerance, gapFraction * tolerance, [])
-            : throw new ArgumentOutOfRangeException(nameof(gapFraction), gapFraction, "the missing centre must be 0 to 0.9 of the tolerance");
+            : throw new ArgumentOutOfRangeException(
+                nameof(gapFraction),
+                gapFraction,
+                "the missing centre must be 0 to 0.9 of the tolerance"
+            );
 
     /// <summary>Resamples measured relative deviations.</summary>
     /// <param name="deviations">At least 2 finite deviations, each within ± 0.5.</param>
@@ -76,7 +85,10 @@ public sealed record StockDistribution
         var d = deviations.ToArray();
         if (d.Length < 2 || d.Any(x => !double.IsFinite(x) || Math.Abs(x) > 0.5))
         {
-            throw new ArgumentException("an empirical stock needs at least 2 measured deviations, each finite and within ±50 %", nameof(deviations));
+            throw new ArgumentException(
+                "an empirical stock needs at least 2 measured deviations, each finite and within ±50 %",
+                nameof(deviations)
+            );
         }
 
         return new StockDistribution(StockShape.Empirical, d.Max(Math.Abs), 0, d);
@@ -108,16 +120,25 @@ public sealed record StockDistribution
 
     /// <inheritdoc />
     public bool Equals(StockDistribution? other) =>
-        other is not null && Shape == other.Shape && Tolerance == other.Tolerance && Gap == other.Gap && _measured.SequenceEqual(other._measured);
+        other is not null
+        && Shape == other.Shape
+        && Tolerance == other.Tolerance
+        && Gap == other.Gap
+        && _measured.SequenceEqual(other._measured);
 
     /// <inheritdoc />
     public override int GetHashCode() => HashCode.Combine(Shape, Tolerance, Gap, _measured.Length);
 
     /// <summary>Short description, e.g. "normal ±1 %".</summary>
-    public string Describe() => Shape switch
-    {
-        StockShape.Empirical => FormattableString.Invariant($"measured ({_measured.Length} parts, within ±{Tolerance * 100:0.###} %)"),
-        StockShape.Bimodal => FormattableString.Invariant($"bimodal ±{Tolerance * 100:0.###} % without the centre ±{Gap * 100:0.###} %"),
-        _ => FormattableString.Invariant($"{Shape.ToString().ToLowerInvariant()} ±{Tolerance * 100:0.###} %"),
-    };
+    public string Describe() =>
+        Shape switch
+        {
+            StockShape.Empirical => FormattableString.Invariant(
+                $"measured ({_measured.Length} parts, within ±{Tolerance * 100:0.###} %)"
+            ),
+            StockShape.Bimodal => FormattableString.Invariant(
+                $"bimodal ±{Tolerance * 100:0.###} % without the centre ±{Gap * 100:0.###} %"
+            ),
+            _ => FormattableString.Invariant($"{Shape.ToString().ToLowerInvariant()} ±{Tolerance * 100:0.###} %"),
+        };
 }

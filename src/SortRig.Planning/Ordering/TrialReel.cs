@@ -5,8 +5,8 @@ using SortRig.Planning.Assembly;
 namespace SortRig.Planning.Ordering;
 
 /// <summary>
-/// The parts one trial could buy: per nominal an endless, seeded stream of values, so that a smaller order is always the
-/// first parts of a larger one (the prefix property the search for the smallest order relies on).
+/// The parts one trial could buy: per nominal an endless, seeded stream of values, so that a smaller order is always
+/// the first parts of a larger one (the prefix property the search for the smallest order relies on).
 /// </summary>
 internal sealed class TrialReel
 {
@@ -16,17 +16,26 @@ internal sealed class TrialReel
     private readonly StockDistribution _stock;
     private readonly double _uncertainty;
 
-    public TrialReel((double Nominal, int PerSet)[] classes, StockDistribution stock, double uncertainty, int seed, int trial)
+    public TrialReel(
+        (double Nominal, int PerSet)[] classes,
+        StockDistribution stock,
+        double uncertainty,
+        int seed,
+        int trial
+    )
     {
         _classes = classes;
         _stock = stock;
         _uncertainty = uncertainty;
-        _random = classes.Select((_, j) => (Random)new Xoshiro256StarStar(Mix(seed, trial, j), threadSafe: false)).ToArray();
+        _random = classes
+            .Select((_, j) => (Random)new Xoshiro256StarStar(Mix(seed, trial, j), threadSafe: false))
+            .ToArray();
         _drawn = classes.Select(_ => new List<PartCandidate>()).ToArray();
     }
 
     /// <summary>The first <paramref name="setEquivalents"/> × per-set parts of every nominal.</summary>
-    public List<PartCandidate> Order(int setEquivalents) => Order(_classes.Select(c => setEquivalents * c.PerSet).ToArray());
+    public List<PartCandidate> Order(int setEquivalents) =>
+        Order(_classes.Select(c => setEquivalents * c.PerSet).ToArray());
 
     /// <summary>The first <paramref name="quantities"/>[j] parts of nominal class j.</summary>
     public List<PartCandidate> Order(int[] quantities)
@@ -42,7 +51,15 @@ internal sealed class TrialReel
 
                 // The transfer uncertainty is stored as a standard uncertainty with k = 2 (MeasuredValue's default).
                 var u = value * _uncertainty / 2;
-                _drawn[j].Add(new PartCandidate(((long)j << 32) + _drawn[j].Count, nominal, new MeasuredValue(value, u, u), null));
+                _drawn[j]
+                    .Add(
+                        new PartCandidate(
+                            ((long)j << 32) + _drawn[j].Count,
+                            nominal,
+                            new MeasuredValue(value, u, u),
+                            null
+                        )
+                    );
             }
 
             parts.AddRange(_drawn[j].Take(want));

@@ -11,11 +11,24 @@ public static class PickListBuilder
     /// <summary>Pick list from the assembler's sets: every part by id and location (slot label).</summary>
     public static PickList FromAssembly(AssemblyResult result)
     {
-        var sets = result.Sets.Select(s => new PickSet(
-            s.Number,
-            s.Fills.SelectMany(f => f.Parts.Select(p => new PickItem(f.Position, f.Build.ToString().ToLowerInvariant(), p.Id, p.Location ?? "", p.Nominal, p.Value.Value))).ToList(),
-            s.Outputs,
-            s.Score)).ToList();
+        var sets = result
+            .Sets.Select(s => new PickSet(
+                s.Number,
+                s.Fills.SelectMany(f =>
+                        f.Parts.Select(p => new PickItem(
+                            f.Position,
+                            f.Build.ToString().ToLowerInvariant(),
+                            p.Id,
+                            p.Location ?? "",
+                            p.Nominal,
+                            p.Value.Value
+                        ))
+                    )
+                    .ToList(),
+                s.Outputs,
+                s.Score
+            ))
+            .ToList();
         return new PickList(result.RecipeName, PickSource.Slots, sets, result.Unused.Select(p => p.Id).ToList());
     }
 
@@ -52,18 +65,29 @@ public static class PickListBuilder
         return new PickList(recipe.Name, PickSource.Cups, sets, []);
     }
 
-    private static List<CupCount>? NextSet(Recipe recipe, IReadOnlyList<CupCount> counts, IReadOnlyDictionary<double, int> demand, Dictionary<(double, string), int> left)
+    private static List<CupCount>? NextSet(
+        Recipe recipe,
+        IReadOnlyList<CupCount> counts,
+        IReadOnlyDictionary<double, int> demand,
+        Dictionary<(double, string), int> left
+    )
     {
         List<CupCount>? best = null;
         var bestSpan = double.MaxValue;
         var first = demand.Keys.First();
-        foreach (var anchor in counts.Where(c => !c.IsReject && c.Nominal == first && left[(c.Nominal, c.CupLabel)] >= demand[first]))
+        foreach (
+            var anchor in counts.Where(c =>
+                !c.IsReject && c.Nominal == first && left[(c.Nominal, c.CupLabel)] >= demand[first]
+            )
+        )
         {
             var choice = new List<CupCount> { anchor };
             foreach (var n in demand.Keys.Skip(1))
             {
-                var pick = counts.Where(c => !c.IsReject && c.Nominal == n && left[(c.Nominal, c.CupLabel)] >= demand[n])
-                    .OrderBy(c => Math.Abs(((c.LowPpm + c.HighPpm) / 2) - ((anchor.LowPpm + anchor.HighPpm) / 2))).FirstOrDefault();
+                var pick = counts
+                    .Where(c => !c.IsReject && c.Nominal == n && left[(c.Nominal, c.CupLabel)] >= demand[n])
+                    .OrderBy(c => Math.Abs(((c.LowPpm + c.HighPpm) / 2) - ((anchor.LowPpm + anchor.HighPpm) / 2)))
+                    .FirstOrDefault();
                 if (pick is null)
                 {
                     break;

@@ -4,15 +4,15 @@ using CsvHelper;
 namespace SortRig.Planning.PickLists;
 
 /// <summary>
-/// Writes a pick list as RFC 4180 CSV (CsvHelper; numbers in invariant culture): one row per item, with its set's outputs.
-/// Text cells that a spreadsheet would run as a formula (leading =, +, -, @, tab, CR) get a leading apostrophe, the
-/// rule of every SortRig CSV (docs/storage.md); numbers are written as numbers.
+/// Writes a pick list as RFC 4180 CSV (CsvHelper; numbers in invariant culture): one row per item, with its set's
+/// outputs. Text cells that a spreadsheet would run as a formula (leading =, +, -, @, tab, CR) get a leading
+/// apostrophe, the rule of every SortRig CSV (docs/storage.md); numbers are written as numbers.
 /// </summary>
 public static class PickListCsv
 {
     /// <summary>Column names, in order.</summary>
     public static IReadOnlyList<string> Columns { get; } =
-        ["set", "position", "build", "part", "source", "nominal_ohm", "value_ohm", "set_score", "set_outputs"];
+    ["set", "position", "build", "part", "source", "nominal_ohm", "value_ohm", "set_score", "set_outputs"];
 
     private static readonly CsvWriterOptions s_options = new() { Injection = CsvInjection.Escape };
 
@@ -28,8 +28,16 @@ public static class PickListCsv
         csv.EndRecord();
         foreach (var set in list.Sets)
         {
-            var outputs = string.Join("; ", set.Outputs.Select(o => FormattableString.Invariant(
-                $"{o.Name}={o.Value:G9} err={o.Error:G4} worst={o.WorstCaseError:G4} tol={o.Tolerance:G4} {o.Unit}")));
+            var outputs = string.Join(
+                "; ",
+                set.Outputs.Select(o =>
+                    string.Create(
+                        System.Globalization.CultureInfo.InvariantCulture,
+                        $"{o.Name}={o.Value:G9} err={o.Error:G4} worst={o.WorstCaseError:G4} tol={o.Tolerance:G4} "
+                            + $"{o.Unit}"
+                    )
+                )
+            );
             foreach (var item in set.Items)
             {
                 csv.WriteField(set.Number, "D", CultureInfo.InvariantCulture);

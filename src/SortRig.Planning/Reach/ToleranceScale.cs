@@ -18,15 +18,22 @@ public static class ToleranceScale
         }
 
         return recipe.Form == RecipeForm.Matched
-            ? recipe with { MatchTolerancePpm = recipe.MatchTolerancePpm * scale }
-            : recipe with { Outputs = recipe.Outputs.Select(o => Scaled(o, scale)).ToList() };
+            ? recipe with
+            {
+                MatchTolerancePpm = recipe.MatchTolerancePpm * scale,
+            }
+            : recipe with
+            {
+                Outputs = recipe.Outputs.Select(o => Scaled(o, scale)).ToList(),
+            };
     }
 
-    private static OutputSpec Scaled(OutputSpec output, double scale) => output switch
-    {
-        NodeVoltageSpec v => v with { ToleranceVolts = v.ToleranceVolts * scale },
-        VoltageRatioSpec r => r with { TolerancePpm = r.TolerancePpm * scale },
-        PositionRatioSpec p => p with { TolerancePpm = p.TolerancePpm * scale },
-        _ => throw new NotSupportedException($"output kind {output.GetType().Name} has no tolerance to scale"),
-    };
+    private static OutputSpec Scaled(OutputSpec output, double scale) =>
+        output switch
+        {
+            NodeVoltageSpec v => v with { ToleranceVolts = v.ToleranceVolts * scale },
+            VoltageRatioSpec r => r with { TolerancePpm = r.TolerancePpm * scale },
+            PositionRatioSpec p => p with { TolerancePpm = p.TolerancePpm * scale },
+            _ => throw new NotSupportedException($"output kind {output.GetType().Name} has no tolerance to scale"),
+        };
 }

@@ -7,15 +7,39 @@ internal static class NetworkFormReader
 {
     public static Recipe Read(YamlCursor root)
     {
-        root.AllowOnly("recipe", "description", "form", "ground", "base", "sources", "amplifiers", "positions", "outputs");
+        root.AllowOnly(
+            "recipe",
+            "description",
+            "form",
+            "ground",
+            "base",
+            "sources",
+            "amplifiers",
+            "positions",
+            "outputs"
+        );
         var ground = root.Required("ground", "the ground node's name").Text();
         var sources = ReadSources(root);
         var amplifiers = ReadAmplifiers(root);
         var positions = RecipeLoader.ReadPositions(root, network: true);
-        var netlist = new Netlist(ground, positions.Select(p => new NetResistor(p.Name, p.NodeA!, p.NodeB!)).ToList(), sources, amplifiers);
+        var netlist = new Netlist(
+            ground,
+            positions.Select(p => new NetResistor(p.Name, p.NodeA!, p.NodeB!)).ToList(),
+            sources,
+            amplifiers
+        );
         var outputsNode = root.Required("outputs", "a list of output specs");
         var outputs = OutputReader.Read(outputsNode, netlist, positions);
-        var recipe = new Recipe(RecipeLoader.Name(root), RecipeLoader.Description(root), RecipeForm.Network, positions, 0, netlist, outputs, root.File);
+        var recipe = new Recipe(
+            RecipeLoader.Name(root),
+            RecipeLoader.Description(root),
+            RecipeForm.Network,
+            positions,
+            0,
+            netlist,
+            outputs,
+            root.File
+        );
         RecipeChecks.CheckSolvable(recipe, root, outputsNode);
         return recipe;
     }
@@ -40,7 +64,8 @@ internal static class NetworkFormReader
                 throw item.Error("different nodes for 'plus' and 'minus'");
             }
 
-            var volts = item.Required("volts", "the source voltage in volts").Number(-1e4, 1e4, "a voltage in volts, -10000 to 10000");
+            var volts = item.Required("volts", "the source voltage in volts")
+                .Number(-1e4, 1e4, "a voltage in volts, -10000 to 10000");
             result.Add(new NetSource(nameNode.Text(), plus, minus, volts));
         }
 
@@ -58,11 +83,14 @@ internal static class NetworkFormReader
         foreach (var item in root.Optional("amplifiers")?.Items() ?? [])
         {
             item.AllowOnly("name", "plus", "minus", "output");
-            result.Add(new NetAmplifier(
-                item.Required("name", "an amplifier name").Text(),
-                item.Required("plus", "the non-inverting input node").Text(),
-                item.Required("minus", "the inverting input node").Text(),
-                item.Required("output", "the output node").Text()));
+            result.Add(
+                new NetAmplifier(
+                    item.Required("name", "an amplifier name").Text(),
+                    item.Required("plus", "the non-inverting input node").Text(),
+                    item.Required("minus", "the inverting input node").Text(),
+                    item.Required("output", "the output node").Text()
+                )
+            );
         }
 
         return result;

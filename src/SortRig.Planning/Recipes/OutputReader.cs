@@ -7,7 +7,11 @@ internal static class OutputReader
 {
     private static readonly string[] s_kinds = ["node-voltage", "voltage-ratio", "gain", "position-ratio"];
 
-    public static IReadOnlyList<OutputSpec> Read(YamlCursor list, Netlist netlist, IReadOnlyList<PositionSpec> positions)
+    public static IReadOnlyList<OutputSpec> Read(
+        YamlCursor list,
+        Netlist netlist,
+        IReadOnlyList<PositionSpec> positions
+    )
     {
         var result = new List<OutputSpec>();
         var items = list.Items();
@@ -71,7 +75,9 @@ internal static class OutputReader
         string Position(string key)
         {
             var node = item.Required(key, "a position name");
-            return positions.Any(p => p.Name == node.Text()) ? node.Text() : throw node.Error("the name of a position of this recipe");
+            return positions.Any(p => p.Name == node.Text())
+                ? node.Text()
+                : throw node.Error("the name of a position of this recipe");
         }
 
         var tol = item.Required("tolerance-ppm", "a tolerance in ppm").Number(1e-6, 1e6, "a tolerance in ppm, > 0");
@@ -83,7 +89,9 @@ internal static class OutputReader
         var parts = node.Text().Split(" - ", StringSplitOptions.TrimEntries);
         if (parts.Length > 2 || parts.Any(p => !netlist.Nodes.Contains(p, StringComparer.Ordinal)))
         {
-            throw node.Error("a node of the netlist or 'a - b' of two nodes (known: " + string.Join(", ", netlist.Nodes) + ")");
+            throw node.Error(
+                "a node of the netlist or 'a - b' of two nodes (known: " + string.Join(", ", netlist.Nodes) + ")"
+            );
         }
 
         return new NodeProbe(parts[0], parts.Length == 2 ? parts[1] : null);

@@ -9,9 +9,11 @@ public sealed record NodeProbe(string Plus, string? Minus)
     public override string ToString() => Minus is null ? Plus : $"{Plus} - {Minus}";
 }
 
-/// <summary>One acceptance spec of a network recipe. Targets default to the circuit's value with nominal parts.</summary>
+/// <summary>One acceptance spec of a network recipe. Targets default to the circuit's value with nominal
+/// parts.</summary>
 /// <param name="Name">Output name, unique in the recipe.</param>
-/// <param name="Drive">Source voltages (volts, by source name) overriding the netlist's for this output; empty for none.</param>
+/// <param name="Drive">Source voltages (volts, by source name) overriding the netlist's for this output; empty for
+/// none.</param>
 public abstract record OutputSpec(string Name, IReadOnlyDictionary<string, double> Drive);
 
 /// <summary>A node voltage within ± a tolerance.</summary>
@@ -20,8 +22,13 @@ public abstract record OutputSpec(string Name, IReadOnlyDictionary<string, doubl
 /// <param name="Node">Probed node or node difference.</param>
 /// <param name="TargetVolts">Target, volts; null = the nominal circuit's value.</param>
 /// <param name="ToleranceVolts">Half-width of the accepted band, volts (&gt; 0).</param>
-public sealed record NodeVoltageSpec(string Name, IReadOnlyDictionary<string, double> Drive, NodeProbe Node, double? TargetVolts, double ToleranceVolts)
-    : OutputSpec(Name, Drive);
+public sealed record NodeVoltageSpec(
+    string Name,
+    IReadOnlyDictionary<string, double> Drive,
+    NodeProbe Node,
+    double? TargetVolts,
+    double ToleranceVolts
+) : OutputSpec(Name, Drive);
 
 /// <summary>A ratio of two probed voltages within ± a tolerance in ppm of the target (also used for a gain).</summary>
 /// <param name="Name">Output name.</param>
@@ -30,8 +37,14 @@ public sealed record NodeVoltageSpec(string Name, IReadOnlyDictionary<string, do
 /// <param name="Denominator">Denominator probe (for a gain: the input, e.g. "inp - inn").</param>
 /// <param name="Target">Target ratio; null = the nominal circuit's ratio. Must not be 0.</param>
 /// <param name="TolerancePpm">Half-width of the accepted band, ppm of the target (&gt; 0).</param>
-public sealed record VoltageRatioSpec(string Name, IReadOnlyDictionary<string, double> Drive, NodeProbe Numerator, NodeProbe Denominator, double? Target, double TolerancePpm)
-    : OutputSpec(Name, Drive);
+public sealed record VoltageRatioSpec(
+    string Name,
+    IReadOnlyDictionary<string, double> Drive,
+    NodeProbe Numerator,
+    NodeProbe Denominator,
+    double? Target,
+    double TolerancePpm
+) : OutputSpec(Name, Drive);
 
 /// <summary>The ratio of two positions' resistances within ± a tolerance in ppm of the nominal ratio.</summary>
 /// <param name="Name">Output name.</param>

@@ -33,13 +33,21 @@ public enum PositionBuild
 /// <param name="Pairs">Pair builds the recipe allows for this position.</param>
 /// <param name="NodeA">Network form: first node; null in the matched form.</param>
 /// <param name="NodeB">Network form: second node; null in the matched form.</param>
-public sealed record PositionSpec(string Name, double Nominal, PairBuilds Pairs, string? NodeA = null, string? NodeB = null)
+public sealed record PositionSpec(
+    string Name,
+    double Nominal,
+    PairBuilds Pairs,
+    string? NodeA = null,
+    string? NodeB = null
+)
 {
-    /// <summary>Nominal of each of the two parts for a pair build, ohms (half for series, twice for parallel).</summary>
-    public static double PartNominal(double positionNominal, PositionBuild build) => build switch
-    {
-        PositionBuild.Series => positionNominal / 2.0,
-        PositionBuild.Parallel => positionNominal * 2.0,
-        _ => positionNominal,
-    };
+    /// <summary>Nominal of each of the two parts for a pair build, ohms (half for series, twice for
+    /// parallel).</summary>
+    public static double PartNominal(double positionNominal, PositionBuild build) =>
+        build switch
+        {
+            PositionBuild.Series => positionNominal / 2.0,
+            PositionBuild.Parallel => positionNominal * 2.0,
+            _ => positionNominal,
+        };
 }

@@ -14,7 +14,8 @@ internal static class RecipeChecks
         }
         catch (InvalidOperationException e)
         {
-            throw root.Required("positions", "positions").Error("a circuit that solves with nominal parts: " + e.Message);
+            throw root.Required("positions", "positions")
+                .Error("a circuit that solves with nominal parts: " + e.Message);
         }
 
         // Every output must be finite with nominal parts, with finite sensitivities: an explicit target hides a ratio
@@ -25,11 +26,21 @@ internal static class RecipeChecks
         {
             var t = network.Target(i);
             var v = atNominal[i];
-            var finite = double.IsFinite(t) && double.IsFinite(v.Value) && double.IsFinite(v.Error) && v.ErrorGradient.All(double.IsFinite);
+            var finite =
+                double.IsFinite(t)
+                && double.IsFinite(v.Value)
+                && double.IsFinite(v.Error)
+                && v.ErrorGradient.All(double.IsFinite);
             if (!finite || (recipe.Outputs[i] is VoltageRatioSpec && t == 0))
             {
-                throw items[i].Error(FormattableString.Invariant(
-                    $"an output whose value with nominal parts is finite and, for a ratio, whose target and denominator are not zero (got {v.Value:G6}, target {t:G6})"));
+                throw items[i]
+                    .Error(
+                        string.Create(
+                            System.Globalization.CultureInfo.InvariantCulture,
+                            $"an output whose value with nominal parts is finite and, for a ratio, whose target and "
+                                + $"denominator are not zero (got {v.Value:G6}, target {t:G6})"
+                        )
+                    );
             }
         }
     }

@@ -1,6 +1,7 @@
 namespace SortRig.Planning.Recipes;
 
-/// <summary>A recipe that cannot be used: names the file, the line and column, the field and what was expected.</summary>
+/// <summary>A recipe that cannot be used: names the file, the line and column, the field and what was
+/// expected.</summary>
 public sealed class RecipeException : Exception
 {
     /// <summary>Creates the error; the message reads "file:line:column: field: expected ...".</summary>
@@ -10,7 +11,14 @@ public sealed class RecipeException : Exception
     /// <param name="fieldPath">Path of the field, e.g. "positions[2].nominal".</param>
     /// <param name="expected">What the field must hold.</param>
     /// <param name="inner">Underlying parser error, if any.</param>
-    public RecipeException(string fileName, int line, int column, string fieldPath, string expected, Exception? inner = null)
+    public RecipeException(
+        string fileName,
+        int line,
+        int column,
+        string fieldPath,
+        string expected,
+        Exception? inner = null
+    )
         : base($"{fileName}:{line}:{column}: {fieldPath}: expected {expected}", inner)
     {
         FileName = fileName;

@@ -28,11 +28,21 @@ public static class RecipeLimits
             throw new FileNotFoundException($"{path}: no such recipe file", path);
         }
 
-        await using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 16_384, FileOptions.Asynchronous);
+        await using var stream = new FileStream(
+            path,
+            FileMode.Open,
+            FileAccess.Read,
+            FileShare.Read,
+            16_384,
+            FileOptions.Asynchronous
+        );
         var buffer = new byte[MaxBytes + 1];
         var total = 0;
         int read;
-        while (total < buffer.Length && (read = await stream.ReadAsync(buffer.AsMemory(total), cancellationToken).ConfigureAwait(false)) > 0)
+        while (
+            total < buffer.Length
+            && (read = await stream.ReadAsync(buffer.AsMemory(total), cancellationToken).ConfigureAwait(false)) > 0
+        )
         {
             total += read;
         }
@@ -44,17 +54,25 @@ public static class RecipeLimits
             throw new RecipeException(path, 1, 1, RecipeLoader.Document, what);
         }
 
-        var bom = total >= 3 && buffer[0] == 0xEF && buffer[1] == 0xBB && buffer[2] == 0xBF ? 3 : 0; // as File.ReadAllText
+        // as File.ReadAllText
+        var bom = total >= 3 && buffer[0] == 0xEF && buffer[1] == 0xBB && buffer[2] == 0xBF ? 3 : 0;
         return Encoding.UTF8.GetString(buffer, bom, total - bom);
     }
 
-    /// <summary>Refuses text over <see cref="MaxBytes"/> or nested deeper than <see cref="MaxDepth"/>, naming where.</summary>
+    /// <summary>Refuses text over <see cref="MaxBytes"/> or nested deeper than <see cref="MaxDepth"/>, naming
+    /// where.</summary>
     /// <exception cref="RecipeException">The text is too large or too deep.</exception>
     public static void Check(string yaml, string fileName)
     {
         if (Encoding.UTF8.GetByteCount(yaml) > MaxBytes)
         {
-            throw new RecipeException(fileName, 1, 1, RecipeLoader.Document, $"a recipe of at most {MaxBytes} bytes (1 MiB)");
+            throw new RecipeException(
+                fileName,
+                1,
+                1,
+                RecipeLoader.Document,
+                $"a recipe of at most {MaxBytes} bytes (1 MiB)"
+            );
         }
 
         // The event parser keeps its own stack; only the document model recurses, so count depth on events first.
@@ -67,8 +85,13 @@ public static class RecipeLimits
                 if (parser.Current is MappingStart or SequenceStart && ++depth > MaxDepth)
                 {
                     var at = parser.Current.Start;
-                    throw new RecipeException(fileName, (int)at.Line, (int)at.Column, RecipeLoader.Document,
-                        $"mappings and lists nested at most {MaxDepth} deep");
+                    throw new RecipeException(
+                        fileName,
+                        (int)at.Line,
+                        (int)at.Column,
+                        RecipeLoader.Document,
+                        $"mappings and lists nested at most {MaxDepth} deep"
+                    );
                 }
 
                 if (parser.Current is MappingEnd or SequenceEnd)

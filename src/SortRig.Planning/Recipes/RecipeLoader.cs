@@ -12,7 +12,8 @@ public static class RecipeLoader
     /// <summary>Parses and validates a recipe. No I/O.</summary>
     /// <param name="yaml">The recipe text.</param>
     /// <param name="fileName">Name used in error messages.</param>
-    /// <exception cref="RecipeException">The text is not valid YAML or not a valid recipe, or breaks <see cref="RecipeLimits"/>; names line, column and field.</exception>
+    /// <exception cref="RecipeException">The text is not valid YAML or not a valid recipe, or breaks <see
+    /// cref="RecipeLimits"/>; names line, column and field.</exception>
     public static Recipe Load(string yaml, string fileName)
     {
         RecipeLimits.Check(yaml, fileName);
@@ -24,15 +25,28 @@ public static class RecipeLoader
         }
         catch (YamlException e)
         {
-            throw new RecipeException(fileName, (int)e.Start.Line, (int)e.Start.Column, Document, "well-formed YAML: " + e.Message, e);
+            throw new RecipeException(
+                fileName,
+                (int)e.Start.Line,
+                (int)e.Start.Column,
+                Document,
+                "well-formed YAML: " + e.Message,
+                e
+            );
         }
         catch (Exception e) when (e is InvalidOperationException or ArgumentException)
         {
             // YamlDotNet 18 throws these (not YamlException) on some malformed input, e.g. a byte-order mark inside a
             // plain scalar or a tab where a key should start; the scanner's position says where it stopped.
             var at = scanner.CurrentPosition;
-            throw new RecipeException(fileName, Math.Max(1, (int)at.Line), Math.Max(1, (int)at.Column), Document,
-                "well-formed YAML: the YAML reader stopped here (" + e.Message + ")", e);
+            throw new RecipeException(
+                fileName,
+                Math.Max(1, (int)at.Line),
+                Math.Max(1, (int)at.Column),
+                Document,
+                "well-formed YAML: the YAML reader stopped here (" + e.Message + ")",
+                e
+            );
         }
 
         if (stream.Documents.Count != 1)
@@ -61,7 +75,8 @@ public static class RecipeLoader
     private static Recipe ReadMatched(YamlCursor root)
     {
         root.AllowOnly("recipe", "description", "form", "match-ppm", "base", "positions");
-        var ppm = root.Required("match-ppm", "a ratio tolerance in ppm").Number(1e-3, 1e5, "a ratio tolerance in ppm, 0.001 to 100000");
+        var ppm = root.Required("match-ppm", "a ratio tolerance in ppm")
+            .Number(1e-3, 1e5, "a ratio tolerance in ppm, 0.001 to 100000");
         var positions = ReadPositions(root, network: false);
         return new Recipe(Name(root), Description(root), RecipeForm.Matched, positions, ppm, null, [], root.File);
     }
@@ -83,7 +98,9 @@ public static class RecipeLoader
         var result = new List<PositionSpec>();
         foreach (var item in items)
         {
-            item.AllowOnly(network ? ["name", "nominal", "ratio", "pairs", "between"] : ["name", "nominal", "ratio", "pairs"]);
+            item.AllowOnly(
+                network ? ["name", "nominal", "ratio", "pairs", "between"] : ["name", "nominal", "ratio", "pairs"]
+            );
             var nameNode = item.Required("name", "a position name");
             var name = nameNode.Text();
             if (result.Any(p => p.Name == name))
@@ -93,7 +110,8 @@ public static class RecipeLoader
 
             var nominal = ReadNominal(item, baseValue);
             var pairs = ReadPairs(item.Optional("pairs"));
-            string? a = null, b = null;
+            string? a = null,
+                b = null;
             if (network)
             {
                 var between = item.Required("between", "two node names, e.g. [in, out]");
@@ -132,9 +150,14 @@ public static class RecipeLoader
             throw ratio.Error("a top-level 'base' resistance for 'ratio' to multiply");
         }
 
-        // A large base times a large ratio leaves the range a position may have: the product must still be a resistance.
+        // A large base times a large ratio leaves the range a position may have: the product must still be a
+        // resistance.
         var ohms = r * b;
-        return YamlCursor.IsResistance(ohms) ? ohms : throw ratio.Error(FormattableString.Invariant($"a ratio that with base {b:G6} ohms gives 1e-6 to 1e15 ohms"));
+        return YamlCursor.IsResistance(ohms)
+            ? ohms
+            : throw ratio.Error(
+                FormattableString.Invariant($"a ratio that with base {b:G6} ohms gives 1e-6 to 1e15 ohms")
+            );
     }
 
     private static PairBuilds ReadPairs(YamlCursor? node)

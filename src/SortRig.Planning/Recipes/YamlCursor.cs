@@ -44,7 +44,14 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
     }
 
     public YamlCursor Required(string key, string expected) =>
-        Optional(key) ?? throw new RecipeException(File, (int)Node.Start.Line, (int)Node.Start.Column, Join(key), $"{expected} (field is missing)");
+        Optional(key)
+        ?? throw new RecipeException(
+            File,
+            (int)Node.Start.Line,
+            (int)Node.Start.Column,
+            Join(key),
+            $"{expected} (field is missing)"
+        );
 
     public void AllowOnly(params string[] keys)
     {
@@ -74,21 +81,31 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
         var bad = v.IndexOfAny(ControlCharacters(multiline));
         if (bad >= 0)
         {
-            throw Error(string.Create(CultureInfo.InvariantCulture,
-                $"text without control characters (U+{(int)v[bad]:X4} at character {bad + 1})"));
+            throw Error(
+                string.Create(
+                    CultureInfo.InvariantCulture,
+                    $"text without control characters (U+{(int)v[bad]:X4} at character {bad + 1})"
+                )
+            );
         }
 
         return v;
     }
 
-    private static readonly char[] s_control = [.. Enumerable.Range(0, 0xA0).Select(i => (char)i).Where(char.IsControl)];
+    private static readonly char[] s_control =
+    [
+        .. Enumerable.Range(0, 0xA0).Select(i => (char)i).Where(char.IsControl),
+    ];
     private static readonly char[] s_controlButLines = [.. s_control.Where(c => c is not ('\n' or '\t' or '\r'))];
 
     private static char[] ControlCharacters(bool multiline) => multiline ? s_controlButLines : s_control;
 
     public double Number(double min, double max, string expected)
     {
-        if (!double.TryParse(Text(), NumberStyles.Float, CultureInfo.InvariantCulture, out var x) || !(x >= min && x <= max))
+        if (
+            !double.TryParse(Text(), NumberStyles.Float, CultureInfo.InvariantCulture, out var x)
+            || !(x >= min && x <= max)
+        )
         {
             throw Error(expected);
         }
@@ -96,7 +113,8 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
         return x;
     }
 
-    /// <summary>A resistance in ohms: a number, optionally with an SI suffix R, k or M ("4k99" is not accepted; "4.99k" is).</summary>
+    /// <summary>A resistance in ohms: a number, optionally with an SI suffix R, k or M ("4k99" is not accepted; "4.99k"
+    /// is).</summary>
     public double Resistance()
     {
         const string Expected = "a resistance in ohms from 1e-6 to 1e15, e.g. 10k, 4.99k, 1M or 100";
@@ -106,10 +124,18 @@ internal sealed class YamlCursor(YamlNode node, string path, string file)
             throw Error(Expected);
         }
 
-        var scale = t[^1] switch { 'k' or 'K' => 1e3, 'M' => 1e6, 'R' or 'r' => 1.0, _ => 0.0 };
+        var scale = t[^1] switch
+        {
+            'k' or 'K' => 1e3,
+            'M' => 1e6,
+            'R' or 'r' => 1.0,
+            _ => 0.0,
+        };
         var digits = scale == 0.0 ? t : t[..^1];
         // The suffix may overflow a finite mantissa ("1e308M"), so the scaled value is what is checked.
-        var ohms = double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) ? x * (scale == 0.0 ? 1.0 : scale) : double.NaN;
+        var ohms = double.TryParse(digits, NumberStyles.Float, CultureInfo.InvariantCulture, out var x)
+            ? x * (scale == 0.0 ? 1.0 : scale)
+            : double.NaN;
         if (!IsResistance(ohms))
         {
             throw Error(Expected);

@@ -13,11 +13,17 @@ public static class ControlChartPlot
         if (input.ValuesOhms.Count == 0 || input.ValuesOhms.Count != input.OutOfControl.Count)
         {
             throw new ArgumentException(
-                "ValuesOhms needs at least one value and one OutOfControl flag per value.", nameof(input));
+                "ValuesOhms needs at least one value and one OutOfControl flag per value.",
+                nameof(input)
+            );
         }
 
-        if (!double.IsFinite(input.SigmaOhms) || input.SigmaOhms <= 0
-            || !double.IsFinite(input.CentreOhms) || input.CentreOhms <= 0)
+        if (
+            !double.IsFinite(input.SigmaOhms)
+            || input.SigmaOhms <= 0
+            || !double.IsFinite(input.CentreOhms)
+            || input.CentreOhms <= 0
+        )
         {
             throw new ArgumentException("CentreOhms and SigmaOhms must be finite and > 0.", nameof(input));
         }
@@ -26,14 +32,20 @@ public static class ControlChartPlot
         double limit = 3 * input.SigmaOhms / input.CentreOhms * 1e6;
         double[] xs = Enumerable.Range(1, ppm.Length).Select(i => (double)i).ToArray();
         Plot plot = PlotLook.Create(
-            $"Check {input.CheckName}: {ppm.Length} readings", "Check number", "From the centre (ppm)");
+            $"Check {input.CheckName}: {ppm.Length} readings",
+            "Check number",
+            "From the centre (ppm)"
+        );
         var line = plot.Add.Scatter(xs, ppm);
         line.LegendText = "check";
         var bad = Enumerable.Range(0, ppm.Length).Where(i => input.OutOfControl[i]).ToArray();
         if (bad.Length > 0)
         {
             var marks = plot.Add.ScatterPoints(
-                bad.Select(i => xs[i]).ToArray(), bad.Select(i => ppm[i]).ToArray(), Colors.Red);
+                bad.Select(i => xs[i]).ToArray(),
+                bad.Select(i => ppm[i]).ToArray(),
+                Colors.Red
+            );
             marks.MarkerSize = 14;
             marks.LegendText = "out of control";
         }

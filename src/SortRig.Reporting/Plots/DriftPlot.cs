@@ -19,7 +19,10 @@ public static class DriftPlot
 
         if (!double.IsFinite(input.ReferenceOhms) || input.ReferenceOhms <= 0)
         {
-            throw new ArgumentException($"ReferenceOhms must be finite and > 0; got {input.ReferenceOhms}.", nameof(input));
+            throw new ArgumentException(
+                $"ReferenceOhms must be finite and > 0; got {input.ReferenceOhms}.",
+                nameof(input)
+            );
         }
 
         DateTimeOffset origin = input.Samples.Min(s => s.Time);
@@ -33,16 +36,24 @@ public static class DriftPlot
         Plot plot = PlotLook.Create(
             $"Drift, channel {input.Channel} (ref. {OhmsText.Compact(input.ReferenceOhms)})",
             $"Elapsed time (h) since {start}",
-            "Deviation from reference (ppm)");
+            "Deviation from reference (ppm)"
+        );
         var values = plot.Add.ScatterPoints(hours, ppm, Colors.Navy);
         values.MarkerSize = 5;
         values.LegendText = "resistance (ppm)";
         if (input.Fit is { } fit)
         {
             double end = hours.Max();
-            var line = plot.Add.ScatterLine(new[] { 0.0, end }, new[] { fit.InterceptPpm, fit.InterceptPpm + (fit.PpmPerHour.Value * end) }, Colors.Black);
+            var line = plot.Add.ScatterLine(
+                new[] { 0.0, end },
+                new[] { fit.InterceptPpm, fit.InterceptPpm + (fit.PpmPerHour.Value * end) },
+                Colors.Black
+            );
             line.LineWidth = 3;
-            line.LegendText = string.Create(CultureInfo.InvariantCulture, $"fit {fit.PpmPerHour.Value:+0.###;-0.###} ± {fit.PpmPerHour.StandardError:0.###} ppm/h");
+            line.LegendText = string.Create(
+                CultureInfo.InvariantCulture,
+                $"fit {fit.PpmPerHour.Value:+0.###;-0.###} ± {fit.PpmPerHour.StandardError:0.###} ppm/h"
+            );
         }
 
         if (temps.Length > 0)

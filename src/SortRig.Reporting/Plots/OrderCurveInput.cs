@@ -15,4 +15,5 @@ public sealed record OrderCurveInput(
     IReadOnlyList<double> Median,
     IReadOnlyList<double> Low,
     IReadOnlyList<double> High,
-    IReadOnlyList<(string Label, double Parts)> Orders);
+    IReadOnlyList<(string Label, double Parts)> Orders
+);

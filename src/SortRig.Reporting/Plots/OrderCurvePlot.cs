@@ -3,7 +3,8 @@ using ScottPlot;
 
 namespace SortRig.Reporting.Plots;
 
-/// <summary>Sets made against parts bought: median line, 5–95 % band, the sets wanted and the order at each confidence.</summary>
+/// <summary>Sets made against parts bought: median line, 5–95 % band, the sets wanted and the order at each
+/// confidence.</summary>
 public static class OrderCurvePlot
 {
     /// <summary>Renders the plot to PNG bytes and returns its input.</summary>
@@ -13,15 +14,27 @@ public static class OrderCurvePlot
     {
         ArgumentNullException.ThrowIfNull(input);
         var n = input.PartsBought.Count;
-        if (n < 2 || input.Median.Count != n || input.Low.Count != n || input.High.Count != n
+        if (
+            n < 2
+            || input.Median.Count != n
+            || input.Low.Count != n
+            || input.High.Count != n
             || input.PartsBought.Zip(input.PartsBought.Skip(1)).Any(p => !(p.Second > p.First))
-            || Enumerable.Range(0, n).Any(i => !(input.Low[i] <= input.Median[i] && input.Median[i] <= input.High[i])))
+            || Enumerable.Range(0, n).Any(i => !(input.Low[i] <= input.Median[i] && input.Median[i] <= input.High[i]))
+        )
         {
-            throw new ArgumentException("the order plot needs at least two points with rising parts and low <= median <= high", nameof(input));
+            throw new ArgumentException(
+                "the order plot needs at least two points with rising parts and low <= median <= high",
+                nameof(input)
+            );
         }
 
         double[] xs = [.. input.PartsBought];
-        Plot plot = PlotLook.Create($"Order for {input.SetsWanted} sets of {input.RecipeName}", "Parts bought", "Sets made");
+        Plot plot = PlotLook.Create(
+            $"Order for {input.SetsWanted} sets of {input.RecipeName}",
+            "Parts bought",
+            "Sets made"
+        );
         var band = plot.Add.FillY(xs, [.. input.Low], [.. input.High]);
         band.FillColor = Colors.SteelBlue.WithAlpha(0.3);
         band.LineColor = Colors.SteelBlue.WithAlpha(0.3);

@@ -16,12 +16,20 @@ public readonly record struct PlotSize
     {
         if (width is < Minimum or > Maximum)
         {
-            throw new ArgumentOutOfRangeException(nameof(width), width, $"Plot width must be {Minimum}..{Maximum} pixels.");
+            throw new ArgumentOutOfRangeException(
+                nameof(width),
+                width,
+                $"Plot width must be {Minimum}..{Maximum} pixels."
+            );
         }
 
         if (height is < Minimum or > Maximum)
         {
-            throw new ArgumentOutOfRangeException(nameof(height), height, $"Plot height must be {Minimum}..{Maximum} pixels.");
+            throw new ArgumentOutOfRangeException(
+                nameof(height),
+                height,
+                $"Plot height must be {Minimum}..{Maximum} pixels."
+            );
         }
 
         Width = width;

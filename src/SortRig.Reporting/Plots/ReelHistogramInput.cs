@@ -4,14 +4,17 @@ namespace SortRig.Reporting.Plots;
 /// <param name="NominalOhms">Nominal resistance, ohms; finite and &gt; 0. Deviations are in ppm of it.</param>
 /// <param name="ValuesOhms">Accepted values of the parts, ohms; at least one, all finite.</param>
 /// <param name="TolerancePercent">Stock tolerance, percent (1 for a 1 % reel); null to draw no limits.</param>
-/// <param name="CupEdgesPpm">Band/cup boundaries in ppm of nominal, drawn as dashed vertical lines; may be empty.</param>
-/// <param name="BinWidthPpm">Histogram bin width, ppm; null to choose a 1-2-5 width giving about sqrt(n) bins (8..50).</param>
+/// <param name="CupEdgesPpm">Band/cup boundaries in ppm of nominal, drawn as dashed vertical lines; may be
+/// empty.</param>
+/// <param name="BinWidthPpm">Histogram bin width, ppm; null to choose a 1-2-5 width giving about sqrt(n) bins
+/// (8..50).</param>
 public sealed record ReelHistogramInput(
     double NominalOhms,
     IReadOnlyList<double> ValuesOhms,
     double? TolerancePercent,
     IReadOnlyList<double> CupEdgesPpm,
-    double? BinWidthPpm = null);
+    double? BinWidthPpm = null
+);
 
 /// <summary>The numbers behind a reel histogram.</summary>
 /// <param name="NominalOhms">Nominal, ohms.</param>
@@ -26,4 +29,5 @@ public sealed record ReelHistogramData(
     double[] BinEdgesPpm,
     int[] Counts,
     double[] ToleranceLimitsPpm,
-    double[] CupEdgesPpm);
+    double[] CupEdgesPpm
+);

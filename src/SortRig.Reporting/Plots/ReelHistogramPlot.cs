@@ -15,7 +15,8 @@ public static class ReelHistogramPlot
         Validate(input);
         double[] ppm = input.ValuesOhms.Select(v => ((v / input.NominalOhms) - 1.0) * 1e6).ToArray();
         double width = input.BinWidthPpm ?? CupBinWidth(input.CupEdgesPpm) ?? NiceBinWidth(ppm);
-        double origin = input.BinWidthPpm is null && CupBinWidth(input.CupEdgesPpm) is not null ? input.CupEdgesPpm.Min() : 0;
+        double origin =
+            input.BinWidthPpm is null && CupBinWidth(input.CupEdgesPpm) is not null ? input.CupEdgesPpm.Min() : 0;
         double start = origin + (Math.Floor((ppm.Min() - origin) / width) * width);
         int bins = Math.Max(1, (int)Math.Floor((ppm.Max() - start) / width) + 1);
         var histogram = Histogram.WithBinCount(bins, start, start + (bins * width));
@@ -24,13 +25,17 @@ public static class ReelHistogramPlot
         Plot plot = PlotLook.Create(
             $"Reel {OhmsText.Compact(input.NominalOhms)}: {ppm.Length} parts",
             string.Create(CultureInfo.InvariantCulture, $"Deviation from nominal (ppm), bins of {width:0.####} ppm"),
-            "Parts per bin");
+            "Parts per bin"
+        );
         plot.Add.Histogram(histogram);
         double[] limits = input.TolerancePercent is { } tol ? [-tol * 1e4, tol * 1e4] : [];
         foreach (double x in limits)
         {
             var line = plot.Add.VerticalLine(x, 3, Colors.Red, LinePattern.Solid);
-            line.LegendText = x == limits[0] ? string.Create(CultureInfo.InvariantCulture, $"stock tolerance ±{input.TolerancePercent:G3} %") : string.Empty;
+            line.LegendText =
+                x == limits[0]
+                    ? string.Create(CultureInfo.InvariantCulture, $"stock tolerance ±{input.TolerancePercent:G3} %")
+                    : string.Empty;
         }
 
         for (int i = 0; i < input.CupEdgesPpm.Count; i++)
@@ -45,7 +50,14 @@ public static class ReelHistogramPlot
         plot.Axes.SetLimitsX(xs.Min() - pad, xs.Max() + pad);
         plot.Axes.SetLimitsY(0, Math.Max(1, histogram.Counts.Max()) * 1.12);
         plot.ShowLegend(Alignment.UpperRight);
-        var data = new ReelHistogramData(input.NominalOhms, ppm, histogram.Edges, histogram.Counts, limits, [.. input.CupEdgesPpm]);
+        var data = new ReelHistogramData(
+            input.NominalOhms,
+            ppm,
+            histogram.Edges,
+            histogram.Counts,
+            limits,
+            [.. input.CupEdgesPpm]
+        );
         return PlotLook.Finish(plot, size, data);
     }
 
@@ -94,7 +106,10 @@ public static class ReelHistogramPlot
 
         if (input.ValuesOhms.Count == 0 || input.ValuesOhms.Any(v => !double.IsFinite(v)))
         {
-            throw new ArgumentException("ValuesOhms must hold at least one value and only finite values.", nameof(input));
+            throw new ArgumentException(
+                "ValuesOhms must hold at least one value and only finite values.",
+                nameof(input)
+            );
         }
 
         if (input.BinWidthPpm is { } w && (!double.IsFinite(w) || w <= 0))

@@ -5,7 +5,12 @@ namespace SortRig.Reporting.Reports;
 /// <summary>Drift, joint drift/tempco and ADEV of one channel (pure).</summary>
 internal static class ChannelAnalysis
 {
-    public static ChannelSummary Analyze(string channel, IReadOnlyList<DriftSample> samples, string driftFile, string adevFile)
+    public static ChannelSummary Analyze(
+        string channel,
+        IReadOnlyList<DriftSample> samples,
+        string driftFile,
+        string adevFile
+    )
     {
         double reference = samples.Average(s => s.Ohms);
         double span = (samples[^1].Time - samples[0].Time).TotalHours;
@@ -15,10 +20,28 @@ internal static class ChannelAnalysis
 
         DriftFit? drift = samples.Count >= 3 && span > 0 ? DriftAnalysis.Drift(samples, reference) : null;
         (DriftTempcoFit? joint, string? note) = TryJoint(samples, reference);
-        IReadOnlyList<AllanPoint> adev = samples.Count >= 3 && tau0 > 0
-            ? AllanDeviation.Overlapping(AllanDeviation.FractionalDeviations(samples.Select(s => s.Ohms), reference), tau0, AllanDeviation.OctaveFactors(samples.Count))
-            : [];
-        return new ChannelSummary(channel, samples.Count, reference, span, tau0, even, drift, joint, note, adev, driftFile, adev.Count > 0 ? adevFile : null);
+        IReadOnlyList<AllanPoint> adev =
+            samples.Count >= 3 && tau0 > 0
+                ? AllanDeviation.Overlapping(
+                    AllanDeviation.FractionalDeviations(samples.Select(s => s.Ohms), reference),
+                    tau0,
+                    AllanDeviation.OctaveFactors(samples.Count)
+                )
+                : [];
+        return new ChannelSummary(
+            channel,
+            samples.Count,
+            reference,
+            span,
+            tau0,
+            even,
+            drift,
+            joint,
+            note,
+            adev,
+            driftFile,
+            adev.Count > 0 ? adevFile : null
+        );
     }
 
     private static (DriftTempcoFit? Fit, string? Note) TryJoint(IReadOnlyList<DriftSample> samples, double reference)

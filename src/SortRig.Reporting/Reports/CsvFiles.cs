@@ -2,7 +2,8 @@ using CsvHelper;
 
 namespace SortRig.Reporting.Reports;
 
-/// <summary>Report CSV files through CsvHelper: comma separated, header row, invariant culture, UTF-8 without BOM, formula cells neutralised (SpreadsheetCsv).</summary>
+/// <summary>Report CSV files through CsvHelper: comma separated, header row, invariant culture, UTF-8 without BOM,
+/// formula cells neutralised (SpreadsheetCsv).</summary>
 internal static class CsvFiles
 {
     public static async Task WriteAsync<T>(string path, IEnumerable<T> rows, CancellationToken cancellationToken)

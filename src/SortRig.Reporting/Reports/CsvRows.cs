@@ -10,7 +10,14 @@ namespace SortRig.Reporting.Reports;
 /// <param name="StandardUncertaintyOhms">Standard uncertainty, ohms (k = 1).</param>
 /// <param name="Cup">Cup, empty when not sorted.</param>
 [CsvRecord]
-public sealed partial record PartCsvRow(int Number, double NominalOhms, double ValueOhms, double DeviationPpm, double StandardUncertaintyOhms, string Cup);
+public sealed partial record PartCsvRow(
+    int Number,
+    double NominalOhms,
+    double ValueOhms,
+    double DeviationPpm,
+    double StandardUncertaintyOhms,
+    string Cup
+);
 
 /// <summary>A row of drift_samples.csv.</summary>
 /// <param name="Time">ISO 8601 round-trip time with offset.</param>
@@ -18,7 +25,12 @@ public sealed partial record PartCsvRow(int Number, double NominalOhms, double V
 /// <param name="Ohms">Reading, ohms.</param>
 /// <param name="TemperatureC">Temperature, degC; empty when not logged.</param>
 [CsvRecord]
-public sealed partial record DriftCsvRow([CsvFormat("O")] DateTimeOffset Time, string Channel, double Ohms, double? TemperatureC);
+public sealed partial record DriftCsvRow(
+    [CsvFormat("O")] DateTimeOffset Time,
+    string Channel,
+    double Ohms,
+    double? TemperatureC
+);
 
 /// <summary>A row of adev.csv.</summary>
 /// <param name="Channel">Channel name.</param>
@@ -30,4 +42,13 @@ public sealed partial record DriftCsvRow([CsvFormat("O")] DateTimeOffset Time, s
 /// <param name="Terms">Number of terms averaged.</param>
 /// <param name="Edf">Equivalent degrees of freedom (white FM assumption).</param>
 [CsvRecord]
-public sealed partial record AdevCsvRow(string Channel, int AveragingFactor, double TauSeconds, double AdevPpm, double LowerPpm, double UpperPpm, int Terms, double Edf);
+public sealed partial record AdevCsvRow(
+    string Channel,
+    int AveragingFactor,
+    double TauSeconds,
+    double AdevPpm,
+    double LowerPpm,
+    double UpperPpm,
+    int Terms,
+    double Edf
+);

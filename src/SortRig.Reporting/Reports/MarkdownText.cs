@@ -11,7 +11,8 @@ namespace SortRig.Reporting.Reports;
 /// </summary>
 public static class MarkdownText
 {
-    // Links, images, code, headings, table cells, HTML and emphasis markers; "_" inside names (R-2R_MSB) stays readable.
+    // Links, images, code, headings, table cells, HTML and emphasis markers; "_" inside names (R-2R_MSB) stays
+    // readable.
     private const string Special = "\\`*[]#|<>!";
 
     /// <summary>The text with markdown punctuation escaped and control characters shown as \xNN.</summary>

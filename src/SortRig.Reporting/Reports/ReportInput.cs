@@ -9,7 +9,8 @@ public sealed record ReportInput(
     string Title,
     IReadOnlyList<ReportPart> Parts,
     IReadOnlyList<ReportReel> Reels,
-    IReadOnlyList<ReportDriftSample> DriftSamples);
+    IReadOnlyList<ReportDriftSample> DriftSamples
+);
 
 /// <summary>One measured part.</summary>
 /// <param name="Number">Part number within the session (shown in CSV).</param>
@@ -18,10 +19,17 @@ public sealed record ReportInput(
 /// <param name="StandardUncertaintyOhms">Standard uncertainty of the value (k = 1), ohms; finite and &gt;= 0.</param>
 /// <param name="Cup">Cup the part went to, or null when not sorted.</param>
 /// <param name="AcceptedAt">When the value was accepted, for the pace line of summary.md; null when not known.</param>
-/// <param name="AcceptedBy">The settle rule that accepted it ("Averaging", "Predictive"); null when not recorded.</param>
+/// <param name="AcceptedBy">The settle rule that accepted it ("Averaging", "Predictive"); null when not
+/// recorded.</param>
 public sealed record ReportPart(
-    int Number, double NominalOhms, double ValueOhms, double StandardUncertaintyOhms, string? Cup,
-    DateTimeOffset? AcceptedAt = null, string? AcceptedBy = null);
+    int Number,
+    double NominalOhms,
+    double ValueOhms,
+    double StandardUncertaintyOhms,
+    string? Cup,
+    DateTimeOffset? AcceptedAt = null,
+    string? AcceptedBy = null
+);
 
 /// <summary>Stock data of a reel (all parts of one nominal).</summary>
 /// <param name="NominalOhms">Nominal resistance, ohms; finite and &gt; 0.</param>

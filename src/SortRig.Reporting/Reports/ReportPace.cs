@@ -23,9 +23,18 @@ internal static class ReportPace
             return null;
         }
 
-        var byRule = string.Join(", ", parts.Where(p => p.AcceptedBy is not null).GroupBy(p => p.AcceptedBy!, StringComparer.Ordinal)
-            .OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Key.ToLowerInvariant()} {g.Count()}"));
-        return string.Create(CultureInfo.InvariantCulture,
-            $"Pace: {perPart:0.0} s per part, {3600 / perPart:0} parts per hour (first accepted part to last, {times.Count} parts){(byRule.Length > 0 ? $"; settled by {byRule}" : "")}.");
+        var byRule = string.Join(
+            ", ",
+            parts
+                .Where(p => p.AcceptedBy is not null)
+                .GroupBy(p => p.AcceptedBy!, StringComparer.Ordinal)
+                .OrderBy(g => g.Key, StringComparer.Ordinal)
+                .Select(g => $"{g.Key.ToLowerInvariant()} {g.Count()}")
+        );
+        return string.Create(
+            CultureInfo.InvariantCulture,
+            $"Pace: {perPart:0.0} s per part, {3600 / perPart:0} parts per hour (first accepted part to last, "
+                + $"{times.Count} parts){(byRule.Length > 0 ? $"; settled by {byRule}" : "")}."
+        );
     }
 }

@@ -27,7 +27,10 @@ public static class SpreadsheetCsv
         if (text.Length > 0 && double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out var number))
         {
             var dot = text.IndexOf('.', StringComparison.Ordinal);
-            var format = text.AsSpan().IndexOfAny('e', 'E') >= 0 ? "R" : dot < 0 ? "F0" : "F" + (text.Length - dot - 1);
+            var format =
+                text.AsSpan().IndexOfAny('e', 'E') >= 0 ? "R"
+                : dot < 0 ? "F0"
+                : "F" + (text.Length - dot - 1);
             csv.WriteField(number, format);
         }
         else

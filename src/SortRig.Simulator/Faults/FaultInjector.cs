@@ -6,11 +6,17 @@ namespace SortRig.Simulator.Faults;
 /// Decides when a fault happens: one-shot faults armed by <see cref="Inject"/> (or the side channel)
 /// fire at the next opportunity; random faults fire at their rate, from a seeded stream.
 /// Reply faults (drop, delay, garble) need a reply; message faults (spurious error, silent reset)
-/// fire before the next program message runs; the reading fault (not a number) needs a reading reply. Every fault that fires is counted in <see cref="Log"/>.
+/// fire before the next program message runs; the reading fault (not a number) needs a reading reply. Every fault that
+/// fires is counted in <see cref="Log"/>.
 /// </summary>
 public sealed class FaultInjector
 {
-    private static readonly FaultKind[] s_replyKinds = [FaultKind.DropConnection, FaultKind.DelayReply, FaultKind.GarbleReply];
+    private static readonly FaultKind[] s_replyKinds =
+    [
+        FaultKind.DropConnection,
+        FaultKind.DelayReply,
+        FaultKind.GarbleReply,
+    ];
     private static readonly FaultKind[] s_messageKinds = [FaultKind.SpuriousError, FaultKind.SilentReset];
 
     private readonly Lock _gate = new();
@@ -34,11 +40,20 @@ public sealed class FaultInjector
     /// <summary>How long a delayed reply is held back; 0 to 10 min.</summary>
     public TimeSpan ReplyDelay
     {
-        get { lock (_gate) { return _replyDelay; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _replyDelay;
+            }
+        }
         set
         {
             OptionGuard.InRange(value, TimeSpan.Zero, TimeSpan.FromMinutes(10), nameof(ReplyDelay));
-            lock (_gate) { _replyDelay = value; }
+            lock (_gate)
+            {
+                _replyDelay = value;
+            }
         }
     }
 
@@ -48,20 +63,29 @@ public sealed class FaultInjector
     /// <summary>Arms one fault of this kind for the next opportunity (next reply, or next message).</summary>
     public void Inject(FaultKind kind)
     {
-        lock (_gate) { _armed[(int)kind]++; }
+        lock (_gate)
+        {
+            _armed[(int)kind]++;
+        }
     }
 
     /// <summary>Sets the random rate of one kind, 0 to 1 per message.</summary>
     public void SetRate(FaultKind kind, double probability)
     {
         OptionGuard.InRange(probability, 0, 1, $"{kind} rate");
-        lock (_gate) { _rates[(int)kind] = probability; }
+        lock (_gate)
+        {
+            _rates[(int)kind] = probability;
+        }
     }
 
     /// <summary>The current random rate of one kind.</summary>
     public double Rate(FaultKind kind)
     {
-        lock (_gate) { return _rates[(int)kind]; }
+        lock (_gate)
+        {
+            return _rates[(int)kind];
+        }
     }
 
     /// <summary>Message faults that fire before the next program message runs (counted).</summary>

@@ -3,7 +3,8 @@ namespace SortRig.Simulator.Faults;
 /// <summary>The faults the simulated meter can inject.</summary>
 public enum FaultKind
 {
-    /// <summary>Instead of a reply, TCP closes the socket; serial goes silent for <see cref="FaultOptions.SerialSilence"/>.</summary>
+    /// <summary>Instead of a reply, TCP closes the socket; serial goes silent for <see
+    /// cref="FaultOptions.SerialSilence"/>.</summary>
     DropConnection = 0,
 
     /// <summary>The reply is held back for <see cref="FaultInjector.ReplyDelay"/> before it is sent.</summary>

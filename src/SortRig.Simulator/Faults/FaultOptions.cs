@@ -1,6 +1,7 @@
 namespace SortRig.Simulator.Faults;
 
-/// <summary>Random fault rates and fault timings. All rates are probabilities per program message, 0 to 1, default 0.</summary>
+/// <summary>Random fault rates and fault timings. All rates are probabilities per program message, 0 to 1, default
+/// 0.</summary>
 public sealed record FaultOptions
 {
     /// <summary>Probability per reply of <see cref="FaultKind.DropConnection"/>; 0 to 1. Default 0.</summary>
@@ -24,7 +25,8 @@ public sealed record FaultOptions
     /// <summary>How long a delayed reply is held back; 0 to 10 min. Default 5 s.</summary>
     public TimeSpan ReplyDelay { get; init; } = TimeSpan.FromSeconds(5);
 
-    /// <summary>How long the serial line stays silent after a drop (input discarded); 0.1 s to 10 min. Default 3 s.</summary>
+    /// <summary>How long the serial line stays silent after a drop (input discarded); 0.1 s to 10 min. Default 3
+    /// s.</summary>
     public TimeSpan SerialSilence { get; init; } = TimeSpan.FromSeconds(3);
 
     /// <summary>Throws naming the first invalid option and its valid range.</summary>
@@ -36,19 +38,25 @@ public sealed record FaultOptions
         }
 
         OptionGuard.InRange(ReplyDelay, TimeSpan.Zero, TimeSpan.FromMinutes(10), "FaultOptions.ReplyDelay");
-        OptionGuard.InRange(SerialSilence, TimeSpan.FromSeconds(0.1), TimeSpan.FromMinutes(10), "FaultOptions.SerialSilence");
+        OptionGuard.InRange(
+            SerialSilence,
+            TimeSpan.FromSeconds(0.1),
+            TimeSpan.FromMinutes(10),
+            "FaultOptions.SerialSilence"
+        );
         return this;
     }
 
     /// <summary>The configured rate of one kind.</summary>
-    public double RateOf(FaultKind kind) => kind switch
-    {
-        FaultKind.DropConnection => DropRate,
-        FaultKind.DelayReply => DelayRate,
-        FaultKind.GarbleReply => GarbleRate,
-        FaultKind.SpuriousError => SpuriousErrorRate,
-        FaultKind.SilentReset => SilentResetRate,
-        FaultKind.NotANumber => NotANumberRate,
-        _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown fault kind."),
-    };
+    public double RateOf(FaultKind kind) =>
+        kind switch
+        {
+            FaultKind.DropConnection => DropRate,
+            FaultKind.DelayReply => DelayRate,
+            FaultKind.GarbleReply => GarbleRate,
+            FaultKind.SpuriousError => SpuriousErrorRate,
+            FaultKind.SilentReset => SilentResetRate,
+            FaultKind.NotANumber => NotANumberRate,
+            _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown fault kind."),
+        };
 }

@@ -3,8 +3,14 @@ namespace SortRig.Simulator.Meter;
 /// <summary>The background run: triggers, channels and samples on a schedule.</summary>
 internal sealed partial class Acquisition
 {
-    /// <summary>Readings follow a schedule on the bench clock: each aperture starts when the previous one ended.</summary>
-    private async Task<IReadOnlyList<double>> RunAsync(MeterSettings settings, int?[] targets, bool scanning, CancellationToken ct)
+    /// <summary>Readings follow a schedule on the bench clock: each aperture starts when the previous one
+    /// ended.</summary>
+    private async Task<IReadOnlyList<double>> RunAsync(
+        MeterSettings settings,
+        int?[] targets,
+        bool scanning,
+        CancellationToken ct
+    )
     {
         var readings = new List<double>();
         var duration = _engine.ReadingDuration(settings);

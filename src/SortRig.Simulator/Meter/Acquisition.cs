@@ -19,7 +19,13 @@ internal sealed partial class Acquisition
 
     public bool IsRunning
     {
-        get { lock (_gate) { return _run is { IsCompleted: false }; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _run is { IsCompleted: false };
+            }
+        }
     }
 
     /// <summary>INITiate: starts a run, or returns the error that stops it.</summary>
@@ -72,7 +78,8 @@ internal sealed partial class Acquisition
         }
     }
 
-    /// <summary>FETCh?: the readings of the last run; -230 with none, -214 when the run waits for a bus trigger.</summary>
+    /// <summary>FETCh?: the readings of the last run; -230 with none, -214 when the run waits for a bus
+    /// trigger.</summary>
     public async Task<(IReadOnlyList<double>? Readings, ScpiError? Error)> FetchAsync(CancellationToken ct)
     {
         Task<IReadOnlyList<double>>? run;

@@ -15,7 +15,13 @@ internal sealed class ErrorQueue
 
     public int Count
     {
-        get { lock (_gate) { return _entries.Count; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _entries.Count;
+            }
+        }
     }
 
     public void Push(ScpiError error)

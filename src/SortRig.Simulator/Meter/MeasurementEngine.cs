@@ -18,7 +18,17 @@ internal sealed class MeasurementEngine
     private readonly double _leadOhms;
     private readonly RangeGains _gains;
 
-    public MeasurementEngine(BenchEnvironment env, Fixture fixture, Scanner scanner, NoiseSource noise, ContactBounce bounce, MeterState state, double lineHz, double leadOhms, RangeGains gains)
+    public MeasurementEngine(
+        BenchEnvironment env,
+        Fixture fixture,
+        Scanner scanner,
+        NoiseSource noise,
+        ContactBounce bounce,
+        MeterState state,
+        double lineHz,
+        double leadOhms,
+        RangeGains gains
+    )
     {
         (_env, _fixture, _scanner, _noise, _bounce, _state) = (env, fixture, scanner, noise, bounce, state);
         (_lineHz, _leadOhms, _gains) = (lineHz, leadOhms, gains);
@@ -38,14 +48,20 @@ internal sealed class MeasurementEngine
     /// that instant, so that readings on a virtual clock do not depend on thread scheduling.
     /// Returns ohms or 9.9E37.
     /// </summary>
-    public async Task<double> ReadAtAsync(int? channel, DateTimeOffset end, MeterSettings settings, CancellationToken ct)
+    public async Task<double> ReadAtAsync(
+        int? channel,
+        DateTimeOffset end,
+        MeterSettings settings,
+        CancellationToken ct
+    )
     {
         await WaitUntilAsync(end, ct).ConfigureAwait(false);
         var input = channel is int c ? _scanner.Sample(c, end, _bounce) : _fixture.Sample(end, _bounce);
         return Convert(input, settings);
     }
 
-    /// <summary>Waits until the bench clock reaches <paramref name="until"/>, in whole milliseconds (timer resolution), never early.</summary>
+    /// <summary>Waits until the bench clock reaches <paramref name="until"/>, in whole milliseconds (timer resolution),
+    /// never early.</summary>
     public async Task WaitUntilAsync(DateTimeOffset until, CancellationToken ct)
     {
         var wait = until - _env.Now;
@@ -69,6 +85,14 @@ internal sealed class MeasurementEngine
 
         var lead = settings.Function == MeterFunction.Resistance ? _leadOhms : 0.0;
         var nplc = NplcSetting.Find(active.Nplc) ?? NplcSetting.Default;
-        return ReadingModel.Report(input.IsOpen, SelfHeating.Apply(input, range), range, nplc, _noise.NextStandardNormal(), lead, _gains.Factor(range));
+        return ReadingModel.Report(
+            input.IsOpen,
+            SelfHeating.Apply(input, range),
+            range,
+            nplc,
+            _noise.NextStandardNormal(),
+            lead,
+            _gains.Factor(range)
+        );
     }
 }

@@ -31,7 +31,8 @@ internal sealed record MeterSettings(
     bool AutoZero,
     TriggerSource TriggerSource,
     int TriggerCount,
-    int SampleCount)
+    int SampleCount
+)
 {
     /// <summary>Largest TRIGger:COUNt (our own limit).</summary>
     public const int MaxTriggerCount = 5_000;
@@ -39,11 +40,20 @@ internal sealed record MeterSettings(
     /// <summary>Largest SAMPle:COUNt (our own limit).</summary>
     public const int MaxSampleCount = 1_000;
 
-    /// <summary>Readings one INITiate may hold: trigger count × sample count × scan channels (our own limit; -223 above).</summary>
+    /// <summary>Readings one INITiate may hold: trigger count × sample count × scan channels (our own limit; -223
+    /// above).</summary>
     public const int ReadingBuffer = 20_000;
 
-    public static MeterSettings Default { get; } = new(
-        MeterFunction.Resistance, FunctionSettings.Default, FunctionSettings.Default, true, TriggerSource.Immediate, 1, 1);
+    public static MeterSettings Default { get; } =
+        new(
+            MeterFunction.Resistance,
+            FunctionSettings.Default,
+            FunctionSettings.Default,
+            true,
+            TriggerSource.Immediate,
+            1,
+            1
+        );
 
     public FunctionSettings Active => For(Function);
 

@@ -10,21 +10,51 @@ internal sealed class MeterState
 
     public MeterSettings Settings
     {
-        get { lock (_gate) { return _settings; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _settings;
+            }
+        }
     }
 
     /// <summary>The one closed scanner channel, or null when the front fixture is measured.</summary>
     public int? ClosedChannel
     {
-        get { lock (_gate) { return _closedChannel; } }
-        set { lock (_gate) { _closedChannel = value; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _closedChannel;
+            }
+        }
+        set
+        {
+            lock (_gate)
+            {
+                _closedChannel = value;
+            }
+        }
     }
 
     /// <summary>Channels that INITiate / READ? step through; empty for no scan.</summary>
     public IReadOnlyList<int> ScanList
     {
-        get { lock (_gate) { return _scanList; } }
-        set { lock (_gate) { _scanList = value; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _scanList;
+            }
+        }
+        set
+        {
+            lock (_gate)
+            {
+                _scanList = value;
+            }
+        }
     }
 
     public MeterSettings Update(Func<MeterSettings, MeterSettings> change)

@@ -21,8 +21,7 @@ internal sealed record NplcSetting(double Nplc, double Digits, double Resolution
 
     public static NplcSetting Default => All[2];
 
-    public static NplcSetting? Find(double nplc) =>
-        All.FirstOrDefault(s => Math.Abs(s.Nplc - nplc) <= s.Nplc * 1e-9);
+    public static NplcSetting? Find(double nplc) => All.FirstOrDefault(s => Math.Abs(s.Nplc - nplc) <= s.Nplc * 1e-9);
 
     /// <summary>Quantisation step in ohms on a range.</summary>
     public double Step(double range) => ResolutionPpm * 1e-6 * range;

@@ -67,7 +67,10 @@ internal sealed class RangeGains
     {
         get
         {
-            lock (_gate) { return _stepArmed && _conversions > _stepAfter ? _stepPpm : 0; }
+            lock (_gate)
+            {
+                return _stepArmed && _conversions > _stepAfter ? _stepPpm : 0;
+            }
         }
     }
 }

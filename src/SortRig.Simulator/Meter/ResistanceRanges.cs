@@ -9,10 +9,12 @@ internal static class ResistanceRanges
     /// <summary>Largest readable value as a multiple of full scale.</summary>
     public const double OverRange = 1.25;
 
-    /// <summary>Autorange aims to read at or below this multiple of full scale (headroom under the 1.25x limit).</summary>
+    /// <summary>Autorange aims to read at or below this multiple of full scale (headroom under the 1.25x
+    /// limit).</summary>
     public const double AutoTarget = 1.15;
 
-    /// <summary>Decades from 100 Ohm to 10 MOhm and a 50 MOhm top range (16 nA test current, 0.8 V at full scale).</summary>
+    /// <summary>Decades from 100 Ohm to 10 MOhm and a 50 MOhm top range (16 nA test current, 0.8 V at full
+    /// scale).</summary>
     public static readonly IReadOnlyList<double> All = [100, 1e3, 1e4, 1e5, 1e6, 1e7, 5e7];
 
     public const double Default = 1e4;
@@ -21,7 +23,8 @@ internal static class ResistanceRanges
 
     public static double Max => All[^1];
 
-    /// <summary>The smallest range whose full scale is at least <paramref name="ohms"/> (RANGe &lt;value&gt;), or null above 50 MOhm.</summary>
+    /// <summary>The smallest range whose full scale is at least <paramref name="ohms"/> (RANGe &lt;value&gt;), or null
+    /// above 50 MOhm.</summary>
     public static double? Covering(double ohms) => All.Cast<double?>().FirstOrDefault(r => r >= ohms * (1 - 1e-12));
 
     /// <summary>

@@ -14,8 +14,8 @@ internal sealed class StatusRegisters
     public const int PowerOn = 1 << 7;
 
     public const int ErrorAvailable = 1 << 2; // STB bit 2: error queue not empty (SCPI-99 vol. 1 sec. 9)
-    public const int EventSummary = 1 << 5;   // STB bit 5: ESB
-    public const int MasterSummary = 1 << 6;  // STB bit 6: MSS
+    public const int EventSummary = 1 << 5; // STB bit 5: ESB
+    public const int MasterSummary = 1 << 6; // STB bit 6: MSS
 
     private readonly Lock _gate = new();
     private int _esr = PowerOn;
@@ -65,7 +65,8 @@ internal sealed class StatusRegisters
         }
     }
 
-    /// <summary>*STB?: the status byte for the current error queue length (MAV is never set: replies are sent at once).</summary>
+    /// <summary>*STB?: the status byte for the current error queue length (MAV is never set: replies are sent at
+    /// once).</summary>
     public int StatusByte(int errorCount)
     {
         int esr;

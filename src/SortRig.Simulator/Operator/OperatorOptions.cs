@@ -49,14 +49,29 @@ public sealed record OperatorOptions
         var minute = TimeSpan.FromMinutes(1);
         OptionGuard.InRange(HandlingTimeMin, TimeSpan.Zero, minute, "OperatorOptions.HandlingTimeMin");
         OptionGuard.InRange(HandlingTimeMax, TimeSpan.Zero, minute, "OperatorOptions.HandlingTimeMax");
-        OptionGuard.Ordered(HandlingTimeMin, HandlingTimeMax, "OperatorOptions.HandlingTimeMin", "OperatorOptions.HandlingTimeMax");
+        OptionGuard.Ordered(
+            HandlingTimeMin,
+            HandlingTimeMax,
+            "OperatorOptions.HandlingTimeMin",
+            "OperatorOptions.HandlingTimeMax"
+        );
         OptionGuard.InRange(WarmKelvinMin, 0, 30, "OperatorOptions.WarmKelvinMin", "K");
         OptionGuard.InRange(WarmKelvinMax, 0, 30, "OperatorOptions.WarmKelvinMax", "K");
-        OptionGuard.Ordered(WarmKelvinMin, WarmKelvinMax, "OperatorOptions.WarmKelvinMin", "OperatorOptions.WarmKelvinMax");
+        OptionGuard.Ordered(
+            WarmKelvinMin,
+            WarmKelvinMax,
+            "OperatorOptions.WarmKelvinMin",
+            "OperatorOptions.WarmKelvinMax"
+        );
         OptionGuard.InRange(MaxDwell, TimeSpan.FromSeconds(1), TimeSpan.FromHours(1), "OperatorOptions.MaxDwell");
         OptionGuard.InRange(ReactionTimeMin, TimeSpan.Zero, minute, "OperatorOptions.ReactionTimeMin");
         OptionGuard.InRange(ReactionTimeMax, TimeSpan.Zero, minute, "OperatorOptions.ReactionTimeMax");
-        OptionGuard.Ordered(ReactionTimeMin, ReactionTimeMax, "OperatorOptions.ReactionTimeMin", "OperatorOptions.ReactionTimeMax");
+        OptionGuard.Ordered(
+            ReactionTimeMin,
+            ReactionTimeMax,
+            "OperatorOptions.ReactionTimeMin",
+            "OperatorOptions.ReactionTimeMax"
+        );
         return this;
     }
 }

@@ -28,7 +28,14 @@ public sealed partial class VirtualOperator
     private int _partsDone;
     private int _dwellTimeouts;
 
-    internal VirtualOperator(OperatorOptions options, IReadOnlyList<SimulatedPart> reel, Fixture fixture, TimeProvider time, int seed, ILogger logger)
+    internal VirtualOperator(
+        OperatorOptions options,
+        IReadOnlyList<SimulatedPart> reel,
+        Fixture fixture,
+        TimeProvider time,
+        int seed,
+        ILogger logger
+    )
     {
         _options = options.Validate();
         (_reel, _fixture, _time, _logger) = (reel, fixture, time, logger);
@@ -38,19 +45,37 @@ public sealed partial class VirtualOperator
     /// <summary>What the operator is doing now.</summary>
     public OperatorState State
     {
-        get { lock (_gate) { return _state; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _state;
+            }
+        }
     }
 
     /// <summary>Reel index of the part the operator will insert next (equals the reel count when finished).</summary>
     public int NextIndex
     {
-        get { lock (_gate) { return _next; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _next;
+            }
+        }
     }
 
     /// <summary>True while the auto loop runs.</summary>
     public bool IsRunning
     {
-        get { lock (_gate) { return !_loop.IsCompleted; } }
+        get
+        {
+            lock (_gate)
+            {
+                return !_loop.IsCompleted;
+            }
+        }
     }
 
     /// <summary>Parts inserted and taken out again by the auto loop.</summary>

@@ -6,7 +6,8 @@ namespace SortRig.Simulator.Physics;
 /// </summary>
 public sealed record AmbientSpec
 {
-    /// <summary>Mean ambient in degC; -100 to 200 (wide so that the Pt100 channel can be exercised). Default 23.</summary>
+    /// <summary>Mean ambient in degC; -100 to 200 (wide so that the Pt100 channel can be exercised). Default
+    /// 23.</summary>
     public double MeanCelsius { get; init; } = 23.0;
 
     /// <summary>Amplitude of the sinusoidal swing in K; 0 to 30. Default 0 (constant).</summary>
@@ -30,5 +31,9 @@ public sealed record AmbientSpec
 
     /// <summary>Ambient in degC at a time since the epoch.</summary>
     public double CelsiusAt(TimeSpan sinceEpoch) =>
-        MeanCelsius + (SwingKelvin * Math.Sin((2 * Math.PI * sinceEpoch.TotalSeconds / Period.TotalSeconds) + (PhaseDegrees * Math.PI / 180)));
+        MeanCelsius
+        + (
+            SwingKelvin
+            * Math.Sin((2 * Math.PI * sinceEpoch.TotalSeconds / Period.TotalSeconds) + (PhaseDegrees * Math.PI / 180))
+        );
 }

@@ -16,11 +16,16 @@ internal sealed class AmbientWander
         var rng = new MersenneTwister(seed, threadSafe: false);
         const int Terms = 4;
         var amplitude = rmsKelvin * Math.Sqrt(2.0 / Terms);
-        _terms = [.. Enumerable.Range(0, Terms).Select(_ =>
-        {
-            var period = 300 * Math.Exp(rng.NextDouble() * Math.Log(12));
-            return (amplitude, 2 * Math.PI / period, 2 * Math.PI * rng.NextDouble());
-        })];
+        _terms =
+        [
+            .. Enumerable
+                .Range(0, Terms)
+                .Select(_ =>
+                {
+                    var period = 300 * Math.Exp(rng.NextDouble() * Math.Log(12));
+                    return (amplitude, 2 * Math.PI / period, 2 * Math.PI * rng.NextDouble());
+                }),
+        ];
     }
 
     /// <summary>None: a constant zero.</summary>

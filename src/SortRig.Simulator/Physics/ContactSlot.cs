@@ -11,7 +11,8 @@ internal sealed class ContactSlot
     private DateTimeOffset _insertedAt;
     private double _warmKelvin;
 
-    /// <summary>A slot; the rich model passes its part excess noise and the thermal resistance for self-heating.</summary>
+    /// <summary>A slot; the rich model passes its part excess noise and the thermal resistance for
+    /// self-heating.</summary>
     public ContactSlot(string name, ExcessNoise? excess = null, double thermalResistanceKelvinPerWatt = 0)
     {
         _name = name;
@@ -21,12 +22,24 @@ internal sealed class ContactSlot
 
     public SimulatedPart? Occupant
     {
-        get { lock (_gate) { return _part; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _part;
+            }
+        }
     }
 
     public DateTimeOffset? InsertedAt
     {
-        get { lock (_gate) { return _part is null ? null : _insertedAt; } }
+        get
+        {
+            lock (_gate)
+            {
+                return _part is null ? null : _insertedAt;
+            }
+        }
     }
 
     public void Insert(SimulatedPart part, double warmKelvin, DateTimeOffset at)
@@ -100,11 +113,17 @@ internal sealed class ContactSlot
         }
 
         var since = t - insertedAt;
-        var sample = new InputSample(false, Clean(part, warm, since, t, env), HeatingPerWatt(part, since), part.TempcoPpmPerKelvin);
+        var sample = new InputSample(
+            false,
+            Clean(part, warm, since, t, env),
+            HeatingPerWatt(part, since),
+            part.TempcoPpmPerKelvin
+        );
         return SelfHeating.Apply(sample, rangeOhms);
     }
 
-    /// <summary>Truth side: the value the part in the slot settles to on a range (self-heating at its steady state), at the ambient of time t.</summary>
+    /// <summary>Truth side: the value the part in the slot settles to on a range (self-heating at its steady state), at
+    /// the ambient of time t.</summary>
     public double Settled(DateTimeOffset t, BenchEnvironment env, double rangeOhms)
     {
         var part = Occupant;
@@ -117,8 +136,13 @@ internal sealed class ContactSlot
         return SelfHeating.Apply(sample, rangeOhms);
     }
 
-    private static double Clean(SimulatedPart part, double warm, TimeSpan since, DateTimeOffset t, BenchEnvironment env) =>
-        part.OhmsAt(PartThermal.Celsius(part, env.AmbientAt(t), warm, since), env.HoursSinceEpoch(t));
+    private static double Clean(
+        SimulatedPart part,
+        double warm,
+        TimeSpan since,
+        DateTimeOffset t,
+        BenchEnvironment env
+    ) => part.OhmsAt(PartThermal.Celsius(part, env.AmbientAt(t), warm, since), env.HoursSinceEpoch(t));
 
     private double HeatingPerWatt(SimulatedPart part, TimeSpan since) =>
         _thermalResistance == 0 ? 0 : PartThermal.HeatingPerWatt(part, _thermalResistance, since);

@@ -51,7 +51,8 @@ internal sealed class ExcessNoise(PhysicsSpec physics, int seed)
                 for (var i = 0; i < _state.Length; i++)
                 {
                     var decay = Math.Exp(-dt / s_timeConstants[i]);
-                    _state[i] = (_state[i] * decay) + (_sigma * Math.Sqrt(1 - (decay * decay)) * Normal.Sample(_rng, 0, 1));
+                    _state[i] =
+                        (_state[i] * decay) + (_sigma * Math.Sqrt(1 - (decay * decay)) * Normal.Sample(_rng, 0, 1));
                 }
 
                 _last = t;

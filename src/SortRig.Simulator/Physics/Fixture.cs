@@ -13,7 +13,11 @@ public sealed class Fixture
     {
         _env = env;
         _slot = physics is { IsRich: true }
-            ? new ContactSlot("The fixture", new ExcessNoise(physics, excessSeed), physics.ThermalResistanceKelvinPerWatt)
+            ? new ContactSlot(
+                "The fixture",
+                new ExcessNoise(physics, excessSeed),
+                physics.ThermalResistanceKelvinPerWatt
+            )
             : new ContactSlot("The fixture");
     }
 
@@ -28,7 +32,8 @@ public sealed class Fixture
 
     /// <summary>Puts a part in the fixture now.</summary>
     /// <param name="part">A part from <see cref="SimulatedBench.Reel"/>.</param>
-    /// <param name="warmKelvin">Body temperature above ambient at insertion, in K (handling warmth); -50 to 100, default 0.</param>
+    /// <param name="warmKelvin">Body temperature above ambient at insertion, in K (handling warmth); -50 to 100,
+    /// default 0.</param>
     /// <exception cref="InvalidOperationException">The fixture already holds a part.</exception>
     public void Insert(SimulatedPart part, double warmKelvin = 0) => _slot.Insert(part, warmKelvin, _env.Now);
 
@@ -37,7 +42,8 @@ public sealed class Fixture
 
     internal InputSample Sample(DateTimeOffset t, ContactBounce bounce) => _slot.Sample(t, _env, bounce);
 
-    /// <summary>Truth side (benchmarks): the noise-free value presented at t on a range (cooling, self-heating; no excess noise).</summary>
+    /// <summary>Truth side (benchmarks): the noise-free value presented at t on a range (cooling, self-heating; no
+    /// excess noise).</summary>
     internal double Presented(DateTimeOffset t, double rangeOhms) => _slot.Presented(t, _env, rangeOhms);
 
     /// <summary>Truth side (benchmarks): the value the part settles to on a range, at the ambient of time t.</summary>

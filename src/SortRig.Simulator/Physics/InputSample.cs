@@ -6,7 +6,12 @@ namespace SortRig.Simulator.Physics;
 /// <param name="HeatingKelvinPerWatt">Rich model: the part's temperature rise per watt of test power reached so far,
 /// K/W (θ (1 − e^(−t/τ))); 0 when self-heating is not modelled.</param>
 /// <param name="TempcoPpmPerKelvin">The part's tempco, for the self-heating; 0 when not modelled.</param>
-internal readonly record struct InputSample(bool IsOpen, double Ohms, double HeatingKelvinPerWatt = 0, double TempcoPpmPerKelvin = 0)
+internal readonly record struct InputSample(
+    bool IsOpen,
+    double Ohms,
+    double HeatingKelvinPerWatt = 0,
+    double TempcoPpmPerKelvin = 0
+)
 {
     public static InputSample Open => new(true, double.PositiveInfinity);
 

@@ -8,14 +8,24 @@ namespace SortRig.Simulator.Physics;
 /// </summary>
 internal static class PartThermal
 {
-    public static double Celsius(double ambientCelsius, double warmKelvinAtInsertion, TimeSpan sinceInsertion, TimeSpan timeConstant)
+    public static double Celsius(
+        double ambientCelsius,
+        double warmKelvinAtInsertion,
+        TimeSpan sinceInsertion,
+        TimeSpan timeConstant
+    )
     {
         var elapsed = Math.Max(0, sinceInsertion.TotalSeconds);
         return ambientCelsius + (warmKelvinAtInsertion * Math.Exp(-elapsed / timeConstant.TotalSeconds));
     }
 
     /// <summary>The part's temperature with its own thermal paths (one or two).</summary>
-    public static double Celsius(SimulatedPart part, double ambientCelsius, double warmKelvinAtInsertion, TimeSpan sinceInsertion)
+    public static double Celsius(
+        SimulatedPart part,
+        double ambientCelsius,
+        double warmKelvinAtInsertion,
+        TimeSpan sinceInsertion
+    )
     {
         if (part.LeadShare == 0)
         {
@@ -31,9 +41,11 @@ internal static class PartThermal
 
     /// <summary>Rich model: temperature rise per watt of test power reached after a time in the fixture, K/W.</summary>
     public static double HeatingPerWatt(SimulatedPart part, double thermalResistance, TimeSpan sinceInsertion) =>
-        thermalResistance * (1 - Math.Exp(-Math.Max(0, sinceInsertion.TotalSeconds) / part.ThermalTimeConstant.TotalSeconds));
+        thermalResistance
+        * (1 - Math.Exp(-Math.Max(0, sinceInsertion.TotalSeconds) / part.ThermalTimeConstant.TotalSeconds));
 
-    /// <summary>Rich model: draws each part's lead share and lead time constant from its own stream (the reel's draws are untouched).</summary>
+    /// <summary>Rich model: draws each part's lead share and lead time constant from its own stream (the reel's draws
+    /// are untouched).</summary>
     public static IReadOnlyList<SimulatedPart> Enrich(IReadOnlyList<SimulatedPart> parts, PhysicsSpec physics, int seed)
     {
         if (!physics.IsRich)
@@ -48,7 +60,8 @@ internal static class PartThermal
     public static SimulatedPart Enrich(SimulatedPart part, PhysicsSpec physics, Random rng)
     {
         var share = physics.LeadShareMin + (rng.NextDouble() * (physics.LeadShareMax - physics.LeadShareMin));
-        var ratio = physics.LeadTimeRatioMin + (rng.NextDouble() * (physics.LeadTimeRatioMax - physics.LeadTimeRatioMin));
+        var ratio =
+            physics.LeadTimeRatioMin + (rng.NextDouble() * (physics.LeadTimeRatioMax - physics.LeadTimeRatioMin));
         return part with { LeadShare = share, LeadTimeConstant = part.ThermalTimeConstant * ratio };
     }
 }

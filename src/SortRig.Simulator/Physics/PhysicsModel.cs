@@ -3,7 +3,8 @@ namespace SortRig.Simulator.Physics;
 /// <summary>Which bench physics the simulator runs. See docs/simulator.md, "Physics models".</summary>
 public enum PhysicsModel
 {
-    /// <summary>One exponential cooling per part, white reading noise, the ambient as specified (today's model).</summary>
+    /// <summary>One exponential cooling per part, white reading noise, the ambient as specified (today's
+    /// model).</summary>
     Simple = 0,
 
     /// <summary>

@@ -10,7 +10,8 @@ public sealed record PhysicsSpec
     /// <summary>Which physics runs. Default Simple.</summary>
     public PhysicsModel Model { get; init; } = PhysicsModel.Simple;
 
-    /// <summary>Smallest share of the handling warmth that leaves by the fast path (leads into the fixture); 0 to 1. Default 0.2.</summary>
+    /// <summary>Smallest share of the handling warmth that leaves by the fast path (leads into the fixture); 0 to 1.
+    /// Default 0.2.</summary>
     public double LeadShareMin { get; init; } = 0.2;
 
     /// <summary>Largest such share; LeadShareMin to 1. Default 0.5.</summary>
@@ -22,13 +23,15 @@ public sealed record PhysicsSpec
     /// <summary>Largest such ratio; LeadTimeRatioMin to 1. Default 0.35.</summary>
     public double LeadTimeRatioMax { get; init; } = 0.35;
 
-    /// <summary>Thermal resistance of a part in the fixture, K/W, for self-heating by the test current; 0 to 10 000. Default 100.</summary>
+    /// <summary>Thermal resistance of a part in the fixture, K/W, for self-heating by the test current; 0 to 10 000.
+    /// Default 100.</summary>
     public double ThermalResistanceKelvinPerWatt { get; init; } = 100;
 
     /// <summary>RMS of the slow ambient wander (periods 5 to 60 min), K; 0 to 5. Default 0.1.</summary>
     public double AmbientWanderKelvin { get; init; } = 0.1;
 
-    /// <summary>RMS of the low-frequency excess noise of a part (1/f-like over 0.1 to 100 s), ppm of its value; 0 to 100. Default 0.3.</summary>
+    /// <summary>RMS of the low-frequency excess noise of a part (1/f-like over 0.1 to 100 s), ppm of its value; 0 to
+    /// 100. Default 0.3.</summary>
     public double FlickerPpm { get; init; } = 0.3;
 
     /// <summary>Share of parts that show popcorn (burst) noise; 0 to 1. Default 0.1.</summary>
@@ -45,14 +48,24 @@ public sealed record PhysicsSpec
     {
         if (!Enum.IsDefined(Model))
         {
-            throw new ArgumentOutOfRangeException("PhysicsSpec.Model", Model, "PhysicsSpec.Model must be Simple or Rich.");
+            throw new ArgumentOutOfRangeException(
+                "PhysicsSpec.Model",
+                Model,
+                "PhysicsSpec.Model must be Simple or Rich."
+            );
         }
 
         OptionGuard.InRange(LeadShareMin, 0, 1, "PhysicsSpec.LeadShareMin");
         OptionGuard.InRange(LeadShareMax, LeadShareMin, 1, "PhysicsSpec.LeadShareMax");
         OptionGuard.InRange(LeadTimeRatioMin, 0.01, 1, "PhysicsSpec.LeadTimeRatioMin");
         OptionGuard.InRange(LeadTimeRatioMax, LeadTimeRatioMin, 1, "PhysicsSpec.LeadTimeRatioMax");
-        OptionGuard.InRange(ThermalResistanceKelvinPerWatt, 0, 10_000, "PhysicsSpec.ThermalResistanceKelvinPerWatt", "K/W");
+        OptionGuard.InRange(
+            ThermalResistanceKelvinPerWatt,
+            0,
+            10_000,
+            "PhysicsSpec.ThermalResistanceKelvinPerWatt",
+            "K/W"
+        );
         OptionGuard.InRange(AmbientWanderKelvin, 0, 5, "PhysicsSpec.AmbientWanderKelvin", "K");
         OptionGuard.InRange(FlickerPpm, 0, 100, "PhysicsSpec.FlickerPpm", "ppm");
         OptionGuard.InRange(PopcornShare, 0, 1, "PhysicsSpec.PopcornShare");

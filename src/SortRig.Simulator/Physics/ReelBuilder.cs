@@ -22,7 +22,8 @@ internal static class ReelBuilder
         return parts;
     }
 
-    /// <summary>One part of the given nominal drawn like a reel part (deviation, tempco, drift, time constant, in that order).</summary>
+    /// <summary>One part of the given nominal drawn like a reel part (deviation, tempco, drift, time constant, in that
+    /// order).</summary>
     internal static SimulatedPart Draw(ReelSpec spec, Random rng, int index, double nominal)
     {
         var deviation = DrawDeviation(spec.Distribution, rng) * spec.TolerancePercent / 100.0;
@@ -49,7 +50,8 @@ internal static class ReelBuilder
                     var d = Normal.Sample(rng, 0, distribution.Sigma);
                     var magnitude = Math.Abs(d);
                     var inBand = magnitude <= 1.0;
-                    var outsideGap = distribution.Kind != ValueDistributionKind.Bimodal || magnitude >= distribution.CentreGap;
+                    var outsideGap =
+                        distribution.Kind != ValueDistributionKind.Bimodal || magnitude >= distribution.CentreGap;
                     if (inBand && outsideGap)
                     {
                         return d;

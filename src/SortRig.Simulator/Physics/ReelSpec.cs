@@ -9,7 +9,8 @@ public sealed record ReelSpec
     /// <summary>Number of parts; 1 to 100 000. Default 200.</summary>
     public int Count { get; init; } = 200;
 
-    /// <summary>Nominal values and their shares. Default: 10 kOhm (2 shares) and 20 kOhm (1 share), as for an R-2R ladder.</summary>
+    /// <summary>Nominal values and their shares. Default: 10 kOhm (2 shares) and 20 kOhm (1 share), as for an R-2R
+    /// ladder.</summary>
     public IReadOnlyList<NominalShare> Nominals { get; init; } = [new(10_000, 2), new(20_000, 1)];
 
     /// <summary>Tolerance half-width in percent of nominal; (0, 20]. Default 1 %.</summary>
@@ -56,14 +57,21 @@ public sealed record ReelSpec
         if (Distribution.AcceptanceProbability() < 1e-3)
         {
             throw new ArgumentException(
-                $"ReelSpec.Distribution keeps fewer than 1 in 1000 draws (sigma {Distribution.Sigma}, gap {Distribution.CentreGap}); widen sigma or narrow the gap.",
-                "ReelSpec.Distribution");
+                $"ReelSpec.Distribution keeps fewer than 1 in 1000 draws (sigma {Distribution.Sigma}, gap "
+                    + $"{Distribution.CentreGap}); widen sigma or narrow the gap.",
+                "ReelSpec.Distribution"
+            );
         }
 
         OptionGuard.InRange(TempcoMeanPpmPerKelvin, -1000, 1000, "ReelSpec.TempcoMeanPpmPerKelvin", "ppm/K");
         OptionGuard.InRange(TempcoSigmaPpmPerKelvin, 0, 500, "ReelSpec.TempcoSigmaPpmPerKelvin", "ppm/K");
         OptionGuard.InRange(DriftSigmaPpmPerHour, 0, 100, "ReelSpec.DriftSigmaPpmPerHour", "ppm/h");
-        OptionGuard.InRange(ThermalTimeConstant, TimeSpan.FromSeconds(0.1), TimeSpan.FromMinutes(10), "ReelSpec.ThermalTimeConstant");
+        OptionGuard.InRange(
+            ThermalTimeConstant,
+            TimeSpan.FromSeconds(0.1),
+            TimeSpan.FromMinutes(10),
+            "ReelSpec.ThermalTimeConstant"
+        );
         OptionGuard.InRange(ThermalTimeConstantSpread, 0, 0.9, "ReelSpec.ThermalTimeConstantSpread");
         return this;
     }

@@ -31,7 +31,8 @@ public sealed class Scanner
     /// <param name="channel">A part channel number.</param>
     /// <param name="part">The part.</param>
     /// <param name="warmKelvin">Body temperature above ambient at loading, in K; default 0.</param>
-    public void Load(int channel, SimulatedPart part, double warmKelvin = 0) => Slot(channel).Insert(part, warmKelvin, _env.Now);
+    public void Load(int channel, SimulatedPart part, double warmKelvin = 0) =>
+        Slot(channel).Insert(part, warmKelvin, _env.Now);
 
     /// <summary>Empties a part channel; returns the part or null.</summary>
     public SimulatedPart? Unload(int channel) => Slot(channel).Remove();
@@ -47,5 +48,9 @@ public sealed class Scanner
     private ContactSlot Slot(int channel) =>
         _slots.TryGetValue(channel, out var slot)
             ? slot
-            : throw new ArgumentOutOfRangeException(nameof(channel), channel, $"Channel {channel} is not a part channel; part channels are {PartChannels[0]}..{PartChannels[^1]}.");
+            : throw new ArgumentOutOfRangeException(
+                nameof(channel),
+                channel,
+                $"Channel {channel} is not a part channel; part channels are {PartChannels[0]}..{PartChannels[^1]}."
+            );
 }

@@ -15,9 +15,11 @@ public sealed record SimulatedPart(
     double OhmsAt23C,
     double TempcoPpmPerKelvin,
     double DriftPpmPerHour,
-    TimeSpan ThermalTimeConstant)
+    TimeSpan ThermalTimeConstant
+)
 {
-    /// <summary>Rich model: share of the handling warmth carried off by the leads into the fixture, 0..1; 0 (default) for one path.</summary>
+    /// <summary>Rich model: share of the handling warmth carried off by the leads into the fixture, 0..1; 0 (default)
+    /// for one path.</summary>
     public double LeadShare { get; init; }
 
     /// <summary>Rich model: time constant of the lead path; zero (default) when <see cref="LeadShare"/> is 0.</summary>

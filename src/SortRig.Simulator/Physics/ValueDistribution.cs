@@ -9,7 +9,8 @@ public enum ValueDistributionKind
     /// <summary>Uniform over the whole tolerance band.</summary>
     Uniform = 1,
 
-    /// <summary>Gaussian clipped to the tolerance band with the centre culled (tight parts sold as a better grade).</summary>
+    /// <summary>Gaussian clipped to the tolerance band with the centre culled (tight parts sold as a better
+    /// grade).</summary>
     Bimodal = 2,
 
     /// <summary>Gaussian clipped to the tolerance band (out-of-tolerance parts rejected at the factory).</summary>
@@ -21,8 +22,10 @@ public enum ValueDistributionKind
 /// half-width: -1 is the lower tolerance limit, +1 the upper.
 /// </summary>
 /// <param name="Kind">Shape of the distribution.</param>
-/// <param name="Sigma">Standard deviation of the underlying Gaussian, as a fraction of the tolerance half-width; (0, 5]. Ignored by Uniform.</param>
-/// <param name="CentreGap">Bimodal only: parts with |deviation| below this fraction of the tolerance are missing; [0, 1).</param>
+/// <param name="Sigma">Standard deviation of the underlying Gaussian, as a fraction of the tolerance half-width; (0,
+/// 5]. Ignored by Uniform.</param>
+/// <param name="CentreGap">Bimodal only: parts with |deviation| below this fraction of the tolerance are missing; [0,
+/// 1).</param>
 public sealed record ValueDistribution(ValueDistributionKind Kind, double Sigma, double CentreGap)
 {
     /// <summary>Unbounded Gaussian with sigma as a fraction of the tolerance half-width.</summary>
@@ -32,7 +35,8 @@ public sealed record ValueDistribution(ValueDistributionKind Kind, double Sigma,
     public static ValueDistribution Uniform() => new(ValueDistributionKind.Uniform, 1, 0);
 
     /// <summary>Gaussian clipped to the band with |deviation| &lt; <paramref name="centreGap"/> culled.</summary>
-    public static ValueDistribution Bimodal(double sigma, double centreGap) => new(ValueDistributionKind.Bimodal, sigma, centreGap);
+    public static ValueDistribution Bimodal(double sigma, double centreGap) =>
+        new(ValueDistributionKind.Bimodal, sigma, centreGap);
 
     /// <summary>Gaussian clipped to the tolerance band.</summary>
     public static ValueDistribution Truncated(double sigma) => new(ValueDistributionKind.Truncated, sigma, 0);

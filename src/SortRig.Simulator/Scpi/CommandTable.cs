@@ -26,7 +26,10 @@ internal sealed class CommandTable
     {
         var matches = _commands.Where(c => c.Header.Matches(tokens)).ToList();
         var exact = matches.FirstOrDefault(c => c.IsQuery == isQuery);
-        error = exact is not null ? null : matches.Count > 0 ? ScpiError.Command : ScpiError.UndefinedHeader;
+        error =
+            exact is not null ? null
+            : matches.Count > 0 ? ScpiError.Command
+            : ScpiError.UndefinedHeader;
         return exact;
     }
 }

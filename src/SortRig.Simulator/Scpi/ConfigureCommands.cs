@@ -10,15 +10,26 @@ internal static class ConfigureCommands
 {
     public static void Register(CommandTable table)
     {
-        foreach (var (node, function) in new[] { ("RESistance", MeterFunction.Resistance), ("FRESistance", MeterFunction.FourWireResistance) })
+        foreach (
+            var (node, function) in new[]
+            {
+                ("RESistance", MeterFunction.Resistance),
+                ("FRESistance", MeterFunction.FourWireResistance),
+            }
+        )
         {
             table
                 .Add($"CONFigure:{node}", (c, _) => CommonCommands.Done(() => Configure(c, function)), 0, 2)
-                .Add($"MEASure:{node}?", async (c, ct) =>
-                {
-                    Configure(c, function);
-                    return await TriggerCommands.ReadAsync(c, ct).ConfigureAwait(false);
-                }, 0, 2);
+                .Add(
+                    $"MEASure:{node}?",
+                    async (c, ct) =>
+                    {
+                        Configure(c, function);
+                        return await TriggerCommands.ReadAsync(c, ct).ConfigureAwait(false);
+                    },
+                    0,
+                    2
+                );
         }
 
         table.Add("CONFigure?", (c, _) => CommonCommands.Reply(Describe(c.Device.State.Settings)));
@@ -31,17 +42,22 @@ internal static class ConfigureCommands
     /// </summary>
     public static void Configure(ScpiCall call, MeterFunction function)
     {
-        var auto = !call.Has(0) || ScpiParameters.IsKeyword(call.Parameters[0], "AUTO") || ScpiParameters.IsKeyword(call.Parameters[0], "DEFault");
+        var auto =
+            !call.Has(0)
+            || ScpiParameters.IsKeyword(call.Parameters[0], "AUTO")
+            || ScpiParameters.IsKeyword(call.Parameters[0], "DEFault");
         var range = auto ? ResistanceRanges.Default : SenseCommands.ParseRange(call, 0);
         var nplc = call.Has(1) ? ResolutionToNplc(call, auto, range) : NplcSetting.Default.Nplc;
         call.Device.Acquisition.Abort();
-        call.Device.State.Update(s => s.With(function, new FunctionSettings(range, auto, nplc)) with
-        {
-            Function = function,
-            TriggerSource = TriggerSource.Immediate,
-            TriggerCount = 1,
-            SampleCount = 1,
-        });
+        call.Device.State.Update(s =>
+            s.With(function, new FunctionSettings(range, auto, nplc)) with
+            {
+                Function = function,
+                TriggerSource = TriggerSource.Immediate,
+                TriggerCount = 1,
+                SampleCount = 1,
+            }
+        );
     }
 
     private static double ResolutionToNplc(ScpiCall call, bool auto, double range)
@@ -76,6 +92,7 @@ internal static class ConfigureCommands
     {
         var active = settings.Active;
         var step = (NplcSetting.Find(active.Nplc) ?? NplcSetting.Default).Step(active.Range);
-        return $"\"{SenseCommands.FunctionName(settings.Function, quoted: false)} {Nr3.Format(active.Range)},{Nr3.Format(step)}\"";
+        return $"\"{SenseCommands.FunctionName(settings.Function, quoted: false)} {Nr3.Format(active.Range)},"
+            + $"{Nr3.Format(step)}\"";
     }
 }

@@ -41,7 +41,8 @@ internal sealed class DeviceContext
         Status.Record(error);
     }
 
-    /// <summary>*RST: abort any acquisition and restore the default configuration (status and error queue stay).</summary>
+    /// <summary>*RST: abort any acquisition and restore the default configuration (status and error queue
+    /// stay).</summary>
     public void Reset()
     {
         Acquisition.Abort();

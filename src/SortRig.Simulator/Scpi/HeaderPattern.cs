@@ -11,9 +11,10 @@ internal sealed class HeaderPattern
     public HeaderPattern(string pattern)
     {
         Text = pattern;
-        _nodes = pattern.Split(':').Select(n => n.StartsWith('[')
-            ? (new Mnemonic(n.Trim('[', ']')), true)
-            : (new Mnemonic(n), false)).ToArray();
+        _nodes = pattern
+            .Split(':')
+            .Select(n => n.StartsWith('[') ? (new Mnemonic(n.Trim('[', ']')), true) : (new Mnemonic(n), false))
+            .ToArray();
     }
 
     public string Text { get; }

@@ -9,7 +9,8 @@ internal sealed record Mnemonic(string Long)
     public string Short { get; } = new(Long.TakeWhile(c => !char.IsLower(c)).ToArray());
 
     public bool Matches(string token) =>
-        token.Equals(Short, StringComparison.OrdinalIgnoreCase) || token.Equals(Long, StringComparison.OrdinalIgnoreCase);
+        token.Equals(Short, StringComparison.OrdinalIgnoreCase)
+        || token.Equals(Long, StringComparison.OrdinalIgnoreCase);
 
     public override string ToString() => Long;
 }

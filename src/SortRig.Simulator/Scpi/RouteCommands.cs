@@ -10,13 +10,14 @@ namespace SortRig.Simulator.Scpi;
 /// </summary>
 internal static class RouteCommands
 {
-    public static void Register(CommandTable table) => table
-        .Add("ROUTe:CLOSe", (c, _) => Done(() => Close(c)), 1, 1)
-        .Add("ROUTe:CLOSe?", (c, _) => Reply(Closed(c)), 0, 1)
-        .Add("ROUTe:OPEN", (c, _) => Done(() => Open(c)), 1, 1)
-        .Add("ROUTe:OPEN:ALL", (c, _) => Done(() => c.Device.State.ClosedChannel = null))
-        .Add("ROUTe:SCAN", (c, _) => Done(() => c.Device.State.ScanList = c.Channels(0)), 1, 1)
-        .Add("ROUTe:SCAN?", (c, _) => Reply(ChannelList.Format(c.Device.State.ScanList)));
+    public static void Register(CommandTable table) =>
+        table
+            .Add("ROUTe:CLOSe", (c, _) => Done(() => Close(c)), 1, 1)
+            .Add("ROUTe:CLOSe?", (c, _) => Reply(Closed(c)), 0, 1)
+            .Add("ROUTe:OPEN", (c, _) => Done(() => Open(c)), 1, 1)
+            .Add("ROUTe:OPEN:ALL", (c, _) => Done(() => c.Device.State.ClosedChannel = null))
+            .Add("ROUTe:SCAN", (c, _) => Done(() => c.Device.State.ScanList = c.Channels(0)), 1, 1)
+            .Add("ROUTe:SCAN?", (c, _) => Reply(ChannelList.Format(c.Device.State.ScanList)));
 
     private static void Close(ScpiCall call)
     {
@@ -38,7 +39,8 @@ internal static class RouteCommands
         }
     }
 
-    /// <summary>Without a list: the closed channel as a list, "(@)" when none. With a list: 1 or 0 per channel.</summary>
+    /// <summary>Without a list: the closed channel as a list, "(@)" when none. With a list: 1 or 0 per
+    /// channel.</summary>
     private static string Closed(ScpiCall call)
     {
         var closed = call.Device.State.ClosedChannel;

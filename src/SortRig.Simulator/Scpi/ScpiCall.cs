@@ -36,7 +36,8 @@ internal sealed class ScpiCall
     /// <summary>ON|OFF|1|0 (a number counts as true when it rounds to non-zero).</summary>
     public bool Boolean(int index) => ScpiParameters.Boolean(Parameters[index]);
 
-    /// <summary>The long form of whichever of <paramref name="mnemonics"/> the parameter matches; -224 otherwise.</summary>
+    /// <summary>The long form of whichever of <paramref name="mnemonics"/> the parameter matches; -224
+    /// otherwise.</summary>
     public string Keyword(int index, params string[] mnemonics) => ScpiParameters.Keyword(Parameters[index], mnemonics);
 
     /// <summary>A channel list whose channels all exist on the scanner; -222 otherwise.</summary>

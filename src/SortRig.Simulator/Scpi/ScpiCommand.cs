@@ -4,4 +4,10 @@ namespace SortRig.Simulator.Scpi;
 internal delegate ValueTask<string?> ScpiHandler(ScpiCall call, CancellationToken ct);
 
 /// <summary>One entry of the command tree: a header in command or query form and its parameter count.</summary>
-internal sealed record ScpiCommand(HeaderPattern Header, bool IsQuery, int MinParameters, int MaxParameters, ScpiHandler Handler);
+internal sealed record ScpiCommand(
+    HeaderPattern Header,
+    bool IsQuery,
+    int MinParameters,
+    int MaxParameters,
+    ScpiHandler Handler
+);

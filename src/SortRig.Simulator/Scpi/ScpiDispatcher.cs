@@ -42,7 +42,12 @@ internal sealed class ScpiDispatcher
         return replies.Count > 0 ? string.Join(';', replies) : null;
     }
 
-    private async Task<ScpiError?> ExecuteUnitAsync(string text, ScpiSession session, List<string> replies, CancellationToken ct)
+    private async Task<ScpiError?> ExecuteUnitAsync(
+        string text,
+        ScpiSession session,
+        List<string> replies,
+        CancellationToken ct
+    )
     {
         try
         {
@@ -89,7 +94,8 @@ internal sealed class ScpiDispatcher
         }
     }
 
-    /// <summary>Tries the header below the current path first, then from the root (lenient, like most meters).</summary>
+    /// <summary>Tries the header below the current path first, then from the root (lenient, like most
+    /// meters).</summary>
     private (ScpiCommand Command, IReadOnlyList<string> Tokens) Resolve(ProgramUnit unit, ScpiSession session)
     {
         ScpiError? firstError = null;
@@ -106,6 +112,8 @@ internal sealed class ScpiDispatcher
         var command = _table.Find(unit.Nodes, unit.IsQuery, out var error);
         return command is not null
             ? (command, unit.Nodes)
-            : throw new ScpiException((error == ScpiError.UndefinedHeader ? firstError : null) ?? error ?? ScpiError.UndefinedHeader);
+            : throw new ScpiException(
+                (error == ScpiError.UndefinedHeader ? firstError : null) ?? error ?? ScpiError.UndefinedHeader
+            );
     }
 }

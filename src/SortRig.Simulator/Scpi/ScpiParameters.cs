@@ -22,10 +22,13 @@ internal static partial class ScpiParameters
                 return value;
             }
 
-            return spec.Suffixes.TryGetValue(suffix, out var scale) ? value * scale : throw new ScpiException(ScpiError.InvalidSuffix);
+            return spec.Suffixes.TryGetValue(suffix, out var scale)
+                ? value * scale
+                : throw new ScpiException(ScpiError.InvalidSuffix);
         }
 
-        double? keyword = IsKeyword(text, "MINimum") ? spec.Min
+        double? keyword =
+            IsKeyword(text, "MINimum") ? spec.Min
             : IsKeyword(text, "MAXimum") ? spec.Max
             : IsKeyword(text, "DEFault") ? spec.Default
             : null;
@@ -56,7 +59,8 @@ internal static partial class ScpiParameters
             throw new ScpiException(ScpiError.DataType);
         }
 
-        return mnemonics.FirstOrDefault(m => IsKeyword(text, m)) ?? throw new ScpiException(ScpiError.IllegalParameterValue);
+        return mnemonics.FirstOrDefault(m => IsKeyword(text, m))
+            ?? throw new ScpiException(ScpiError.IllegalParameterValue);
     }
 
     public static bool IsKeyword(string text, string mnemonic) => new Mnemonic(mnemonic).Matches(text);

@@ -6,11 +6,17 @@ namespace SortRig.Simulator.Scpi;
 /// <summary>[SENSe:] subsystem: range, autorange, NPLC and autozero for RES and FRES (SCPI-99 vol. 2 ch. 18).</summary>
 internal static class SenseCommands
 {
-    public static readonly NumericParameter RangeParameter =
-        NumericParameter.Ohms(ResistanceRanges.Min, ResistanceRanges.Max, ResistanceRanges.Default);
+    public static readonly NumericParameter RangeParameter = NumericParameter.Ohms(
+        ResistanceRanges.Min,
+        ResistanceRanges.Max,
+        ResistanceRanges.Default
+    );
 
-    public static readonly NumericParameter NplcParameter =
-        NumericParameter.Unitless(NplcSetting.All[0].Nplc, NplcSetting.All[^1].Nplc, NplcSetting.Default.Nplc);
+    public static readonly NumericParameter NplcParameter = NumericParameter.Unitless(
+        NplcSetting.All[0].Nplc,
+        NplcSetting.All[^1].Nplc,
+        NplcSetting.Default.Nplc
+    );
 
     public static void Register(CommandTable table)
     {
@@ -19,7 +25,12 @@ internal static class SenseCommands
         table
             .Add("[SENSe]:FUNCtion", (c, _) => Done(() => SetFunction(c)), 1, 1)
             .Add("[SENSe]:FUNCtion?", (c, _) => Reply(FunctionName(c.Device.State.Settings.Function, quoted: true)))
-            .Add("[SENSe]:ZERO:AUTO", (c, _) => Done(() => c.Device.State.Update(s => s with { AutoZero = c.Boolean(0) })), 1, 1)
+            .Add(
+                "[SENSe]:ZERO:AUTO",
+                (c, _) => Done(() => c.Device.State.Update(s => s with { AutoZero = c.Boolean(0) })),
+                1,
+                1
+            )
             .Add("[SENSe]:ZERO:AUTO?", (c, _) => Reply(Nr3.Format(c.Device.State.Settings.AutoZero)));
     }
 
@@ -29,11 +40,14 @@ internal static class SenseCommands
         return quoted ? $"\"{name}\"" : name;
     }
 
-    /// <summary>RANGe &lt;value&gt;: the smallest range that covers the value; -222 above 50 MOhm or at or below 0.</summary>
+    /// <summary>RANGe &lt;value&gt;: the smallest range that covers the value; -222 above 50 MOhm or at or below
+    /// 0.</summary>
     public static double ParseRange(ScpiCall call, int index)
     {
         var value = call.Number(index, RangeParameter);
-        return value > 0 && ResistanceRanges.Covering(value) is double range ? range : throw new ScpiException(ScpiError.DataOutOfRange);
+        return value > 0 && ResistanceRanges.Covering(value) is double range
+            ? range
+            : throw new ScpiException(ScpiError.DataOutOfRange);
     }
 
     /// <summary>
@@ -55,16 +69,42 @@ internal static class SenseCommands
     {
         var prefix = $"[SENSe]:{node}";
         table
-            .Add($"{prefix}:RANGe", (c, _) => Done(() => Change(c, function, f => f with { Range = ParseRange(c, 0), AutoRange = false })), 1, 1)
-            .Add($"{prefix}:RANGe?", (c, _) => Reply(Nr3.Format(c.Has(0) ? ParseRange(c, 0) : Settings(c, function).Range)), 0, 1)
-            .Add($"{prefix}:RANGe:AUTO", (c, _) => Done(() => Change(c, function, f => f with { AutoRange = c.Boolean(0) })), 1, 1)
+            .Add(
+                $"{prefix}:RANGe",
+                (c, _) => Done(() => Change(c, function, f => f with { Range = ParseRange(c, 0), AutoRange = false })),
+                1,
+                1
+            )
+            .Add(
+                $"{prefix}:RANGe?",
+                (c, _) => Reply(Nr3.Format(c.Has(0) ? ParseRange(c, 0) : Settings(c, function).Range)),
+                0,
+                1
+            )
+            .Add(
+                $"{prefix}:RANGe:AUTO",
+                (c, _) => Done(() => Change(c, function, f => f with { AutoRange = c.Boolean(0) })),
+                1,
+                1
+            )
             .Add($"{prefix}:RANGe:AUTO?", (c, _) => Reply(Nr3.Format(Settings(c, function).AutoRange)))
-            .Add($"{prefix}:NPLCycles", (c, _) => Done(() => Change(c, function, f => f with { Nplc = ParseNplc(c, 0) })), 1, 1)
-            .Add($"{prefix}:NPLCycles?", (c, _) => Reply(Nr3.Format(c.Has(0) ? ParseNplc(c, 0) : Settings(c, function).Nplc)), 0, 1)
+            .Add(
+                $"{prefix}:NPLCycles",
+                (c, _) => Done(() => Change(c, function, f => f with { Nplc = ParseNplc(c, 0) })),
+                1,
+                1
+            )
+            .Add(
+                $"{prefix}:NPLCycles?",
+                (c, _) => Reply(Nr3.Format(c.Has(0) ? ParseNplc(c, 0) : Settings(c, function).Nplc)),
+                0,
+                1
+            )
             .Add($"{prefix}:RESolution?", (c, _) => Reply(Nr3.Format(Resolution(Settings(c, function)))));
     }
 
-    private static FunctionSettings Settings(ScpiCall call, MeterFunction function) => call.Device.State.Settings.For(function);
+    private static FunctionSettings Settings(ScpiCall call, MeterFunction function) =>
+        call.Device.State.Settings.For(function);
 
     private static double Resolution(FunctionSettings settings) =>
         (NplcSetting.Find(settings.Nplc) ?? NplcSetting.Default).Step(settings.Range);
@@ -79,9 +119,10 @@ internal static class SenseCommands
     private static void SetFunction(ScpiCall call)
     {
         var name = call.Parameters[0].Trim('"', '\'');
-        var function = ScpiParameters.Keyword(name, "RESistance", "FRESistance") == "RESistance"
-            ? MeterFunction.Resistance
-            : MeterFunction.FourWireResistance;
+        var function =
+            ScpiParameters.Keyword(name, "RESistance", "FRESistance") == "RESistance"
+                ? MeterFunction.Resistance
+                : MeterFunction.FourWireResistance;
         call.Device.State.Update(s => s with { Function = function });
     }
 }

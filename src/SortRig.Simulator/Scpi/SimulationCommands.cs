@@ -5,7 +5,8 @@ namespace SortRig.Simulator.Scpi;
 
 /// <summary>
 /// SIMulation: vendor-specific subsystem for tests only (never used by product logic): the
-/// fixture, the reel's hidden truth, the ranges' gain errors, the operator, the scanner's loading, the room and the clock.
+/// fixture, the reel's hidden truth, the ranges' gain errors, the operator, the scanner's loading, the room and the
+/// clock.
 /// </summary>
 internal static class SimulationCommands
 {
@@ -19,18 +20,35 @@ internal static class SimulationCommands
             .Add("SIMulation:FIXTure:STATe?", (c, _) => Reply(Nr3.Format(c.Device.Fixture.IsOccupied)))
             .Add("SIMulation:PART:INDex?", (c, _) => Reply(Nr3.Format(c.Device.Fixture.Occupant?.Index ?? -1)))
             .Add("SIMulation:PART:TRUE?", (c, _) => Reply(Nr3.Format(Truth(c))), 1, 1)
-            .Add("SIMulation:GAIN?", (c, _) => Reply(Nr3.Format(c.Device.Engine.Gains.ErrorPpm(c.Number(0, NumericParameter.Ohms(null, null, null))))), 1, 1)
+            .Add(
+                "SIMulation:GAIN?",
+                (c, _) =>
+                    Reply(
+                        Nr3.Format(c.Device.Engine.Gains.ErrorPpm(c.Number(0, NumericParameter.Ohms(null, null, null))))
+                    ),
+                1,
+                1
+            )
             .Add("SIMulation:GAIN:STEP", (c, _) => Done(() => StepGain(c)), 1, 2)
             .Add("SIMulation:GAIN:STEP?", (c, _) => Reply(Nr3.Format(c.Device.Engine.Gains.StepPpm)))
             .Add("SIMulation:REEL:COUNt?", (c, _) => Reply(Nr3.Format(c.Device.Reel.Count)))
             .Add("SIMulation:OPERator:ANNounce", (c, _) => Done(() => c.Device.Operator.OnPartAnnounced()))
-            .Add("SIMulation:OPERator:SKIP", (c, _) => Done(() => c.Device.Operator.SkipTo(c.Count(0, 0, c.Device.Reel.Count))), 1, 1)
+            .Add(
+                "SIMulation:OPERator:SKIP",
+                (c, _) => Done(() => c.Device.Operator.SkipTo(c.Count(0, 0, c.Device.Reel.Count))),
+                1,
+                1
+            )
             .Add("SIMulation:OPERator:NEXT?", (c, _) => Reply(Nr3.Format(c.Device.Operator.NextIndex)))
             .Add("SIMulation:OPERator:STATe?", (c, _) => Reply(c.Device.Operator.State.ToString().ToUpperInvariant()))
             .Add("SIMulation:SCANner:LOAD", (c, _) => Done(() => Load(c)), 2, 3)
             .Add("SIMulation:SCANner:UNLoad", (c, _) => Done(() => c.Device.Scanner.Unload(PartChannel(c))), 1, 1)
-            .Add("SIMulation:AMBient?", (c, _) => Reply(Nr3.Format(c.Device.Environment.AmbientAt(c.Device.Environment.Now))))
-            .Add("SIMulation:TIME?", (c, _) => Reply(Nr3.Format((c.Device.Environment.Now - c.Device.Environment.Epoch).TotalSeconds)));
+            .Add("SIMulation:AMBient?", (c, _) =>
+                Reply(Nr3.Format(c.Device.Environment.AmbientAt(c.Device.Environment.Now)))
+            )
+            .Add("SIMulation:TIME?", (c, _) =>
+                Reply(Nr3.Format((c.Device.Environment.Now - c.Device.Environment.Epoch).TotalSeconds))
+            );
         FaultCommands.Register(table);
     }
 
@@ -42,7 +60,8 @@ internal static class SimulationCommands
         call.Device.Engine.Gains.StepGain(ppm, after);
     }
 
-    /// <summary>INSert [&lt;reel index&gt;[,&lt;warm K&gt;]]: without an index, the operator's next part (manual step).</summary>
+    /// <summary>INSert [&lt;reel index&gt;[,&lt;warm K&gt;]]: without an index, the operator's next part (manual
+    /// step).</summary>
     private static void Insert(ScpiCall call)
     {
         var device = call.Device;

@@ -6,18 +6,30 @@ namespace SortRig.Simulator.Scpi;
 /// <summary>TRIGger, SAMPle, INITiate, ABORt, FETCh? and READ? (SCPI-99 vol. 2 ch. 22 and 3).</summary>
 internal static class TriggerCommands
 {
-
-    public static void Register(CommandTable table) => table
-        .Add("TRIGger:SOURce", (c, _) => Done(() => SetSource(c)), 1, 1)
-        .Add("TRIGger:SOURce?", (c, _) => Reply(c.Device.State.Settings.TriggerSource == TriggerSource.Bus ? "BUS" : "IMM"))
-        .Add("TRIGger:COUNt", (c, _) => Done(() => SetCount(c, MeterSettings.MaxTriggerCount, (s, n) => s with { TriggerCount = n })), 1, 1)
-        .Add("TRIGger:COUNt?", (c, _) => Reply(Nr3.Format((double)c.Device.State.Settings.TriggerCount)))
-        .Add("SAMPle:COUNt", (c, _) => Done(() => SetCount(c, MeterSettings.MaxSampleCount, (s, n) => s with { SampleCount = n })), 1, 1)
-        .Add("SAMPle:COUNt?", (c, _) => Reply(Nr3.Format((double)c.Device.State.Settings.SampleCount)))
-        .Add("INITiate:[IMMediate]", (c, _) => Done(() => Fail(c.Device.Acquisition.Start(c.Device.Lifetime))))
-        .Add("ABORt", (c, _) => Done(c.Device.Acquisition.Abort))
-        .Add("FETCh?", (c, ct) => new ValueTask<string?>(FetchAsync(c, ct)))
-        .Add("READ?", (c, ct) => new ValueTask<string?>(ReadAsync(c, ct)));
+    public static void Register(CommandTable table) =>
+        table
+            .Add("TRIGger:SOURce", (c, _) => Done(() => SetSource(c)), 1, 1)
+            .Add("TRIGger:SOURce?", (c, _) =>
+                Reply(c.Device.State.Settings.TriggerSource == TriggerSource.Bus ? "BUS" : "IMM")
+            )
+            .Add(
+                "TRIGger:COUNt",
+                (c, _) => Done(() => SetCount(c, MeterSettings.MaxTriggerCount, (s, n) => s with { TriggerCount = n })),
+                1,
+                1
+            )
+            .Add("TRIGger:COUNt?", (c, _) => Reply(Nr3.Format((double)c.Device.State.Settings.TriggerCount)))
+            .Add(
+                "SAMPle:COUNt",
+                (c, _) => Done(() => SetCount(c, MeterSettings.MaxSampleCount, (s, n) => s with { SampleCount = n })),
+                1,
+                1
+            )
+            .Add("SAMPle:COUNt?", (c, _) => Reply(Nr3.Format((double)c.Device.State.Settings.SampleCount)))
+            .Add("INITiate:[IMMediate]", (c, _) => Done(() => Fail(c.Device.Acquisition.Start(c.Device.Lifetime))))
+            .Add("ABORt", (c, _) => Done(c.Device.Acquisition.Abort))
+            .Add("FETCh?", (c, ct) => new ValueTask<string?>(FetchAsync(c, ct)))
+            .Add("READ?", (c, ct) => new ValueTask<string?>(ReadAsync(c, ct)));
 
     /// <summary>READ? = INITiate + FETCh?; -213 while a run is in progress, -214 with the bus trigger source.</summary>
     public static async Task<string?> ReadAsync(ScpiCall call, CancellationToken ct)

@@ -23,13 +23,21 @@ internal sealed class ConnectionLoop
     private readonly ScpiSession _session = new();
     private DateTimeOffset _silentUntil = DateTimeOffset.MinValue;
 
-    public ConnectionLoop(ScpiDevice device, Stream stream, string name, bool serial, TimeProvider time, ILogger logger) =>
-        (_device, _stream, _name, _serial, _time, _logger) = (device, stream, name, serial, time, logger);
+    public ConnectionLoop(
+        ScpiDevice device,
+        Stream stream,
+        string name,
+        bool serial,
+        TimeProvider time,
+        ILogger logger
+    ) => (_device, _stream, _name, _serial, _time, _logger) = (device, stream, name, serial, time, logger);
 
     /// <summary>Runs until end of input, a dropped connection (TCP) or cancellation.</summary>
     public async Task RunAsync(CancellationToken ct)
     {
-        var inbox = Channel.CreateUnbounded<Inbound>(new UnboundedChannelOptions { SingleReader = true, SingleWriter = true });
+        var inbox = Channel.CreateUnbounded<Inbound>(
+            new UnboundedChannelOptions { SingleReader = true, SingleWriter = true }
+        );
         using var linked = CancellationTokenSource.CreateLinkedTokenSource(ct);
         var pump = PumpAsync(inbox.Writer, linked.Token);
         try
@@ -92,7 +100,9 @@ internal sealed class ConnectionLoop
         }
 
         _logger.Received(_name, item.Text);
-        var reply = await _device.ExecuteAsync(item.Text, _session, k => _logger.FaultInjected(k, _name), ct).ConfigureAwait(false);
+        var reply = await _device
+            .ExecuteAsync(item.Text, _session, k => _logger.FaultInjected(k, _name), ct)
+            .ConfigureAwait(false);
         if (reply is null)
         {
             return true;

@@ -2,7 +2,8 @@ using System.Text;
 
 namespace SortRig.Simulator.Serving;
 
-/// <summary>What arrived on the wire: a whole line, an over-long line, or an unterminated tail at end of input.</summary>
+/// <summary>What arrived on the wire: a whole line, an over-long line, or an unterminated tail at end of
+/// input.</summary>
 internal enum InboundKind
 {
     Line = 0,
@@ -12,7 +13,8 @@ internal enum InboundKind
 
 internal readonly record struct Inbound(InboundKind Kind, string Text);
 
-/// <summary>Splits a byte stream into lines at LF (a preceding CR is dropped). Lines over <see cref="MaxLine"/> bytes are reported as overruns.</summary>
+/// <summary>Splits a byte stream into lines at LF (a preceding CR is dropped). Lines over <see cref="MaxLine"/> bytes
+/// are reported as overruns.</summary>
 internal sealed class LineReader
 {
     public const int MaxLine = 4096;
@@ -36,7 +38,9 @@ internal sealed class LineReader
                 var b = _buffer[_offset++];
                 if (b == (byte)'\n')
                 {
-                    var item = _overrun ? new Inbound(InboundKind.Overrun, string.Empty) : new Inbound(InboundKind.Line, Text());
+                    var item = _overrun
+                        ? new Inbound(InboundKind.Overrun, string.Empty)
+                        : new Inbound(InboundKind.Line, Text());
                     _overrun = false;
                     _line.Clear();
                     return item;

@@ -24,7 +24,12 @@ internal sealed class ScpiDevice : IDisposable
     public FaultInjector Faults => Context.Faults;
 
     /// <summary>Runs one program message; returns the reply line body, or null when it has no reply.</summary>
-    public async Task<string?> ExecuteAsync(string message, ScpiSession session, Action<FaultKind>? onFault, CancellationToken ct)
+    public async Task<string?> ExecuteAsync(
+        string message,
+        ScpiSession session,
+        Action<FaultKind>? onFault,
+        CancellationToken ct
+    )
     {
         await _gate.WaitAsync(ct).ConfigureAwait(false);
         try

@@ -14,7 +14,14 @@ internal sealed class SerialScpiServer : IAsyncDisposable
     private readonly Task _serving;
     private readonly ILogger _logger;
 
-    private SerialScpiServer(ScpiDevice device, string path, int baud, TimeProvider time, ILogger logger, CancellationToken lifetime)
+    private SerialScpiServer(
+        ScpiDevice device,
+        string path,
+        int baud,
+        TimeProvider time,
+        ILogger logger,
+        CancellationToken lifetime
+    )
     {
         _logger = logger;
         _port = new SerialPort(path, baud, Parity.None, 8, StopBits.One) { Handshake = Handshake.None };
@@ -28,8 +35,14 @@ internal sealed class SerialScpiServer : IAsyncDisposable
 
     public string Path { get; }
 
-    public static SerialScpiServer Start(ScpiDevice device, string path, int baud, TimeProvider time, ILogger logger, CancellationToken lifetime) =>
-        new(device, path, baud, time, logger, lifetime);
+    public static SerialScpiServer Start(
+        ScpiDevice device,
+        string path,
+        int baud,
+        TimeProvider time,
+        ILogger logger,
+        CancellationToken lifetime
+    ) => new(device, path, baud, time, logger, lifetime);
 
     public async ValueTask DisposeAsync()
     {

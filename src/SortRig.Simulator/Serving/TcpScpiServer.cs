@@ -34,8 +34,13 @@ internal sealed class TcpScpiServer : IAsyncDisposable
     /// <summary>The bound address and port (the real port when 0 was asked for).</summary>
     public IPEndPoint Endpoint { get; }
 
-    public static TcpScpiServer Start(ScpiDevice device, int port, TimeProvider time, ILogger logger, CancellationToken lifetime) =>
-        new(device, port, time, logger, lifetime);
+    public static TcpScpiServer Start(
+        ScpiDevice device,
+        int port,
+        TimeProvider time,
+        ILogger logger,
+        CancellationToken lifetime
+    ) => new(device, port, time, logger, lifetime);
 
     public async ValueTask DisposeAsync()
     {

@@ -11,7 +11,8 @@ public sealed record BatchInfo(
     long SessionId,
     DateTimeOffset StartedAt,
     BatchSetup Setup,
-    RangeTransferCorrection? RangeTransfer);
+    RangeTransferCorrection? RangeTransfer
+);
 
 /// <summary>The measurement setup of a batch. Checked by <see cref="ISessionLog.StartBatchAsync"/>.</summary>
 /// <param name="Nominal">Nominal value, ohms, &gt; 0.</param>
@@ -32,7 +33,8 @@ public sealed record BatchSetup(
     bool FourWire,
     string MeterFamily,
     string MeterIdentity,
-    string? RecipeName = null);
+    string? RecipeName = null
+);
 
 /// <summary>
 /// A range-transfer correction: the ratio error between two meter ranges, measured with one part read on
@@ -48,4 +50,5 @@ public sealed record RangeTransferCorrection(
     double ToRange,
     double CorrectionPpm,
     double StandardUncertaintyPpm,
-    DateTimeOffset MeasuredAt);
+    DateTimeOffset MeasuredAt
+);

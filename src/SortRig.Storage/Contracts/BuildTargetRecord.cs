@@ -6,4 +6,10 @@ namespace SortRig.Storage.Contracts;
 /// <param name="RecipeYaml">The recipe's text as it was read, non-empty.</param>
 /// <param name="Sets">Sets wanted, 1 to 64.</param>
 /// <param name="CsvPath">Where the pick list is exported, or null.</param>
-public sealed record BuildTargetRecord(string RecipeName, string RecipePath, string RecipeYaml, int Sets, string? CsvPath);
+public sealed record BuildTargetRecord(
+    string RecipeName,
+    string RecipePath,
+    string RecipeYaml,
+    int Sets,
+    string? CsvPath
+);

@@ -16,11 +16,24 @@ namespace SortRig.Storage.Contracts;
 /// <param name="Rule">The rule that fired ("None" when in control); non-empty.</param>
 /// <param name="Reason">Plain words when out of control.</param>
 /// <param name="ScaleFactor">The factor the session multiplied the meter's values by when the check was read (1 until
-/// the session re-referenced to the check after a shift); &gt; 0. The chart judges <c>ValueOhms · ScaleFactor</c>.</param>
+/// the session re-referenced to the check after a shift); &gt; 0. The chart judges <c>ValueOhms ·
+/// ScaleFactor</c>.</param>
 public sealed record CheckCommit(
-    Guid CommitKey, long SessionId, string CheckName, DateTimeOffset At, double ValueOhms, double RangeOhms,
-    double UStandardOhms, double? CalibratedOhms, double? CentreOhms, double? SigmaOhms, bool InControl, string Rule,
-    string? Reason, double ScaleFactor = 1)
+    Guid CommitKey,
+    long SessionId,
+    string CheckName,
+    DateTimeOffset At,
+    double ValueOhms,
+    double RangeOhms,
+    double UStandardOhms,
+    double? CalibratedOhms,
+    double? CentreOhms,
+    double? SigmaOhms,
+    bool InControl,
+    string Rule,
+    string? Reason,
+    double ScaleFactor = 1
+)
 {
     /// <summary>The value on the session's reference scale, ohms: <c>ValueOhms · ScaleFactor</c>.</summary>
     public double ScaledOhms => ValueOhms * ScaleFactor;

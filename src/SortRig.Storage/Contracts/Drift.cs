@@ -5,7 +5,12 @@ namespace SortRig.Storage.Contracts;
 /// <param name="Channels">Channels logged, numbered 0..n-1 in this order; at least one.</param>
 /// <param name="Interval">Intended sampling interval, &gt; 0.</param>
 /// <param name="Notes">Free text, optional.</param>
-public sealed record DriftRunRequest(string Name, IReadOnlyList<DriftChannel> Channels, TimeSpan Interval, string? Notes = null);
+public sealed record DriftRunRequest(
+    string Name,
+    IReadOnlyList<DriftChannel> Channels,
+    TimeSpan Interval,
+    string? Notes = null
+);
 
 /// <summary>One logged channel.</summary>
 /// <param name="Label">Channel label (e.g. the scanner position), non-empty.</param>
@@ -19,15 +24,29 @@ public sealed record DriftChannel(string Label, long? PartId = null);
 /// <param name="Interval">Intended sampling interval (microsecond resolution).</param>
 /// <param name="Channels">Channels by number.</param>
 /// <param name="Notes">Free text.</param>
-public sealed record DriftRun(long Id, string Name, DateTimeOffset StartedAt, TimeSpan Interval, IReadOnlyList<DriftChannel> Channels, string? Notes);
+public sealed record DriftRun(
+    long Id,
+    string Name,
+    DateTimeOffset StartedAt,
+    TimeSpan Interval,
+    IReadOnlyList<DriftChannel> Channels,
+    string? Notes
+);
 
-/// <summary>One drift sample. A sample with the same run, channel and time as a stored one is ignored on append.</summary>
+/// <summary>One drift sample. A sample with the same run, channel and time as a stored one is ignored on
+/// append.</summary>
 /// <param name="RunId">Drift run.</param>
 /// <param name="Channel">Channel number, 0..channels-1.</param>
 /// <param name="Time">When it was taken (UTC, microsecond resolution).</param>
 /// <param name="Ohms">Value, ohms.</param>
 /// <param name="Temperature">degC, optional.</param>
-public readonly record struct StoredDriftSample(long RunId, int Channel, DateTimeOffset Time, double Ohms, double? Temperature);
+public readonly record struct StoredDriftSample(
+    long RunId,
+    int Channel,
+    DateTimeOffset Time,
+    double Ohms,
+    double? Temperature
+);
 
 /// <summary>A stretch of a drift run with no valid samples.</summary>
 /// <param name="RunId">Drift run.</param>

@@ -19,12 +19,16 @@ public interface ICheckLog
     /// <summary>The readings of one check part across all sessions, oldest first; at most <paramref name="limit"/> of
     /// the newest (1 to 100 000).</summary>
     Task<IReadOnlyList<CheckRecord>> GetCheckHistoryAsync(
-        string checkName, int limit, CancellationToken cancellationToken);
+        string checkName,
+        int limit,
+        CancellationToken cancellationToken
+    );
 
     /// <summary>Part ids of the session that are flagged and still live (suspect until measured again), by part
     /// number.</summary>
     Task<IReadOnlyList<long>> GetSuspectPartsAsync(long sessionId, CancellationToken cancellationToken);
 
-    /// <summary>Part ids of the session ever flagged by a check (live or since measured again), by part number.</summary>
+    /// <summary>Part ids of the session ever flagged by a check (live or since measured again), by part
+    /// number.</summary>
     Task<IReadOnlyList<long>> GetFlaggedPartsAsync(long sessionId, CancellationToken cancellationToken);
 }

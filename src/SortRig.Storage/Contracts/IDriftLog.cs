@@ -1,6 +1,7 @@
 namespace SortRig.Storage.Contracts;
 
-/// <summary>Drift logging: runs, samples, gaps, and which runs each library part was logged in. One role of <see cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
+/// <summary>Drift logging: runs, samples, gaps, and which runs each library part was logged in. One role of <see
+/// cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
 public interface IDriftLog
 {
     /// <summary>Starts a drift run.</summary>
@@ -23,9 +24,13 @@ public interface IDriftLog
     /// The drift runs each library part was logged in (one row per run and channel the part sat on), ordered by part
     /// id, then run start, run id and channel. Parts never put on a drift channel have no rows.
     /// </summary>
-    /// <param name="partIds">Parts to look up (any number, ids &gt; 0); null for every part on any drift channel.</param>
+    /// <param name="partIds">Parts to look up (any number, ids &gt; 0); null for every part on any drift
+    /// channel.</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
-    Task<IReadOnlyList<PartDriftRun>> GetPartDriftRunsAsync(IReadOnlyList<long>? partIds, CancellationToken cancellationToken);
+    Task<IReadOnlyList<PartDriftRun>> GetPartDriftRunsAsync(
+        IReadOnlyList<long>? partIds,
+        CancellationToken cancellationToken
+    );
 
     /// <summary>Gaps of a run ordered by start.</summary>
     Task<IReadOnlyList<DriftGap>> GetDriftGapsAsync(long runId, CancellationToken cancellationToken);

@@ -1,6 +1,7 @@
 namespace SortRig.Storage.Contracts;
 
-/// <summary>The calibrated part library: find, take, release, mark used, retire and locate parts. One role of <see cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
+/// <summary>The calibrated part library: find, take, release, mark used, retire and locate parts. One role of <see
+/// cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
 public interface IPartLibrary
 {
     /// <summary>Searches the library.</summary>
@@ -8,7 +9,11 @@ public interface IPartLibrary
 
     /// <summary>Takes parts from the library: all of them (Available and live) or none. A part is never taken twice,
     /// even by two benches at once.</summary>
-    Task<LibraryResult> TakePartsAsync(IReadOnlyList<long> partIds, string takenBy, CancellationToken cancellationToken);
+    Task<LibraryResult> TakePartsAsync(
+        IReadOnlyList<long> partIds,
+        string takenBy,
+        CancellationToken cancellationToken
+    );
 
     /// <summary>Gives taken parts back (Taken becomes Available); all or none.</summary>
     Task<LibraryResult> ReleasePartsAsync(IReadOnlyList<long> partIds, CancellationToken cancellationToken);

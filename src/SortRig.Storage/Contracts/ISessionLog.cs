@@ -1,24 +1,32 @@
 namespace SortRig.Storage.Contracts;
 
-/// <summary>Recording a sorting session: sessions, batches, range transfers, parts committed, announced and undone. One role of <see cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
+/// <summary>Recording a sorting session: sessions, batches, range transfers, parts committed, announced and undone. One
+/// role of <see cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
 public interface ISessionLog
 {
-    /// <summary>Resumes the latest unfinished session with the request's name (unless told not to) or starts a new one.</summary>
+    /// <summary>Resumes the latest unfinished session with the request's name (unless told not to) or starts a new
+    /// one.</summary>
     Task<SessionState> OpenOrResumeSessionAsync(SessionRequest request, CancellationToken cancellationToken);
 
     /// <summary>Starts a batch in an open session.</summary>
     Task<BatchInfo> StartBatchAsync(long sessionId, BatchSetup setup, CancellationToken cancellationToken);
 
     /// <summary>Records (or replaces) the range-transfer correction of a batch.</summary>
-    Task<BatchInfo> RecordRangeTransferAsync(long batchId, RangeTransferCorrection correction, CancellationToken cancellationToken);
+    Task<BatchInfo> RecordRangeTransferAsync(
+        long batchId,
+        RangeTransferCorrection correction,
+        CancellationToken cancellationToken
+    );
 
-    /// <summary>Writes the part and all its readings in one transaction, allocating the next part number; idempotent by commit key.</summary>
+    /// <summary>Writes the part and all its readings in one transaction, allocating the next part number; idempotent by
+    /// commit key.</summary>
     Task<PartRecord> CommitPartAsync(PartCommit commit, CancellationToken cancellationToken);
 
     /// <summary>Marks a part as announced to the operator (state Accepted becomes Announced). Idempotent.</summary>
     Task<PartRecord> MarkAnnouncedAsync(long partId, CancellationToken cancellationToken);
 
-    /// <summary>Applies an operator correction (undo, cup correction, remeasure, removed early), keeping history.</summary>
+    /// <summary>Applies an operator correction (undo, cup correction, remeasure, removed early), keeping
+    /// history.</summary>
     Task<PartRecord> UndoPartAsync(PartCorrection correction, CancellationToken cancellationToken);
 
     /// <summary>Records (or replaces) the build a session sorts toward (schema version 4).</summary>

@@ -1,6 +1,7 @@
 namespace SortRig.Storage.Contracts;
 
-/// <summary>Reading sessions back: sessions, batches, parts, raw readings, cup counts and part histories. One role of <see cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
+/// <summary>Reading sessions back: sessions, batches, parts, raw readings, cup counts and part histories. One role of
+/// <see cref="IPrecisionLog"/>; the same transaction, fault and argument rules.</summary>
 public interface ISessionReader
 {
     /// <summary>All sessions, newest first.</summary>

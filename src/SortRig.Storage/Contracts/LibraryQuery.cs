@@ -4,7 +4,8 @@ namespace SortRig.Storage.Contracts;
 /// A library search. Only live parts (Accepted/Announced) are found. Every filter is optional; results are
 /// ordered by deviation, then id.
 /// </summary>
-/// <param name="Nominal">Nominal value, ohms; matches parts whose nominal is within 1e-9 relative; null for any.</param>
+/// <param name="Nominal">Nominal value, ohms; matches parts whose nominal is within 1e-9 relative; null for
+/// any.</param>
 /// <param name="MinDeviationPpm">Lowest deviation from nominal, ppm (inclusive); null for no bound.</param>
 /// <param name="MaxDeviationPpm">Highest deviation from nominal, ppm (inclusive); null for no bound.</param>
 /// <param name="Status">Library status; default Available; null for any.</param>
@@ -16,7 +17,8 @@ public sealed record LibraryQuery(
     double? MaxDeviationPpm = null,
     LibraryStatus? Status = LibraryStatus.Available,
     string? Location = null,
-    int Limit = 1000);
+    int Limit = 1000
+);
 
 /// <summary>
 /// Verdict of an all-or-none library change (take, release, use, retire).

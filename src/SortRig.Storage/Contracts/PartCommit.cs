@@ -12,7 +12,8 @@ namespace SortRig.Storage.Contracts;
 /// same key again returns the part stored the first time and writes nothing.</param>
 /// <param name="SessionId">Open (unfinished) session.</param>
 /// <param name="BatchId">Batch of that session.</param>
-/// <param name="Measured">Accepted value and uncertainties, ohms; value and uncertainties finite, uncertainties &gt;= 0.</param>
+/// <param name="Measured">Accepted value and uncertainties, ohms; value and uncertainties finite, uncertainties &gt;=
+/// 0.</param>
 /// <param name="Range">Range full scale, ohms, &gt; 0.</param>
 /// <param name="Nplc">Integration time, power-line cycles, &gt; 0.</param>
 /// <param name="Temperature">degC, optional.</param>
@@ -21,9 +22,10 @@ namespace SortRig.Storage.Contracts;
 /// <param name="SlotLabel">Slot label, optional.</param>
 /// <param name="Readings">Raw readings in the order taken; may be empty; stored with their order.</param>
 /// <param name="State">Accepted (default) or Unstable; other states come from corrections.</param>
-/// <param name="AcceptedBy">The settle rule that accepted the part; null for an unstable part (or when not known).</param>
-/// <param name="Fit">The recovery fit when <paramref name="AcceptedBy"/> is Predictive (values on the meter's own scale,
-/// before any range transfer); null otherwise. Its figures must be finite and its uncertainties &gt;= 0.</param>
+/// <param name="AcceptedBy">The settle rule that accepted the part; null for an unstable part (or when not
+/// known).</param>
+/// <param name="Fit">The recovery fit when <paramref name="AcceptedBy"/> is Predictive (values on the meter's own
+/// scale, before any range transfer); null otherwise. Its figures must be finite and its uncertainties &gt;= 0.</param>
 public sealed record PartCommit(
     Guid CommitKey,
     long SessionId,
@@ -38,7 +40,8 @@ public sealed record PartCommit(
     IReadOnlyList<Reading> Readings,
     PartState State = PartState.Accepted,
     SettleRule? AcceptedBy = null,
-    RecoveryFit? Fit = null);
+    RecoveryFit? Fit = null
+);
 
 /// <summary>A raw meter reading stored with its part.</summary>
 /// <param name="PartId">Owning part.</param>
@@ -47,4 +50,11 @@ public sealed record PartCommit(
 /// <param name="Value">Ohms; +infinity for an overload.</param>
 /// <param name="Range">Range full scale, ohms.</param>
 /// <param name="Kind">Finite or overload.</param>
-public sealed record RawReading(long PartId, int Sequence, DateTimeOffset Time, double Value, double Range, ReadingKind Kind);
+public sealed record RawReading(
+    long PartId,
+    int Sequence,
+    DateTimeOffset Time,
+    double Value,
+    double Range,
+    ReadingKind Kind
+);

@@ -21,7 +21,12 @@ public enum PartCorrectionKind
 /// <param name="Kind">What to do.</param>
 /// <param name="NewCupLabel">Required for MoveToCup (non-empty), ignored otherwise.</param>
 /// <param name="Note">Why, optional.</param>
-public sealed record PartCorrection(long PartId, PartCorrectionKind Kind, string? NewCupLabel = null, string? Note = null);
+public sealed record PartCorrection(
+    long PartId,
+    PartCorrectionKind Kind,
+    string? NewCupLabel = null,
+    string? Note = null
+);
 
 /// <summary>Kind of a part history entry.</summary>
 public enum PartEventKind
@@ -59,8 +64,18 @@ public enum PartEventKind
 /// <param name="PartId">The part.</param>
 /// <param name="At">When (UTC, from the log's TimeProvider).</param>
 /// <param name="Kind">What happened.</param>
-/// <param name="Before">State, cup label, library status and location before, as text (e.g. "Accepted"); null when unchanged.</param>
+/// <param name="Before">State, cup label, library status and location before, as text (e.g. "Accepted"); null when
+/// unchanged.</param>
 /// <param name="After">The same after.</param>
 /// <param name="Actor">Who, when known (the taker for library moves).</param>
 /// <param name="Note">Free text, optional.</param>
-public sealed record PartEvent(long Id, long PartId, DateTimeOffset At, PartEventKind Kind, string? Before, string? After, string? Actor, string? Note);
+public sealed record PartEvent(
+    long Id,
+    long PartId,
+    DateTimeOffset At,
+    PartEventKind Kind,
+    string? Before,
+    string? After,
+    string? Actor,
+    string? Note
+);

@@ -25,7 +25,8 @@ namespace SortRig.Storage.Contracts;
 /// <param name="AcceptedBy">The settle rule that accepted the part; null for unstable parts and parts logged before
 /// schema version 3.</param>
 /// <param name="Fit">The predictive rule's recovery fit when <paramref name="AcceptedBy"/> is Predictive (meter scale,
-/// before any range transfer); null otherwise. <see cref="RecoveryFit.RunsZ"/> reads back NaN when it was not finite.</param>
+/// before any range transfer); null otherwise. <see cref="RecoveryFit.RunsZ"/> reads back NaN when it was not
+/// finite.</param>
 public sealed record PartRecord(
     long Id,
     Guid CommitKey,
@@ -46,7 +47,8 @@ public sealed record PartRecord(
     LibraryStatus LibraryStatus,
     string? TakenBy,
     SettleRule? AcceptedBy = null,
-    RecoveryFit? Fit = null)
+    RecoveryFit? Fit = null
+)
 {
     /// <summary>Accepted value, ohms.</summary>
     public double Value => Measured.Value;

@@ -18,7 +18,8 @@ public enum PartState
     /// <summary>Superseded by a later measurement of the same physical part.</summary>
     Remeasured = 4,
 
-    /// <summary>Taken out of its cup before the session finished; kept for history, no longer counted in the cup.</summary>
+    /// <summary>Taken out of its cup before the session finished; kept for history, no longer counted in the
+    /// cup.</summary>
     RemovedEarly = 5,
 }
 

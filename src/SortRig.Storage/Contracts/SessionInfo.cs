@@ -2,7 +2,8 @@ namespace SortRig.Storage.Contracts;
 
 /// <summary>A sorting session: one sitting at the bench, possibly spanning several batches.</summary>
 /// <param name="Id">Database id, &gt; 0.</param>
-/// <param name="Name">Session name chosen by the operator; resume looks for the latest unfinished session with this name.</param>
+/// <param name="Name">Session name chosen by the operator; resume looks for the latest unfinished session with this
+/// name.</param>
 /// <param name="Operator">Who runs the bench; null when not given.</param>
 /// <param name="Notes">Free text; null when not given.</param>
 /// <param name="StartedAt">When the session was created (UTC, microsecond resolution).</param>
@@ -13,7 +14,8 @@ public sealed record SessionInfo(
     string? Operator,
     string? Notes,
     DateTimeOffset StartedAt,
-    DateTimeOffset? FinishedAt)
+    DateTimeOffset? FinishedAt
+)
 {
     /// <summary>True once the session has been finished; a finished session is never resumed.</summary>
     public bool IsFinished => FinishedAt is not null;
@@ -33,4 +35,5 @@ public sealed record SessionRequest(
     string? Operator = null,
     string? Notes = null,
     bool ResumeUnfinished = true,
-    bool ReopenFinished = false);
+    bool ReopenFinished = false
+);

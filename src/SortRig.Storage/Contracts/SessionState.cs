@@ -16,7 +16,8 @@ public sealed record SessionState(
     int NextPartNumber,
     IReadOnlyList<CupTally> CupCounts,
     IReadOnlyList<PartRecord> Unannounced,
-    IReadOnlyList<BatchInfo> Batches)
+    IReadOnlyList<BatchInfo> Batches
+)
 {
     /// <summary>The batch in progress, or null when the session has none yet.</summary>
     public BatchInfo? CurrentBatch => Batches.Count == 0 ? null : Batches[^1];

@@ -19,27 +19,57 @@ internal abstract partial class AdoPrecisionLog
         }
 
         const string operation = "record build target";
-        return WriteAsync(operation, async (s, ct) =>
-        {
-            _ = await GetSessionCoreAsync(s, sessionId, ct).ConfigureAwait(false) ?? throw NotFound(operation, $"Session {sessionId}");
-            return await s.Sql(
-                    "INSERT INTO build_targets (session_id, recipe_name, recipe_path, recipe_yaml, sets, csv_path, set_at) " +
-                    "VALUES (@session, @name, @path, @yaml, @sets, @csv, @at) ON CONFLICT (session_id) DO UPDATE SET " +
-                    "recipe_name = excluded.recipe_name, recipe_path = excluded.recipe_path, recipe_yaml = excluded.recipe_yaml, " +
-                    "sets = excluded.sets, csv_path = excluded.csv_path, set_at = excluded.set_at")
-                .With("session", sessionId).With("name", target.RecipeName).With("path", target.RecipePath).With("yaml", target.RecipeYaml)
-                .With("sets", target.Sets).With("csv", target.CsvPath).With("at", TimeValue(Time.GetUtcNow()))
-                .ExecuteAsync(ct).ConfigureAwait(false);
-        }, cancellationToken);
+        return WriteAsync(
+            operation,
+            async (s, ct) =>
+            {
+                _ = await GetSessionCoreAsync(s, sessionId, ct).ConfigureAwait(false)
+                    ?? throw NotFound(operation, $"Session {sessionId}");
+                return await s.Sql(
+                        "INSERT INTO build_targets (session_id, recipe_name, recipe_path, recipe_yaml, sets, "
+                            + "csv_path, set_at) "
+                            + "VALUES (@session, @name, @path, @yaml, @sets, @csv, @at) ON CONFLICT (session_id) DO "
+                            + "UPDATE SET "
+                            + "recipe_name = excluded.recipe_name, recipe_path = excluded.recipe_path, recipe_yaml = "
+                            + "excluded.recipe_yaml, "
+                            + "sets = excluded.sets, csv_path = excluded.csv_path, set_at = excluded.set_at"
+                    )
+                    .With("session", sessionId)
+                    .With("name", target.RecipeName)
+                    .With("path", target.RecipePath)
+                    .With("yaml", target.RecipeYaml)
+                    .With("sets", target.Sets)
+                    .With("csv", target.CsvPath)
+                    .With("at", TimeValue(Time.GetUtcNow()))
+                    .ExecuteAsync(ct)
+                    .ConfigureAwait(false);
+            },
+            cancellationToken
+        );
     }
 
     public Task<BuildTargetRecord?> GetBuildTargetAsync(long sessionId, CancellationToken cancellationToken)
     {
         Guard.Id(sessionId, nameof(sessionId));
-        return ReadAsync("read build target", (s, ct) =>
-            s.Sql("SELECT recipe_name, recipe_path, recipe_yaml, sets, csv_path FROM build_targets WHERE session_id = @session")
-                .With("session", sessionId)
-                .FirstOrDefaultAsync(r => new BuildTargetRecord(r.GetString(0), r.GetString(1), r.GetString(2), r.GetInt32(3), ReadText(r, 4)), ct),
-            cancellationToken);
+        return ReadAsync(
+            "read build target",
+            (s, ct) =>
+                s.Sql(
+                        "SELECT recipe_name, recipe_path, recipe_yaml, sets, csv_path FROM build_targets WHERE "
+                            + "session_id = @session"
+                    )
+                    .With("session", sessionId)
+                    .FirstOrDefaultAsync(
+                        r => new BuildTargetRecord(
+                            r.GetString(0),
+                            r.GetString(1),
+                            r.GetString(2),
+                            r.GetInt32(3),
+                            ReadText(r, 4)
+                        ),
+                        ct
+                    ),
+            cancellationToken
+        );
     }
 }

@@ -3,10 +3,15 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Storage.Core;
 
-/// <summary>Running reads and transactional writes, and turning engine faults into <see cref="StorageException"/>.</summary>
+/// <summary>Running reads and transactional writes, and turning engine faults into <see
+/// cref="StorageException"/>.</summary>
 internal abstract partial class AdoPrecisionLog
 {
-    private protected async Task<T> ReadAsync<T>(string operation, Func<DbScope, CancellationToken, Task<T>> work, CancellationToken cancellationToken)
+    private protected async Task<T> ReadAsync<T>(
+        string operation,
+        Func<DbScope, CancellationToken, Task<T>> work,
+        CancellationToken cancellationToken
+    )
     {
         ThrowIfDisposed();
         try
@@ -27,7 +32,11 @@ internal abstract partial class AdoPrecisionLog
     /// Runs <paramref name="work"/> in one write transaction and commits it (or rolls back when the work set
     /// <see cref="DbScope.RollbackOnly"/>). An exception rolls everything back. Transient conflicts are retried.
     /// </summary>
-    private protected async Task<T> WriteAsync<T>(string operation, Func<DbScope, CancellationToken, Task<T>> work, CancellationToken cancellationToken)
+    private protected async Task<T> WriteAsync<T>(
+        string operation,
+        Func<DbScope, CancellationToken, Task<T>> work,
+        CancellationToken cancellationToken
+    )
     {
         ThrowIfDisposed();
         for (int attempt = 1; ; attempt++)
@@ -73,7 +82,13 @@ internal abstract partial class AdoPrecisionLog
 
     private protected StorageException Fail(string operation, StorageFault fault, Exception exception)
     {
-        var error = new StorageException(operation, fault, Target, $"{Describe(fault)} ({exception.Message})", exception);
+        var error = new StorageException(
+            operation,
+            fault,
+            Target,
+            $"{Describe(fault)} ({exception.Message})",
+            exception
+        );
         Log.StorageFailed(Logger, operation, fault.ToString(), Target, exception);
         return error;
     }
@@ -84,16 +99,18 @@ internal abstract partial class AdoPrecisionLog
     private protected StorageException Conflict(string operation, string what) =>
         new(operation, StorageFault.Conflict, Target, what);
 
-    private string Describe(StorageFault fault) => fault switch
-    {
-        StorageFault.ReadOnly => "the database is read-only or writing is not permitted",
-        StorageFault.Locked => $"the database stayed locked by another writer for longer than the busy timeout of {Options.BusyTimeout.TotalSeconds:0.#} s",
-        StorageFault.DiskFull => "the disk (or the database size limit) is full",
-        StorageFault.Corrupt => "the file is not a database or is damaged",
-        StorageFault.Unavailable => "the database cannot be opened or reached",
-        StorageFault.Constraint => "a schema constraint was violated",
-        StorageFault.Conflict => "the change conflicted with another writer too often",
-        StorageFault.Schema => "the schema could not be brought up to date",
-        _ => "the database engine reported an error",
-    };
+    private string Describe(StorageFault fault) =>
+        fault switch
+        {
+            StorageFault.ReadOnly => "the database is read-only or writing is not permitted",
+            StorageFault.Locked => $"the database stayed locked by another writer for longer than the busy timeout of "
+                + $"{Options.BusyTimeout.TotalSeconds:0.#} s",
+            StorageFault.DiskFull => "the disk (or the database size limit) is full",
+            StorageFault.Corrupt => "the file is not a database or is damaged",
+            StorageFault.Unavailable => "the database cannot be opened or reached",
+            StorageFault.Constraint => "a schema constraint was violated",
+            StorageFault.Conflict => "the change conflicted with another writer too often",
+            StorageFault.Schema => "the schema could not be brought up to date",
+            _ => "the database engine reported an error",
+        };
 }

@@ -9,73 +9,111 @@ internal abstract partial class AdoPrecisionLog
     {
         PartCommitRules.Check(commit);
         const string operation = "commit part";
-        return await WriteAsync(operation, async (s, ct) =>
-        {
-            // A retried commit (after a crash or timeout) finds its first attempt and writes nothing.
-            if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } earlier)
-            {
-                return Duplicate(s, earlier);
-            }
+        return await WriteAsync(
+                operation,
+                async (s, ct) =>
+                {
+                    // A retried commit (after a crash or timeout) finds its first attempt and writes nothing.
+                    if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } earlier)
+                    {
+                        return Duplicate(s, earlier);
+                    }
 
-            // Allocating the number locks the session row (PostgreSQL) inside the write transaction; a rolled-back
-            // commit gives its number back, so numbers stay contiguous.
-            var number = await s.Sql(
-                    "UPDATE sessions SET next_part_number = next_part_number + 1 WHERE id = @id AND finished_at IS NULL " +
-                    "RETURNING next_part_number - 1")
-                .With("id", commit.SessionId).ScalarLongAsync(ct).ConfigureAwait(false);
-            if (number is null)
-            {
-                var session = await GetSessionCoreAsync(s, commit.SessionId, ct).ConfigureAwait(false);
-                throw session is null
-                    ? NotFound(operation, $"Session {commit.SessionId}")
-                    : Conflict(operation, $"session {commit.SessionId} '{session.Name}' is finished; no parts can be added.");
-            }
+                    // Allocating the number locks the session row (PostgreSQL) inside the write transaction; a
+                    // rolled-back commit gives its number back, so numbers stay contiguous.
+                    var number = await s.Sql(
+                            "UPDATE sessions SET next_part_number = next_part_number + 1 WHERE id = @id AND "
+                                + "finished_at IS NULL "
+                                + "RETURNING next_part_number - 1"
+                        )
+                        .With("id", commit.SessionId)
+                        .ScalarLongAsync(ct)
+                        .ConfigureAwait(false);
+                    if (number is null)
+                    {
+                        var session = await GetSessionCoreAsync(s, commit.SessionId, ct).ConfigureAwait(false);
+                        throw session is null
+                            ? NotFound(operation, $"Session {commit.SessionId}")
+                            : Conflict(
+                                operation,
+                                $"session {commit.SessionId} '{session.Name}' is finished; no parts can be added."
+                            );
+                    }
 
-            // Under PostgreSQL READ COMMITTED a concurrent retry with the same key may have committed while we waited
-            // for the session row; this statement sees it.
-            if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } raced)
-            {
-                return Duplicate(s, raced);
-            }
+                    // Under PostgreSQL READ COMMITTED a concurrent retry with the same key may have committed while we
+                    // waited for the session row; this statement sees it.
+                    if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } raced)
+                    {
+                        return Duplicate(s, raced);
+                    }
 
-            var batch = await GetBatchCoreAsync(s, commit.BatchId, ct).ConfigureAwait(false);
-            if (batch is null || batch.SessionId != commit.SessionId)
-            {
-                throw NotFound(operation, $"Batch {commit.BatchId} of session {commit.SessionId}");
-            }
+                    var batch = await GetBatchCoreAsync(s, commit.BatchId, ct).ConfigureAwait(false);
+                    if (batch is null || batch.SessionId != commit.SessionId)
+                    {
+                        throw NotFound(operation, $"Batch {commit.BatchId} of session {commit.SessionId}");
+                    }
 
-            long partId = await InsertPartAsync(s, commit, (int)number.Value, batch.Setup.Nominal, ct).ConfigureAwait(false);
-            await InsertReadingsAsync(s, partId, commit, ct).ConfigureAwait(false);
-            return (await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false))!;
-        }, cancellationToken).ConfigureAwait(false);
+                    long partId = await InsertPartAsync(s, commit, (int)number.Value, batch.Setup.Nominal, ct)
+                        .ConfigureAwait(false);
+                    await InsertReadingsAsync(s, partId, commit, ct).ConfigureAwait(false);
+                    return (await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false))!;
+                },
+                cancellationToken
+            )
+            .ConfigureAwait(false);
     }
 
     public Task<PartRecord> MarkAnnouncedAsync(long partId, CancellationToken cancellationToken)
     {
         Guard.Id(partId, nameof(partId));
         const string operation = "mark part announced";
-        return WriteAsync(operation, async (s, ct) =>
-        {
-            await s.Sql(
-                    "UPDATE parts SET announced = @yes, state = CASE WHEN state = 'Accepted' THEN 'Announced' ELSE state END " +
-                    "WHERE id = @id")
-                .With("yes", true).With("id", partId).ExecuteAsync(ct).ConfigureAwait(false);
-            return await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false) ?? throw NotFound(operation, $"Part {partId}");
-        }, cancellationToken);
+        return WriteAsync(
+            operation,
+            async (s, ct) =>
+            {
+                await s.Sql(
+                        "UPDATE parts SET announced = @yes, state = CASE WHEN state = 'Accepted' THEN 'Announced' "
+                            + "ELSE state END "
+                            + "WHERE id = @id"
+                    )
+                    .With("yes", true)
+                    .With("id", partId)
+                    .ExecuteAsync(ct)
+                    .ConfigureAwait(false);
+                return await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false)
+                    ?? throw NotFound(operation, $"Part {partId}");
+            },
+            cancellationToken
+        );
     }
 
     public Task<IReadOnlyList<PartRecord>> GetPartsAsync(long sessionId, CancellationToken cancellationToken) =>
-        ReadAsync<IReadOnlyList<PartRecord>>("read parts", async (s, ct) =>
-            await s.Sql($"SELECT {PartColumns} FROM parts p WHERE p.session_id = @id ORDER BY p.part_number")
-                .With("id", sessionId).ListAsync(ReadPart, ct).ConfigureAwait(false), cancellationToken);
+        ReadAsync<IReadOnlyList<PartRecord>>(
+            "read parts",
+            async (s, ct) =>
+                await s.Sql($"SELECT {PartColumns} FROM parts p WHERE p.session_id = @id ORDER BY p.part_number")
+                    .With("id", sessionId)
+                    .ListAsync(ReadPart, ct)
+                    .ConfigureAwait(false),
+            cancellationToken
+        );
 
     public Task<PartRecord?> GetPartAsync(long partId, CancellationToken cancellationToken) =>
         ReadAsync("read part", (s, ct) => GetPartCoreAsync(s, partId, ct), cancellationToken);
 
     public Task<IReadOnlyList<RawReading>> GetReadingsAsync(long partId, CancellationToken cancellationToken) =>
-        ReadAsync<IReadOnlyList<RawReading>>("read raw readings", async (s, ct) =>
-            await s.Sql("SELECT part_id, seq, taken_at, value_ohms, range_ohms, kind FROM raw_readings WHERE part_id = @id ORDER BY seq")
-                .With("id", partId).ListAsync(ReadRawReading, ct).ConfigureAwait(false), cancellationToken);
+        ReadAsync<IReadOnlyList<RawReading>>(
+            "read raw readings",
+            async (s, ct) =>
+                await s.Sql(
+                        "SELECT part_id, seq, taken_at, value_ohms, range_ohms, kind FROM raw_readings WHERE part_id "
+                            + "= @id ORDER BY seq"
+                    )
+                    .With("id", partId)
+                    .ListAsync(ReadRawReading, ct)
+                    .ConfigureAwait(false),
+            cancellationToken
+        );
 
     private PartRecord Duplicate(DbScope s, PartRecord earlier)
     {
@@ -86,5 +124,6 @@ internal abstract partial class AdoPrecisionLog
 
     private Task<PartRecord?> FindByKeyAsync(DbScope s, Guid key, CancellationToken ct) =>
         s.Sql($"SELECT {PartColumns} FROM parts p WHERE p.commit_key = @key")
-            .With("key", GuidValue(key)).FirstOrDefaultAsync(ReadPart, ct);
+            .With("key", GuidValue(key))
+            .FirstOrDefaultAsync(ReadPart, ct);
 }

@@ -32,14 +32,19 @@ internal abstract partial class AdoPrecisionLog : IPrecisionLog
 
     private protected ILogger Logger { get; }
 
-    /// <summary>SQL appended to a row-locking SELECT (PostgreSQL " FOR UPDATE"; SQLite locks the whole file instead).</summary>
+    /// <summary>SQL appended to a row-locking SELECT (PostgreSQL " FOR UPDATE"; SQLite locks the whole file
+    /// instead).</summary>
     private protected abstract string ForUpdate { get; }
 
     private protected abstract ValueTask<DbConnection> OpenConnectionAsync(CancellationToken cancellationToken);
 
-    private protected abstract ValueTask<DbTransaction> BeginWriteAsync(DbConnection connection, CancellationToken cancellationToken);
+    private protected abstract ValueTask<DbTransaction> BeginWriteAsync(
+        DbConnection connection,
+        CancellationToken cancellationToken
+    );
 
-    /// <summary>Parameter value for a time (SQLite: integer microseconds since the Unix epoch; PostgreSQL: timestamptz).</summary>
+    /// <summary>Parameter value for a time (SQLite: integer microseconds since the Unix epoch; PostgreSQL:
+    /// timestamptz).</summary>
     private protected abstract object TimeValue(DateTimeOffset time);
 
     private protected abstract DateTimeOffset ReadTime(DbDataReader reader, int ordinal);
@@ -49,9 +54,16 @@ internal abstract partial class AdoPrecisionLog : IPrecisionLog
     /// <summary>Classifies an engine exception; transient ones are retried by writes.</summary>
     private protected abstract StorageFault Classify(DbException exception, out bool transient);
 
-    private protected abstract Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken);
+    private protected abstract Task<int> InsertDriftSamplesAsync(
+        DbScope scope,
+        IReadOnlyList<StoredDriftSample> samples,
+        CancellationToken cancellationToken
+    );
 
-    private protected abstract Task<IReadOnlyList<string>> EngineProblemsAsync(DbScope scope, CancellationToken cancellationToken);
+    private protected abstract Task<IReadOnlyList<string>> EngineProblemsAsync(
+        DbScope scope,
+        CancellationToken cancellationToken
+    );
 
     private protected abstract ValueTask DisposeEngineAsync();
 
@@ -84,5 +96,6 @@ internal abstract partial class AdoPrecisionLog : IPrecisionLog
     private protected static double? ReadDouble(DbDataReader reader, int ordinal) =>
         reader.IsDBNull(ordinal) ? null : reader.GetDouble(ordinal);
 
-    private protected void ThrowIfDisposed() => ObjectDisposedException.ThrowIf(Volatile.Read(ref _disposed) != 0, this);
+    private protected void ThrowIfDisposed() =>
+        ObjectDisposedException.ThrowIf(Volatile.Read(ref _disposed) != 0, this);
 }

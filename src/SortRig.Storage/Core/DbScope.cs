@@ -10,7 +10,8 @@ internal sealed class DbScope(DbConnection connection, DbTransaction? transactio
 
     public DbTransaction? Transaction { get; } = transaction;
 
-    /// <summary>Set by a write that decided to change nothing (e.g. a duplicate commit); the transaction is rolled back.</summary>
+    /// <summary>Set by a write that decided to change nothing (e.g. a duplicate commit); the transaction is rolled
+    /// back.</summary>
     public bool RollbackOnly { get; set; }
 
     public Query Sql(string sql)
@@ -21,9 +22,13 @@ internal sealed class DbScope(DbConnection connection, DbTransaction? transactio
         return new Query(command);
     }
 
-    /// <summary>Placeholders "@p0, @p1, ..." for an IN list; the values are bound with <see cref="Query.WithList"/>.</summary>
+    /// <summary>Placeholders "@p0, @p1, ..." for an IN list; the values are bound with <see
+    /// cref="Query.WithList"/>.</summary>
     public static string Placeholders(string prefix, int count) =>
-        string.Join(", ", Enumerable.Range(0, count).Select(i => "@" + prefix + i.ToString(CultureInfo.InvariantCulture)));
+        string.Join(
+            ", ",
+            Enumerable.Range(0, count).Select(i => "@" + prefix + i.ToString(CultureInfo.InvariantCulture))
+        );
 }
 
 /// <summary>One command with bound parameters; each Execute method runs it once and disposes it.</summary>

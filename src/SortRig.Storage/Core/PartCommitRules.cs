@@ -10,7 +10,10 @@ internal static class PartCommitRules
         ArgumentNullException.ThrowIfNull(commit);
         if (commit.CommitKey == Guid.Empty)
         {
-            throw new ArgumentException("CommitKey must be a fresh non-empty GUID per part, kept across retries.", nameof(commit));
+            throw new ArgumentException(
+                "CommitKey must be a fresh non-empty GUID per part, kept across retries.",
+                nameof(commit)
+            );
         }
 
         Guard.Id(commit.SessionId, nameof(commit.SessionId));
@@ -27,7 +30,11 @@ internal static class PartCommitRules
         Guard.TextOrNull(commit.SlotLabel, nameof(commit.SlotLabel));
         if (commit.State is not (PartState.Accepted or PartState.Unstable))
         {
-            throw new ArgumentOutOfRangeException(nameof(commit), commit.State, "State of a new part must be Accepted or Unstable.");
+            throw new ArgumentOutOfRangeException(
+                nameof(commit),
+                commit.State,
+                "State of a new part must be Accepted or Unstable."
+            );
         }
 
         SettleFitRules.Check(commit);
@@ -37,7 +44,10 @@ internal static class PartCommitRules
             var r = commit.Readings[i];
             if (double.IsNaN(r.Value) || double.IsNaN(r.Range) || r.Range < 0)
             {
-                throw new ArgumentException($"Readings[{i}] must have a value (not NaN) and a range >= 0; got {r.Value} on {r.Range}.", nameof(commit));
+                throw new ArgumentException(
+                    $"Readings[{i}] must have a value (not NaN) and a range >= 0; got {r.Value} on {r.Range}.",
+                    nameof(commit)
+                );
             }
         }
     }

@@ -30,7 +30,11 @@ internal static class SettleFitRules
 
         if (!Enum.IsDefined(fit.Model))
         {
-            throw new ArgumentOutOfRangeException(nameof(commit), fit.Model, "Fit.Model must be OneExponential or TwoExponentials.");
+            throw new ArgumentOutOfRangeException(
+                nameof(commit),
+                fit.Model,
+                "Fit.Model must be OneExponential or TwoExponentials."
+            );
         }
 
         Guard.Finite(fit.FinalValue, "Fit.FinalValue");
@@ -43,7 +47,10 @@ internal static class SettleFitRules
         if (fit.TimeConstantsSeconds.Count != (int)fit.Model)
         {
             throw new ArgumentException(
-                $"Fit.TimeConstantsSeconds must hold {(int)fit.Model} time constant(s) for {fit.Model}; got {fit.TimeConstantsSeconds.Count}.", nameof(commit));
+                $"Fit.TimeConstantsSeconds must hold {(int)fit.Model} time constant(s) for {fit.Model}; got "
+                    + $"{fit.TimeConstantsSeconds.Count}.",
+                nameof(commit)
+            );
         }
 
         foreach (var tau in fit.TimeConstantsSeconds)

@@ -13,7 +13,8 @@ public static class ConnectionText
 
     /// <summary>True when the string carries a password (Password=, Pwd=, SSL Password=).</summary>
     public static bool HasPassword(string? connectionString) =>
-        TryParse(connectionString, out var builder) && s_secretKeys.Any(k => builder.ContainsKey(k) && !string.IsNullOrEmpty(builder[k]?.ToString()));
+        TryParse(connectionString, out var builder)
+        && s_secretKeys.Any(k => builder.ContainsKey(k) && !string.IsNullOrEmpty(builder[k]?.ToString()));
 
     /// <summary>
     /// The string with every password value replaced by ***; a bare file path unchanged; a string that does not

@@ -8,11 +8,17 @@ namespace SortRig.Storage.Lab;
 /// into DDL without quoting.
 /// </summary>
 /// <param name="Owner">Owns the schema and runs the migrations. Default sortrig_owner.</param>
-/// <param name="Writer">What benches log in as: reads and writes rows, cannot change the schema. Default sortrig_writer.</param>
+/// <param name="Writer">What benches log in as: reads and writes rows, cannot change the schema. Default
+/// sortrig_writer.</param>
 /// <param name="Schema">The schema that holds the tables. Default sortrig.</param>
-public sealed partial record LabRoleNames(string Owner = "sortrig_owner", string Writer = "sortrig_writer", string Schema = "sortrig")
+public sealed partial record LabRoleNames(
+    string Owner = "sortrig_owner",
+    string Writer = "sortrig_writer",
+    string Schema = "sortrig"
+)
 {
-    /// <summary>Throws <see cref="ArgumentException"/> naming the first field that is not a plain identifier, or when owner and writer are the same role.</summary>
+    /// <summary>Throws <see cref="ArgumentException"/> naming the first field that is not a plain identifier, or when
+    /// owner and writer are the same role.</summary>
     public void Validate()
     {
         Check(Owner, nameof(Owner));
@@ -24,12 +30,17 @@ public sealed partial record LabRoleNames(string Owner = "sortrig_owner", string
         }
     }
 
-    /// <summary>Throws <see cref="ArgumentException"/> naming <paramref name="field"/> when the value is not a plain identifier.</summary>
+    /// <summary>Throws <see cref="ArgumentException"/> naming <paramref name="field"/> when the value is not a plain
+    /// identifier.</summary>
     internal static void Check(string value, string field)
     {
         if (value is null || !Identifier().IsMatch(value))
         {
-            throw new ArgumentException($"{field}: '{value}' is not a plain identifier (a-z, 0-9, _; 1..63 characters, not starting with a digit).", field);
+            throw new ArgumentException(
+                $"{field}: '{value}' is not a plain identifier (a-z, 0-9, _; 1..63 characters, not starting with a "
+                    + $"digit).",
+                field
+            );
         }
     }
 

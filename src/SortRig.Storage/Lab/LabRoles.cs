@@ -10,9 +10,11 @@ namespace SortRig.Storage.Lab;
 /// </summary>
 public static class LabRoles
 {
-    /// <summary>The SQL that creates the roles (LOGIN, no password), the schema owned by the owner, and the grants.</summary>
+    /// <summary>The SQL that creates the roles (LOGIN, no password), the schema owned by the owner, and the
+    /// grants.</summary>
     /// <param name="names">Role and schema names; validated.</param>
-    /// <param name="database">The database the lab uses (its CREATE and TEMPORARY rights are taken from PUBLIC); a plain identifier.</param>
+    /// <param name="database">The database the lab uses (its CREATE and TEMPORARY rights are taken from PUBLIC); a
+    /// plain identifier.</param>
     /// <exception cref="ArgumentException">A name is not a plain identifier.</exception>
     public static string Script(LabRoleNames names, string database)
     {
@@ -47,13 +49,25 @@ public static class LabRoles
     /// Runs <see cref="Script"/> on the server, connected as a role allowed to create roles and schemas (the
     /// server's superuser or a keeper with CREATEROLE). The database is the one the connection string names.
     /// </summary>
-    /// <param name="adminConnectionString">Npgsql connection string of the administering role; its password, if any, comes from the environment or a passfile as usual.</param>
+    /// <param name="adminConnectionString">Npgsql connection string of the administering role; its password, if any,
+    /// comes from the environment or a passfile as usual.</param>
     /// <param name="names">Role and schema names.</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
-    public static async Task ApplyAsync(string adminConnectionString, LabRoleNames names, CancellationToken cancellationToken)
+    public static async Task ApplyAsync(
+        string adminConnectionString,
+        LabRoleNames names,
+        CancellationToken cancellationToken
+    )
     {
         var builder = new NpgsqlConnectionStringBuilder(adminConnectionString);
-        var sql = Script(names, builder.Database ?? throw new ArgumentException("The connection string names no Database.", nameof(adminConnectionString)));
+        var sql = Script(
+            names,
+            builder.Database
+                ?? throw new ArgumentException(
+                    "The connection string names no Database.",
+                    nameof(adminConnectionString)
+                )
+        );
         var connection = new NpgsqlConnection(adminConnectionString);
         await using (connection.ConfigureAwait(false))
         {

@@ -16,7 +16,8 @@ internal static class MigrationCatalog
     {
         var assembly = typeof(MigrationCatalog).Assembly;
         var prefix = engine + "/";
-        var migrations = assembly.GetManifestResourceNames()
+        var migrations = assembly
+            .GetManifestResourceNames()
             .Where(n => n.StartsWith(prefix, StringComparison.Ordinal) && n.EndsWith(".sql", StringComparison.Ordinal))
             .Select(n => Parse(assembly, n, prefix))
             .OrderBy(m => m.Version)
@@ -26,7 +27,9 @@ internal static class MigrationCatalog
             if (migrations[i].Version != i + 1)
             {
                 throw new InvalidOperationException(
-                    $"Migration scripts for {engine} must be numbered 1, 2, 3 ... without gaps; found {migrations[i].Version} at position {i + 1}.");
+                    $"Migration scripts for {engine} must be numbered 1, 2, 3 ... without gaps; found "
+                        + $"{migrations[i].Version} at position {i + 1}."
+                );
             }
         }
 
@@ -37,7 +40,10 @@ internal static class MigrationCatalog
     {
         var file = resource[prefix.Length..^".sql".Length];
         var underscore = file.IndexOf('_', StringComparison.Ordinal);
-        if (underscore <= 0 || !int.TryParse(file[..underscore], NumberStyles.None, CultureInfo.InvariantCulture, out int version))
+        if (
+            underscore <= 0
+            || !int.TryParse(file[..underscore], NumberStyles.None, CultureInfo.InvariantCulture, out int version)
+        )
         {
             throw new InvalidOperationException($"Migration script {resource} must be named NNNN_name.sql.");
         }

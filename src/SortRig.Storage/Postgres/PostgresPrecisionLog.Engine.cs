@@ -32,10 +32,10 @@ internal sealed partial class PostgresPrecisionLog
             return pg.SqlState switch
             {
                 "40001" or "40P01" => StorageFault.Conflict,
-                "55P03" => StorageFault.Locked,                         // lock_not_available (lock_timeout)
-                "25006" or "42501" => StorageFault.ReadOnly,            // read_only_sql_transaction, insufficient_privilege
-                "53100" => StorageFault.DiskFull,                       // disk_full
-                "XX001" or "XX002" => StorageFault.Corrupt,             // data_corrupted, index_corrupted
+                "55P03" => StorageFault.Locked, // lock_not_available (lock_timeout)
+                "25006" or "42501" => StorageFault.ReadOnly, // read_only_sql_transaction, insufficient_privilege
+                "53100" => StorageFault.DiskFull, // disk_full
+                "XX001" or "XX002" => StorageFault.Corrupt, // data_corrupted, index_corrupted
                 "3D000" or "57P01" or "57P02" or "57P03" => StorageFault.Unavailable,
                 _ when pg.SqlState.StartsWith("23", StringComparison.Ordinal) => StorageFault.Constraint,
                 _ when pg.SqlState.StartsWith("08", StringComparison.Ordinal) => StorageFault.Unavailable,
@@ -50,8 +50,13 @@ internal sealed partial class PostgresPrecisionLog
             : StorageFault.Other;
     }
 
-    /// <summary>INSERT ... SELECT FROM unnest(arrays) per chunk of 5000 samples: few round trips, memory bounded by the chunk.</summary>
-    private protected override async Task<int> InsertDriftSamplesAsync(DbScope scope, IReadOnlyList<StoredDriftSample> samples, CancellationToken cancellationToken)
+    /// <summary>INSERT ... SELECT FROM unnest(arrays) per chunk of 5000 samples: few round trips, memory bounded by the
+    /// chunk.</summary>
+    private protected override async Task<int> InsertDriftSamplesAsync(
+        DbScope scope,
+        IReadOnlyList<StoredDriftSample> samples,
+        CancellationToken cancellationToken
+    )
     {
         int inserted = 0;
         for (int start = 0; start < samples.Count; start += DriftChunk)
@@ -65,24 +70,42 @@ internal sealed partial class PostgresPrecisionLog
             for (int i = 0; i < n; i++)
             {
                 var s = samples[start + i];
-                (runs[i], channels[i], times[i], ohms[i], temps[i]) = (s.RunId, s.Channel, ToMicroseconds(s.Time), s.Ohms, s.Temperature);
+                (runs[i], channels[i], times[i], ohms[i], temps[i]) = (
+                    s.RunId,
+                    s.Channel,
+                    ToMicroseconds(s.Time),
+                    s.Ohms,
+                    s.Temperature
+                );
             }
 
-            inserted += await scope.Sql(
-                    "INSERT INTO drift_samples (run_id, channel, taken_at, ohms, temperature_c) " +
-                    "SELECT * FROM unnest(@runs, @channels, @times, @ohms, @temps) ON CONFLICT DO NOTHING")
-                .With("runs", runs).With("channels", channels).With("times", times).With("ohms", ohms).With("temps", temps)
-                .ExecuteAsync(cancellationToken).ConfigureAwait(false);
+            inserted += await scope
+                .Sql(
+                    "INSERT INTO drift_samples (run_id, channel, taken_at, ohms, temperature_c) "
+                        + "SELECT * FROM unnest(@runs, @channels, @times, @ohms, @temps) ON CONFLICT DO NOTHING"
+                )
+                .With("runs", runs)
+                .With("channels", channels)
+                .With("times", times)
+                .With("ohms", ohms)
+                .With("temps", temps)
+                .ExecuteAsync(cancellationToken)
+                .ConfigureAwait(false);
         }
 
         return inserted;
     }
 
     /// <summary>The server keeps its own integrity; report checksum failures if data checksums are on.</summary>
-    private protected override async Task<IReadOnlyList<string>> EngineProblemsAsync(DbScope scope, CancellationToken cancellationToken)
+    private protected override async Task<IReadOnlyList<string>> EngineProblemsAsync(
+        DbScope scope,
+        CancellationToken cancellationToken
+    )
     {
-        var failures = await scope.Sql("SELECT COALESCE(SUM(checksum_failures), 0) FROM pg_stat_database WHERE datname = current_database()")
-            .ScalarLongAsync(cancellationToken).ConfigureAwait(false);
+        var failures = await scope
+            .Sql("SELECT COALESCE(SUM(checksum_failures), 0) FROM pg_stat_database WHERE datname = current_database()")
+            .ScalarLongAsync(cancellationToken)
+            .ConfigureAwait(false);
         return failures > 0 ? [$"pg_stat_database reports {failures} data checksum failures."] : [];
     }
 }

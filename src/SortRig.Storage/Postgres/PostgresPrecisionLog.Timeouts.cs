@@ -3,7 +3,8 @@ using Npgsql;
 
 namespace SortRig.Storage.Postgres;
 
-/// <summary>Detecting a server that stopped answering: command timeout, keepalive queries, a pool emptied after an outage.</summary>
+/// <summary>Detecting a server that stopped answering: command timeout, keepalive queries, a pool emptied after an
+/// outage.</summary>
 internal sealed partial class PostgresPrecisionLog
 {
     /// <summary>
@@ -31,10 +32,12 @@ internal sealed partial class PostgresPrecisionLog
 
         if (!given.ContainsKey("Cancellation Timeout"))
         {
-            builder.CancellationTimeout = 2000; // ms: the cancel request of a timed-out command goes through the same stalled path
+            // ms: the cancel request of a timed-out command goes through the same stalled path
+            builder.CancellationTimeout = 2000;
         }
     }
 
-    /// <summary>After an outage every pooled connection is dead; drop them so the next attempt opens a fresh one.</summary>
+    /// <summary>After an outage every pooled connection is dead; drop them so the next attempt opens a fresh
+    /// one.</summary>
     private void ForgetPooledConnections() => _dataSource.Clear();
 }

@@ -29,7 +29,8 @@ internal sealed partial class PostgresPrecisionLog : AdoPrecisionLog
     private protected override string ForUpdate => " FOR UPDATE";
 
     private protected override string SchemaVersionDdl =>
-        "CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY, name TEXT NOT NULL, applied_at TIMESTAMPTZ NOT NULL)";
+        "CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY, name TEXT NOT NULL, applied_at "
+        + "TIMESTAMPTZ NOT NULL)";
 
     /// <summary>Connects and applies pending migrations (in the connection's search path schema).</summary>
     /// <param name="connectionString">Npgsql connection string ("Host=...;Database=...;Username=...").</param>
@@ -37,20 +38,28 @@ internal sealed partial class PostgresPrecisionLog : AdoPrecisionLog
     /// <param name="migrations">Scripts to apply; null for the embedded ones (tests pass their own).</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
     public static async Task<PostgresPrecisionLog> OpenAsync(
-        string connectionString, PrecisionLogOptions options, IReadOnlyList<Migration>? migrations, CancellationToken cancellationToken)
+        string connectionString,
+        PrecisionLogOptions options,
+        IReadOnlyList<Migration>? migrations,
+        CancellationToken cancellationToken
+    )
     {
         var builder = new NpgsqlConnectionStringBuilder(connectionString);
         var ms = ((long)options.BusyTimeout.TotalMilliseconds).ToString(CultureInfo.InvariantCulture);
-        builder.Options = string.IsNullOrWhiteSpace(builder.Options) ? $"-c lock_timeout={ms}" : $"{builder.Options} -c lock_timeout={ms}";
+        builder.Options = string.IsNullOrWhiteSpace(builder.Options)
+            ? $"-c lock_timeout={ms}"
+            : $"{builder.Options} -c lock_timeout={ms}";
         ApplyTimeouts(builder, connectionString, options.CommandTimeout);
-        var target = $"postgresql {builder.Host}:{builder.Port}/{builder.Database}" +
-            (string.IsNullOrEmpty(builder.SearchPath) ? string.Empty : $" (schema {builder.SearchPath})");
+        var target =
+            $"postgresql {builder.Host}:{builder.Port}/{builder.Database}"
+            + (string.IsNullOrEmpty(builder.SearchPath) ? string.Empty : $" (schema {builder.SearchPath})");
         var sourceBuilder = new NpgsqlDataSourceBuilder(builder.ConnectionString);
         sourceBuilder.UseLoggerFactory(options.LoggerFactory);
         var log = new PostgresPrecisionLog(sourceBuilder.Build(), options, target);
         try
         {
-            int version = await log.MigrateAsync(migrations ?? MigrationCatalog.Load("postgres"), cancellationToken).ConfigureAwait(false);
+            int version = await log.MigrateAsync(migrations ?? MigrationCatalog.Load("postgres"), cancellationToken)
+                .ConfigureAwait(false);
             Log.Opened(log.Logger, "PostgreSQL", log.Target, version);
             return log;
         }
@@ -64,12 +73,18 @@ internal sealed partial class PostgresPrecisionLog : AdoPrecisionLog
     private protected override async ValueTask<DbConnection> OpenConnectionAsync(CancellationToken cancellationToken) =>
         await _dataSource.OpenConnectionAsync(cancellationToken).ConfigureAwait(false);
 
-    private protected override async ValueTask<DbTransaction> BeginWriteAsync(DbConnection connection, CancellationToken cancellationToken) =>
-        await ((NpgsqlConnection)connection).BeginTransactionAsync(IsolationLevel.ReadCommitted, cancellationToken).ConfigureAwait(false);
+    private protected override async ValueTask<DbTransaction> BeginWriteAsync(
+        DbConnection connection,
+        CancellationToken cancellationToken
+    ) =>
+        await ((NpgsqlConnection)connection)
+            .BeginTransactionAsync(IsolationLevel.ReadCommitted, cancellationToken)
+            .ConfigureAwait(false);
 
     private protected override object TimeValue(DateTimeOffset time) => ToMicroseconds(time);
 
-    private protected override DateTimeOffset ReadTime(DbDataReader reader, int ordinal) => reader.GetFieldValue<DateTimeOffset>(ordinal);
+    private protected override DateTimeOffset ReadTime(DbDataReader reader, int ordinal) =>
+        reader.GetFieldValue<DateTimeOffset>(ordinal);
 
     private protected override object GuidValue(Guid value) => value;
 
@@ -77,9 +92,17 @@ internal sealed partial class PostgresPrecisionLog : AdoPrecisionLog
     private protected override Task LockForMigrationAsync(DbScope scope, CancellationToken cancellationToken) =>
         scope.Sql("SELECT pg_advisory_xact_lock(@key)").With("key", 0x5352_504CL).ExecuteAsync(cancellationToken);
 
-    private protected override async Task<bool> SchemaVersionExistsAsync(DbScope scope, CancellationToken cancellationToken) =>
-        await scope.Sql("SELECT COUNT(*) FROM information_schema.tables WHERE table_schema = current_schema() AND table_name = 'schema_version'")
-            .ScalarLongAsync(cancellationToken).ConfigureAwait(false) > 0;
+    private protected override async Task<bool> SchemaVersionExistsAsync(
+        DbScope scope,
+        CancellationToken cancellationToken
+    ) =>
+        await scope
+            .Sql(
+                "SELECT COUNT(*) FROM information_schema.tables WHERE table_schema = current_schema() AND table_name "
+                    + "= 'schema_version'"
+            )
+            .ScalarLongAsync(cancellationToken)
+            .ConfigureAwait(false) > 0;
 
     private protected override ValueTask DisposeEngineAsync() => _dataSource.DisposeAsync();
 }

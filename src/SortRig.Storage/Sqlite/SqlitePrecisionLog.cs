@@ -26,9 +26,13 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
 
         // PRAGMA takes no bound parameters; these are integers from validated options, never outside input.
         var ms = ((long)options.BusyTimeout.TotalMilliseconds).ToString(CultureInfo.InvariantCulture);
-        _pragmas = $"PRAGMA busy_timeout = {ms}; PRAGMA synchronous = FULL;" + (options.SqliteMaxPageCount is { } pages
-            ? $" PRAGMA max_page_count = {pages.ToString(CultureInfo.InvariantCulture)};"
-            : string.Empty);
+        _pragmas =
+            $"PRAGMA busy_timeout = {ms}; PRAGMA synchronous = FULL;"
+            + (
+                options.SqliteMaxPageCount is { } pages
+                    ? $" PRAGMA max_page_count = {pages.ToString(CultureInfo.InvariantCulture)};"
+                    : string.Empty
+            );
     }
 
     public override StorageEngine Engine => StorageEngine.Sqlite;
@@ -39,40 +43,63 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
     private protected override string ForUpdate => string.Empty;
 
     private protected override string SchemaVersionDdl =>
-        "CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY, name TEXT NOT NULL, applied_at INTEGER NOT NULL)";
+        "CREATE TABLE IF NOT EXISTS schema_version (version INTEGER PRIMARY KEY, name TEXT NOT NULL, applied_at "
+        + "INTEGER NOT NULL)";
 
     /// <summary>Opens (creating if needed) the file, switches it to WAL and applies pending migrations.</summary>
-    /// <param name="connectionString">"Data Source=path" (other Microsoft.Data.Sqlite keywords allowed) or a bare path.</param>
+    /// <param name="connectionString">"Data Source=path" (other Microsoft.Data.Sqlite keywords allowed) or a bare
+    /// path.</param>
     /// <param name="options">Options.</param>
     /// <param name="migrations">Scripts to apply; null for the embedded ones (tests pass their own).</param>
     /// <param name="cancellationToken">Caller cancellation.</param>
     public static async Task<SqlitePrecisionLog> OpenAsync(
-        string connectionString, PrecisionLogOptions options, IReadOnlyList<Migration>? migrations, CancellationToken cancellationToken)
+        string connectionString,
+        PrecisionLogOptions options,
+        IReadOnlyList<Migration>? migrations,
+        CancellationToken cancellationToken
+    )
     {
         var builder = connectionString.Contains('=', StringComparison.Ordinal)
             ? new SqliteConnectionStringBuilder(connectionString)
             : new SqliteConnectionStringBuilder { DataSource = connectionString.Trim() };
-        if (string.IsNullOrWhiteSpace(builder.DataSource) || builder.DataSource == ":memory:" || builder.Mode == SqliteOpenMode.Memory)
+        if (
+            string.IsNullOrWhiteSpace(builder.DataSource)
+            || builder.DataSource == ":memory:"
+            || builder.Mode == SqliteOpenMode.Memory
+        )
         {
             throw new ArgumentException(
-                "A SQLite precision log needs a file: 'Data Source=path/to/log.db' (in-memory databases are not durable).",
-                nameof(connectionString));
+                "A SQLite precision log needs a file: 'Data Source=path/to/log.db' (in-memory databases are not "
+                    + "durable).",
+                nameof(connectionString)
+            );
         }
 
         RequireFilePath(builder.DataSource, writes: builder.Mode != SqliteOpenMode.ReadOnly);
         builder.DefaultTimeout = (int)Math.Ceiling(options.BusyTimeout.TotalSeconds);
         builder.ForeignKeys = true;
-        builder.Pooling = options.SqliteMaxPageCount is null; // a size-capped test connection must not go back to the shared pool
-        var log = new SqlitePrecisionLog(builder.ToString(), builder.Mode == SqliteOpenMode.ReadOnly, options, Path.GetFullPath(builder.DataSource));
+        // a size-capped test connection must not go back to the shared pool
+        builder.Pooling = options.SqliteMaxPageCount is null;
+        var log = new SqlitePrecisionLog(
+            builder.ToString(),
+            builder.Mode == SqliteOpenMode.ReadOnly,
+            options,
+            Path.GetFullPath(builder.DataSource)
+        );
         try
         {
             if (!log.IsReadOnly)
             {
-                await log.ReadAsync("switch to WAL journal", (s, ct) => s.Sql("PRAGMA journal_mode = WAL").ExecuteAsync(ct), cancellationToken)
+                await log.ReadAsync(
+                        "switch to WAL journal",
+                        (s, ct) => s.Sql("PRAGMA journal_mode = WAL").ExecuteAsync(ct),
+                        cancellationToken
+                    )
                     .ConfigureAwait(false);
             }
 
-            int version = await log.MigrateAsync(migrations ?? MigrationCatalog.Load("sqlite"), cancellationToken).ConfigureAwait(false);
+            int version = await log.MigrateAsync(migrations ?? MigrationCatalog.Load("sqlite"), cancellationToken)
+                .ConfigureAwait(false);
             Log.Opened(log.Logger, "SQLite", log.Target, version);
             return log;
         }
@@ -88,17 +115,24 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
     /// anything is opened, so no journal file is left next to it.
     /// </summary>
     /// <exception cref="ArgumentException">The path is a folder or a device.</exception>
-    /// <exception cref="StorageException">The folder does not exist or cannot be written (<see cref="StorageFault.Unavailable"/>).</exception>
+    /// <exception cref="StorageException">The folder does not exist or cannot be written (<see
+    /// cref="StorageFault.Unavailable"/>).</exception>
     internal static void RequireFilePath(string dataSource, bool writes)
     {
         var full = Path.GetFullPath(dataSource);
         if (Directory.Exists(full))
         {
-            throw new ArgumentException($"'{dataSource}' is a folder; a SQLite precision log is a file (e.g. '{Path.Combine(dataSource, "sortrig.db")}')");
+            throw new ArgumentException(
+                $"'{dataSource}' is a folder; a SQLite precision log is a file (e.g. '"
+                    + $"{Path.Combine(dataSource, "sortrig.db")}')"
+            );
         }
 
         // Devices live under /dev; /dev/shm is the one ordinary file system there (shared memory, a tmpfs).
-        if (full.StartsWith("/dev/", StringComparison.Ordinal) && !full.StartsWith("/dev/shm/", StringComparison.Ordinal))
+        if (
+            full.StartsWith("/dev/", StringComparison.Ordinal)
+            && !full.StartsWith("/dev/shm/", StringComparison.Ordinal)
+        )
         {
             throw new ArgumentException($"'{dataSource}' is a device; a SQLite precision log is a regular file");
         }
@@ -106,7 +140,12 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
         var folder = Path.GetDirectoryName(full) ?? "/";
         if (!Directory.Exists(folder))
         {
-            throw new StorageException("open", StorageFault.Unavailable, full, $"the folder '{folder}' does not exist; create it or check the path");
+            throw new StorageException(
+                "open",
+                StorageFault.Unavailable,
+                full,
+                $"the folder '{folder}' does not exist; create it or check the path"
+            );
         }
 
         if (!writes)
@@ -118,12 +157,23 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
         try
         {
             using var probe = new FileStream(
-                Path.Combine(folder, $".sortrig-write-check-{Guid.NewGuid():N}"), FileMode.CreateNew, FileAccess.Write, FileShare.None, 1,
-                FileOptions.DeleteOnClose);
+                Path.Combine(folder, $".sortrig-write-check-{Guid.NewGuid():N}"),
+                FileMode.CreateNew,
+                FileAccess.Write,
+                FileShare.None,
+                1,
+                FileOptions.DeleteOnClose
+            );
         }
         catch (Exception e) when (e is UnauthorizedAccessException or IOException)
         {
-            throw new StorageException("open", StorageFault.Unavailable, full, $"the folder '{folder}' is not writable; the database and its journal are written there", e);
+            throw new StorageException(
+                "open",
+                StorageFault.Unavailable,
+                full,
+                $"the folder '{folder}' is not writable; the database and its journal are written there",
+                e
+            );
         }
     }
 
@@ -145,14 +195,21 @@ internal sealed partial class SqlitePrecisionLog : AdoPrecisionLog
         }
     }
 
-    /// <summary>BEGIN IMMEDIATE: takes the write lock up front, so a transaction never fails half-way on a lock upgrade.</summary>
-    private protected override ValueTask<DbTransaction> BeginWriteAsync(DbConnection connection, CancellationToken cancellationToken)
+    /// <summary>BEGIN IMMEDIATE: takes the write lock up front, so a transaction never fails half-way on a lock
+    /// upgrade.</summary>
+    private protected override ValueTask<DbTransaction> BeginWriteAsync(
+        DbConnection connection,
+        CancellationToken cancellationToken
+    )
     {
         cancellationToken.ThrowIfCancellationRequested();
-        return ValueTask.FromResult<DbTransaction>(((SqliteConnection)connection).BeginTransaction(IsolationLevel.Serializable, deferred: false));
+        return ValueTask.FromResult<DbTransaction>(
+            ((SqliteConnection)connection).BeginTransaction(IsolationLevel.Serializable, deferred: false)
+        );
     }
 
-    private protected override object TimeValue(DateTimeOffset time) => (time.UtcTicks - DateTimeOffset.UnixEpoch.UtcTicks) / 10;
+    private protected override object TimeValue(DateTimeOffset time) =>
+        (time.UtcTicks - DateTimeOffset.UnixEpoch.UtcTicks) / 10;
 
     private protected override DateTimeOffset ReadTime(DbDataReader reader, int ordinal) =>
         DateTimeOffset.UnixEpoch.AddTicks(reader.GetInt64(ordinal) * 10);

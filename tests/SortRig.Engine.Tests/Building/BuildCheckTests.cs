@@ -12,7 +12,11 @@ namespace SortRig.Engine.Tests.Building;
 public sealed class BuildCheckTests
 {
     private static BuildCheck Check(int sets, SortRig.Planning.Recipes.Recipe? recipe = null) =>
-        new(new BuildTarget(recipe ?? BuildParts.Quad, sets, null), new AssemblyOptions(timeLimit: TimeSpan.FromSeconds(1)), 0.01);
+        new(
+            new BuildTarget(recipe ?? BuildParts.Quad, sets, null),
+            new AssemblyOptions(timeLimit: TimeSpan.FromSeconds(1)),
+            0.01
+        );
 
     [Fact]
     public void Complete_AgreesWithExhaustiveSearch_OnSmallReels()
@@ -22,12 +26,22 @@ public sealed class BuildCheckTests
         for (var trial = 0; trial < 300; trial++)
         {
             var n = random.Next(3, 13);
-            var parts = Enumerable.Range(1, n).Select(i => BuildParts.Part(i, 10_000, (random.NextDouble() - 0.5) * 4000, 10 + (30 * random.NextDouble()))).ToList();
+            var parts = Enumerable
+                .Range(1, n)
+                .Select(i =>
+                    BuildParts.Part(i, 10_000, (random.NextDouble() - 0.5) * 4000, 10 + (30 * random.NextDouble()))
+                )
+                .ToList();
             var sets = 1 + random.Next(2);
             int most;
             try
             {
-                most = MatchedBruteForce.MaxDisjoint(parts.Select(p => (p.Value, p.Measured.ExpandedTransfer)).ToList(), 4, 10_000, 1000);
+                most = MatchedBruteForce.MaxDisjoint(
+                    parts.Select(p => (p.Value, p.Measured.ExpandedTransfer)).ToList(),
+                    4,
+                    10_000,
+                    1000
+                );
             }
             catch (InvalidOperationException)
             {
@@ -38,12 +52,16 @@ public sealed class BuildCheckTests
             Assert.Equal(most >= sets, status.Complete);
             if (status.Complete)
             {
-                // The pick list holds exactly the target's sets, each meeting the tolerance by the brute force's own rule.
+                // The pick list holds exactly the target's sets, each meeting the tolerance by the brute force's own
+                // rule.
                 Assert.Equal(sets, status.Plan!.List.Sets.Count);
                 foreach (var set in status.Plan.List.Sets)
                 {
                     var members = set.Items.Select(i => parts.Single(p => p.Id == i.PartId)).ToList();
-                    Assert.True(MatchedBruteForce.WorstPpm(members.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000) <= 1000);
+                    Assert.True(
+                        MatchedBruteForce.WorstPpm(members.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000)
+                            <= 1000
+                    );
                 }
 
                 Assert.Equal(4 * sets, status.Plan.PickedIds.Distinct().Count());
@@ -55,13 +73,19 @@ public sealed class BuildCheckTests
         Assert.True(agreed > 250, $"only {agreed} instances decided");
     }
 
-    // Hand-worked: three parts at -100, 0, +100 ppm (U 20 ppm) and one quad wanted: a fourth part completes the set when
-    // max(x+U)/min(x−U) − 1 ≤ 1000 ppm, i.e. from about +100 + 20 + 20 − 1000 = −860 ppm up to −100 − 40 + 1000 = +860 ppm
-    // (U of the probe is the others' median, 20 ppm); the probe grid steps 250 ppm, so the band reported lies inside.
+    // Hand-worked: three parts at -100, 0, +100 ppm (U 20 ppm) and one quad wanted: a fourth part completes the set
+    // when max(x+U)/min(x−U) − 1 ≤ 1000 ppm, i.e. from about +100 + 20 + 20 − 1000 = −860 ppm up to −100 − 40 + 1000 =
+    // +860 ppm (U of the probe is the others' median, 20 ppm); the probe grid steps 250 ppm, so the band reported lies
+    // inside.
     [Fact]
     public void OneShort_BandWhereAFourthPartCompletes()
     {
-        var parts = new List<PartRecord> { BuildParts.Part(1, 10_000, -100), BuildParts.Part(2, 10_000, 0), BuildParts.Part(3, 10_000, 100) };
+        var parts = new List<PartRecord>
+        {
+            BuildParts.Part(1, 10_000, -100),
+            BuildParts.Part(2, 10_000, 0),
+            BuildParts.Part(3, 10_000, 100),
+        };
         var status = Check(1).Evaluate(parts, 10_000);
         Assert.False(status.Complete);
         Assert.Equal(1, status.Count.MoreAtLeast);
@@ -69,7 +93,11 @@ public sealed class BuildCheckTests
         var band = Assert.NotNull(status.Band);
         Assert.InRange(band.LowPpm, -860, -500);
         Assert.InRange(band.HighPpm, 500, 860);
-        Assert.Contains("a 10k part between -750 and +750 ppm completes the sets", status.Line(), StringComparison.Ordinal);
+        Assert.Contains(
+            "a 10k part between -750 and +750 ppm completes the sets",
+            status.Line(),
+            StringComparison.Ordinal
+        );
 
         // A part in the band does complete the set; one beyond the hand-worked edge does not.
         Assert.True(Check(1).Evaluate([.. parts, BuildParts.Part(4, 10_000, band.HighPpm)], 10_000).Complete);
@@ -80,7 +108,12 @@ public sealed class BuildCheckTests
     [Fact]
     public void TwoNominals_FeedsTheShortOne()
     {
-        var parts = new List<PartRecord> { BuildParts.Part(1, 10_000, 0), BuildParts.Part(2, 10_000, 10), BuildParts.Part(3, 10_000, 20) };
+        var parts = new List<PartRecord>
+        {
+            BuildParts.Part(1, 10_000, 0),
+            BuildParts.Part(2, 10_000, 10),
+            BuildParts.Part(3, 10_000, 20),
+        };
         var status = Check(1, BuildParts.LadderPair).Evaluate(parts, 10_000);
         Assert.Equal(20_000, status.FeedNext);
         Assert.Equal(2, status.Count.MoreAtLeast);

@@ -3,7 +3,8 @@ using SortRig.Planning.Assembly;
 
 namespace SortRig.Engine.Tests.Building;
 
-/// <summary>The count bounds of a build against hand counts of the positions and parts (each figure worked by hand below).</summary>
+/// <summary>The count bounds of a build against hand counts of the positions and parts (each figure worked by hand
+/// below).</summary>
 public sealed class BuildCountsTests
 {
     private static readonly AssemblyOptions s_options = new();
@@ -56,16 +57,25 @@ public sealed class BuildCountsTests
         Assert.Equal(1, count.SetsBound);
     }
 
-    // Property (monotone supply, common practice, no source): one more wanted part lowers what is still needed by at most one and never raises it.
+    // Property (monotone supply, common practice, no source): one more wanted part lowers what is still needed by at
+    // most one and never raises it.
     [Fact]
     public void MorePartsNeverNeedMore()
     {
         var random = new Random(20);
         for (var trial = 0; trial < 500; trial++)
         {
-            var nominals = Enumerable.Range(0, random.Next(0, 30)).Select(_ => random.Next(2) == 0 ? 10_000.0 : 20_000.0).ToList();
+            var nominals = Enumerable
+                .Range(0, random.Next(0, 30))
+                .Select(_ => random.Next(2) == 0 ? 10_000.0 : 20_000.0)
+                .ToList();
             var before = BuildCounts.Count(BuildParts.Ladder8, 1 + random.Next(3), nominals, s_options);
-            var after = BuildCounts.Count(BuildParts.Ladder8, before.Needs.Sum(n => n.Wanted) / 12, [.. nominals, 10_000.0], s_options);
+            var after = BuildCounts.Count(
+                BuildParts.Ladder8,
+                before.Needs.Sum(n => n.Wanted) / 12,
+                [.. nominals, 10_000.0],
+                s_options
+            );
             Assert.InRange(after.MoreAtLeast, Math.Max(0, before.MoreAtLeast - 1), before.MoreAtLeast);
         }
     }

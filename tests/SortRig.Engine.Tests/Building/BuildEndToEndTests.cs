@@ -36,7 +36,9 @@ public sealed class BuildEndToEndTests(ITestOutputHelper output) : IDisposable
         var twoR = Toward(session.Options(20_000, 60, BridgeMode.Always), recipePath, csv);
         twoR.Reopen = true;
         var second = await session.RunAsync(twoR);
-        output.WriteLine(string.Join('\n', second.Heard.Split('\n').Where(l => l.StartsWith("note:", StringComparison.Ordinal))));
+        output.WriteLine(
+            string.Join('\n', second.Heard.Split('\n').Where(l => l.StartsWith("note:", StringComparison.Ordinal)))
+        );
 
         var build = second.Outcome!.Build!;
         Assert.True(build.Complete, build.Line);
@@ -52,19 +54,26 @@ public sealed class BuildEndToEndTests(ITestOutputHelper output) : IDisposable
         Assert.Equal(1 + (4 * Sets), lines.Length); // header + one row per position
 
         // Every set against the truth: true ratio spread max(t/n)/min(t/n) − 1 within the recipe's 2000 ppm (the
-        // matched-form rule, docs/planning.md). Truth is by reel index = part number − 1, from the run whose reel held it.
+        // matched-form rule, docs/planning.md). Truth is by reel index = part number − 1, from the run whose reel held
+        // it.
         foreach (var set in plan.List.Sets)
         {
-            var q = set.Items.Select(i => parts[i.PartId!.Value]).Select(p =>
-                (p.Nominal == 10_000 ? first.Bench : second.Bench).Truth(p.Number - 1) / p.Nominal).ToList();
+            var q = set
+                .Items.Select(i => parts[i.PartId!.Value])
+                .Select(p => (p.Nominal == 10_000 ? first.Bench : second.Bench).Truth(p.Number - 1) / p.Nominal)
+                .ToList();
             var spreadPpm = ((q.Max() / q.Min()) - 1) * 1e6;
-            output.WriteLine($"set {set.Number}: parts {string.Join(", ", set.Items.Select(i => i.PartId))}, true spread {spreadPpm:F0} ppm, stated worst case {set.Outputs[0].WorstCaseError:F0} ppm");
+            output.WriteLine(
+                $"set {set.Number}: parts {string.Join(", ", set.Items.Select(i => i.PartId))}, true spread "
+                    + $"{spreadPpm:F0} ppm, stated worst case {set.Outputs[0].WorstCaseError:F0} ppm"
+            );
             Assert.InRange(spreadPpm, 0, 2000);
             Assert.Equal(2, set.Items.Count(i => i.Nominal == 10_000));
             Assert.Equal(2, set.Items.Count(i => i.Nominal == 20_000));
         }
 
-        // Nothing sorted after the sets were in hand: the last part is in a set or the sets could not be made without it.
+        // Nothing sorted after the sets were in hand: the last part is in a set or the sets could not be made without
+        // it.
         Assert.Equal(second.Outcome.PartsRecorded, parts.Values.Max(p => p.Number));
         Assert.All(parts.Values, p => Assert.Equal(PartState.Announced, p.State));
     }

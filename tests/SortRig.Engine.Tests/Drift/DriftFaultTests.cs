@@ -4,7 +4,8 @@ using SortRig.Tests.Support;
 
 namespace SortRig.Engine.Tests.Drift;
 
-/// <summary>A meter that drops the connection and one that silently resets, mid-run (simulator fault injector).</summary>
+/// <summary>A meter that drops the connection and one that silently resets, mid-run (simulator fault
+/// injector).</summary>
 public sealed class DriftFaultTests : IDisposable
 {
     private readonly string _dir = Directory.CreateTempSubdirectory("sortrig-drift-fault-").FullName;
@@ -15,7 +16,14 @@ public sealed class DriftFaultTests : IDisposable
     public async Task DropAndReset_MidRun_RunContinues_GapsMarked_NoSampleLostOrDuplicated()
     {
         var db = Path.Combine(_dir, "faults.db");
-        var settings = new DriftOptions { Database = db, Channels = "101-104", IntervalSeconds = 10, Hours = 1, Seed = 5 }.Validate();
+        var settings = new DriftOptions
+        {
+            Database = db,
+            Channels = "101-104",
+            IntervalSeconds = 10,
+            Hours = 1,
+            Seed = 5,
+        }.Validate();
         var armed = new HashSet<FaultKind>();
 
         var (outcome, bench) = await DriftRuns.RunAsync(settings, (b, next) =>

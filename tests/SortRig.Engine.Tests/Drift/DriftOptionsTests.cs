@@ -21,30 +21,58 @@ public sealed class DriftOptionsTests
     public void Validate_DefaultPt100_IsTheChannelAfterTheHighestPartChannel()
     {
         // Our own default layout: parts first, the Pt100 on the next channel.
-        Assert.Equal(113, new DriftOptions { Channels = "101-112" }.Validate().Pt100Channel);
-        Assert.Equal(108, new DriftOptions { Channels = "107,101-103" }.Validate().Pt100Channel);
+        Assert.Equal(
+            113,
+            new DriftOptions { Channels = "101-112" }
+                .Validate()
+                .Pt100Channel
+        );
+        Assert.Equal(
+            108,
+            new DriftOptions { Channels = "107,101-103" }
+                .Validate()
+                .Pt100Channel
+        );
     }
 
     [Theory]
     [InlineData("night\nERROR forged line", null, "Drift.Run", "U+000A")]
     [InlineData("overnight", "rack 2\u001b]0;owned\u0007", "Drift.Notes", "U+001B")]
-    public void Validate_ControlCharacterInRunOrNotes_RefusedNamingTheOptionAndTheCharacter(string run, string? notes, string option, string shown)
+    public void Validate_ControlCharacterInRunOrNotes_RefusedNamingTheOptionAndTheCharacter(
+        string run,
+        string? notes,
+        string option,
+        string shown
+    )
     {
         var e = Assert.Throws<ArgumentException>(() => new DriftOptions { Run = run, Notes = notes }.Validate());
 
-        Assert.StartsWith(option + " must be plain text without control characters", e.Message, StringComparison.Ordinal);
+        Assert.StartsWith(
+            option + " must be plain text without control characters",
+            e.Message,
+            StringComparison.Ordinal
+        );
         Assert.Contains(shown, e.Message, StringComparison.Ordinal);
         Assert.DoesNotContain(e.Message, char.IsControl);
     }
 
     [Fact]
     public void Validate_DeviceAsDatabase_Refused() =>
-        Assert.Contains("is a device", Assert.Throws<ArgumentException>(() => new DriftOptions { Database = "/dev/null" }.Validate()).Message, StringComparison.Ordinal);
+        Assert.Contains(
+            "is a device",
+            Assert.Throws<ArgumentException>(() => new DriftOptions { Database = "/dev/null" }.Validate()).Message,
+            StringComparison.Ordinal
+        );
 
     [Fact]
     public void Validate_ZeroHoursAndNoPt100_LogsUntilStoppedWithoutThermometer()
     {
-        var s = new DriftOptions { Hours = 0, Pt100Channel = 0, Channels = "105" }.Validate();
+        var s = new DriftOptions
+        {
+            Hours = 0,
+            Pt100Channel = 0,
+            Channels = "105",
+        }.Validate();
 
         Assert.Null(s.Duration);
         Assert.Null(s.Pt100Channel);
@@ -62,11 +90,21 @@ public sealed class DriftOptionsTests
         var o = new DriftOptions();
         switch (option)
         {
-            case nameof(DriftOptions.IntervalSeconds): o.IntervalSeconds = 0.5; break;
-            case nameof(DriftOptions.Hours): o.Hours = -1; break;
-            case nameof(DriftOptions.BatchSize): o.BatchSize = 0; break;
-            case nameof(DriftOptions.Pt100Channel): o.Pt100Channel = 102; break; // a part channel
-            default: o.Speed = 20_000; break;
+            case nameof(DriftOptions.IntervalSeconds):
+                o.IntervalSeconds = 0.5;
+                break;
+            case nameof(DriftOptions.Hours):
+                o.Hours = -1;
+                break;
+            case nameof(DriftOptions.BatchSize):
+                o.BatchSize = 0;
+                break;
+            case nameof(DriftOptions.Pt100Channel):
+                o.Pt100Channel = 102;
+                break; // a part channel
+            default:
+                o.Speed = 20_000;
+                break;
         }
 
         var e = Assert.Throws<ArgumentException>(() => o.Validate());
@@ -77,7 +115,9 @@ public sealed class DriftOptionsTests
     [Fact]
     public void Validate_SpeedWithARealMeter_IsRefused()
     {
-        var e = Assert.Throws<ArgumentException>(() => new DriftOptions { Resource = "TCPIP::127.0.0.1::5025::SOCKET", Speed = 60 }.Validate());
+        var e = Assert.Throws<ArgumentException>(() =>
+            new DriftOptions { Resource = "TCPIP::127.0.0.1::5025::SOCKET", Speed = 60 }.Validate()
+        );
 
         Assert.Contains("simulator only", e.Message, StringComparison.Ordinal);
     }

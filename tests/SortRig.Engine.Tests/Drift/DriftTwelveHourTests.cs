@@ -22,7 +22,15 @@ public sealed class DriftTwelveHourTests : IDisposable
     public async Task TwelveHourRun_EverySampleOnce_TemperatureDriftAndTempcoMatchTheSimulator()
     {
         var db = Path.Combine(_dir, "night.db");
-        var settings = new DriftOptions { Database = db, Run = "night", Channels = "101-104", IntervalSeconds = 10, Hours = 12.1, Seed = 11 }.Validate();
+        var settings = new DriftOptions
+        {
+            Database = db,
+            Run = "night",
+            Channels = "101-104",
+            IntervalSeconds = 10,
+            Hours = 12.1,
+            Seed = 11,
+        }.Validate();
         var memory = new SortedDictionary<int, long>();
         int[] checkpoints = [1, 6, 12];
 
@@ -39,7 +47,13 @@ public sealed class DriftTwelveHourTests : IDisposable
         const int scans = 4356;
         Assert.Equal(scans, outcome.Scans);
         Assert.Equal(0, outcome.SkippedTicks);
-        Assert.True(outcome.Gaps == 0, string.Join("\n", (await DriftRuns.GapsAsync(db, outcome.RunId)).Select(g => $"{g.From:O}..{g.To:O} {g.Reason}")));
+        Assert.True(
+            outcome.Gaps == 0,
+            string.Join(
+                "\n",
+                (await DriftRuns.GapsAsync(db, outcome.RunId)).Select(g => $"{g.From:O}..{g.To:O} {g.Reason}")
+            )
+        );
         var samples = await DriftRuns.SamplesAsync(db, outcome.RunId);
         Assert.Equal(scans * 6, samples.Count);
         Assert.Equal(samples.Count, outcome.SamplesStored);
@@ -62,15 +76,22 @@ public sealed class DriftTwelveHourTests : IDisposable
             var part = bench.Scanner.Occupant(settings.Channels[i])!;
             var fit = outcome.Channels[i].Joint!;
             Assert.Equal(4356, outcome.Channels[i].Count);
-            Assert.True(Math.Abs(fit.PpmPerHour.Value - part.DriftPpmPerHour) <= 4 * fit.PpmPerHour.StandardError,
-                $"ch{settings.Channels[i]} drift {fit.PpmPerHour} vs true {part.DriftPpmPerHour}");
-            Assert.True(Math.Abs(fit.PpmPerKelvin.Value - part.TempcoPpmPerKelvin) <= 4 * fit.PpmPerKelvin.StandardError,
-                $"ch{settings.Channels[i]} tempco {fit.PpmPerKelvin} vs true {part.TempcoPpmPerKelvin}");
+            Assert.True(
+                Math.Abs(fit.PpmPerHour.Value - part.DriftPpmPerHour) <= 4 * fit.PpmPerHour.StandardError,
+                $"ch{settings.Channels[i]} drift {fit.PpmPerHour} vs true {part.DriftPpmPerHour}"
+            );
+            Assert.True(
+                Math.Abs(fit.PpmPerKelvin.Value - part.TempcoPpmPerKelvin) <= 4 * fit.PpmPerKelvin.StandardError,
+                $"ch{settings.Channels[i]} tempco {fit.PpmPerKelvin} vs true {part.TempcoPpmPerKelvin}"
+            );
         }
 
         // Memory stays flat however long the run: the loose bound here; the figures are in docs/bench-drift.md.
         Assert.Equal(checkpoints, memory.Keys);
         var growth = memory[12] - memory[1];
-        Assert.True(growth < 4 << 20, $"managed memory grew {growth / 1024.0:F0} KiB from 1 h to 12 h ({string.Join(", ", memory)})");
+        Assert.True(
+            growth < 4 << 20,
+            $"managed memory grew {growth / 1024.0:F0} KiB from 1 h to 12 h ({string.Join(", ", memory)})"
+        );
     }
 }

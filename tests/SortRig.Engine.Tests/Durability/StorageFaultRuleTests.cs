@@ -3,7 +3,8 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Engine.Tests.Durability;
 
-/// <summary>The one durable-write rule sorting and drift share (common practice, no source: wait for what clears).</summary>
+/// <summary>The one durable-write rule sorting and drift share (common practice, no source: wait for what
+/// clears).</summary>
 public sealed class StorageFaultRuleTests
 {
     [Theory]
@@ -15,7 +16,11 @@ public sealed class StorageFaultRuleTests
     [InlineData(StorageFault.Corrupt, false, false)]
     [InlineData(StorageFault.Constraint, false, false)]
     [InlineData(StorageFault.Conflict, false, false)]
-    public void Fault_SortingWaitsForWhatAPersonCanClear_DriftRetriesOnlyWhatClearsByItself(StorageFault fault, bool sortingWaits, bool driftRetries)
+    public void Fault_SortingWaitsForWhatAPersonCanClear_DriftRetriesOnlyWhatClearsByItself(
+        StorageFault fault,
+        bool sortingWaits,
+        bool driftRetries
+    )
     {
         Assert.Equal(sortingWaits, StorageFaultRule.OperatorCanClear(fault));
         Assert.Equal(driftRetries, StorageFaultRule.ClearsByItself(fault));

@@ -66,7 +66,9 @@ public sealed class BenchEventHubTests
             hub.Publish(new BenchEvent(0, BenchEventKind.Reading, default, Value: i));
             if (i % 200 == 199)
             {
-                hub.Publish(new BenchEvent(0, BenchEventKind.Announcement, default, PartNumber: (i + 1) / 200, Cup: "A"));
+                hub.Publish(
+                    new BenchEvent(0, BenchEventKind.Announcement, default, PartNumber: (i + 1) / 200, Cup: "A")
+                );
             }
         }
 

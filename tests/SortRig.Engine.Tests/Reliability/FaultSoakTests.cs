@@ -64,11 +64,16 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
         SoakResult r;
         try
         {
-            r = await FaultSoak.RunAsync(options, settings, serve: async (bench, ct) =>
-            {
-                await bench.StartSerialAsync(cable.MeterSide, ct);
-                return $"ASRL::{cable.HostSide}::INSTR";
-            }, Limit);
+            r = await FaultSoak.RunAsync(
+                options,
+                settings,
+                serve: async (bench, ct) =>
+                {
+                    await bench.StartSerialAsync(cable.MeterSide, ct);
+                    return $"ASRL::{cable.HostSide}::INSTR";
+                },
+                Limit
+            );
         }
         finally
         {
@@ -84,5 +89,7 @@ public sealed class FaultSoakTests(ITestOutputHelper output) : IDisposable
     }
 
     private static TimeSpan Limit =>
-        TimeSpan.FromSeconds(double.TryParse(Environment.GetEnvironmentVariable("SORTRIG_SOAK_LIMIT_S"), out var l) ? l : 600);
+        TimeSpan.FromSeconds(
+            double.TryParse(Environment.GetEnvironmentVariable("SORTRIG_SOAK_LIMIT_S"), out var l) ? l : 600
+        );
 }

@@ -48,10 +48,13 @@ public sealed class MeterRecoveryTests : IDisposable
         var sort = new InProcessSort(Options(parts: 2, speed: 50));
         using var cts = new CancellationTokenSource(s_limit);
 
-        await Assert.ThrowsAsync<InstrumentSetupException>(
-            () => sort.RunAsync(b => b with { Faults = b.Faults with { SilentResetRate = 1 } }, cts.Token));
+        await Assert.ThrowsAsync<InstrumentSetupException>(() =>
+            sort.RunAsync(b => b with { Faults = b.Faults with { SilentResetRate = 1 } }, cts.Token)
+        );
 
-        var told = sort.Ears.Text.Split('\n').Count(l => l.Contains("setting read back wrong", StringComparison.Ordinal));
+        var told = sort
+            .Ears.Text.Split('\n')
+            .Count(l => l.Contains("setting read back wrong", StringComparison.Ordinal));
         Assert.Equal(MeterFaults.SetupRetries, told);
     }
 
@@ -68,7 +71,8 @@ public sealed class MeterRecoveryTests : IDisposable
         var bench = await sort.Bench;
         Assert.Equal(3, outcome.PartsRecorded);
         Assert.True(bench.Faults.Log.Total > 0, "no fault injected");
-        Assert.All(Enum.GetValues<FaultKind>(), k => Assert.Equal(0.1 / 6, bench.Faults.Rate(k), 12)); // 100 per 1000 over six kinds
+        // 100 per 1000 over six kinds
+        Assert.All(Enum.GetValues<FaultKind>(), k => Assert.Equal(0.1 / 6, bench.Faults.Rate(k), 12));
     }
 
     [Fact]
@@ -79,8 +83,9 @@ public sealed class MeterRecoveryTests : IDisposable
         var sort = new InProcessSort(Options(parts: 2, speed: 200));
         using var cts = new CancellationTokenSource(s_limit);
 
-        var e = await Assert.ThrowsAsync<MeterUnreadableException>(
-            () => sort.RunAsync(b => b with { Faults = b.Faults with { NotANumberRate = 1 } }, cts.Token));
+        var e = await Assert.ThrowsAsync<MeterUnreadableException>(() =>
+            sort.RunAsync(b => b with { Faults = b.Faults with { NotANumberRate = 1 } }, cts.Token)
+        );
 
         var bench = await sort.Bench;
         Assert.Equal(UnreadableStreak.DefaultLimit, e.Count);
@@ -112,15 +117,16 @@ public sealed class MeterRecoveryTests : IDisposable
         Assert.Equal(UnreadableStreak.DefaultLimit - 1, bench.Faults.Log.Count(FaultKind.NotANumber));
     }
 
-    private SortOptions Options(int parts, double speed) => new()
-    {
-        Database = Path.Combine(_dir, $"{Guid.NewGuid():N}.db"),
-        Session = "recover",
-        Parts = parts,
-        Seed = 515,
-        Speed = speed,
-        Nplc = 10,
-        Speech = false,
-        Live = false,
-    };
+    private SortOptions Options(int parts, double speed) =>
+        new()
+        {
+            Database = Path.Combine(_dir, $"{Guid.NewGuid():N}.db"),
+            Session = "recover",
+            Parts = parts,
+            Seed = 515,
+            Speed = speed,
+            Nplc = 10,
+            Speech = false,
+            Live = false,
+        };
 }

@@ -35,10 +35,18 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         var outcome = await run;
 
         Assert.Equal(2, outcome.PartsRecorded);
-        Assert.Contains("a new part went in before the fixture was seen empty", sort.Ears.Text, StringComparison.Ordinal);
+        Assert.Contains(
+            "a new part went in before the fixture was seen empty",
+            sort.Ears.Text,
+            StringComparison.Ordinal
+        );
         await using var log = await PrecisionLogFactory.OpenAsync(sort.Options.Database, null, default);
         var second = (await log.GetPartsAsync(outcome.SessionId, default))[1];
-        Assert.InRange(second.Value, bench.Truth(1) - second.Measured.Expanded, bench.Truth(1) + second.Measured.Expanded);
+        Assert.InRange(
+            second.Value,
+            bench.Truth(1) - second.Measured.Expanded,
+            bench.Truth(1) + second.Measured.Expanded
+        );
     }
 
     [Fact]
@@ -47,11 +55,20 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         // A reel of parts a few ppm apart (sigma 5 ppm), no tempco: values cannot tell them apart.
         var sort = new InProcessSort(Options(parts: 2, speed: 50));
         using var cts = new CancellationTokenSource(s_limit);
-        var run = sort.RunAsync(b => b with
-        {
-            Operator = b.Operator with { Mode = OperatorMode.Manual },
-            Reel = b.Reel with { TolerancePercent = 0.01, Distribution = ValueDistribution.Normal(0.05), TempcoSigmaPpmPerKelvin = 0 },
-        }, cts.Token);
+        var run = sort.RunAsync(
+            b =>
+                b with
+                {
+                    Operator = b.Operator with { Mode = OperatorMode.Manual },
+                    Reel = b.Reel with
+                    {
+                        TolerancePercent = 0.01,
+                        Distribution = ValueDistribution.Normal(0.05),
+                        TempcoSigmaPpmPerKelvin = 0,
+                    },
+                },
+            cts.Token
+        );
         var bench = await sort.Bench;
         Assert.InRange(Math.Abs(bench.Truth(1) - bench.Truth(0)) / bench.Truth(0) * 1e6, 0, 20);
         await SwapDuringOutageAsync(sort, bench);
@@ -59,7 +76,11 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         var outcome = await run;
 
         Assert.Equal(2, outcome.PartsRecorded);
-        Assert.Contains("a part is still in the fixture after the meter came back", sort.Ears.Text, StringComparison.Ordinal);
+        Assert.Contains(
+            "a part is still in the fixture after the meter came back",
+            sort.Ears.Text,
+            StringComparison.Ordinal
+        );
     }
 
     [Fact]
@@ -69,17 +90,27 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         // in a row to call it a removal) before the next part goes in. No meter fault at all.
         var sort = new InProcessSort(Options(parts: 2, speed: 5));
         using var cts = new CancellationTokenSource(s_limit);
-        var run = sort.RunAsync(b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual }, ContactBounce = TimeSpan.Zero }, cts.Token);
+        var run = sort.RunAsync(
+            b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual }, ContactBounce = TimeSpan.Zero },
+            cts.Token
+        );
         var bench = await sort.Bench;
         var first = sort.Ears.HeardAsync(l => l.StartsWith("part 1: cup", StringComparison.Ordinal), s_limit);
-        await InProcessSort.UntilAsync(() => sort.Services.Snapshot.Session is not null, s_limit, "the session to open");
+        await InProcessSort.UntilAsync(
+            () => sort.Services.Snapshot.Session is not null,
+            s_limit,
+            "the session to open"
+        );
         bench.Fixture.Insert(bench.Reel[0], warmKelvin: 3);
         await first;
 
         var seen = sort.Services.Hub.History()[^1].Sequence;
         bench.Fixture.Remove();
         await InProcessSort.UntilAsync(
-            () => sort.Services.Hub.History().Any(e => e.Sequence > seen && e.Value is double.PositiveInfinity), s_limit, "one overload reading");
+            () => sort.Services.Hub.History().Any(e => e.Sequence > seen && e.Value is double.PositiveInfinity),
+            s_limit,
+            "one overload reading"
+        );
         bench.Fixture.Insert(bench.Reel[1], warmKelvin: 3);
 
         var outcome = await run;
@@ -88,7 +119,11 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         Assert.Equal(2, outcome.PartsRecorded);
         await using var log = await PrecisionLogFactory.OpenAsync(sort.Options.Database, null, default);
         var second = (await log.GetPartsAsync(outcome.SessionId, default))[1];
-        Assert.InRange(second.Value, bench.Truth(1) - second.Measured.Expanded, bench.Truth(1) + second.Measured.Expanded);
+        Assert.InRange(
+            second.Value,
+            bench.Truth(1) - second.Measured.Expanded,
+            bench.Truth(1) + second.Measured.Expanded
+        );
     }
 
     [Fact]
@@ -99,10 +134,17 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         var clock = new SteppedClock();
         var sort = new InProcessSort(Options(parts: 2, speed: 5), clock);
         using var cts = new CancellationTokenSource(s_limit);
-        var run = sort.RunAsync(b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual }, ContactBounce = TimeSpan.Zero }, cts.Token);
+        var run = sort.RunAsync(
+            b => b with { Operator = b.Operator with { Mode = OperatorMode.Manual }, ContactBounce = TimeSpan.Zero },
+            cts.Token
+        );
         var bench = await sort.Bench;
         var first = sort.Ears.HeardAsync(l => l.StartsWith("part 1: cup", StringComparison.Ordinal), s_limit);
-        await InProcessSort.UntilAsync(() => sort.Services.Snapshot.Session is not null, s_limit, "the session to open");
+        await InProcessSort.UntilAsync(
+            () => sort.Services.Snapshot.Session is not null,
+            s_limit,
+            "the session to open"
+        );
         bench.Fixture.Insert(bench.Reel[0], warmKelvin: 3);
         await first;
 
@@ -125,7 +167,11 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
         var sort = new InProcessSort(Options(parts: 1, speed: 50), clock);
         using var cts = new CancellationTokenSource(s_limit);
         var run = sort.RunAsync(null, cts.Token);
-        await InProcessSort.UntilAsync(() => sort.Services.Hub.History().Any(e => e.State == "Settling"), s_limit, "a settling reading");
+        await InProcessSort.UntilAsync(
+            () => sort.Services.Hub.History().Any(e => e.State == "Settling"),
+            s_limit,
+            "a settling reading"
+        );
 
         clock.Step(TimeSpan.FromSeconds(1));
         var outcome = await run;
@@ -141,28 +187,37 @@ public sealed class ReadingContinuityTests(ITestOutputHelper output) : IDisposab
     private static async Task SwapDuringOutageAsync(InProcessSort sort, SimulatedBench bench)
     {
         var first = sort.Ears.HeardAsync(l => l.StartsWith("part 1: cup", StringComparison.Ordinal), s_limit);
-        await InProcessSort.UntilAsync(() => sort.Services.Snapshot.Session is not null, s_limit, "the session to open");
+        await InProcessSort.UntilAsync(
+            () => sort.Services.Snapshot.Session is not null,
+            s_limit,
+            "the session to open"
+        );
 
         bench.Fixture.Insert(bench.Reel[0], warmKelvin: 3);
         await first;
 
         bench.Faults.ReplyDelay = TimeSpan.FromSeconds(30);
         bench.Faults.Inject(FaultKind.DelayReply);
-        await InProcessSort.UntilAsync(() => bench.Faults.Log.Count(FaultKind.DelayReply) > 0, s_limit, "the delayed reply");
+        await InProcessSort.UntilAsync(
+            () => bench.Faults.Log.Count(FaultKind.DelayReply) > 0,
+            s_limit,
+            "the delayed reply"
+        );
 
         bench.Fixture.Remove();
         bench.Fixture.Insert(bench.Reel[1], warmKelvin: 3);
     }
 
-    private SortOptions Options(int parts, double speed) => new()
-    {
-        Database = Path.Combine(_dir, $"{Guid.NewGuid():N}.db"),
-        Session = "recover",
-        Parts = parts,
-        Seed = 515,
-        Speed = speed,
-        Nplc = 10,
-        Speech = false,
-        Live = false,
-    };
+    private SortOptions Options(int parts, double speed) =>
+        new()
+        {
+            Database = Path.Combine(_dir, $"{Guid.NewGuid():N}.db"),
+            Session = "recover",
+            Parts = parts,
+            Seed = 515,
+            Speed = speed,
+            Nplc = 10,
+            Speech = false,
+            Live = false,
+        };
 }

@@ -53,13 +53,25 @@ public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
         }
     }
 
-    private async Task RunWithFaultAsync(string db, IStorageFault fault, bool injectInsideAnnouncement, string expectedWords)
+    private async Task RunWithFaultAsync(
+        string db,
+        IStorageFault fault,
+        bool injectInsideAnnouncement,
+        string expectedWords
+    )
     {
         var options = new SortOptions
         {
             // 10 NPLC: a reading takes 401 ms, 8 ms of wall time at speed 50 (ScaledTimeProvider timers
             // shorter than 1 ms of wall time fire at once, which would squeeze the readings together).
-            Database = db, Session = "storage", Parts = Parts, Seed = 909, Speed = 50, Nplc = 10, Speech = false, Live = false,
+            Database = db,
+            Session = "storage",
+            Parts = Parts,
+            Seed = 909,
+            Speed = 50,
+            Nplc = 10,
+            Speech = false,
+            Live = false,
         };
         var sort = new InProcessSort(options);
         using var cts = new CancellationTokenSource(s_limit);
@@ -77,7 +89,10 @@ public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
         }
 
         // The operator was told the part stays in the fixture until it is saved: a patient person.
-        var run = sort.RunAsync(b => b with { Operator = b.Operator with { MaxDwell = TimeSpan.FromHours(1) } }, cts.Token);
+        var run = sort.RunAsync(
+            b => b with { Operator = b.Operator with { MaxDwell = TimeSpan.FromHours(1) } },
+            cts.Token
+        );
         await third;
         if (!injectInsideAnnouncement)
         {
@@ -111,7 +126,10 @@ public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
         var parts = await log.GetPartsAsync(outcome.SessionId, default);
         Assert.Equal(Enumerable.Range(1, Parts), parts.Select(p => p.Number));
         Assert.All(parts, p => Assert.Equal(PartState.Announced, p.State));
-        Assert.Equal(parts.Select(p => $"{p.Number}:{p.CupLabel}"), Announcements.Cups(sort.Ears.Text).Select(h => $"{h.Part}:{h.Cup}"));
+        Assert.Equal(
+            parts.Select(p => $"{p.Number}:{p.CupLabel}"),
+            Announcements.Cups(sort.Ears.Text).Select(h => $"{h.Part}:{h.Cup}")
+        );
         var bench = await sort.Bench;
         var (problems, _) = TruthCheck.Compare(options, parts, n => bench.Truth(n - 1));
         Assert.Empty(problems);
@@ -131,7 +149,8 @@ public sealed class StorageFaultTests(ITestOutputHelper output) : IDisposable
         DatabaseChecks.AssertIntegrity(db);
         using var c = DatabaseChecks.Open(db);
         using var bare = c.CreateCommand();
-        bare.CommandText = "SELECT COUNT(*) FROM parts p WHERE (SELECT COUNT(*) FROM raw_readings r WHERE r.part_id = p.id) < 8";
+        bare.CommandText =
+            "SELECT COUNT(*) FROM parts p WHERE (SELECT COUNT(*) FROM raw_readings r WHERE r.part_id = p.id) < 8";
         Assert.Equal(0L, (long)bare.ExecuteScalar()!);
     }
 }

@@ -15,7 +15,10 @@ public sealed class VirtualClockTests
     public async Task DriveAsync_RandomDelaysFromSeveralTasks_FireAtTheSameTimesAsFakeTimeProvider()
     {
         var rng = new Random(4);
-        var chains = Enumerable.Range(0, 5).Select(_ => Enumerable.Range(0, 20).Select(_ => TimeSpan.FromMilliseconds(rng.Next(1, 5000))).ToArray()).ToArray();
+        var chains = Enumerable
+            .Range(0, 5)
+            .Select(_ => Enumerable.Range(0, 20).Select(_ => TimeSpan.FromMilliseconds(rng.Next(1, 5000))).ToArray())
+            .ToArray();
 
         var clock = new VirtualClock(s_start);
         var seen = new List<(int Chain, DateTimeOffset At)>();
@@ -41,9 +44,19 @@ public sealed class VirtualClockTests
     {
         var clock = new VirtualClock(s_start);
         var fired = new List<string>();
-        var cancelled = clock.CreateTimer(_ => fired.Add("cancelled"), null, TimeSpan.FromSeconds(1), Timeout.InfiniteTimeSpan);
+        var cancelled = clock.CreateTimer(
+            _ => fired.Add("cancelled"),
+            null,
+            TimeSpan.FromSeconds(1),
+            Timeout.InfiniteTimeSpan
+        );
         cancelled.Dispose();
-        using var periodic = clock.CreateTimer(_ => fired.Add(clock.GetUtcNow().ToString("ss", System.Globalization.CultureInfo.InvariantCulture)), null, TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(3));
+        using var periodic = clock.CreateTimer(
+            _ => fired.Add(clock.GetUtcNow().ToString("ss", System.Globalization.CultureInfo.InvariantCulture)),
+            null,
+            TimeSpan.FromSeconds(2),
+            TimeSpan.FromSeconds(3)
+        );
 
         await clock.DriveAsync(Task.Delay(TimeSpan.FromSeconds(9), clock), null, default);
 
@@ -54,11 +67,13 @@ public sealed class VirtualClockTests
     public async Task OperatorTimer_WaitsWhileTheSessionIsBusy_ThenFiresInTimeOrderOnceTheSessionWaitsOnTheClock()
     {
         var clock = new VirtualClock(s_start) { OperatorGrace = TimeSpan.FromHours(1) }; // never alone in this test
-        var handled = Task.Delay(TimeSpan.FromSeconds(2), clock.OperatorView).ContinueWith(
-            _ => clock.GetUtcNow(),
-            CancellationToken.None,
-            TaskContinuationOptions.ExecuteSynchronously,
-            TaskScheduler.Default);
+        var handled = Task.Delay(TimeSpan.FromSeconds(2), clock.OperatorView)
+            .ContinueWith(
+                _ => clock.GetUtcNow(),
+                CancellationToken.None,
+                TaskContinuationOptions.ExecuteSynchronously,
+                TaskScheduler.Default
+            );
         using var stop = new CancellationTokenSource();
         var driving = clock.DriveAsync(handled, null, stop.Token);
 
@@ -127,7 +142,12 @@ public sealed class VirtualClockTests
         Assert.Throws<ArgumentOutOfRangeException>(() => clock.MoveTo(s_start));
     }
 
-    private static async Task ChainAsync(TimeProvider time, int chain, TimeSpan[] delays, List<(int, DateTimeOffset)> seen)
+    private static async Task ChainAsync(
+        TimeProvider time,
+        int chain,
+        TimeSpan[] delays,
+        List<(int, DateTimeOffset)> seen
+    )
     {
         foreach (var d in delays)
         {

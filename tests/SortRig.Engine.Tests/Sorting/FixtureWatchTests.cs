@@ -12,7 +12,8 @@ public sealed class FixtureWatchTests
 
     private static FixtureWatch Watch() => new(s_period, TimeSpan.FromSeconds(5), v => 25e-6 * v);
 
-    private static Reading At(double seconds, double ohms = 10_000) => Reading.Finite(ohms, s_t0.AddSeconds(seconds), 10_000);
+    private static Reading At(double seconds, double ohms = 10_000) =>
+        Reading.Finite(ohms, s_t0.AddSeconds(seconds), 10_000);
 
     [Fact]
     public void Stall_GapLongerThanTheStallGapWhileSettling_MeasuresAgain()
@@ -29,7 +30,10 @@ public sealed class FixtureWatchTests
     {
         var watch = Watch();
         watch.CheckStall(At(0), SettleState.Settling);
-        Assert.Equal(new FixtureVerdict(FixtureAction.Excuse, TimeSpan.FromSeconds(2.5)), watch.CheckStall(At(3), SettleState.Settling));
+        Assert.Equal(
+            new FixtureVerdict(FixtureAction.Excuse, TimeSpan.FromSeconds(2.5)),
+            watch.CheckStall(At(3), SettleState.Settling)
+        );
         Assert.Equal(FixtureAction.None, watch.CheckStall(At(3.5), SettleState.Settling).Action); // on time
     }
 
@@ -62,8 +66,14 @@ public sealed class FixtureWatchTests
         var watch = Watch();
         watch.NoteDecided(10_000);
         watch.NoteStreamBroken(SettleState.AwaitingRemoval);
-        Assert.Equal(FixtureAction.None, watch.CheckSwap(At(0, 10_000.01), SettleState.AwaitingRemoval, (7, "C")).Action);
-        Assert.Equal(FixtureAction.None, watch.CheckSwap(At(19, 10_000.01), SettleState.AwaitingRemoval, (7, "C")).Action);
+        Assert.Equal(
+            FixtureAction.None,
+            watch.CheckSwap(At(0, 10_000.01), SettleState.AwaitingRemoval, (7, "C")).Action
+        );
+        Assert.Equal(
+            FixtureAction.None,
+            watch.CheckSwap(At(19, 10_000.01), SettleState.AwaitingRemoval, (7, "C")).Action
+        );
         var verdict = watch.CheckSwap(At(21, 10_000.01), SettleState.AwaitingRemoval, (7, "C"));
         Assert.Equal(FixtureAction.NewPart, verdict.Action);
         Assert.EndsWith("(if it is part 7, put it in cup C and press U)", verdict.Message, StringComparison.Ordinal);

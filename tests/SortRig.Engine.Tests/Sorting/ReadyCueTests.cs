@@ -5,7 +5,8 @@ using SortRig.Tests.Support;
 
 namespace SortRig.Engine.Tests.Sorting;
 
-/// <summary>The operator is told when to put the first part in: after the meter is set up, not while it connects.</summary>
+/// <summary>The operator is told when to put the first part in: after the meter is set up, not while it
+/// connects.</summary>
 [Collection(ReliabilityCollection.Name)]
 [Trait(ReliabilityCollection.Clock, ReliabilityCollection.Wall)]
 public sealed class ReadyCueTests : IDisposable
@@ -17,16 +18,18 @@ public sealed class ReadyCueTests : IDisposable
     [Fact]
     public async Task Ready_IsAnnouncedWithTheFixtureEmpty_ThenTheEmbeddedOperatorFeedsTheReel()
     {
-        var sort = new InProcessSort(new SortOptions
-        {
-            Database = Path.Combine(_dir, "cue.db"),
-            Session = "cue",
-            Parts = 2,
-            Seed = 31,
-            Speed = 50,
-            Speech = false,
-            Live = false,
-        });
+        var sort = new InProcessSort(
+            new SortOptions
+            {
+                Database = Path.Combine(_dir, "cue.db"),
+                Session = "cue",
+                Parts = 2,
+                Seed = 31,
+                Speed = 50,
+                Speech = false,
+                Live = false,
+            }
+        );
         using var cts = new CancellationTokenSource(TimeSpan.FromSeconds(60));
         var readyLines = new List<string>();
         var fixtureAtReady = new List<bool>();

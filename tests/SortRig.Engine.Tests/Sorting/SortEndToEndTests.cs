@@ -34,10 +34,13 @@ public sealed class SortEndToEndTests : IDisposable
             var finite = rs.Where(r => r.Kind == ReadingKind.Finite).Select(r => r.Value).ToList();
             var gaps = rs.Zip(rs.Skip(1)).Select(z => (z.Second.Time - z.First.Time).TotalSeconds).Where(s => s > 1);
             var span = (rs[^1].Time - rs[0].Time).TotalSeconds;
-            Assert.Fail($"part {p.Number} is {p.State}: {rs.Count} readings over {span:F1} s, "
-                + $"{rs.Count - finite.Count} overloads, first {finite.FirstOrDefault():F3}, "
-                + $"last {finite.LastOrDefault():F3}, truth {sort.Bench.Truth(p.Number - 1):F3}; "
-                + "gaps > 1 s: " + string.Join(", ", gaps.Select(s => $"{s:F1} s")));
+            Assert.Fail(
+                $"part {p.Number} is {p.State}: {rs.Count} readings over {span:F1} s, "
+                    + $"{rs.Count - finite.Count} overloads, first {finite.FirstOrDefault():F3}, "
+                    + $"last {finite.LastOrDefault():F3}, truth {sort.Bench.Truth(p.Number - 1):F3}; "
+                    + "gaps > 1 s: "
+                    + string.Join(", ", gaps.Select(s => $"{s:F1} s"))
+            );
         }
 
         // Each part in the cup its true value calls for, its value within its stated uncertainty of the truth.
@@ -69,7 +72,8 @@ public sealed class SortEndToEndTests : IDisposable
             6,
             4243,
             o => (o.Nominal, o.MatchTolerance) = (20_000, 0.0005),
-            new PlainTextAnnouncer(TextWriter.Null));
+            new PlainTextAnnouncer(TextWriter.Null)
+        );
 
         Assert.All(stored, p => Assert.Equal(PartState.Announced, p.State));
         Assert.All(stored, p => Assert.Equal(100_000, p.Range));
@@ -92,7 +96,8 @@ public sealed class SortEndToEndTests : IDisposable
             5150,
             o => o.Settle = SettleRule.Predictive,
             new PlainTextAnnouncer(TextWriter.Null),
-            snapshot);
+            snapshot
+        );
 
         Assert.All(stored, p => Assert.Equal(PartState.Announced, p.State));
 
@@ -110,7 +115,8 @@ public sealed class SortEndToEndTests : IDisposable
         Assert.Contains(stored, p => p.AcceptedBy == SettleRule.Predictive);
         Assert.Equal(
             stored.Select(p => p.AcceptedBy?.ToString()),
-            snapshot.Parts().OrderBy(v => v.Number).Select(v => v.AcceptedBy));
+            snapshot.Parts().OrderBy(v => v.Number).Select(v => v.AcceptedBy)
+        );
 
         // Simulator truth (its side channel) is the outside reference: each value within its stated U (k = 2), each
         // part in the cup its true value calls for unless a band edge lies within that U.
@@ -126,7 +132,8 @@ public sealed class SortEndToEndTests : IDisposable
         int seed,
         Action<SortOptions> adjust,
         IAnnouncer announcer,
-        BenchSnapshot? snapshot = null)
+        BenchSnapshot? snapshot = null
+    )
     {
         var options = new SortOptions
         {

@@ -21,7 +21,8 @@ public sealed class SortPaceTests
     [Fact]
     public void From_UnevenGaps_MeanIntervalFromFirstToLast()
     {
-        // 3 acceptances at 0, 2.5 and 12.5 s: (12.5 - 0) / 2 = 6.25 s per part; 3600 / 6.25 = 576 per hour (arithmetic).
+        // 3 acceptances at 0, 2.5 and 12.5 s: (12.5 - 0) / 2 = 6.25 s per part; 3600 / 6.25 = 576 per hour
+        // (arithmetic).
         var pace = SortPace.From([T0, T0.AddSeconds(2.5), T0.AddSeconds(12.5)]);
 
         Assert.Equal(6.25, pace.SecondsPerPart!.Value, 12);

@@ -8,8 +8,9 @@ namespace SortRig.Engine.Tests.Sorting;
 
 /// <summary>
 /// The settle target SortPlan chooses on the simulator profile (instruments/simulator.yaml: 100 k range at 1 NPLC,
-/// noise 0.7 ppm and step 1 ppm of range, 24 readings/s; 10 k range likewise): small against the match band, reachable on the
-/// locked range and NPLC, or refused up front with remedies. Expected figures are derived by hand from the profile.
+/// noise 0.7 ppm and step 1 ppm of range, 24 readings/s; 10 k range likewise): small against the match band, reachable
+/// on the locked range and NPLC, or refused up front with remedies. Expected figures are derived by hand from the
+/// profile.
 /// </summary>
 public sealed class SortPlanTargetTests
 {
@@ -39,9 +40,13 @@ public sealed class SortPlanTargetTests
         Assert.Equal(0.0757, reach.ReadingSigma, 4);
         Assert.Equal(0.0757 / Math.Sqrt(8), reach.Sem, 4);
         Assert.Equal(0.0633, reach.Floor, 4);
-        Assert.True(plan.Settle.Target.Value >= 2 * reach.Floor / 20_000 * 1e6, $"target {plan.Settle.Target.Value} ppm");
+        Assert.True(
+            plan.Settle.Target.Value >= 2 * reach.Floor / 20_000 * 1e6,
+            $"target {plan.Settle.Target.Value} ppm"
+        );
 
-        // Still small against the band: at most the range rule's allowed expanded uncertainty (125 ppm) over 2 sqrt(4/3).
+        // Still small against the band: at most the range rule's allowed expanded uncertainty (125 ppm) over 2
+        // sqrt(4/3).
         Assert.InRange(plan.Settle.Target.Value, 2.5, 125 / (2 * Math.Sqrt(4.0 / 3)));
     }
 
@@ -50,8 +55,9 @@ public sealed class SortPlanTargetTests
     {
         var options = new SortOptions { Nominal = 20_000, MatchTolerance = 0.00005 };
 
-        // The range rule alone accepts the 100 k range, 2-wire at 1 NPLC: 0.05/√3, 0.07/√8, 0.1 × (0.6 + 0.4)/√3 and the
-        // 0.1 Ohm lead term /√3 give u = 0.0901 Ohm, expanded 0.180 Ohm = 9.0 ppm of 12.5 ppm allowed (0.25 × 50 ppm) ...
+        // The range rule alone accepts the 100 k range, 2-wire at 1 NPLC: 0.05/√3, 0.07/√8, 0.1 × (0.6 + 0.4)/√3 and
+        // the 0.1 Ohm lead term /√3 give u = 0.0901 Ohm, expanded 0.180 Ohm = 9.0 ppm of 12.5 ppm allowed (0.25 × 50
+        // ppm) ...
         var decision = RangeRule.Choose(s_meter, new RangeRequest(20_000, 0.01, 0.00005, 1, false));
         Assert.Equal(RangeVerdict.Resolvable, decision.Verdict);
         Assert.Equal(9.0, decision.ExpandedTransfer / 20_000 * 1e6, 1);
@@ -63,7 +69,10 @@ public sealed class SortPlanTargetTests
         Assert.Contains(e.Remedies, r => r.Contains("--match", StringComparison.Ordinal));
 
         // The loosened match named is one the plan then takes.
-        var match = double.Parse(e.Remedies.Single(r => r.Contains("--match", StringComparison.Ordinal)).Split("--match ")[1].TrimEnd(')'), System.Globalization.CultureInfo.InvariantCulture);
+        var match = double.Parse(
+            e.Remedies.Single(r => r.Contains("--match", StringComparison.Ordinal)).Split("--match ")[1].TrimEnd(')'),
+            System.Globalization.CultureInfo.InvariantCulture
+        );
         Assert.True(match > 0.00005);
         _ = SortPlan.For(new SortOptions { Nominal = 20_000, MatchTolerance = match }, s_meter);
     }

@@ -14,14 +14,14 @@ public sealed class EntryCheckTests
     private static readonly DisplayRange s_r500 = new(500, 50_000, 0.09, 6);
 
     [Theory]
-    [InlineData("10.003", 10_003)]      // bare number: the display's unit on this range (kOhm)
+    [InlineData("10.003", 10_003)] // bare number: the display's unit on this range (kOhm)
     [InlineData(" 10.003 ", 10_003)]
-    [InlineData("10.003k", 10_003)]     // trade notation with a multiplier
-    [InlineData("10k003", 10_003)]      // the letter as the decimal marker (IEC 60062 RKM code)
+    [InlineData("10.003k", 10_003)] // trade notation with a multiplier
+    [InlineData("10k003", 10_003)] // the letter as the decimal marker (IEC 60062 RKM code)
     [InlineData("10.003 kOhm", 10_003)]
     [InlineData("10003R", 10_003)]
     [InlineData("10k", 10_000)]
-    [InlineData("9.95", 9_950)]         // fewer digits than shown: taken as written
+    [InlineData("9.95", 9_950)] // fewer digits than shown: taken as written
     public void Check_ValidEntry_PassesWithOhms(string text, double ohms)
     {
         var v = EntryCheck.Check(text, s_r50k, 10_000);

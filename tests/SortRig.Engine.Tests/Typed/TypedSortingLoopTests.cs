@@ -27,7 +27,14 @@ public sealed class TypedSortingLoopTests
             var time = new FakeTimeProvider(new DateTimeOffset(2026, 12, 3, 9, 0, 0, TimeSpan.Zero));
             var heard = new StringWriter();
             var snapshot = new BenchSnapshot();
-            var services = new SortServices(time, new BenchEventHub(time), snapshot, new OperatorCommands(), new PlainTextAnnouncer(heard), NullLoggerFactory.Instance);
+            var services = new SortServices(
+                time,
+                new BenchEventHub(time),
+                snapshot,
+                new OperatorCommands(),
+                new PlainTextAnnouncer(heard),
+                NullLoggerFactory.Instance
+            );
             var options = new SortOptions
             {
                 Resource = "TYPED::handheld-typed",
@@ -49,16 +56,39 @@ public sealed class TypedSortingLoopTests
                 return await prompts.Reader.ReadAsync(limit.Token);
             }
 
-            Assert.StartsWith("range set on the meter", await prompts.Reader.ReadAsync(limit.Token), StringComparison.Ordinal);
+            Assert.StartsWith(
+                "range set on the meter",
+                await prompts.Reader.ReadAsync(limit.Token),
+                StringComparison.Ordinal
+            );
             Assert.StartsWith("part 1: type the display", await StepAsync("", TimeSpan.Zero), StringComparison.Ordinal);
-            Assert.StartsWith("part 1: got 10.003 kOhm (1 of 2)", await StepAsync("10.003", TimeSpan.Zero), StringComparison.Ordinal);
-            Assert.StartsWith("part 2: type the display", await StepAsync("10.004", TimeSpan.FromSeconds(3)), StringComparison.Ordinal);
-            Assert.StartsWith("part 2: type the display", await StepAsync("undo", TimeSpan.Zero), StringComparison.Ordinal);
+            Assert.StartsWith(
+                "part 1: got 10.003 kOhm (1 of 2)",
+                await StepAsync("10.003", TimeSpan.Zero),
+                StringComparison.Ordinal
+            );
+            Assert.StartsWith(
+                "part 2: type the display",
+                await StepAsync("10.004", TimeSpan.FromSeconds(3)),
+                StringComparison.Ordinal
+            );
+            Assert.StartsWith(
+                "part 2: type the display",
+                await StepAsync("undo", TimeSpan.Zero),
+                StringComparison.Ordinal
+            );
             await StepAsync("9.990", TimeSpan.FromSeconds(5));
-            Assert.StartsWith("part 3: type the display", await StepAsync("9.990", TimeSpan.FromSeconds(3)), StringComparison.Ordinal);
+            Assert.StartsWith(
+                "part 3: type the display",
+                await StepAsync("9.990", TimeSpan.FromSeconds(3)),
+                StringComparison.Ordinal
+            );
             await StepAsync("10.001", TimeSpan.FromSeconds(5));
-            Assert.Equal("part 3: that was only 1.0 s after the last entry, not counted: let go of the part, wait 3 s, read again",
-                await StepAsync("10.001", TimeSpan.FromSeconds(1)));
+            Assert.Equal(
+                "part 3: that was only 1.0 s after the last entry, not counted: let go of the part, wait 3 s, read "
+                    + "again",
+                await StepAsync("10.001", TimeSpan.FromSeconds(1))
+            );
             time.Advance(TimeSpan.FromSeconds(3));
             await entries.PostAsync("10.002", limit.Token);
             var outcome = await run;
@@ -70,9 +100,12 @@ public sealed class TypedSortingLoopTests
             Assert.Contains("part 1 undone: take it out of ", text, StringComparison.Ordinal);
             await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, CancellationToken.None);
             var parts = await log.GetPartsAsync(outcome.SessionId, CancellationToken.None);
-            Assert.Equal([PartState.Undone, PartState.Announced, PartState.Announced], parts.OrderBy(p => p.Number).Select(p => p.State));
-            Assert.Equal(10_003.5, parts[0].Value, 9);   // mean of the two agreeing entries
-            Assert.Equal(10_001.5, parts[2].Value, 9);   // the entry 1 s early was not counted
+            Assert.Equal(
+                [PartState.Undone, PartState.Announced, PartState.Announced],
+                parts.OrderBy(p => p.Number).Select(p => p.State)
+            );
+            Assert.Equal(10_003.5, parts[0].Value, 9); // mean of the two agreeing entries
+            Assert.Equal(10_001.5, parts[2].Value, 9); // the entry 1 s early was not counted
             Assert.Equal(2, (await log.GetReadingsAsync(parts[2].Id, CancellationToken.None)).Count);
             // The undone part no longer counts in its cup: two live parts in the cups in all.
             Assert.Equal(2, snapshot.Counts.Values.Sum());

@@ -13,14 +13,22 @@ public sealed class BuildBadInputTests
     [InlineData("--sets", new[] { "--recipe", "@quad", "--sets", "65" }, "out of range")]
     [InlineData("--recipe", new[] { "--recipe", "no-such-recipe" }, "no file 'no-such-recipe'")]
     [InlineData("--recipe", new[] { "--recipe", "@broken" }, "expected")]
-    [InlineData("--nominal", new[] { "--recipe", "@quad", "--nominal", "4.7k" }, "is not a nominal recipe 'quad-bad' takes (10k")]
+    [InlineData(
+        "--nominal",
+        new[] { "--recipe", "@quad", "--nominal", "4.7k" },
+        "is not a nominal recipe 'quad-bad' takes (10k"
+    )]
     [InlineData("--sets-csv", new[] { "--recipe", "@quad", "--sets-csv", "/no/such/folder/sets.csv" }, "no folder")]
     public Task Sort_BadBuildOption_OneLineNamingTheFlag_Exit2_NothingCreated(
-        string named, string[] args, string says) =>
-        BadInput.AssertRefusedAsync(["sort", .. args, "--plain", "--no-speech"], named, says, async folder =>
+        string named,
+        string[] args,
+        string says
+    ) => BadInput.AssertRefusedAsync(["sort", .. args, "--plain", "--no-speech"], named, says, async folder =>
         {
             var quad = Path.Combine(folder, "quad.yaml");
-            await File.WriteAllTextAsync(quad, """
+            await File.WriteAllTextAsync(
+                quad,
+                """
                 recipe: quad-bad
                 form: matched
                 match-ppm: 1000
@@ -28,9 +36,13 @@ public sealed class BuildBadInputTests
                 positions:
                   - { name: R1, ratio: 1 }
                   - { name: R2, ratio: 1 }
-                """);
+                """
+            );
             var broken = Path.Combine(folder, "broken.yaml");
             await File.WriteAllTextAsync(broken, "recipe: broken\nform: matched\npositions: []\n");
-            return a => a == "@quad" ? quad : a == "@broken" ? broken : a;
+            return a =>
+                a == "@quad" ? quad
+                : a == "@broken" ? broken
+                : a;
         });
 }

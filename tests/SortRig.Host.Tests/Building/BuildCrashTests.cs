@@ -24,25 +24,51 @@ public sealed class BuildCrashTests(ITestOutputHelper output) : IDisposable
         var recipe = Path.Combine(_dir, "quad.yaml");
         var csv = Path.Combine(_dir, "sets.csv");
         await File.WriteAllTextAsync(recipe, QuadYaml);
-        string[] common = ["sort", "--plain", "--no-speech", "--speed", "100", "--nplc", "10", "--db", db, "--session", "build", "--seed", "2026"];
+        string[] common =
+        [
+            "sort",
+            "--plain",
+            "--no-speech",
+            "--speed",
+            "100",
+            "--nplc",
+            "10",
+            "--db",
+            db,
+            "--session",
+            "build",
+            "--seed",
+            "2026",
+        ];
 
-        var killed = await HostProcess.RunAsync(_dir, [.. common, "--recipe", recipe, "--sets", "2", "--sets-csv", csv], null, null,
-            line => line.StartsWith("part 5:", StringComparison.Ordinal) ? TimeSpan.Zero : null, TimeSpan.FromMinutes(1));
+        var killed = await HostProcess.RunAsync(
+            _dir,
+            [.. common, "--recipe", recipe, "--sets", "2", "--sets-csv", csv],
+            null,
+            null,
+            line => line.StartsWith("part 5:", StringComparison.Ordinal) ? TimeSpan.Zero : null,
+            TimeSpan.FromMinutes(1)
+        );
         Assert.True(killed.DiedOfSigkill, string.Join('\n', killed.Lines.TakeLast(10)));
         Assert.False(File.Exists(csv));
 
         var resumed = await HostProcess.RunAsync(_dir, common, null, null, null, TimeSpan.FromMinutes(1));
         output.WriteLine(string.Join('\n', resumed.Lines.Where(l => l.StartsWith("note:", StringComparison.Ordinal))));
         Assert.Equal(0, resumed.ExitCode);
-        Assert.Contains(resumed.Lines, l => l.Contains("resuming toward 2 set(s) of quad-crash (kept with the session)", StringComparison.Ordinal));
-        Assert.Contains(resumed.Lines, l => l.Contains("sets complete: 2 set(s) of quad-crash", StringComparison.Ordinal));
+        Assert.Contains(resumed.Lines, l =>
+            l.Contains("resuming toward 2 set(s) of quad-crash (kept with the session)", StringComparison.Ordinal)
+        );
+        Assert.Contains(resumed.Lines, l =>
+            l.Contains("sets complete: 2 set(s) of quad-crash", StringComparison.Ordinal)
+        );
         Assert.True(File.Exists(csv));
 
         await using var log = await PrecisionLogFactory.OpenAsync(db, null, default);
         var session = Assert.Single(await log.ListSessionsAsync(default));
         var parts = await log.GetPartsAsync(session.Id, default);
-        Assert.Equal(Enumerable.Range(1, parts.Count), parts.Select(p => p.Number)); // numbering ran on, nothing doubled
-        Assert.All(parts, p => Assert.Equal(PartState.Announced, p.State));          // every part logged was announced
+        // numbering ran on, nothing doubled
+        Assert.Equal(Enumerable.Range(1, parts.Count), parts.Select(p => p.Number));
+        Assert.All(parts, p => Assert.Equal(PartState.Announced, p.State)); // every part logged was announced
         Assert.True(parts.Count >= 5);
         var target = await log.GetBuildTargetAsync(session.Id, default);
         Assert.Equal((2, "quad-crash"), (target!.Sets, target.RecipeName));
@@ -54,8 +80,11 @@ public sealed class BuildCrashTests(ITestOutputHelper output) : IDisposable
         Assert.Equal(8, rows.Select(r => r[3]).Distinct().Count());
         foreach (var set in rows.GroupBy(r => r[0]))
         {
-            var members = set.Select(r => byId[long.Parse(r[3], System.Globalization.CultureInfo.InvariantCulture)]).ToList();
-            Assert.True(MatchedBruteForce.WorstPpm(members.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000) <= 1000);
+            var members = set.Select(r => byId[long.Parse(r[3], System.Globalization.CultureInfo.InvariantCulture)])
+                .ToList();
+            Assert.True(
+                MatchedBruteForce.WorstPpm(members.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000) <= 1000
+            );
         }
     }
 

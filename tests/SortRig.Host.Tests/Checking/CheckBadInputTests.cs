@@ -15,16 +15,28 @@ public sealed class CheckBadInputTests
     [InlineData(new[] { "--check", "fixture:10000", "--check-minutes", "9999" }, "--check-minutes", "9999")]
     [InlineData(new[] { "--check-every", "10" }, "--check-every", "--check")]
     [InlineData(new[] { "--check", "fixture:10000", "--check-value", "abc" }, "--check-value", "abc")]
-    public async Task Sort_BadCheckValue_OneLineNamingTheFlag_Exit2_NothingCreated(string[] args, string named, string said)
+    public async Task Sort_BadCheckValue_OneLineNamingTheFlag_Exit2_NothingCreated(
+        string[] args,
+        string named,
+        string said
+    )
     {
         var dir = Directory.CreateTempSubdirectory("sortrig-badcheck-");
         try
         {
             var run = await HostProcess.RunAsync(
-                dir.FullName, ["sort", .. args, "--plain", "--no-speech"], null, null, null, TimeSpan.FromSeconds(60));
+                dir.FullName,
+                ["sort", .. args, "--plain", "--no-speech"],
+                null,
+                null,
+                null,
+                TimeSpan.FromSeconds(60)
+            );
 
             Assert.Equal(2, run.ExitCode);
-            var line = Assert.Single(run.Log.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries));
+            var line = Assert.Single(
+                run.Log.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)
+            );
             Assert.StartsWith("error: " + named + ":", line, StringComparison.Ordinal);
             Assert.Contains(said, line, StringComparison.Ordinal);
             Assert.DoesNotContain(run.Lines, l => l.TrimStart().StartsWith("at ", StringComparison.Ordinal));

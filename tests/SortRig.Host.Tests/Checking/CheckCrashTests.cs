@@ -2,9 +2,9 @@ using System.Globalization;
 using System.Text.RegularExpressions;
 using SortRig.Host.Tests.Reliability;
 using SortRig.Host.Tests.Reliability.Support;
-using SortRig.Tests.Support;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using SortRig.Tests.Support;
 using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Checking;
@@ -35,14 +35,17 @@ public sealed partial class CheckCrashTests(ITestOutputHelper output) : IDisposa
         {
             var run = await HostProcess.RunAsync(_dir, Args(db), crashAt, null, null, TimeSpan.FromMinutes(2));
             runs.Add(run);
-            output.WriteLine($"{crashAt ?? "finish",-10} exit {run.ExitCode,3}");
+            output.WriteLine($"{crashAt ?? "finish", -10} exit {run.ExitCode, 3}");
             if (crashAt is null || run.ExitCode == 0)
             {
                 Assert.Equal(0, run.ExitCode);
                 break;
             }
 
-            Assert.True(run.DiedOfSigkill, $"{crashAt}: exit {run.ExitCode}\n{string.Join('\n', run.Lines.TakeLast(15))}");
+            Assert.True(
+                run.DiedOfSigkill,
+                $"{crashAt}: exit {run.ExitCode}\n{string.Join('\n', run.Lines.TakeLast(15))}"
+            );
         }
 
         Assert.True(runs.Count(r => r.DiedOfSigkill) >= 5, "the session ended before the kills were used");
@@ -63,16 +66,39 @@ public sealed partial class CheckCrashTests(ITestOutputHelper output) : IDisposa
         Assert.Equal(Parts, checks[^1].AfterPartNumber); // the check at the end
 
         // Every check the operator was told about is in the log.
-        var heard = runs.SelectMany(r => r.Lines).Select(l => HeardCheck().Match(l)).Where(m => m.Success)
-            .Select(m => int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture)).Distinct().ToList();
+        var heard = runs.SelectMany(r => r.Lines)
+            .Select(l => HeardCheck().Match(l))
+            .Where(m => m.Success)
+            .Select(m => int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture))
+            .Distinct()
+            .ToList();
         Assert.NotEmpty(heard);
         Assert.All(heard, seq => Assert.Contains(checks, c => c.Seq == seq));
         output.WriteLine($"{checks.Count} checks, {heard.Count} heard, kills {runs.Count(r => r.DiedOfSigkill)}");
     }
 
     private static string[] Args(string db) =>
-        ["sort", "--plain", "--no-speech", "--speed", "100", "--nplc", "10", "--parts", Parts.ToString(CultureInfo.InvariantCulture),
-         "--db", db, "--session", "checkcrash", "--seed", "3117", "--check", "fixture:10000", "--check-every", "5"];
+        [
+            "sort",
+            "--plain",
+            "--no-speech",
+            "--speed",
+            "100",
+            "--nplc",
+            "10",
+            "--parts",
+            Parts.ToString(CultureInfo.InvariantCulture),
+            "--db",
+            db,
+            "--session",
+            "checkcrash",
+            "--seed",
+            "3117",
+            "--check",
+            "fixture:10000",
+            "--check-every",
+            "5",
+        ];
 
     [GeneratedRegex(@"check (\d+) in control")]
     private static partial Regex HeardCheck();

@@ -25,7 +25,9 @@ public sealed class CheckEndToEndTests : IDisposable
     [Fact]
     public async Task Sort_GainStepsBy50PpmMidReel_PausesFlagsAndRemeasures_NoPartInTheWrongCup()
     {
-        const int parts = 200, every = 20, stepAt = 110;
+        const int parts = 200,
+            every = 20,
+            stepAt = 110;
         var options = new SortOptions
         {
             Database = Path.Combine(_dir, "check.db"),
@@ -53,7 +55,10 @@ public sealed class CheckEndToEndTests : IDisposable
         var run = sort.RunAsync(null, timeout.Token);
         var bench = await sort.Bench;
         await InProcessSort.UntilAsync(
-            () => sort.Services.Snapshot.Parts().Count >= stepAt || run.IsCompleted, TimeSpan.FromMinutes(6), "part 110");
+            () => sort.Services.Snapshot.Parts().Count >= stepAt || run.IsCompleted,
+            TimeSpan.FromMinutes(6),
+            "part 110"
+        );
         bench.StepGain(50); // the fault: every range reads 50 ppm high from the next conversion on
         var outcome = await run;
 
@@ -72,7 +77,8 @@ public sealed class CheckEndToEndTests : IDisposable
         var flagged = await log.GetFlaggedPartsAsync(outcome.SessionId, default);
         Assert.Equal(
             stored.Where(p => p.Number > lastGood.AfterPartNumber && p.Number <= bad.AfterPartNumber).Select(p => p.Id),
-            flagged);
+            flagged
+        );
         Assert.Empty(await log.GetSuspectPartsAsync(outcome.SessionId, default)); // all measured again
 
         // The re-reference saw the step: the meter read about 50 ppm high against the check's centre.
@@ -87,9 +93,11 @@ public sealed class CheckEndToEndTests : IDisposable
         {
             var old = stored.Single(p => p.Id == id);
             Assert.Equal(PartState.Remeasured, old.State);
-            var note = (await log.GetPartHistoryAsync(id, default)).Select(e => e.Note)
+            var note = (await log.GetPartHistoryAsync(id, default))
+                .Select(e => e.Note)
                 .Single(n => n?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)!;
-            again[int.Parse(note[RemeasuredAs.Length..], System.Globalization.CultureInfo.InvariantCulture)] = old.Number;
+            again[int.Parse(note[RemeasuredAs.Length..], System.Globalization.CultureInfo.InvariantCulture)] =
+                old.Number;
         }
 
         var position = new Dictionary<int, int>();

@@ -11,7 +11,8 @@ public sealed class CheckLiveViewTests
     [Fact]
     public void Apply_CheckStateLines_KeptAsLastCheck_PromptsAndOtherNoticesIgnored()
     {
-        var m = LiveViewModel.Empty(10)
+        var m = LiveViewModel
+            .Empty(10)
             .Apply(Notice(1, "check (start): put the check standard fixture:10000 (10000 Ohm) in the fixture"))
             .Apply(Notice(2, "check limits set: 5 readings, centre 9998.1100 Ohm, sigma 2.0 ppm"));
         Assert.StartsWith("check limits set", m.LastCheck, StringComparison.Ordinal);

@@ -1,11 +1,11 @@
 using System.Globalization;
-using Spectre.Console;
 using SortRig.Host.Cli;
 using SortRig.Host.ReportVerb;
 using SortRig.Host.Tests.Reports;
 using SortRig.Measurement.Uncertainty;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
+using Spectre.Console;
 
 namespace SortRig.Host.Tests.Checking;
 
@@ -34,7 +34,9 @@ public sealed class CheckReportTests : IDisposable
 
         var folder = Path.Combine(_dir, "report");
         var printed = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No }
+        );
         var exit = await ReportCommand.RunAsync(new ReportRequest(db, folder, "tuesday", null), console, default);
 
         Assert.Equal(0, exit);
@@ -44,32 +46,82 @@ public sealed class CheckReportTests : IDisposable
         // Gains recomputed here: mean of (reading / 10 000 - 1) * 1e6 per session.
         var gainMonday = monday.Average(v => ((v / 10_000) - 1) * 1e6); // 10.7 ppm
         var gainTuesday = tuesday.Average(v => ((v / 10_000) - 1) * 1e6); // 216.2 ppm
-        Assert.Contains(Invariant($"| monday | 2026-03-02 08:00 | 6 | {gainMonday:+0.0} | +0.0 | ok |"), md, StringComparison.Ordinal);
+        Assert.Contains(
+            Invariant($"| monday | 2026-03-02 08:00 | 6 | {gainMonday:+0.0} | +0.0 | ok |"),
+            md,
+            StringComparison.Ordinal
+        );
         // Simulator profile, 100 kOhm range, one year: 0.0095 % of reading + 0.0006 % of range at 10 kOhm = 155 ppm.
         Assert.Contains("allowed movement 155.0 ppm", md, StringComparison.Ordinal);
-        Assert.Contains(Invariant($"| tuesday | 2026-04-01 08:00 | 5 | {gainTuesday:+0.0} | {gainTuesday - gainMonday:+0.0} | the meter moved"), md, StringComparison.Ordinal);
+        Assert.Contains(
+            string.Create(
+                System.Globalization.CultureInfo.InvariantCulture,
+                $"| tuesday | 2026-04-01 08:00 | 5 | {gainTuesday:+0.0} | {gainTuesday - gainMonday:+0.0} | the "
+                    + $"meter moved"
+            ),
+            md,
+            StringComparison.Ordinal
+        );
     }
 
     private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
 
-    private static async Task SessionAsync(IPrecisionLog log, string name, double[] checks, DateTimeOffset at, bool outOfControlLast)
+    private static async Task SessionAsync(
+        IPrecisionLog log,
+        string name,
+        double[] checks,
+        DateTimeOffset at,
+        bool outOfControlLast
+    )
     {
         var session = await log.OpenOrResumeSessionAsync(new SessionRequest(name), default);
-        var batch = await log.StartBatchAsync(session.Session.Id,
-            new BatchSetup(10_000, 10_000, 1_000, 100_000, 10, true, "simulator", "SortRig,SIM-6H,1,1.0"), default);
+        var batch = await log.StartBatchAsync(
+            session.Session.Id,
+            new BatchSetup(10_000, 10_000, 1_000, 100_000, 10, true, "simulator", "SortRig,SIM-6H,1,1.0"),
+            default
+        );
         for (var i = 0; i < 3; i++)
         {
             var v = 10_000 + i;
-            await log.CommitPartAsync(new PartCommit(Guid.NewGuid(), session.Session.Id, batch.Id,
-                new MeasuredValue(v, v * 12e-6, v * 1.5e-6), 100_000, 10, 23, at, "A", null, []), default);
+            await log.CommitPartAsync(
+                new PartCommit(
+                    Guid.NewGuid(),
+                    session.Session.Id,
+                    batch.Id,
+                    new MeasuredValue(v, v * 12e-6, v * 1.5e-6),
+                    100_000,
+                    10,
+                    23,
+                    at,
+                    "A",
+                    null,
+                    []
+                ),
+                default
+            );
         }
 
         for (var i = 0; i < checks.Length; i++)
         {
             var bad = outOfControlLast && i == checks.Length - 1;
-            await log.RecordCheckAsync(new CheckCommit(Guid.NewGuid(), session.Session.Id, "fixture:10000", at.AddMinutes(i),
-                checks[i], 100_000, 0.02, 10_000, checks[0], 0.02, !bad, bad ? "BeyondThreeSigma" : "None",
-                bad ? "the check read +14.5 sigma from its centre" : null), default);
+            await log.RecordCheckAsync(
+                new CheckCommit(
+                    Guid.NewGuid(),
+                    session.Session.Id,
+                    "fixture:10000",
+                    at.AddMinutes(i),
+                    checks[i],
+                    100_000,
+                    0.02,
+                    10_000,
+                    checks[0],
+                    0.02,
+                    !bad,
+                    bad ? "BeyondThreeSigma" : "None",
+                    bad ? "the check read +14.5 sigma from its centre" : null
+                ),
+                default
+            );
         }
 
         await log.FinishSessionAsync(session.Session.Id, default);

@@ -13,7 +13,11 @@ internal static class BadInput
     /// <param name="setUp">Writes files the arguments name into a folder of their own, and returns how to map the
     /// arguments to them.</param>
     public static async Task AssertRefusedAsync(
-        IReadOnlyList<string> args, string named, string says, Func<string, Task<Func<string, string>>>? setUp = null)
+        IReadOnlyList<string> args,
+        string named,
+        string says,
+        Func<string, Task<Func<string, string>>>? setUp = null
+    )
     {
         var dir = Directory.CreateTempSubdirectory("sortrig-badinput-");
         var files = Directory.CreateTempSubdirectory("sortrig-badinput-files-");
@@ -22,7 +26,13 @@ internal static class BadInput
             var map = setUp is null ? (a => a) : await setUp(files.FullName);
 
             var run = await HostProcess.RunAsync(
-                dir.FullName, [.. args.Select(map)], null, null, null, TimeSpan.FromSeconds(60));
+                dir.FullName,
+                [.. args.Select(map)],
+                null,
+                null,
+                null,
+                TimeSpan.FromSeconds(60)
+            );
 
             Assert.Equal(2, run.ExitCode);
             var lines = run.Log.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);

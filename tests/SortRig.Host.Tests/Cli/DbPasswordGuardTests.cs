@@ -35,8 +35,14 @@ public sealed class DbPasswordGuardTests
         var dir = Directory.CreateTempSubdirectory("sortrig-dbpw-");
         try
         {
-            var run = await HostProcess.RunAsync(dir.FullName, ["sort", "--plain", "--db", "Host=127.0.0.1;Port=1;Username=bench;Password=hunter-2-lab"],
-                null, null, null, TimeSpan.FromMinutes(1));
+            var run = await HostProcess.RunAsync(
+                dir.FullName,
+                ["sort", "--plain", "--db", "Host=127.0.0.1;Port=1;Username=bench;Password=hunter-2-lab"],
+                null,
+                null,
+                null,
+                TimeSpan.FromMinutes(1)
+            );
 
             Assert.Equal(2, run.ExitCode);
             Assert.Empty(run.Lines);
@@ -55,7 +61,11 @@ public sealed class DbPasswordGuardTests
     [Fact]
     public void Db_WithPassfileOrNoPassword_IsAccepted()
     {
-        Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer;Passfile=/etc/sortrig/pgpass"]).Errors);
+        Assert.Empty(
+            Program
+                .Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer;Passfile=/etc/sortrig/pgpass"])
+                .Errors
+        );
         Assert.Empty(Program.Parse(["library", "find", "--db", "Host=lab-db;Username=sortrig_writer"]).Errors);
         Assert.Empty(Program.Parse(["library", "find", "--db", "bench.db"]).Errors);
     }
@@ -64,7 +74,12 @@ public sealed class DbPasswordGuardTests
     public async Task Help_DefaultDatabaseFromTheEnvironment_ShowsItsPasswordMasked()
     {
         // The default of --db is SORTRIG_Sort__Database, which may carry a password; --help printed it whole.
-        var start = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        var start = new ProcessStartInfo("dotnet")
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
         foreach (var a in new[] { HostProcess.HostDll, "library", "find", "--help" })
         {
             start.ArgumentList.Add(a);

@@ -1,6 +1,6 @@
-using Spectre.Console;
 using SortRig.Host.Cli;
 using SortRig.Simulator;
+using Spectre.Console;
 
 namespace SortRig.Host.Tests.Cli;
 
@@ -13,9 +13,16 @@ public sealed class ProbeCommandTests
         await using var bench = new SimulatedBench(new SimulatedBenchOptions { TcpPort = 0 });
         var endpoint = await bench.StartTcpAsync(0, default);
         var output = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(output), ColorSystem = ColorSystemSupport.NoColors });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(output), ColorSystem = ColorSystemSupport.NoColors }
+        );
 
-        var rc = await ProbeCommand.RunAsync($"TCPIP::127.0.0.1::{endpoint.Port}::SOCKET", "simulator", console, default);
+        var rc = await ProbeCommand.RunAsync(
+            $"TCPIP::127.0.0.1::{endpoint.Port}::SOCKET",
+            "simulator",
+            console,
+            default
+        );
 
         Assert.Equal(0, rc);
         Assert.Contains("profile fits", output.ToString(), StringComparison.Ordinal);
@@ -26,7 +33,9 @@ public sealed class ProbeCommandTests
     public async Task Probe_BadResource_SaysWhichPartIsWrong()
     {
         var output = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(output), ColorSystem = ColorSystemSupport.NoColors });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(output), ColorSystem = ColorSystemSupport.NoColors }
+        );
 
         var rc = await ProbeCommand.RunAsync("TCPIP::127.0.0.1::notaport::SOCKET", "simulator", console, default);
 

@@ -1,8 +1,8 @@
 using System.Net;
 using System.Net.Sockets;
 using System.Text;
-using Spectre.Console;
 using SortRig.Host.Cli;
+using Spectre.Console;
 
 namespace SortRig.Host.Tests.Cli;
 
@@ -23,15 +23,23 @@ public sealed class ProbeHostileMeterTests
         using var stop = new CancellationTokenSource(TimeSpan.FromSeconds(60));
         var meter = ServeAsync(listener, stop.Token);
         var output = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(output), ColorSystem = ColorSystemSupport.NoColors });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(output), ColorSystem = ColorSystemSupport.NoColors }
+        );
 
-        await ProbeCommand.RunAsync($"TCPIP::127.0.0.1::{((IPEndPoint)listener.LocalEndpoint).Port}::SOCKET", "simulator", console, stop.Token);
+        await ProbeCommand.RunAsync(
+            $"TCPIP::127.0.0.1::{((IPEndPoint)listener.LocalEndpoint).Port}::SOCKET",
+            "simulator",
+            console,
+            stop.Token
+        );
         await stop.CancelAsync();
         await meter;
 
         var text = output.ToString();
         Assert.Contains("\\x1B]0;owned\\x07\\x1B[2J", text, StringComparison.Ordinal);
-        Assert.DoesNotContain('\u001b', text.Replace("\u001b[?25", "", StringComparison.Ordinal)); // cursor show/hide of the console itself
+        // cursor show/hide of the console itself
+        Assert.DoesNotContain('\u001b', text.Replace("\u001b[?25", "", StringComparison.Ordinal));
         Assert.DoesNotContain('\u0007', text);
     }
 
@@ -55,7 +63,9 @@ public sealed class ProbeHostileMeterTests
                         }
                         else if (command.TrimEnd().EndsWith('?'))
                         {
-                            await writer.WriteLineAsync(command.Contains("ERR", StringComparison.OrdinalIgnoreCase) ? "0,\"No error\"" : "0");
+                            await writer.WriteLineAsync(
+                                command.Contains("ERR", StringComparison.OrdinalIgnoreCase) ? "0,\"No error\"" : "0"
+                            );
                         }
                     }
                 }

@@ -49,7 +49,8 @@ public sealed class ProgramParseTests
     }
 }
 
-/// <summary>Verbs that read the precision log never create one: a misspelt --db is named, exit 2, no file appears.</summary>
+/// <summary>Verbs that read the precision log never create one: a misspelt --db is named, exit 2, no file
+/// appears.</summary>
 public sealed class MissingDatabaseTests
 {
     [Theory]

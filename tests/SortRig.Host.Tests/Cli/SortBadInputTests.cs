@@ -17,7 +17,8 @@ public sealed class SortBadInputTests
     [InlineData("--settle", "guess", "--settle")]
     [InlineData("--physics", "quantum", "--physics")]
     [InlineData("--db", "/dev/null", "--db")] // a device: SQLite would leave a journal beside it
-    [InlineData("--db", "/no-such-folder-sortrig/bench.db", "--db")] // was: two stack traces ending in "unable to open database file"
+    // was: two stack traces ending in "unable to open database file"
+    [InlineData("--db", "/no-such-folder-sortrig/bench.db", "--db")]
     [InlineData("--db", "/proc/bench.db", "--db")] // a folder that cannot be written, even by root
     public Task Sort_BadValue_OneLineNamingTheFlag_Exit2_NothingCreated(string flag, string value, string named) =>
         BadInput.AssertRefusedAsync(["sort", flag, value, "--plain", "--no-speech"], named, value);

@@ -40,10 +40,18 @@ public sealed partial class SortInterruptTests
     }
 
     private static List<int> Announced(IEnumerable<string> lines) =>
-        [.. lines.Select(l => PartLine().Match(l)).Where(m => m.Success)
-            .Select(m => int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture))];
+        [
+            .. lines
+                .Select(l => PartLine().Match(l))
+                .Where(m => m.Success)
+                .Select(m => int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture)),
+        ];
 
-    private static async Task<(int Exit, List<string> Lines)> RunAsync(string dir, IReadOnlyList<string> args, int? interruptAfterPart)
+    private static async Task<(int Exit, List<string> Lines)> RunAsync(
+        string dir,
+        IReadOnlyList<string> args,
+        int? interruptAfterPart
+    )
     {
         var start = new ProcessStartInfo("dotnet")
         {

@@ -48,8 +48,13 @@ public sealed class SortUnreachableMeterTests
         try
         {
             return await HostProcess.RunAsync(
-                dir.FullName, ["sort", "--resource", resource, "--plain", "--no-speech", "--profile", "bench-5half", "--nplc", "2"], null, null, null,
-                TimeSpan.FromSeconds(90));
+                dir.FullName,
+                ["sort", "--resource", resource, "--plain", "--no-speech", "--profile", "bench-5half", "--nplc", "2"],
+                null,
+                null,
+                null,
+                TimeSpan.FromSeconds(90)
+            );
         }
         finally
         {

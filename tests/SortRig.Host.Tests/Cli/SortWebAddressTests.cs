@@ -13,8 +13,25 @@ public sealed class SortWebAddressTests
         {
             var run = await HostProcess.RunAsync(
                 dir.FullName,
-                ["sort", "--parts", "2", "--speed", "20", "--plain", "--no-speech", "--web", "--web-urls", "http://127.0.0.1:0", "--db", "w.db"],
-                null, null, null, TimeSpan.FromMinutes(2));
+                [
+                    "sort",
+                    "--parts",
+                    "2",
+                    "--speed",
+                    "20",
+                    "--plain",
+                    "--no-speech",
+                    "--web",
+                    "--web-urls",
+                    "http://127.0.0.1:0",
+                    "--db",
+                    "w.db",
+                ],
+                null,
+                null,
+                null,
+                TimeSpan.FromMinutes(2)
+            );
 
             Assert.Equal(0, run.ExitCode);
             Assert.Equal("bench page: http://127.0.0.1:0", run.Lines[0]);

@@ -3,7 +3,8 @@ using SortRig.Engine.DriftLogging;
 
 namespace SortRig.Host.Tests.Drift;
 
-/// <summary>The channel=part notation of --library-parts / Drift:LibraryParts (our own notation; no outside source).</summary>
+/// <summary>The channel=part notation of --library-parts / Drift:LibraryParts (our own notation; no outside
+/// source).</summary>
 public sealed class LibraryPartMapTests
 {
     private static readonly int[] s_scan = [101, 102, 103, 104];
@@ -13,7 +14,16 @@ public sealed class LibraryPartMapTests
     {
         var map = LibraryPartMap.Parse(" 101=17, 102=#18 ,103-104=#20-#21", s_scan);
 
-        Assert.Equal(new Dictionary<int, long> { [101] = 17, [102] = 18, [103] = 20, [104] = 21 }, map);
+        Assert.Equal(
+            new Dictionary<int, long>
+            {
+                [101] = 17,
+                [102] = 18,
+                [103] = 20,
+                [104] = 21,
+            },
+            map
+        );
     }
 
     [Fact]
@@ -21,7 +31,15 @@ public sealed class LibraryPartMapTests
     {
         var map = LibraryPartMap.Parse("104-102=7-9", s_scan);
 
-        Assert.Equal(new Dictionary<int, long> { [104] = 7, [103] = 8, [102] = 9 }, map);
+        Assert.Equal(
+            new Dictionary<int, long>
+            {
+                [104] = 7,
+                [103] = 8,
+                [102] = 9,
+            },
+            map
+        );
     }
 
     [Theory]
@@ -52,7 +70,9 @@ public sealed class LibraryPartMapTests
     [Fact]
     public void Validate_MappingOutsideTheChannels_IsRefusedLikeTheOtherOptions()
     {
-        var e = Assert.Throws<ArgumentException>(() => new DriftOptions { Channels = "101-102", LibraryParts = "103=5" }.Validate());
+        var e = Assert.Throws<ArgumentException>(() =>
+            new DriftOptions { Channels = "101-102", LibraryParts = "103=5" }.Validate()
+        );
 
         Assert.Equal(LibraryPartMap.Key, e.ParamName);
     }
@@ -65,9 +85,21 @@ public sealed class LibraryPartMapTests
         try
         {
             // The same binding as the drift verb and its worker: the "Drift" section into DriftOptions.
-            var options = new ConfigurationBuilder().AddJsonFile(file).Build().GetSection(DriftOptions.Section).Get<DriftOptions>()!;
+            var options = new ConfigurationBuilder()
+                .AddJsonFile(file)
+                .Build()
+                .GetSection(DriftOptions.Section)
+                .Get<DriftOptions>()!;
 
-            Assert.Equal(new Dictionary<int, long> { [101] = 12, [102] = 14, [103] = 15 }, options.Validate().LibraryParts);
+            Assert.Equal(
+                new Dictionary<int, long>
+                {
+                    [101] = 12,
+                    [102] = 14,
+                    [103] = 15,
+                },
+                options.Validate().LibraryParts
+            );
         }
         finally
         {

@@ -34,12 +34,49 @@ public sealed partial class LabBenchesTests(ITestOutputHelper output) : IDisposa
         await using var lab = await LabStore.CreateAsync();
         var stock = await lab.StockLibraryAsync(8);
 
-        var sorts = Enumerable.Range(1, SortBenches).Select(n => Host(
-            "sort", "--plain", "--no-speech", "--speed", "100", "--nplc", "10", "--parts", $"{PartsPerSort}", "--seed", $"{4100 + n}",
-            "--session", $"lab-bench-{n}", "--db", lab.Writer)).ToArray();
-        var drifts = Enumerable.Range(1, DriftBenches).Select(n => Host(
-            "drift", "--virtual", "--channels", "101-102", "--hours", "2", "--interval", "60", "--seed", $"{5100 + n}",
-            "--run", $"lab-drift-{n}", "--db", lab.Writer)).ToArray();
+        var sorts = Enumerable
+            .Range(1, SortBenches)
+            .Select(n =>
+                Host(
+                    "sort",
+                    "--plain",
+                    "--no-speech",
+                    "--speed",
+                    "100",
+                    "--nplc",
+                    "10",
+                    "--parts",
+                    $"{PartsPerSort}",
+                    "--seed",
+                    $"{4100 + n}",
+                    "--session",
+                    $"lab-bench-{n}",
+                    "--db",
+                    lab.Writer
+                )
+            )
+            .ToArray();
+        var drifts = Enumerable
+            .Range(1, DriftBenches)
+            .Select(n =>
+                Host(
+                    "drift",
+                    "--virtual",
+                    "--channels",
+                    "101-102",
+                    "--hours",
+                    "2",
+                    "--interval",
+                    "60",
+                    "--seed",
+                    $"{5100 + n}",
+                    "--run",
+                    $"lab-drift-{n}",
+                    "--db",
+                    lab.Writer
+                )
+            )
+            .ToArray();
         var races = RaceForPartsAsync(lab, stock);
 
         var sortRuns = await Task.WhenAll(sorts);
@@ -47,7 +84,8 @@ public sealed partial class LabBenchesTests(ITestOutputHelper output) : IDisposa
         var (winners, doubleBookings) = await races;
 
         await using var log = await lab.OpenAsync();
-        int lost = 0, doubled = 0;
+        int lost = 0,
+            doubled = 0;
         for (int n = 1; n <= SortBenches; n++)
         {
             var run = sortRuns[n - 1];
@@ -70,8 +108,8 @@ public sealed partial class LabBenchesTests(ITestOutputHelper output) : IDisposa
             long scans = long.Parse(said.Groups["scans"].Value, CultureInfo.InvariantCulture);
             long samples = long.Parse(said.Groups["samples"].Value, CultureInfo.InvariantCulture);
             long runId = long.Parse(said.Groups["run"].Value, CultureInfo.InvariantCulture);
-            Assert.Equal(120, scans);                 // 2 h at 60 s
-            Assert.Equal(scans * 4, samples);         // per scan: two parts, and the Pt100 read before and after them
+            Assert.Equal(120, scans); // 2 h at 60 s
+            Assert.Equal(scans * 4, samples); // per scan: two parts, and the Pt100 read before and after them
             long stored = 0;
             await foreach (var _ in log.ReadDriftSamplesAsync(runId, CancellationToken.None))
             {
@@ -81,13 +119,19 @@ public sealed partial class LabBenchesTests(ITestOutputHelper output) : IDisposa
             driftLost += samples - stored;
         }
 
-        output.WriteLine($"sort parts lost {lost}, doubled {doubled}; drift samples lost {driftLost}; take rounds won {winners}/{TakeRounds}, double-bookings {doubleBookings}");
+        output.WriteLine(
+            $"sort parts lost {lost}, doubled {doubled}; drift samples lost {driftLost}; take rounds won {winners}/"
+                + $"{TakeRounds}, double-bookings {doubleBookings}"
+        );
         Assert.Equal((0, 0, 0L, 0), (lost, doubled, driftLost, doubleBookings));
         Assert.Equal(TakeRounds, winners);
         foreach (var id in stock)
         {
             var history = await log.GetPartHistoryAsync(id, CancellationToken.None);
-            var moves = history.Where(e => e.Kind is PartEventKind.Taken or PartEventKind.Released).Select(e => e.Kind).ToArray();
+            var moves = history
+                .Where(e => e.Kind is PartEventKind.Taken or PartEventKind.Released)
+                .Select(e => e.Kind)
+                .ToArray();
             for (int i = 1; i < moves.Length; i++)
             {
                 Assert.NotEqual(moves[i - 1], moves[i]); // taken twice in a row would be a double booking
@@ -97,22 +141,27 @@ public sealed partial class LabBenchesTests(ITestOutputHelper output) : IDisposa
         Assert.True((await log.VerifyAsync(CancellationToken.None)).IsOk);
     }
 
-    // Two benches (processes) ask for overlapping sets of the same stock at the same moment, round after round, while the
-    // sorts and drift runs write. Exactly one wins each round; the other is refused, told which part and by whom.
+    // Two benches (processes) ask for overlapping sets of the same stock at the same moment, round after round, while
+    // the sorts and drift runs write. Exactly one wins each round; the other is refused, told which part and by whom.
     private async Task<(int Winners, int DoubleBookings)> RaceForPartsAsync(LabStore lab, long[] stock)
     {
-        int winners = 0, doubleBookings = 0;
+        int winners = 0,
+            doubleBookings = 0;
         for (int round = 0; round < TakeRounds; round++)
         {
             var a = stock.Skip(round).Take(3).ToArray();
             var b = stock.Skip(round + 2).Take(3).ToArray(); // shares a[2]
             var both = await Task.WhenAll(
                 Host("library", "take", "--ids", string.Join(',', a), "--by", "bench-A", "--db", lab.Writer),
-                Host("library", "take", "--ids", string.Join(',', b), "--by", "bench-B", "--db", lab.Writer));
+                Host("library", "take", "--ids", string.Join(',', b), "--by", "bench-B", "--db", lab.Writer)
+            );
             var won = both.Count(r => r.ExitCode == 0);
             winners += won == 1 ? 1 : 0;
             doubleBookings += won > 1 ? 1 : 0;
-            Assert.True(won == 1, $"round {round}: {won} benches won: {string.Join(" | ", both.Select(r => string.Join(' ', r.Lines)))}");
+            Assert.True(
+                won == 1,
+                $"round {round}: {won} benches won: {string.Join(" | ", both.Select(r => string.Join(' ', r.Lines)))}"
+            );
             var loser = both.Single(r => r.ExitCode != 0);
             var winner = both[0].ExitCode == 0 ? "bench-A" : "bench-B";
             var told = string.Join('\n', loser.Lines);

@@ -19,19 +19,28 @@ public sealed class LabDriftOutageLimitTests
         var server = await OwnServer.StartAsync();
         await using var _ = server;
         await using var lab = await LabStore.CreateAsync(server.ConnectionString);
-        var settings = new DriftOptions { Database = lab.Writer, Run = "lab-gone", Channels = "101-102", IntervalSeconds = 10, Hours = 3, Seed = 9 }.Validate();
+        var settings = new DriftOptions
+        {
+            Database = lab.Writer,
+            Run = "lab-gone",
+            Channels = "101-102",
+            IntervalSeconds = 10,
+            Hours = 3,
+            Seed = 9,
+        }.Validate();
         var stopAt = DriftRuns.Start.AddMinutes(20);
-        DateTimeOffset? stopped = null, last = null;
+        DateTimeOffset? stopped = null,
+            last = null;
 
         var error = await Assert.ThrowsAsync<StorageException>(() => DriftRuns.RunAsync(settings, (_, next) =>
-        {
-            last = next;
-            if (stopped is null && next >= stopAt)
             {
-                stopped = next;
-                server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
-            }
-        }));
+                last = next;
+                if (stopped is null && next >= stopAt)
+                {
+                    stopped = next;
+                    server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
+                }
+            }));
 
         Assert.Equal(StorageFault.Unavailable, error.Fault);
         Assert.NotNull(stopped);
@@ -52,7 +61,8 @@ public sealed class LabDriftOutageLimitTests
         }
 
         // In virtual time the scans can run ahead of the writer: what sits in the queue (4 batches of 64) and the batch
-        // in flight when the server goes is lost when the run gives up (docs/lab.md says so); everything older is there.
+        // in flight when the server goes is lost when the run gives up (docs/lab.md says so); everything older is
+        // there.
         Assert.InRange(stored, (120 * 4) - (5 * 64), 120 * 4);
     }
 }

@@ -10,7 +10,8 @@ public sealed class FormatTests
     [InlineData("3,4,9", new long[] { 3, 4, 9 })]
     [InlineData("12-15, 3", new long[] { 12, 13, 14, 15, 3 })]
     [InlineData("7,7,6-8", new long[] { 7, 6, 8 })]
-    public void PartIds_ParseListsAndRanges(string text, long[] expected) => Assert.Equal(expected, PartIds.Parse(text));
+    public void PartIds_ParseListsAndRanges(string text, long[] expected) =>
+        Assert.Equal(expected, PartIds.Parse(text));
 
     [Theory]
     [InlineData("")]
@@ -20,5 +21,9 @@ public sealed class FormatTests
     [InlineData("1-200000")]
     [InlineData("abc")]
     public void PartIds_RefuseBadTokens(string text) =>
-        Assert.Contains("--ids", Assert.Throws<ArgumentException>(() => PartIds.Parse(text)).Message, StringComparison.Ordinal);
+        Assert.Contains(
+            "--ids",
+            Assert.Throws<ArgumentException>(() => PartIds.Parse(text)).Message,
+            StringComparison.Ordinal
+        );
 }

@@ -14,10 +14,10 @@ namespace SortRig.Host.Tests.Library;
 /// </summary>
 public sealed class LibraryDriftTests
 {
-    private const double DriftA = 0.8;     // ppm/h, part A in night-1
-    private const double TempcoA = -12;    // ppm/K, part A in night-1
-    private const double DriftB1 = 5;      // ppm/h, part B in night-1 (superseded)
-    private const double DriftB2 = -2.5;   // ppm/h, part B in night-2, no thermometer
+    private const double DriftA = 0.8; // ppm/h, part A in night-1
+    private const double TempcoA = -12; // ppm/K, part A in night-1
+    private const double DriftB1 = 5; // ppm/h, part B in night-1 (superseded)
+    private const double DriftB2 = -2.5; // ppm/h, part B in night-2, no thermometer
 
     [Theory]
     [InlineData(StoreEngine.Sqlite)]
@@ -28,7 +28,15 @@ public sealed class LibraryDriftTests
         var (a, b, never, noSamples) = await SeedAsync(store);
         var file = store.File("library.csv");
 
-        var code = await LibraryExport.RunAsync(store.Database, file, null, null, new ConsoleCapture().Console, TextWriter.Null, CancellationToken.None);
+        var code = await LibraryExport.RunAsync(
+            store.Database,
+            file,
+            null,
+            null,
+            new ConsoleCapture().Console,
+            TextWriter.Null,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         var rows = ReadRows(file, out var headers);
@@ -58,7 +66,11 @@ public sealed class LibraryDriftTests
         // (from memory; it follows from the overlapping estimator, every second difference being D tau).
         var tau = D(rowB["adev_tau_s"]);
         Assert.True(tau >= 60 && double.IsPow2((long)(tau / 60)), $"tau {tau} s is not an octave of the 60 s interval");
-        Assert.Equal(Math.Abs(DriftB2) / 3600 * tau / Math.Sqrt(2), D(rowB["adev_ppm"]), Math.Abs(DriftB2) / 3600 * tau * 1e-5);
+        Assert.Equal(
+            Math.Abs(DriftB2) / 3600 * tau / Math.Sqrt(2),
+            D(rowB["adev_ppm"]),
+            Math.Abs(DriftB2) / 3600 * tau * 1e-5
+        );
 
         // Never logged, or logged on a channel that never got a sample: every drift field empty.
         string[] driftColumns = [.. LibraryExport.Columns.Skip(20)];
@@ -73,11 +85,18 @@ public sealed class LibraryDriftTests
         var (a, b, never, _) = await SeedAsync(store);
         var io = new ConsoleCapture();
 
-        var code = await LibraryFind.RunAsync(new FindRequest(store.Database, "10k", null, null), io.Console, CancellationToken.None);
+        var code = await LibraryFind.RunAsync(
+            new FindRequest(store.Database, "10k", null, null),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         var lines = io.Text.Split('\n');
-        string Row(PartRecord p) => lines.Single(l => l.TrimStart().StartsWith(p.Id.ToString(CultureInfo.InvariantCulture) + " ", StringComparison.Ordinal));
+        string Row(PartRecord p) =>
+            lines.Single(l =>
+                l.TrimStart().StartsWith(p.Id.ToString(CultureInfo.InvariantCulture) + " ", StringComparison.Ordinal)
+            );
         // Two significant digits of the lines' slopes (0.8 and -2.5 ppm/h, chosen above); common practice, no source.
         Assert.EndsWith("+0.80 ppm/h", Row(a).TrimEnd(), StringComparison.Ordinal);
         Assert.EndsWith("-2.5 ppm/h", Row(b).TrimEnd(), StringComparison.Ordinal);
@@ -100,23 +119,43 @@ public sealed class LibraryDriftTests
         return rows;
     }
 
-    /// <summary>Night-1, part A: 241 samples 60 s apart (4 h); T = 22 + 1.5 cos(2 pi k / 240) degC, symmetric in time.</summary>
+    /// <summary>Night-1, part A: 241 samples 60 s apart (4 h); T = 22 + 1.5 cos(2 pi k / 240) degC, symmetric in
+    /// time.</summary>
     private static (double[] Hours, double[] Ohms) NightOneA()
     {
         var hours = Enumerable.Range(0, 241).Select(k => k / 60.0).ToArray();
-        return (hours, [.. hours.Select((h, k) => 10_000 * (1 + (((DriftA * h) + (TempcoA * (Temp(k) - 22))) * 1e-6)))]);
+        return (
+            hours,
+            [.. hours.Select((h, k) => 10_000 * (1 + (((DriftA * h) + (TempcoA * (Temp(k) - 22))) * 1e-6)))]
+        );
     }
 
     private static double Temp(int k) => 22 + (1.5 * Math.Cos(2 * Math.PI * k / 240));
 
-    private static async Task<(PartRecord A, PartRecord B, PartRecord Never, PartRecord NoSamples)> SeedAsync(TestStore store)
+    private static async Task<(PartRecord A, PartRecord B, PartRecord Never, PartRecord NoSamples)> SeedAsync(
+        TestStore store
+    )
     {
         await using var log = await store.OpenAsync();
-        var p = await Seed.SessionAsync(log, "ladder", [new SeedPart(-40, 10, Slot: "T1-A01"), new SeedPart(15, 10, Slot: "T1-A02"),
-            new SeedPart(60, 10, Slot: "T1-A03"), new SeedPart(-5, 10, Slot: "T1-A04")]);
+        var p = await Seed.SessionAsync(
+            log,
+            "ladder",
+            [
+                new SeedPart(-40, 10, Slot: "T1-A01"),
+                new SeedPart(15, 10, Slot: "T1-A02"),
+                new SeedPart(60, 10, Slot: "T1-A03"),
+                new SeedPart(-5, 10, Slot: "T1-A04"),
+            ]
+        );
         var t0 = new DateTimeOffset(2026, 3, 2, 20, 0, 0, TimeSpan.Zero);
-        var night1 = await log.StartDriftRunAsync(new DriftRunRequest("night-1",
-            [new DriftChannel("ch101", p[0].Id), new DriftChannel("ch102", p[1].Id), new DriftChannel("pt100@103")], TimeSpan.FromMinutes(1)), CancellationToken.None);
+        var night1 = await log.StartDriftRunAsync(
+            new DriftRunRequest(
+                "night-1",
+                [new DriftChannel("ch101", p[0].Id), new DriftChannel("ch102", p[1].Id), new DriftChannel("pt100@103")],
+                TimeSpan.FromMinutes(1)
+            ),
+            CancellationToken.None
+        );
         var (hours, ohmsA) = NightOneA();
         var samples = new List<StoredDriftSample>();
         for (var k = 0; k < hours.Length; k++)
@@ -124,18 +163,35 @@ public sealed class LibraryDriftTests
             var at = t0.AddMinutes(k);
             samples.Add(new StoredDriftSample(night1.Id, 0, at, ohmsA[k], Temp(k)));
             samples.Add(new StoredDriftSample(night1.Id, 1, at, 10_000 * (1 + (DriftB1 * hours[k] * 1e-6)), Temp(k)));
-            // Thermometer channel, filler: a Pt100 read as R0 (1 + A T) with IEC 60751's A = 3.9083e-3 /K (from memory);
-            // only its presence in the run matters to these tests.
+            // Thermometer channel, filler: a Pt100 read as R0 (1 + A T) with IEC 60751's A = 3.9083e-3 /K (from
+            // memory); only its presence in the run matters to these tests.
             samples.Add(new StoredDriftSample(night1.Id, 2, at, 100 * (1 + (3.9083e-3 * (Temp(k) - 0))), null));
         }
 
         await log.AppendDriftSamplesAsync(samples, CancellationToken.None);
-        var night2 = await log.StartDriftRunAsync(new DriftRunRequest("night-2",
-            [new DriftChannel("ch101", p[1].Id), new DriftChannel("ch102", p[3].Id)], TimeSpan.FromMinutes(1)), CancellationToken.None);
+        var night2 = await log.StartDriftRunAsync(
+            new DriftRunRequest(
+                "night-2",
+                [new DriftChannel("ch101", p[1].Id), new DriftChannel("ch102", p[3].Id)],
+                TimeSpan.FromMinutes(1)
+            ),
+            CancellationToken.None
+        );
         var t1 = t0.AddDays(1);
         await log.AppendDriftSamplesAsync(
-            [.. Enumerable.Range(0, 181).Select(k => new StoredDriftSample(night2.Id, 0, t1.AddMinutes(k), 10_000 * (1 + (DriftB2 * (k / 60.0) * 1e-6)), null))],
-            CancellationToken.None);
+            [
+                .. Enumerable
+                    .Range(0, 181)
+                    .Select(k => new StoredDriftSample(
+                        night2.Id,
+                        0,
+                        t1.AddMinutes(k),
+                        10_000 * (1 + (DriftB2 * (k / 60.0) * 1e-6)),
+                        null
+                    )),
+            ],
+            CancellationToken.None
+        );
         return (p[0], p[1], p[2], p[3]);
     }
 }

@@ -12,11 +12,19 @@ public sealed class PostgresDataAttribute : DataAttribute
 {
     public PostgresDataAttribute()
     {
-        if (string.IsNullOrWhiteSpace(Environment.GetEnvironmentVariable(TestStore.PgVariable)) && Environment.GetEnvironmentVariable("CI") != "true")
+        if (
+            string.IsNullOrWhiteSpace(Environment.GetEnvironmentVariable(TestStore.PgVariable))
+            && Environment.GetEnvironmentVariable("CI") != "true"
+        )
         {
-            Skip = $"PostgreSQL row skipped: set {TestStore.PgVariable} (export {TestStore.PgVariable}=\"$(scripts/pg-test-server start)\").";
+            Skip =
+                $"PostgreSQL row skipped: set {TestStore.PgVariable} (export "
+                + $"{TestStore.PgVariable}=\"$(scripts/pg-test-server start)\").";
         }
     }
 
-    public override IEnumerable<object[]> GetData(MethodInfo testMethod) => [[StoreEngine.Postgres]];
+    public override IEnumerable<object[]> GetData(MethodInfo testMethod) =>
+        [
+            [StoreEngine.Postgres],
+        ];
 }

@@ -30,7 +30,8 @@ public sealed class TestStore : IAsyncDisposable
         _schema = schema;
     }
 
-    /// <summary>The --db value: a SQLite file path or a PostgreSQL connection string with its own search path.</summary>
+    /// <summary>The --db value: a SQLite file path or a PostgreSQL connection string with its own search
+    /// path.</summary>
     public string Database { get; }
 
     /// <summary>A folder for output files of this test.</summary>
@@ -45,7 +46,9 @@ public sealed class TestStore : IAsyncDisposable
         }
 
         var server = Environment.GetEnvironmentVariable(PgVariable)
-            ?? throw new InvalidOperationException($"{PgVariable} is not set: start a server with scripts/pg-test-server start and export its output.");
+            ?? throw new InvalidOperationException(
+                $"{PgVariable} is not set: start a server with scripts/pg-test-server start and export its output."
+            );
         var schema = "lib_" + Guid.NewGuid().ToString("N");
         await ExecuteAsync(server, $"CREATE SCHEMA {schema}"); // name made here from a GUID, not input
         return new TestStore($"{server};Search Path={schema}", folder, server, schema);

@@ -13,7 +13,8 @@ public sealed class FramePacerTests
     {
         var clock = new FakeTimeProvider();
         var pacer = new FramePacer(clock);
-        int readingFrames = 0, announcementFrames = 0;
+        int readingFrames = 0,
+            announcementFrames = 0;
         for (var k = 0; k < 500; k++)
         {
             if (pacer.Due(BenchEventKind.Reading))

@@ -8,7 +8,8 @@ public sealed class LiveViewModelTests
     [Fact]
     public void Apply_Announcements_CountPartsButNotRepeats()
     {
-        var m = LiveViewModel.Empty(10)
+        var m = LiveViewModel
+            .Empty(10)
             .Apply(new BenchEvent(1, BenchEventKind.Announcement, default, PartNumber: 1, Cup: "A", State: "Cup"))
             .Apply(new BenchEvent(2, BenchEventKind.Announcement, default, PartNumber: 1, Cup: "A", State: "Repeat"))
             .Apply(new BenchEvent(3, BenchEventKind.Announcement, default, PartNumber: 2, Cup: "R", State: "Reject"));

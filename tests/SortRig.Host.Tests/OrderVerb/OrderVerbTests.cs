@@ -12,9 +12,25 @@ namespace SortRig.Host.Tests.OrderVerb;
 public sealed partial class OrderVerbTests
 {
     // Fourteen 10 kOhm parts, transfer u 10 ppm (U = 20 ppm): invented values, spread so quads compete.
-    private static readonly SeedPart[] s_parts =
-        new double[] { -1800, -1400, -900, -700, -650, -300, -250, -200, -100, 0, 50, 400, 450, 900 }
-            .Select(ppm => new SeedPart(ppm, 10)).ToArray();
+    private static readonly SeedPart[] s_parts = new double[]
+    {
+        -1800,
+        -1400,
+        -900,
+        -700,
+        -650,
+        -300,
+        -250,
+        -200,
+        -100,
+        0,
+        50,
+        400,
+        450,
+        900,
+    }
+        .Select(ppm => new SeedPart(ppm, 10))
+        .ToArray();
 
     [Fact]
     public async Task Reach_ReportedMatch_AgreesWithABruteForceOptimum()
@@ -25,7 +41,11 @@ public sealed partial class OrderVerbTests
         await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var parts = await Seed.SessionAsync(store, "drawer", s_parts);
         var io = new ConsoleCapture();
-        var code = await ReachRunner.RunAsync(new ReachRequest(store.Database, "drawer", PlanVerbTests.Recipe, 2), io.Console, CancellationToken.None);
+        var code = await ReachRunner.RunAsync(
+            new ReachRequest(store.Database, "drawer", PlanVerbTests.Recipe, 2),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         var m = MatchLine().Match(io.Text);
@@ -46,9 +66,20 @@ public sealed partial class OrderVerbTests
         var (csv, curve, png) = (store.File("order.csv"), store.File("curve.csv"), store.File("order.png"));
         var io = new ConsoleCapture();
         var code = await OrderRunner.RunAsync(
-            new OrderRequest(PlanVerbTests.Recipe, 5, Database: store.Database, FromSession: "drawer", Trials: 200, Price: "1:0.10,100:0.04",
-                CsvPath: csv, CurveCsvPath: curve, PlotPath: png),
-            io.Console, CancellationToken.None);
+            new OrderRequest(
+                PlanVerbTests.Recipe,
+                5,
+                Database: store.Database,
+                FromSession: "drawer",
+                Trials: 200,
+                Price: "1:0.10,100:0.04",
+                CsvPath: csv,
+                CurveCsvPath: curve,
+                PlotPath: png
+            ),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         Assert.Contains("session 'drawer'", io.Text, StringComparison.Ordinal);
@@ -59,9 +90,16 @@ public sealed partial class OrderVerbTests
         Assert.All(quantities, q => Assert.True(q >= 20 && q % 4 == 0, $"{q} parts for 5 quads"));
 
         // Quantity-break arithmetic (common practice, no source): q parts at 0.10 each below 100.
-        Assert.All(rows, r => Assert.Equal(int.Parse(r[3], CultureInfo.InvariantCulture) * 0.10, double.Parse(r[5], CultureInfo.InvariantCulture), 9));
+        Assert.All(rows, r =>
+            Assert.Equal(
+                int.Parse(r[3], CultureInfo.InvariantCulture) * 0.10,
+                double.Parse(r[5], CultureInfo.InvariantCulture),
+                9
+            )
+        );
         Assert.True(File.ReadAllLines(curve).Length >= 3);
-        Assert.Equal([0x89, 0x50, 0x4E, 0x47], (await File.ReadAllBytesAsync(png)).Take(4)); // PNG signature (PNG spec, ISO/IEC 15948 sec. 5.2)
+        // PNG signature (PNG spec, ISO/IEC 15948 sec. 5.2)
+        Assert.Equal([0x89, 0x50, 0x4E, 0x47], (await File.ReadAllBytesAsync(png)).Take(4));
     }
 
     [Fact]

@@ -33,12 +33,22 @@ public sealed class PlanCupsAndErrorsTests
         var parts = await Seed.SessionAsync(store, "cups", s_cups);
         // Expected, independently: a quad takes four parts of one cup; a cup gives floor(count / 4) quads when all its
         // parts together meet the rule, none otherwise; the reject cup gives none.
-        var expected = parts.Where(p => p.CupLabel != "R").GroupBy(p => p.CupLabel)
-            .Sum(g => MatchedBruteForce.WorstPpm(g.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000) <= Tolerance ? g.Count() / 4 : 0);
+        var expected = parts
+            .Where(p => p.CupLabel != "R")
+            .GroupBy(p => p.CupLabel)
+            .Sum(g =>
+                MatchedBruteForce.WorstPpm(g.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000) <= Tolerance
+                    ? g.Count() / 4
+                    : 0
+            );
         var csv = store.File("cups.csv");
         var io = new ConsoleCapture();
 
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "cups", PlanVerbTests.Recipe, csv), io.Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "cups", PlanVerbTests.Recipe, csv),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         Assert.Equal(2, expected);
@@ -54,16 +64,23 @@ public sealed class PlanCupsAndErrorsTests
         // Each batch of a session labels its cups from A, so the 1 kOhm, 2 kOhm and 4 kOhm batches of the ratio set
         // all have a cup A (invented values within 100 ppm of nominal). Cups are told apart by nominal, not label.
         await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
-        await Seed.SessionAsync(store, "gain-set",
-        [
-            .. new double[] { -50, 40 }.Select(p => new SeedPart(p, 10, "A", Nominal: 1_000)),
-            .. new double[] { -60, -20, 30, 70 }.Select(p => new SeedPart(p, 10, "A", Nominal: 2_000)),
-            .. new double[] { -30, 60 }.Select(p => new SeedPart(p, 10, "A", Nominal: 4_000)),
-        ]);
+        await Seed.SessionAsync(
+            store,
+            "gain-set",
+            [
+                .. new double[] { -50, 40 }.Select(p => new SeedPart(p, 10, "A", Nominal: 1_000)),
+                .. new double[] { -60, -20, 30, 70 }.Select(p => new SeedPart(p, 10, "A", Nominal: 2_000)),
+                .. new double[] { -30, 60 }.Select(p => new SeedPart(p, 10, "A", Nominal: 4_000)),
+            ]
+        );
         var csv = store.File("gain.csv");
         var io = new ConsoleCapture();
 
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "gain-set", "ratio-set", csv), io.Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "gain-set", "ratio-set", csv),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         // Two sets: each takes 1 kOhm, 2 kOhm twice and 4 kOhm, all from the cups A of their nominals; the widest
@@ -80,14 +97,39 @@ public sealed class PlanCupsAndErrorsTests
     public async Task LibrarySets_AcrossTwoSessions_CountsLikeTheBruteForceOverBoth(StoreEngine engine)
     {
         await using var store = await TestStore.CreateAsync(engine);
-        var first = await Seed.SessionAsync(store, "reel-1", [.. new double[] { -300, -100, 100, 300, 900, 1500 }.Select((p, i) => new SeedPart(p, 10, Slot: $"T1-A{i + 1:00}"))]);
-        var second = await Seed.SessionAsync(store, "reel-2", [.. new double[] { -200, 0, 200, 1200, 1300 }.Select((p, i) => new SeedPart(p, 10, Slot: $"T2-A{i + 1:00}"))]);
+        var first = await Seed.SessionAsync(
+            store,
+            "reel-1",
+            [
+                .. new double[] { -300, -100, 100, 300, 900, 1500 }.Select(
+                    (p, i) => new SeedPart(p, 10, Slot: $"T1-A{i + 1:00}")
+                ),
+            ]
+        );
+        var second = await Seed.SessionAsync(
+            store,
+            "reel-2",
+            [
+                .. new double[] { -200, 0, 200, 1200, 1300 }.Select(
+                    (p, i) => new SeedPart(p, 10, Slot: $"T2-A{i + 1:00}")
+                ),
+            ]
+        );
         var all = first.Concat(second).ToList();
-        var expected = MatchedBruteForce.MaxDisjoint(all.Select(p => (p.Value, p.Measured.ExpandedTransfer)).ToList(), 4, 10_000, Tolerance);
+        var expected = MatchedBruteForce.MaxDisjoint(
+            all.Select(p => (p.Value, p.Measured.ExpandedTransfer)).ToList(),
+            4,
+            10_000,
+            Tolerance
+        );
         Assert.True(expected >= 2, "test data should need parts of both sessions");
         var csv = store.File("sets.csv");
 
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, null, "matched-quad", csv), new ConsoleCapture().Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, null, "matched-quad", csv),
+            new ConsoleCapture().Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         var rows = PlanVerbTests.ReadPickCsv(csv);
@@ -103,7 +145,11 @@ public sealed class PlanCupsAndErrorsTests
         await Seed.SessionAsync(store, "quad-reel", [new SeedPart(0, 10, "A")]);
         var io = new ConsoleCapture();
 
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "nope", PlanVerbTests.Recipe), io.Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "nope", PlanVerbTests.Recipe),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.BadInput, code);
         Assert.Contains("no session named or numbered 'nope'", io.Text, StringComparison.Ordinal);
@@ -115,10 +161,17 @@ public sealed class PlanCupsAndErrorsTests
     {
         await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
         var recipe = store.File("broken.yaml");
-        await File.WriteAllTextAsync(recipe, "recipe: q\nform: matched\nmatch-ppm: -5\npositions:\n  - { name: R1, nominal: 10k }\n");
+        await File.WriteAllTextAsync(
+            recipe,
+            "recipe: q\nform: matched\nmatch-ppm: -5\npositions:\n  - { name: R1, nominal: 10k }\n"
+        );
         var io = new ConsoleCapture();
 
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "any", recipe), io.Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "any", recipe),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.BadInput, code);
         Assert.Contains("broken.yaml:3:12: match-ppm: expected", io.Text, StringComparison.Ordinal);
@@ -131,7 +184,11 @@ public sealed class PlanCupsAndErrorsTests
         await Seed.SessionAsync(store, "s", [new SeedPart(0, 10, "A")]);
         var io = new ConsoleCapture();
 
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "s", "diff-amp-g1", Mode: PickMode.Cups), io.Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "s", "diff-amp-g1", Mode: PickMode.Cups),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.BadInput, code);
         Assert.Contains("--pick parts", io.Text, StringComparison.Ordinal);
@@ -141,12 +198,29 @@ public sealed class PlanCupsAndErrorsTests
     public async Task PlanCommand_ParsedFromArguments_WritesTheCsvAndExitsZero()
     {
         await using var store = await TestStore.CreateAsync(StoreEngine.Sqlite);
-        await Seed.SessionAsync(store, "quad-reel", [.. new double[] { 0, 10, 20, 30 }.Select((p, i) => new SeedPart(p, 10, $"T1-A{i + 1:00}"))]);
+        await Seed.SessionAsync(
+            store,
+            "quad-reel",
+            [.. new double[] { 0, 10, 20, 30 }.Select((p, i) => new SeedPart(p, 10, $"T1-A{i + 1:00}"))]
+        );
         var csv = store.File("parsed.csv");
         var io = new ConsoleCapture();
         var root = new RootCommand { PlanCommand.Create(io.Console) };
 
-        var code = await root.Parse(["plan", "--db", store.Database, "--session", "1", "--recipe", PlanVerbTests.Recipe, "--csv", csv, "--pick", "parts"]).InvokeAsync();
+        var code = await root.Parse([
+                "plan",
+                "--db",
+                store.Database,
+                "--session",
+                "1",
+                "--recipe",
+                PlanVerbTests.Recipe,
+                "--csv",
+                csv,
+                "--pick",
+                "parts",
+            ])
+            .InvokeAsync();
 
         Assert.Equal(0, code);
         Assert.Single(PlanVerbTests.ReadPickCsv(csv).Select(r => r.Set).Distinct());

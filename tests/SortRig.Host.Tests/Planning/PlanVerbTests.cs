@@ -14,9 +14,24 @@ public sealed class PlanVerbTests
     private const double Tolerance = 1000; // recipes/matched-quad.yaml: match-ppm 1000
 
     // Thirteen slotted 10 kOhm parts, transfer u 10 ppm (U = 20 ppm): invented, chosen so several quads compete.
-    private static readonly SeedPart[] s_slotted =
-        new double[] { -1400, -900, -700, -650, -300, -250, -200, -100, 0, 50, 400, 450, 900 }
-            .Select((ppm, i) => new SeedPart(ppm, 10, Cup: $"T1-A{i + 1:00}")).ToArray();
+    private static readonly SeedPart[] s_slotted = new double[]
+    {
+        -1400,
+        -900,
+        -700,
+        -650,
+        -300,
+        -250,
+        -200,
+        -100,
+        0,
+        50,
+        400,
+        450,
+        900,
+    }
+        .Select((ppm, i) => new SeedPart(ppm, 10, Cup: $"T1-A{i + 1:00}"))
+        .ToArray();
 
     internal static string Recipe => Path.Combine(RepoRoot(), "recipes", "matched-quad.yaml");
 
@@ -27,12 +42,21 @@ public sealed class PlanVerbTests
     {
         await using var store = await TestStore.CreateAsync(engine);
         var parts = await Seed.SessionAsync(store, "quad-reel", s_slotted);
-        var expected = MatchedBruteForce.MaxDisjoint(parts.Select(p => (p.Value, p.Measured.ExpandedTransfer)).ToList(), 4, 10_000, Tolerance);
+        var expected = MatchedBruteForce.MaxDisjoint(
+            parts.Select(p => (p.Value, p.Measured.ExpandedTransfer)).ToList(),
+            4,
+            10_000,
+            Tolerance
+        );
         Assert.True(expected >= 2, "test data should allow at least two quads");
 
         var io = new ConsoleCapture();
         var csv = store.File("picks.csv");
-        var code = await PlanRunner.RunAsync(new PlanRequest(store.Database, "quad-reel", Recipe, csv), io.Console, CancellationToken.None);
+        var code = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "quad-reel", Recipe, csv),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, code);
         var rows = ReadPickCsv(csv);
@@ -44,9 +68,18 @@ public sealed class PlanVerbTests
         foreach (var set in sets)
         {
             Assert.Equal(4, set.Count());
-            var members = set.Select(r => byId[long.Parse(r.Part, System.Globalization.CultureInfo.InvariantCulture)]).ToList();
-            Assert.True(MatchedBruteForce.WorstPpm(members.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000) <= Tolerance);
-            Assert.All(set, r => Assert.Equal(byId[long.Parse(r.Part, System.Globalization.CultureInfo.InvariantCulture)].CupLabel, r.Source));
+            var members = set.Select(r => byId[long.Parse(r.Part, System.Globalization.CultureInfo.InvariantCulture)])
+                .ToList();
+            Assert.True(
+                MatchedBruteForce.WorstPpm(members.Select(p => (p.Value, p.Measured.ExpandedTransfer)), 10_000)
+                    <= Tolerance
+            );
+            Assert.All(set, r =>
+                Assert.Equal(
+                    byId[long.Parse(r.Part, System.Globalization.CultureInfo.InvariantCulture)].CupLabel,
+                    r.Source
+                )
+            );
         }
     }
 
@@ -59,10 +92,16 @@ public sealed class PlanVerbTests
         await Seed.SessionAsync(store, "quad-reel", s_slotted);
         var csv = store.File("picks.csv");
 
-        var first = await PlanRunner.RunAsync(new PlanRequest(store.Database, "quad-reel", Recipe, csv, TakeBy: "alice"), new ConsoleCapture().Console, CancellationToken.None);
+        var first = await PlanRunner.RunAsync(
+            new PlanRequest(store.Database, "quad-reel", Recipe, csv, TakeBy: "alice"),
+            new ConsoleCapture().Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Ok, first);
-        var ids = ReadPickCsv(csv).Select(r => long.Parse(r.Part, System.Globalization.CultureInfo.InvariantCulture)).ToList();
+        var ids = ReadPickCsv(csv)
+            .Select(r => long.Parse(r.Part, System.Globalization.CultureInfo.InvariantCulture))
+            .ToList();
         Assert.NotEmpty(ids);
         await using (var log = await store.OpenAsync())
         {
@@ -74,7 +113,11 @@ public sealed class PlanVerbTests
         }
 
         var io = new ConsoleCapture();
-        var second = await LibraryMoves.RunAsync(new MoveRequest(store.Database, LibraryMove.Take, ids, "bob"), io.Console, CancellationToken.None);
+        var second = await LibraryMoves.RunAsync(
+            new MoveRequest(store.Database, LibraryMove.Take, ids, "bob"),
+            io.Console,
+            CancellationToken.None
+        );
 
         Assert.Equal(VerbExit.Refused, second);
         Assert.Contains("take refused, nothing changed", io.Text, StringComparison.Ordinal);

@@ -1,5 +1,5 @@
-using SortRig.Host.VerbSupport;
 using SortRig.Host.PlanVerb;
+using SortRig.Host.VerbSupport;
 using SortRig.Storage;
 
 namespace SortRig.Host.Tests.Planning;
@@ -24,9 +24,23 @@ public sealed class SessionLookupTests : IDisposable
 
         Assert.Equal(second.Session.Id, found.Id);
         var line = Assert.Single(told);
-        Assert.Contains($"2 sessions are named 'bench': taking the newest (id {second.Session.Id}", line, StringComparison.Ordinal);
+        Assert.Contains(
+            $"2 sessions are named 'bench': taking the newest (id {second.Session.Id}",
+            line,
+            StringComparison.Ordinal
+        );
         Assert.Contains($"the others have ids {first.Session.Id}", line, StringComparison.Ordinal);
-        Assert.Equal(first.Session.Id, (await SessionLookup.FindAsync(log, first.Session.Id.ToString(System.Globalization.CultureInfo.InvariantCulture), default, told.Add)).Id);
+        Assert.Equal(
+            first.Session.Id,
+            (
+                await SessionLookup.FindAsync(
+                    log,
+                    first.Session.Id.ToString(System.Globalization.CultureInfo.InvariantCulture),
+                    default,
+                    told.Add
+                )
+            ).Id
+        );
         Assert.Single(told); // by id: nothing to say
     }
 
@@ -38,6 +52,10 @@ public sealed class SessionLookupTests : IDisposable
 
         var e = await Assert.ThrowsAsync<VerbException>(() => SessionLookup.FindAsync(log, "bnech", default));
 
-        Assert.Contains("no session named or numbered 'bnech'; newest sessions: 'ladder'", e.Message, StringComparison.Ordinal);
+        Assert.Contains(
+            "no session named or numbered 'bnech'; newest sessions: 'ladder'",
+            e.Message,
+            StringComparison.Ordinal
+        );
     }
 }

@@ -34,23 +34,39 @@ public sealed class CrashTests(ITestOutputHelper output) : IDisposable
         var plan = CrashPlan.Make(rng, migrationKills: HostProcess.StraceAvailable ? 4 : 0);
         if (!HostProcess.StraceAvailable)
         {
-            Assert.False(Environment.GetEnvironmentVariable("CI") == "true", "strace is needed for the migration crash points on CI");
+            Assert.False(
+                Environment.GetEnvironmentVariable("CI") == "true",
+                "strace is needed for the migration crash points on CI"
+            );
             output.WriteLine("strace not installed: migration crash points skipped (apt-get install strace)");
         }
 
         var runs = new List<(CrashPlan.Step Step, HostRun Run)>();
         foreach (var step in plan.Append(CrashPlan.Step.Finish))
         {
-            var run = await HostProcess.RunAsync(_dir, Args(db, seed), step.CrashAt, step.Strace(db), step.KillAfter(rng), TimeSpan.FromMinutes(1));
+            var run = await HostProcess.RunAsync(
+                _dir,
+                Args(db, seed),
+                step.CrashAt,
+                step.Strace(db),
+                step.KillAfter(rng),
+                TimeSpan.FromMinutes(1)
+            );
             runs.Add((step, run));
-            output.WriteLine($"{step.Kind,-10} {step.Detail,-12} exit {run.ExitCode,3}  heard {Announcements.Cups(string.Join('\n', run.Lines)).Count}");
+            output.WriteLine(
+                $"{step.Kind, -10} {step.Detail, -12} exit {run.ExitCode, 3}  heard "
+                    + $"{Announcements.Cups(string.Join('\n', run.Lines)).Count}"
+            );
             if (step.Kind == "finish" || run.ExitCode == 0)
             {
                 Assert.Equal(0, run.ExitCode);
                 break;
             }
 
-            Assert.True(run.DiedOfSigkill, $"{step.Kind} {step.Detail}: exit {run.ExitCode}\n{string.Join('\n', run.Lines.TakeLast(15))}");
+            Assert.True(
+                run.DiedOfSigkill,
+                $"{step.Kind} {step.Detail}: exit {run.ExitCode}\n{string.Join('\n', run.Lines.TakeLast(15))}"
+            );
         }
 
         var kills = runs.Where(r => r.Run.DiedOfSigkill).ToList();
@@ -59,18 +75,37 @@ public sealed class CrashTests(ITestOutputHelper output) : IDisposable
         // Every kill during the migration left the store unmigrated: none of those runs finished it,
         // and the first run after them applied migration 1 again.
         const string migrated = "Applied schema migration 1";
-        Assert.All(runs.Where(r => r.Step.Kind == "migration"), r => Assert.DoesNotContain(migrated, r.Run.Log, StringComparison.Ordinal));
+        Assert.All(runs.Where(r => r.Step.Kind == "migration"), r =>
+            Assert.DoesNotContain(migrated, r.Run.Log, StringComparison.Ordinal)
+        );
         Assert.Contains(migrated, runs.First(r => r.Step.Kind != "migration").Run.Log, StringComparison.Ordinal);
 
         await AssertNothingLostAsync(db, seed, runs.Select(r => r.Run).ToList());
         var report = string.Join(", ", kills.GroupBy(k => k.Step.Kind).Select(g => $"{g.Key} {g.Count()}"));
         output.WriteLine($"kills: {kills.Count} ({report}), seed {seed}");
-        SoakSettings.Report(string.Create(CultureInfo.InvariantCulture, $"| crash | {Parts} | {kills.Count} | {report} | seed {seed} |"));
+        SoakSettings.Report(
+            string.Create(CultureInfo.InvariantCulture, $"| crash | {Parts} | {kills.Count} | {report} | seed {seed} |")
+        );
     }
 
     private static string[] Args(string db, int seed) =>
-        ["sort", "--plain", "--no-speech", "--speed", "100", "--nplc", "10", "--parts", Parts.ToString(CultureInfo.InvariantCulture),
-         "--db", db, "--session", "crash", "--seed", seed.ToString(CultureInfo.InvariantCulture)];
+        [
+            "sort",
+            "--plain",
+            "--no-speech",
+            "--speed",
+            "100",
+            "--nplc",
+            "10",
+            "--parts",
+            Parts.ToString(CultureInfo.InvariantCulture),
+            "--db",
+            db,
+            "--session",
+            "crash",
+            "--seed",
+            seed.ToString(CultureInfo.InvariantCulture),
+        ];
 
     private async Task AssertNothingLostAsync(string db, int seed, IReadOnlyList<HostRun> runs)
     {
@@ -96,10 +131,18 @@ public sealed class CrashTests(ITestOutputHelper output) : IDisposable
         Assert.Equal(Enumerable.Range(1, Parts), heard.Select(h => h.Part).Distinct());
 
         // The values and cups are those of the reel's true values (simulator truth, same seed).
-        var options = new SortOptions { Parts = Parts, Seed = seed, Nplc = 10 };
+        var options = new SortOptions
+        {
+            Parts = Parts,
+            Seed = seed,
+            Nplc = 10,
+        };
         await using var bench = new SimulatedBench(DemoBench.For(options, Parts));
         var (problems, onEdge) = TruthCheck.Compare(options, parts, n => bench.Truth(n - 1));
-        output.WriteLine($"{heard.Count} announcements, {heard.Count(h => h.Repeated)} repeated after a restart, {onEdge} on a band edge");
+        output.WriteLine(
+            $"{heard.Count} announcements, {heard.Count(h => h.Repeated)} repeated after a restart, {onEdge} on a "
+                + $"band edge"
+        );
         Assert.Empty(problems);
     }
 }

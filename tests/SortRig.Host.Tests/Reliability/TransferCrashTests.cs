@@ -19,7 +19,7 @@ namespace SortRig.Host.Tests.Reliability;
 [Collection(ReliabilityCollection.Name)]
 public sealed class TransferCrashTests(ITestOutputHelper output) : IDisposable
 {
-    private const int R = 3;     // 10 kOhm parts 1..3, then 20 kOhm parts 4..6
+    private const int R = 3; // 10 kOhm parts 1..3, then 20 kOhm parts 4..6
     private const int Total = 6;
     private const int Seed = 2026;
     private static readonly TimeSpan s_limit = TimeSpan.FromMinutes(2);
@@ -48,7 +48,9 @@ public sealed class TransferCrashTests(ITestOutputHelper output) : IDisposable
         // Recorded before the kill: applied without asking, and the batch is sorted to its end.
         var last = await RunAsync(db, 20_000, Total, crashAt: null);
         Assert.Equal(0, last.ExitCode);
-        Assert.Contains(last.Lines, l => l.Contains("range transfer already recorded for this batch", StringComparison.Ordinal));
+        Assert.Contains(last.Lines, l =>
+            l.Contains("range transfer already recorded for this batch", StringComparison.Ordinal)
+        );
         Assert.DoesNotContain(last.Lines, l => l.Contains("bridging part", StringComparison.Ordinal));
 
         DatabaseChecks.AssertIntegrity(db);
@@ -65,19 +67,52 @@ public sealed class TransferCrashTests(ITestOutputHelper output) : IDisposable
         // (1 + g_10k)/(1 + g_100k); the recorded one agrees within k = 2 (JCGM 100:2008 sec. 6.2.1).
         await using var bench = new SimulatedBench(DemoBench.For(Options(20_000, Total), Total));
         var trueCorrectionPpm = RangeTransferSession.TrueCorrectionPpm(bench, transfer.FromRange, transfer.ToRange);
-        output.WriteLine($"recorded {transfer.CorrectionPpm:F1} ppm (u {transfer.StandardUncertaintyPpm:F1}), true {trueCorrectionPpm:F1} ppm");
-        Assert.InRange(transfer.CorrectionPpm - trueCorrectionPpm, -2 * transfer.StandardUncertaintyPpm, 2 * transfer.StandardUncertaintyPpm);
+        output.WriteLine(
+            $"recorded {transfer.CorrectionPpm:F1} ppm (u {transfer.StandardUncertaintyPpm:F1}), true "
+                + $"{trueCorrectionPpm:F1} ppm"
+        );
+        Assert.InRange(
+            transfer.CorrectionPpm - trueCorrectionPpm,
+            -2 * transfer.StandardUncertaintyPpm,
+            2 * transfer.StandardUncertaintyPpm
+        );
     }
 
     private Task<HostRun> RunAsync(string db, double nominal, int parts, string? crashAt) =>
         HostProcess.RunAsync(_dir, Args(db, nominal, parts), crashAt, strace: null, killAfter: null, s_limit);
 
     private static string[] Args(string db, double nominal, int parts) =>
-        ["sort", "--plain", "--no-speech", "--speed", "100", "--nplc", "10", "--reopen", "--bridge", "always",
-         "--nominal", nominal.ToString(CultureInfo.InvariantCulture), "--parts", parts.ToString(CultureInfo.InvariantCulture),
-         "--db", db, "--session", "ladder", "--seed", Seed.ToString(CultureInfo.InvariantCulture)];
+        [
+            "sort",
+            "--plain",
+            "--no-speech",
+            "--speed",
+            "100",
+            "--nplc",
+            "10",
+            "--reopen",
+            "--bridge",
+            "always",
+            "--nominal",
+            nominal.ToString(CultureInfo.InvariantCulture),
+            "--parts",
+            parts.ToString(CultureInfo.InvariantCulture),
+            "--db",
+            db,
+            "--session",
+            "ladder",
+            "--seed",
+            Seed.ToString(CultureInfo.InvariantCulture),
+        ];
 
-    private static SortOptions Options(double nominal, int parts) => new() { Nominal = nominal, Parts = parts, Seed = Seed, Nplc = 10 };
+    private static SortOptions Options(double nominal, int parts) =>
+        new()
+        {
+            Nominal = nominal,
+            Parts = parts,
+            Seed = Seed,
+            Nplc = 10,
+        };
 
     private static string Tail(HostRun run) => $"exit {run.ExitCode}\n{string.Join('\n', run.Lines.TakeLast(15))}";
 }

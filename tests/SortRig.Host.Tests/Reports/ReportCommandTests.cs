@@ -30,20 +30,43 @@ public sealed class ReportCommandTests : IDisposable
     {
         var db = Path.Combine(_dir, "bench.db");
         var sessionId = await SortedSessionAsync(db);
-        var drift = new DriftOptions { Database = db, Channels = "101-104", IntervalSeconds = 60, Hours = 2, Seed = 9 }.Validate();
+        var drift = new DriftOptions
+        {
+            Database = db,
+            Channels = "101-104",
+            IntervalSeconds = 60,
+            Hours = 2,
+            Seed = 9,
+        }.Validate();
         var (outcome, _) = await DriftRuns.RunAsync(drift);
         var folder = Path.Combine(_dir, "report");
         var printed = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No }
+        );
 
-        var exit = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", outcome.RunId), console, default);
+        var exit = await ReportCommand.RunAsync(
+            new ReportRequest(db, folder, "reel-7", outcome.RunId),
+            console,
+            default
+        );
 
         Assert.Equal(0, exit);
         Assert.DoesNotContain("not drawn", printed.ToString(), StringComparison.Ordinal);
         var pngs = Directory.GetFiles(folder, "*.png").Select(Path.GetFileName).Order().ToArray();
         Assert.Equal(
-            ["adev_ch101.png", "adev_ch102.png", "adev_ch103.png", "adev_ch104.png", "drift_ch101.png", "drift_ch102.png", "drift_ch103.png", "drift_ch104.png"],
-            pngs.Where(p => !p!.StartsWith("histogram_", StringComparison.Ordinal)));
+            [
+                "adev_ch101.png",
+                "adev_ch102.png",
+                "adev_ch103.png",
+                "adev_ch104.png",
+                "drift_ch101.png",
+                "drift_ch102.png",
+                "drift_ch103.png",
+                "drift_ch104.png",
+            ],
+            pngs.Where(p => !p!.StartsWith("histogram_", StringComparison.Ordinal))
+        );
         Assert.Equal(2, pngs.Count(p => p!.StartsWith("histogram_", StringComparison.Ordinal)));
         foreach (var png in pngs)
         {
@@ -59,8 +82,11 @@ public sealed class ReportCommandTests : IDisposable
         Assert.Equal(parts.Count, bins.Sum(b => b.Count));
         foreach (var bin in bins)
         {
-            var expected = parts.Count(p => p.Nominal.Equals(bin.NominalOhms)
-                && ((p.Value / p.Nominal) - 1) * 1e6 >= bin.LowPpm && ((p.Value / p.Nominal) - 1) * 1e6 < bin.HighPpm);
+            var expected = parts.Count(p =>
+                p.Nominal.Equals(bin.NominalOhms)
+                && ((p.Value / p.Nominal) - 1) * 1e6 >= bin.LowPpm
+                && ((p.Value / p.Nominal) - 1) * 1e6 < bin.HighPpm
+            );
             Assert.Equal(expected, bin.Count);
         }
 
@@ -84,7 +110,11 @@ public sealed class ReportCommandTests : IDisposable
         // Every part of this session was committed at one instant: no time between acceptances, so no pace line
         // (a pace of 0 s per part would be a lie).
         Assert.Single(parts.Select(p => p.AcceptedAt).Distinct());
-        Assert.DoesNotContain("Pace:", await File.ReadAllTextAsync(Path.Combine(folder, ReportWriter.SummaryFileName)), StringComparison.Ordinal);
+        Assert.DoesNotContain(
+            "Pace:",
+            await File.ReadAllTextAsync(Path.Combine(folder, ReportWriter.SummaryFileName)),
+            StringComparison.Ordinal
+        );
     }
 
     [Fact]
@@ -93,9 +123,15 @@ public sealed class ReportCommandTests : IDisposable
         var db = Path.Combine(_dir, "empty.db");
         await SortedSessionAsync(db);
         var printed = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No }
+        );
 
-        var exit = await ReportCommand.RunAsync(new ReportRequest(db, Path.Combine(_dir, "r"), "no-such", null), console, default);
+        var exit = await ReportCommand.RunAsync(
+            new ReportRequest(db, Path.Combine(_dir, "r"), "no-such", null),
+            console,
+            default
+        );
 
         Assert.Equal(2, exit);
         Assert.Contains("'reel-7'", printed.ToString(), StringComparison.Ordinal);
@@ -111,13 +147,23 @@ public sealed class ReportCommandTests : IDisposable
         await File.WriteAllTextAsync(target, "keep me");
         File.CreateSymbolicLink(Path.Combine(folder, ReportWriter.SummaryFileName), target);
         var printed = new StringWriter();
-        var console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No });
+        var console = AnsiConsole.Create(
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No }
+        );
 
-        var linked = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", null, Force: true), console, default);
+        var linked = await ReportCommand.RunAsync(
+            new ReportRequest(db, folder, "reel-7", null, Force: true),
+            console,
+            default
+        );
         File.Delete(Path.Combine(folder, ReportWriter.SummaryFileName));
         await File.WriteAllTextAsync(Path.Combine(folder, "old.txt"), "an earlier report");
         var occupied = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", null), console, default);
-        var forced = await ReportCommand.RunAsync(new ReportRequest(db, folder, "reel-7", null, Force: true), console, default);
+        var forced = await ReportCommand.RunAsync(
+            new ReportRequest(db, folder, "reel-7", null, Force: true),
+            console,
+            default
+        );
         var onAFile = await ReportCommand.RunAsync(new ReportRequest(db, target, "reel-7", null), console, default);
 
         Assert.Equal((2, 2, 0, 2), (linked, occupied, forced, onAFile));
@@ -137,19 +183,54 @@ public sealed class ReportCommandTests : IDisposable
     // 0.1 % by the fixed-band assigner, stored as a sort session would store them.
     private static async Task<long> SortedSessionAsync(string db)
     {
-        await using var bench = new SimulatedBench(new SimulatedBenchOptions { Seed = 3, TcpPort = 0, Reel = new ReelSpec { Count = 150 } });
+        await using var bench = new SimulatedBench(
+            new SimulatedBenchOptions
+            {
+                Seed = 3,
+                TcpPort = 0,
+                Reel = new ReelSpec { Count = 150 },
+            }
+        );
         await using var log = await PrecisionLogFactory.OpenAsync(db, null, default);
         var session = await log.OpenOrResumeSessionAsync(new SessionRequest("reel-7"), default);
         var number = 0;
         foreach (var reel in bench.Reel.GroupBy(p => p.NominalOhms))
         {
-            var batch = await log.StartBatchAsync(session.Session.Id, new BatchSetup(reel.Key, 10_000, 1_000, reel.Key * 10 > 100_000 ? 1e6 : 1e5, 10, true, "simulator", bench.Identity), default);
+            var batch = await log.StartBatchAsync(
+                session.Session.Id,
+                new BatchSetup(
+                    reel.Key,
+                    10_000,
+                    1_000,
+                    reel.Key * 10 > 100_000 ? 1e6 : 1e5,
+                    10,
+                    true,
+                    "simulator",
+                    bench.Identity
+                ),
+                default
+            );
             var cups = new BandCupAssigner(new BandCupOptions(12, 1_000, reel.Key, 1));
             foreach (var part in reel)
             {
                 var measured = new MeasuredValue(part.OhmsAt23C, part.OhmsAt23C * 2e-6, part.OhmsAt23C * 1e-6);
                 var cup = cups.Assign(new CupRequest(++number, reel.Key, measured)).CupLabel;
-                await log.CommitPartAsync(new PartCommit(Guid.NewGuid(), session.Session.Id, batch.Id, measured, batch.Setup.Range, 10, 23, DriftRuns.Start, cup, null, []), default);
+                await log.CommitPartAsync(
+                    new PartCommit(
+                        Guid.NewGuid(),
+                        session.Session.Id,
+                        batch.Id,
+                        measured,
+                        batch.Setup.Range,
+                        10,
+                        23,
+                        DriftRuns.Start,
+                        cup,
+                        null,
+                        []
+                    ),
+                    default
+                );
             }
         }
 

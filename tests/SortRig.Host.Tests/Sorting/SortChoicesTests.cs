@@ -11,11 +11,20 @@ public sealed class SortChoicesTests
     [InlineData("always", "slots", BridgeMode.Always, AssignerKind.Slots)]
     [InlineData("off", "adaptive", BridgeMode.Off, AssignerKind.Adaptive)]
     [InlineData("Auto", "BANDS", BridgeMode.Auto, AssignerKind.Bands)]
-    public void Bind_TheWordsOfTheFlags_GiveTheirChoices(string bridge, string assigner, BridgeMode expectedBridge, AssignerKind expectedAssigner)
+    public void Bind_TheWordsOfTheFlags_GiveTheirChoices(
+        string bridge,
+        string assigner,
+        BridgeMode expectedBridge,
+        AssignerKind expectedAssigner
+    )
     {
         var options = new ConfigurationBuilder()
-            .AddInMemoryCollection(new Dictionary<string, string?> { ["Sort:Bridge"] = bridge, ["Sort:Assigner"] = assigner })
-            .Build().GetSection(SortOptions.Section).Get<SortOptions>()!;
+            .AddInMemoryCollection(
+                new Dictionary<string, string?> { ["Sort:Bridge"] = bridge, ["Sort:Assigner"] = assigner }
+            )
+            .Build()
+            .GetSection(SortOptions.Section)
+            .Get<SortOptions>()!;
 
         Assert.Equal(expectedBridge, options.Bridge);
         Assert.Equal(expectedAssigner, options.Assigner);
@@ -25,9 +34,12 @@ public sealed class SortChoicesTests
     public void Bind_AWordThatIsNoChoice_IsRefusedNamingTheKey()
     {
         var config = new ConfigurationBuilder()
-            .AddInMemoryCollection(new Dictionary<string, string?> { ["Sort:Bridge"] = "sometimes" }).Build();
+            .AddInMemoryCollection(new Dictionary<string, string?> { ["Sort:Bridge"] = "sometimes" })
+            .Build();
 
-        var e = Assert.Throws<InvalidOperationException>(() => config.GetSection(SortOptions.Section).Get<SortOptions>());
+        var e = Assert.Throws<InvalidOperationException>(() =>
+            config.GetSection(SortOptions.Section).Get<SortOptions>()
+        );
         Assert.Contains("Sort:Bridge", e.Message, StringComparison.Ordinal);
     }
 
@@ -37,7 +49,9 @@ public sealed class SortChoicesTests
         var options = new SortOptions { Bridge = (BridgeMode)7, Assigner = (AssignerKind)9 };
         var errors = new List<ValidationResult>();
 
-        Assert.False(Validator.TryValidateObject(options, new ValidationContext(options), errors, validateAllProperties: true));
+        Assert.False(
+            Validator.TryValidateObject(options, new ValidationContext(options), errors, validateAllProperties: true)
+        );
         Assert.Contains(errors, e => e.ErrorMessage == "Sort:Bridge must be auto, always or off.");
         Assert.Contains(errors, e => e.ErrorMessage == "Sort:Assigner must be bands, adaptive or slots.");
     }

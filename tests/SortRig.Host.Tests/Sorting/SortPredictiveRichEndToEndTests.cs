@@ -1,5 +1,4 @@
 using Microsoft.Extensions.Logging.Abstractions;
-using Spectre.Console;
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Composition;
 using SortRig.Engine.Events;
@@ -12,6 +11,7 @@ using SortRig.Simulator.Physics;
 using SortRig.Storage;
 using SortRig.Storage.Contracts;
 using SortRig.Tests.Support;
+using Spectre.Console;
 using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Sorting;
@@ -47,8 +47,14 @@ public sealed class SortPredictiveRichEndToEndTests(ITestOutputHelper output) : 
         };
         var time = new ScaledTimeProvider(options.Speed);
         var snapshot = new BenchSnapshot();
-        var services = new SortServices(time, new BenchEventHub(time), snapshot, new OperatorCommands(),
-            new PlainTextAnnouncer(new StringWriter()), NullLoggerFactory.Instance);
+        var services = new SortServices(
+            time,
+            new BenchEventHub(time),
+            snapshot,
+            new OperatorCommands(),
+            new PlainTextAnnouncer(new StringWriter()),
+            NullLoggerFactory.Instance
+        );
         SimulatedBench? bench = null;
         using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(20));
 
@@ -69,7 +75,8 @@ public sealed class SortPredictiveRichEndToEndTests(ITestOutputHelper output) : 
         // The summary the operator sees at the end states the pace.
         var printed = new StringWriter();
         var console = AnsiConsole.Create(
-            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No });
+            new AnsiConsoleSettings { Out = new AnsiConsoleOutput(printed), Ansi = AnsiSupport.No }
+        );
         SortSummary.Write(console, outcome, snapshot);
         output.WriteLine(printed.ToString());
         var pace = SortPace.From(snapshot.Parts().Where(p => p.State is "Accepted" or "Announced").Select(p => p.Time));

@@ -37,7 +37,11 @@ internal sealed partial class PtyHost : IAsyncDisposable
         }
     }
 
-    public static PtyHost Start(string workDir, IReadOnlyList<string> args, IReadOnlyDictionary<string, string> environment)
+    public static PtyHost Start(
+        string workDir,
+        IReadOnlyList<string> args,
+        IReadOnlyDictionary<string, string> environment
+    )
     {
         var start = new ProcessStartInfo("script")
         {
@@ -47,7 +51,10 @@ internal sealed partial class PtyHost : IAsyncDisposable
             RedirectStandardError = true,
             UseShellExecute = false,
         };
-        foreach (var a in (string[])["-q", "-e", "-c", $"exec dotnet {HostProcess.HostDll} {string.Join(' ', args)}", "/dev/null"])
+        foreach (
+            var a in (string[])
+                ["-q", "-e", "-c", $"exec dotnet {HostProcess.HostDll} {string.Join(' ', args)}", "/dev/null"]
+        )
         {
             start.ArgumentList.Add(a);
         }
@@ -96,7 +103,9 @@ internal sealed partial class PtyHost : IAsyncDisposable
             }
             catch (OperationCanceledException)
             {
-                throw new TimeoutException($"no matching line within {limit}; last lines:\n{string.Join('\n', lines.TakeLast(15))}");
+                throw new TimeoutException(
+                    $"no matching line within {limit}; last lines:\n{string.Join('\n', lines.TakeLast(15))}"
+                );
             }
         }
     }
@@ -137,7 +146,9 @@ internal sealed partial class PtyHost : IAsyncDisposable
             }
 
             pending.Clear().Append(text[(end + 1)..]);
-            var lines = text[..end].Split('\n').Select(l => Escapes().Replace(l, "").Replace("\r", "", StringComparison.Ordinal));
+            var lines = text[..end]
+                .Split('\n')
+                .Select(l => Escapes().Replace(l, "").Replace("\r", "", StringComparison.Ordinal));
             lock (_lines)
             {
                 _lines.AddRange(lines);

@@ -59,7 +59,10 @@ public sealed class TypedEndpointTests
         var entries = new TypedEntries();
         await using var web = await WebHarness.StartAsync(typed: entries);
         var asked = entries.AskAsync("part 1: type the display", CancellationToken.None).AsTask();
-        using var request = new HttpRequestMessage(HttpMethod.Post, "/api/typed") { Content = JsonContent.Create(new { line = "10.003" }) };
+        using var request = new HttpRequestMessage(HttpMethod.Post, "/api/typed")
+        {
+            Content = JsonContent.Create(new { line = "10.003" }),
+        };
         request.Headers.Add("Origin", "http://evil.example");
 
         using var answer = await web.Http.SendAsync(request);

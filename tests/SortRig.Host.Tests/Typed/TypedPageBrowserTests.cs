@@ -20,11 +20,11 @@ public sealed class TypedPageBrowserTests(ITestOutputHelper output)
     {
         var profile = Directory.CreateTempSubdirectory("sortrig-chromium-").FullName;
         using var browser = HeadlessChromium.Start(profile, 1280, 900);
-        await using var run = await WebSortRun.StartAsync(parts: 2, speed: 1, extra: new Dictionary<string, string?>
-        {
-            ["Sort:Resource"] = "TYPED::handheld-typed",
-            ["Sort:Gap"] = "0.2",
-        });
+        await using var run = await WebSortRun.StartAsync(
+            parts: 2,
+            speed: 1,
+            extra: new Dictionary<string, string?> { ["Sort:Resource"] = "TYPED::handheld-typed", ["Sort:Gap"] = "0.2" }
+        );
         browser.Navigate().GoToUrl(run.BaseUrl + "/");
 
         await PromptAsync(browser, "range set on the meter: press Enter for 50 kOhm");
@@ -37,17 +37,35 @@ public sealed class TypedPageBrowserTests(ITestOutputHelper output)
         await Task.Delay(300); // the least gap between counted entries is 0.2 s here
         Type(browser, "10k003"); // trade notation (IEC 60062 RKM code) for the same display
 
-        var cup = await PageProbe.PollAsync(() => browser.FindElement(By.Id("cup")).Text, t => t is { Length: > 0 } && t != "–", s_wait, "the cup of part 1");
+        var cup = await PageProbe.PollAsync(
+            () => browser.FindElement(By.Id("cup")).Text,
+            t => t is { Length: > 0 } && t != "–",
+            s_wait,
+            "the cup of part 1"
+        );
         await PromptAsync(browser, "part 2: type the display");
         PageProbe.Save(browser, "typed-page.png", output);
         var log = PageProbe.ReadLog(browser);
 
         // The page's undo button reaches the typed loop too: part 1 came out of its cup.
         browser.FindElement(By.Id("undo")).Click();
-        await PageProbe.PollAsync(() => browser.FindElement(By.Id("notices")).Text, t => t.Contains("part 1 undone: take it out of " + cup, StringComparison.Ordinal), s_wait, "the undo notice");
-        var errors = browser.Manage().Logs.GetLog(LogType.Browser).Where(e => e.Level >= LogLevel.Severe).Select(e => e.Message).ToList();
+        await PageProbe.PollAsync(
+            () => browser.FindElement(By.Id("notices")).Text,
+            t => t.Contains("part 1 undone: take it out of " + cup, StringComparison.Ordinal),
+            s_wait,
+            "the undo notice"
+        );
+        var errors = browser
+            .Manage()
+            .Logs.GetLog(LogType.Browser)
+            .Where(e => e.Level >= LogLevel.Severe)
+            .Select(e => e.Message)
+            .ToList();
         using var http = new HttpClient();
-        var session = System.Text.Json.JsonDocument.Parse(await http.GetStringAsync(run.BaseUrl + "/api/session")).RootElement.GetProperty("sessionId").GetInt64();
+        var session = System
+            .Text.Json.JsonDocument.Parse(await http.GetStringAsync(run.BaseUrl + "/api/session"))
+            .RootElement.GetProperty("sessionId")
+            .GetInt64();
         browser.Quit();
         await run.StopAsync();
         Directory.Delete(profile, recursive: true);
@@ -61,7 +79,12 @@ public sealed class TypedPageBrowserTests(ITestOutputHelper output)
     }
 
     private static Task<string> PromptAsync(ChromeDriver browser, string start) =>
-        PageProbe.PollAsync(() => browser.FindElement(By.Id("typedprompt")).Text, t => t.StartsWith(start, StringComparison.Ordinal), s_wait, "prompt: " + start);
+        PageProbe.PollAsync(
+            () => browser.FindElement(By.Id("typedprompt")).Text,
+            t => t.StartsWith(start, StringComparison.Ordinal),
+            s_wait,
+            "prompt: " + start
+        );
 
     private static void Type(ChromeDriver browser, string text)
     {

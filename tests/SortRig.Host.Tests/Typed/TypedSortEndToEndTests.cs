@@ -18,7 +18,28 @@ public sealed partial class TypedSortEndToEndTests
 {
     // Invented reel (ohms): eight parts within 5 Ohm of one another (enough for two 0.1 % quads) among twelve others.
     private static readonly int[] s_reel =
-        [10002, 9941, 10003, 10004, 10048, 10006, 9987, 10005, 10071, 10003, 9915, 10030, 10007, 10019, 9962, 10002, 10055, 9990, 10024, 9933];
+    [
+        10002,
+        9941,
+        10003,
+        10004,
+        10048,
+        10006,
+        9987,
+        10005,
+        10071,
+        10003,
+        9915,
+        10030,
+        10007,
+        10019,
+        9962,
+        10002,
+        10055,
+        9990,
+        10024,
+        9933,
+    ];
 
     private static readonly TimeSpan s_wait = TimeSpan.FromSeconds(60);
 
@@ -29,18 +50,47 @@ public sealed partial class TypedSortEndToEndTests
         var dir = Directory.CreateTempSubdirectory("sortrig-typed-");
         try
         {
-            string[] args = ["sort", "--resource", "TYPED::handheld-typed", "--db", "typed.db", "--session", "typed-reel", "--parts", "20", "--gap", "0.3", "--no-speech"];
+            string[] args =
+            [
+                "sort",
+                "--resource",
+                "TYPED::handheld-typed",
+                "--db",
+                "typed.db",
+                "--session",
+                "typed-reel",
+                "--parts",
+                "20",
+                "--gap",
+                "0.3",
+                "--no-speech",
+            ];
             var env = new Dictionary<string, string>();
             string[] resume;
             var seen = new List<string>();
 
             await using (var first = PtyHost.Start(dir.FullName, args, env))
             {
-                var at = await first.WaitForAsync(l => l.StartsWith("? range set on the meter", StringComparison.Ordinal), 0, s_wait);
-                Assert.Contains(first.Lines, l => l.Contains("set the meter to the 50 kOhm range (it shows up to 49.999 kOhm", StringComparison.Ordinal));
+                var at = await first.WaitForAsync(
+                    l => l.StartsWith("? range set on the meter", StringComparison.Ordinal),
+                    0,
+                    s_wait
+                );
+                Assert.Contains(first.Lines, l =>
+                    l.Contains(
+                        "set the meter to the 50 kOhm range (it shows up to 49.999 kOhm",
+                        StringComparison.Ordinal
+                    )
+                );
                 await first.TypeLineAsync("5k"); // too low a range for 10 kOhm parts: refused
-                at = await first.WaitForAsync(l => l.StartsWith("? set another range", StringComparison.Ordinal), at + 1, s_wait);
-                Assert.Contains(first.Lines, l => l.Contains("would read overload: set the 50 kOhm range", StringComparison.Ordinal));
+                at = await first.WaitForAsync(
+                    l => l.StartsWith("? set another range", StringComparison.Ordinal),
+                    at + 1,
+                    s_wait
+                );
+                Assert.Contains(first.Lines, l =>
+                    l.Contains("would read overload: set the 50 kOhm range", StringComparison.Ordinal)
+                );
                 await first.TypeLineAsync("");
                 for (var part = 1; part <= 8; part++)
                 {
@@ -50,7 +100,9 @@ public sealed partial class TypedSortEndToEndTests
                 await first.WaitForAsync(l => l.StartsWith("? part 9:", StringComparison.Ordinal), at, s_wait);
                 await first.CtrlCAsync();
                 Assert.Equal(130, await first.WaitForExitAsync(s_wait));
-                var hint = Assert.Single(first.Lines, l => l.StartsWith("to go on: sortrig sort", StringComparison.Ordinal));
+                var hint = Assert.Single(first.Lines, l =>
+                    l.StartsWith("to go on: sortrig sort", StringComparison.Ordinal)
+                );
                 Assert.Contains("--resource TYPED::handheld-typed", hint, StringComparison.Ordinal);
                 resume = hint["to go on: sortrig ".Length..].Split(' ', StringSplitOptions.RemoveEmptyEntries);
                 seen.AddRange(first.Lines);
@@ -59,8 +111,14 @@ public sealed partial class TypedSortEndToEndTests
             // Carry on with the command the first run printed, as the operator would.
             await using (var second = PtyHost.Start(dir.FullName, resume, env))
             {
-                var at = await second.WaitForAsync(l => l.StartsWith("? range set on the meter", StringComparison.Ordinal), 0, s_wait);
-                Assert.Contains(second.Lines, l => l.Contains("resuming session 'typed-reel' at part 9", StringComparison.Ordinal));
+                var at = await second.WaitForAsync(
+                    l => l.StartsWith("? range set on the meter", StringComparison.Ordinal),
+                    0,
+                    s_wait
+                );
+                Assert.Contains(second.Lines, l =>
+                    l.Contains("resuming session 'typed-reel' at part 9", StringComparison.Ordinal)
+                );
                 await second.TypeLineAsync("50k");
                 for (var part = 9; part <= 20; part++)
                 {
@@ -72,16 +130,34 @@ public sealed partial class TypedSortEndToEndTests
             }
 
             // Every part announced exactly once, across the interruption.
-            var announced = seen.Select(l => CupLine().Match(l)).Where(m => m.Success).Select(m => int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture)).ToList();
+            var announced = seen.Select(l => CupLine().Match(l))
+                .Where(m => m.Success)
+                .Select(m => int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture))
+                .ToList();
             Assert.Equal(Enumerable.Range(1, 20), announced);
 
             // Input checks: each typo got its own prompt to re-enter.
             Assert.Contains(seen, l => l.Contains("'10..003' has two decimal points", StringComparison.Ordinal));
             Assert.Contains(seen, l => l.Contains("'1o.006' has letters or signs in it", StringComparison.Ordinal));
-            Assert.Contains(seen, l => l.Contains("'100.05' (100.050 kOhm) is above what the 50 kOhm range shows (49.999 kOhm)", StringComparison.Ordinal));
-            Assert.Contains(seen, l => l.Contains("'1.000' (1.00000 kOhm) is 10 times below the nominal 10 kOhm", StringComparison.Ordinal));
-            Assert.Contains(seen, l => l.Contains("'10.0031' has more digits than the 50 kOhm range shows", StringComparison.Ordinal));
-            Assert.Contains(seen, l => l.Contains("the reading moved from 10.012 kOhm to 10.008 kOhm: let go of the part, wait a few seconds, read again", StringComparison.Ordinal));
+            Assert.Contains(seen, l =>
+                l.Contains(
+                    "'100.05' (100.050 kOhm) is above what the 50 kOhm range shows (49.999 kOhm)",
+                    StringComparison.Ordinal
+                )
+            );
+            Assert.Contains(seen, l =>
+                l.Contains("'1.000' (1.00000 kOhm) is 10 times below the nominal 10 kOhm", StringComparison.Ordinal)
+            );
+            Assert.Contains(seen, l =>
+                l.Contains("'10.0031' has more digits than the 50 kOhm range shows", StringComparison.Ordinal)
+            );
+            Assert.Contains(seen, l =>
+                l.Contains(
+                    "the reading moved from 10.012 kOhm to 10.008 kOhm: let go of the part, wait a few seconds, read "
+                        + "again",
+                    StringComparison.Ordinal
+                )
+            );
 
             await CheckLogAsync(Path.Combine(dir.FullName, "typed.db"));
             await CheckPickListAsync(dir.FullName);
@@ -96,12 +172,20 @@ public sealed partial class TypedSortEndToEndTests
     private static async Task<int> TypePartAsync(PtyHost host, int part, int at)
     {
         var v = s_reel[part - 1];
-        at = await host.WaitForAsync(l => l.StartsWith($"? part {part}: type the display", StringComparison.Ordinal), at, s_wait);
+        at = await host.WaitForAsync(
+            l => l.StartsWith($"? part {part}: type the display", StringComparison.Ordinal),
+            at,
+            s_wait
+        );
         foreach (var entry in Script(part, v))
         {
             await Task.Delay(400);
             await host.TypeLineAsync(entry);
-            at = await host.WaitForAsync(l => l.StartsWith("? ", StringComparison.Ordinal) || CupLine().IsMatch(l), at + 1, s_wait);
+            at = await host.WaitForAsync(
+                l => l.StartsWith("? ", StringComparison.Ordinal) || CupLine().IsMatch(l),
+                at + 1,
+                s_wait
+            );
         }
 
         Assert.Matches(CupLine(), host.Lines[at]);
@@ -141,7 +225,11 @@ public sealed partial class TypedSortEndToEndTests
 
     private static async Task CheckLogAsync(string db)
     {
-        await using var log = await PrecisionLogFactory.OpenAsync(db, new PrecisionLogOptions(), CancellationToken.None);
+        await using var log = await PrecisionLogFactory.OpenAsync(
+            db,
+            new PrecisionLogOptions(),
+            CancellationToken.None
+        );
         var session = Assert.Single(await log.ListSessionsAsync(CancellationToken.None), s => s.Name == "typed-reel");
         var parts = await log.GetPartsAsync(session.Id, CancellationToken.None);
         Assert.Equal(Enumerable.Range(1, 20), parts.Select(p => p.Number).Order());
@@ -174,7 +262,23 @@ public sealed partial class TypedSortEndToEndTests
             RedirectStandardInput = true,
             UseShellExecute = false,
         };
-        foreach (var a in (string[])[HostProcess.HostDll, "plan", "--db", "typed.db", "--session", "typed-reel", "--recipe", PlanVerbTests.Recipe, "--csv", "picks.csv", "--pick", "parts"])
+        foreach (
+            var a in (string[])
+                [
+                    HostProcess.HostDll,
+                    "plan",
+                    "--db",
+                    "typed.db",
+                    "--session",
+                    "typed-reel",
+                    "--recipe",
+                    PlanVerbTests.Recipe,
+                    "--csv",
+                    "picks.csv",
+                    "--pick",
+                    "parts",
+                ]
+        )
         {
             start.ArgumentList.Add(a);
         }
@@ -184,9 +288,15 @@ public sealed partial class TypedSortEndToEndTests
         await process.WaitForExitAsync();
         Assert.True(process.ExitCode == 0, output + await process.StandardError.ReadToEndAsync());
 
-        await using var log = await PrecisionLogFactory.OpenAsync(Path.Combine(dir, "typed.db"), new PrecisionLogOptions(), CancellationToken.None);
+        await using var log = await PrecisionLogFactory.OpenAsync(
+            Path.Combine(dir, "typed.db"),
+            new PrecisionLogOptions(),
+            CancellationToken.None
+        );
         var session = Assert.Single(await log.ListSessionsAsync(CancellationToken.None), s => s.Name == "typed-reel");
-        var byId = (await log.GetPartsAsync(session.Id, CancellationToken.None)).ToDictionary(p => p.Id.ToString(CultureInfo.InvariantCulture));
+        var byId = (await log.GetPartsAsync(session.Id, CancellationToken.None)).ToDictionary(p =>
+            p.Id.ToString(CultureInfo.InvariantCulture)
+        );
         var sets = PlanVerbTests.ReadPickCsv(Path.Combine(dir, "picks.csv")).GroupBy(r => r.Set).ToList();
         // The reel holds eight parts within 5 Ohm (500 ppm) of one another: two quads at 0.1 % (matched-quad.yaml).
         Assert.Equal(2, sets.Count);

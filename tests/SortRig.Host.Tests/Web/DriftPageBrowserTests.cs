@@ -1,7 +1,7 @@
 using Microsoft.Extensions.Time.Testing;
 using OpenQA.Selenium;
-using Xunit.Abstractions;
 using SortRig.Engine.Events;
+using Xunit.Abstractions;
 
 namespace SortRig.Host.Tests.Web;
 
@@ -18,8 +18,28 @@ public sealed class DriftPageBrowserTests(ITestOutputHelper output)
         await using var web = await WebHarness.StartAsync(time: time);
         for (var minute = 0; minute < 30; minute++)
         {
-            web.Hub.Publish(new BenchEvent(0, BenchEventKind.Drift, default, PartNumber: 1, Value: 10_000 * (1 + (0.5e-6 * minute)), State: "Sample", Text: "R2R MSB 10k"));
-            web.Hub.Publish(new BenchEvent(0, BenchEventKind.Drift, default, PartNumber: 2, Value: 1_000 * (1 - (0.2e-6 * minute)), State: "Sample", Text: "divider 1k"));
+            web.Hub.Publish(
+                new BenchEvent(
+                    0,
+                    BenchEventKind.Drift,
+                    default,
+                    PartNumber: 1,
+                    Value: 10_000 * (1 + (0.5e-6 * minute)),
+                    State: "Sample",
+                    Text: "R2R MSB 10k"
+                )
+            );
+            web.Hub.Publish(
+                new BenchEvent(
+                    0,
+                    BenchEventKind.Drift,
+                    default,
+                    PartNumber: 2,
+                    Value: 1_000 * (1 - (0.2e-6 * minute)),
+                    State: "Sample",
+                    Text: "divider 1k"
+                )
+            );
             time.Advance(TimeSpan.FromMinutes(1));
         }
 
@@ -30,18 +50,27 @@ public sealed class DriftPageBrowserTests(ITestOutputHelper output)
             browser.Navigate().GoToUrl(web.BaseUrl + "/");
             var rows = await PageProbe.PollAsync(
                 () => browser.FindElements(By.CssSelector("#drifttable tr")).Select(r => r.Text).ToList(),
-                r => r.Count == 2, TimeSpan.FromSeconds(15), "two drift channels");
+                r => r.Count == 2,
+                TimeSpan.FromSeconds(15),
+                "two drift channels"
+            );
 
             Assert.True(browser.FindElement(By.Id("drift")).Displayed);
-            Assert.False(browser.FindElement(By.Id("cupbox")).Displayed, "with no sorting session the page shows the drift view only");
+            Assert.False(
+                browser.FindElement(By.Id("cupbox")).Displayed,
+                "with no sorting session the page shows the drift view only"
+            );
             Assert.Contains("ch 1", rows[0], StringComparison.Ordinal);
             Assert.Contains("+14.5 ppm since start", rows[0], StringComparison.Ordinal);
             Assert.Contains("R2R MSB 10k", rows[0], StringComparison.Ordinal);
             Assert.Contains("ch 2", rows[1], StringComparison.Ordinal);
             Assert.Contains("\u22125.8 ppm since start", rows[1], StringComparison.Ordinal);
-            var inked = (long)browser.ExecuteScript(
-                "const c = document.getElementById('driftplot'); const d = c.getContext('2d').getImageData(0, 0, c.width, c.height).data;"
-                + " let n = 0; for (let i = 3; i < d.length; i += 4) if (d[i] > 0) n++; return n;")!;
+            var inked = (long)
+                browser.ExecuteScript(
+                    "const c = document.getElementById('driftplot'); const d = c.getContext('2d').getImageData(0, 0, "
+                        + "c.width, c.height).data;"
+                        + " let n = 0; for (let i = 3; i < d.length; i += 4) if (d[i] > 0) n++; return n;"
+                )!;
             Assert.True(inked > 1000, $"the drift plot has {inked} drawn pixels");
             PageProbe.Save(browser, "bench-drift.png", output);
             browser.Quit();

@@ -3,7 +3,8 @@ using SortRig.Engine.Events;
 
 namespace SortRig.Host.Tests.Web;
 
-/// <summary>/api/events as server-sent events (WHATWG HTML Living Standard, "Server-sent events": id, data, Last-Event-ID).</summary>
+/// <summary>/api/events as server-sent events (WHATWG HTML Living Standard, "Server-sent events": id, data,
+/// Last-Event-ID).</summary>
 public sealed class EventStreamTests
 {
     [Fact]

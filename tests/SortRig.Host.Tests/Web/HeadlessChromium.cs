@@ -18,8 +18,10 @@ internal static class HeadlessChromium
     public static string? Missing()
     {
         var missing = new[] { Browser, Path.Combine(DriverDirectory, DriverFile) }.Where(p => !File.Exists(p)).ToList();
-        return missing.Count == 0 ? null
-            : $"needs {string.Join(" and ", missing)} (Debian packages chromium, chromium-driver; bash scripts/test-deps installs them)";
+        return missing.Count == 0
+            ? null
+            : $"needs {string.Join(" and ", missing)} (Debian packages chromium, chromium-driver; bash "
+                + $"scripts/test-deps installs them)";
     }
 
     /// <summary>Starts a browser with a fresh profile at the given window size (CSS pixels).</summary>
@@ -35,10 +37,20 @@ internal static class HeadlessChromium
         service.HideCommandPromptWindow = true;
         var options = new ChromeOptions { BinaryLocation = Browser };
         options.AddArguments(
-            "--headless=new", "--no-sandbox", "--disable-gpu", "--disable-dev-shm-usage", "--disable-quic",
-            "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync",
-            "--hide-scrollbars", "--force-device-scale-factor=1", $"--window-size={width},{height}",
-            $"--user-data-dir={profileDirectory}");
+            "--headless=new",
+            "--no-sandbox",
+            "--disable-gpu",
+            "--disable-dev-shm-usage",
+            "--disable-quic",
+            "--no-first-run",
+            "--disable-background-networking",
+            "--disable-component-update",
+            "--disable-sync",
+            "--hide-scrollbars",
+            "--force-device-scale-factor=1",
+            $"--window-size={width},{height}",
+            $"--user-data-dir={profileDirectory}"
+        );
         options.SetLoggingPreference(LogType.Browser, LogLevel.All);
         return new ChromeDriver(service, options, TimeSpan.FromSeconds(30));
     }

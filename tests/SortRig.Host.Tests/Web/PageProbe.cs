@@ -15,8 +15,11 @@ internal static class PageProbe
 
     public static List<LogItem> ReadLog(ChromeDriver browser)
     {
-        const string script = "return JSON.stringify([...document.querySelectorAll('#log li')].map(li => ({ part: Number(li.dataset.part), "
-            + "cup: li.dataset.cup, state: li.dataset.state, stored: li.dataset.stored ?? null, seeded: li.dataset.seeded === 'true' })));";
+        const string script =
+            "return JSON.stringify([...document.querySelectorAll('#log li')].map(li => ({ part: "
+            + "Number(li.dataset.part), "
+            + "cup: li.dataset.cup, state: li.dataset.state, stored: li.dataset.stored ?? null, seeded: "
+            + "li.dataset.seeded === 'true' })));";
         var json = (string)browser.ExecuteScript(script)!;
         return JsonSerializer.Deserialize<List<LogItem>>(json, JsonSerializerOptions.Web)!;
     }
@@ -40,7 +43,10 @@ internal static class PageProbe
                 return value;
             }
 
-            Assert.True(DateTimeOffset.UtcNow < deadline, $"waited {timeout.TotalSeconds:0} s for {what}; last seen: {JsonSerializer.Serialize(value)}");
+            Assert.True(
+                DateTimeOffset.UtcNow < deadline,
+                $"waited {timeout.TotalSeconds:0} s for {what}; last seen: {JsonSerializer.Serialize(value)}"
+            );
             await Task.Delay(100);
         }
     }

@@ -17,9 +17,14 @@ public sealed class WebActionTests
     public async Task Endpoints_TheOnlyWrite_IsTheActionRoute()
     {
         await using var web = await WebHarness.StartAsync();
-        var writes = web.App.Services.GetRequiredService<EndpointDataSource>().Endpoints
-            .OfType<RouteEndpoint>()
-            .Where(e => e.Metadata.GetMetadata<HttpMethodMetadata>()?.HttpMethods.Any(m => !HttpMethods.IsGet(m) && !HttpMethods.IsHead(m)) ?? true)
+        var writes = web
+            .App.Services.GetRequiredService<EndpointDataSource>()
+            .Endpoints.OfType<RouteEndpoint>()
+            .Where(e =>
+                e.Metadata.GetMetadata<HttpMethodMetadata>()
+                    ?.HttpMethods.Any(m => !HttpMethods.IsGet(m) && !HttpMethods.IsHead(m))
+                ?? true
+            )
             .Select(e => e.RoutePattern.RawText)
             .ToList();
 
@@ -55,7 +60,11 @@ public sealed class WebActionTests
         using var answer = await web.Http.PostAsync(path, new StringContent("*RST;:SYST:REM"));
 
         Assert.Equal(HttpStatusCode.BadRequest, answer.StatusCode);
-        Assert.Contains("undo, remeasure, pause, finish", await answer.Content.ReadAsStringAsync(), StringComparison.Ordinal);
+        Assert.Contains(
+            "undo, remeasure, pause, finish",
+            await answer.Content.ReadAsStringAsync(),
+            StringComparison.Ordinal
+        );
         Assert.Empty(web.Queued());
     }
 
@@ -66,7 +75,9 @@ public sealed class WebActionTests
     {
         await using var web = await WebHarness.StartAsync();
 
-        using var answer = await web.Http.SendAsync(new HttpRequestMessage(new HttpMethod(method), "/api/actions/undo"));
+        using var answer = await web.Http.SendAsync(
+            new HttpRequestMessage(new HttpMethod(method), "/api/actions/undo")
+        );
 
         Assert.Equal(HttpStatusCode.MethodNotAllowed, answer.StatusCode);
         Assert.Empty(web.Queued());

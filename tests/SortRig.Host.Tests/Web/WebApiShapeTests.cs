@@ -24,19 +24,35 @@ public sealed partial class WebApiShapeTests
         var docs = File.ReadAllText(Path.Combine(RepositoryRoot(), "docs", "web.md"));
 
         Assert.Equal(DocumentedFields(docs, "SessionView"), Fields(session));
-        Assert.All(parts.RootElement.EnumerateArray(), p => Assert.Equal(DocumentedFields(docs, "PartView"), Fields(p)));
-        Assert.All(events.RootElement.EnumerateArray(), e => Assert.Equal(DocumentedFields(docs, "BenchEvent"), Fields(e)));
+        Assert.All(parts.RootElement.EnumerateArray(), p =>
+            Assert.Equal(DocumentedFields(docs, "PartView"), Fields(p))
+        );
+        Assert.All(events.RootElement.EnumerateArray(), e =>
+            Assert.Equal(DocumentedFields(docs, "BenchEvent"), Fields(e))
+        );
         var kinds = events.RootElement.EnumerateArray().Select(e => e.GetProperty("kind").GetString()!).ToHashSet();
         Assert.Subset(DocumentedKinds(docs), kinds);
 
         // Values: the API against the log, which is the durable record.
         var stored = await run.StoredPartsAsync(session.GetProperty("sessionId").GetInt64());
         Assert.Equal(4, session.GetProperty("partsPlanned").GetInt32());
-        Assert.Equal(stored.Select(p => (long)p.Number), parts.RootElement.EnumerateArray().Select(p => p.GetProperty("number").GetInt64()));
-        Assert.Equal(stored.Select(p => p.CupLabel), parts.RootElement.EnumerateArray().Select(p => p.GetProperty("cup").GetString()));
-        Assert.Equal(stored.Select(p => p.Value), parts.RootElement.EnumerateArray().Select(p => p.GetProperty("ohms").GetDouble()));
+        Assert.Equal(
+            stored.Select(p => (long)p.Number),
+            parts.RootElement.EnumerateArray().Select(p => p.GetProperty("number").GetInt64())
+        );
+        Assert.Equal(
+            stored.Select(p => p.CupLabel),
+            parts.RootElement.EnumerateArray().Select(p => p.GetProperty("cup").GetString())
+        );
+        Assert.Equal(
+            stored.Select(p => p.Value),
+            parts.RootElement.EnumerateArray().Select(p => p.GetProperty("ohms").GetDouble())
+        );
         var inCups = stored.Where(p => p.IsLive).GroupBy(p => p.CupLabel!).ToDictionary(g => g.Key, g => g.Count());
-        var counted = cups.RootElement.EnumerateObject().Where(c => c.Value.GetInt32() > 0).ToDictionary(c => c.Name, c => c.Value.GetInt32());
+        var counted = cups
+            .RootElement.EnumerateObject()
+            .Where(c => c.Value.GetInt32() > 0)
+            .ToDictionary(c => c.Name, c => c.Value.GetInt32());
         Assert.Equal(inCups.OrderBy(c => c.Key), counted.OrderBy(c => c.Key));
     }
 
@@ -46,9 +62,16 @@ public sealed partial class WebApiShapeTests
     // The rows "| `name` | ..." of the table under the heading "### <type>".
     private static SortedSet<string> DocumentedFields(string docs, string type)
     {
-        var section = Regex.Match(docs, $@"^### {type}\b.*?(?=^#|\z)", RegexOptions.Multiline | RegexOptions.Singleline);
+        var section = Regex.Match(
+            docs,
+            $@"^### {type}\b.*?(?=^#|\z)",
+            RegexOptions.Multiline | RegexOptions.Singleline
+        );
         Assert.True(section.Success, $"docs/web.md has no '### {type}' section");
-        var fields = new SortedSet<string>(FieldRow().Matches(section.Value).Select(m => m.Groups[1].Value), StringComparer.Ordinal);
+        var fields = new SortedSet<string>(
+            FieldRow().Matches(section.Value).Select(m => m.Groups[1].Value),
+            StringComparer.Ordinal
+        );
         Assert.NotEmpty(fields);
         return fields;
     }

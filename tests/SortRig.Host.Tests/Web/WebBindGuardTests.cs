@@ -8,8 +8,7 @@ public sealed class WebBindGuardTests
     [InlineData("http://127.0.0.1:5080")]
     [InlineData("http://localhost:5080")]
     [InlineData("http://[::1]:5080")]
-    public void Check_Loopback_NeedsNoToken(string url) =>
-        WebBindGuard.Check(new WebOptions { Urls = url });
+    public void Check_Loopback_NeedsNoToken(string url) => WebBindGuard.Check(new WebOptions { Urls = url });
 
     [Theory]
     [InlineData("http://0.0.0.0:5080")]
@@ -31,9 +30,15 @@ public sealed class WebBindGuardTests
     [InlineData("                    ")]
     public void Check_WeakToken_RefusedWithoutRepeatingIt(string token)
     {
-        var e = Assert.Throws<InvalidOperationException>(() => WebBindGuard.Check(new WebOptions { Urls = "http://0.0.0.0:5080", Token = token }));
+        var e = Assert.Throws<InvalidOperationException>(() =>
+            WebBindGuard.Check(new WebOptions { Urls = "http://0.0.0.0:5080", Token = token })
+        );
         Assert.Contains("Web:Token", e.Message, StringComparison.Ordinal);
-        Assert.Contains(WebBindGuard.MinimumTokenLength.ToString(System.Globalization.CultureInfo.InvariantCulture), e.Message, StringComparison.Ordinal);
+        Assert.Contains(
+            WebBindGuard.MinimumTokenLength.ToString(System.Globalization.CultureInfo.InvariantCulture),
+            e.Message,
+            StringComparison.Ordinal
+        );
         if (token.Trim().Length > 0)
         {
             Assert.DoesNotContain(token, e.Message, StringComparison.Ordinal);
@@ -43,7 +48,9 @@ public sealed class WebBindGuardTests
     [Fact]
     public void Check_SecondUrlNonLoopback_IsRefusedByName()
     {
-        var e = Assert.Throws<InvalidOperationException>(() => WebBindGuard.Check(new WebOptions { Urls = "http://127.0.0.1:5080; http://[::]:5081" }));
+        var e = Assert.Throws<InvalidOperationException>(() =>
+            WebBindGuard.Check(new WebOptions { Urls = "http://127.0.0.1:5080; http://[::]:5081" })
+        );
         Assert.Contains("http://[::]:5081", e.Message, StringComparison.Ordinal);
     }
 }

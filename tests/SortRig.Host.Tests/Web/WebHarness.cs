@@ -35,16 +35,20 @@ internal sealed class WebHarness : IAsyncDisposable
 
     public HttpClient Http { get; }
 
-    public static async Task<WebHarness> StartAsync(string? token = null, TimeProvider? time = null, SortRig.Engine.Typed.TypedEntries? typed = null)
+    public static async Task<WebHarness> StartAsync(
+        string? token = null,
+        TimeProvider? time = null,
+        SortRig.Engine.Typed.TypedEntries? typed = null
+    )
     {
         time ??= TimeProvider.System;
-        var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = [], ContentRootPath = AppContext.BaseDirectory });
+        var builder = WebApplication.CreateBuilder(
+            new WebApplicationOptions { Args = [], ContentRootPath = AppContext.BaseDirectory }
+        );
         builder.Logging.ClearProviders();
-        builder.Configuration.AddInMemoryCollection(new Dictionary<string, string?>
-        {
-            ["Web:Urls"] = "http://127.0.0.1:0",
-            ["Web:Token"] = token ?? "",
-        });
+        builder.Configuration.AddInMemoryCollection(
+            new Dictionary<string, string?> { ["Web:Urls"] = "http://127.0.0.1:0", ["Web:Token"] = token ?? "" }
+        );
         var hub = new BenchEventHub(time);
         var commands = new OperatorCommands();
         builder.Services.AddSingleton(time);

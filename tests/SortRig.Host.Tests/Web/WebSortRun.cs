@@ -32,10 +32,18 @@ internal sealed class WebSortRun : IAsyncDisposable
     public string Session { get; } = "web-" + Guid.NewGuid().ToString("N")[..8];
 
     /// <summary>Starts the sort verb and waits until its page answers with its session.</summary>
-    public static async Task<WebSortRun> StartAsync(int parts, double speed, string? token = null, bool anyAddress = false,
-        IReadOnlyDictionary<string, string?>? extra = null)
+    public static async Task<WebSortRun> StartAsync(
+        int parts,
+        double speed,
+        string? token = null,
+        bool anyAddress = false,
+        IReadOnlyDictionary<string, string?>? extra = null
+    )
     {
-        var run = new WebSortRun(System.IO.Directory.CreateTempSubdirectory("sortrig-web-").FullName, TestPorts.Free(anyAddress));
+        var run = new WebSortRun(
+            System.IO.Directory.CreateTempSubdirectory("sortrig-web-").FullName,
+            TestPorts.Free(anyAddress)
+        );
         var flags = run.Flags(parts, speed, anyAddress ? $"http://0.0.0.0:{run.Port}" : run.BaseUrl, token);
         foreach (var (key, value) in extra ?? new Dictionary<string, string?>())
         {
@@ -46,7 +54,10 @@ internal sealed class WebSortRun : IAsyncDisposable
         using var http = new HttpClient { Timeout = TimeSpan.FromSeconds(2) };
         if (token is not null)
         {
-            http.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue("Bearer", token);
+            http.DefaultRequestHeaders.Authorization = new System.Net.Http.Headers.AuthenticationHeaderValue(
+                "Bearer",
+                token
+            );
         }
 
         var deadline = DateTimeOffset.UtcNow.AddSeconds(30);
@@ -55,15 +66,22 @@ internal sealed class WebSortRun : IAsyncDisposable
             if (run._run.IsCompleted)
             {
                 var exit = await run._run;
-                throw new InvalidOperationException($"the sort verb ended before the page answered (exit {exit}); its log:\n{run.LogText()}");
+                throw new InvalidOperationException(
+                    $"the sort verb ended before the page answered (exit {exit}); its log:\n{run.LogText()}"
+                );
             }
 
             Assert.True(DateTimeOffset.UtcNow < deadline, "the page did not answer with its session within 30 s");
             try
             {
                 using var answer = await http.GetAsync(run.BaseUrl + "/api/session");
-                if (answer.IsSuccessStatusCode
-                    && JsonDocument.Parse(await answer.Content.ReadAsStringAsync()).RootElement.GetProperty("name").GetString() == run.Session)
+                if (
+                    answer.IsSuccessStatusCode
+                    && JsonDocument
+                        .Parse(await answer.Content.ReadAsStringAsync())
+                        .RootElement.GetProperty("name")
+                        .GetString() == run.Session
+                )
                 {
                     return run;
                 }
@@ -77,7 +95,8 @@ internal sealed class WebSortRun : IAsyncDisposable
         }
     }
 
-    /// <summary>Flags as SortCommand receives them from the command line (--plain and --no-speech are "True").</summary>
+    /// <summary>Flags as SortCommand receives them from the command line (--plain and --no-speech are
+    /// "True").</summary>
     public Dictionary<string, string?> Flags(int parts, double speed, string urls, string? token)
     {
         var flags = new Dictionary<string, string?>
@@ -133,7 +152,8 @@ internal sealed class WebSortRun : IAsyncDisposable
         return await _run!.WaitAsync(TimeSpan.FromSeconds(20));
     }
 
-    /// <summary>The parts of the session as the precision log stores them (read after <see cref="StopAsync"/>).</summary>
+    /// <summary>The parts of the session as the precision log stores them (read after <see
+    /// cref="StopAsync"/>).</summary>
     public async Task<IReadOnlyList<PartRecord>> StoredPartsAsync(long sessionId)
     {
         await using var log = await PrecisionLogFactory.OpenAsync(Database, null, default);
@@ -141,9 +161,10 @@ internal sealed class WebSortRun : IAsyncDisposable
     }
 
     /// <summary>All text Serilog wrote to its files.</summary>
-    public string LogText() => System.IO.Directory.Exists(LogDirectory)
-        ? string.Concat(System.IO.Directory.GetFiles(LogDirectory).Order().Select(File.ReadAllText))
-        : "";
+    public string LogText() =>
+        System.IO.Directory.Exists(LogDirectory)
+            ? string.Concat(System.IO.Directory.GetFiles(LogDirectory).Order().Select(File.ReadAllText))
+            : "";
 
     public async ValueTask DisposeAsync()
     {

@@ -32,7 +32,9 @@ public sealed class WebTokenTests
                 ["Logging:File"] = Path.Combine(dir, "logs", "sortrig-.log"),
             };
 
-            var e = await Assert.ThrowsAsync<InvalidOperationException>(() => SortCommand.RunAsync(flags, CancellationToken.None));
+            var e = await Assert.ThrowsAsync<InvalidOperationException>(() =>
+                SortCommand.RunAsync(flags, CancellationToken.None)
+            );
 
             Assert.Contains(url, e.Message, StringComparison.Ordinal);
             Assert.Contains("Web:Token", e.Message, StringComparison.Ordinal);
@@ -58,12 +60,29 @@ public sealed class WebTokenTests
             ["Serilog:MinimumLevel:Override:System"] = "Verbose",
         };
         await using var run = await WebSortRun.StartAsync(parts: 2, speed: 10, token, anyAddress: true, verbose);
-        using var bare = new HttpClient(new HttpClientHandler { AllowAutoRedirect = false, UseCookies = false }) { BaseAddress = new Uri(run.BaseUrl) };
+        using var bare = new HttpClient(new HttpClientHandler { AllowAutoRedirect = false, UseCookies = false })
+        {
+            BaseAddress = new Uri(run.BaseUrl),
+        };
 
-        foreach (var path in new[] { "/", "/app.js", "/api/session", "/api/parts", "/api/cups", "/api/events", "/api/events/recent" })
+        foreach (
+            var path in new[]
+            {
+                "/",
+                "/app.js",
+                "/api/session",
+                "/api/parts",
+                "/api/cups",
+                "/api/events",
+                "/api/events/recent",
+            }
+        )
         {
             using var answer = await bare.GetAsync(path, HttpCompletionOption.ResponseHeadersRead);
-            Assert.True(answer.StatusCode == HttpStatusCode.Unauthorized, $"GET {path} without the token: {answer.StatusCode}");
+            Assert.True(
+                answer.StatusCode == HttpStatusCode.Unauthorized,
+                $"GET {path} without the token: {answer.StatusCode}"
+            );
         }
 
         using (var post = await bare.PostAsync("/api/actions/undo", null))
@@ -73,7 +92,10 @@ public sealed class WebTokenTests
 
         using (var wrong = new HttpRequestMessage(HttpMethod.Get, "/api/cups"))
         {
-            wrong.Headers.Authorization = new AuthenticationHeaderValue("Bearer", token[..^1] + (token[^1] == '0' ? "1" : "0"));
+            wrong.Headers.Authorization = new AuthenticationHeaderValue(
+                "Bearer",
+                token[..^1] + (token[^1] == '0' ? "1" : "0")
+            );
             using var answer = await bare.SendAsync(wrong);
             Assert.Equal(HttpStatusCode.Unauthorized, answer.StatusCode);
         }
@@ -114,7 +136,8 @@ public sealed class WebTokenTests
 
         await run.StopAsync();
         var logged = run.LogText();
-        Assert.Contains($":{run.Port}", logged, StringComparison.Ordinal); // the log was captured, Microsoft's lines too
+        // the log was captured, Microsoft's lines too
+        Assert.Contains($":{run.Port}", logged, StringComparison.Ordinal);
         Assert.Contains("Session", logged, StringComparison.Ordinal);
         Assert.DoesNotContain(token, logged, StringComparison.OrdinalIgnoreCase);
     }

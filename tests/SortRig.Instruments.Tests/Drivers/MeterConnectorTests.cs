@@ -15,7 +15,12 @@ public sealed class MeterConnectorTests
         var dmm = new ScriptedDmm();
         dmm.Readings.Enqueue("+1.00001000E+03");
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
-        await using var meter = await new MeterConnector(new MessageLinkFactory()).ConnectAsync(peer.Resource, TestProfiles.Simulator(), true, s_none);
+        await using var meter = await new MeterConnector(new MessageLinkFactory()).ConnectAsync(
+            peer.Resource,
+            TestProfiles.Simulator(),
+            true,
+            s_none
+        );
         await meter.ConfigureAsync(new ResistanceSetup(1000, 1, false), s_none);
         Assert.Equal(1000.01, (await meter.ReadAsync(s_none)).Value, 9);
     }
@@ -25,16 +30,27 @@ public sealed class MeterConnectorTests
     {
         var dmm = new ScriptedDmm { Identity = "Other Works,XR-77,1,1" };
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
-        var ex = await Assert.ThrowsAsync<InstrumentSetupException>(
-            () => new MeterConnector(new MessageLinkFactory()).ConnectAsync(peer.Resource, TestProfiles.Simulator(), true, s_none));
+        var ex = await Assert.ThrowsAsync<InstrumentSetupException>(() =>
+            new MeterConnector(new MessageLinkFactory()).ConnectAsync(
+                peer.Resource,
+                TestProfiles.Simulator(),
+                true,
+                s_none
+            )
+        );
         Assert.Equal(("model", "'XR-77'"), (ex.Setting, ex.Actual));
     }
 
     [Fact]
     public async Task OpenSession_TransportNotInProfile_Refused()
     {
-        var ex = await Assert.ThrowsAsync<InstrumentSetupException>(() => new MeterConnector(new MessageLinkFactory())
-            .OpenSessionAsync("TCPIP::127.0.0.1::5025::SOCKET", TestProfiles.Shipped("handheld-4half-serial"), s_none));
+        var ex = await Assert.ThrowsAsync<InstrumentSetupException>(() =>
+            new MeterConnector(new MessageLinkFactory()).OpenSessionAsync(
+                "TCPIP::127.0.0.1::5025::SOCKET",
+                TestProfiles.Shipped("handheld-4half-serial"),
+                s_none
+            )
+        );
         Assert.Equal("transport", ex.Setting);
     }
 
@@ -42,9 +58,20 @@ public sealed class MeterConnectorTests
     public async Task SimulatorResource_ResolvedByHost_OpensTheRealSocket()
     {
         await using var peer = ScriptedScpiPeer.Start(new ScriptedDmm().Handle);
-        var factory = new MessageLinkFactory(simulatorResolver: (sim, _) =>
-            ValueTask.FromResult(sim.Name == "bench-a" ? ResourceStringParser.Parse(peer.Resource) : throw new InvalidOperationException(sim.Name)));
-        await using var meter = await new MeterConnector(factory).ConnectAsync("SIM::bench-a::INSTR", TestProfiles.Simulator(), true, s_none);
+        var factory = new MessageLinkFactory(
+            simulatorResolver: (sim, _) =>
+                ValueTask.FromResult(
+                    sim.Name == "bench-a"
+                        ? ResourceStringParser.Parse(peer.Resource)
+                        : throw new InvalidOperationException(sim.Name)
+                )
+        );
+        await using var meter = await new MeterConnector(factory).ConnectAsync(
+            "SIM::bench-a::INSTR",
+            TestProfiles.Simulator(),
+            true,
+            s_none
+        );
         Assert.Equal("SIM-6H", (await meter.IdentifyAsync(s_none)).Model);
     }
 
@@ -54,8 +81,11 @@ public sealed class MeterConnectorTests
     [InlineData("SIM::bench-a::INSTR", "no simulated meter")]
     public async Task UnsupportedResource_LinkExceptionSaysWhatToUse(string resource, string hint)
     {
-        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(() => new MessageLinkFactory()
-            .OpenAsync(ResourceStringParser.Parse(resource), MessageLinkOptions.Default, null, s_none).AsTask());
+        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(() =>
+            new MessageLinkFactory()
+                .OpenAsync(ResourceStringParser.Parse(resource), MessageLinkOptions.Default, null, s_none)
+                .AsTask()
+        );
         Assert.Contains(hint, ex.Message, StringComparison.Ordinal);
     }
 }

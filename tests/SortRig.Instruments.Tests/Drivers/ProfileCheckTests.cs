@@ -27,7 +27,11 @@ public sealed class ProfileCheckTests
     public async Task MeterRefusesOneRange_OnlyThatRowFails_WithTheInstrumentError()
     {
         var dmm = new ScriptedDmm();
-        dmm.Overrides["SENS:RES:RANG 1000000"] = () => { dmm.QueueError(-222, "Data out of range"); return PeerAction.Silent; };
+        dmm.Overrides["SENS:RES:RANG 1000000"] = () =>
+        {
+            dmm.QueueError(-222, "Data out of range");
+            return PeerAction.Silent;
+        };
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var session = await peer.ConnectSessionAsync();
         var report = await new ProfileCheck().RunAsync(session, TestProfiles.Simulator(), s_none);
@@ -51,7 +55,9 @@ public sealed class ProfileCheckTests
     {
         var dmm = new ScriptedDmm();
         dmm.Overrides["READ?"] = () => PeerAction.Silent;
-        var profile = TestProfiles.Simulator(queryTimeoutSeconds: 1.0  /* long enough that a loaded machine answers every other query */);
+        var profile = TestProfiles.Simulator(
+            queryTimeoutSeconds: 1.0 /* long enough that a loaded machine answers every other query */
+        );
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var session = await peer.ConnectSessionAsync(new ScpiSessionOptions(profile.Comms.QueryTimeout));
         var report = await new ProfileCheck().RunAsync(session, profile, s_none);

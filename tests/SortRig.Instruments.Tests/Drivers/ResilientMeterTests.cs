@@ -15,7 +15,11 @@ public sealed class ResilientMeterTests
     public async Task Get_OpensOnceIdentifiesOnceAndAppliesTheSetupOnEveryConnection()
     {
         var opened = new List<FakeMeter>();
-        await using var meter = new ResilientMeter(_ => Task.FromResult<IResistanceMeter>(Add(opened, new FakeMeter())), s_setup, identify: true);
+        await using var meter = new ResilientMeter(
+            _ => Task.FromResult<IResistanceMeter>(Add(opened, new FakeMeter())),
+            s_setup,
+            identify: true
+        );
 
         var first = await meter.GetAsync(default);
         Assert.Same(first, await meter.GetAsync(default));
@@ -35,7 +39,11 @@ public sealed class ResilientMeterTests
     public async Task Get_ConfigureFails_ClosesTheHalfOpenedConnection()
     {
         var broken = new FakeMeter { FailConfigure = new InstrumentLinkException("fake", "connection lost") };
-        await using var meter = new ResilientMeter(_ => Task.FromResult<IResistanceMeter>(broken), s_setup, identify: false);
+        await using var meter = new ResilientMeter(
+            _ => Task.FromResult<IResistanceMeter>(broken),
+            s_setup,
+            identify: false
+        );
 
         await Assert.ThrowsAsync<InstrumentLinkException>(() => meter.GetAsync(default));
         Assert.True(broken.Disposed);
@@ -49,11 +57,24 @@ public sealed class ResilientMeterTests
         var failures = 4;
         var waits = new List<TimeSpan>();
         await using var meter = new ResilientMeter(
-            _ => failures-- > 0 ? throw new InstrumentLinkException("fake", "refused") : Task.FromResult<IResistanceMeter>(new FakeMeter()),
-            s_setup, identify: false);
+            _ =>
+                failures-- > 0
+                    ? throw new InstrumentLinkException("fake", "refused")
+                    : Task.FromResult<IResistanceMeter>(new FakeMeter()),
+            s_setup,
+            identify: false
+        );
 
         var connecting = meter.ConnectWithRetryAsync(
-            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(3)), time, (_, wait, _) => { waits.Add(wait); return ValueTask.CompletedTask; }, default);
+            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(3)),
+            time,
+            (_, wait, _) =>
+            {
+                waits.Add(wait);
+                return ValueTask.CompletedTask;
+            },
+            default
+        );
         while (!connecting.IsCompleted)
         {
             time.Advance(TimeSpan.FromSeconds(1));
@@ -62,7 +83,10 @@ public sealed class ResilientMeterTests
 
         await connecting;
         // Doubling back-off capped at the last wait (arithmetic: 1, 2, 4 -> 3, 3).
-        Assert.Equal([TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(3), TimeSpan.FromSeconds(3)], waits);
+        Assert.Equal(
+            [TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(2), TimeSpan.FromSeconds(3), TimeSpan.FromSeconds(3)],
+            waits
+        );
     }
 
     [Fact]
@@ -74,12 +98,20 @@ public sealed class ResilientMeterTests
             _ =>
             {
                 attempts++;
-                return Task.FromResult<IResistanceMeter>(new FakeMeter { FailConfigure = new InstrumentSetupException("range", "10000", "100") });
+                return Task.FromResult<IResistanceMeter>(
+                    new FakeMeter { FailConfigure = new InstrumentSetupException("range", "10000", "100") }
+                );
             },
-            s_setup, identify: false);
+            s_setup,
+            identify: false
+        );
 
         var connecting = meter.ConnectWithRetryAsync(
-            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1)), time, (_, _, _) => ValueTask.CompletedTask, default);
+            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1)),
+            time,
+            (_, _, _) => ValueTask.CompletedTask,
+            default
+        );
         while (!connecting.IsCompleted)
         {
             time.Advance(TimeSpan.FromSeconds(1));
@@ -99,12 +131,23 @@ public sealed class ResilientMeterTests
             _ =>
             {
                 attempts++;
-                throw new InstrumentLinkException("tcp://127.0.0.1:9", "could not connect: Connection refused", null, openFailed: true);
+                throw new InstrumentLinkException(
+                    "tcp://127.0.0.1:9",
+                    "could not connect: Connection refused",
+                    null,
+                    openFailed: true
+                );
             },
-            s_setup, identify: false);
+            s_setup,
+            identify: false
+        );
 
         var connecting = meter.ConnectWithRetryAsync(
-            new Backoff(TimeSpan.FromSeconds(0.25), TimeSpan.FromSeconds(5)), time, (_, _, _) => ValueTask.CompletedTask, default);
+            new Backoff(TimeSpan.FromSeconds(0.25), TimeSpan.FromSeconds(5)),
+            time,
+            (_, _, _) => ValueTask.CompletedTask,
+            default
+        );
         while (!connecting.IsCompleted)
         {
             time.Advance(TimeSpan.FromSeconds(0.25));
@@ -115,7 +158,11 @@ public sealed class ResilientMeterTests
         Assert.Equal(MeterFaults.FirstConnectAttempts, attempts);
         Assert.Equal("tcp://127.0.0.1:9", e.Endpoint);
         // Waits 0.25 + 0.5 + 1 s between the four attempts (arithmetic).
-        Assert.Contains("Connection refused (4 attempts over 1.75 s); check that it is switched on", e.Message, StringComparison.Ordinal);
+        Assert.Contains(
+            "Connection refused (4 attempts over 1.75 s); check that it is switched on",
+            e.Message,
+            StringComparison.Ordinal
+        );
         Assert.False(meter.HasConnected);
     }
 
@@ -125,16 +172,28 @@ public sealed class ResilientMeterTests
         var time = new FakeTimeProvider();
         var refusals = 0;
         await using var meter = new ResilientMeter(
-            _ => refusals is > 0 and <= 10
-                ? throw new InstrumentLinkException("tcp://127.0.0.1:9", "could not connect: Connection refused", null, openFailed: (refusals++ > 0))
-                : Task.FromResult<IResistanceMeter>(new FakeMeter()),
-            s_setup, identify: false);
+            _ =>
+                refusals is > 0 and <= 10
+                    ? throw new InstrumentLinkException(
+                        "tcp://127.0.0.1:9",
+                        "could not connect: Connection refused",
+                        null,
+                        openFailed: (refusals++ > 0)
+                    )
+                    : Task.FromResult<IResistanceMeter>(new FakeMeter()),
+            s_setup,
+            identify: false
+        );
         await meter.GetAsync(default);
         await meter.DropAsync();
         refusals = 1; // the meter is switched off after it was reached: ten refusals, then it is back
 
         var connecting = meter.ConnectWithRetryAsync(
-            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1)), time, (_, _, _) => ValueTask.CompletedTask, default);
+            new Backoff(TimeSpan.FromSeconds(1), TimeSpan.FromSeconds(1)),
+            time,
+            (_, _, _) => ValueTask.CompletedTask,
+            default
+        );
         while (!connecting.IsCompleted)
         {
             time.Advance(TimeSpan.FromSeconds(1));
@@ -178,7 +237,8 @@ public sealed class ResilientMeterTests
 
         public Task<Reading> ReadAsync(CancellationToken ct) => throw new NotSupportedException();
 
-        public Task<IReadOnlyList<Reading>> ReadChannelsAsync(IReadOnlyList<int> channels, CancellationToken ct) => throw new NotSupportedException();
+        public Task<IReadOnlyList<Reading>> ReadChannelsAsync(IReadOnlyList<int> channels, CancellationToken ct) =>
+            throw new NotSupportedException();
 
         public Task<bool> VerifySetupAsync(CancellationToken ct) => Task.FromResult(true);
 

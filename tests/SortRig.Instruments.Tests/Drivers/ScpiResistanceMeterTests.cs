@@ -21,8 +21,17 @@ public sealed class ScpiResistanceMeterTests
         await using var meter = await Open(peer, TestProfiles.Simulator());
         await meter.ConfigureAsync(new ResistanceSetup(10_000, 10, FourWire: false), s_none);
         Assert.Equal(
-            ["CONF:RES 10000", "SENS:RES:RANG 10000", "SENS:RES:NPLC 10", "TRIG:SOUR IMM", "SYST:ERR?", "SENS:RES:RANG?", "SENS:RES:NPLC?"],
-            peer.Received);
+            [
+                "CONF:RES 10000",
+                "SENS:RES:RANG 10000",
+                "SENS:RES:NPLC 10",
+                "TRIG:SOUR IMM",
+                "SYST:ERR?",
+                "SENS:RES:RANG?",
+                "SENS:RES:NPLC?",
+            ],
+            peer.Received
+        );
     }
 
     [Fact]
@@ -40,10 +49,16 @@ public sealed class ScpiResistanceMeterTests
     {
         // SCPI-99 vol. 2 ch. 21: -222 "Data out of range" is an execution error.
         var dmm = new ScriptedDmm();
-        dmm.Overrides["SENS:RES:NPLC 40"] = () => { dmm.QueueError(-222, "Data out of range"); return PeerAction.Silent; };
+        dmm.Overrides["SENS:RES:NPLC 40"] = () =>
+        {
+            dmm.QueueError(-222, "Data out of range");
+            return PeerAction.Silent;
+        };
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
-        var ex = await Assert.ThrowsAsync<ScpiInstrumentException>(() => meter.ConfigureAsync(new ResistanceSetup(1000, 40, false), s_none));
+        var ex = await Assert.ThrowsAsync<ScpiInstrumentException>(() =>
+            meter.ConfigureAsync(new ResistanceSetup(1000, 40, false), s_none)
+        );
         Assert.Equal((-222, ScpiErrorClass.Execution), (ex.Code, ex.Class));
         Assert.Contains("SENS:RES:NPLC 40", ex.Command, StringComparison.Ordinal);
     }
@@ -55,18 +70,22 @@ public sealed class ScpiResistanceMeterTests
         dmm.Overrides["SENS:RES:RANG?"] = () => PeerAction.Reply("+1.00000000E+05");
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
-        var ex = await Assert.ThrowsAsync<InstrumentSetupException>(() => meter.ConfigureAsync(new ResistanceSetup(1000, 1, false), s_none));
+        var ex = await Assert.ThrowsAsync<InstrumentSetupException>(() =>
+            meter.ConfigureAsync(new ResistanceSetup(1000, 1, false), s_none)
+        );
         Assert.Equal(("range", "1000 ohm", "100000 ohm"), (ex.Setting, ex.Expected, ex.Actual));
     }
 
     [Theory]
-    [InlineData(2000, 1, false)]      // not a range of the profile
-    [InlineData(1000, 5, false)]      // not an NPLC setting of the profile
+    [InlineData(2000, 1, false)] // not a range of the profile
+    [InlineData(1000, 5, false)] // not an NPLC setting of the profile
     public async Task Configure_NotInProfile_ThrowsBeforeSendingAnything(double range, double nplc, bool fourWire)
     {
         await using var peer = ScriptedScpiPeer.Start(new ScriptedDmm().Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
-        await Assert.ThrowsAsync<ArgumentOutOfRangeException>(() => meter.ConfigureAsync(new ResistanceSetup(range, nplc, fourWire), s_none));
+        await Assert.ThrowsAsync<ArgumentOutOfRangeException>(() =>
+            meter.ConfigureAsync(new ResistanceSetup(range, nplc, fourWire), s_none)
+        );
         Assert.Empty(peer.Received);
     }
 
@@ -123,10 +142,10 @@ public sealed class ScpiResistanceMeterTests
         var dmm = new ScriptedDmm();
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var meter = await Open(peer, TestProfiles.Simulator());
-        Assert.False(await meter.VerifySetupAsync(s_none));   // nothing configured yet
+        Assert.False(await meter.VerifySetupAsync(s_none)); // nothing configured yet
         await meter.ConfigureAsync(new ResistanceSetup(100_000, 40, false), s_none);
         Assert.True(await meter.VerifySetupAsync(s_none));
-        dmm.ResetToDefaults();                                 // as after a power glitch
+        dmm.ResetToDefaults(); // as after a power glitch
         Assert.False(await meter.VerifySetupAsync(s_none));
     }
 
@@ -149,7 +168,10 @@ public sealed class ScpiResistanceMeterTests
         }
 
         await first;
-        Assert.True(advanced >= TimeSpan.FromMilliseconds(500), $"finished after {advanced.TotalMilliseconds} ms of virtual time");
+        Assert.True(
+            advanced >= TimeSpan.FromMilliseconds(500),
+            $"finished after {advanced.TotalMilliseconds} ms of virtual time"
+        );
 
         // Same range, other NPLC: no settle wait, so it finishes without the clock moving.
         await meter.ConfigureAsync(new ResistanceSetup(1000, 10, false), s_none).WaitAsync(TimeSpan.FromSeconds(5));
@@ -171,8 +193,21 @@ public sealed class ScpiResistanceMeterTests
         var readings = await meter.ReadChannelsAsync([101, 102, 105], s_none);
         Assert.Equal([10001.0, 9999.5, 10000.2], readings.Select(r => r.Value));
         Assert.Equal(
-            ["ROUT:CLOS (@101)", "SYST:ERR?", "READ?", "ROUT:OPEN (@101)", "ROUT:CLOS (@102)", "SYST:ERR?", "READ?", "ROUT:OPEN (@102)", "ROUT:CLOS (@105)", "SYST:ERR?", "READ?"],
-            peer.Received.Skip(before).Take(11));
+            [
+                "ROUT:CLOS (@101)",
+                "SYST:ERR?",
+                "READ?",
+                "ROUT:OPEN (@101)",
+                "ROUT:CLOS (@102)",
+                "SYST:ERR?",
+                "READ?",
+                "ROUT:OPEN (@102)",
+                "ROUT:CLOS (@105)",
+                "SYST:ERR?",
+                "READ?",
+            ],
+            peer.Received.Skip(before).Take(11)
+        );
     }
 
     [Fact]
@@ -185,6 +220,9 @@ public sealed class ScpiResistanceMeterTests
         await Assert.ThrowsAsync<NotSupportedException>(() => meter.ReadChannelsAsync([101], s_none));
     }
 
-    private static async Task<ScpiResistanceMeter> Open(ScriptedScpiPeer peer, MeterProfile profile, TimeProvider? time = null) =>
-        new(await peer.ConnectSessionAsync(new ScpiSessionOptions(profile.Comms.QueryTimeout), time), profile, time);
+    private static async Task<ScpiResistanceMeter> Open(
+        ScriptedScpiPeer peer,
+        MeterProfile profile,
+        TimeProvider? time = null
+    ) => new(await peer.ConnectSessionAsync(new ScpiSessionOptions(profile.Comms.QueryTimeout), time), profile, time);
 }

@@ -3,11 +3,16 @@ using SortRig.Instruments.Scpi;
 
 namespace SortRig.Instruments.Tests.Drivers;
 
-/// <summary>Replies that are not a reading, in a row: growing waits, a stop at the limit, a fresh count after a good reading.</summary>
+/// <summary>Replies that are not a reading, in a row: growing waits, a stop at the limit, a fresh count after a good
+/// reading.</summary>
 public sealed class UnreadableStreakTests
 {
     // 9.91E37 is SCPI's not-a-number value (SCPI-99 vol. 1 sec. 7.2.1.5).
-    private static readonly ScpiResponseException s_nan = new("READ?", "+9.91000000E+37", "a reading (9.91E37 is the SCPI not-a-number value)");
+    private static readonly ScpiResponseException s_nan = new(
+        "READ?",
+        "+9.91000000E+37",
+        "a reading (9.91E37 is the SCPI not-a-number value)"
+    );
     private static readonly Backoff s_backoff = new(TimeSpan.FromMilliseconds(250), TimeSpan.FromSeconds(5));
 
     [Fact]
@@ -55,7 +60,11 @@ public sealed class UnreadableStreakTests
     [Fact]
     public void AReplyWithControlCharacters_IsShownEscapedAndCut()
     {
-        var hostile = new ScpiResponseException("READ?", "\u001b[2J" + new string('x', 60), "a number (NR1, NR2 or NR3)");
+        var hostile = new ScpiResponseException(
+            "READ?",
+            "\u001b[2J" + new string('x', 60),
+            "a number (NR1, NR2 or NR3)"
+        );
         var streak = new UnreadableStreak(s_backoff, limit: 1);
 
         var e = Assert.Throws<MeterUnreadableException>(() => streak.Note(hostile));

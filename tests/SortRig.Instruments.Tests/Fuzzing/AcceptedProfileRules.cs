@@ -26,8 +26,11 @@ internal static class AcceptedProfileRules
             Assert.InRange(r.FullScale, 1e-3, 1e12);
             Assert.True(i == 0 || r.FullScale > p.Spec.Ranges[i - 1].FullScale, $"ranges not ascending at {i}");
             Assert.InRange(r.OverRangeFactor, 1.0, 2.0);
-            Assert.True(r.Accuracy24Hours.PercentOfReading <= r.Accuracy1Year.PercentOfReading
-                && r.Accuracy24Hours.PercentOfRange <= r.Accuracy1Year.PercentOfRange, $"range {i}: 24 h looser than 1 year");
+            Assert.True(
+                r.Accuracy24Hours.PercentOfReading <= r.Accuracy1Year.PercentOfReading
+                    && r.Accuracy24Hours.PercentOfRange <= r.Accuracy1Year.PercentOfRange,
+                $"range {i}: 24 h looser than 1 year"
+            );
             Assert.InRange(r.TestCurrent, 0, 1);
         }
 
@@ -35,7 +38,10 @@ internal static class AcceptedProfileRules
         for (var i = 0; i < p.Spec.Nplcs.Count; i++)
         {
             Assert.InRange(p.Spec.Nplcs[i].Nplc, 1e-4, 1000);
-            Assert.True(i == 0 || p.Spec.Nplcs[i].Nplc > p.Spec.Nplcs[i - 1].Nplc, $"NPLC settings not ascending at {i}");
+            Assert.True(
+                i == 0 || p.Spec.Nplcs[i].Nplc > p.Spec.Nplcs[i - 1].Nplc,
+                $"NPLC settings not ascending at {i}"
+            );
         }
 
         var c = p.Commands;

@@ -16,7 +16,11 @@ public sealed class FoundByFuzzingTests
         // Was reported as "part 1", which is the interface keyword "sIm", not the text after '?'.
         var ex = Assert.Throws<ResourceStringException>(() => ResourceStringParser.Parse("sIm?::NG.ocGGzU:inStr"));
         Assert.Equal((true, 1, "::NG.ocGGzU:inStr", 4), (ex.IsOption, ex.PartNumber, ex.PartText, ex.Offset));
-        Assert.StartsWith("sIm?::NG.ocGGzU:inStr: option 1 '::NG.ocGGzU:inStr' is not allowed", ex.Message, StringComparison.Ordinal);
+        Assert.StartsWith(
+            "sIm?::NG.ocGGzU:inStr: option 1 '::NG.ocGGzU:inStr' is not allowed",
+            ex.Message,
+            StringComparison.Ordinal
+        );
     }
 
     [Fact]
@@ -42,8 +46,9 @@ public sealed class FoundByFuzzingTests
     }
 
     [Theory]
-    // Found as simulator.yaml with a value replaced by text holding "*|x" (replay seed 867916123302236427,2680645280397737513);
-    // reduced by hand to two aliases in a row, on which YamlDotNet 18.1 throws ArgumentException, not YamlException.
+    // Found as simulator.yaml with a value replaced by text holding "*|x" (replay seed
+    // 867916123302236427,2680645280397737513); reduced by hand to two aliases in a row, on which YamlDotNet 18.1 throws
+    // ArgumentException, not YamlException.
     [InlineData("a: *x *y", 2)]
     [InlineData("family: simulator\nover_range: *x *y\n", 3)]
     public void Profile_TwoAliasesInARow_IsAYamlError(string yaml, int line)

@@ -21,7 +21,13 @@ internal static class FuzzRun
 
     /// <summary>The number of inputs each property gets.</summary>
     public static int Count =>
-        int.TryParse(Environment.GetEnvironmentVariable("SORTRIG_FUZZ_COUNT"), NumberStyles.None, CultureInfo.InvariantCulture, out var n) && n > 0
+        int.TryParse(
+            Environment.GetEnvironmentVariable("SORTRIG_FUZZ_COUNT"),
+            NumberStyles.None,
+            CultureInfo.InvariantCulture,
+            out var n
+        )
+        && n > 0
             ? n
             : DefaultCount;
 
@@ -33,15 +39,12 @@ internal static class FuzzRun
     public static int Check<T>(Gen<T> generator, Action<T> property)
     {
         var drawn = 0;
-        var config = Config.QuickThrowOnFailure
-            .WithMaxTest(Count)
-            .WithQuietOnSuccess(true)
-            .WithReplay(Seed());
+        var config = Config.QuickThrowOnFailure.WithMaxTest(Count).WithQuietOnSuccess(true).WithReplay(Seed());
         FsCheck.Check.One(config, Prop.ForAll(generator.ToArbitrary(), (T input) =>
-        {
-            drawn++;
-            property(input);
-        }));
+            {
+                drawn++;
+                property(input);
+            }));
         return drawn;
     }
 
@@ -55,9 +58,11 @@ internal static class FuzzRun
 
         var (seed, gamma) = (DefaultSeed, DefaultGamma);
         var pair = text?.Trim('(', ')', ' ').Split(',');
-        if (pair is { Length: 2 }
+        if (
+            pair is { Length: 2 }
             && ulong.TryParse(pair[0], NumberStyles.Integer, CultureInfo.InvariantCulture, out var s)
-            && ulong.TryParse(pair[1], NumberStyles.Integer, CultureInfo.InvariantCulture, out var g))
+            && ulong.TryParse(pair[1], NumberStyles.Integer, CultureInfo.InvariantCulture, out var g)
+        )
         {
             (seed, gamma) = (s, g);
         }

@@ -27,15 +27,24 @@ public sealed class MeterProfileFuzzTests(ITestOutputHelper output)
             {
                 AssertNamesFileLineAndField(c, ex);
                 tally.Refused++;
-                var kind = ex.Field.Length > 0 ? field++ : ex.Problem.StartsWith("YAML error", StringComparison.Ordinal) ? syntax++ : document++;
+                var kind =
+                    ex.Field.Length > 0 ? field++
+                    : ex.Problem.StartsWith("YAML error", StringComparison.Ordinal) ? syntax++
+                    : document++;
                 if (kind < 2)
                 {
                     output.WriteLine("  e.g. " + TextEdit.Escaped(ex.Message));
                 }
             }
         });
-        output.WriteLine($"damaged profiles: {n} inputs, {tally}; refused for: a field {field}, YAML syntax {syntax}, the document {document}");
-        Assert.True(tally.Accepted > n / 50 && field > n / 4 && syntax > n / 20, $"{tally}, field {field}, syntax {syntax}");
+        output.WriteLine(
+            $"damaged profiles: {n} inputs, {tally}; refused for: a field {field}, YAML syntax {syntax}, the "
+                + $"document {document}"
+        );
+        Assert.True(
+            tally.Accepted > n / 50 && field > n / 4 && syntax > n / 20,
+            $"{tally}, field {field}, syntax {syntax}"
+        );
     }
 
     private static void AssertNamesFileLineAndField(ProfileCase c, ProfileException ex)
@@ -58,13 +67,17 @@ public sealed class MeterProfileFuzzTests(ITestOutputHelper output)
         }
     }
 
-    /// <summary>Lines as YAML counts them: CR LF, CR, LF, NEL, LS and PS each end one (YAML 1.1 sec. 4.1.4, from memory).</summary>
+    /// <summary>Lines as YAML counts them: CR LF, CR, LF, NEL, LS and PS each end one (YAML 1.1 sec. 4.1.4, from
+    /// memory).</summary>
     private static int YamlLineCount(string text)
     {
         var breaks = 0;
         for (var i = 0; i < text.Length; i++)
         {
-            if (text[i] is '\n' or '\u0085' or '\u2028' or '\u2029' || (text[i] == '\r' && (i + 1 == text.Length || text[i + 1] != '\n')))
+            if (
+                text[i] is '\n' or '\u0085' or '\u2028' or '\u2029'
+                || (text[i] == '\r' && (i + 1 == text.Length || text[i + 1] != '\n'))
+            )
             {
                 breaks++;
             }

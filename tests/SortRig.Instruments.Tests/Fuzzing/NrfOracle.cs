@@ -24,14 +24,17 @@ internal static partial class NrfOracle
             return null;
         }
 
-        var compact = trimmed.Replace(" ", string.Empty, StringComparison.Ordinal).Replace("\t", string.Empty, StringComparison.Ordinal);
+        var compact = trimmed
+            .Replace(" ", string.Empty, StringComparison.Ordinal)
+            .Replace("\t", string.Empty, StringComparison.Ordinal);
         var value = double.Parse(compact, NumberStyles.Float, CultureInfo.InvariantCulture);
         if (!double.IsFinite(value))
         {
             return null;
         }
 
-        var format = compact.Contains('E', StringComparison.OrdinalIgnoreCase) ? ScpiNumberFormat.NR3
+        var format =
+            compact.Contains('E', StringComparison.OrdinalIgnoreCase) ? ScpiNumberFormat.NR3
             : compact.Contains('.', StringComparison.Ordinal) ? ScpiNumberFormat.NR2
             : ScpiNumberFormat.NR1;
         return new ScpiNumber(value, format);
@@ -50,6 +53,9 @@ internal static partial class NrfOracle
     }
 
     // ASCII digits only ([0-9], not \d, which matches any Unicode digit) and \z, not $ (which allows a final \n).
-    [GeneratedRegex(@"\A[+-]?(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[ \t]*[Ee][ \t]*[+-]?[0-9]+)?\z", RegexOptions.CultureInvariant)]
+    [GeneratedRegex(
+        @"\A[+-]?(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[ \t]*[Ee][ \t]*[+-]?[0-9]+)?\z",
+        RegexOptions.CultureInvariant
+    )]
     private static partial Regex Nrf();
 }

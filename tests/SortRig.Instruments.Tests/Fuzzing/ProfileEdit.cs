@@ -46,7 +46,10 @@ internal sealed partial record ProfileEdit(ProfileEditKind Kind, int Where, stri
                 break;
             case ProfileEditKind.InsertKey:
                 var indent = lines[i][..(lines[i].Length - lines[i].TrimStart().Length)];
-                lines.Insert(i, (lines[i].TrimStart().StartsWith("- ", StringComparison.Ordinal) ? indent + "  " : indent) + Payload);
+                lines.Insert(
+                    i,
+                    (lines[i].TrimStart().StartsWith("- ", StringComparison.Ordinal) ? indent + "  " : indent) + Payload
+                );
                 break;
             case ProfileEditKind.ReplaceScalar:
                 var scalars = Scalar().Matches(text);
@@ -61,20 +64,27 @@ internal sealed partial record ProfileEdit(ProfileEditKind Kind, int Where, stri
     }
 
     /// <inheritdoc/>
-    public override string ToString() => Kind switch
-    {
-        ProfileEditKind.DeleteLine or ProfileEditKind.DuplicateLine or ProfileEditKind.SwapLines or ProfileEditKind.Dedent
+    public override string ToString() =>
+        Kind switch
+        {
+            ProfileEditKind.DeleteLine
+            or ProfileEditKind.DuplicateLine
+            or ProfileEditKind.SwapLines
+            or ProfileEditKind.Dedent
             or ProfileEditKind.Truncate => $"{Kind}@{Where}",
-        _ => $"{Kind}@{Where}:'{TextEdit.Escaped(Payload)}'",
-    };
+            _ => $"{Kind}@{Where}:'{TextEdit.Escaped(Payload)}'",
+        };
 
-    private string ReplaceAt(string text, Match m) => string.Concat(text.AsSpan(0, m.Index), Payload, text.AsSpan(m.Index + m.Length));
+    private string ReplaceAt(string text, Match m) =>
+        string.Concat(text.AsSpan(0, m.Index), Payload, text.AsSpan(m.Index + m.Length));
 
-    // A value after "key: ", "- " or inside a [flow, list]: a quoted string, or plain text up to a comma, bracket or comment.
+    // A value after "key: ", "- " or inside a [flow, list]: a quoted string, or plain text up to a comma, bracket or
+    // comment.
     [GeneratedRegex(
         @"(?<=(?::|-|[\[,])[ \t]+|\[)"
-        + @"(?:""[^""\n]*""|'[^'\n]*'|[^\s{}\[\],#:""'][^{}\[\],#\n:]*?)"
-        + @"(?=[ \t]*(?:[,\]}#\n]|\z))",
-        RegexOptions.CultureInvariant)]
+            + @"(?:""[^""\n]*""|'[^'\n]*'|[^\s{}\[\],#:""'][^{}\[\],#\n:]*?)"
+            + @"(?=[ \t]*(?:[,\]}#\n]|\z))",
+        RegexOptions.CultureInvariant
+    )]
     private static partial Regex Scalar();
 }

@@ -34,7 +34,9 @@ public sealed class ResourceStringFuzzTests(ITestOutputHelper output)
     [Fact]
     public void Parse_ValidString_RoundTripsToItsFields()
     {
-        var n = FuzzRun.Check(ResourceStringGenerators.Valid, v => Assert.Equal(v.Expected, ResourceStringParser.Parse(v.Text)));
+        var n = FuzzRun.Check(ResourceStringGenerators.Valid, v =>
+            Assert.Equal(v.Expected, ResourceStringParser.Parse(v.Text))
+        );
         output.WriteLine($"valid resource strings: {n} inputs");
     }
 
@@ -43,9 +45,16 @@ public sealed class ResourceStringFuzzTests(ITestOutputHelper output)
         var resource = ex.Resource;
         Assert.Equal(input.Trim(), resource);
         Assert.InRange(ex.Offset, 0, resource.Length);
-        Assert.True(resource.AsSpan(ex.Offset).StartsWith(ex.PartText, StringComparison.Ordinal),
-            $"part text '{TextEdit.Escaped(ex.PartText)}' is not at offset {ex.Offset} of '{TextEdit.Escaped(resource)}'");
-        Assert.StartsWith($"{resource}: {(ex.IsOption ? "option" : "part")} {ex.PartNumber} '{ex.PartText}' ", ex.Message, StringComparison.Ordinal);
+        Assert.True(
+            resource.AsSpan(ex.Offset).StartsWith(ex.PartText, StringComparison.Ordinal),
+            $"part text '{TextEdit.Escaped(ex.PartText)}' is not at offset {ex.Offset} of '"
+                + $"{TextEdit.Escaped(resource)}'"
+        );
+        Assert.StartsWith(
+            $"{resource}: {(ex.IsOption ? "option" : "part")} {ex.PartNumber} '{ex.PartText}' ",
+            ex.Message,
+            StringComparison.Ordinal
+        );
         Assert.True(ex.PartNumber >= 1, ex.Message);
         Assert.False(string.IsNullOrWhiteSpace(ex.Expected), ex.Message);
 
@@ -66,13 +75,20 @@ public sealed class ResourceStringFuzzTests(ITestOutputHelper output)
         }
     }
 
-    /// <summary>"::" separators before <paramref name="offset"/>, outside [brackets] (VPP-4.3 IPv6 hosts, from memory).</summary>
+    /// <summary>"::" separators before <paramref name="offset"/>, outside [brackets] (VPP-4.3 IPv6 hosts, from
+    /// memory).</summary>
     private static int SeparatorsBefore(string resource, int offset)
     {
-        int count = 0, depth = 0;
+        int count = 0,
+            depth = 0;
         for (var i = 0; i + 1 < offset; i++)
         {
-            depth = resource[i] switch { '[' => depth + 1, ']' => Math.Max(0, depth - 1), _ => depth };
+            depth = resource[i] switch
+            {
+                '[' => depth + 1,
+                ']' => Math.Max(0, depth - 1),
+                _ => depth,
+            };
             if (depth == 0 && resource[i] == ':' && resource[i + 1] == ':')
             {
                 count++;

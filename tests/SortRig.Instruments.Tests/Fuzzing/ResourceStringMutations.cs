@@ -7,17 +7,34 @@ namespace SortRig.Instruments.Tests.Fuzzing;
 internal static class ResourceStringMutations
 {
     /// <summary>Arbitrary text, valid strings with character edits, and valid strings with part edits.</summary>
-    public static Gen<Mutated> Any => Gen.Frequency(
-        (2, TextMutations.Arbitrary(ResourceStringGenerators.Syntax).Select(t => new Mutated(string.Empty, t, "arbitrary"))),
-        (3, TextMutations.Mutate(ResourceStringGenerators.Valid.Select(v => v.Text), ResourceStringGenerators.Syntax)),
-        (3, PartEdited));
+    public static Gen<Mutated> Any =>
+        Gen.Frequency(
+            (
+                2,
+                TextMutations
+                    .Arbitrary(ResourceStringGenerators.Syntax)
+                    .Select(t => new Mutated(string.Empty, t, "arbitrary"))
+            ),
+            (
+                3,
+                TextMutations.Mutate(
+                    ResourceStringGenerators.Valid.Select(v => v.Text),
+                    ResourceStringGenerators.Syntax
+                )
+            ),
+            (3, PartEdited)
+        );
 
     private static Gen<Mutated> PartEdited =>
         from valid in ResourceStringGenerators.Valid
         from edit in Gen.Elements("delete", "duplicate", "swap", "replace", "empty", "append", "option", "class")
         from at in Gen.Choose(0, 9)
         from chunk in TextMutations.Chunk(ResourceStringGenerators.Syntax)
-        select new Mutated(valid.Text, EditPart(valid.Text, edit, at, chunk), $"{edit} part {at} with '{TextEdit.Escaped(chunk)}'");
+        select new Mutated(
+            valid.Text,
+            EditPart(valid.Text, edit, at, chunk),
+            $"{edit} part {at} with '{TextEdit.Escaped(chunk)}'"
+        );
 
     private static string EditPart(string text, string edit, int at, string chunk)
     {

@@ -13,7 +13,9 @@ public sealed class ScpiNumberFuzzTests(ITestOutputHelper output)
     public void Parse_ArbitraryText_AgreesWithNrfGrammarOrThrowsFormatException()
     {
         var tally = new Tally();
-        var n = FuzzRun.Check(TextMutations.Arbitrary(ScpiNumberGenerators.Syntax), text => ParseAndCompare(text, tally));
+        var n = FuzzRun.Check(TextMutations.Arbitrary(ScpiNumberGenerators.Syntax), text =>
+            ParseAndCompare(text, tally)
+        );
         output.WriteLine($"arbitrary text: {n} inputs, {tally}");
         Assert.True(tally.Accepted > 0 && tally.Refused > 0, $"generator reaches one side only: {tally}");
     }
@@ -63,8 +65,14 @@ public sealed class ScpiNumberFuzzTests(ITestOutputHelper output)
             return;
         }
 
-        Assert.True(expected is not null, $"accepted '{TextEdit.Escaped(text)}' as {parsed}, which the grammar refuses");
-        Assert.Equal(BitConverter.DoubleToInt64Bits(expected.Value.Value), BitConverter.DoubleToInt64Bits(parsed.Value));
+        Assert.True(
+            expected is not null,
+            $"accepted '{TextEdit.Escaped(text)}' as {parsed}, which the grammar refuses"
+        );
+        Assert.Equal(
+            BitConverter.DoubleToInt64Bits(expected.Value.Value),
+            BitConverter.DoubleToInt64Bits(parsed.Value)
+        );
         Assert.Equal(expected.Value.Format, parsed.Format);
         tally.Accepted++;
     }

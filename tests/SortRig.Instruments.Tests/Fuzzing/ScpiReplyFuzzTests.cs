@@ -20,7 +20,8 @@ public sealed partial class ScpiReplyFuzzTests(ITestOutputHelper output)
         {
             var comma = reply.IndexOf(',', StringComparison.Ordinal);
             var codeText = comma < 0 ? reply : reply[..comma];
-            int? code = NrfOracle.Expected(codeText) is { Format: ScpiNumberFormat.NR1, Value: >= int.MinValue and <= int.MaxValue } c
+            int? code = NrfOracle.Expected(codeText)
+                is { Format: ScpiNumberFormat.NR1, Value: >= int.MinValue and <= int.MaxValue } c
                 ? (int)c.Value
                 : null;
             try
@@ -50,7 +51,8 @@ public sealed partial class ScpiReplyFuzzTests(ITestOutputHelper output)
     public void ErrorParse_ValidReply_RoundTrips()
     {
         var n = FuzzRun.Check(ScpiReplyGenerators.ValidError, e =>
-            Assert.Equal(new ScpiError(e.Code, e.Message), ScpiError.Parse(e.Text, Command)));
+            Assert.Equal(new ScpiError(e.Code, e.Message), ScpiError.Parse(e.Text, Command))
+        );
         output.WriteLine($"valid SYST:ERR? replies: {n} inputs");
     }
 
@@ -66,7 +68,9 @@ public sealed partial class ScpiReplyFuzzTests(ITestOutputHelper output)
                 var id = InstrumentIdentity.Parse(reply);
                 Assert.True(commas >= 3 && id.Model.Length > 0, $"accepted '{TextEdit.Escaped(reply)}' as {id}");
                 Assert.Equal(reply[..reply.IndexOf(',', StringComparison.Ordinal)].Trim(), id.Manufacturer);
-                Assert.False(string.Concat(id.Manufacturer, id.Model, id.Serial).Contains(',', StringComparison.Ordinal));
+                Assert.False(
+                    string.Concat(id.Manufacturer, id.Model, id.Serial).Contains(',', StringComparison.Ordinal)
+                );
                 tally.Accepted++;
             }
             catch (ScpiResponseException ex)
@@ -83,7 +87,11 @@ public sealed partial class ScpiReplyFuzzTests(ITestOutputHelper output)
     public void IdentityParse_ValidReply_RoundTrips()
     {
         var n = FuzzRun.Check(ScpiReplyGenerators.ValidIdentity, r =>
-            Assert.Equal(new InstrumentIdentity(r.Manufacturer, r.Model, r.Serial, r.Firmware), InstrumentIdentity.Parse(r.Text)));
+            Assert.Equal(
+                new InstrumentIdentity(r.Manufacturer, r.Model, r.Serial, r.Firmware),
+                InstrumentIdentity.Parse(r.Text)
+            )
+        );
         output.WriteLine($"valid *IDN? replies: {n} inputs");
     }
 

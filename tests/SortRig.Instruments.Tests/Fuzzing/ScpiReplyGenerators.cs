@@ -32,41 +32,83 @@ internal static class ScpiReplyGenerators
     /// </summary>
     public static Gen<ErrorReply> ValidError =>
         from code in Gen.Frequency(
-            (3, Gen.Elements(0, -100, -102, -113, -200, -221, -222, -224, -230, -310, -350, -363, -410, -420, -440, 101, 304)),
-            (2, Gen.Choose(int.MinValue, int.MaxValue)))
+            (
+                3,
+                Gen.Elements(
+                    0,
+                    -100,
+                    -102,
+                    -113,
+                    -200,
+                    -221,
+                    -222,
+                    -224,
+                    -230,
+                    -310,
+                    -350,
+                    -363,
+                    -410,
+                    -420,
+                    -440,
+                    101,
+                    304
+                )
+            ),
+            (2, Gen.Choose(int.MinValue, int.MaxValue))
+        )
         from plus in Gen.Elements(false, true)
         from message in Text(" ,;:\"'()-_.")
         from pad in s_pad
-        select new ErrorReply(code, message,
-            $"{(plus && code >= 0 ? "+" : string.Empty)}{code},{pad}\"{message.Replace("\"", "\"\"", StringComparison.Ordinal)}\"{pad}");
+        select new ErrorReply(
+            code,
+            message,
+            $"{(plus && code >= 0 ? "+" : string.Empty)}{code},{pad}\""
+                + $"{message.Replace("\"", "\"\"", StringComparison.Ordinal)}\"{pad}"
+        );
 
-    /// <summary>Identities: fields without commas (the model not blank), firmware possibly with commas, padded.</summary>
+    /// <summary>Identities: fields without commas (the model not blank), firmware possibly with commas,
+    /// padded.</summary>
     public static Gen<IdentityReply> ValidIdentity =>
         from maker in Text(" .-_/")
         from model in Text(" .-_/").Where(m => m.Trim().Length > 0)
         from serial in Text(" .-_/")
         from firmware in Text(" .-_/,")
         from pad in s_pad
-        select new IdentityReply(maker.Trim(), model.Trim(), serial.Trim(), firmware.Trim(),
-            $"{pad}{maker}{pad},{model},{pad}{serial},{firmware}{pad}");
+        select new IdentityReply(
+            maker.Trim(),
+            model.Trim(),
+            serial.Trim(),
+            firmware.Trim(),
+            $"{pad}{maker}{pad},{model},{pad}{serial},{firmware}{pad}"
+        );
 
     /// <summary>Arbitrary text, damaged valid error replies, and valid ones.</summary>
-    public static Gen<string> AnyError => Gen.Frequency(
-        (2, TextMutations.Arbitrary(Syntax)),
-        (3, TextMutations.Mutate(ValidError.Select(e => e.Text), Syntax).Select(m => m.Text)),
-        (1, ValidError.Select(e => e.Text)));
+    public static Gen<string> AnyError =>
+        Gen.Frequency(
+            (2, TextMutations.Arbitrary(Syntax)),
+            (3, TextMutations.Mutate(ValidError.Select(e => e.Text), Syntax).Select(m => m.Text)),
+            (1, ValidError.Select(e => e.Text))
+        );
 
     /// <summary>Arbitrary text, damaged valid identities, and valid ones.</summary>
-    public static Gen<string> AnyIdentity => Gen.Frequency(
-        (2, TextMutations.Arbitrary(Syntax)),
-        (3, TextMutations.Mutate(ValidIdentity.Select(e => e.Text), Syntax).Select(m => m.Text)),
-        (1, ValidIdentity.Select(e => e.Text)));
+    public static Gen<string> AnyIdentity =>
+        Gen.Frequency(
+            (2, TextMutations.Arbitrary(Syntax)),
+            (3, TextMutations.Mutate(ValidIdentity.Select(e => e.Text), Syntax).Select(m => m.Text)),
+            (1, ValidIdentity.Select(e => e.Text))
+        );
 
     private static Gen<string> Text(string punctuation) =>
-        Gen.Choose(0, 24).SelectMany(n => Gen.ArrayOf(
-            Gen.Frequency(
-                (8, Gen.Elements("ABCXYZabcxyz0123456789".ToCharArray())),
-                (3, Gen.Elements(punctuation.ToCharArray())),
-                (1, Gen.Elements(TextMutations.Awkward.Where(c => c != ',').ToArray()))),
-            n)).Select(a => new string(a));
+        Gen.Choose(0, 24)
+            .SelectMany(n =>
+                Gen.ArrayOf(
+                    Gen.Frequency(
+                        (8, Gen.Elements("ABCXYZabcxyz0123456789".ToCharArray())),
+                        (3, Gen.Elements(punctuation.ToCharArray())),
+                        (1, Gen.Elements(TextMutations.Awkward.Where(c => c != ',').ToArray()))
+                    ),
+                    n
+                )
+            )
+            .Select(a => new string(a));
 }

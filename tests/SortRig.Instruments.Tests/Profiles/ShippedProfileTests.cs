@@ -51,9 +51,12 @@ public sealed class ShippedProfileTests
     public void Header_SaysTheFiguresAreInventedForSortRig(string family)
     {
         // Originality rule (RULES.md): shipped figures are our own, and the file says so before its first key.
-        var lines = File.ReadLines(Path.Combine(RepoPaths.Instruments, family + ".yaml")).TakeWhile(l => l.StartsWith('#'));
+        var lines = File.ReadLines(Path.Combine(RepoPaths.Instruments, family + ".yaml"))
+            .TakeWhile(l => l.StartsWith('#'));
         Assert.Contains(lines, l => l.Contains("invented for SortRig", StringComparison.Ordinal));
-        Assert.DoesNotContain(File.ReadLines(Path.Combine(RepoPaths.Instruments, family + ".yaml")), l => l.Contains("from memory", StringComparison.Ordinal));
+        Assert.DoesNotContain(File.ReadLines(Path.Combine(RepoPaths.Instruments, family + ".yaml")), l =>
+            l.Contains("from memory", StringComparison.Ordinal)
+        );
     }
 
     [Fact]

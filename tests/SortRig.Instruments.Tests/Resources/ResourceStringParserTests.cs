@@ -62,7 +62,9 @@ public sealed class ResourceStringParserTests
     [Fact]
     public void Serial_DevicePathAndOptions_Parsed()
     {
-        var r = Assert.IsType<SerialResource>(ResourceStringParser.Parse("ASRL::/dev/ttyUSB0::INSTR?baud=19200&parity=even&data=7&stop=2&flow=xon"));
+        var r = Assert.IsType<SerialResource>(
+            ResourceStringParser.Parse("ASRL::/dev/ttyUSB0::INSTR?baud=19200&parity=even&data=7&stop=2&flow=xon")
+        );
         Assert.Equal("/dev/ttyUSB0", r.DevicePath);
         Assert.Equal(new SerialOverrides(19200, Parity.Even, 7, StopBits.Two, Handshake.XOnXOff), r.Settings);
     }
@@ -71,19 +73,32 @@ public sealed class ResourceStringParserTests
     public void Usb_VisaForm_ParsedWithHexIds()
     {
         // VPP-4.3: USB[board]::manufacturer ID::model code::serial number[::USB interface number][::INSTR]
-        var r = Assert.IsType<UsbInstrumentResource>(ResourceStringParser.Parse("USB0::0x1234::0x5678::SN000123::0::INSTR"));
+        var r = Assert.IsType<UsbInstrumentResource>(
+            ResourceStringParser.Parse("USB0::0x1234::0x5678::SN000123::0::INSTR")
+        );
         Assert.Equal((0x1234, 0x5678, "SN000123", (int?)0), (r.VendorId, r.ProductId, r.SerialNumber, r.Interface));
     }
 
     [Fact]
     public void UsbTmcAndSimulator_OurForms_Parsed()
     {
-        Assert.Equal("/dev/usbtmc0", Assert.IsType<UsbTmcResource>(ResourceStringParser.Parse("USBTMC::/dev/usbtmc0::INSTR")).DevicePath);
-        Assert.Equal("bench-a", Assert.IsType<SimulatorResource>(ResourceStringParser.Parse("sim::bench-a::instr")).Name);
+        Assert.Equal(
+            "/dev/usbtmc0",
+            Assert.IsType<UsbTmcResource>(ResourceStringParser.Parse("USBTMC::/dev/usbtmc0::INSTR")).DevicePath
+        );
+        Assert.Equal(
+            "bench-a",
+            Assert.IsType<SimulatorResource>(ResourceStringParser.Parse("sim::bench-a::instr")).Name
+        );
     }
 
     [Theory]
-    [InlineData("TCPIP::host::notaport::SOCKET", 3, "notaport", "TCPIP::host::notaport::SOCKET: part 3 'notaport' is not a port number 1-65535")]
+    [InlineData(
+        "TCPIP::host::notaport::SOCKET",
+        3,
+        "notaport",
+        "TCPIP::host::notaport::SOCKET: part 3 'notaport' is not a port number 1-65535"
+    )]
     [InlineData("TCPIP::host::70000::SOCKET", 3, "70000", null)]
     [InlineData("GPIB0::12::INSTR", 1, "GPIB0", null)]
     [InlineData("TCPIP::bad_host!::5025::SOCKET", 2, "bad_host!", null)]
@@ -124,7 +139,9 @@ public sealed class ResourceStringParserTests
     [Fact]
     public void SerialOptions_OnTcpResource_Rejected()
     {
-        var ex = Assert.Throws<ResourceStringException>(() => ResourceStringParser.Parse("TCPIP::h::5025::SOCKET?baud=9600"));
+        var ex = Assert.Throws<ResourceStringException>(() =>
+            ResourceStringParser.Parse("TCPIP::h::5025::SOCKET?baud=9600")
+        );
         Assert.Contains("ASRL", ex.Message, StringComparison.Ordinal);
     }
 }

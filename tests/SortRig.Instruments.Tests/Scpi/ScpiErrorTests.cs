@@ -19,7 +19,8 @@ public sealed class ScpiErrorTests
     [InlineData(-800, ScpiErrorClass.OperationComplete)]
     [InlineData(-42, ScpiErrorClass.Reserved)]
     [InlineData(201, ScpiErrorClass.DeviceDefined)]
-    public void Classify_ByScpi99CodeRange(int code, ScpiErrorClass expected) => Assert.Equal(expected, ScpiError.Classify(code));
+    public void Classify_ByScpi99CodeRange(int code, ScpiErrorClass expected) =>
+        Assert.Equal(expected, ScpiError.Classify(code));
 
     [Theory]
     // SCPI-99 vol. 2 sec. 21.8: <code>,"<description>[;<device-dependent info>]"

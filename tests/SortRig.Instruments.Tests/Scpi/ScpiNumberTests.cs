@@ -67,10 +67,11 @@ public sealed class ScpiNumberTests
     {
         // Reference: .NET's invariant double parser (general-purpose library), on NR3 text as meters send it.
         Prop.ForAll(ArbMap.Default.ArbFor<NormalFloat>(), f =>
-        {
-            var text = f.Get.ToString("+0.00000000E+00;-0.00000000E+00", CultureInfo.InvariantCulture);
-            var n = ScpiNumber.Parse(text);
-            return n.Format == ScpiNumberFormat.NR3 && n.Value == double.Parse(text, CultureInfo.InvariantCulture);
-        }).QuickCheckThrowOnFailure();
+            {
+                var text = f.Get.ToString("+0.00000000E+00;-0.00000000E+00", CultureInfo.InvariantCulture);
+                var n = ScpiNumber.Parse(text);
+                return n.Format == ScpiNumberFormat.NR3 && n.Value == double.Parse(text, CultureInfo.InvariantCulture);
+            })
+            .QuickCheckThrowOnFailure();
     }
 }

@@ -45,7 +45,9 @@ public sealed class ScpiSessionTests
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var session = await peer.ConnectSessionAsync();
         var timeout = TimeSpan.FromMilliseconds(200);
-        var ex = await Assert.ThrowsAsync<InstrumentTimeoutException>(() => session.QueryAsync("FETC?", timeout, s_none));
+        var ex = await Assert.ThrowsAsync<InstrumentTimeoutException>(() =>
+            session.QueryAsync("FETC?", timeout, s_none)
+        );
         Assert.Equal(("FETC?", timeout), (ex.Command, ex.Timeout));
         Assert.True(session.IsBroken);
         await Assert.ThrowsAsync<InstrumentLinkException>(() => session.QueryAsync("*IDN?", s_none));
@@ -66,20 +68,21 @@ public sealed class ScpiSessionTests
     [Fact]
     public async Task CheckErrors_DrainsQueue_ThrowsTypedFirstErrorWithCommandGroup()
     {
-        // SCPI-99 vol. 2 ch. 21: -222 is an execution error, -113 a command error; the queue is read until 0,"No error".
+        // SCPI-99 vol. 2 ch. 21: -222 is an execution error, -113 a command error; the queue is read until 0,"No
+        // error".
         var dmm = new ScriptedDmm();
         dmm.QueueError(-222, "Data out of range");
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var session = await peer.ConnectSessionAsync();
         await session.WriteAsync("SENS:RES:RANG 10000", s_none);
-        await session.WriteAsync("SENS:RES:BOGUS 7", s_none);   // the scripted meter queues -113 for it
+        await session.WriteAsync("SENS:RES:BOGUS 7", s_none); // the scripted meter queues -113 for it
         var ex = await Assert.ThrowsAsync<ScpiInstrumentException>(() => session.CheckErrorsAsync(s_none));
         Assert.Equal((-222, "Data out of range", ScpiErrorClass.Execution), (ex.Code, ex.InstrumentMessage, ex.Class));
         Assert.Equal("SENS:RES:RANG 10000; SENS:RES:BOGUS 7", ex.Command);
         Assert.Equal([-222, -113], ex.Errors.Select(e => e.Code));
         Assert.Equal(ScpiErrorClass.Command, ex.Errors[1].Class);
         Assert.Equal(3, peer.Received.Count(c => c == "SYST:ERR?"));
-        await session.CheckErrorsAsync(s_none);   // queue now empty: no throw
+        await session.CheckErrorsAsync(s_none); // queue now empty: no throw
     }
 
     [Fact]
@@ -88,7 +91,9 @@ public sealed class ScpiSessionTests
         var dmm = new ScriptedDmm();
         dmm.Overrides["SYST:ERR?"] = () => PeerAction.Reply("-350,\"Queue overflow\"");
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
-        await using var session = await peer.ConnectSessionAsync(new ScpiSessionOptions(TimeSpan.FromSeconds(2), maxErrorQueueReads: 5));
+        await using var session = await peer.ConnectSessionAsync(
+            new ScpiSessionOptions(TimeSpan.FromSeconds(2), maxErrorQueueReads: 5)
+        );
         var ex = await Assert.ThrowsAsync<ScpiInstrumentException>(() => session.CheckErrorsAsync(s_none));
         Assert.Equal(ScpiErrorClass.DeviceSpecific, ex.Class);
         Assert.Equal(5, ex.Errors.Count);
@@ -124,7 +129,11 @@ public sealed class ScpiSessionTests
             return ok;
         }
 
-        var results = await Task.WhenAll(Task.Run(() => Caller("A")), Task.Run(() => Caller("B")), Task.Run(() => Caller("C")));
+        var results = await Task.WhenAll(
+            Task.Run(() => Caller("A")),
+            Task.Run(() => Caller("B")),
+            Task.Run(() => Caller("C"))
+        );
         Assert.All(results, Assert.True);
         Assert.Equal(45, peer.Received.Count);
         Assert.Equal(0, peer.Overlaps);
@@ -152,10 +161,14 @@ public sealed class ScpiSessionTests
         await using var peer = ScriptedScpiPeer.Start(dmm.Handle);
         await using var session = await peer.ConnectSessionAsync();
         Assert.Equal("SIM-6H", (await session.IdentifyAsync(s_none)).Model);
-        Assert.Equal(StandardEvents.CommandError | StandardEvents.QueryError, await session.ReadEventStatusAsync(s_none));
+        Assert.Equal(
+            StandardEvents.CommandError | StandardEvents.QueryError,
+            await session.ReadEventStatusAsync(s_none)
+        );
         await session.ResetAsync(TimeSpan.FromSeconds(2), s_none);
         await session.ClearStatusAsync(s_none);
-        await session.WaitOperationCompleteAsync(TimeSpan.FromSeconds(2), s_none);   // the reply proves *CLS arrived first
+        // the reply proves *CLS arrived first
+        await session.WaitOperationCompleteAsync(TimeSpan.FromSeconds(2), s_none);
         Assert.Equal(["*IDN?", "*ESR?", "*RST", "*OPC?", "*CLS", "*OPC?"], peer.Received);
     }
 }

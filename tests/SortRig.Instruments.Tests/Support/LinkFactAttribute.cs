@@ -1,7 +1,7 @@
 using System.Reflection;
+using SortRig.Tests.Support;
 using Xunit.Abstractions;
 using Xunit.Sdk;
-using SortRig.Tests.Support;
 
 namespace SortRig.Instruments.Tests.Support;
 
@@ -20,11 +20,16 @@ public sealed class LinkFactAttribute : FactAttribute;
 /// <summary>Discovers <see cref="LinkFactAttribute"/> tests per concrete class.</summary>
 public sealed class LinkFactDiscoverer(IMessageSink diagnosticMessageSink) : IXunitTestCaseDiscoverer
 {
-    public IEnumerable<IXunitTestCase> Discover(ITestFrameworkDiscoveryOptions discoveryOptions, ITestMethod testMethod, IAttributeInfo factAttribute)
+    public IEnumerable<IXunitTestCase> Discover(
+        ITestFrameworkDiscoveryOptions discoveryOptions,
+        ITestMethod testMethod,
+        IAttributeInfo factAttribute
+    )
     {
         var display = discoveryOptions.MethodDisplayOrDefault();
         var displayOptions = discoveryOptions.MethodDisplayOptionsOrDefault();
-        var needsSocat = testMethod.TestClass.Class.ToRuntimeType().GetCustomAttribute<RequiresSocatAttribute>() is not null;
+        var needsSocat =
+            testMethod.TestClass.Class.ToRuntimeType().GetCustomAttribute<RequiresSocatAttribute>() is not null;
         var reason = needsSocat ? SocatPair.SkipReason() : null;
         yield return reason is null
             ? new XunitTestCase(diagnosticMessageSink, display, displayOptions, testMethod)

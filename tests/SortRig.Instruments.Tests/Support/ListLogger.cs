@@ -13,6 +13,11 @@ internal sealed class ListLogger : ILogger
 
     public bool IsEnabled(LogLevel logLevel) => true;
 
-    public void Log<TState>(LogLevel logLevel, EventId eventId, TState state, Exception? exception, Func<TState, Exception?, string> formatter) =>
-        Entries.Enqueue((logLevel, eventId, formatter(state, exception)));
+    public void Log<TState>(
+        LogLevel logLevel,
+        EventId eventId,
+        TState state,
+        Exception? exception,
+        Func<TState, Exception?, string> formatter
+    ) => Entries.Enqueue((logLevel, eventId, formatter(state, exception)));
 }

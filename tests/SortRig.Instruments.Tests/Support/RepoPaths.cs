@@ -13,7 +13,8 @@ internal static class RepoPaths
                 dir = dir.Parent;
             }
 
-            return dir?.FullName ?? throw new InvalidOperationException("SortRig.sln not found above " + AppContext.BaseDirectory);
+            return dir?.FullName
+                ?? throw new InvalidOperationException("SortRig.sln not found above " + AppContext.BaseDirectory);
         }
     }
 

@@ -45,14 +45,24 @@ internal sealed partial class ScriptedDmm
         Match m;
         switch (cmd)
         {
-            case "*IDN?": return PeerAction.Reply(Identity);
-            case "*OPC?": return PeerAction.Reply("1");
-            case "*ESR?": return PeerAction.Reply("0");
-            case "*CLS": _errors.Clear(); return PeerAction.Silent;
-            case "*RST": ResetToDefaults(); return PeerAction.Silent;
-            case "TRIG:SOUR IMM" or "INIT": return PeerAction.Silent;
-            case "SYST:ERR?": return PeerAction.Reply(_errors.TryDequeue(out var e) ? e : "+0,\"No error\"");
-            case "READ?" or "FETC?": return PeerAction.Reply(NextReading());
+            case "*IDN?":
+                return PeerAction.Reply(Identity);
+            case "*OPC?":
+                return PeerAction.Reply("1");
+            case "*ESR?":
+                return PeerAction.Reply("0");
+            case "*CLS":
+                _errors.Clear();
+                return PeerAction.Silent;
+            case "*RST":
+                ResetToDefaults();
+                return PeerAction.Silent;
+            case "TRIG:SOUR IMM" or "INIT":
+                return PeerAction.Silent;
+            case "SYST:ERR?":
+                return PeerAction.Reply(_errors.TryDequeue(out var e) ? e : "+0,\"No error\"");
+            case "READ?" or "FETC?":
+                return PeerAction.Reply(NextReading());
         }
 
         if ((m = ConfPattern().Match(cmd)).Success)
@@ -66,7 +76,9 @@ internal sealed partial class ScriptedDmm
             var table = m.Groups[2].Value == "RANG" ? _range : _nplc;
             if (m.Groups[3].Value == "?")
             {
-                return PeerAction.Reply(table[m.Groups[1].Value].ToString("+0.00000000E+00;-0.00000000E+00", CultureInfo.InvariantCulture));
+                return PeerAction.Reply(
+                    table[m.Groups[1].Value].ToString("+0.00000000E+00;-0.00000000E+00", CultureInfo.InvariantCulture)
+                );
             }
 
             table[m.Groups[1].Value] = Parse(m.Groups[4].Value);
@@ -84,7 +96,9 @@ internal sealed partial class ScriptedDmm
     }
 
     private string NextReading() =>
-        Readings.Count > 1 && Readings.TryDequeue(out var r) ? r : Readings.TryPeek(out var last) ? last : "+1.00012340E+03";
+        Readings.Count > 1 && Readings.TryDequeue(out var r) ? r
+        : Readings.TryPeek(out var last) ? last
+        : "+1.00012340E+03";
 
     private static double Parse(string s) => double.Parse(s, CultureInfo.InvariantCulture);
 

@@ -63,7 +63,12 @@ internal sealed class ScriptedScpiPeer : IAsyncDisposable
     public static ScriptedScpiPeer Start(Func<string, PeerAction> script) => new(script);
 
     public async Task<IMessageLink> ConnectLinkAsync(MessageLinkOptions? options = null) =>
-        await new MessageLinkFactory().OpenAsync(ResourceStringParser.Parse(Resource), options ?? MessageLinkOptions.Default, null, CancellationToken.None);
+        await new MessageLinkFactory().OpenAsync(
+            ResourceStringParser.Parse(Resource),
+            options ?? MessageLinkOptions.Default,
+            null,
+            CancellationToken.None
+        );
 
     public async Task<ScpiSession> ConnectSessionAsync(ScpiSessionOptions? options = null, TimeProvider? time = null) =>
         new(await ConnectLinkAsync(), options ?? new ScpiSessionOptions(TimeSpan.FromSeconds(2)), time);
@@ -76,9 +81,7 @@ internal sealed class ScriptedScpiPeer : IAsyncDisposable
         {
             await _serving;
         }
-        catch (Exception ex) when (ex is OperationCanceledException or SocketException or ObjectDisposedException)
-        {
-        }
+        catch (Exception ex) when (ex is OperationCanceledException or SocketException or ObjectDisposedException) { }
 
         _stop.Dispose();
     }

@@ -13,8 +13,16 @@ internal static class TestProfiles
     {
         var path = Path.Combine(RepoPaths.Instruments, "simulator.yaml");
         var text = File.ReadAllText(path)
-            .Replace("range_change_settle_s: 0.1", "range_change_settle_s: " + settleSeconds.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal)
-            .Replace("query_timeout_s: 5", "query_timeout_s: " + queryTimeoutSeconds.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal);
+            .Replace(
+                "range_change_settle_s: 0.1",
+                "range_change_settle_s: " + settleSeconds.ToString(CultureInfo.InvariantCulture),
+                StringComparison.Ordinal
+            )
+            .Replace(
+                "query_timeout_s: 5",
+                "query_timeout_s: " + queryTimeoutSeconds.ToString(CultureInfo.InvariantCulture),
+                StringComparison.Ordinal
+            );
         return MeterProfileLoader.Parse(text, path);
     }
 }

@@ -89,7 +89,9 @@ public abstract class MessageLinkContractTests
     {
         await using var t = await CreateLinkAsync();
         var timeout = TimeSpan.FromMilliseconds(150);
-        var ex = await Assert.ThrowsAsync<InstrumentTimeoutException>(() => t.Link.ReadLineAsync(timeout, CancellationToken.None).AsTask());
+        var ex = await Assert.ThrowsAsync<InstrumentTimeoutException>(() =>
+            t.Link.ReadLineAsync(timeout, CancellationToken.None).AsTask()
+        );
         Assert.Equal(timeout, ex.Timeout);
         Assert.False(t.Link.IsBroken);
         await t.Peer.SendAsync("late\n");
@@ -101,7 +103,9 @@ public abstract class MessageLinkContractTests
     {
         await using var t = await CreateLinkAsync();
         using var cts = new CancellationTokenSource(TimeSpan.FromMilliseconds(100));
-        var ex = await Assert.ThrowsAnyAsync<OperationCanceledException>(() => t.Link.ReadLineAsync(TimeSpan.FromSeconds(30), cts.Token).AsTask());
+        var ex = await Assert.ThrowsAnyAsync<OperationCanceledException>(() =>
+            t.Link.ReadLineAsync(TimeSpan.FromSeconds(30), cts.Token).AsTask()
+        );
         Assert.IsNotType<InstrumentTimeoutException>(ex);
         Assert.False(t.Link.IsBroken);
     }
@@ -122,9 +126,13 @@ public abstract class MessageLinkContractTests
     {
         await using var t = await CreateLinkAsync();
         await t.Peer.DropAsync();
-        await Assert.ThrowsAsync<InstrumentLinkException>(() => t.Link.ReadLineAsync(s_wait, CancellationToken.None).AsTask());
+        await Assert.ThrowsAsync<InstrumentLinkException>(() =>
+            t.Link.ReadLineAsync(s_wait, CancellationToken.None).AsTask()
+        );
         Assert.True(t.Link.IsBroken);
-        var again = await Assert.ThrowsAsync<InstrumentLinkException>(() => t.Link.WriteLineAsync("*IDN?", CancellationToken.None).AsTask());
+        var again = await Assert.ThrowsAsync<InstrumentLinkException>(() =>
+            t.Link.WriteLineAsync("*IDN?", CancellationToken.None).AsTask()
+        );
         Assert.Contains("broken", again.Message, StringComparison.Ordinal);
     }
 
@@ -132,7 +140,9 @@ public abstract class MessageLinkContractTests
     public async Task WriteLine_LineContainsTerminator_Rejected()
     {
         await using var t = await CreateLinkAsync();
-        await Assert.ThrowsAsync<ArgumentException>(() => t.Link.WriteLineAsync("A\nB", CancellationToken.None).AsTask());
+        await Assert.ThrowsAsync<ArgumentException>(() =>
+            t.Link.WriteLineAsync("A\nB", CancellationToken.None).AsTask()
+        );
     }
 
     /// <summary>Reads exactly <paramref name="length"/> bytes from a stream, or fails after 3 s.</summary>

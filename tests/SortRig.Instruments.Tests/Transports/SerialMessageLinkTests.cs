@@ -17,7 +17,9 @@ public sealed class SerialMessageLinkTests : MessageLinkContractTests
     protected override async Task<LinkUnderTest> CreateLinkAsync(MessageLinkOptions options)
     {
         var pair = await SocatPair.StartAsync();
-        var resource = ResourceStringParser.Parse($"ASRL::{pair.EndA}::INSTR?baud=115200&parity=none&data=8&stop=1&flow=none");
+        var resource = ResourceStringParser.Parse(
+            $"ASRL::{pair.EndA}::INSTR?baud=115200&parity=none&data=8&stop=1&flow=none"
+        );
         var link = await new MessageLinkFactory().OpenAsync(resource, options, null, CancellationToken.None);
         var far = new SerialPort(pair.EndB, 115200, Parity.None, 8, StopBits.One);
         far.Open();

@@ -30,8 +30,11 @@ public sealed class TcpMessageLinkTests : MessageLinkContractTests
         var port = ((IPEndPoint)listener.LocalEndpoint).Port;
         listener.Stop();
         var resource = ResourceStringParser.Parse($"TCPIP::127.0.0.1::{port}::SOCKET");
-        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(
-            () => new MessageLinkFactory().OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None).AsTask());
+        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(() =>
+            new MessageLinkFactory()
+                .OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None)
+                .AsTask()
+        );
         Assert.Contains($"127.0.0.1:{port}", ex.Message, StringComparison.Ordinal);
     }
 

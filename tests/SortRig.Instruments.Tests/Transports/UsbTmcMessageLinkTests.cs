@@ -54,8 +54,11 @@ public sealed class UsbTmcMessageLinkTests : IDisposable
     public async Task Open_MissingDevice_ThrowsLinkExceptionNamingThePath()
     {
         var resource = ResourceStringParser.Parse("USBTMC::/dev/usbtmc-absent-99::INSTR");
-        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(
-            () => new MessageLinkFactory().OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None).AsTask());
+        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(() =>
+            new MessageLinkFactory()
+                .OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None)
+                .AsTask()
+        );
         Assert.Contains("no such device '/dev/usbtmc-absent-99'", ex.Message, StringComparison.Ordinal);
         Assert.True(ex.OpenFailed);
     }
@@ -65,14 +68,25 @@ public sealed class UsbTmcMessageLinkTests : IDisposable
     {
         // SerialPort alone reports a missing /dev/tty* as "access denied" (seen on this machine kind).
         var resource = ResourceStringParser.Parse("ASRL::/dev/ttyUSB-absent-99::INSTR");
-        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(
-            () => new MessageLinkFactory().OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None).AsTask());
-        Assert.Contains("no such device '/dev/ttyUSB-absent-99'; check the cable", ex.Message, StringComparison.Ordinal);
+        var ex = await Assert.ThrowsAsync<InstrumentLinkException>(() =>
+            new MessageLinkFactory()
+                .OpenAsync(resource, MessageLinkOptions.Default, null, CancellationToken.None)
+                .AsTask()
+        );
+        Assert.Contains(
+            "no such device '/dev/ttyUSB-absent-99'; check the cable",
+            ex.Message,
+            StringComparison.Ordinal
+        );
         Assert.DoesNotContain("denied", ex.Message, StringComparison.OrdinalIgnoreCase);
         Assert.True(ex.OpenFailed);
     }
 
     private async Task<IMessageLink> Open() =>
         await new MessageLinkFactory().OpenAsync(
-            ResourceStringParser.Parse($"USBTMC::{_fifo}::INSTR"), MessageLinkOptions.Default, null, CancellationToken.None);
+            ResourceStringParser.Parse($"USBTMC::{_fifo}::INSTR"),
+            MessageLinkOptions.Default,
+            null,
+            CancellationToken.None
+        );
 }

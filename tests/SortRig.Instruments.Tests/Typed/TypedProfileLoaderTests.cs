@@ -31,10 +31,25 @@ public sealed class TypedProfileLoaderTests
     }
 
     [Theory]
-    [InlineData("family: x\ncounts: 50000\nranges:\n  - { full_scale: 500, reading_pct: 0.1, digits: 2 }\n  - { full_scale: 400, reading_pct: 0.1, digits: 2 }\n",
-        5, "ranges[1].full_scale", "ascending")]
-    [InlineData("family: x\ncounts: 5\nranges:\n  - { full_scale: 500, reading_pct: 0.1, digits: 2 }\n", 2, "counts", "100 to")]
-    [InlineData("family: x\ncounts: 50000\nranges:\n  - { full_scale: 500, reading_pct: 0.1, digit: 2 }\n", 4, "ranges[0].digit", "unknown key")]
+    [InlineData(
+        "family: x\ncounts: 50000\nranges:\n  - { full_scale: 500, reading_pct: 0.1, digits: 2 }\n  - { full_scale: "
+            + "400, reading_pct: 0.1, digits: 2 }\n",
+        5,
+        "ranges[1].full_scale",
+        "ascending"
+    )]
+    [InlineData(
+        "family: x\ncounts: 5\nranges:\n  - { full_scale: 500, reading_pct: 0.1, digits: 2 }\n",
+        2,
+        "counts",
+        "100 to"
+    )]
+    [InlineData(
+        "family: x\ncounts: 50000\nranges:\n  - { full_scale: 500, reading_pct: 0.1, digit: 2 }\n",
+        4,
+        "ranges[0].digit",
+        "unknown key"
+    )]
     [InlineData("family: X_Y\ncounts: 50000\nranges: []\n", 1, "family", "not a family name")]
     public void Parse_BadProfile_ErrorNamesLineAndField(string yaml, int line, string field, string words)
     {

@@ -44,8 +44,7 @@ public sealed class ChartLimitsTests
     }
 
     [Fact]
-    public void FromHistory_OneValue_Throws() =>
-        Assert.Throws<ArgumentException>(() => ChartLimits.FromHistory([1.0]));
+    public void FromHistory_OneValue_Throws() => Assert.Throws<ArgumentException>(() => ChartLimits.FromHistory([1.0]));
 
     [Fact]
     public void Provisional_ThreeSigmaAroundCentre()

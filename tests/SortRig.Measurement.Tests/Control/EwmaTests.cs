@@ -9,8 +9,26 @@ public sealed class EwmaTests
     // = 52.5884 / 47.4115, and its EWMA column begins 50.60, 49.52, 50.56.
     private static readonly double[] s_data =
     [
-        52.0, 47.0, 53.0, 49.3, 50.1, 47.0, 51.0, 50.1, 51.2, 50.5,
-        49.6, 47.6, 49.9, 51.3, 47.8, 51.2, 52.6, 52.4, 53.6, 52.1,
+        52.0,
+        47.0,
+        53.0,
+        49.3,
+        50.1,
+        47.0,
+        51.0,
+        50.1,
+        51.2,
+        50.5,
+        49.6,
+        47.6,
+        49.9,
+        51.3,
+        47.8,
+        51.2,
+        52.6,
+        52.4,
+        53.6,
+        52.1,
     ];
 
     private static readonly EwmaOptions s_options = new() { Lambda = 0.3, Width = 3 };

@@ -18,11 +18,13 @@ public sealed class MeterHealthTests
     public void Judge_WarnsOnlyWhenMovedBeyondAllowance_FromTheFirstSessionInTimeOrder()
     {
         var rows = MeterHealth.Judge(
-        [
-            new SessionGain("c", s_t0.AddDays(60), -30, 4),
-            new SessionGain("a", s_t0, 10, 6),
-            new SessionGain("b", s_t0.AddDays(30), 40, 5),
-        ], allowedPpm: 35);
+            [
+                new SessionGain("c", s_t0.AddDays(60), -30, 4),
+                new SessionGain("a", s_t0, 10, 6),
+                new SessionGain("b", s_t0.AddDays(30), 40, 5),
+            ],
+            allowedPpm: 35
+        );
 
         Assert.Equal(["a", "b", "c"], rows.Select(r => r.Gain.Session));
         Assert.Equal([0.0, 30.0, -40.0], rows.Select(r => r.MovedPpm));

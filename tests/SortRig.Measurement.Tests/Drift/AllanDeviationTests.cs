@@ -4,8 +4,8 @@ namespace SortRig.Measurement.Tests.Drift;
 
 public sealed class AllanDeviationTests
 {
-    // NIST SP 1065 (2008) sec. 12 (page number not kept; section from memory), 1000-point test suite, overlapping Allan deviation at tau = 1, 10, 100
-    // (values also quoted beside the same recipe in public stability-analysis test code).
+    // NIST SP 1065 (2008) sec. 12 (page number not kept; section from memory), 1000-point test suite, overlapping Allan
+    // deviation at tau = 1, 10, 100 (values also quoted beside the same recipe in public stability-analysis test code).
     [Theory]
     [InlineData(1, 2.922319e-01, 999)]
     [InlineData(10, 9.159953e-02, 981)]
@@ -94,7 +94,11 @@ public sealed class AllanDeviationTests
     [Fact]
     public void FractionalDeviations_AreRelativeToReference()
     {
-        Assert.Equal([1e-6, -2e-6], AllanDeviation.FractionalDeviations([1000.001, 999.998], 1000.0), new ToleranceComparer(1e-15));
+        Assert.Equal(
+            [1e-6, -2e-6],
+            AllanDeviation.FractionalDeviations([1000.001, 999.998], 1000.0),
+            new ToleranceComparer(1e-15)
+        );
     }
 
     /// <summary>SP 1065 overlapping ADEV, frequency-data form, written as the literal double sum.</summary>

@@ -7,7 +7,8 @@ public sealed class HandRangeRuleTests
     [Fact]
     public void Choose_TenKilohmOnePercent_SetsFiftyKilohmRange_NoWarnings()
     {
-        // Largest part 10 000 × 1.01 × 1.02 = 10 302 Ohm (arithmetic): above 4 999.9 (5 k range), below 49 999 (50 k range).
+        // Largest part 10 000 × 1.01 × 1.02 = 10 302 Ohm (arithmetic): above 4 999.9 (5 k range), below 49 999 (50 k
+        // range).
         var d = HandRangeRule.Choose(TypedMeter.Spec, new HandRangeRequest(10_000, 0.01, 0.001));
 
         Assert.Equal(50_000, d.Range.FullScale);
@@ -55,14 +56,19 @@ public sealed class HandRangeRuleTests
     }
 
     [Theory]
-    [InlineData(100, 500)]        // 100 × 1.0302 = 103 Ohm: the 500 Ohm range shows 499.99
-    [InlineData(4_700, 5_000)]    // 4 842 Ohm < 4 999.9
-    [InlineData(4_990, 50_000)]   // 5 084 Ohm > 4 999.9: the next range up
+    [InlineData(100, 500)] // 100 × 1.0302 = 103 Ohm: the 500 Ohm range shows 499.99
+    [InlineData(4_700, 5_000)] // 4 842 Ohm < 4 999.9
+    [InlineData(4_990, 50_000)] // 5 084 Ohm > 4 999.9: the next range up
     [InlineData(1e6, 5e6)]
     public void Recommend_LowestRangeThatShowsTheLargestPart(double nominal, double fullScale) =>
-        Assert.Equal(fullScale, HandRangeRule.Recommend(TypedMeter.Spec, new HandRangeRequest(nominal, 0.01, 0.001)).FullScale);
+        Assert.Equal(
+            fullScale,
+            HandRangeRule.Recommend(TypedMeter.Spec, new HandRangeRequest(nominal, 0.01, 0.001)).FullScale
+        );
 
     [Fact]
     public void Recommend_AboveEveryRange_Throws() =>
-        Assert.Throws<ArgumentException>(() => HandRangeRule.Recommend(TypedMeter.Spec, new HandRangeRequest(100e6, 0.01, 0.001)));
+        Assert.Throws<ArgumentException>(() =>
+            HandRangeRule.Recommend(TypedMeter.Spec, new HandRangeRequest(100e6, 0.01, 0.001))
+        );
 }

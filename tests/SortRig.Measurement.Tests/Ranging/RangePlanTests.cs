@@ -9,7 +9,10 @@ public sealed class RangePlanTests
     [Fact]
     public void Plan_SameRange_HasNoTransfers()
     {
-        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(4_990, 0.01, 0.001, 1, true), new RangeRequest(10_000, 0.01, 0.001, 1, true)]);
+        var plan = RangeRule.Plan(
+            InventedMeter.Spec(),
+            [new RangeRequest(4_990, 0.01, 0.001, 1, true), new RangeRequest(10_000, 0.01, 0.001, 1, true)]
+        );
         Assert.False(plan.SpansRanges);
         Assert.True(plan.AllResolvable);
     }
@@ -17,7 +20,10 @@ public sealed class RangePlanTests
     [Fact]
     public void Plan_TenAndTwentyKilohm_OffersTransferWithSpecGainUncertainty()
     {
-        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.001, 1, true), new RangeRequest(20_000, 0.01, 0.001, 1, true)]);
+        var plan = RangeRule.Plan(
+            InventedMeter.Spec(),
+            [new RangeRequest(10_000, 0.01, 0.001, 1, true), new RangeRequest(20_000, 0.01, 0.001, 1, true)]
+        );
 
         var t = Assert.Single(plan.Transfers);
         Assert.Equal(10_000, t.LowRange.FullScale);
@@ -39,7 +45,10 @@ public sealed class RangePlanTests
     public void Plan_TightMatchAcrossRanges_NeedsTheCorrection()
     {
         // 0.01 % match: allowed 2.5e-5 relative; uncorrected 1.47e-4 fails, corrected 2 × 5.81e-6 = 1.16e-5 passes.
-        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]);
+        var plan = RangeRule.Plan(
+            InventedMeter.Spec(),
+            [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]
+        );
         var t = Assert.Single(plan.Transfers);
         Assert.False(t.UncorrectedResolvable);
         Assert.True(t.CorrectedResolvable);
@@ -48,7 +57,10 @@ public sealed class RangePlanTests
     [Fact]
     public void Correction_BridgingPart_GivesFactorAndUncertainty()
     {
-        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]);
+        var plan = RangeRule.Plan(
+            InventedMeter.Spec(),
+            [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]
+        );
         var t = plan.Transfers[0];
         var c = t.Correction(new MeasuredValue(10_000.50, 0.7, 0.015), new MeasuredValue(10_000.80, 0.7, 0.054));
 
@@ -64,8 +76,12 @@ public sealed class RangePlanTests
     [Fact]
     public void Inverted_PutsLowRangeValuesOnTheHighRangesScale_SameRelativeUncertainty()
     {
-        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]);
-        var c = plan.Transfers[0].Correction(new MeasuredValue(10_000.50, 0.7, 0.015), new MeasuredValue(10_000.80, 0.7, 0.054));
+        var plan = RangeRule.Plan(
+            InventedMeter.Spec(),
+            [new RangeRequest(10_000, 0.01, 0.0001, 1, true), new RangeRequest(20_000, 0.01, 0.0001, 1, true)]
+        );
+        var c = plan.Transfers[0]
+            .Correction(new MeasuredValue(10_000.50, 0.7, 0.015), new MeasuredValue(10_000.80, 0.7, 0.054));
 
         var inverse = c.Inverted();
 
@@ -73,7 +89,10 @@ public sealed class RangePlanTests
         // (JCGM 100:2008 sec. 5.1.6: relative uncertainties of X^p scale by |p|, here p = -1).
         Assert.Equal(1.0000299985, inverse.Factor, 9);
         Assert.Equal(c.RelativeStandardUncertainty, inverse.RelativeStandardUncertainty);
-        Assert.Equal((c.FromRangeFullScale, c.ToRangeFullScale), (inverse.ToRangeFullScale, inverse.FromRangeFullScale));
+        Assert.Equal(
+            (c.FromRangeFullScale, c.ToRangeFullScale),
+            (inverse.ToRangeFullScale, inverse.FromRangeFullScale)
+        );
         // The bridging part's low-range reading lands on its high-range reading.
         Assert.Equal(10_000.80, inverse.Apply(new MeasuredValue(10_000.50, 0.7, 0.015)).Value, 6);
     }
@@ -81,8 +100,13 @@ public sealed class RangePlanTests
     [Fact]
     public void Correction_DifferentParts_Throws()
     {
-        var plan = RangeRule.Plan(InventedMeter.Spec(), [new RangeRequest(10_000, 0.01, 0.001, 1, true), new RangeRequest(20_000, 0.01, 0.001, 1, true)]);
-        Assert.Throws<ArgumentException>(() => plan.Transfers[0].Correction(new MeasuredValue(10_000, 1, 0.1), new MeasuredValue(20_000, 1, 0.1)));
+        var plan = RangeRule.Plan(
+            InventedMeter.Spec(),
+            [new RangeRequest(10_000, 0.01, 0.001, 1, true), new RangeRequest(20_000, 0.01, 0.001, 1, true)]
+        );
+        Assert.Throws<ArgumentException>(() =>
+            plan.Transfers[0].Correction(new MeasuredValue(10_000, 1, 0.1), new MeasuredValue(20_000, 1, 0.1))
+        );
     }
 
     private static double Sq(double x) => x * x;

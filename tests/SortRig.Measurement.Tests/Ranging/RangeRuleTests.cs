@@ -20,7 +20,8 @@ public sealed class RangeRuleTests
         // 1 ppm of range at 1 NPLC: 0.01 Ohm = 1 ppm of nominal.
         Assert.Equal(0.01, d.ResolutionOhms, 12);
         Assert.Equal(1.0, d.ResolutionPpm, 9);
-        // 24 h: 0.0025 % × 10 k + 0.0004 % × 10 k = 0.25 + 0.04 = 0.29 Ohm; 1 y: 0.0085 % + 0.0006 % → 0.85 + 0.06 = 0.91 Ohm.
+        // 24 h: 0.0025 % × 10 k + 0.0004 % × 10 k = 0.25 + 0.04 = 0.29 Ohm; 1 y: 0.0085 % + 0.0006 % → 0.85 + 0.06 =
+        // 0.91 Ohm.
         Assert.Equal(0.29, d.SpecHalfWidth24Hours, 12);
         Assert.Equal(0.91, d.SpecHalfWidth1Year, 12);
         // Transfer: resolution 0.005/√3, noise 0.7 ppm × 10 k / √8, short term 0.1 × 0.29/√3 (u ≈ 0.01717 Ohm).
@@ -53,7 +54,8 @@ public sealed class RangeRuleTests
         Assert.Equal(RangeVerdict.Refused, d.Verdict);
         Assert.Equal(0.025, d.AllowedExpanded, 12);
         var four = Assert.Single(d.Remedies, r => r.Kind == RemedyKind.UseFourWire);
-        // 4-wire: resolution 0.5e-4/√3, noise 0.7e-4/√8, short term 0.1 × (0.0040 % + 0.0025 %) × 100 / √3 = 0.00065/√3.
+        // 4-wire: resolution 0.5e-4/√3, noise 0.7e-4/√8, short term 0.1 × (0.0040 % + 0.0025 %) × 100 / √3 =
+        // 0.00065/√3.
         var u4 = Math.Sqrt(Sq(0.5e-4 / s_root3) + Sq(0.7e-4 / Math.Sqrt(8)) + Sq(0.00065 / s_root3));
         Assert.Equal(u4, four.TransferUncertainty, 12);
         Assert.True(four.Resolves);
@@ -69,15 +71,19 @@ public sealed class RangeRuleTests
     [Fact]
     public void Choose_FastNplcTightMatch_ProposesLowestSufficientNplc()
     {
-        // 0.04 NPLC on 10 kOhm: step 40 ppm = 0.4 Ohm → 0.2/√3 = 0.1155 Ohm; noise 12 ppm = 0.12 Ohm/√8; short term 0.029/√3:
-        // U ≈ 0.248 Ohm > 0.25 × 0.005 % × 10 k = 0.125 Ohm.
+        // 0.04 NPLC on 10 kOhm: step 40 ppm = 0.4 Ohm → 0.2/√3 = 0.1155 Ohm; noise 12 ppm = 0.12 Ohm/√8; short term
+        // 0.029/√3: U ≈ 0.248 Ohm > 0.25 × 0.005 % × 10 k = 0.125 Ohm.
         var d = RangeRule.Choose(InventedMeter.Spec(), new RangeRequest(10_000, 0.01, 0.00005, 0.04, true));
         Assert.Equal(RangeVerdict.Refused, d.Verdict);
         // 0.4 NPLC: 0.02/√3, 0.02/√8, 0.029/√3 → U ≈ 0.0431 Ohm <= 0.125 Ohm.
         var nplc = Assert.Single(d.Remedies, r => r.Kind == RemedyKind.RaiseNplc);
         Assert.Equal(0.4, nplc.Setting);
         Assert.True(nplc.Resolves);
-        Assert.Equal(2 * Math.Sqrt(Sq(0.02 / s_root3) + Sq(0.02 / Math.Sqrt(8)) + Sq(0.029 / s_root3)), nplc.ExpandedTransfer, 12);
+        Assert.Equal(
+            2 * Math.Sqrt(Sq(0.02 / s_root3) + Sq(0.02 / Math.Sqrt(8)) + Sq(0.029 / s_root3)),
+            nplc.ExpandedTransfer,
+            12
+        );
     }
 
     [Fact]
@@ -121,21 +127,27 @@ public sealed class RangeRuleTests
     public void Choose_AboveLargestRange_ThrowsWithTheLimits()
     {
         // 70 MOhm × 1.01 × 1.02 = 72.1 MOhm > 62.5 MOhm, the 50 MOhm range limit (1.25 × 50 MOhm).
-        var ex = Assert.Throws<ArgumentException>(() => RangeRule.Choose(InventedMeter.Spec(), new RangeRequest(70e6, 0.01, 0.001, 1, true)));
+        var ex = Assert.Throws<ArgumentException>(() =>
+            RangeRule.Choose(InventedMeter.Spec(), new RangeRequest(70e6, 0.01, 0.001, 1, true))
+        );
         Assert.Contains("6.25E+07", ex.Message, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Choose_UnknownNplc_ThrowsListingSettings()
     {
-        var ex = Assert.Throws<ArgumentException>(() => RangeRule.Choose(InventedMeter.Spec(), new RangeRequest(10_000, 0.01, 0.001, 5, true)));
+        var ex = Assert.Throws<ArgumentException>(() =>
+            RangeRule.Choose(InventedMeter.Spec(), new RangeRequest(10_000, 0.01, 0.001, 5, true))
+        );
         Assert.Contains("0.04, 0.4, 1, 4, 10, 40", ex.Message, StringComparison.Ordinal);
     }
 
     [Fact]
     public void Choose_FourWireOnTwoWireMeter_Throws()
     {
-        Assert.Throws<ArgumentException>(() => RangeRule.Choose(InventedMeter.Spec(fourWire: false), new RangeRequest(100, 0.01, 0.001, 1, true)));
+        Assert.Throws<ArgumentException>(() =>
+            RangeRule.Choose(InventedMeter.Spec(fourWire: false), new RangeRequest(100, 0.01, 0.001, 1, true))
+        );
     }
 
     [Fact]

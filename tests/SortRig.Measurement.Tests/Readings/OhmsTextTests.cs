@@ -29,7 +29,8 @@ public sealed class OhmsTextTests
     [InlineData(4_990, "4.990 kOhm")] // four digits: only whole trailing-zero decimals go
     [InlineData(100, "100 Ohm")]
     [InlineData(2_000_000, "2 MOhm")]
-    public void Nominal_DropsTrailingZeros(double ohms, string expected) => Assert.Equal(expected, OhmsText.Nominal(ohms));
+    public void Nominal_DropsTrailingZeros(double ohms, string expected) =>
+        Assert.Equal(expected, OhmsText.Nominal(ohms));
 
     [Theory]
     [InlineData(4_990, "4.99k Ω", "4k99")]

@@ -125,7 +125,8 @@ public sealed class ExponentialFitterTests
     [Fact]
     public void RunsTest_FourUpFourDown_MatchesHandDerivedZ()
     {
-        // Wald-Wolfowitz: n1 = n2 = 4, R = 2: mu = 2*16/8 + 1 = 5, var = 32 (32 - 8) / (64 * 7) = 12/7, z = -3 / sqrt(12/7).
+        // Wald-Wolfowitz: n1 = n2 = 4, R = 2: mu = 2*16/8 + 1 = 5, var = 32 (32 - 8) / (64 * 7) = 12/7, z = -3 /
+        // sqrt(12/7).
         double[] residuals = [1, 1, 1, 1, -1, -1, -1, -1];
 
         Assert.Equal(-3 / Math.Sqrt(12.0 / 7), RunsTest.Z(residuals), 12);

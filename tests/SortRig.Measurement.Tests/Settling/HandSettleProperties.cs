@@ -37,7 +37,9 @@ public sealed class HandSettleProperties
                 var agreeing = verdict.Entries!.TakeLast(k).Select(e => e.Value).ToArray();
                 Assert.True(agreeing.Max() - agreeing.Min() <= 1.0 + 1e-9);
                 Assert.InRange(verdict.Value!.Value, agreeing.Min(), agreeing.Max());
-                Assert.All(verdict.Entries!.Zip(verdict.Entries!.Skip(1)), p => Assert.True(p.Second.Time - p.First.Time >= TimeSpan.FromSeconds(3)));
+                Assert.All(verdict.Entries!.Zip(verdict.Entries!.Skip(1)), p =>
+                    Assert.True(p.Second.Time - p.First.Time >= TimeSpan.FromSeconds(3))
+                );
                 return;
             }
 

@@ -4,7 +4,8 @@ using SortRig.Measurement.Settling;
 
 namespace SortRig.Measurement.Tests.Settling;
 
-/// <summary>The settle rule for people typing a display (50 kOhm range of the invented hand-held: one digit = 1 Ohm).</summary>
+/// <summary>The settle rule for people typing a display (50 kOhm range of the invented hand-held: one digit = 1
+/// Ohm).</summary>
 public sealed class HandSettleTests
 {
     private readonly FakeTimeProvider _time = new(new DateTimeOffset(2026, 12, 3, 8, 0, 0, TimeSpan.Zero));
@@ -52,8 +53,14 @@ public sealed class HandSettleTests
             _time.Advance(TimeSpan.FromSeconds(5));
         }
 
-        Assert.Equal([HandSettleState.Confirming, HandSettleState.Moving, HandSettleState.Moving, HandSettleState.Accepted], states.Select(s => s.State));
-        Assert.Equal("the reading moved from 10.012 kOhm to 10.008 kOhm: let go of the part, wait a few seconds, read again", states[1].Prompt);
+        Assert.Equal(
+            [HandSettleState.Confirming, HandSettleState.Moving, HandSettleState.Moving, HandSettleState.Accepted],
+            states.Select(s => s.State)
+        );
+        Assert.Equal(
+            "the reading moved from 10.012 kOhm to 10.008 kOhm: let go of the part, wait a few seconds, read again",
+            states[1].Prompt
+        );
         Assert.Equal(10_004.5, states[3].Value!.Value, 9);
         Assert.Equal(4, states[3].Entries!.Count);
     }
@@ -69,7 +76,10 @@ public sealed class HandSettleTests
         _time.Advance(TimeSpan.FromSeconds(3));
         var c = settle.Add(Entry(10_002));
 
-        Assert.Equal([HandSettleState.Confirming, HandSettleState.Confirming, HandSettleState.Accepted], new[] { a.State, b.State, c.State });
+        Assert.Equal(
+            [HandSettleState.Confirming, HandSettleState.Confirming, HandSettleState.Accepted],
+            new[] { a.State, b.State, c.State }
+        );
     }
 
     [Fact]
@@ -101,7 +111,9 @@ public sealed class HandSettleTests
     {
         var settle = new HandSettle(TypedMeter.R50k);
         settle.Add(Entry(10_000));
-        Assert.Throws<ArgumentException>(() => settle.Add(Reading.Finite(10_000, _time.GetUtcNow().AddSeconds(-1), 50_000)));
+        Assert.Throws<ArgumentException>(() =>
+            settle.Add(Reading.Finite(10_000, _time.GetUtcNow().AddSeconds(-1), 50_000))
+        );
     }
 
     private Reading Entry(double ohms) => Reading.Finite(ohms, _time.GetUtcNow(), 50_000);

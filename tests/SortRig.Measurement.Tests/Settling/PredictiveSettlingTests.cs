@@ -8,12 +8,13 @@ public sealed class PredictiveSettlingTests
     private const double TargetPpm = 5;
     private const double R = ReadingScript.Range;
 
-    private static SettleOptions Averaging => SettleOptions.Default with
-    {
-        Target = SettleTarget.Ppm(TargetPpm),
-        MaxSettleTime = TimeSpan.FromSeconds(40),
-        SettlingSpan = TimeSpan.FromSeconds(4),
-    };
+    private static SettleOptions Averaging =>
+        SettleOptions.Default with
+        {
+            Target = SettleTarget.Ppm(TargetPpm),
+            MaxSettleTime = TimeSpan.FromSeconds(40),
+            SettlingSpan = TimeSpan.FromSeconds(4),
+        };
 
     private static SettleOptions Predictive => Averaging with { Predictive = PredictiveOptions.Default };
 
@@ -21,11 +22,16 @@ public sealed class PredictiveSettlingTests
     private static List<SortRig.Measurement.Readings.Reading> Recovery(int seed, Func<double, double>? extra = null)
     {
         var noise = Gaussian(seed, 0.005);
-        return [.. Sampled(0, 0.041, 1200, t => R * (1 + (60e-6 * Math.Exp(-t / 4))) + noise() + (extra?.Invoke(t) ?? 0))];
+        return
+        [
+            .. Sampled(0, 0.041, 1200, t => R * (1 + (60e-6 * Math.Exp(-t / 4))) + noise() + (extra?.Invoke(t) ?? 0)),
+        ];
     }
 
-    private static SettleAcceptance Accept(SettleOptions options, IEnumerable<SortRig.Measurement.Readings.Reading> readings) =>
-        Tracker(options).Feed(readings).Single(v => v.State == SettleState.Accepted).Acceptance!;
+    private static SettleAcceptance Accept(
+        SettleOptions options,
+        IEnumerable<SortRig.Measurement.Readings.Reading> readings
+    ) => Tracker(options).Feed(readings).Single(v => v.State == SettleState.Accepted).Acceptance!;
 
     [Theory]
     [InlineData(1)]
@@ -40,7 +46,10 @@ public sealed class PredictiveSettlingTests
 
         Assert.Equal(SettleRule.Predictive, predicted.AcceptedBy);
         Assert.NotNull(predicted.Fit);
-        Assert.True(predicted.TimeToSettle < averaged.TimeToSettle / 2, $"{predicted.TimeToSettle} vs {averaged.TimeToSettle}");
+        Assert.True(
+            predicted.TimeToSettle < averaged.TimeToSettle / 2,
+            $"{predicted.TimeToSettle} vs {averaged.TimeToSettle}"
+        );
         Assert.InRange(predicted.Value.Value, R * (1 - (2 * TargetPpm * 1e-6)), R * (1 + (2 * TargetPpm * 1e-6)));
         Assert.True(predicted.Fit!.StandardUncertainty <= TargetPpm * 1e-6 * R);
         Assert.Equal(SettleRule.Averaging, averaged.AcceptedBy);
@@ -60,7 +69,11 @@ public sealed class PredictiveSettlingTests
 
         Assert.Equal(SettleRule.Averaging, withPrediction.AcceptedBy);
         Assert.Equal(averagingOnly.TimeToSettle, withPrediction.TimeToSettle);
-        Assert.InRange(withPrediction.Value.Value - (R * (1 + 8e-6)), -2 * TargetPpm * 1e-6 * R, 2 * TargetPpm * 1e-6 * R);
+        Assert.InRange(
+            withPrediction.Value.Value - (R * (1 + 8e-6)),
+            -2 * TargetPpm * 1e-6 * R,
+            2 * TargetPpm * 1e-6 * R
+        );
     }
 
     [Fact]

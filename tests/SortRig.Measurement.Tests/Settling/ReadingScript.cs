@@ -12,7 +12,8 @@ internal static class ReadingScript
     public const double Range = 10_000;
     public static readonly DateTimeOffset Start = new(2025, 3, 1, 9, 0, 0, TimeSpan.Zero);
 
-    public static Reading At(double seconds, double value) => Reading.Finite(value, Start + TimeSpan.FromSeconds(seconds), Range);
+    public static Reading At(double seconds, double value) =>
+        Reading.Finite(value, Start + TimeSpan.FromSeconds(seconds), Range);
 
     public static Reading OverloadAt(double seconds) => Reading.Overload(Start + TimeSpan.FromSeconds(seconds), Range);
 
@@ -30,7 +31,8 @@ internal static class ReadingScript
     public static Func<double> Gaussian(int seed, double sigma)
     {
         var random = new Random(seed);
-        return () => sigma * Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
+        return () =>
+            sigma * Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble());
     }
 
     public static SettleTracker Tracker(SettleOptions? options = null) =>

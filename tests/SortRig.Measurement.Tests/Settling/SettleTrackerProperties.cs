@@ -31,9 +31,14 @@ public sealed class SettleTrackerProperties
 
             if (verdict.State == SettleState.Accepted)
             {
-                Assert.True(counted >= Math.Max(c.MinReadings, c.WindowLength), $"accepted after {counted} counted readings");
+                Assert.True(
+                    counted >= Math.Max(c.MinReadings, c.WindowLength),
+                    $"accepted after {counted} counted readings"
+                );
                 Assert.Equal(c.WindowLength, verdict.Acceptance!.Readings.Count);
-                Assert.All(verdict.Acceptance.Readings, r => Assert.True(r.IsFinite && r.Time - insertion!.Value >= s_bounce));
+                Assert.All(verdict.Acceptance.Readings, r =>
+                    Assert.True(r.IsFinite && r.Time - insertion!.Value >= s_bounce)
+                );
             }
 
             if (verdict.State == SettleState.Removed)
@@ -47,7 +52,11 @@ public sealed class SettleTrackerProperties
     [Property(Arbitrary = [typeof(SettleArbitraries)])]
     public void NeverAcceptsTwiceWithoutRemoval(ScriptCase c)
     {
-        var tracker = new SettleTracker(InventedMeter.R10k, InventedMeter.One, new SettleOptions { WindowLength = c.WindowLength, MinReadings = c.MinReadings });
+        var tracker = new SettleTracker(
+            InventedMeter.R10k,
+            InventedMeter.One,
+            new SettleOptions { WindowLength = c.WindowLength, MinReadings = c.MinReadings }
+        );
         var acceptedSinceRemoval = false;
         foreach (var verdict in tracker.Feed(c.Readings()))
         {
@@ -64,7 +73,11 @@ public sealed class SettleTrackerProperties
     [Property(Arbitrary = [typeof(SettleArbitraries)])]
     public void RemovalAlwaysReturnsToEmpty(ScriptCase c)
     {
-        var tracker = new SettleTracker(InventedMeter.R10k, InventedMeter.One, new SettleOptions { WindowLength = c.WindowLength, MinReadings = c.MinReadings });
+        var tracker = new SettleTracker(
+            InventedMeter.R10k,
+            InventedMeter.One,
+            new SettleOptions { WindowLength = c.WindowLength, MinReadings = c.MinReadings }
+        );
         var last = Start;
         foreach (var reading in c.Readings())
         {
@@ -88,11 +101,15 @@ public sealed class SettleTrackerProperties
         if (run.Final.Acceptance is { } a)
         {
             var acceptedAt = (a.Readings[^1].Time - Start).TotalSeconds;
-            Assert.True(Math.Abs(c.ExcessOhms(acceptedAt)) <= 3 * T, $"excess {c.ExcessOhms(acceptedAt):G3} Ohm at {acceptedAt:F3} s");
+            Assert.True(
+                Math.Abs(c.ExcessOhms(acceptedAt)) <= 3 * T,
+                $"excess {c.ExcessOhms(acceptedAt):G3} Ohm at {acceptedAt:F3} s"
+            );
             Assert.True(Math.Abs(a.Value.Value - ExponentialCase.R) <= 3 * T, $"accepted {a.Value.Value:F4} Ohm");
         }
 
-        // Liveness: once the excess is a tenth of the noise (and of the target), 40 readings before the 20 s limit suffice.
+        // Liveness: once the excess is a tenth of the noise (and of the target), 40 readings before the 20 s limit
+        // suffice.
         var quiet = Math.Min(0.1 * T, 0.1 * c.NoiseOhms);
         var quietAt = c.Tau * Math.Log(Math.Max(1, Math.Abs(c.ExcessOhms(0)) / quiet));
         if (quietAt + (40 * c.Interval * 1.05) <= 20)

@@ -3,7 +3,8 @@ using static SortRig.Measurement.Tests.Settling.ReadingScript;
 
 namespace SortRig.Measurement.Tests.Settling;
 
-/// <summary>Settle rule examples at 1 NPLC (22 ms between readings) on a 10 kOhm part; target 10 ppm = 0.1 Ohm.</summary>
+/// <summary>Settle rule examples at 1 NPLC (22 ms between readings) on a 10 kOhm part; target 10 ppm = 0.1
+/// Ohm.</summary>
 public sealed class SettleTrackerTests
 {
     private const double Dt = 0.022;
@@ -51,7 +52,9 @@ public sealed class SettleTrackerTests
         var after = tracker.Add(At(7 * Dt, 10_000.0));
         Assert.Equal(1, after.Live.Flickers);
         Assert.Equal(1, after.Live.ReadingsCollected);
-        var accepted = Assert.Single(tracker.Feed(Sampled(8 * Dt, Dt, 20, _ => 10_000.0)), v => v.State == SettleState.Accepted);
+        var accepted = Assert.Single(tracker.Feed(Sampled(8 * Dt, Dt, 20, _ => 10_000.0)), v =>
+            v.State == SettleState.Accepted
+        );
         Assert.All(accepted.Acceptance!.Readings, r => Assert.True(r.Time > Start + TimeSpan.FromSeconds(6 * Dt)));
     }
 
@@ -60,7 +63,9 @@ public sealed class SettleTrackerTests
     {
         var tracker = Tracker();
         Assert.Single(tracker.Feed(Sampled(0, Dt, 30, _ => 10_000.0)), v => v.State == SettleState.Accepted);
-        Assert.All(tracker.Feed(Sampled(30 * Dt, Dt, 50, _ => 10_000.0)), v => Assert.Equal(SettleState.AwaitingRemoval, v.State));
+        Assert.All(tracker.Feed(Sampled(30 * Dt, Dt, 50, _ => 10_000.0)), v =>
+            Assert.Equal(SettleState.AwaitingRemoval, v.State)
+        );
         var t = 80 * Dt;
         Assert.Equal(SettleState.AwaitingRemoval, tracker.Add(OverloadAt(t)).State);
         Assert.Equal(SettleState.AwaitingRemoval, tracker.Add(At(t + Dt, 10_000.0)).State);
@@ -75,7 +80,11 @@ public sealed class SettleTrackerTests
     {
         // 50 ppm/s = 0.5 Ohm/s, noise 0.2 ppm: slope t ≈ 35 on every window; 20 s pass without acceptance.
         var noise = Gaussian(11, 0.002);
-        var run = SettleTracker.Run(Sampled(0, Dt, 2000, t => 10_000.0 + (0.5 * t) + noise()), InventedMeter.R10k, InventedMeter.One);
+        var run = SettleTracker.Run(
+            Sampled(0, Dt, 2000, t => 10_000.0 + (0.5 * t) + noise()),
+            InventedMeter.R10k,
+            InventedMeter.One
+        );
         Assert.Equal(SettleState.Unstable, run.Final.State);
         Assert.Equal(UnstableReason.DriftingSlope, run.Final.Failure!.Reason);
         Assert.True(run.Final.Failure.Elapsed > TimeSpan.FromSeconds(20));
@@ -87,7 +96,11 @@ public sealed class SettleTrackerTests
     {
         // Noise 60 ppm rms: SEM ≈ 60/√8 = 21 ppm > 10 ppm target.
         var noise = Gaussian(5, 0.6);
-        var run = SettleTracker.Run(Sampled(0, Dt, 2000, _ => 10_000.0 + noise()), InventedMeter.R10k, InventedMeter.One);
+        var run = SettleTracker.Run(
+            Sampled(0, Dt, 2000, _ => 10_000.0 + noise()),
+            InventedMeter.R10k,
+            InventedMeter.One
+        );
         Assert.Equal(UnstableReason.NoisySem, run.Final.Failure!.Reason);
     }
 
@@ -204,7 +217,9 @@ public sealed class SettleTrackerTests
     public void Add_ReadingFromAnotherRange_Throws()
     {
         var tracker = Tracker();
-        Assert.Throws<ArgumentException>(() => tracker.Add(SortRig.Measurement.Readings.Reading.Finite(10_000, Start, 100_000)));
+        Assert.Throws<ArgumentException>(() =>
+            tracker.Add(SortRig.Measurement.Readings.Reading.Finite(10_000, Start, 100_000))
+        );
     }
 
     [Fact]

@@ -18,7 +18,12 @@ public sealed class WindowStatisticsTests
         // x = 0..4 s, y = 0 1 1 2 3 (+10 kOhm). Hand: Sxx = 10, Sxy = 7, b = 0.7, SSR = 0.30, s² = 0.1,
         // SE(b) = √(0.1/10) = 0.1, t = 7 > t(3 dof, 2-sided 5 %) = 3.182 (Student t table, from memory; 3.18245
         // by bisection on the t distribution function, textbook identity) → significant.
-        var s = WindowStatistics.Of([At(0, 10_000), At(1, 10_001), At(2, 10_001), At(3, 10_002), At(4, 10_003)], WindowStatistics.CriticalT(5, 0.05))!.Value;
+        var s = WindowStatistics
+            .Of(
+                [At(0, 10_000), At(1, 10_001), At(2, 10_001), At(3, 10_002), At(4, 10_003)],
+                WindowStatistics.CriticalT(5, 0.05)
+            )!
+            .Value;
         Assert.Equal(0.7, s.Slope, 9);
         Assert.True(s.SlopeSignificant);
         Assert.Equal(10_001.4, s.Mean, 9);
@@ -31,7 +36,12 @@ public sealed class WindowStatisticsTests
     public void Of_WeakLine_IsNotSignificant()
     {
         // y = 0 1 0 1 1: b = 0.2, SSR = 0.8, SE(b) = √(0.8/3/10) = 0.163, t = 1.22 < 3.182.
-        var s = WindowStatistics.Of([At(0, 10_000), At(1, 10_001), At(2, 10_000), At(3, 10_001), At(4, 10_001)], WindowStatistics.CriticalT(5, 0.05))!.Value;
+        var s = WindowStatistics
+            .Of(
+                [At(0, 10_000), At(1, 10_001), At(2, 10_000), At(3, 10_001), At(4, 10_001)],
+                WindowStatistics.CriticalT(5, 0.05)
+            )!
+            .Value;
         Assert.Equal(0.2, s.Slope, 9);
         Assert.False(s.SlopeSignificant);
     }

@@ -11,21 +11,22 @@ public sealed class CallendarVanDusenTests
     // Figures recalled from memory; each was checked against the standard's own equation
     // (IEC 60751 sec. 4.2 with A, B, C of the standard) before being written here: all agree to
     // within half of the last printed digit.
-    public static TheoryData<double, double> Iec60751Table => new()
-    {
-        { -200, 18.52 },
-        { -100, 60.26 },
-        { 0, 100.00 },
-        { 100, 138.51 },
-        { 200, 175.86 },
-        { 300, 212.05 },
-        { 400, 247.09 },
-        { 500, 280.98 },
-        { 600, 313.71 },
-        { 700, 345.28 },
-        { 800, 375.70 },
-        { 850, 390.48 },
-    };
+    public static TheoryData<double, double> Iec60751Table =>
+        new()
+        {
+            { -200, 18.52 },
+            { -100, 60.26 },
+            { 0, 100.00 },
+            { 100, 138.51 },
+            { 200, 175.86 },
+            { 300, 212.05 },
+            { 400, 247.09 },
+            { 500, 280.98 },
+            { 600, 313.71 },
+            { 700, 345.28 },
+            { 800, 375.70 },
+            { 850, 390.48 },
+        };
 
     [Theory]
     [MemberData(nameof(Iec60751Table))]

@@ -19,7 +19,8 @@ public sealed class BudgetTests
             new BudgetComponent("alpha_s, expansion coefficient", TypeB.Rectangular(2e-6), 0, double.PositiveInfinity),
             new BudgetComponent("theta, temperature of bed", 0.41, 0, double.PositiveInfinity),
             new BudgetComponent("delta alpha, expansion difference", TypeB.Rectangular(1e-6), -ls * theta, 50),
-            new BudgetComponent("delta theta, temperature difference", TypeB.Rectangular(0.05), -ls * alphaS, 2));
+            new BudgetComponent("delta theta, temperature difference", TypeB.Rectangular(0.05), -ls * alphaS, 2)
+        );
     }
 
     [Fact]
@@ -56,7 +57,8 @@ public sealed class BudgetTests
         var budget = new Budget(
             new BudgetComponent("x1", 0.25, 1, 9, UncertaintyKind.TypeA),
             new BudgetComponent("x2", 0.57, 1, 4, UncertaintyKind.TypeA),
-            new BudgetComponent("x3", 0.82, 1, 14, UncertaintyKind.TypeA));
+            new BudgetComponent("x3", 0.82, 1, 14, UncertaintyKind.TypeA)
+        );
         Assert.Equal(1.03, budget.CombinedStandardUncertainty, 2);
         Assert.Equal(19.0, budget.EffectiveDegreesOfFreedom, 0);
         Assert.Equal(2.09, budget.CoverageFactorAt(0.95), 2);

@@ -12,8 +12,8 @@ public sealed class DisplayUncertaintyTests
         //   (JCGM 100:2008 GUM 4.3.7, eq. (7); F.2.2.1 for the display's resolution): 0.5/1.7320508 = 0.288675 Ohm.
         // Accuracy ±(0.06 % of reading + 4 digits) at 10 003 Ohm (invented spec): a = 6.0018 + 4 = 10.0018 Ohm,
         //   rectangular again (GUM 4.3.7): u = 10.0018/1.7320508 = 5.774542 Ohm.
-        // Combined (GUM 5.1.2, uncorrelated): √(5.774542² + 0.288675²) = √(33.345336 + 0.083333) = √33.428669 = 5.781753 Ohm.
-        // Transfer (accuracy errors common to the session cancel but for the short-term fraction 0.1):
+        // Combined (GUM 5.1.2, uncorrelated): √(5.774542² + 0.288675²) = √(33.345336 + 0.083333) = √33.428669 =
+        // 5.781753 Ohm. Transfer (accuracy errors common to the session cancel but for the short-term fraction 0.1):
         //   √(0.083333 + 0.01 × 33.345336) = √0.416786 = 0.645590 Ohm.
         var v = DisplayUncertainty.For(TypedMeter.R50k, 10_003);
 

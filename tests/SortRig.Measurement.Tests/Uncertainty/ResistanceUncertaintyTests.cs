@@ -9,7 +9,17 @@ public sealed class ResistanceUncertaintyTests
     private static readonly DateTimeOffset s_start = new(2025, 3, 1, 9, 0, 0, TimeSpan.Zero);
 
     // Eight readings of a 10 kOhm part, 42 ms apart (1 NPLC at 24 rdg/s: 1/24 s = 41.7 ms).
-    private static readonly double[] s_values = [10000.012, 10000.018, 10000.015, 10000.011, 10000.019, 10000.014, 10000.016, 10000.015];
+    private static readonly double[] s_values =
+    [
+        10000.012,
+        10000.018,
+        10000.015,
+        10000.011,
+        10000.019,
+        10000.014,
+        10000.016,
+        10000.015,
+    ];
 
     private static Reading[] Readings() =>
         s_values.Select((v, i) => Reading.Finite(v, s_start.AddMilliseconds(42 * i), 10_000)).ToArray();
@@ -50,11 +60,21 @@ public sealed class ResistanceUncertaintyTests
     public void For_TwoWire_AddsLeadVariation()
     {
         var four = ResistanceUncertainty.For(Readings(), InventedMeter.R10k, InventedMeter.One, SpecPeriod.Year1);
-        var two = ResistanceUncertainty.For(Readings(), InventedMeter.R10k, InventedMeter.One, SpecPeriod.Year1, fourWire: false);
+        var two = ResistanceUncertainty.For(
+            Readings(),
+            InventedMeter.R10k,
+            InventedMeter.One,
+            SpecPeriod.Year1,
+            fourWire: false
+        );
 
         // Lead and contact variation 0.1 Ohm (default, from memory) as a rectangular half-width: 0.0577 Ohm.
         var uLead = 0.1 / Math.Sqrt(3);
-        Assert.Equal(Math.Sqrt((four.TransferUncertainty * four.TransferUncertainty) + (uLead * uLead)), two.TransferUncertainty, 9);
+        Assert.Equal(
+            Math.Sqrt((four.TransferUncertainty * four.TransferUncertainty) + (uLead * uLead)),
+            two.TransferUncertainty,
+            9
+        );
     }
 
     [Fact]
@@ -63,15 +83,26 @@ public sealed class ResistanceUncertaintyTests
         var readings = Readings();
         readings[3] = Reading.Overload(readings[3].Time, 10_000);
         var ex = Assert.Throws<ArgumentException>(() =>
-            ResistanceUncertainty.For(readings, InventedMeter.R10k, InventedMeter.One, SpecPeriod.Year1));
+            ResistanceUncertainty.For(readings, InventedMeter.R10k, InventedMeter.One, SpecPeriod.Year1)
+        );
         Assert.Contains("Reading 3", ex.Message, StringComparison.Ordinal);
     }
 
     [Fact]
     public void AbsoluteBudget_TwentyFourHourSpec_IsSmallerThanOneYear()
     {
-        var day = ResistanceUncertainty.AbsoluteBudget(Readings(), InventedMeter.R10k, InventedMeter.One, SpecPeriod.Hours24);
-        var year = ResistanceUncertainty.AbsoluteBudget(Readings(), InventedMeter.R10k, InventedMeter.One, SpecPeriod.Year1);
+        var day = ResistanceUncertainty.AbsoluteBudget(
+            Readings(),
+            InventedMeter.R10k,
+            InventedMeter.One,
+            SpecPeriod.Hours24
+        );
+        var year = ResistanceUncertainty.AbsoluteBudget(
+            Readings(),
+            InventedMeter.R10k,
+            InventedMeter.One,
+            SpecPeriod.Year1
+        );
         Assert.True(day.CombinedStandardUncertainty < year.CombinedStandardUncertainty);
         Assert.Equal(3, year.Components.Count);
     }

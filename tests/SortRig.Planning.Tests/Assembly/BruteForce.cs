@@ -10,7 +10,8 @@ namespace SortRig.Planning.Tests.Assembly;
 /// </summary>
 internal static class BruteForce
 {
-    /// <summary>Judge: (value, expanded uncertainty) per position in recipe order → score (≤ 1) or null if infeasible.</summary>
+    /// <summary>Judge: (value, expanded uncertainty) per position in recipe order → score (≤ 1) or null if
+    /// infeasible.</summary>
     public delegate double? Judge(IReadOnlyList<(double Value, double U)> fills);
 
     public static (int Count, double Score) Solve(Recipe recipe, IReadOnlyList<PartCandidate> parts, Judge judge)
@@ -25,8 +26,13 @@ internal static class BruteForce
         {
             if (i == parts.Count)
             {
-                var blocks = Enumerable.Range(1, maxLabel).Select(l => Enumerable.Range(0, parts.Count).Where(p => labels[p] == l).Sum(p => 1 << p)).ToList();
-                var scores = blocks.Select(m => cache.TryGetValue(m, out var s) ? s : cache[m] = BlockScore(recipe, parts, m, judge)).ToList();
+                var blocks = Enumerable
+                    .Range(1, maxLabel)
+                    .Select(l => Enumerable.Range(0, parts.Count).Where(p => labels[p] == l).Sum(p => 1 << p))
+                    .ToList();
+                var scores = blocks
+                    .Select(m => cache.TryGetValue(m, out var s) ? s : cache[m] = BlockScore(recipe, parts, m, judge))
+                    .ToList();
                 if (scores.All(s => s.HasValue))
                 {
                     var cand = (blocks.Count, scores.Sum(s => s!.Value));
@@ -79,7 +85,13 @@ internal static class BruteForce
                 Place(k + 1, remaining & ~(1 << p));
             }
 
-            foreach (var (flag, partNominal) in new[] { (PairBuilds.Series, pos.Nominal / 2), (PairBuilds.Parallel, pos.Nominal * 2) })
+            foreach (
+                var (flag, partNominal) in new[]
+                {
+                    (PairBuilds.Series, pos.Nominal / 2),
+                    (PairBuilds.Parallel, pos.Nominal * 2),
+                }
+            )
             {
                 if (!pos.Pairs.HasFlag(flag))
                 {
@@ -91,12 +103,18 @@ internal static class BruteForce
                 {
                     for (var b = a + 1; b < ok.Count; b++)
                     {
-                        double r1 = parts[ok[a]].Value.Value, r2 = parts[ok[b]].Value.Value;
-                        double u1 = parts[ok[a]].Value.ExpandedTransfer, u2 = parts[ok[b]].Value.ExpandedTransfer;
+                        double r1 = parts[ok[a]].Value.Value,
+                            r2 = parts[ok[b]].Value.Value;
+                        double u1 = parts[ok[a]].Value.ExpandedTransfer,
+                            u2 = parts[ok[b]].Value.ExpandedTransfer;
                         // Series: R = R1 + R2, U = U1 + U2. Parallel: R = R1R2/(R1+R2), ∂R/∂R1 = (R2/(R1+R2))².
-                        fills[k] = flag == PairBuilds.Series
-                            ? (r1 + r2, u1 + u2)
-                            : (r1 * r2 / (r1 + r2), (Math.Pow(r2 / (r1 + r2), 2) * u1) + (Math.Pow(r1 / (r1 + r2), 2) * u2));
+                        fills[k] =
+                            flag == PairBuilds.Series
+                                ? (r1 + r2, u1 + u2)
+                                : (
+                                    r1 * r2 / (r1 + r2),
+                                    (Math.Pow(r2 / (r1 + r2), 2) * u1) + (Math.Pow(r1 / (r1 + r2), 2) * u2)
+                                );
                         Place(k + 1, remaining & ~(1 << ok[a]) & ~(1 << ok[b]));
                     }
                 }
@@ -104,26 +122,31 @@ internal static class BruteForce
         }
     }
 
-    /// <summary>Matched form: worst-case ratio spread max((x+U)/n) / min((x−U)/n) − 1 within the match tolerance.</summary>
-    public static Judge Matched(Recipe recipe) => fills =>
-    {
-        var hi = fills.Select((f, k) => (f.Value + f.U) / recipe.Positions[k].Nominal).Max();
-        var lo = fills.Select((f, k) => (f.Value - f.U) / recipe.Positions[k].Nominal).Min();
-        var worstPpm = ((hi / lo) - 1) * 1e6;
-        return worstPpm <= recipe.MatchTolerancePpm ? worstPpm / recipe.MatchTolerancePpm : null;
-    };
+    /// <summary>Matched form: worst-case ratio spread max((x+U)/n) / min((x−U)/n) − 1 within the match
+    /// tolerance.</summary>
+    public static Judge Matched(Recipe recipe) =>
+        fills =>
+        {
+            var hi = fills.Select((f, k) => (f.Value + f.U) / recipe.Positions[k].Nominal).Max();
+            var lo = fills.Select((f, k) => (f.Value - f.U) / recipe.Positions[k].Nominal).Min();
+            var worstPpm = ((hi / lo) - 1) * 1e6;
+            return worstPpm <= recipe.MatchTolerancePpm ? worstPpm / recipe.MatchTolerancePpm : null;
+        };
 
-    /// <summary>Two-resistor divider R1 (top), R2 (bottom): ratio R2/(R1+R2) within tolPpm of nominal, worst case.</summary>
-    public static Judge Divider(Recipe recipe, double tolPpm) => fills =>
-    {
-        double n1 = recipe.Positions[0].Nominal, n2 = recipe.Positions[1].Nominal;
-        var (r1, u1) = fills[0];
-        var (r2, u2) = fills[1];
-        var target = n2 / (n1 + n2);
-        var y = r2 / (r1 + r2);
-        var d1 = r2 / Math.Pow(r1 + r2, 2);
-        var d2 = r1 / Math.Pow(r1 + r2, 2);
-        var worstPpm = (Math.Abs(y - target) + (d1 * u1) + (d2 * u2)) / target * 1e6;
-        return worstPpm <= tolPpm ? worstPpm / tolPpm : null;
-    };
+    /// <summary>Two-resistor divider R1 (top), R2 (bottom): ratio R2/(R1+R2) within tolPpm of nominal, worst
+    /// case.</summary>
+    public static Judge Divider(Recipe recipe, double tolPpm) =>
+        fills =>
+        {
+            double n1 = recipe.Positions[0].Nominal,
+                n2 = recipe.Positions[1].Nominal;
+            var (r1, u1) = fills[0];
+            var (r2, u2) = fills[1];
+            var target = n2 / (n1 + n2);
+            var y = r2 / (r1 + r2);
+            var d1 = r2 / Math.Pow(r1 + r2, 2);
+            var d2 = r1 / Math.Pow(r1 + r2, 2);
+            var worstPpm = (Math.Abs(y - target) + (d1 * u1) + (d2 * u2)) / target * 1e6;
+            return worstPpm <= tolPpm ? worstPpm / tolPpm : null;
+        };
 }

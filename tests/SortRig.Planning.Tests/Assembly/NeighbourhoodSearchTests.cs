@@ -53,15 +53,33 @@ public sealed class NeighbourhoodSearchTests
         // the ratio depends on the sums only). 4 parts each at -0.3 %, 0 and +0.3 %: equal-deviation triples give 3
         // sets; one triple of each deviation plus three equal triples give 4, the optimum (12 parts / 3).
         var recipe = RecipeLoader.Load(
-            "recipe: div3\nform: network\nground: gnd\nsources:\n  - { name: V1, plus: in, minus: gnd, volts: 10 }\npositions:\n"
-            + "  - { name: R1, nominal: 10k, between: [in, out] }\n  - { name: R2, nominal: 10k, between: [out, mid] }\n"
-            + "  - { name: R3, nominal: 10k, between: [mid, gnd] }\n"
-            + "outputs:\n  - { name: ratio, kind: voltage-ratio, numerator: out, denominator: in, tolerance-ppm: 100 }\n", "div3.yaml");
-        var parts = Enumerable.Range(0, 12).Select(i => new PartCandidate(
-            i + 1, 10e3, new(10e3 * (1 + ((i % 3) - 1) * 3000e-6 + (i * 1e-6)), 0.05, 0.025), $"P{i + 1}")).ToList();
+            "recipe: div3\nform: network\nground: gnd\nsources:\n  - { name: V1, plus: in, minus: gnd, volts: 10 "
+                + "}\npositions:\n"
+                + "  - { name: R1, nominal: 10k, between: [in, out] }\n  - { name: R2, nominal: 10k, between: [out, "
+                + "mid] }\n"
+                + "  - { name: R3, nominal: 10k, between: [mid, gnd] }\n"
+                + "outputs:\n  - { name: ratio, kind: voltage-ratio, numerator: out, denominator: in, tolerance-ppm: "
+                + "100 }\n",
+            "div3.yaml"
+        );
+        var parts = Enumerable
+            .Range(0, 12)
+            .Select(i => new PartCandidate(
+                i + 1,
+                10e3,
+                new(10e3 * (1 + ((i % 3) - 1) * 3000e-6 + (i * 1e-6)), 0.05, 0.025),
+                $"P{i + 1}"
+            ))
+            .ToList();
 
-        var sweep = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 0)).Assemble(recipe, parts);
-        var search = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 6)).Assemble(recipe, parts);
+        var sweep = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 0)).Assemble(
+            recipe,
+            parts
+        );
+        var search = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 6)).Assemble(
+            recipe,
+            parts
+        );
         Assert.Equal(3, sweep.Sets.Count);
         Assert.Equal(4, search.Sets.Count);
         Assert.Equal(4, search.UpperBound);
@@ -83,22 +101,39 @@ public sealed class NeighbourhoodSearchTests
     [Fact]
     public void EverySet_MeetsEverySpec_NoPartTwice_BoundAtLeastSets_Property()
     {
-        var cases = (from seed in Gen.Choose(0, 1_000_000)
-                     from shape in Gen.Choose(0, RandomInstances.MatchedShapes.Length)
-                     from count in Gen.Choose(10, 60)
-                     select (seed, shape, count)).ToArbitrary();
+        var cases = (
+            from seed in Gen.Choose(0, 1_000_000)
+            from shape in Gen.Choose(0, RandomInstances.MatchedShapes.Length)
+            from count in Gen.Choose(10, 60)
+            select (seed, shape, count)
+        ).ToArbitrary();
         Prop.ForAll(cases, c =>
-        {
-            var rng = new Random(c.seed);
-            var (recipe, judge, nominals) = c.shape < RandomInstances.MatchedShapes.Length
-                ? (RandomInstances.Matched(c.shape), (BruteForce.Judge?)null, (double[]?)null)
-                : (RandomInstances.Divider(true, 300), null, [10e3, 5e3]);
-            judge ??= recipe.Form == RecipeForm.Matched ? BruteForce.Matched(recipe) : BruteForce.Divider(recipe, 300);
-            var parts = RandomInstances.Parts(rng, c.count, nominals ?? Nominals(recipe), sigma: 1500e-6, maxRelU: 150e-6);
-            var result = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 10)).Assemble(recipe, parts);
-            AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
-            Assert.True(result.UpperBound >= result.Sets.Count, $"bound {result.UpperBound} < {result.Sets.Count} sets");
-        }).Check(Config.QuickThrowOnFailure.WithMaxTest(150).WithQuietOnSuccess(true));
+            {
+                var rng = new Random(c.seed);
+                var (recipe, judge, nominals) =
+                    c.shape < RandomInstances.MatchedShapes.Length
+                        ? (RandomInstances.Matched(c.shape), (BruteForce.Judge?)null, (double[]?)null)
+                        : (RandomInstances.Divider(true, 300), null, [10e3, 5e3]);
+                judge ??=
+                    recipe.Form == RecipeForm.Matched ? BruteForce.Matched(recipe) : BruteForce.Divider(recipe, 300);
+                var parts = RandomInstances.Parts(
+                    rng,
+                    c.count,
+                    nominals ?? Nominals(recipe),
+                    sigma: 1500e-6,
+                    maxRelU: 150e-6
+                );
+                var result = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 10)).Assemble(
+                    recipe,
+                    parts
+                );
+                AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
+                Assert.True(
+                    result.UpperBound >= result.Sets.Count,
+                    $"bound {result.UpperBound} < {result.Sets.Count} sets"
+                );
+            })
+            .Check(Config.QuickThrowOnFailure.WithMaxTest(150).WithQuietOnSuccess(true));
     }
 
     [Fact]
@@ -108,7 +143,9 @@ public sealed class NeighbourhoodSearchTests
         var recipe = RandomInstances.Matched(4);
         var parts = RandomInstances.Parts(rng, 120, Nominals(recipe), sigma: 2000e-6, maxRelU: 150e-6);
         var seen = new List<AssemblyProgress>();
-        var quick = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, timeLimit: TimeSpan.Zero, progress: new Collect(seen))).Assemble(recipe, parts);
+        var quick = new SetAssembler(
+            new AssemblyOptions(exactPartLimit: 0, timeLimit: TimeSpan.Zero, progress: new Collect(seen))
+        ).Assemble(recipe, parts);
         var longer = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
         Assert.Equal(AssemblyMethod.Sweep, quick.Method);
         Assert.Equal(longer.UpperBound, quick.UpperBound);
@@ -119,23 +156,36 @@ public sealed class NeighbourhoodSearchTests
     [Fact]
     public void Options_NegativeTimeLimit_NamesTheOption()
     {
-        var e = Assert.Throws<ArgumentOutOfRangeException>(() => new AssemblyOptions(timeLimit: TimeSpan.FromSeconds(-1)));
+        var e = Assert.Throws<ArgumentOutOfRangeException>(() =>
+            new AssemblyOptions(timeLimit: TimeSpan.FromSeconds(-1))
+        );
         Assert.Equal("timeLimit", e.ParamName);
     }
 
     private static void Check(Recipe recipe, List<PartCandidate> parts, BruteForce.Judge judge, string label)
     {
-        var result = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)).Assemble(recipe, parts);
+        var result = new SetAssembler(
+            new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)
+        ).Assemble(recipe, parts);
         var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
         Assert.True(result.Sets.Count <= optimum, $"{label}: {result.Sets.Count} sets > optimum {optimum}");
-        Assert.True(result.UpperBound >= optimum, $"{label}: bound {result.UpperBound} < optimum {optimum} ({result.BoundMethod})");
+        Assert.True(
+            result.UpperBound >= optimum,
+            $"{label}: bound {result.UpperBound} < optimum {optimum} ({result.BoundMethod})"
+        );
         Assert.Equal(result.Sets.Count == result.UpperBound, result.ProvenOptimal);
         AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
     }
 
-    private static double[] Nominals(Recipe recipe) => recipe.Positions.SelectMany(p => new[] { p.Nominal }
-        .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
-        .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])).Distinct().ToArray();
+    private static double[] Nominals(Recipe recipe) =>
+        recipe
+            .Positions.SelectMany(p =>
+                new[] { p.Nominal }
+                    .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
+                    .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])
+            )
+            .Distinct()
+            .ToArray();
 
     private sealed class Collect(List<AssemblyProgress> into) : IProgress<AssemblyProgress>
     {

@@ -11,7 +11,10 @@ namespace SortRig.Planning.Tests.Assembly;
 /// </summary>
 public sealed class NetworkPartFilterTests
 {
-    private static readonly Recipe s_decade = RecipeLoader.Load(File.ReadAllText(RepoPaths.Recipe("decade-divider.yaml")), "decade-divider.yaml");
+    private static readonly Recipe s_decade = RecipeLoader.Load(
+        File.ReadAllText(RepoPaths.Recipe("decade-divider.yaml")),
+        "decade-divider.yaml"
+    );
 
     public static TheoryData<int> Seeds => new(Enumerable.Range(0, 30));
 
@@ -47,8 +50,11 @@ public sealed class NetworkPartFilterTests
         // (textbook derivative of x/(1+x) at x = 1 is 1/4, i.e. 1/2 in relative terms), so a part 2 % off pairs with no
         // part within 0.2 % of nominal. 5 close parts and 1 far: the count was ⌊6/2⌋ = 3, the optimum is ⌊5/2⌋ = 2.
         var recipe = RandomInstances.Divider(seriesTop: false, tolPpm: 300);
-        var parts = Enumerable.Range(0, 5).Select(i => Part(i, 10e3 * (1 + (i * 1e-4))))
-            .Append(Part(5, 10e3 * 1.02)).ToList();
+        var parts = Enumerable
+            .Range(0, 5)
+            .Select(i => Part(i, 10e3 * (1 + (i * 1e-4))))
+            .Append(Part(5, 10e3 * 1.02))
+            .ToList();
         var usable = new CandidatePool(recipe, parts, new AssemblyOptions(), withPairs: false).Usable;
         Assert.Equal(2, PartCountBound.Compute(recipe, usable, new NetworkRule(recipe), new AssemblyOptions()));
         var search = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
@@ -56,7 +62,8 @@ public sealed class NetworkPartFilterTests
         Assert.True(search.ProvenOptimal);
     }
 
-    private static PartCandidate Part(int i, double value) => new(i + 1, 10e3, new MeasuredValue(value, value * 5e-6, value * 2.5e-6), null);
+    private static PartCandidate Part(int i, double value) =>
+        new(i + 1, 10e3, new MeasuredValue(value, value * 5e-6, value * 2.5e-6), null);
 
     private static void AssertRelaxation(Recipe recipe, List<PartCandidate> parts, AssemblyResult exact, string label)
     {

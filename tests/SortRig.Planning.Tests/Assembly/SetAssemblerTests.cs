@@ -9,7 +9,12 @@ public sealed class SetAssemblerTests
     private static readonly AssemblyOptions s_sweepOnly = new(exactPartLimit: 0, neighbourhoodParts: 0);
 
     private static PartCandidate Part(long id, double nominal, double ppm, double uPpm = 0) =>
-        new(id, nominal, new MeasuredValue(nominal * (1 + (ppm * 1e-6)), nominal * uPpm * 1e-6, nominal * uPpm * 0.5e-6), null);
+        new(
+            id,
+            nominal,
+            new MeasuredValue(nominal * (1 + (ppm * 1e-6)), nominal * uPpm * 1e-6, nominal * uPpm * 0.5e-6),
+            null
+        );
 
     [Theory]
     [InlineData(false)]
@@ -28,7 +33,11 @@ public sealed class SetAssemblerTests
         Assert.Equal(20_100.0 * 19_920 / 40_020, pair.Value, 6);
         Assert.Equal([2L], result.Unused.Select(p => p.Id));
 
-        var singlesOnly = RecipeLoader.Load("recipe: q\nform: matched\nmatch-ppm: 1000\npositions:\n  - { name: A, nominal: 10k }\n  - { name: B, nominal: 10k }\n", "q.yaml");
+        var singlesOnly = RecipeLoader.Load(
+            "recipe: q\nform: matched\nmatch-ppm: 1000\npositions:\n  - { name: A, nominal: 10k }\n  - { name: B, "
+                + "nominal: 10k }\n",
+            "q.yaml"
+        );
         Assert.Empty(assembler.Assemble(singlesOnly, parts).Sets);
     }
 
@@ -46,7 +55,10 @@ public sealed class SetAssemblerTests
     public void TieBreak_PrefersTighterSets()
     {
         // Four parts, two sets either way; {0,100},{900,1000} (spreads 100+100) beats {0,900},{100,1000}.
-        var result = new SetAssembler().Assemble(RandomInstances.Matched(0), [Part(1, 10e3, 0), Part(2, 10e3, 900), Part(3, 10e3, 100), Part(4, 10e3, 1000)]);
+        var result = new SetAssembler().Assemble(
+            RandomInstances.Matched(0),
+            [Part(1, 10e3, 0), Part(2, 10e3, 900), Part(3, 10e3, 100), Part(4, 10e3, 1000)]
+        );
         Assert.Equal(2, result.Sets.Count);
         Assert.All(result.Sets, s => Assert.True(s.Outputs[0].Value < 101, $"spread {s.Outputs[0].Value} ppm"));
     }
@@ -62,12 +74,22 @@ public sealed class SetAssemblerTests
         {
             var rng = new Random(7_000 + (shape * 100) + c);
             var recipe = RandomInstances.Matched(shape);
-            var parts = RandomInstances.Parts(rng, rng.Next(8, 17), recipe.Positions.Select(p => p.Nominal).Distinct().ToArray(), 900e-6, 120e-6, equalU: true);
+            var parts = RandomInstances.Parts(
+                rng,
+                rng.Next(8, 17),
+                recipe.Positions.Select(p => p.Nominal).Distinct().ToArray(),
+                900e-6,
+                120e-6,
+                equalU: true
+            );
             var exact = new SetAssembler().Assemble(recipe, parts);
             var sweep = new SetAssembler(s_sweepOnly).Assemble(recipe, parts);
             Assert.Equal((AssemblyMethod.Exact, AssemblyMethod.Sweep), (exact.Method, sweep.Method));
             Assert.True(sweep.ProvenOptimal);
-            Assert.True(exact.Sets.Count == sweep.Sets.Count, $"shape {shape} case {c}: exact {exact.Sets.Count}, sweep {sweep.Sets.Count}");
+            Assert.True(
+                exact.Sets.Count == sweep.Sets.Count,
+                $"shape {shape} case {c}: exact {exact.Sets.Count}, sweep {sweep.Sets.Count}"
+            );
         }
     }
 
@@ -103,7 +125,9 @@ public sealed class SetAssemblerTests
     [Fact]
     public void DuplicatePartIds_AreRejected()
     {
-        var e = Assert.Throws<ArgumentException>(() => new SetAssembler().Assemble(RandomInstances.Matched(0), [Part(7, 10e3, 0), Part(7, 10e3, 1)]));
+        var e = Assert.Throws<ArgumentException>(() =>
+            new SetAssembler().Assemble(RandomInstances.Matched(0), [Part(7, 10e3, 0), Part(7, 10e3, 1)])
+        );
         Assert.Contains("7", e.Message, StringComparison.Ordinal);
     }
 

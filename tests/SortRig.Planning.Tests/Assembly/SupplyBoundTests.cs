@@ -15,7 +15,15 @@ public sealed class SupplyBoundTests
     {
         // Chvátal, Linear Programming (1983), ch. 2 first example, from memory: max 5x1 + 4x2 + 3x3 subject to
         // 2x1 + 3x2 + x3 <= 5, 4x1 + x2 + 2x3 <= 11, 3x1 + 4x2 + 2x3 <= 8, x >= 0; optimum 13 at (2, 0, 1).
-        var value = DenseSimplex.Maximize([5, 4, 3], [[2, 3, 1], [4, 1, 2], [3, 4, 2]], [5, 11, 8]);
+        var value = DenseSimplex.Maximize(
+            [5, 4, 3],
+            [
+                [2, 3, 1],
+                [4, 1, 2],
+                [3, 4, 2],
+            ],
+            [5, 11, 8]
+        );
         Assert.Equal(13, value, 9);
     }
 
@@ -23,7 +31,16 @@ public sealed class SupplyBoundTests
     public void Simplex_UnboundedProgramme_ReportsInfinity()
     {
         // Textbook identity: max x1 subject to x1 - x2 <= 1 has no finite optimum (x2 free to grow).
-        Assert.Equal(double.PositiveInfinity, DenseSimplex.Maximize([1, 0], [[1, -1]], [1]));
+        Assert.Equal(
+            double.PositiveInfinity,
+            DenseSimplex.Maximize(
+                [1, 0],
+                [
+                    [1, -1],
+                ],
+                [1]
+            )
+        );
     }
 
     [Fact]
@@ -47,8 +64,7 @@ public sealed class SupplyBoundTests
         // ⌊1000/16⌋ = 62.
         var text = File.ReadAllText(RepoPaths.Recipe("r2r-dac-8bit.yaml"));
         var recipe = RecipeLoader.Load(text, "r2r-dac-8bit.yaml");
-        var parts = Enumerable.Range(0, 1000)
-            .Select(i => i < 640 ? Part(i, 10e3, 10e3) : Part(i, 20e3, 20e3)).ToList();
+        var parts = Enumerable.Range(0, 1000).Select(i => i < 640 ? Part(i, 10e3, 10e3) : Part(i, 20e3, 20e3)).ToList();
         var usable = new CandidatePool(recipe, parts, new AssemblyOptions(), withPairs: false).Usable;
         Assert.Equal(54, PartCountBound.Compute(recipe, usable, new NetworkRule(recipe), new AssemblyOptions()));
     }

@@ -7,14 +7,17 @@ public sealed class AdaptiveCupPlannerTests
 {
     private static readonly Dictionary<double, int> s_quad = new() { [10e3] = 4 };
 
-    /// <summary>Deviations in ppm: normal(σ), or with the centre (|x| &lt; gap) missing, all inside ±10 000 ppm.</summary>
+    /// <summary>Deviations in ppm: normal(σ), or with the centre (|x| &lt; gap) missing, all inside ±10 000
+    /// ppm.</summary>
     private static List<double> Reel(int seed, int n, double sigma, double gap, double offset = 0)
     {
         var rng = new Random(seed);
         var result = new List<double>();
         while (result.Count < n)
         {
-            var x = offset + (sigma * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble()));
+            var x =
+                offset
+                + (sigma * Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble()));
             if (Math.Abs(x) >= gap && Math.Abs(x) <= 10_000)
             {
                 result.Add(x);
@@ -52,7 +55,10 @@ public sealed class AdaptiveCupPlannerTests
         // 12 bands of 1000 ppm (less 20 ppm of uncertainty each) can nearly cover both humps [4000, 10000]: at most 3
         // parts left per cup (9 sets) plus parts lost while learning, so at least 88 % of the 250 quads; centred fixed
         // bands reach only ±6000 ppm.
-        Assert.True(adaptive >= 220 && adaptive > 1.5 * fixedBands, $"adaptive {adaptive} sets, fixed bands {fixedBands}");
+        Assert.True(
+            adaptive >= 220 && adaptive > 1.5 * fixedBands,
+            $"adaptive {adaptive} sets, fixed bands {fixedBands}"
+        );
     }
 
     [Fact]
@@ -74,7 +80,10 @@ public sealed class AdaptiveCupPlannerTests
         Assert.All(bands, b => Assert.True(b.HighPpm - b.LowPpm <= 1000 + 1e-9));
         Assert.All(bands.Zip(bands.Skip(1)), t => Assert.True(t.First.HighPpm <= t.Second.LowPpm + 1e-9));
         Assert.All(byCup.Values, l => Assert.True(l.Max() - l.Min() < 1000));
-        Assert.True(bands.Average(b => (b.LowPpm + b.HighPpm) / 2) < -3000, "bands follow the reel's offset out of the centred layout");
+        Assert.True(
+            bands.Average(b => (b.LowPpm + b.HighPpm) / 2) < -3000,
+            "bands follow the reel's offset out of the centred layout"
+        );
     }
 
     [Fact]

@@ -37,7 +37,11 @@ public sealed class AdaptiveCupWorstCaseTests
 
     [Property(MaxTest = 60)]
     public Property EveryCup_MeetsTheMatchToleranceInTheWorstCase_AndNoBandMovesUnderParts(
-        PositiveInt seed, byte shape, byte cups, byte tolerance)
+        PositiveInt seed,
+        byte shape,
+        byte cups,
+        byte tolerance
+    )
     {
         var k = 1 + (cups % 23);
         var tolPpm = 200 + (tolerance * 8);
@@ -79,7 +83,9 @@ public sealed class AdaptiveCupWorstCaseTests
         }
 
         // Every band named is no wider than the tolerance as a ratio of its edges.
-        return planner.Bands(10e3).All(b => (((1 + (b.HighPpm * 1e-6)) / (1 + (b.LowPpm * 1e-6))) - 1) * 1e6 <= tolPpm)
+        return planner
+            .Bands(10e3)
+            .All(b => (((1 + (b.HighPpm * 1e-6)) / (1 + (b.LowPpm * 1e-6))) - 1) * 1e6 <= tolPpm)
             .Label("a band is wider than the tolerance");
     }
 

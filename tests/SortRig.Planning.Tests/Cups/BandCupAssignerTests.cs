@@ -38,20 +38,32 @@ public sealed class BandCupAssignerTests
     public void CompletesSet_OnEveryWholeSetInACup()
     {
         var a = Four(perSet: 2);
-        Assert.Equal([false, true, false, true], Enumerable.Range(1, 4).Select(n => a.Assign(Part(n, 10e3, 100 + n)).CompletesSet));
+        Assert.Equal(
+            [false, true, false, true],
+            Enumerable.Range(1, 4).Select(n => a.Assign(Part(n, 10e3, 100 + n)).CompletesSet)
+        );
         Assert.Equal(2, a.Counts.Single(c => c.CupLabel == "C").SetsReady);
     }
 
     [Fact]
     public void Labels_SkipIOAndR()
     {
-        Assert.Equal("ABCDEFGHJKLMNPQSTUVWXYZ", string.Concat(Enumerable.Range(0, CupLabels.MaxCups).Select(CupLabels.For)));
+        Assert.Equal(
+            "ABCDEFGHJKLMNPQSTUVWXYZ",
+            string.Concat(Enumerable.Range(0, CupLabels.MaxCups).Select(CupLabels.For))
+        );
     }
 
     [Fact]
     public void Options_OutOfRange_NameTheOption()
     {
-        Assert.Equal("cupCount", Assert.Throws<ArgumentOutOfRangeException>(() => new BandCupOptions(24, 1000, 10e3, 1)).ParamName);
-        Assert.Equal("nominal", Assert.Throws<ArgumentOutOfRangeException>(() => new BandCupOptions(8, 1000, -1, 1)).ParamName);
+        Assert.Equal(
+            "cupCount",
+            Assert.Throws<ArgumentOutOfRangeException>(() => new BandCupOptions(24, 1000, 10e3, 1)).ParamName
+        );
+        Assert.Equal(
+            "nominal",
+            Assert.Throws<ArgumentOutOfRangeException>(() => new BandCupOptions(8, 1000, -1, 1)).ParamName
+        );
     }
 }

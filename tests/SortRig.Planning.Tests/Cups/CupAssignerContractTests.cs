@@ -8,15 +8,28 @@ public sealed class CupAssignerContractTests
 {
     public static TheoryData<string> Kinds => new(["band", "adaptive", "slot"]);
 
-    internal static ICupAssigner Make(string kind) => kind switch
-    {
-        "band" => new BandCupAssigner(new BandCupOptions(8, 1000, 10e3, 1.0, partsPerSet: 4)),
-        "adaptive" => new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, new Dictionary<double, int> { [10e3] = 4, [20e3] = 1 }, learnCount: 30)),
-        _ => new SlotAssigner(new SlotOptions(trays: 2, rows: 4, columns: 25)),
-    };
+    internal static ICupAssigner Make(string kind) =>
+        kind switch
+        {
+            "band" => new BandCupAssigner(new BandCupOptions(8, 1000, 10e3, 1.0, partsPerSet: 4)),
+            "adaptive" => new AdaptiveCupPlanner(
+                new AdaptiveCupOptions(
+                    8,
+                    1000,
+                    1.0,
+                    new Dictionary<double, int> { [10e3] = 4, [20e3] = 1 },
+                    learnCount: 30
+                )
+            ),
+            _ => new SlotAssigner(new SlotOptions(trays: 2, rows: 4, columns: 25)),
+        };
 
     internal static CupRequest Part(long n, double nominal, double ppm, double uPpm = 10) =>
-        new(n, nominal, new MeasuredValue(nominal * (1 + (ppm * 1e-6)), nominal * uPpm * 1e-6, nominal * uPpm * 0.5e-6));
+        new(
+            n,
+            nominal,
+            new MeasuredValue(nominal * (1 + (ppm * 1e-6)), nominal * uPpm * 1e-6, nominal * uPpm * 0.5e-6)
+        );
 
     [Theory]
     [MemberData(nameof(Kinds))]

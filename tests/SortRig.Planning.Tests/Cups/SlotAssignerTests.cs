@@ -1,5 +1,5 @@
-using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
 using SortRig.Planning.Cups;
+using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
 
 namespace SortRig.Planning.Tests.Cups;
 

@@ -13,8 +13,11 @@ public sealed class WindowCoverTests
         for (var mask = 0; mask < 1 << gain.Length; mask++)
         {
             var starts = Enumerable.Range(0, gain.Length).Where(i => (mask & (1 << i)) != 0).ToList();
-            if (starts.Count <= count && starts.All(i => allowed[i])
-                && starts.Zip(starts.Skip(1)).All(p => p.Second - p.First >= span))
+            if (
+                starts.Count <= count
+                && starts.All(i => allowed[i])
+                && starts.Zip(starts.Skip(1)).All(p => p.Second - p.First >= span)
+            )
             {
                 best = Math.Max(best, starts.Sum(i => gain[i]));
             }
@@ -30,8 +33,10 @@ public sealed class WindowCoverTests
         for (var trial = 0; trial < 400; trial++)
         {
             var n = rng.Next(1, 13);
-            var gain = Enumerable.Range(0, n)
-                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2)).ToArray();
+            var gain = Enumerable
+                .Range(0, n)
+                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2))
+                .ToArray();
             var allowed = Enumerable.Range(0, n).Select(_ => rng.Next(5) != 0).ToArray();
             var span = rng.Next(1, 5);
             var count = rng.Next(0, 5);

@@ -21,14 +21,17 @@ public sealed record RecipeFuzzCase(int File, RecipeMutation[] Mutations)
     }
 
     /// <inheritdoc />
-    public override string ToString() => $"{ShippedRecipes.Files[File].Name} <- {string.Join(", ", Mutations.AsEnumerable())}";
+    public override string ToString() =>
+        $"{ShippedRecipes.Files[File].Name} <- {string.Join(", ", Mutations.AsEnumerable())}";
 }
 
 /// <summary>The shipped recipes/*.yaml, read once.</summary>
 internal static class ShippedRecipes
 {
     public static IReadOnlyList<(string Name, string Text)> Files { get; } =
-        Directory.GetFiles(Path.Combine(RepoPaths.Root, "recipes"), "*.yaml").Order(StringComparer.Ordinal)
+        Directory
+            .GetFiles(Path.Combine(RepoPaths.Root, "recipes"), "*.yaml")
+            .Order(StringComparer.Ordinal)
             .Select(f => (Path.GetFileName(f), File.ReadAllText(f).Replace("\r\n", "\n", StringComparison.Ordinal)))
             .ToList();
 }
@@ -50,15 +53,18 @@ public static class RecipeFuzzArbitraries
             (1, Gen.Constant(MutationKind.SwapLines)),
             (3, Gen.Constant(MutationKind.RenameKey)),
             (3, Gen.Constant(MutationKind.RenameNode)),
-            (1, Gen.Constant(MutationKind.Garbage)))
+            (1, Gen.Constant(MutationKind.Garbage))
+        )
         from a in Gen.Choose(0, 1000)
         from b in Gen.Choose(0, 1000)
         from c in Gen.Choose(0, 1000)
         select new RecipeMutation(kind, a, b, c);
 
-    public static Arbitrary<RecipeFuzzCase> Cases() => Arb.From(
-        from file in Gen.Choose(0, ShippedRecipes.Files.Count - 1)
-        from count in Gen.Frequency((6, Gen.Constant(1)), (3, Gen.Constant(2)), (2, Gen.Choose(3, 5)))
-        from mutations in Gen.ArrayOf(Mutation, count)
-        select new RecipeFuzzCase(file, mutations));
+    public static Arbitrary<RecipeFuzzCase> Cases() =>
+        Arb.From(
+            from file in Gen.Choose(0, ShippedRecipes.Files.Count - 1)
+            from count in Gen.Frequency((6, Gen.Constant(1)), (3, Gen.Constant(2)), (2, Gen.Choose(3, 5)))
+            from mutations in Gen.ArrayOf(Mutation, count)
+            select new RecipeFuzzCase(file, mutations)
+        );
 }

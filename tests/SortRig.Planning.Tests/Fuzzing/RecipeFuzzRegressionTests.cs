@@ -8,16 +8,21 @@ namespace SortRig.Planning.Tests.Fuzzing;
 /// </summary>
 public sealed class RecipeFuzzRegressionTests
 {
-    private const string Quad = "recipe: q\nform: matched\nmatch-ppm: 1000\nbase: 10k\npositions:\n  - { name: R1, ratio: 1 }\n  - { name: R2, ratio: 1 }\n";
+    private const string Quad =
+        "recipe: q\nform: matched\nmatch-ppm: 1000\nbase: 10k\npositions:\n  - { name: R1, ratio: 1 }\n  - { name: "
+        + "R2, ratio: 1 }\n";
 
     private const string DiffAmp =
-        "recipe: d\nform: network\nground: gnd\nsources:\n  - { name: VP, plus: inp, minus: gnd, volts: 0.5 }\n" +
-        "  - { name: VN, plus: inn, minus: gnd, volts: -0.5 }\namplifiers:\n  - { name: U1, plus: np, minus: nm, output: out }\n" +
-        "positions:\n  - { name: R1, nominal: 10k, between: [inn, nm] }\n  - { name: R2, nominal: 10k, between: [nm, out] }\n" +
-        "  - { name: R3, nominal: 10k, between: [inp, np] }\n  - { name: R4, nominal: 10k, between: [np, gnd] }\n" +
-        "outputs:\n  - { name: gain, kind: gain, output: out, input: inp - inn, target: 1, tolerance-ppm: 500 }\n";
+        "recipe: d\nform: network\nground: gnd\nsources:\n  - { name: VP, plus: inp, minus: gnd, volts: 0.5 }\n"
+        + "  - { name: VN, plus: inn, minus: gnd, volts: -0.5 }\namplifiers:\n  - { name: U1, plus: np, minus: nm, "
+        + "output: out }\n"
+        + "positions:\n  - { name: R1, nominal: 10k, between: [inn, nm] }\n  - { name: R2, nominal: 10k, between: "
+        + "[nm, out] }\n"
+        + "  - { name: R3, nominal: 10k, between: [inp, np] }\n  - { name: R4, nominal: 10k, between: [np, gnd] }\n"
+        + "outputs:\n  - { name: gain, kind: gain, output: out, input: inp - inn, target: 1, tolerance-ppm: 500 }\n";
 
-    private static RecipeException Refused(string yaml) => Assert.Throws<RecipeException>(() => RecipeLoader.Load(yaml, "r.yaml"));
+    private static RecipeException Refused(string yaml) =>
+        Assert.Throws<RecipeException>(() => RecipeLoader.Load(yaml, "r.yaml"));
 
     [Fact]
     public void ByteOrderMarkInsideAFlowMapping_IsAYamlProblemWithALine()
@@ -60,17 +65,24 @@ public sealed class RecipeFuzzRegressionTests
     [Fact]
     public void RatioTimesBaseOutsideTheRange_IsRefused()
     {
-        var e = Refused(Quad.Replace("base: 10k", "base: 1e12", StringComparison.Ordinal).Replace("R2, ratio: 1", "R2, ratio: 1e4", StringComparison.Ordinal));
+        var e = Refused(
+            Quad.Replace("base: 10k", "base: 1e12", StringComparison.Ordinal)
+                .Replace("R2, ratio: 1", "R2, ratio: 1e4", StringComparison.Ordinal)
+        );
         Assert.Equal("positions[1].ratio", e.FieldPath);
     }
 
     [Fact]
     public void GainWhoseInputIsZeroVoltsAtNominal_IsRefusedEvenWithAnExplicitTarget()
     {
-        // Was: loaded with an infinite gain at nominal, every set's score NaN. VN drives a node nothing else touches and R4
-        // ends on a node nothing else touches, so no current flows: inn = nm = np = inp and the input inp - inn is 0 V.
-        var e = Refused(DiffAmp.Replace("plus: inn, minus: gnd", "plus: elsewhere, minus: gnd", StringComparison.Ordinal)
-            .Replace("between: [np, gnd]", "between: [np, dangling]", StringComparison.Ordinal));
+        // Was: loaded with an infinite gain at nominal, every set's score NaN. VN drives a node nothing else touches
+        // and R4 ends on a node nothing else touches, so no current flows: inn = nm = np = inp and the input inp - inn
+        // is 0 V.
+        var e = Refused(
+            DiffAmp
+                .Replace("plus: inn, minus: gnd", "plus: elsewhere, minus: gnd", StringComparison.Ordinal)
+                .Replace("between: [np, gnd]", "between: [np, dangling]", StringComparison.Ordinal)
+        );
         Assert.Equal("outputs[0]", e.FieldPath);
     }
 

@@ -25,10 +25,13 @@ public sealed class RecipeHostileShapeFuzzTests(ITestOutputHelper output)
         Prop.ForAll(Arb.From(Shapes()), shape => Check(shape, tally))
             .Check(Config.QuickThrowOnFailure.WithMaxTest(Inputs).WithQuietOnSuccess(true));
 
-        output.WriteLine(string.Join(", ", tally.OrderBy(t => t.Key, StringComparer.Ordinal).Select(t => $"{t.Key} {t.Value}")));
+        output.WriteLine(
+            string.Join(", ", tally.OrderBy(t => t.Key, StringComparer.Ordinal).Select(t => $"{t.Key} {t.Value}"))
+        );
         // Every kind of shape, on both sides of each limit, must have been drawn.
-        Assert.All(new[] { "deep-refused", "deep-field", "big-refused", "big-loaded", "control-refused" },
-            k => Assert.True(tally.GetValueOrDefault(k) >= 20, $"{k}: only {tally.GetValueOrDefault(k)}"));
+        Assert.All(new[] { "deep-refused", "deep-field", "big-refused", "big-loaded", "control-refused" }, k =>
+            Assert.True(tally.GetValueOrDefault(k) >= 20, $"{k}: only {tally.GetValueOrDefault(k)}")
+        );
     }
 
     private static void Check(HostileShape shape, Dictionary<string, int> tally)
@@ -52,7 +55,11 @@ public sealed class RecipeHostileShapeFuzzTests(ITestOutputHelper output)
         switch (shape.Kind)
         {
             case ShapeKind.Deep when shape.Depth + 1 > RecipeLimits.MaxDepth: // the root map is level 1
-                Assert.True(refused?.Message.Contains($"nested at most {RecipeLimits.MaxDepth} deep", StringComparison.Ordinal) == true, $"{shape}: {refused?.Message}");
+                Assert.True(
+                    refused?.Message.Contains($"nested at most {RecipeLimits.MaxDepth} deep", StringComparison.Ordinal)
+                        == true,
+                    $"{shape}: {refused?.Message}"
+                );
                 Count(tally, "deep-refused");
                 break;
             case ShapeKind.Deep:
@@ -61,7 +68,13 @@ public sealed class RecipeHostileShapeFuzzTests(ITestOutputHelper output)
                 Count(tally, "deep-field");
                 break;
             case ShapeKind.Big when Encoding.UTF8.GetByteCount(text) > RecipeLimits.MaxBytes:
-                Assert.True(refused?.Message.StartsWith("hostile.yaml:1:1: (document): expected a recipe of at most", StringComparison.Ordinal) == true, $"{shape}: {refused?.Message}");
+                Assert.True(
+                    refused?.Message.StartsWith(
+                        "hostile.yaml:1:1: (document): expected a recipe of at most",
+                        StringComparison.Ordinal
+                    ) == true,
+                    $"{shape}: {refused?.Message}"
+                );
                 Count(tally, "big-refused");
                 break;
             case ShapeKind.Big:
@@ -70,14 +83,24 @@ public sealed class RecipeHostileShapeFuzzTests(ITestOutputHelper output)
                 break;
             case ShapeKind.Control:
                 Assert.True(refused is not null, $"{shape}: loaded");
-                Assert.True(refused.FieldPath == "recipe" || refused.FieldPath.EndsWith(".name", StringComparison.Ordinal), $"{shape}: {refused.Message}");
-                Assert.True(refused.Message.Contains(string.Create(CultureInfo.InvariantCulture, $"U+{(int)shape.Character:X4}"), StringComparison.Ordinal), $"{shape}: {refused.Message}");
+                Assert.True(
+                    refused.FieldPath == "recipe" || refused.FieldPath.EndsWith(".name", StringComparison.Ordinal),
+                    $"{shape}: {refused.Message}"
+                );
+                Assert.True(
+                    refused.Message.Contains(
+                        string.Create(CultureInfo.InvariantCulture, $"U+{(int)shape.Character:X4}"),
+                        StringComparison.Ordinal
+                    ),
+                    $"{shape}: {refused.Message}"
+                );
                 Count(tally, "control-refused");
                 break;
         }
     }
 
-    private static void Count(Dictionary<string, int> tally, string key) => tally[key] = tally.GetValueOrDefault(key) + 1;
+    private static void Count(Dictionary<string, int> tally, string key) =>
+        tally[key] = tally.GetValueOrDefault(key) + 1;
 
     private static Gen<HostileShape> Shapes() =>
         from kind in Gen.Elements(ShapeKind.Deep, ShapeKind.Big, ShapeKind.Control)
@@ -92,7 +115,8 @@ public sealed class RecipeHostileShapeFuzzTests(ITestOutputHelper output)
         select new HostileShape(kind, file, depth, openers, delta, wide, character, at, field);
 
     // Every control character (C0, DEL and C1), as char.IsControl defines them (Unicode category Cc).
-    private static char[] ControlCharacters { get; } = [.. Enumerable.Range(0, 0xA0).Select(i => (char)i).Where(char.IsControl)];
+    private static char[] ControlCharacters { get; } =
+    [.. Enumerable.Range(0, 0xA0).Select(i => (char)i).Where(char.IsControl)];
 }
 
 internal enum ShapeKind
@@ -103,7 +127,17 @@ internal enum ShapeKind
 }
 
 /// <summary>One hostile input built from a shipped recipe.</summary>
-internal sealed record HostileShape(ShapeKind Kind, int File, int Depth, int Openers, int Delta, int Wide, char Character, int At, int Field)
+internal sealed record HostileShape(
+    ShapeKind Kind,
+    int File,
+    int Depth,
+    int Openers,
+    int Delta,
+    int Wide,
+    char Character,
+    int At,
+    int Field
+)
 {
     public string Text()
     {
@@ -116,12 +150,15 @@ internal sealed record HostileShape(ShapeKind Kind, int File, int Depth, int Ope
         };
     }
 
-    public override string ToString() => Kind switch
-    {
-        ShapeKind.Deep => $"{ShippedRecipes.Files[File].Name} description nested {Depth} deep",
-        ShapeKind.Big => $"{ShippedRecipes.Files[File].Name} padded to MaxBytes{Delta:+0;-0} with {Wide} two-byte characters",
-        _ => $"{ShippedRecipes.Files[File].Name} {(Field == 0 ? "recipe name" : "first name")} with U+{(int)Character:X4}",
-    };
+    public override string ToString() =>
+        Kind switch
+        {
+            ShapeKind.Deep => $"{ShippedRecipes.Files[File].Name} description nested {Depth} deep",
+            ShapeKind.Big =>
+                $"{ShippedRecipes.Files[File].Name} padded to MaxBytes{Delta:+0;-0} with {Wide} two-byte characters",
+            _ => $"{ShippedRecipes.Files[File].Name} {(Field == 0 ? "recipe name" : "first name")} with U+"
+                + $"{(int)Character:X4}",
+        };
 
     // The description's value becomes Depth nested flow collections, each a list or a one-key map (chosen by the
     // bits of Openers), closed properly: only the depth is wrong.
@@ -166,12 +203,19 @@ internal sealed record HostileShape(ShapeKind Kind, int File, int Depth, int Ope
             var start = k + key.Length;
             var end = lines[i].IndexOfAny([',', '}'], start) is var e and >= 0 ? e : lines[i].Length;
             var value = lines[i][start..end].Trim();
-            var cut = At switch { 0 => 0, 1 => value.Length / 2, _ => value.Length };
+            var cut = At switch
+            {
+                0 => 0,
+                1 => value.Length / 2,
+                _ => value.Length,
+            };
             lines[i] = lines[i][..start] + "\"" + value[..cut] + escape + value[cut..] + "\"" + lines[i][end..];
             return string.Join('\n', lines);
         }
 
-        throw new InvalidOperationException($"{ShippedRecipes.Files[File].Name} has no '{(Field == 0 ? "recipe" : "name")}' line");
+        throw new InvalidOperationException(
+            $"{ShippedRecipes.Files[File].Name} has no '{(Field == 0 ? "recipe" : "name")}' line"
+        );
     }
 
     private static string WithoutDescription(string source) =>

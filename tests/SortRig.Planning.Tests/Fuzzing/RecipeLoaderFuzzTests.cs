@@ -28,16 +28,22 @@ public sealed class RecipeLoaderFuzzTests(ITestOutputHelper output)
             .Check(Config.QuickThrowOnFailure.WithMaxTest(Inputs).WithQuietOnSuccess(true));
         clock.Stop();
 
-        output.WriteLine($"{stats.Total} inputs in {clock.Elapsed.TotalSeconds:F1} s: {stats.Loaded} loaded, {stats.Refused} refused, " +
-            $"{stats.YamlProblems} of them YAML problems, {stats.Paths.Count} distinct field paths");
+        output.WriteLine(
+            $"{stats.Total} inputs in {clock.Elapsed.TotalSeconds:F1} s: {stats.Loaded} loaded, {stats.Refused} "
+                + $"refused, "
+                + $"{stats.YamlProblems} of them YAML problems, {stats.Paths.Count} distinct field paths"
+        );
         foreach (var (path, n) in stats.Paths.OrderByDescending(p => p.Value).Take(25))
         {
-            output.WriteLine($"  {n,6}  {path}");
+            output.WriteLine($"  {n, 6}  {path}");
         }
 
         Assert.True(stats.Total >= 10_000, $"only {stats.Total} inputs");
         // The mutations must reach past the YAML parser into the field checks, and some must still load.
-        Assert.True(stats.Refused - stats.YamlProblems > stats.Total / 3, $"{stats.Refused - stats.YamlProblems} field errors of {stats.Total}");
+        Assert.True(
+            stats.Refused - stats.YamlProblems > stats.Total / 3,
+            $"{stats.Refused - stats.YamlProblems} field errors of {stats.Total}"
+        );
         Assert.True(stats.Paths.Count >= 40, $"only {stats.Paths.Count} distinct field paths reached");
         Assert.True(stats.Loaded > stats.Total / 50, $"only {stats.Loaded} inputs loaded");
     }
@@ -57,11 +63,18 @@ public sealed class RecipeLoaderFuzzTests(ITestOutputHelper output)
             stats.Refused++;
             stats.YamlProblems += e.FieldPath == "(document)" ? 1 : 0;
             stats.Paths[Normalise(e.FieldPath)] = stats.Paths.GetValueOrDefault(Normalise(e.FieldPath)) + 1;
-            Assert.True(e.Line >= 1 && e.Line <= lineCount + 1, $"line {e.Line} outside 1..{lineCount + 1}: {e.Message}\n{c}\n{text}");
+            Assert.True(
+                e.Line >= 1 && e.Line <= lineCount + 1,
+                $"line {e.Line} outside 1..{lineCount + 1}: {e.Message}\n{c}\n{text}"
+            );
             Assert.Equal(FileName, e.FileName);
             Assert.False(string.IsNullOrWhiteSpace(e.FieldPath), $"no field path: {e.Message}\n{c}\n{text}");
             Assert.False(string.IsNullOrWhiteSpace(e.Expected), $"nothing expected: {e.Message}\n{c}");
-            Assert.StartsWith($"{FileName}:{e.Line}:{e.Column}: {e.FieldPath}: expected ", e.Message, StringComparison.Ordinal);
+            Assert.StartsWith(
+                $"{FileName}:{e.Line}:{e.Column}: {e.FieldPath}: expected ",
+                e.Message,
+                StringComparison.Ordinal
+            );
             return;
         }
         catch (Exception e)
@@ -71,11 +84,18 @@ public sealed class RecipeLoaderFuzzTests(ITestOutputHelper output)
         }
 
         stats.Loaded++;
-        Assert.All(recipe.Positions, p => Assert.True(double.IsFinite(p.Nominal) && p.Nominal > 0, $"{p.Name} nominal {p.Nominal}\n{c}"));
+        Assert.All(recipe.Positions, p =>
+            Assert.True(double.IsFinite(p.Nominal) && p.Nominal > 0, $"{p.Name} nominal {p.Nominal}\n{c}")
+        );
         if (recipe.Form == RecipeForm.Network)
         {
             var checks = NetworkEvaluator.Evaluate(recipe, recipe.Positions.ToDictionary(p => p.Name, p => p.Nominal));
-            Assert.All(checks, o => Assert.True(double.IsFinite(o.Value) && double.IsFinite(o.WorstCaseError), $"{o.Name} = {o.Value}\n{c}\n{text}"));
+            Assert.All(checks, o =>
+                Assert.True(
+                    double.IsFinite(o.Value) && double.IsFinite(o.WorstCaseError),
+                    $"{o.Name} = {o.Value}\n{c}\n{text}"
+                )
+            );
         }
         else
         {

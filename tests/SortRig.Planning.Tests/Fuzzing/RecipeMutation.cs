@@ -28,28 +28,176 @@ public sealed record RecipeMutation(MutationKind Kind, int A, int B, int C)
 {
     private static readonly Regex s_token = new(@"[A-Za-z0-9_.+\-]+", RegexOptions.Compiled);
 
-    /// <summary>Scalar replacements: wrong signs, zero, huge, tiny, NaN/inf spellings, empty, nulls, structures, YAML oddities.</summary>
+    /// <summary>Scalar replacements: wrong signs, zero, huge, tiny, NaN/inf spellings, empty, nulls, structures, YAML
+    /// oddities.</summary>
     internal static readonly string[] Scalars =
     [
-        "-1", "0", "-0", "1e308", "1e400", "-1e400", "1e308M", "9e307k", "1e-320", "5e-324", "NaN", ".nan", "nan", ".inf", "-.inf",
-        "Infinity", "-Infinity", "''", "' '", "\" \"", "~", "null", "abc", "10k", "0k", "-10k", "1M", "k", "M", "R", "4k99",
-        "10kk", "[]", "{}", "[a, b]", "{ a: 1 }", "'quoted'", "\"unterminated", "&anchor x", "*alias", "!!int 5", "!tag x",
-        "0x10", "1_000", "1,5", "+5", "1e6", "1000000", "1000001", "0.0001", "1e-7", "gnd", "in", "R1", "series", "parallel",
-        "matched", "network", "voltage-ratio", "gain", "node-voltage", "position-ratio", "a - b", "gnd - gnd", "in - t10 - t100",
-        "|", ">", "- x", "? x", "%", "@", "`", "#", ": ", "é", "\t", new string('9', 400), "x" + new string('y', 2000),
+        "-1",
+        "0",
+        "-0",
+        "1e308",
+        "1e400",
+        "-1e400",
+        "1e308M",
+        "9e307k",
+        "1e-320",
+        "5e-324",
+        "NaN",
+        ".nan",
+        "nan",
+        ".inf",
+        "-.inf",
+        "Infinity",
+        "-Infinity",
+        "''",
+        "' '",
+        "\" \"",
+        "~",
+        "null",
+        "abc",
+        "10k",
+        "0k",
+        "-10k",
+        "1M",
+        "k",
+        "M",
+        "R",
+        "4k99",
+        "10kk",
+        "[]",
+        "{}",
+        "[a, b]",
+        "{ a: 1 }",
+        "'quoted'",
+        "\"unterminated",
+        "&anchor x",
+        "*alias",
+        "!!int 5",
+        "!tag x",
+        "0x10",
+        "1_000",
+        "1,5",
+        "+5",
+        "1e6",
+        "1000000",
+        "1000001",
+        "0.0001",
+        "1e-7",
+        "gnd",
+        "in",
+        "R1",
+        "series",
+        "parallel",
+        "matched",
+        "network",
+        "voltage-ratio",
+        "gain",
+        "node-voltage",
+        "position-ratio",
+        "a - b",
+        "gnd - gnd",
+        "in - t10 - t100",
+        "|",
+        ">",
+        "- x",
+        "? x",
+        "%",
+        "@",
+        "`",
+        "#",
+        ": ",
+        "é",
+        "\t",
+        new string('9', 400),
+        "x" + new string('y', 2000),
     ];
 
     private static readonly string[] s_keys =
     [
-        "recipe", "description", "form", "match-ppm", "base", "positions", "name", "nominal", "ratio", "pairs", "between",
-        "ground", "sources", "plus", "minus", "volts", "amplifiers", "output", "outputs", "kind", "node", "target-volts",
-        "tolerance-mv", "numerator", "denominator", "target", "tolerance-ppm", "input", "drive", "bogus", "Nominal", "",
+        "recipe",
+        "description",
+        "form",
+        "match-ppm",
+        "base",
+        "positions",
+        "name",
+        "nominal",
+        "ratio",
+        "pairs",
+        "between",
+        "ground",
+        "sources",
+        "plus",
+        "minus",
+        "volts",
+        "amplifiers",
+        "output",
+        "outputs",
+        "kind",
+        "node",
+        "target-volts",
+        "tolerance-mv",
+        "numerator",
+        "denominator",
+        "target",
+        "tolerance-ppm",
+        "input",
+        "drive",
+        "bogus",
+        "Nominal",
+        "",
     ];
 
     private static readonly string[] s_junk =
-        ["\0", "\t", "{", "}", "[", "]", "\"", "'", "&", "*", "!", "%", "@", "`", "|", ">", ":", "-", "#", ",", "?", "\r", "\n", "\u00ff", "\uFEFF", "\uD800", "\u2028", "\x7f", "\x1b"];
+    [
+        "\0",
+        "\t",
+        "{",
+        "}",
+        "[",
+        "]",
+        "\"",
+        "'",
+        "&",
+        "*",
+        "!",
+        "%",
+        "@",
+        "`",
+        "|",
+        ">",
+        ":",
+        "-",
+        "#",
+        ",",
+        "?",
+        "\r",
+        "\n",
+        "\u00ff",
+        "\uFEFF",
+        "\uD800",
+        "\u2028",
+        "\x7f",
+        "\x1b",
+    ];
 
-    private static readonly string[] s_nodes = ["gnd", "in", "out", "t10", "t100", "inp", "inn", "np", "nm", "n0", "n1", "n7", "b0", "nowhere"];
+    private static readonly string[] s_nodes =
+    [
+        "gnd",
+        "in",
+        "out",
+        "t10",
+        "t100",
+        "inp",
+        "inn",
+        "np",
+        "nm",
+        "n0",
+        "n1",
+        "n7",
+        "b0",
+        "nowhere",
+    ];
 
     /// <summary>Applies the mutation to the lines of a recipe (modified in place).</summary>
     public void Apply(List<string> lines)
@@ -85,7 +233,12 @@ public sealed record RecipeMutation(MutationKind Kind, int A, int B, int C)
                 break;
             case MutationKind.UnknownKey:
                 var indent = line.Length - line.TrimStart(' ').Length;
-                var key = (B % 3) switch { 0 => "zz-unknown", 1 => s_keys[C % s_keys.Length], _ => "x" + C };
+                var key = (B % 3) switch
+                {
+                    0 => "zz-unknown",
+                    1 => s_keys[C % s_keys.Length],
+                    _ => "x" + C,
+                };
                 lines.Insert(i, (C % 2 == 0 ? new string(' ', indent) : "") + key + ": " + Scalars[B % Scalars.Length]);
                 break;
             case MutationKind.Truncate:
@@ -105,10 +258,21 @@ public sealed record RecipeMutation(MutationKind Kind, int A, int B, int C)
                 lines[i] = line[..at] + junk + line[at..];
                 break;
             case MutationKind.Unclose:
-                var closers = line.Select((ch, k) => (ch, k)).Where(t => t.ch is '}' or ']' or '"' or '\'').Select(t => t.k).ToList();
-                lines[i] = closers.Count > 0 && B % 3 != 0
-                    ? line.Remove(closers[C % closers.Count], 1)
-                    : line + (C % 4) switch { 0 => " {", 1 => " [", 2 => " \"", _ => " '" };
+                var closers = line.Select((ch, k) => (ch, k))
+                    .Where(t => t.ch is '}' or ']' or '"' or '\'')
+                    .Select(t => t.k)
+                    .ToList();
+                lines[i] =
+                    closers.Count > 0 && B % 3 != 0
+                        ? line.Remove(closers[C % closers.Count], 1)
+                        : line
+                            + (C % 4) switch
+                            {
+                                0 => " {",
+                                1 => " [",
+                                2 => " \"",
+                                _ => " '",
+                            };
                 break;
             case MutationKind.SwapLines:
                 var j = B % lines.Count;

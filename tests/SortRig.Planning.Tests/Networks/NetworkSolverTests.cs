@@ -16,8 +16,14 @@ public sealed class NetworkSolverTests
     [InlineData(2.5, 1_000, 3_300)]
     public void Divider_OutputIsVinTimesR2OverR1PlusR2(double vin, double r1, double r2)
     {
-        // Voltage divider rule Vout = Vin R2 / (R1 + R2): textbook (Horowitz & Hill, The Art of Electronics 3rd ed., 1.2.3; from memory).
-        var net = new Netlist("gnd", [new("R1", "in", "out"), new("R2", "out", "gnd")], [new("V1", "in", "gnd", vin)], []);
+        // Voltage divider rule Vout = Vin R2 / (R1 + R2): textbook (Horowitz & Hill, The Art of Electronics 3rd ed.,
+        // 1.2.3; from memory).
+        var net = new Netlist(
+            "gnd",
+            [new("R1", "in", "out"), new("R2", "out", "gnd")],
+            [new("V1", "in", "gnd", vin)],
+            []
+        );
         var sol = NetworkSolver.Solve(net, Values(("R1", r1), ("R2", r2)));
         Assert.Equal(vin * r2 / (r1 + r2), sol.Voltage(s_out), 12);
     }
@@ -25,7 +31,12 @@ public sealed class NetworkSolverTests
     [Theory]
     [InlineData(1_000, 2_000, 5_000, 10_000)]
     [InlineData(10_000, 10_000, 4_700, 4_700)]
-    public void WheatstoneBridge_BalancedWhenR1OverR2EqualsR3OverR4_DifferentialOutputIsZero(double r1, double r2, double r3, double r4)
+    public void WheatstoneBridge_BalancedWhenR1OverR2EqualsR3OverR4_DifferentialOutputIsZero(
+        double r1,
+        double r2,
+        double r3,
+        double r4
+    )
     {
         // Wheatstone bridge balance condition R1/R2 = R3/R4 gives zero differential output: textbook (from memory).
         var sol = NetworkSolver.Solve(Bridge(), Values(("R1", r1), ("R2", r2), ("R3", r3), ("R4", r4)));
@@ -43,7 +54,8 @@ public sealed class NetworkSolverTests
     [Fact]
     public void R2RLadder_EightBits_OutputIsVrefTimesCodeOver256_ForAllCodes()
     {
-        // Voltage-mode R-2R ladder: Vout = Vref * code / 2^n, textbook result (Horowitz & Hill 3rd ed. 13.2; from memory).
+        // Voltage-mode R-2R ladder: Vout = Vref * code / 2^n, textbook result (Horowitz & Hill 3rd ed. 13.2; from
+        // memory).
         var net = Ladder.Netlist(8);
         var values = Ladder.Nominal(8);
         for (var code = 0; code < 256; code++)
@@ -76,7 +88,12 @@ public sealed class NetworkSolverTests
     public void InvertingAmplifier_GainIsMinusR2OverR1()
     {
         // Ideal op-amp inverting amplifier G = −R2/R1: textbook (Horowitz & Hill 3rd ed. 4.2.1; from memory).
-        var net = new Netlist("gnd", [new("R1", "in", "nm"), new("R2", "nm", "out")], [new("V1", "in", "gnd", 0.1)], [new("U1", "gnd", "nm", "out")]);
+        var net = new Netlist(
+            "gnd",
+            [new("R1", "in", "nm"), new("R2", "nm", "out")],
+            [new("V1", "in", "gnd", 0.1)],
+            [new("U1", "gnd", "nm", "out")]
+        );
         var sol = NetworkSolver.Solve(net, Values(("R1", 1_000), ("R2", 47_000)));
         Assert.Equal(-4.7, sol.Voltage(s_out), 12);
     }
@@ -85,7 +102,10 @@ public sealed class NetworkSolverTests
     public void DifferenceAmplifier_Matched_OutputIsR2OverR1TimesDifference()
     {
         // Four-resistor difference amplifier with R4/R3 = R2/R1: Vout = (R2/R1)(V+ − V−), textbook (from memory).
-        var sol = NetworkSolver.Solve(DiffAmp(0.7, 0.2), Values(("R1", 1_000), ("R2", 10_000), ("R3", 1_000), ("R4", 10_000)));
+        var sol = NetworkSolver.Solve(
+            DiffAmp(0.7, 0.2),
+            Values(("R1", 1_000), ("R2", 10_000), ("R3", 1_000), ("R4", 10_000))
+        );
         Assert.Equal(10 * (0.7 - 0.2), sol.Voltage(s_out), 12);
     }
 
@@ -96,17 +116,21 @@ public sealed class NetworkSolverTests
         Assert.Throws<InvalidOperationException>(() => NetworkSolver.Solve(net, Values(("R1", 1e3), ("R2", 1e3))));
     }
 
-    internal static Netlist Bridge() => new(
-        "gnd",
-        [new("R1", "top", "a"), new("R2", "a", "gnd"), new("R3", "top", "b"), new("R4", "b", "gnd")],
-        [new("V1", "top", "gnd", 5.0)],
-        []);
+    internal static Netlist Bridge() =>
+        new(
+            "gnd",
+            [new("R1", "top", "a"), new("R2", "a", "gnd"), new("R3", "top", "b"), new("R4", "b", "gnd")],
+            [new("V1", "top", "gnd", 5.0)],
+            []
+        );
 
-    internal static Netlist DiffAmp(double vp, double vn) => new(
-        "gnd",
-        [new("R1", "inn", "nm"), new("R2", "nm", "out"), new("R3", "inp", "np"), new("R4", "np", "gnd")],
-        [new("VP", "inp", "gnd", vp), new("VN", "inn", "gnd", vn)],
-        [new("U1", "np", "nm", "out")]);
+    internal static Netlist DiffAmp(double vp, double vn) =>
+        new(
+            "gnd",
+            [new("R1", "inn", "nm"), new("R2", "nm", "out"), new("R3", "inp", "np"), new("R4", "np", "gnd")],
+            [new("VP", "inp", "gnd", vp), new("VN", "inn", "gnd", vn)],
+            [new("U1", "np", "nm", "out")]
+        );
 
     private static double EquivalentOf(bool parallel, double r1, double r2)
     {
@@ -115,7 +139,9 @@ public sealed class NetworkSolverTests
             ? [new("A", "in", "x"), new("B", "in", "x"), new("REF", "x", "gnd")]
             : [new("A", "in", "m"), new("B", "m", "x"), new("REF", "x", "gnd")];
         var net = new Netlist("gnd", combo, [new("V1", "in", "gnd", 1.0)], []);
-        var vx = NetworkSolver.Solve(net, Values(("A", r1), ("B", r2), ("REF", 10_000))).Voltage(new NodeProbe("x", null));
+        var vx = NetworkSolver
+            .Solve(net, Values(("A", r1), ("B", r2), ("REF", 10_000)))
+            .Voltage(new NodeProbe("x", null));
         return 10_000 * ((1.0 / vx) - 1);
     }
 }

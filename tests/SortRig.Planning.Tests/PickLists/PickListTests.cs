@@ -19,7 +19,9 @@ public sealed class PickListTests
         Assert.Equal(result.Sets.Count, list.Sets.Count);
         var picked = list.Sets.SelectMany(s => s.Items).Select(i => i.PartId!.Value).Concat(list.UnusedPartIds).Order();
         Assert.Equal(parts.Select(p => p.Id).Order(), picked);
-        Assert.All(list.Sets.SelectMany(s => s.Items), i => Assert.Equal(parts.Single(p => p.Id == i.PartId).Location, i.Source));
+        Assert.All(list.Sets.SelectMany(s => s.Items), i =>
+            Assert.Equal(parts.Single(p => p.Id == i.PartId).Location, i.Source)
+        );
     }
 
     [Fact]
@@ -36,16 +38,28 @@ public sealed class PickListTests
         var rows = new List<(string Set, string Part, string Value, string Outputs)>();
         while (reader.Read())
         {
-            rows.Add((reader.GetString("set"), reader.GetString("part"), reader.GetString("value_ohm"), reader.GetString("set_outputs")));
+            rows.Add(
+                (
+                    reader.GetString("set"),
+                    reader.GetString("part"),
+                    reader.GetString("value_ohm"),
+                    reader.GetString("set_outputs")
+                )
+            );
         }
 
         Assert.Equal(PickListCsv.Columns, reader.Headers);
-        var items = list.Sets.SelectMany(s => s.Items.Select(i => (s.Number.ToString(), i.PartId.ToString()!, i.Value!.Value))).ToList();
+        var items = list
+            .Sets.SelectMany(s => s.Items.Select(i => (s.Number.ToString(), i.PartId.ToString()!, i.Value!.Value)))
+            .ToList();
         Assert.Equal(items.Count, rows.Count);
         Assert.All(items.Zip(rows), t =>
         {
             Assert.Equal((t.First.Item1, t.First.Item2), (t.Second.Set, t.Second.Part));
-            Assert.Equal(t.First.Value, double.Parse(t.Second.Value, System.Globalization.CultureInfo.InvariantCulture));
+            Assert.Equal(
+                t.First.Value,
+                double.Parse(t.Second.Value, System.Globalization.CultureInfo.InvariantCulture)
+            );
             Assert.StartsWith("ratio-match=", t.Second.Outputs, StringComparison.Ordinal);
         });
     }

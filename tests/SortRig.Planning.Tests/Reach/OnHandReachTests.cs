@@ -9,9 +9,14 @@ namespace SortRig.Planning.Tests.Reach;
 public sealed class OnHandReachTests
 {
     private static Recipe Pair(double ppm) =>
-        RecipeLoader.Load($"recipe: pair\nform: matched\nmatch-ppm: {ppm}\npositions:\n  - {{ name: A, nominal: 10k }}\n  - {{ name: B, nominal: 10k }}\n", "pair.yaml");
+        RecipeLoader.Load(
+            $"recipe: pair\nform: matched\nmatch-ppm: {ppm}\npositions:\n  - {{ name: A, nominal: 10k }}\n  - {{ "
+                + $"name: B, nominal: 10k }}\n",
+            "pair.yaml"
+        );
 
-    private static PartCandidate Part(long id, double ppm) => new(id, 10e3, new MeasuredValue(10e3 * (1 + (ppm * 1e-6)), 0, 0), null);
+    private static PartCandidate Part(long id, double ppm) =>
+        new(id, 10e3, new MeasuredValue(10e3 * (1 + (ppm * 1e-6)), 0, 0), null);
 
     [Fact]
     public void OnePair_TightestMatch_IsTheClosestNeighboursRatio()
@@ -43,15 +48,18 @@ public sealed class OnHandReachTests
     [Fact]
     public void Reach_AgreesWithTheAssembler_AtTheReportedMatchAndJustTighter()
     {
-        // A seeded ±1 % normal reel of 200 parts for the matched quad; the assembler run at the reported match makes the
-        // sets wanted, and at the tighter end of the final bracket it makes fewer.
+        // A seeded ±1 % normal reel of 200 parts for the matched quad; the assembler run at the reported match makes
+        // the sets wanted, and at the tighter end of the final bracket it makes fewer.
         var recipe = RecipeLoader.Load(File.ReadAllText(RepoPaths.Recipe("matched-quad.yaml")), "matched-quad.yaml");
         var rng = new Random(42);
-        var parts = Enumerable.Range(0, 200).Select(i =>
-        {
-            var v = 10e3 * (1 + MathNet.Numerics.Distributions.Normal.Sample(rng, 0, 0.01 / 3));
-            return new PartCandidate(i, 10e3, new MeasuredValue(v, v * 10e-6, v * 10e-6), null);
-        }).ToList();
+        var parts = Enumerable
+            .Range(0, 200)
+            .Select(i =>
+            {
+                var v = 10e3 * (1 + MathNet.Numerics.Distributions.Normal.Sample(rng, 0, 0.01 / 3));
+                return new PartCandidate(i, 10e3, new MeasuredValue(v, v * 10e-6, v * 10e-6), null);
+            })
+            .ToList();
         var reach = new OnHandReach().Find(recipe, parts, 30);
         var assembler = new SetAssembler(OrderOptions.FastAssembly);
         Assert.True(assembler.Assemble(ToleranceScale.Apply(recipe, reach.Scale), parts).Sets.Count >= 30);
@@ -71,7 +79,8 @@ public sealed class OnHandReachTests
     public void ExtraPart_BandSitsAroundALeftover_WithinTheMatch()
     {
         // Three isolated parts (5 000 ppm apart) make no pair at 1 000 ppm; one extra part within 1 000 ppm in ratio of
-        // any of them makes one (the matched rule). The widest band found must hold a leftover and be about 2 000 ppm wide.
+        // any of them makes one (the matched rule). The widest band found must hold a leftover and be about 2 000 ppm
+        // wide.
         var parts = new[] { Part(1, 0), Part(2, 5000), Part(3, 10000) };
         var reach = new OnHandReach().Find(Pair(20_000), parts, 1);
         Assert.Equal(1, reach.SetsAsWritten);
@@ -86,7 +95,9 @@ public sealed class OnHandReachTests
     [Fact]
     public void TooFewParts_IsRefusedWithTheCount()
     {
-        var e = Assert.Throws<OrderRefusedException>(() => new OnHandReach().Find(Pair(1000), [Part(1, 0), Part(2, 10)], 2));
+        var e = Assert.Throws<OrderRefusedException>(() =>
+            new OnHandReach().Find(Pair(1000), [Part(1, 0), Part(2, 10)], 2)
+        );
         Assert.Contains("fill at most 2", e.Message, StringComparison.Ordinal);
         Assert.Throws<OrderRefusedException>(() => new OnHandReach().Find(Pair(1000), [Part(1, 0), Part(2, 10)], 0));
     }

@@ -4,7 +4,10 @@ namespace SortRig.Reporting.Tests.Plots;
 
 public sealed class ReelHistogramPlotTests
 {
-    private static readonly double[] s_values = DemoData.Parts(400, 10_000, -800, 2500, seed: 1).Select(p => p.ValueOhms).ToArray();
+    private static readonly double[] s_values = DemoData
+        .Parts(400, 10_000, -800, 2500, seed: 1)
+        .Select(p => p.ValueOhms)
+        .ToArray();
 
     [Fact]
     public void Render_GivenBinWidth_CountsEqualIndependentFloorBinning()
@@ -30,7 +33,10 @@ public sealed class ReelHistogramPlotTests
     [Fact]
     public void Render_OnePercentReel_MarksToleranceAndCupEdges()
     {
-        var plot = ReelHistogramPlot.Render(new ReelHistogramInput(10_000, s_values, 1.0, [-2000, 0, 2000]), PlotSize.Default);
+        var plot = ReelHistogramPlot.Render(
+            new ReelHistogramInput(10_000, s_values, 1.0, [-2000, 0, 2000]),
+            PlotSize.Default
+        );
 
         Assert.Equal([-10_000.0, 10_000.0], plot.Data.ToleranceLimitsPpm); // 1 % = 10 000 ppm
         Assert.Equal([-2000.0, 0, 2000], plot.Data.CupEdgesPpm);
@@ -70,7 +76,10 @@ public sealed class ReelHistogramPlotTests
     [Fact]
     public void Render_Png_HasSignatureIhdrSizeAndDecodes()
     {
-        var plot = ReelHistogramPlot.Render(new ReelHistogramInput(4990, [4990.5, 4989.7, 4991.2], null, []), new PlotSize(640, 480));
+        var plot = ReelHistogramPlot.Render(
+            new ReelHistogramInput(4990, [4990.5, 4989.7, 4991.2], null, []),
+            new PlotSize(640, 480)
+        );
 
         PngFile.AssertImage(plot.Png, 640, 480);
         Assert.Equal(3, plot.Data.Counts.Sum());
@@ -88,7 +97,9 @@ public sealed class ReelHistogramPlotTests
     [Fact]
     public void Render_BadNominal_ThrowsNamingField()
     {
-        var ex = Assert.Throws<ArgumentException>(() => ReelHistogramPlot.Render(new ReelHistogramInput(0, [1.0], null, []), PlotSize.Default));
+        var ex = Assert.Throws<ArgumentException>(() =>
+            ReelHistogramPlot.Render(new ReelHistogramInput(0, [1.0], null, []), PlotSize.Default)
+        );
         Assert.Contains("NominalOhms", ex.Message, StringComparison.Ordinal);
         Assert.Throws<ArgumentOutOfRangeException>(() => new PlotSize(100, 600));
     }

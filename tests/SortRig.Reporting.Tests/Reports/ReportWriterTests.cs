@@ -8,7 +8,10 @@ namespace SortRig.Reporting.Tests.Reports;
 
 public sealed class ReportWriterTests : IDisposable
 {
-    private readonly string _folder = Path.Combine(Path.GetTempPath(), "sortrig-report-" + Guid.NewGuid().ToString("N"));
+    private readonly string _folder = Path.Combine(
+        Path.GetTempPath(),
+        "sortrig-report-" + Guid.NewGuid().ToString("N")
+    );
     private readonly FakeTimeProvider _time = new(new DateTimeOffset(2025, 3, 2, 7, 30, 0, TimeSpan.Zero));
 
     public void Dispose()
@@ -21,8 +24,16 @@ public sealed class ReportWriterTests : IDisposable
 
     private static ReportInput Input()
     {
-        ReportPart[] parts = [.. DemoData.Parts(300, 10_000, -800, 2500, seed: 1), .. DemoData.Parts(120, 20_000, 1500, 3000, seed: 2, firstNumber: 301)];
-        ReportDriftSample[] drift = [.. DemoData.Channel("R-2R_MSB", 10_000, 480, 0.5, -3, 0.2, seed: 3), .. DemoData.Channel("ref 20k", 20_000, 480, -0.2, 0, 0.2, seed: 4, withTemperature: false)];
+        ReportPart[] parts =
+        [
+            .. DemoData.Parts(300, 10_000, -800, 2500, seed: 1),
+            .. DemoData.Parts(120, 20_000, 1500, 3000, seed: 2, firstNumber: 301),
+        ];
+        ReportDriftSample[] drift =
+        [
+            .. DemoData.Channel("R-2R_MSB", 10_000, 480, 0.5, -3, 0.2, seed: 3),
+            .. DemoData.Channel("ref 20k", 20_000, 480, -0.2, 0, 0.2, seed: 4, withTemperature: false),
+        ];
         return new ReportInput("Ladder batch 7", parts, [new ReportReel(10_000, 1.0, [-2000, 0, 2000])], drift);
     }
 
@@ -35,14 +46,26 @@ public sealed class ReportWriterTests : IDisposable
 
         string[] expected =
         [
-            "histogram_10k.png", "histogram_20k.png", "drift_R-2R_MSB.png", "adev_R-2R_MSB.png", "drift_ref_20k.png", "adev_ref_20k.png",
-            "parts.csv", "drift_samples.csv", "adev.csv", "summary.md",
+            "histogram_10k.png",
+            "histogram_20k.png",
+            "drift_R-2R_MSB.png",
+            "adev_R-2R_MSB.png",
+            "drift_ref_20k.png",
+            "adev_ref_20k.png",
+            "parts.csv",
+            "drift_samples.csv",
+            "adev.csv",
+            "summary.md",
         ];
         Assert.Equal(expected, manifest.Files);
         Assert.All(expected, f => Assert.True(File.Exists(Path.Combine(_folder, f)), f));
         foreach (string png in expected.Where(f => f.EndsWith(".png", StringComparison.Ordinal)))
         {
-            PngFile.AssertImage(await File.ReadAllBytesAsync(Path.Combine(_folder, png), CancellationToken.None), 800, 500);
+            PngFile.AssertImage(
+                await File.ReadAllBytesAsync(Path.Combine(_folder, png), CancellationToken.None),
+                800,
+                500
+            );
         }
     }
 
@@ -52,7 +75,10 @@ public sealed class ReportWriterTests : IDisposable
         var full = Input();
         var sortOnly = full with { DriftSamples = [] };
 
-        ReportManifest manifest = await new ReportWriter(_time, new ReportOptions(new SortRig.Reporting.Plots.PlotSize(400, 300))).WriteAsync(_folder, sortOnly, CancellationToken.None);
+        ReportManifest manifest = await new ReportWriter(
+            _time,
+            new ReportOptions(new SortRig.Reporting.Plots.PlotSize(400, 300))
+        ).WriteAsync(_folder, sortOnly, CancellationToken.None);
 
         Assert.Equal(["histogram_10k.png", "histogram_20k.png", "parts.csv", "summary.md"], manifest.Files);
         Assert.False(File.Exists(Path.Combine(_folder, "drift_samples.csv")));
@@ -71,7 +97,10 @@ public sealed class ReportWriterTests : IDisposable
 
         PartCsvRow[] parts = Read<PartCsvRow>("parts.csv");
         Assert.Equal(input.Parts.Count, parts.Length);
-        Assert.Equal(input.Parts.Select(p => (p.Number, p.NominalOhms, p.ValueOhms, p.StandardUncertaintyOhms, p.Cup)), parts.Select(r => (r.Number, r.NominalOhms, r.ValueOhms, r.StandardUncertaintyOhms, (string?)r.Cup)));
+        Assert.Equal(
+            input.Parts.Select(p => (p.Number, p.NominalOhms, p.ValueOhms, p.StandardUncertaintyOhms, p.Cup)),
+            parts.Select(r => (r.Number, r.NominalOhms, r.ValueOhms, r.StandardUncertaintyOhms, (string?)r.Cup))
+        );
         Assert.All(parts, r => Assert.Equal(((r.ValueOhms / r.NominalOhms) - 1) * 1e6, r.DeviationPpm, 9));
 
         DriftCsvRow[] drift = Read<DriftCsvRow>("drift_samples.csv");
@@ -98,13 +127,24 @@ public sealed class ReportWriterTests : IDisposable
         string md = await File.ReadAllTextAsync(manifest.SummaryPath, CancellationToken.None);
 
         Assert.Contains("# Ladder batch 7", md, StringComparison.Ordinal);
-        Assert.Contains("Generated 2025-03-02 07:30:00 UTC. 420 parts over 2 nominal values; 2 drift channels.", md, StringComparison.Ordinal);
+        Assert.Contains(
+            "Generated 2025-03-02 07:30:00 UTC. 420 parts over 2 nominal values; 2 drift channels.",
+            md,
+            StringComparison.Ordinal
+        );
 
         // Per-nominal mean and sample SD computed here without MathNet.
-        double[] ppm10k = input.Parts.Where(p => p.NominalOhms == 10_000).Select(p => ((p.ValueOhms / 10_000) - 1) * 1e6).ToArray();
+        double[] ppm10k = input
+            .Parts.Where(p => p.NominalOhms == 10_000)
+            .Select(p => ((p.ValueOhms / 10_000) - 1) * 1e6)
+            .ToArray();
         double mean = ppm10k.Sum() / ppm10k.Length;
         double sd = Math.Sqrt(ppm10k.Sum(d => (d - mean) * (d - mean)) / (ppm10k.Length - 1));
-        Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"| 10k Ω | 300 | {mean:F1} | {sd:F1} |"), md, StringComparison.Ordinal);
+        Assert.Contains(
+            string.Create(CultureInfo.InvariantCulture, $"| 10k Ω | 300 | {mean:F1} | {sd:F1} |"),
+            md,
+            StringComparison.Ordinal
+        );
         Assert.Contains("[histogram_10k.png](histogram_10k.png)", md, StringComparison.Ordinal);
 
         int cupA = input.Parts.Count(p => p.Cup == "A");
@@ -113,9 +153,24 @@ public sealed class ReportWriterTests : IDisposable
         // Known synthetic drift +0.5 ppm/h and tempco -3 ppm/K come back within 4 standard errors.
         ChannelSummary msb = manifest.Channels.Single(c => c.Channel == "R-2R_MSB");
         Assert.NotNull(msb.Joint);
-        Assert.InRange(msb.Joint.PpmPerHour.Value, 0.5 - (4 * msb.Joint.PpmPerHour.StandardError), 0.5 + (4 * msb.Joint.PpmPerHour.StandardError));
-        Assert.InRange(msb.Joint.PpmPerKelvin.Value, -3 - (4 * msb.Joint.PpmPerKelvin.StandardError), -3 + (4 * msb.Joint.PpmPerKelvin.StandardError));
-        Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"{msb.Joint.PpmPerKelvin.Value:+0.000;-0.000} ± {msb.Joint.PpmPerKelvin.StandardError:0.000}"), md, StringComparison.Ordinal);
+        Assert.InRange(
+            msb.Joint.PpmPerHour.Value,
+            0.5 - (4 * msb.Joint.PpmPerHour.StandardError),
+            0.5 + (4 * msb.Joint.PpmPerHour.StandardError)
+        );
+        Assert.InRange(
+            msb.Joint.PpmPerKelvin.Value,
+            -3 - (4 * msb.Joint.PpmPerKelvin.StandardError),
+            -3 + (4 * msb.Joint.PpmPerKelvin.StandardError)
+        );
+        Assert.Contains(
+            string.Create(
+                CultureInfo.InvariantCulture,
+                $"{msb.Joint.PpmPerKelvin.Value:+0.000;-0.000} ± {msb.Joint.PpmPerKelvin.StandardError:0.000}"
+            ),
+            md,
+            StringComparison.Ordinal
+        );
         Assert.Contains("n/a (no temperature logged)", md, StringComparison.Ordinal);
         Assert.Contains("| R-2R_MSB | 60 |", md, StringComparison.Ordinal); // ADEV row at tau = 60 s
         Assert.Contains("[ADEV](adev_R-2R_MSB.png)", md, StringComparison.Ordinal);
@@ -139,7 +194,12 @@ public sealed class ReportWriterTests : IDisposable
         string md = await File.ReadAllTextAsync(manifest.SummaryPath, CancellationToken.None);
 
         // Arithmetic (common practice, no source): 3 acceptances over 20 s are 2 intervals, 10 s each; 3600 / 10 = 360.
-        Assert.Contains("Pace: 10.0 s per part, 360 parts per hour (first accepted part to last, 3 parts); settled by averaging 1, predictive 2.", md, StringComparison.Ordinal);
+        Assert.Contains(
+            "Pace: 10.0 s per part, 360 parts per hour (first accepted part to last, 3 parts); settled by averaging "
+                + "1, predictive 2.",
+            md,
+            StringComparison.Ordinal
+        );
     }
 
     [Fact]
@@ -147,15 +207,24 @@ public sealed class ReportWriterTests : IDisposable
     {
         ReportManifest manifest = await new ReportWriter(_time).WriteAsync(_folder, Input(), CancellationToken.None);
 
-        Assert.DoesNotContain("Pace:", await File.ReadAllTextAsync(manifest.SummaryPath, CancellationToken.None), StringComparison.Ordinal);
+        Assert.DoesNotContain(
+            "Pace:",
+            await File.ReadAllTextAsync(manifest.SummaryPath, CancellationToken.None),
+            StringComparison.Ordinal
+        );
     }
 
     [Fact]
     public async Task WriteAsync_BadPart_ThrowsNamingIndexPartAndField()
     {
-        ReportInput input = Input() with { Parts = [new ReportPart(1, 100, 100.1, 0.001, null), new ReportPart(2, 100, double.NaN, 0.001, null)] };
+        ReportInput input = Input() with
+        {
+            Parts = [new ReportPart(1, 100, 100.1, 0.001, null), new ReportPart(2, 100, double.NaN, 0.001, null)],
+        };
 
-        var ex = await Assert.ThrowsAsync<ArgumentException>(() => new ReportWriter(_time).WriteAsync(_folder, input, CancellationToken.None));
+        var ex = await Assert.ThrowsAsync<ArgumentException>(() =>
+            new ReportWriter(_time).WriteAsync(_folder, input, CancellationToken.None)
+        );
 
         Assert.Contains("Parts[1] (part 2).ValueOhms", ex.Message, StringComparison.Ordinal);
         Assert.False(Directory.Exists(_folder));
@@ -167,7 +236,9 @@ public sealed class ReportWriterTests : IDisposable
         using var cts = new CancellationTokenSource();
         await cts.CancelAsync();
 
-        await Assert.ThrowsAnyAsync<OperationCanceledException>(() => new ReportWriter(_time).WriteAsync(_folder, Input(), cts.Token));
+        await Assert.ThrowsAnyAsync<OperationCanceledException>(() =>
+            new ReportWriter(_time).WriteAsync(_folder, Input(), cts.Token)
+        );
     }
 
     private T[] Read<T>(string file)

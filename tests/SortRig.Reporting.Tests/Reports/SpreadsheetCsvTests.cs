@@ -8,7 +8,10 @@ public sealed class SpreadsheetCsvTests
     // CSV injection: cells starting with =, +, -, @, tab or CR are run as formulas by spreadsheets; the advice is
     // a leading apostrophe (OWASP "CSV Injection", from memory). Numbers formatted as text stay numbers.
     [Theory]
-    [InlineData("=HYPERLINK(\"http://example.invalid\",\"click\")", "'=HYPERLINK(\"http://example.invalid\",\"click\")")]
+    [InlineData(
+        "=HYPERLINK(\"http://example.invalid\",\"click\")",
+        "'=HYPERLINK(\"http://example.invalid\",\"click\")"
+    )]
     [InlineData("@bag 7", "'@bag 7")]
     [InlineData("+cmd", "'+cmd")]
     [InlineData("-x", "'-x")]

@@ -74,10 +74,19 @@ public sealed class FaultTests : IAsyncLifetime
 
         // Armed for a reading: a reply that is not a reading passes untouched and leaves it armed.
         Assert.Equal(_bench.Identity, await _bench.ExecuteAsync("*IDN?"));
-        var nan = await VirtualTime.RunAsync(_clock, _bench.ExecuteAsync("MEAS:RES? 10000"), TimeSpan.FromMilliseconds(41));
-        var next = await VirtualTime.RunAsync(_clock, _bench.ExecuteAsync("MEAS:RES? 10000"), TimeSpan.FromMilliseconds(41));
+        var nan = await VirtualTime.RunAsync(
+            _clock,
+            _bench.ExecuteAsync("MEAS:RES? 10000"),
+            TimeSpan.FromMilliseconds(41)
+        );
+        var next = await VirtualTime.RunAsync(
+            _clock,
+            _bench.ExecuteAsync("MEAS:RES? 10000"),
+            TimeSpan.FromMilliseconds(41)
+        );
 
-        // 9.91E37 is SCPI's not-a-number (SCPI-99 vol. 1 sec. 7.2.1.5), in the meter's NR3 form (IEEE 488.2 sec. 8.7.4).
+        // 9.91E37 is SCPI's not-a-number (SCPI-99 vol. 1 sec. 7.2.1.5), in the meter's NR3 form (IEEE 488.2 sec.
+        // 8.7.4).
         Assert.Equal("+9.91000000E+37", nan);
         Assert.InRange(double.Parse(next!, System.Globalization.CultureInfo.InvariantCulture), 9_000, 11_000);
         Assert.Equal(1, _bench.Faults.Log.Count(FaultKind.NotANumber));
@@ -115,9 +124,13 @@ public sealed class FaultTests : IAsyncLifetime
 
         _bench.Faults.SetRate(FaultKind.SpuriousError, 0);
 
-        // Binomial(200, 0.2): mean 40, sd 5.7; 23..57 is +-3 sd (textbook identity: np, sqrt(np(1-p))). The queue keeps at most ErrorQueue.Capacity (16).
+        // Binomial(200, 0.2): mean 40, sd 5.7; 23..57 is +-3 sd (textbook identity: np, sqrt(np(1-p))). The queue keeps
+        // at most ErrorQueue.Capacity (16).
         var fired = _bench.Faults.Log.Count(FaultKind.SpuriousError);
         Assert.InRange(fired, 23, 57);
-        Assert.Equal(Math.Min(fired, ErrorQueue.Capacity), int.Parse(await _client.QueryAsync("SYST:ERR:COUN?"), System.Globalization.CultureInfo.InvariantCulture));
+        Assert.Equal(
+            Math.Min(fired, ErrorQueue.Capacity),
+            int.Parse(await _client.QueryAsync("SYST:ERR:COUN?"), System.Globalization.CultureInfo.InvariantCulture)
+        );
     }
 }

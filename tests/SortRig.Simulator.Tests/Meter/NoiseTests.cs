@@ -7,7 +7,14 @@ public sealed class NoiseTests
 {
     // Our documented noise and resolution table (docs/simulator.md), ppm of range: NPLC -> (noise, step).
     private static readonly (double Nplc, double NoisePpm, double StepPpm)[] s_table =
-        [(0.04, 12, 40), (0.4, 2, 4), (1, 0.7, 1), (4, 0.35, 0.5), (10, 0.25, 0.2), (40, 0.15, 0.1)];
+    [
+        (0.04, 12, 40),
+        (0.4, 2, 4),
+        (1, 0.7, 1),
+        (4, 0.35, 0.5),
+        (10, 0.25, 0.2),
+        (40, 0.15, 0.1),
+    ];
 
     [Fact]
     public async Task Rms_FallsWithNplc_AndMatchesDocumentedNoiseWhereStepIsFine()
@@ -19,7 +26,9 @@ public sealed class NoiseTests
         var rmsPpm = new List<double>();
         foreach (var (nplc, noise, step) in s_table)
         {
-            await bench.ExecuteAsync(string.Create(CultureInfo.InvariantCulture, $"CONF:RES 10000;:RES:NPLC {nplc};:SAMP:COUN 1000"));
+            await bench.ExecuteAsync(
+                string.Create(CultureInfo.InvariantCulture, $"CONF:RES 10000;:RES:NPLC {nplc};:SAMP:COUN 1000")
+            );
             var readingTime = TimeSpan.FromSeconds((nplc / 50 * 2) + 0.001);
             var reply = await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), readingTime);
             var rms = Numbers.RmsAboutMean(Numbers.ParseList(reply!)) / 10_000 * 1e6;
@@ -33,6 +42,9 @@ public sealed class NoiseTests
             }
         }
 
-        Assert.True(rmsPpm.Zip(rmsPpm.Skip(1)).All(p => p.First > p.Second), "RMS must fall with NPLC: " + string.Join(", ", rmsPpm));
+        Assert.True(
+            rmsPpm.Zip(rmsPpm.Skip(1)).All(p => p.First > p.Second),
+            "RMS must fall with NPLC: " + string.Join(", ", rmsPpm)
+        );
     }
 }

@@ -62,7 +62,9 @@ public sealed class RangeGainTests
     [Fact]
     public void Options_GainHalfWidthOutOfRange_NamesTheOption()
     {
-        var e = Assert.ThrowsAny<ArgumentException>(() => new SimulatedBench(Benches.Manual() with { RangeGainErrorPpm = 2000 }));
+        var e = Assert.ThrowsAny<ArgumentException>(() =>
+            new SimulatedBench(Benches.Manual() with { RangeGainErrorPpm = 2000 })
+        );
         Assert.Contains("RangeGainErrorPpm", e.Message, StringComparison.Ordinal);
     }
 }

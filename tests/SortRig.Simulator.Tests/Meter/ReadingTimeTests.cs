@@ -20,7 +20,9 @@ public sealed class ReadingTimeTests
         await using var bench = new SimulatedBench(Benches.Manual(), clock);
         var zero = autoZero ? "ON" : "OFF";
         await bench.ExecuteAsync(string.Create(CultureInfo.InvariantCulture, $"RES:NPLC {nplc};:ZERO:AUTO {zero}"));
-        var expected = TimeSpan.FromTicks((long)Math.Round(((nplc / 50 * (autoZero ? 2 : 1)) + 0.001) * TimeSpan.TicksPerSecond));
+        var expected = TimeSpan.FromTicks(
+            (long)Math.Round(((nplc / 50 * (autoZero ? 2 : 1)) + 0.001) * TimeSpan.TicksPerSecond)
+        );
 
         var read = bench.ExecuteAsync("READ?");
         clock.Advance(expected - TimeSpan.FromTicks(1));
@@ -28,7 +30,9 @@ public sealed class ReadingTimeTests
         Assert.False(read.IsCompleted);
 
         // The bench clock's timers resolve whole milliseconds: the reply comes at the next whole ms.
-        clock.Advance(TimeSpan.FromMilliseconds(Math.Ceiling(expected.TotalMilliseconds)) - expected + TimeSpan.FromTicks(1));
+        clock.Advance(
+            TimeSpan.FromMilliseconds(Math.Ceiling(expected.TotalMilliseconds)) - expected + TimeSpan.FromTicks(1)
+        );
         Assert.Equal(Numbers.Overflow, Numbers.Parse((await read.WaitAsync(TimeSpan.FromSeconds(5)))!));
     }
 

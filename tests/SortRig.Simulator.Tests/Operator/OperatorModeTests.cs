@@ -38,8 +38,14 @@ public sealed class OperatorModeTests
         await VirtualTime.EventuallyAsync(() => bench.Fixture.Occupant?.Index == 0, "first part after the cue");
     }
 
-    private static SimulatedBenchOptions Options(OperatorMode mode) => Benches.Manual(Benches.SingleNominal(10_000, count: 3)) with
-    {
-        Operator = new OperatorOptions { Mode = mode, HandlingTimeMin = s_handling, HandlingTimeMax = s_handling },
-    };
+    private static SimulatedBenchOptions Options(OperatorMode mode) =>
+        Benches.Manual(Benches.SingleNominal(10_000, count: 3)) with
+        {
+            Operator = new OperatorOptions
+            {
+                Mode = mode,
+                HandlingTimeMin = s_handling,
+                HandlingTimeMax = s_handling,
+            },
+        };
 }

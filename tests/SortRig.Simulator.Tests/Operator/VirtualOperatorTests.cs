@@ -46,8 +46,16 @@ public sealed class VirtualOperatorTests : IAsyncLifetime
         Assert.Equal(0, _bench.Fixture.Occupant!.Index);
         // 4 K warmer at 100 ppm/K: the part reads 400 ppm high right after insertion (by hand).
         await _bench.ExecuteAsync("CONF:RES 10000;:RES:NPLC 1");
-        var reply = await VirtualTime.RunAsync(_clock, _bench.ExecuteAsync("MEAS:RES? 10000"), TimeSpan.FromMilliseconds(41));
-        Assert.InRange((double.Parse(reply!, System.Globalization.CultureInfo.InvariantCulture) / _bench.Truth(0)) - 1, 350e-6, 400e-6);
+        var reply = await VirtualTime.RunAsync(
+            _clock,
+            _bench.ExecuteAsync("MEAS:RES? 10000"),
+            TimeSpan.FromMilliseconds(41)
+        );
+        Assert.InRange(
+            (double.Parse(reply!, System.Globalization.CultureInfo.InvariantCulture) / _bench.Truth(0)) - 1,
+            350e-6,
+            400e-6
+        );
     }
 
     [Fact]
@@ -113,7 +121,8 @@ public sealed class VirtualOperatorTests : IAsyncLifetime
 
                 return _bench.Operator.State == OperatorState.Finished;
             },
-            "finished");
+            "finished"
+        );
         _clock.Advance(TimeSpan.FromMinutes(5));
         Assert.False(_bench.Fixture.IsOccupied);
         Assert.Equal(4, _bench.Operator.NextIndex);
@@ -132,6 +141,9 @@ public sealed class VirtualOperatorTests : IAsyncLifetime
     {
         _bench.Operator.Start();
         _clock.Advance(TimeSpan.FromSeconds(2));
-        await VirtualTime.EventuallyAsync(() => _bench.Fixture.Occupant?.Index == expected, $"part {expected} inserted");
+        await VirtualTime.EventuallyAsync(
+            () => _bench.Fixture.Occupant?.Index == expected,
+            $"part {expected} inserted"
+        );
     }
 }

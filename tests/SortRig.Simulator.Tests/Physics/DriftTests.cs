@@ -16,12 +16,17 @@ public sealed class DriftTests
         await bench.ExecuteAsync("CONF:RES 10000;:RES:NPLC 40;:SAMP:COUN 4;:ROUT:CLOS (@101)");
         clock.Advance(TimeSpan.FromSeconds(1));
 
-        var evening = Numbers.ParseList((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(2)))!).Average();
+        var evening = Numbers
+            .ParseList((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(2)))!)
+            .Average();
         clock.Advance(TimeSpan.FromHours(10));
-        var morning = Numbers.ParseList((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(2)))!).Average();
+        var morning = Numbers
+            .ParseList((await VirtualTime.RunAsync(clock, bench.ExecuteAsync("READ?"), TimeSpan.FromSeconds(2)))!)
+            .Average();
 
-        // R(t) = R23 (1 + drift t): 10 h of drift, read at 40 NPLC (step 0.1 ppm, noise 0.15 ppm, 1.601 s a reading) as the
-        // mean of 4: sigma sqrt(0.15² + 0.1²/12)/2 = 0.077 ppm, so 0.5 ppm is 4.6 sigma for the difference of two means.
+        // R(t) = R23 (1 + drift t): 10 h of drift, read at 40 NPLC (step 0.1 ppm, noise 0.15 ppm, 1.601 s a reading) as
+        // the mean of 4: sigma sqrt(0.15² + 0.1²/12)/2 = 0.077 ppm, so 0.5 ppm is 4.6 sigma for the difference of two
+        // means.
         var driftPpm = ((morning / evening) - 1) * 1e6;
         Assert.Equal(part.DriftPpmPerHour * 10, driftPpm, 0.5);
         Assert.Equal(bench.Truth(part.Index), morning, 10_000 * 0.5e-6);

@@ -16,10 +16,14 @@ public sealed class LoosePartTests
 
         Assert.Equal((5, 6), (first.Index, second.Index));
         Assert.Equal(10_000, first.NominalOhms);
-        Assert.InRange(first.OhmsAt23C, 9_900, 10_100); // ReelSpec 1 % tolerance, Normal(0.4) never beyond 2.5 sigma here
+        // ReelSpec 1 % tolerance, Normal(0.4) never beyond 2.5 sigma here
+        Assert.InRange(first.OhmsAt23C, 9_900, 10_100);
         Assert.NotEqual(first.OhmsAt23C, second.OhmsAt23C);
         Assert.Equal(first.OhmsAt23C, bench.Truth(first.Index), 9); // 23 degC ambient, no drift
-        Assert.Equal(first, new SimulatedBench(Benches.Manual(Benches.SingleNominal(20_000, count: 5))).TakeLoosePart(10_000));
+        Assert.Equal(
+            first,
+            new SimulatedBench(Benches.Manual(Benches.SingleNominal(20_000, count: 5))).TakeLoosePart(10_000)
+        );
     }
 
     [Fact]

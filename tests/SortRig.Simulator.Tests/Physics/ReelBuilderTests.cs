@@ -9,7 +9,13 @@ public sealed class ReelBuilderTests
     public void Build_BimodalCulledCentre_HasNoPartInTheCentreAndBothHalvesPopulated()
     {
         // Parts culled from the middle of the band (sold as a tighter grade): common practice, no source.
-        var spec = new ReelSpec { Count = 2000, Nominals = [new(10_000, 1)], TolerancePercent = 1, Distribution = ValueDistribution.Bimodal(0.5, 0.4) };
+        var spec = new ReelSpec
+        {
+            Count = 2000,
+            Nominals = [new(10_000, 1)],
+            TolerancePercent = 1,
+            Distribution = ValueDistribution.Bimodal(0.5, 0.4),
+        };
 
         var parts = ReelBuilder.Build(spec, seed: 11);
 
@@ -21,7 +27,13 @@ public sealed class ReelBuilderTests
     [Fact]
     public void Build_Truncated_KeepsEveryPartInTolerance()
     {
-        var spec = new ReelSpec { Count = 2000, Nominals = [new(1_000, 1)], TolerancePercent = 0.5, Distribution = ValueDistribution.Truncated(0.8) };
+        var spec = new ReelSpec
+        {
+            Count = 2000,
+            Nominals = [new(1_000, 1)],
+            TolerancePercent = 0.5,
+            Distribution = ValueDistribution.Truncated(0.8),
+        };
 
         var parts = ReelBuilder.Build(spec, seed: 3);
 
@@ -31,7 +43,13 @@ public sealed class ReelBuilderTests
     [Fact]
     public void Build_Normal_SampleSigmaMatchesSpecWithinSamplingError()
     {
-        var spec = new ReelSpec { Count = 4000, Nominals = [new(10_000, 1)], TolerancePercent = 1, Distribution = ValueDistribution.Normal(0.3) };
+        var spec = new ReelSpec
+        {
+            Count = 4000,
+            Nominals = [new(10_000, 1)],
+            TolerancePercent = 1,
+            Distribution = ValueDistribution.Normal(0.3),
+        };
 
         var deviations = ReelBuilder.Build(spec, seed: 5).Select(p => p.Deviation).ToArray();
 
@@ -43,7 +61,13 @@ public sealed class ReelBuilderTests
     [Fact]
     public void Build_Uniform_SpansTheBandEvenly()
     {
-        var spec = new ReelSpec { Count = 4000, Nominals = [new(100, 1)], TolerancePercent = 2, Distribution = ValueDistribution.Uniform() };
+        var spec = new ReelSpec
+        {
+            Count = 4000,
+            Nominals = [new(100, 1)],
+            TolerancePercent = 2,
+            Distribution = ValueDistribution.Uniform(),
+        };
 
         var deviations = ReelBuilder.Build(spec, seed: 9).Select(p => p.Deviation / 0.02).ToArray();
 
@@ -78,7 +102,14 @@ public sealed class ReelBuilderTests
     [Fact]
     public void OhmsAt_FollowsLinearTempcoAndDrift()
     {
-        var part = new SimulatedPart(0, 10_000, 10_010, TempcoPpmPerKelvin: 50, DriftPpmPerHour: 2, TimeSpan.FromSeconds(4));
+        var part = new SimulatedPart(
+            0,
+            10_000,
+            10_010,
+            TempcoPpmPerKelvin: 50,
+            DriftPpmPerHour: 2,
+            TimeSpan.FromSeconds(4)
+        );
 
         // R = R23 (1 + alpha (T - 23)) (1 + drift h): 10 010 x (1 + 50e-6 x 10) x (1 + 2e-6 x 12), by hand.
         Assert.Equal(10_010 * 1.0005 * 1.000024, part.OhmsAt(33, 12), 9);

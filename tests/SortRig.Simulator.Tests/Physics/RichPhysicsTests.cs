@@ -7,7 +7,10 @@ namespace SortRig.Simulator.Tests.Physics;
 public sealed class RichPhysicsTests
 {
     private static SimulatedBenchOptions Rich(ReelSpec reel, PhysicsSpec? physics = null) =>
-        Benches.Manual(reel) with { Physics = (physics ?? new PhysicsSpec()) with { Model = PhysicsModel.Rich } };
+        Benches.Manual(reel) with
+        {
+            Physics = (physics ?? new PhysicsSpec()) with { Model = PhysicsModel.Rich },
+        };
 
     [Fact]
     public async Task Rich_SameSeed_SameReelValuesAsSimple_PlusLeadPaths()
@@ -30,9 +33,14 @@ public sealed class RichPhysicsTests
     [Fact]
     public void TwoPaths_TemperatureIsSumOfTwoNewtonDecays()
     {
-        var part = new SimulatedPart(0, 1000, 1000, 50, 0, TimeSpan.FromSeconds(4)) { LeadShare = 0.3, LeadTimeConstant = TimeSpan.FromSeconds(1) };
+        var part = new SimulatedPart(0, 1000, 1000, 50, 0, TimeSpan.FromSeconds(4))
+        {
+            LeadShare = 0.3,
+            LeadTimeConstant = TimeSpan.FromSeconds(1),
+        };
 
-        // Two independent first-order paths (common practice, no source): dT(t) = dT0 ((1-w) e^(-t/tau) + w e^(-t/tauL)).
+        // Two independent first-order paths (common practice, no source): dT(t) = dT0 ((1-w) e^(-t/tau) + w
+        // e^(-t/tauL)).
         Assert.Equal(28.0, PartThermal.Celsius(part, 23, 5, TimeSpan.Zero), 12);
         var at4 = PartThermal.Celsius(part, 23, 5, TimeSpan.FromSeconds(4));
         Assert.Equal(23 + (5 * ((0.7 / Math.E) + (0.3 * Math.Exp(-4)))), at4, 12);
@@ -53,7 +61,11 @@ public sealed class RichPhysicsTests
     [Fact]
     public async Task Rich_PresentedValue_ApproachesSelfHeatedSettledValue()
     {
-        var reel = Benches.SingleNominal(100, count: 1, tempco: 0) with { TempcoSigmaPpmPerKelvin = 0, TempcoMeanPpmPerKelvin = 80 };
+        var reel = Benches.SingleNominal(100, count: 1, tempco: 0) with
+        {
+            TempcoSigmaPpmPerKelvin = 0,
+            TempcoMeanPpmPerKelvin = 80,
+        };
         var clock = Benches.FakeClock();
         await using var bench = new SimulatedBench(Rich(reel, new PhysicsSpec { AmbientWanderKelvin = 0 }), clock);
         bench.Fixture.Insert(bench.Reel[0], warmKelvin: 4);
@@ -100,7 +112,13 @@ public sealed class RichPhysicsTests
     [Fact]
     public void ExcessNoise_Popcorn_StepsBetweenTwoLevelsAtTheMeanRate()
     {
-        var spec = new PhysicsSpec { FlickerPpm = 0, PopcornShare = 1, PopcornPpm = 4, PopcornDwell = TimeSpan.FromSeconds(6) };
+        var spec = new PhysicsSpec
+        {
+            FlickerPpm = 0,
+            PopcornShare = 1,
+            PopcornPpm = 4,
+            PopcornDwell = TimeSpan.FromSeconds(6),
+        };
         var noise = new ExcessNoise(spec, 13);
         var t0 = Benches.Start;
         noise.Reset(t0);

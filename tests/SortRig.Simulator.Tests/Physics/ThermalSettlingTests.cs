@@ -32,7 +32,10 @@ public sealed class ThermalSettlingTests
         // Newton cooling (common practice, no source): excess = alpha dT0 exp(-t / tau). Fit ln(excess) to a line
         // where the excess is well above the 0.2 ppm noise, past the 30 ms contact bounce.
         var usable = times.Zip(excess).Where(p => p.First > 0.1 && p.Second > 20e-6).ToArray();
-        var (intercept, slope) = Fit.Line(usable.Select(p => p.First).ToArray(), usable.Select(p => Math.Log(p.Second)).ToArray());
+        var (intercept, slope) = Fit.Line(
+            usable.Select(p => p.First).ToArray(),
+            usable.Select(p => Math.Log(p.Second)).ToArray()
+        );
         Assert.Equal(4.0, -1 / slope, 0.1);
         Assert.Equal(100e-6 * 5, Math.Exp(intercept), 0.02 * 500e-6);
         Assert.InRange(Math.Abs(excess[^1]), 0, 2e-6); // 40 s = 10 tau later: settled to truth

@@ -56,5 +56,6 @@ public sealed class CommandTests : IAsyncLifetime
 
     private Task<string?> Q(string message) => _bench.ExecuteAsync(message);
 
-    private async Task<string> Q2(string query) => await Q(query) ?? throw new InvalidOperationException($"No reply to {query}");
+    private async Task<string> Q2(string query) =>
+        await Q(query) ?? throw new InvalidOperationException($"No reply to {query}");
 }

@@ -15,11 +15,11 @@ public sealed class ErrorCodeTests : IAsyncLifetime
     [Theory]
     [InlineData("FOO:BAR 1", "-113,\"Undefined header\"")]
     [InlineData("RES:NPLC 5", "-224,\"Illegal parameter value\"")] // between settings 4 and 10 (our own rule)
-    [InlineData("RES:NPLC 50", "-222,\"Data out of range\"")]      // above the longest setting, 40
-    [InlineData("RES:RANG 6e7", "-222,\"Data out of range\"")]     // above the 50 MOhm top range
+    [InlineData("RES:NPLC 50", "-222,\"Data out of range\"")] // above the longest setting, 40
+    [InlineData("RES:RANG 6e7", "-222,\"Data out of range\"")] // above the 50 MOhm top range
     [InlineData("TRIG:COUN 0", "-222,\"Data out of range\"")]
-    [InlineData("TRIG:COUN 5001", "-222,\"Data out of range\"")]  // our own limits: 5000 triggers,
-    [InlineData("SAMP:COUN 1001", "-222,\"Data out of range\"")]  // 1000 samples per trigger,
+    [InlineData("TRIG:COUN 5001", "-222,\"Data out of range\"")] // our own limits: 5000 triggers,
+    [InlineData("SAMP:COUN 1001", "-222,\"Data out of range\"")] // 1000 samples per trigger,
     [InlineData("TRIG:COUN 21;:SAMP:COUN 1000;:INIT", "-223,\"Too much data\"")] // 20 000 readings per INITiate
     [InlineData("RES:NPLC", "-109,\"Missing parameter\"")]
     [InlineData("RES:NPLC 1,2", "-108,\"Parameter not allowed\"")]
@@ -106,5 +106,6 @@ public sealed class ErrorCodeTests : IAsyncLifetime
 
     private Task<string?> Q(string message) => _bench.ExecuteAsync(message);
 
-    private async Task<string> Q2(string query) => await Q(query) ?? throw new InvalidOperationException($"No reply to {query}");
+    private async Task<string> Q2(string query) =>
+        await Q(query) ?? throw new InvalidOperationException($"No reply to {query}");
 }

@@ -49,6 +49,5 @@ public sealed class MessageParserTests
     public void Nr3_FormatsLikeIeee4882(double value, string text) => Assert.Equal(text, Nr3.Format(value));
 
     [Fact]
-    public void ChannelList_ExpandsRanges() =>
-        Assert.Equal([101, 103, 104, 105], ChannelList.Parse("(@101,103:105)"));
+    public void ChannelList_ExpandsRanges() => Assert.Equal([101, 103, 104, 105], ChannelList.Parse("(@101,103:105)"));
 }

@@ -13,7 +13,11 @@ public sealed class Pt100ChannelTests
     public async Task Pt100Channel_FourWireReading_MatchesIec60751Table(double ambient, double tableOhms)
     {
         var clock = Benches.FakeClock();
-        var options = Benches.Manual() with { Ambient = new AmbientSpec { MeanCelsius = ambient }, Pt100Channel = 150 };
+        var options = Benches.Manual() with
+        {
+            Ambient = new AmbientSpec { MeanCelsius = ambient },
+            Pt100Channel = 150,
+        };
         await using var bench = new SimulatedBench(options, clock);
         await bench.ExecuteAsync("CONF:FRES 1000,MIN;:ROUT:CLOS (@150)");
 
@@ -26,7 +30,12 @@ public sealed class Pt100ChannelTests
     public async Task Pt100Channel_FollowsASwingingAmbient()
     {
         var clock = Benches.FakeClock();
-        var ambient = new AmbientSpec { MeanCelsius = 20, SwingKelvin = 3, Period = TimeSpan.FromHours(24) };
+        var ambient = new AmbientSpec
+        {
+            MeanCelsius = 20,
+            SwingKelvin = 3,
+            Period = TimeSpan.FromHours(24),
+        };
         await using var bench = new SimulatedBench(Benches.Manual() with { Ambient = ambient }, clock);
         await bench.ExecuteAsync("CONF:FRES 1000;:ROUT:CLOS (@117)");
 

@@ -58,7 +58,9 @@ public sealed class ReadingsOverTcpTests
         await using var _ = bench;
         await using var __ = client;
         bench.Fixture.Insert(bench.Reel[0]);
-        await client.SendAsync(string.Create(CultureInfo.InvariantCulture, $"CONF:RES 10000;:RES:NPLC {nplc};:SAMP:COUN 200"));
+        await client.SendAsync(
+            string.Create(CultureInfo.InvariantCulture, $"CONF:RES 10000;:RES:NPLC {nplc};:SAMP:COUN 200")
+        );
         await Task.Delay(50); // past contact bounce (30 ms at 1000x is 30 us)
 
         var values = await client.QueryNumbersAsync("READ?");
@@ -66,7 +68,12 @@ public sealed class ReadingsOverTcpTests
         var step = stepPpm * 1e-6 * 10_000;
         Assert.Equal(200, values.Length);
         Assert.All(values, v => Assert.Equal(Math.Round(v / step), v / step, 1e-3));
-        var gaps = values.Distinct().Order().Zip(values.Distinct().Order().Skip(1)).Select(p => p.Second - p.First).ToArray();
+        var gaps = values
+            .Distinct()
+            .Order()
+            .Zip(values.Distinct().Order().Skip(1))
+            .Select(p => p.Second - p.First)
+            .ToArray();
         if (nplc >= 0.4)
         {
             Assert.Equal(step, gaps.Min(), step * 1e-3); // noise spreads readings over neighbouring codes
@@ -96,7 +103,7 @@ public sealed class ReadingsOverTcpTests
         }
 
         Assert.Equal(Numbers.Overflow, values[5]); // empty channel 107
-        Assert.Equal(108.96, values[6], 0.02);      // Pt100 at 23 degC, IEC 60751 table (from memory)
+        Assert.Equal(108.96, values[6], 0.02); // Pt100 at 23 degC, IEC 60751 table (from memory)
     }
 
     [Fact]

@@ -17,15 +17,15 @@ public sealed class TcpServerTests : IAsyncLifetime
     }
 
     [Fact]
-    public async Task Idn_OverTcp_RepliesOneLine() =>
-        Assert.Equal(_bench.Identity, await _client.QueryAsync("*IDN?"));
+    public async Task Idn_OverTcp_RepliesOneLine() => Assert.Equal(_bench.Identity, await _client.QueryAsync("*IDN?"));
 
     [Fact]
     public async Task SequentialClients_EachGetServed_StateIsShared()
     {
         await _client.SendAsync("RES:NPLC 10");
-        // A command has no reply: *OPC? waits until it has run (IEEE 488.2 operation complete query, from memory), so the next client
-        // cannot be served before the old connection's last command (they are read on separate sockets).
+        // A command has no reply: *OPC? waits until it has run (IEEE 488.2 operation complete query, from memory), so
+        // the next client cannot be served before the old connection's last command (they are read on separate
+        // sockets).
         Assert.Equal("1", await _client.QueryAsync("*OPC?"));
         _client.Close();
 

@@ -11,22 +11,30 @@ internal static class Benches
 
     public static FakeTimeProvider FakeClock() => new(Start);
 
-    public static SimulatedBenchOptions Manual(ReelSpec? reel = null, int seed = 7) => new()
-    {
-        Seed = seed,
-        Reel = reel ?? new ReelSpec { Count = 20, Nominals = [new(10_000, 1)], TolerancePercent = 1 },
-        Operator = new OperatorOptions { Mode = OperatorMode.Manual },
-        TcpPort = 0,
-    };
+    public static SimulatedBenchOptions Manual(ReelSpec? reel = null, int seed = 7) =>
+        new()
+        {
+            Seed = seed,
+            Reel = reel
+                ?? new ReelSpec
+                {
+                    Count = 20,
+                    Nominals = [new(10_000, 1)],
+                    TolerancePercent = 1,
+                },
+            Operator = new OperatorOptions { Mode = OperatorMode.Manual },
+            TcpPort = 0,
+        };
 
     /// <summary>A reel of one nominal with a fixed tempco and time constant (no spread).</summary>
-    public static ReelSpec SingleNominal(double ohms, int count = 10, double tempco = 0, double tolerancePercent = 1) => new()
-    {
-        Count = count,
-        Nominals = [new(ohms, 1)],
-        TolerancePercent = tolerancePercent,
-        TempcoMeanPpmPerKelvin = tempco,
-        TempcoSigmaPpmPerKelvin = 0,
-        ThermalTimeConstantSpread = 0,
-    };
+    public static ReelSpec SingleNominal(double ohms, int count = 10, double tempco = 0, double tolerancePercent = 1) =>
+        new()
+        {
+            Count = count,
+            Nominals = [new(ohms, 1)],
+            TolerancePercent = tolerancePercent,
+            TempcoMeanPpmPerKelvin = tempco,
+            TempcoSigmaPpmPerKelvin = 0,
+            ThermalTimeConstantSpread = 0,
+        };
 }

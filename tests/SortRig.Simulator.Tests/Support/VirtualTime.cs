@@ -6,7 +6,12 @@ namespace SortRig.Simulator.Tests.Support;
 /// <summary>Drives a task that waits on a FakeTimeProvider to completion by advancing virtual time.</summary>
 internal static class VirtualTime
 {
-    public static async Task<T> RunAsync<T>(FakeTimeProvider clock, Task<T> task, TimeSpan step, int maxSteps = 2_000_000)
+    public static async Task<T> RunAsync<T>(
+        FakeTimeProvider clock,
+        Task<T> task,
+        TimeSpan step,
+        int maxSteps = 2_000_000
+    )
     {
         for (var i = 0; !task.IsCompleted; i++)
         {

@@ -16,7 +16,9 @@ public abstract partial class PrecisionLogContractTests
 
         Assert.True(again.Announced);
         Assert.Equal(PartState.Announced, again.State);
-        var missing = await Assert.ThrowsAsync<StorageException>(() => log.MarkAnnouncedAsync(part.Id + 1000, CancellationToken.None));
+        var missing = await Assert.ThrowsAsync<StorageException>(() =>
+            log.MarkAnnouncedAsync(part.Id + 1000, CancellationToken.None)
+        );
         Assert.Equal(StorageFault.NotFound, missing.Fault);
     }
 
@@ -29,7 +31,8 @@ public abstract partial class PrecisionLogContractTests
         await cts.CancelAsync();
 
         await Assert.ThrowsAnyAsync<OperationCanceledException>(() =>
-            log.CommitPartAsync(Bench.Part(session.Session.Id, batch, 10_000.1), cts.Token));
+            log.CommitPartAsync(Bench.Part(session.Session.Id, batch, 10_000.1), cts.Token)
+        );
 
         Assert.Empty(await log.GetPartsAsync(session.Session.Id, CancellationToken.None));
     }

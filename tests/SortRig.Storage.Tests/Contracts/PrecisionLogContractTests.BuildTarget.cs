@@ -2,10 +2,17 @@ using SortRig.Storage.Contracts;
 
 namespace SortRig.Storage.Tests.Contracts;
 
-/// <summary>The build target kept with a session (schema version 4): read back as written, replaced, refused for no session.</summary>
+/// <summary>The build target kept with a session (schema version 4): read back as written, replaced, refused for no
+/// session.</summary>
 public abstract partial class PrecisionLogContractTests
 {
-    private static readonly BuildTargetRecord s_target = new("ladder-pair", "/recipes/ladder-pair.yaml", "recipe: ladder-pair\nform: matched\n", 2, "/tmp/sets.csv");
+    private static readonly BuildTargetRecord s_target = new(
+        "ladder-pair",
+        "/recipes/ladder-pair.yaml",
+        "recipe: ladder-pair\nform: matched\n",
+        2,
+        "/tmp/sets.csv"
+    );
 
     [SkippableFact]
     public async Task BuildTarget_WrittenThenReopened_ReadsBackTheSame()
@@ -35,8 +42,12 @@ public abstract partial class PrecisionLogContractTests
     public async Task BuildTarget_NoSuchSession_NotFound()
     {
         var log = await CreateLogAsync();
-        var error = await Assert.ThrowsAsync<StorageException>(() => log.SetBuildTargetAsync(987_654, s_target, CancellationToken.None));
+        var error = await Assert.ThrowsAsync<StorageException>(() =>
+            log.SetBuildTargetAsync(987_654, s_target, CancellationToken.None)
+        );
         Assert.Equal(StorageFault.NotFound, error.Fault);
-        await Assert.ThrowsAsync<ArgumentOutOfRangeException>(() => log.SetBuildTargetAsync(1, s_target with { Sets = 0 }, CancellationToken.None));
+        await Assert.ThrowsAsync<ArgumentOutOfRangeException>(() =>
+            log.SetBuildTargetAsync(1, s_target with { Sets = 0 }, CancellationToken.None)
+        );
     }
 }

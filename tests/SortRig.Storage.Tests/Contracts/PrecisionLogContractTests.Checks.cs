@@ -9,11 +9,23 @@ public abstract partial class PrecisionLogContractTests
 {
     private const string CheckName = "library:ref-10k";
 
-    private static CheckCommit Check(
-        long sessionId, double value, bool inControl, int index = 0, Guid? key = null) => new(
-        key ?? Guid.NewGuid(), sessionId, CheckName, Bench.T0.AddMinutes(index), value, 100_000, value * 2e-6,
-        10_000.0, 10_000.0, 0.02, inControl, inControl ? "None" : "BeyondThreeSigma",
-        inControl ? null : "the check read +9.0 sigma from its centre", ScaleFactor: 1 - 50e-6);
+    private static CheckCommit Check(long sessionId, double value, bool inControl, int index = 0, Guid? key = null) =>
+        new(
+            key ?? Guid.NewGuid(),
+            sessionId,
+            CheckName,
+            Bench.T0.AddMinutes(index),
+            value,
+            100_000,
+            value * 2e-6,
+            10_000.0,
+            10_000.0,
+            0.02,
+            inControl,
+            inControl ? "None" : "BeyondThreeSigma",
+            inControl ? null : "the check read +9.0 sigma from its centre",
+            ScaleFactor: 1 - 50e-6
+        );
 
     [SkippableFact]
     public async Task Check_Recorded_ReadsBackWithSeqAndPartNumberAndGain()
@@ -111,10 +123,12 @@ public abstract partial class PrecisionLogContractTests
         await log.FinishSessionAsync(session.Session.Id, CancellationToken.None);
 
         var error = await Assert.ThrowsAsync<StorageException>(() =>
-            log.RecordCheckAsync(Check(session.Session.Id, 10_000, true), CancellationToken.None));
+            log.RecordCheckAsync(Check(session.Session.Id, 10_000, true), CancellationToken.None)
+        );
         Assert.Equal(StorageFault.Conflict, error.Fault);
         var bad = await Assert.ThrowsAnyAsync<ArgumentException>(() =>
-            log.RecordCheckAsync(Check(session.Session.Id, double.NaN, true), CancellationToken.None));
+            log.RecordCheckAsync(Check(session.Session.Id, double.NaN, true), CancellationToken.None)
+        );
         Assert.Contains("ValueOhms", bad.Message, StringComparison.Ordinal);
     }
 }

@@ -21,10 +21,11 @@ public abstract partial class PrecisionLogContractTests
             var setB = ids.Except(setA).OrderBy(_ => random.Next()).Take(2).Append(setA[random.Next(3)]).ToArray();
             var both = await Task.WhenAll(
                 Task.Run(() => benchA.TakePartsAsync(setA, "bench-A", CancellationToken.None)),
-                Task.Run(() => benchB.TakePartsAsync(setB, "bench-B", CancellationToken.None)));
+                Task.Run(() => benchB.TakePartsAsync(setB, "bench-B", CancellationToken.None))
+            );
 
-            // All parts were free at the start of the round, so the first committer wins everything it asked for and the
-            // other is refused as a whole.
+            // All parts were free at the start of the round, so the first committer wins everything it asked for and
+            // the other is refused as a whole.
             Assert.True(both[0].Succeeded ^ both[1].Succeeded, $"round {round}: exactly one bench must get its parts");
             var winner = both[0].Succeeded ? both[0] : both[1];
             var loser = both[0].Succeeded ? both[1] : both[0];
@@ -32,15 +33,26 @@ public abstract partial class PrecisionLogContractTests
 
             // The loser is told which parts and by whom: read under the lock of its refusal, so always the winner.
             Assert.Equal(loser.Refused.Order(), loser.Holders.Select(h => h.PartId));
-            Assert.All(loser.Holders, h => Assert.Equal((LibraryStatus.Taken, both[0].Succeeded ? "bench-A" : "bench-B"), (h.Status, h.TakenBy)));
+            Assert.All(loser.Holders, h =>
+                Assert.Equal((LibraryStatus.Taken, both[0].Succeeded ? "bench-A" : "bench-B"), (h.Status, h.TakenBy))
+            );
             Assert.Equal(setA.Intersect(setB).Order(), loser.Refused.Order());
             foreach (var part in winner.Changed)
             {
                 takes[part.Id] = takes.GetValueOrDefault(part.Id) + 1;
             }
 
-            Assert.Equal(3, (await benchA.FindPartsAsync(new LibraryQuery(Status: LibraryStatus.Taken), CancellationToken.None)).Count);
-            Assert.True((await benchB.ReleasePartsAsync(winner.Changed.Select(x => x.Id).ToArray(), CancellationToken.None)).Succeeded);
+            Assert.Equal(
+                3,
+                (
+                    await benchA.FindPartsAsync(new LibraryQuery(Status: LibraryStatus.Taken), CancellationToken.None)
+                ).Count
+            );
+            Assert.True(
+                (
+                    await benchB.ReleasePartsAsync(winner.Changed.Select(x => x.Id).ToArray(), CancellationToken.None)
+                ).Succeeded
+            );
         }
 
         Assert.Equal(600, takes.Values.Sum());
@@ -72,11 +84,21 @@ public abstract partial class PrecisionLogContractTests
         await Task.WhenAll(
             Task.Run(() => CommitMany(benchA, sessionA.Session.Id, batchA, 40)),
             Task.Run(() => CommitMany(benchB, sessionB.Session.Id, batchB, 40)),
-            Task.Run(() => CommitMany(benchB, sessionA.Session.Id, batchA, 30))); // a second writer into session A
+            Task.Run(() => CommitMany(benchB, sessionA.Session.Id, batchA, 30))
+        ); // a second writer into session A
 
-        Assert.Equal(Enumerable.Range(1, 70), (await benchB.GetPartsAsync(sessionA.Session.Id, CancellationToken.None)).Select(p => p.Number));
-        Assert.Equal(Enumerable.Range(1, 40), (await benchA.GetPartsAsync(sessionB.Session.Id, CancellationToken.None)).Select(p => p.Number));
-        var reopened = await benchA.OpenOrResumeSessionAsync(new SessionRequest("r2r-ladder-A"), CancellationToken.None);
+        Assert.Equal(
+            Enumerable.Range(1, 70),
+            (await benchB.GetPartsAsync(sessionA.Session.Id, CancellationToken.None)).Select(p => p.Number)
+        );
+        Assert.Equal(
+            Enumerable.Range(1, 40),
+            (await benchA.GetPartsAsync(sessionB.Session.Id, CancellationToken.None)).Select(p => p.Number)
+        );
+        var reopened = await benchA.OpenOrResumeSessionAsync(
+            new SessionRequest("r2r-ladder-A"),
+            CancellationToken.None
+        );
         Assert.Equal(71, reopened.NextPartNumber);
         Assert.True((await benchA.VerifyAsync(CancellationToken.None)).IsOk);
     }
@@ -94,7 +116,8 @@ public abstract partial class PrecisionLogContractTests
             var commit = Bench.Part(session.Session.Id, batch, 10_000 + round, index: round);
             var both = await Task.WhenAll(
                 Task.Run(() => benchA.CommitPartAsync(commit, CancellationToken.None)),
-                Task.Run(() => benchB.CommitPartAsync(commit, CancellationToken.None)));
+                Task.Run(() => benchB.CommitPartAsync(commit, CancellationToken.None))
+            );
 
             Assert.Equal(both[0], both[1]);
             Assert.Equal(round + 1, both[0].Number);

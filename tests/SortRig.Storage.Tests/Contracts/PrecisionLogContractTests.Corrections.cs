@@ -16,10 +16,16 @@ public abstract partial class PrecisionLogContractTests
 
         var part2 = (await log.GetPartsAsync(session.Session.Id, CancellationToken.None))[1];
         Clock.Advance(TimeSpan.FromMinutes(1));
-        var moved = await log.UndoPartAsync(new PartCorrection(part2.Id, PartCorrectionKind.MoveToCup, "B", "dropped in B"), CancellationToken.None);
+        var moved = await log.UndoPartAsync(
+            new PartCorrection(part2.Id, PartCorrectionKind.MoveToCup, "B", "dropped in B"),
+            CancellationToken.None
+        );
         var countsAfterMove = await log.GetCupCountsAsync(session.Session.Id, CancellationToken.None);
         Clock.Advance(TimeSpan.FromMinutes(1));
-        var undone = await log.UndoPartAsync(new PartCorrection(part2.Id, PartCorrectionKind.Undo), CancellationToken.None);
+        var undone = await log.UndoPartAsync(
+            new PartCorrection(part2.Id, PartCorrectionKind.Undo),
+            CancellationToken.None
+        );
 
         Assert.Equal("B", moved.CupLabel);
         Assert.Equal([new CupTally("A", 2), new CupTally("B", 1)], countsAfterMove);
@@ -27,10 +33,17 @@ public abstract partial class PrecisionLogContractTests
         Assert.Equal([new CupTally("A", 2)], await log.GetCupCountsAsync(session.Session.Id, CancellationToken.None));
         var history = await log.GetPartHistoryAsync(part2.Id, CancellationToken.None);
         Assert.Equal(
-            [(PartEventKind.CupCorrected, "A", "B", Bench.T0.AddMinutes(1)), (PartEventKind.Undone, "Accepted", "Undone", Bench.T0.AddMinutes(2))],
-            history.Select(e => (e.Kind, e.Before, e.After, e.At)));
+            [
+                (PartEventKind.CupCorrected, "A", "B", Bench.T0.AddMinutes(1)),
+                (PartEventKind.Undone, "Accepted", "Undone", Bench.T0.AddMinutes(2)),
+            ],
+            history.Select(e => (e.Kind, e.Before, e.After, e.At))
+        );
         Assert.Equal("dropped in B", history[0].Note);
-        Assert.Equal([1, 2, 3], (await log.GetPartsAsync(session.Session.Id, CancellationToken.None)).Select(p => p.Number));
+        Assert.Equal(
+            [1, 2, 3],
+            (await log.GetPartsAsync(session.Session.Id, CancellationToken.None)).Select(p => p.Number)
+        );
         Assert.Equal(4, (await Bench.CommitAsync(log, session.Session.Id, batch, 10_001)).Number);
         Assert.True((await log.VerifyAsync(CancellationToken.None)).IsOk);
     }
@@ -44,10 +57,14 @@ public abstract partial class PrecisionLogContractTests
         await log.UndoPartAsync(new PartCorrection(part.Id, PartCorrectionKind.Remeasure), CancellationToken.None);
 
         var error = await Assert.ThrowsAsync<StorageException>(() =>
-            log.UndoPartAsync(new PartCorrection(part.Id, PartCorrectionKind.Undo), CancellationToken.None));
+            log.UndoPartAsync(new PartCorrection(part.Id, PartCorrectionKind.Undo), CancellationToken.None)
+        );
 
         Assert.Equal(StorageFault.Conflict, error.Fault);
-        Assert.Equal(PartEventKind.Remeasured, Assert.Single(await log.GetPartHistoryAsync(part.Id, CancellationToken.None)).Kind);
+        Assert.Equal(
+            PartEventKind.Remeasured,
+            Assert.Single(await log.GetPartHistoryAsync(part.Id, CancellationToken.None)).Kind
+        );
         Assert.Equal(PartState.Remeasured, (await log.GetPartAsync(part.Id, CancellationToken.None))!.State);
     }
 }

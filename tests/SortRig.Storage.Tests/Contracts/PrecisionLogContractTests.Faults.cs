@@ -11,9 +11,12 @@ public abstract partial class PrecisionLogContractTests
         var (session, batch) = await Bench.StartAsync(writer);
         var readOnly = await TrackAsync(OpenReadOnlyLogAsync());
 
-        var commit = await Assert.ThrowsAsync<StorageException>(() => Bench.CommitAsync(readOnly, session.Session.Id, batch, 10_000.1));
+        var commit = await Assert.ThrowsAsync<StorageException>(() =>
+            Bench.CommitAsync(readOnly, session.Session.Id, batch, 10_000.1)
+        );
         var open = await Assert.ThrowsAsync<StorageException>(() =>
-            readOnly.OpenOrResumeSessionAsync(new SessionRequest("another"), CancellationToken.None));
+            readOnly.OpenOrResumeSessionAsync(new SessionRequest("another"), CancellationToken.None)
+        );
 
         Assert.Equal((StorageFault.ReadOnly, "commit part"), (commit.Fault, commit.Operation));
         Assert.Equal((StorageFault.ReadOnly, "open or resume session"), (open.Fault, open.Operation));

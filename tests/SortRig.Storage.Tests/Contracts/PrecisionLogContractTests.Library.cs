@@ -4,7 +4,8 @@ namespace SortRig.Storage.Tests.Contracts;
 
 public abstract partial class PrecisionLogContractTests
 {
-    /// <summary>Commits 10 kOhm parts at the given deviations (ppm) into one session; returns them in the same order.</summary>
+    /// <summary>Commits 10 kOhm parts at the given deviations (ppm) into one session; returns them in the same
+    /// order.</summary>
     private async Task<List<PartRecord>> StockLibraryAsync(IPrecisionLog log, params double[] deviationsPpm)
     {
         var (session, batch) = await Bench.StartAsync(log, "library-stock");
@@ -80,10 +81,15 @@ public abstract partial class PrecisionLogContractTests
         Assert.Equal([unknownId], withUnknown.Refused);
         Assert.Equal(LibraryStatus.Available, (await log.GetPartAsync(p[1].Id, CancellationToken.None))!.LibraryStatus);
         Assert.Equal(
-            [(PartEventKind.Taken, "Available", "Taken", "bench-1", (string?)null),
-             (PartEventKind.Used, "Taken", "Used", null, "DAC board rev B #4"),
-             (PartEventKind.Retired, "Used", "Retired", null, "board scrapped")],
-            (await log.GetPartHistoryAsync(p[0].Id, CancellationToken.None)).Select(e => (e.Kind, e.Before, e.After, e.Actor, e.Note)));
+            [
+                (PartEventKind.Taken, "Available", "Taken", "bench-1", (string?)null),
+                (PartEventKind.Used, "Taken", "Used", null, "DAC board rev B #4"),
+                (PartEventKind.Retired, "Used", "Retired", null, "board scrapped"),
+            ],
+            (await log.GetPartHistoryAsync(p[0].Id, CancellationToken.None)).Select(e =>
+                (e.Kind, e.Before, e.After, e.Actor, e.Note)
+            )
+        );
     }
 
     [SkippableFact]
@@ -97,7 +103,11 @@ public abstract partial class PrecisionLogContractTests
 
         Assert.Equal("tray 2", moved.Location);
         Assert.Equal(
-            [(PartEventKind.Relocated, (string?)null, (string?)"tray 1"), (PartEventKind.Relocated, "tray 1", "tray 2")],
-            (await log.GetPartHistoryAsync(p[0].Id, CancellationToken.None)).Select(e => (e.Kind, e.Before, e.After)));
+            [
+                (PartEventKind.Relocated, (string?)null, (string?)"tray 1"),
+                (PartEventKind.Relocated, "tray 1", "tray 2"),
+            ],
+            (await log.GetPartHistoryAsync(p[0].Id, CancellationToken.None)).Select(e => (e.Kind, e.Before, e.After))
+        );
     }
 }

@@ -20,7 +20,8 @@ public abstract partial class PrecisionLogContractTests
         // 0004_build_target.sql, 0005_check_standard.sql.
         Assert.Equal(
             ["initial", "drift_by_part", "settle_record", "build_target", "check_standard"],
-            EngineMigrations.Select(m => m.Name));
+            EngineMigrations.Select(m => m.Name)
+        );
         Assert.Equal(5, report.SchemaVersion);
         Assert.Equal(5, await SchemaVersionRowsAsync());
         Assert.True(report.IsOk, string.Join("; ", report.Problems));
@@ -44,8 +45,9 @@ public abstract partial class PrecisionLogContractTests
     {
         var broken = new Migration(2, "broken", "CREATE TABLE half_done (x INTEGER); CREATE TABLE this is not sql;");
 
-        var error = await Assert.ThrowsAsync<StorageException>(
-            () => OpenWithMigrationsAsync([EngineMigrations[0], broken]));
+        var error = await Assert.ThrowsAsync<StorageException>(() =>
+            OpenWithMigrationsAsync([EngineMigrations[0], broken])
+        );
         long versionsAfterFailure = await SchemaVersionRowsAsync();
         bool halfDone = await TableExistsAsync("half_done");
         var log = await CreateLogAsync(); // the shipped scripts then apply from version 1 on

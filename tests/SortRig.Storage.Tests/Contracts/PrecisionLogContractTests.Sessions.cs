@@ -23,7 +23,10 @@ public abstract partial class PrecisionLogContractTests
 
         await bench.DisposeAsync(); // the host "crashes" here
         var reopened = await CreateLogAsync();
-        var state = await reopened.OpenOrResumeSessionAsync(new SessionRequest("r2r-ladder-0412"), CancellationToken.None);
+        var state = await reopened.OpenOrResumeSessionAsync(
+            new SessionRequest("r2r-ladder-0412"),
+            CancellationToken.None
+        );
 
         Assert.True(state.Resumed);
         Assert.Equal(session.Session, state.Session);
@@ -51,7 +54,10 @@ public abstract partial class PrecisionLogContractTests
         Assert.Equal(1, second.NextPartNumber);
         Assert.Empty(second.CupCounts);
         Assert.Null(second.CurrentBatch);
-        Assert.Equal([second.Session.Id, first.Session.Id], (await log.ListSessionsAsync(CancellationToken.None)).Select(s => s.Id));
+        Assert.Equal(
+            [second.Session.Id, first.Session.Id],
+            (await log.ListSessionsAsync(CancellationToken.None)).Select(s => s.Id)
+        );
     }
 
     [SkippableFact]
@@ -63,7 +69,10 @@ public abstract partial class PrecisionLogContractTests
         await Bench.CommitAsync(log, first.Session.Id, batch, 10_000.2);
         await log.FinishSessionAsync(first.Session.Id, CancellationToken.None);
 
-        var reopened = await log.OpenOrResumeSessionAsync(new SessionRequest("r2r-ladder-0412", ReopenFinished: true), CancellationToken.None);
+        var reopened = await log.OpenOrResumeSessionAsync(
+            new SessionRequest("r2r-ladder-0412", ReopenFinished: true),
+            CancellationToken.None
+        );
 
         Assert.True(reopened.Resumed);
         Assert.Equal(first.Session.Id, reopened.Session.Id);
@@ -78,7 +87,10 @@ public abstract partial class PrecisionLogContractTests
     {
         var log = await CreateLogAsync();
 
-        var state = await log.OpenOrResumeSessionAsync(new SessionRequest("decade-divider", ReopenFinished: true), CancellationToken.None);
+        var state = await log.OpenOrResumeSessionAsync(
+            new SessionRequest("decade-divider", ReopenFinished: true),
+            CancellationToken.None
+        );
 
         Assert.False(state.Resumed);
         Assert.Equal(1, state.NextPartNumber);
@@ -90,7 +102,10 @@ public abstract partial class PrecisionLogContractTests
         var log = await CreateLogAsync();
         var (first, _) = await Bench.StartAsync(log);
 
-        var second = await log.OpenOrResumeSessionAsync(new SessionRequest("r2r-ladder-0412", ResumeUnfinished: false), CancellationToken.None);
+        var second = await log.OpenOrResumeSessionAsync(
+            new SessionRequest("r2r-ladder-0412", ResumeUnfinished: false),
+            CancellationToken.None
+        );
         var resumed = await log.OpenOrResumeSessionAsync(new SessionRequest("r2r-ladder-0412"), CancellationToken.None);
 
         Assert.False(second.Resumed);

@@ -9,21 +9,42 @@ namespace SortRig.Storage.Tests.Contracts;
 /// </summary>
 public abstract partial class PrecisionLogContractTests
 {
-    private static RecoveryFit TwoPathFit => new(
-        RecoveryModel.TwoExponentials, 10_000.412_345_678_9, 0.001_234_5, 0.000_456_7, [0.612_345, 2.718_281_828],
-        37, 4.25, 0.000_311, -0.734, 0.871);
+    private static RecoveryFit TwoPathFit =>
+        new(
+            RecoveryModel.TwoExponentials,
+            10_000.412_345_678_9,
+            0.001_234_5,
+            0.000_456_7,
+            [0.612_345, 2.718_281_828],
+            37,
+            4.25,
+            0.000_311,
+            -0.734,
+            0.871
+        );
 
     [SkippableFact]
     public async Task CommitPart_Predictive_ReadsBackRuleAndEveryFitFigure()
     {
         var log = await CreateLogAsync();
         var (session, batch) = await Bench.StartAsync(log);
-        var commit = Bench.Part(session.Session.Id, batch, 10_000.41) with { AcceptedBy = SettleRule.Predictive, Fit = TwoPathFit };
+        var commit = Bench.Part(session.Session.Id, batch, 10_000.41) with
+        {
+            AcceptedBy = SettleRule.Predictive,
+            Fit = TwoPathFit,
+        };
 
         var stored = await log.CommitPartAsync(commit, CancellationToken.None);
         var read = await log.GetPartAsync(stored.Id, CancellationToken.None);
 
-        foreach (var part in new[] { stored, read!, (await log.GetPartsAsync(session.Session.Id, CancellationToken.None))[0] })
+        foreach (
+            var part in new[]
+            {
+                stored,
+                read!,
+                (await log.GetPartsAsync(session.Session.Id, CancellationToken.None))[0],
+            }
+        )
         {
             Assert.Equal(SettleRule.Predictive, part.AcceptedBy);
             var fit = Assert.IsType<RecoveryFit>(part.Fit);
@@ -39,8 +60,23 @@ public abstract partial class PrecisionLogContractTests
     {
         var log = await CreateLogAsync();
         var (session, batch) = await Bench.StartAsync(log);
-        var oneFit = new RecoveryFit(RecoveryModel.OneExponential, 10_000.2, 0.002, 0.001, [1.5], 14, 1.3, 0.0004, double.NaN, 0.64);
-        var commit = Bench.Part(session.Session.Id, batch, 10_000.2) with { AcceptedBy = SettleRule.Predictive, Fit = oneFit };
+        var oneFit = new RecoveryFit(
+            RecoveryModel.OneExponential,
+            10_000.2,
+            0.002,
+            0.001,
+            [1.5],
+            14,
+            1.3,
+            0.0004,
+            double.NaN,
+            0.64
+        );
+        var commit = Bench.Part(session.Session.Id, batch, 10_000.2) with
+        {
+            AcceptedBy = SettleRule.Predictive,
+            Fit = oneFit,
+        };
 
         var stored = await log.CommitPartAsync(commit, CancellationToken.None);
 
@@ -58,9 +94,19 @@ public abstract partial class PrecisionLogContractTests
         var (session, batch) = await Bench.StartAsync(log);
 
         var averaged = await log.CommitPartAsync(
-            Bench.Part(session.Session.Id, batch, 10_000.3) with { AcceptedBy = SettleRule.Averaging }, CancellationToken.None);
+            Bench.Part(session.Session.Id, batch, 10_000.3) with
+            {
+                AcceptedBy = SettleRule.Averaging,
+            },
+            CancellationToken.None
+        );
         var unstable = await log.CommitPartAsync(
-            Bench.Part(session.Session.Id, batch, 10_000.9, cup: null, index: 1) with { State = PartState.Unstable }, CancellationToken.None);
+            Bench.Part(session.Session.Id, batch, 10_000.9, cup: null, index: 1) with
+            {
+                State = PartState.Unstable,
+            },
+            CancellationToken.None
+        );
 
         Assert.Equal(SettleRule.Averaging, averaged.AcceptedBy);
         Assert.Null(averaged.Fit);
@@ -76,12 +122,36 @@ public abstract partial class PrecisionLogContractTests
         var (session, batch) = await Bench.StartAsync(log);
         var part = Bench.Part(session.Session.Id, batch, 10_000.41);
 
-        var averagedWithFit = await Assert.ThrowsAsync<ArgumentException>(() => log.CommitPartAsync(
-            part with { AcceptedBy = SettleRule.Averaging, Fit = TwoPathFit }, CancellationToken.None));
-        var oneTauForTwoPaths = await Assert.ThrowsAsync<ArgumentException>(() => log.CommitPartAsync(
-            part with { AcceptedBy = SettleRule.Predictive, Fit = TwoPathFit with { TimeConstantsSeconds = [0.6] } }, CancellationToken.None));
-        var unstableWithRule = await Assert.ThrowsAsync<ArgumentException>(() => log.CommitPartAsync(
-            part with { State = PartState.Unstable, AcceptedBy = SettleRule.Averaging }, CancellationToken.None));
+        var averagedWithFit = await Assert.ThrowsAsync<ArgumentException>(() =>
+            log.CommitPartAsync(
+                part with
+                {
+                    AcceptedBy = SettleRule.Averaging,
+                    Fit = TwoPathFit,
+                },
+                CancellationToken.None
+            )
+        );
+        var oneTauForTwoPaths = await Assert.ThrowsAsync<ArgumentException>(() =>
+            log.CommitPartAsync(
+                part with
+                {
+                    AcceptedBy = SettleRule.Predictive,
+                    Fit = TwoPathFit with { TimeConstantsSeconds = [0.6] },
+                },
+                CancellationToken.None
+            )
+        );
+        var unstableWithRule = await Assert.ThrowsAsync<ArgumentException>(() =>
+            log.CommitPartAsync(
+                part with
+                {
+                    State = PartState.Unstable,
+                    AcceptedBy = SettleRule.Averaging,
+                },
+                CancellationToken.None
+            )
+        );
 
         Assert.Contains("predictive", averagedWithFit.Message, StringComparison.Ordinal);
         Assert.Contains("TimeConstantsSeconds", oneTauForTwoPaths.Message, StringComparison.Ordinal);
@@ -100,8 +170,13 @@ public abstract partial class PrecisionLogContractTests
         var log = await CreateLogAsync();
         var (session, batch) = await Bench.StartAsync(log);
         var stored = await log.CommitPartAsync(
-            Bench.Part(session.Session.Id, batch, 10_000.41) with { AcceptedBy = SettleRule.Predictive, Fit = TwoPathFit },
-            CancellationToken.None);
+            Bench.Part(session.Session.Id, batch, 10_000.41) with
+            {
+                AcceptedBy = SettleRule.Predictive,
+                Fit = TwoPathFit,
+            },
+            CancellationToken.None
+        );
 
         Assert.Equal(2, rowsBefore);
         Assert.Equal(EngineMigrations.Count, (await log.VerifyAsync(CancellationToken.None)).SchemaVersion);

@@ -2,7 +2,8 @@ using Microsoft.Extensions.Logging;
 
 namespace SortRig.Storage.Tests.Lab;
 
-/// <summary>Keeps every log line at every level, message and exception text, to search for what must not be there.</summary>
+/// <summary>Keeps every log line at every level, message and exception text, to search for what must not be
+/// there.</summary>
 internal sealed class CapturingLoggerFactory : ILoggerFactory
 {
     private readonly List<string> _lines = [];
@@ -18,15 +19,11 @@ internal sealed class CapturingLoggerFactory : ILoggerFactory
         }
     }
 
-    public void AddProvider(ILoggerProvider provider)
-    {
-    }
+    public void AddProvider(ILoggerProvider provider) { }
 
     public ILogger CreateLogger(string categoryName) => new Capture(this, categoryName);
 
-    public void Dispose()
-    {
-    }
+    public void Dispose() { }
 
     private sealed class Capture(CapturingLoggerFactory owner, string category) : ILogger
     {
@@ -35,7 +32,13 @@ internal sealed class CapturingLoggerFactory : ILoggerFactory
 
         public bool IsEnabled(LogLevel logLevel) => true;
 
-        public void Log<TState>(LogLevel logLevel, EventId eventId, TState state, Exception? exception, Func<TState, Exception?, string> formatter)
+        public void Log<TState>(
+            LogLevel logLevel,
+            EventId eventId,
+            TState state,
+            Exception? exception,
+            Func<TState, Exception?, string> formatter
+        )
         {
             var line = $"{logLevel} {category}: {formatter(state, exception)} {exception}";
             lock (owner._lines)

@@ -38,23 +38,40 @@ public sealed class LabSecretsTests : IAsyncLifetime
         await SetUpPasswordLabAsync();
         var server = new NpgsqlConnectionStringBuilder(LabServer.ConnectionString());
         var passfile = Path.Combine(_dir, "pgpass");
-        await File.WriteAllTextAsync(passfile, $"{server.Host}:{server.Port}:{server.Database}:{_names.Writer}:{_password}\n");
-        File.SetUnixFileMode(passfile, UnixFileMode.UserRead | UnixFileMode.UserWrite); // libpq ignores a group/world-readable passfile
+        await File.WriteAllTextAsync(
+            passfile,
+            $"{server.Host}:{server.Port}:{server.Database}:{_names.Writer}:{_password}\n"
+        );
+        // libpq ignores a group/world-readable passfile
+        File.SetUnixFileMode(passfile, UnixFileMode.UserRead | UnixFileMode.UserWrite);
         var logs = new CapturingLoggerFactory();
         var options = new PrecisionLogOptions { LoggerFactory = logs };
 
         // No password at all: refused by the server, and said so.
-        var refused = await Assert.ThrowsAnyAsync<Exception>(() => PrecisionLogFactory.OpenAsync(LabServer.As(_names.Writer), options, CancellationToken.None));
+        var refused = await Assert.ThrowsAnyAsync<Exception>(() =>
+            PrecisionLogFactory.OpenAsync(LabServer.As(_names.Writer), options, CancellationToken.None)
+        );
         Assert.DoesNotContain(_password, refused.ToString(), StringComparison.Ordinal);
 
         // A wrong password: the server says authentication failed; neither password shows anywhere.
         var wrong = await Assert.ThrowsAsync<StorageException>(() =>
-            PrecisionLogFactory.OpenAsync(LabServer.As(_names.Writer, ";Password=not-" + _password), options, CancellationToken.None));
+            PrecisionLogFactory.OpenAsync(
+                LabServer.As(_names.Writer, ";Password=not-" + _password),
+                options,
+                CancellationToken.None
+            )
+        );
         Assert.Equal(StorageFault.Unavailable, wrong.Fault);
         Assert.DoesNotContain(_password, wrong.ToString(), StringComparison.Ordinal);
 
         // From the passfile: works.
-        await using (var bench = await PrecisionLogFactory.OpenAsync(LabServer.As(_names.Writer, $";Passfile={passfile}"), options, CancellationToken.None))
+        await using (
+            var bench = await PrecisionLogFactory.OpenAsync(
+                LabServer.As(_names.Writer, $";Passfile={passfile}"),
+                options,
+                CancellationToken.None
+            )
+        )
         {
             var (session, batch) = await Bench.StartAsync(bench, "lab-passfile");
             await Bench.CommitAsync(bench, session.Session.Id, batch, Bench.TenKAt(-40));
@@ -62,11 +79,15 @@ public sealed class LabSecretsTests : IAsyncLifetime
 
         // In the connection string itself (from SORTRIG_Sort__Database or appsettings.json): works, and a write the
         // server refuses (a read-only transaction) is logged as a fault without the password.
-        var readOnly = LabServer.As(_names.Writer, $";Password={_password};Options=-c default_transaction_read_only=on");
+        var readOnly = LabServer.As(
+            _names.Writer,
+            $";Password={_password};Options=-c default_transaction_read_only=on"
+        );
         await using (var bench = await PrecisionLogFactory.OpenAsync(readOnly, options, CancellationToken.None))
         {
             var error = await Assert.ThrowsAsync<StorageException>(() =>
-                bench.OpenOrResumeSessionAsync(new SessionRequest("lab-read-only"), CancellationToken.None));
+                bench.OpenOrResumeSessionAsync(new SessionRequest("lab-read-only"), CancellationToken.None)
+            );
             Assert.Equal(StorageFault.ReadOnly, error.Fault);
             Assert.DoesNotContain(_password, error.ToString(), StringComparison.Ordinal);
         }
@@ -81,8 +102,10 @@ public sealed class LabSecretsTests : IAsyncLifetime
     public async Task Tls_RequireAndVerifyFull_ConnectEncrypted()
     {
         var admin = LabServer.ConnectionString();
-        Skip.If((string?)await LabServer.ScalarAsync(admin, "SHOW ssl") != "on",
-            "the test server has no certificate (openssl missing when scripts/pg-test-server made it); TLS not tested");
+        Skip.If(
+            (string?)await LabServer.ScalarAsync(admin, "SHOW ssl") != "on",
+            "the test server has no certificate (openssl missing when scripts/pg-test-server made it); TLS not tested"
+        );
         var dataDir = (string)(await LabServer.ScalarAsync(admin, "SHOW data_directory"))!;
         var certFile = (string)(await LabServer.ScalarAsync(admin, "SHOW ssl_cert_file"))!;
         var rootCert = Path.IsPathRooted(certFile) ? certFile : Path.Combine(dataDir, certFile);
@@ -90,36 +113,64 @@ public sealed class LabSecretsTests : IAsyncLifetime
         await LabServer.ExecuteAsync(admin, $"CREATE SCHEMA {_names.Schema}");
         foreach (var tls in new[] { ";SSL Mode=Require", $";SSL Mode=VerifyFull;Root Certificate={rootCert}" })
         {
-            await using var log = await PrecisionLogFactory.OpenAsync(admin + $";Search Path={_names.Schema}" + tls, null, CancellationToken.None);
+            await using var log = await PrecisionLogFactory.OpenAsync(
+                admin + $";Search Path={_names.Schema}" + tls,
+                null,
+                CancellationToken.None
+            );
             Assert.Equal(StorageEngine.Postgres, log.Engine);
-            Assert.Equal(true, await LabServer.ScalarAsync(admin + tls, "SELECT ssl FROM pg_stat_ssl WHERE pid = pg_backend_pid()"));
+            Assert.Equal(
+                true,
+                await LabServer.ScalarAsync(admin + tls, "SELECT ssl FROM pg_stat_ssl WHERE pid = pg_backend_pid()")
+            );
         }
 
         // The certificate is checked under VerifyFull: a different root does not vouch for the server.
         var otherRoot = Path.Combine(_dir, "other.crt");
         using (var key = RSA.Create(2048))
         {
-            var request = new CertificateRequest("CN=unrelated.invalid", key, HashAlgorithmName.SHA256, RSASignaturePadding.Pkcs1);
-            using var other = request.CreateSelfSigned(new DateTimeOffset(2020, 1, 1, 0, 0, 0, TimeSpan.Zero), new DateTimeOffset(2099, 1, 1, 0, 0, 0, TimeSpan.Zero));
+            var request = new CertificateRequest(
+                "CN=unrelated.invalid",
+                key,
+                HashAlgorithmName.SHA256,
+                RSASignaturePadding.Pkcs1
+            );
+            using var other = request.CreateSelfSigned(
+                new DateTimeOffset(2020, 1, 1, 0, 0, 0, TimeSpan.Zero),
+                new DateTimeOffset(2099, 1, 1, 0, 0, 0, TimeSpan.Zero)
+            );
             await File.WriteAllTextAsync(otherRoot, other.ExportCertificatePem());
         }
 
-        await Assert.ThrowsAnyAsync<Exception>(() => LabServer.ScalarAsync(admin + $";SSL Mode=VerifyFull;Root Certificate={otherRoot}", "SELECT 1"));
+        await Assert.ThrowsAnyAsync<Exception>(() =>
+            LabServer.ScalarAsync(admin + $";SSL Mode=VerifyFull;Root Certificate={otherRoot}", "SELECT 1")
+        );
     }
 
     private async Task SetUpPasswordLabAsync()
     {
         var admin = LabServer.ConnectionString();
-        var hba = (long)(await LabServer.ScalarAsync(admin,
-            "SELECT COUNT(*) FROM pg_hba_file_rules WHERE '+sortrig_password_auth' = ANY(user_name) AND auth_method = 'scram-sha-256'"))!;
-        Skip.If(hba == 0, "the test server does not ask sortrig_password_auth members for a password (made by an older scripts/pg-test-server)");
+        var hba = (long)
+            (
+                await LabServer.ScalarAsync(
+                    admin,
+                    "SELECT COUNT(*) FROM pg_hba_file_rules WHERE '+sortrig_password_auth' = ANY(user_name) AND "
+                        + "auth_method = 'scram-sha-256'"
+                )
+            )!;
+        Skip.If(
+            hba == 0,
+            "the test server does not ask sortrig_password_auth members for a password (made by an older "
+                + "scripts/pg-test-server)"
+        );
         await LabRoles.ApplyAsync(admin, _names, CancellationToken.None);
         await using (await PrecisionLogFactory.OpenAsync(LabServer.As(_names.Owner), null, CancellationToken.None))
         {
             // The owner migrates the lab schema.
         }
 
-        // The password is set over the connection as a parameter-free statement built here from a GUID, like a keeper's \password.
+        // The password is set over the connection as a parameter-free statement built here from a GUID, like a keeper's
+        // \password.
         await LabServer.ExecuteAsync(admin, $"ALTER ROLE {_names.Writer} PASSWORD '{_password}'");
         await LabServer.ExecuteAsync(admin, $"GRANT sortrig_password_auth TO {_names.Writer}");
     }

@@ -15,10 +15,17 @@ internal static class LabServer
         {
             if (Environment.GetEnvironmentVariable("CI") == "true")
             {
-                throw new InvalidOperationException("SORTRIG_TEST_PG is not set on CI: start a server with scripts/pg-test-server start and export its output.");
+                throw new InvalidOperationException(
+                    "SORTRIG_TEST_PG is not set on CI: start a server with scripts/pg-test-server start and export "
+                        + "its output."
+                );
             }
 
-            Skip.If(true, "PostgreSQL lab tests skipped: set SORTRIG_TEST_PG (export SORTRIG_TEST_PG=\"$(scripts/pg-test-server start)\").");
+            Skip.If(
+                true,
+                "PostgreSQL lab tests skipped: set SORTRIG_TEST_PG (export "
+                    + "SORTRIG_TEST_PG=\"$(scripts/pg-test-server start)\")."
+            );
         }
 
         return value!;
@@ -57,7 +64,11 @@ internal static class LabServer
         await ExecuteAsync(admin, $"DROP SCHEMA IF EXISTS {schema} CASCADE");
         foreach (var role in roles)
         {
-            await ExecuteAsync(admin, $"DO $$ BEGIN IF EXISTS (SELECT 1 FROM pg_roles WHERE rolname = '{role}') THEN EXECUTE 'DROP OWNED BY {role} CASCADE'; EXECUTE 'DROP ROLE {role}'; END IF; END $$");
+            await ExecuteAsync(
+                admin,
+                $"DO $$ BEGIN IF EXISTS (SELECT 1 FROM pg_roles WHERE rolname = '{role}') THEN EXECUTE 'DROP OWNED "
+                    + $"BY {role} CASCADE'; EXECUTE 'DROP ROLE {role}'; END IF; END $$"
+            );
         }
     }
 }

@@ -28,10 +28,16 @@ public sealed partial class PostgresPrecisionLogTests : PrecisionLogContractTest
             if (Environment.GetEnvironmentVariable("CI") == "true")
             {
                 throw new InvalidOperationException(
-                    $"{EnvironmentVariable} is not set on CI: start a server with scripts/pg-test-server start and export its output.");
+                    $"{EnvironmentVariable} is not set on CI: start a server with scripts/pg-test-server start and "
+                        + $"export its output."
+                );
             }
 
-            Skip.If(true, $"PostgreSQL tests skipped: set {EnvironmentVariable} (export {EnvironmentVariable}=\"$(scripts/pg-test-server start)\").");
+            Skip.If(
+                true,
+                $"PostgreSQL tests skipped: set {EnvironmentVariable} (export "
+                    + $"{EnvironmentVariable}=\"$(scripts/pg-test-server start)\")."
+            );
         }
 
         return value!;
@@ -62,15 +68,30 @@ public sealed partial class PostgresPrecisionLogTests : PrecisionLogContractTest
 
     protected override async Task<IPrecisionLog> OpenReadOnlyLogAsync() =>
         await PostgresPrecisionLog.OpenAsync(
-            await StoreConnectionStringAsync(";Options=-c default_transaction_read_only=on"), Options, null, CancellationToken.None);
+            await StoreConnectionStringAsync(";Options=-c default_transaction_read_only=on"),
+            Options,
+            null,
+            CancellationToken.None
+        );
 
     private protected override async Task<IPrecisionLog> OpenWithMigrationsAsync(IReadOnlyList<Migration> migrations) =>
-        await PostgresPrecisionLog.OpenAsync(await StoreConnectionStringAsync(), Options, migrations, CancellationToken.None);
+        await PostgresPrecisionLog.OpenAsync(
+            await StoreConnectionStringAsync(),
+            Options,
+            migrations,
+            CancellationToken.None
+        );
 
     protected override async Task<bool> TableExistsAsync(string table) =>
-        (long)(await ScalarAsync(
-            "SELECT COUNT(*) FROM information_schema.tables WHERE table_schema = @schema AND table_name = @table",
-            ("schema", _schema), ("table", table)))! > 0;
+        (long)
+            (
+                await ScalarAsync(
+                    "SELECT COUNT(*) FROM information_schema.tables WHERE table_schema = @schema AND table_name = "
+                        + "@table",
+                    ("schema", _schema),
+                    ("table", table)
+                )
+            )! > 0;
 
     protected override async Task<long> SchemaVersionRowsAsync() =>
         (long)(await ScalarAsync($"SELECT COUNT(*) FROM {_schema}.schema_version"))!;

@@ -27,7 +27,9 @@ public sealed partial class SqlitePrecisionLogTests
     {
         var log = await CreateLogAsync(Options);
         var (session, batch) = await Bench.StartAsync(log);
-        var patient = await CreateLogAsync(new PrecisionLogOptions { TimeProvider = Clock, BusyTimeout = TimeSpan.FromSeconds(1) });
+        var patient = await CreateLogAsync(
+            new PrecisionLogOptions { TimeProvider = Clock, BusyTimeout = TimeSpan.FromSeconds(1) }
+        );
         await using (var holder = new SqliteConnection($"Data Source={FilePath};Pooling=False"))
         {
             await holder.OpenAsync();
@@ -35,7 +37,9 @@ public sealed partial class SqlitePrecisionLogTests
             begin.CommandText = "BEGIN EXCLUSIVE";
             await begin.ExecuteNonQueryAsync();
 
-            var error = await Assert.ThrowsAsync<StorageException>(() => Bench.CommitAsync(patient, session.Session.Id, batch, 10_000.1));
+            var error = await Assert.ThrowsAsync<StorageException>(() =>
+                Bench.CommitAsync(patient, session.Session.Id, batch, 10_000.1)
+            );
 
             Assert.Equal((StorageFault.Locked, "commit part"), (error.Fault, error.Operation));
             Assert.Contains(FilePath, error.Message, StringComparison.Ordinal);
@@ -52,14 +56,22 @@ public sealed partial class SqlitePrecisionLogTests
         var (session, batch) = await Bench.StartAsync(log);
         await Bench.CommitAsync(log, session.Session.Id, batch, 10_000.1);
         long pages = (long)(await ScalarAsync("PRAGMA page_count"))!;
-        var cramped = await CreateLogAsync(new PrecisionLogOptions { TimeProvider = Clock, SqliteMaxPageCount = pages + 2 });
-        var big = Bench.Part(session.Session.Id, batch, 10_000.2, readings: 5_000); // needs far more than two 4 KiB pages
+        var cramped = await CreateLogAsync(
+            new PrecisionLogOptions { TimeProvider = Clock, SqliteMaxPageCount = pages + 2 }
+        );
+        // needs far more than two 4 KiB pages
+        var big = Bench.Part(session.Session.Id, batch, 10_000.2, readings: 5_000);
 
-        var error = await Assert.ThrowsAsync<StorageException>(() => cramped.CommitPartAsync(big, CancellationToken.None));
+        var error = await Assert.ThrowsAsync<StorageException>(() =>
+            cramped.CommitPartAsync(big, CancellationToken.None)
+        );
 
         Assert.Equal(StorageFault.DiskFull, error.Fault);
         Assert.Equal([1], (await log.GetPartsAsync(session.Session.Id, CancellationToken.None)).Select(p => p.Number));
-        Assert.Equal(0L, await ScalarAsync("SELECT COUNT(*) FROM raw_readings WHERE part_id <> (SELECT MIN(id) FROM parts)"));
+        Assert.Equal(
+            0L,
+            await ScalarAsync("SELECT COUNT(*) FROM raw_readings WHERE part_id <> (SELECT MIN(id) FROM parts)")
+        );
         Assert.True((await log.VerifyAsync(CancellationToken.None)).IsOk);
         Assert.Equal(2, (await Bench.CommitAsync(log, session.Session.Id, batch, 10_000.2)).Number);
     }
@@ -79,7 +91,9 @@ public sealed partial class SqlitePrecisionLogTests
     {
         var path = Path.Combine(_directory, "no-such-dir", "precision.db");
 
-        var error = await Assert.ThrowsAsync<StorageException>(() => PrecisionLogFactory.OpenAsync(path, Options, CancellationToken.None));
+        var error = await Assert.ThrowsAsync<StorageException>(() =>
+            PrecisionLogFactory.OpenAsync(path, Options, CancellationToken.None)
+        );
 
         Assert.Equal(StorageFault.Unavailable, error.Fault);
         Assert.Contains(path, error.Message, StringComparison.Ordinal);

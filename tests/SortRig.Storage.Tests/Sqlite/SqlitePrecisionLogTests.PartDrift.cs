@@ -15,7 +15,9 @@ public sealed partial class SqlitePrecisionLogTests
         var plan = await QueryPlanAsync(filtered);
 
         Assert.Contains(plan, step => step.Contains("ix_drift_channels_part", StringComparison.Ordinal));
-        Assert.Contains(plan, step => step.Contains("ix_drift_samples_channel (run_id=? AND channel=?)", StringComparison.Ordinal));
+        Assert.Contains(plan, step =>
+            step.Contains("ix_drift_samples_channel (run_id=? AND channel=?)", StringComparison.Ordinal)
+        );
         Assert.DoesNotContain(plan, step => step.StartsWith("SCAN d", StringComparison.Ordinal));
     }
 

@@ -19,15 +19,23 @@ public sealed partial class SqlitePrecisionLogTests : PrecisionLogContractTests
         await SqlitePrecisionLog.OpenAsync($"Data Source={FilePath}", options, null, CancellationToken.None);
 
     protected override async Task<IPrecisionLog> OpenReadOnlyLogAsync() =>
-        await SqlitePrecisionLog.OpenAsync($"Data Source={FilePath};Mode=ReadOnly", Options, null, CancellationToken.None);
+        await SqlitePrecisionLog.OpenAsync(
+            $"Data Source={FilePath};Mode=ReadOnly",
+            Options,
+            null,
+            CancellationToken.None
+        );
 
     private protected override async Task<IPrecisionLog> OpenWithMigrationsAsync(IReadOnlyList<Migration> migrations) =>
         await SqlitePrecisionLog.OpenAsync($"Data Source={FilePath}", Options, migrations, CancellationToken.None);
 
     protected override async Task<bool> TableExistsAsync(string table) =>
-        await ScalarAsync("SELECT COUNT(*) FROM sqlite_master WHERE type = 'table' AND name = $name", ("$name", table)) is long n && n > 0;
+        await ScalarAsync("SELECT COUNT(*) FROM sqlite_master WHERE type = 'table' AND name = $name", ("$name", table))
+            is long n
+        && n > 0;
 
-    protected override async Task<long> SchemaVersionRowsAsync() => (long)(await ScalarAsync("SELECT COUNT(*) FROM schema_version"))!;
+    protected override async Task<long> SchemaVersionRowsAsync() =>
+        (long)(await ScalarAsync("SELECT COUNT(*) FROM schema_version"))!;
 
     protected override Task DeleteStoreAsync()
     {

@@ -15,7 +15,8 @@ using SortRig.Tests.Support;
 
 namespace SortRig.Engine.Tests.Reliability.Support;
 
-/// <summary>What one soak produced: the session as stored, what the operator heard, the faults the simulator injected.</summary>
+/// <summary>What one soak produced: the session as stored, what the operator heard, the faults the simulator
+/// injected.</summary>
 internal sealed record SoakResult(
     SortOptions Options,
     SortOutcome Outcome,
@@ -26,7 +27,8 @@ internal sealed record SoakResult(
     int DwellTimeouts,
     string Heard,
     IntegrityReport Integrity,
-    TimeSpan Wall);
+    TimeSpan Wall
+);
 
 /// <summary>
 /// Runs the real sorting loop against the embedded simulator with random faults at a given rate
@@ -37,8 +39,11 @@ internal static class FaultSoak
     // Share of the fault rate per kind: every kind well represented (our choice).
     private static readonly (FaultKind Kind, double Share)[] s_mix =
     [
-        (FaultKind.DropConnection, 0.2), (FaultKind.DelayReply, 0.15), (FaultKind.GarbleReply, 0.25),
-        (FaultKind.SpuriousError, 0.2), (FaultKind.SilentReset, 0.2),
+        (FaultKind.DropConnection, 0.2),
+        (FaultKind.DelayReply, 0.15),
+        (FaultKind.GarbleReply, 0.25),
+        (FaultKind.SpuriousError, 0.2),
+        (FaultKind.SilentReset, 0.2),
     ];
 
     /// <summary>
@@ -47,53 +52,67 @@ internal static class FaultSoak
     /// </summary>
     public static IEnumerable<FaultKind> Kinds => s_mix.Select(m => m.Kind);
 
-    public static SortOptions Options(string dir, SoakSettings s) => new()
-    {
-        Database = Path.Combine(dir, "soak.db"),
-        Session = "soak",
-        Parts = s.Parts,
-        Seed = s.Seed,
-        Speed = s.Speed,
-        Nplc = 10, // not the meter's default, so a reset to defaults is visible in the read-back
-        Speech = false,
-        Live = false,
-    };
+    public static SortOptions Options(string dir, SoakSettings s) =>
+        new()
+        {
+            Database = Path.Combine(dir, "soak.db"),
+            Session = "soak",
+            Parts = s.Parts,
+            Seed = s.Seed,
+            Speed = s.Speed,
+            Nplc = 10, // not the meter's default, so a reset to defaults is visible in the read-back
+            Speech = false,
+            Live = false,
+        };
 
-    public static async Task<SoakResult> RunAsync(SortOptions options, SoakSettings s, Func<SimulatedBench, CancellationToken, Task<string>>? serve, TimeSpan limit)
+    public static async Task<SoakResult> RunAsync(
+        SortOptions options,
+        SoakSettings s,
+        Func<SimulatedBench, CancellationToken, Task<string>>? serve,
+        TimeSpan limit
+    )
     {
         var time = new ScaledTimeProvider(options.Speed);
         var heard = new StringWriter { NewLine = "\n" };
-        var services = new SortServices(time, new BenchEventHub(time), new BenchSnapshot(), new OperatorCommands(),
-            new PlainTextAnnouncer(TextWriter.Synchronized(heard)), NullLoggerFactory.Instance);
+        var services = new SortServices(
+            time,
+            new BenchEventHub(time),
+            new BenchSnapshot(),
+            new OperatorCommands(),
+            new PlainTextAnnouncer(TextWriter.Synchronized(heard)),
+            NullLoggerFactory.Instance
+        );
         SimulatedBench? bench = null;
         var hooks = new SimulatorHooks
         {
-            Configure = b => b with
-            {
-                SerialBaudRate = 115_200,
-                Faults = new FaultOptions
+            Configure = b =>
+                b with
                 {
-                    DropRate = Rate(FaultKind.DropConnection, s.FaultRate),
-                    DelayRate = Rate(FaultKind.DelayReply, s.FaultRate),
-                    GarbleRate = Rate(FaultKind.GarbleReply, s.FaultRate),
-                    SpuriousErrorRate = Rate(FaultKind.SpuriousError, s.FaultRate),
-                    SilentResetRate = Rate(FaultKind.SilentReset, s.FaultRate),
-                    ReplyDelay = TimeSpan.FromSeconds(8), // past the 6.2 s read timeout of the simulator profile at 10 NPLC
-                },
+                    SerialBaudRate = 115_200,
+                    Faults = new FaultOptions
+                    {
+                        DropRate = Rate(FaultKind.DropConnection, s.FaultRate),
+                        DelayRate = Rate(FaultKind.DelayReply, s.FaultRate),
+                        GarbleRate = Rate(FaultKind.GarbleReply, s.FaultRate),
+                        SpuriousErrorRate = Rate(FaultKind.SpuriousError, s.FaultRate),
+                        SilentResetRate = Rate(FaultKind.SilentReset, s.FaultRate),
+                        // past the 6.2 s read timeout of the simulator profile at 10 NPLC
+                        ReplyDelay = TimeSpan.FromSeconds(8),
+                    },
 
-                // The operator was told to leave the part in while the meter reconnects: a patient
-                // person; and a quick one, with parts barely warmed (the soak is about faults, not heat).
-                Operator = b.Operator with
-                {
-                    MaxDwell = TimeSpan.FromHours(1),
-                    HandlingTimeMin = TimeSpan.FromSeconds(0.3),
-                    HandlingTimeMax = TimeSpan.FromSeconds(0.8),
-                    ReactionTimeMin = TimeSpan.FromSeconds(0.2),
-                    ReactionTimeMax = TimeSpan.FromSeconds(0.5),
-                    WarmKelvinMin = 0.5,
-                    WarmKelvinMax = 1.5,
+                    // The operator was told to leave the part in while the meter reconnects: a patient
+                    // person; and a quick one, with parts barely warmed (the soak is about faults, not heat).
+                    Operator = b.Operator with
+                    {
+                        MaxDwell = TimeSpan.FromHours(1),
+                        HandlingTimeMin = TimeSpan.FromSeconds(0.3),
+                        HandlingTimeMax = TimeSpan.FromSeconds(0.8),
+                        ReactionTimeMin = TimeSpan.FromSeconds(0.2),
+                        ReactionTimeMax = TimeSpan.FromSeconds(0.5),
+                        WarmKelvinMin = 0.5,
+                        WarmKelvinMax = 1.5,
+                    },
                 },
-            },
             Started = b => bench = b,
             Serve = serve,
         };
@@ -106,7 +125,10 @@ internal static class FaultSoak
         }
         catch (OperationCanceledException) when (timeout.IsCancellationRequested)
         {
-            throw new TimeoutException($"soak did not finish in {limit}; {services.Snapshot.Parts().Count} parts so far; heard:\n{Tail(heard.ToString())}");
+            throw new TimeoutException(
+                $"soak did not finish in {limit}; {services.Snapshot.Parts().Count} parts so far; heard:\n"
+                    + $"{Tail(heard.ToString())}"
+            );
         }
 
         wall.Stop();
@@ -120,8 +142,18 @@ internal static class FaultSoak
         }
 
         var integrity = await log.VerifyAsync(default);
-        return new SoakResult(options, outcome, parts, counts, truth, bench!.Faults.Log.Snapshot(), bench.Operator.DwellTimeouts,
-            heard.ToString(), integrity, wall.Elapsed);
+        return new SoakResult(
+            options,
+            outcome,
+            parts,
+            counts,
+            truth,
+            bench!.Faults.Log.Snapshot(),
+            bench.Operator.DwellTimeouts,
+            heard.ToString(),
+            integrity,
+            wall.Elapsed
+        );
     }
 
     /// <summary>One row of the figures table (markdown).</summary>
@@ -129,8 +161,12 @@ internal static class FaultSoak
     {
         var (lost, doubled, wrong) = SoakChecks.Tally(r);
         var told = Announcements.Notes(r.Heard).Count(n => n.StartsWith("meter", StringComparison.Ordinal));
-        return string.Create(CultureInfo.InvariantCulture,
-            $"| {transport} | {r.Options.Parts} | {r.Injected.Values.Sum()} | {string.Join(" / ", s_mix.Select(m => r.Injected[m.Kind]))} | {linkCuts} | {told} | {lost} | {doubled} | {wrong} | {r.Wall.TotalSeconds:0} s |");
+        return string.Create(
+            CultureInfo.InvariantCulture,
+            $"| {transport} | {r.Options.Parts} | {r.Injected.Values.Sum()} | "
+                + $"{string.Join(" / ", s_mix.Select(m => r.Injected[m.Kind]))} | {linkCuts} | {told} | {lost} | "
+                + $"{doubled} | {wrong} | {r.Wall.TotalSeconds:0} s |"
+        );
     }
 
     private static double Rate(FaultKind kind, double total) => total * s_mix.Single(m => m.Kind == kind).Share;

@@ -17,7 +17,9 @@ public sealed class RootFactAttribute : FactAttribute
         {
             Skip = "needs root (mounts a tmpfs, sets file attributes)";
         }
-        else if (programs.FirstOrDefault(p => !File.Exists("/usr/bin/" + p) && !File.Exists("/bin/" + p)) is { } missing)
+        else if (
+            programs.FirstOrDefault(p => !File.Exists("/usr/bin/" + p) && !File.Exists("/bin/" + p)) is { } missing
+        )
         {
             Skip = $"needs {missing} (apt-get install it)";
         }

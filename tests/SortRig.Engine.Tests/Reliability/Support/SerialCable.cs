@@ -36,7 +36,11 @@ internal sealed class SerialCable : IAsyncDisposable
     public static async Task<SerialCable> StartAsync()
     {
         var id = Guid.NewGuid().ToString("N")[..8];
-        var (meter, middle, host) = ($"/tmp/sortrig-rel-{id}-meter", $"/tmp/sortrig-rel-{id}-mid", $"/tmp/sortrig-rel-{id}-host");
+        var (meter, middle, host) = (
+            $"/tmp/sortrig-rel-{id}-meter",
+            $"/tmp/sortrig-rel-{id}-mid",
+            $"/tmp/sortrig-rel-{id}-host"
+        );
         var pair = Socat($"pty,raw,echo=0,link={meter}", $"pty,raw,echo=0,link={middle}");
         await WaitForAsync(pair, meter, middle);
         var cable = new SerialCable(pair, meter, middle, host);
@@ -95,7 +99,12 @@ internal sealed class SerialCable : IAsyncDisposable
         {
             if (deadline.Elapsed > TimeSpan.FromSeconds(5) || process.HasExited)
             {
-                throw new InvalidOperationException("socat did not create " + string.Join(", ", paths) + ": " + await process.StandardError.ReadToEndAsync());
+                throw new InvalidOperationException(
+                    "socat did not create "
+                        + string.Join(", ", paths)
+                        + ": "
+                        + await process.StandardError.ReadToEndAsync()
+                );
             }
 
             await Task.Delay(5);

@@ -5,10 +5,12 @@ using Xunit.Abstractions;
 
 namespace SortRig.Engine.Tests.Reliability.Support;
 
-/// <summary>The checks every soak must pass: nothing lost, nothing doubled, every value and cup true, the operator told.</summary>
+/// <summary>The checks every soak must pass: nothing lost, nothing doubled, every value and cup true, the operator
+/// told.</summary>
 internal static class SoakChecks
 {
-    /// <summary>The data-loss figures of a soak: parts lost, announced twice, in a cup their truth does not call for.</summary>
+    /// <summary>The data-loss figures of a soak: parts lost, announced twice, in a cup their truth does not call
+    /// for.</summary>
     public static (int Lost, int Doubled, int Wrong) Tally(SoakResult r)
     {
         var stored = r.Parts.Where(p => p.State == PartState.Announced).Select(p => p.Number).ToHashSet();
@@ -32,7 +34,9 @@ internal static class SoakChecks
         Assert.Equal(n, r.Outcome.PartsRecorded);
         Assert.Equal(Enumerable.Range(1, n), r.Parts.Select(p => p.Number));
         Assert.All(r.Parts, p => Assert.Equal(PartState.Announced, p.State));
-        Assert.All(r.Parts, p => Assert.True(r.ReadingCounts[p.Id] >= 8, $"part {p.Number} has {r.ReadingCounts[p.Id]} readings"));
+        Assert.All(r.Parts, p =>
+            Assert.True(r.ReadingCounts[p.Id] >= 8, $"part {p.Number} has {r.ReadingCounts[p.Id]} readings")
+        );
 
         var (problems, onEdge) = TruthCheck.Compare(r.Options, r.Parts, number => r.Truth[number]);
         output.WriteLine($"{onEdge} parts on a band edge within their uncertainty");
@@ -46,7 +50,7 @@ internal static class SoakChecks
         var notes = Announcements.Notes(r.Heard);
         foreach (var group in notes.GroupBy(Kind).OrderByDescending(g => g.Count()))
         {
-            output.WriteLine($"{group.Count(),5} x {group.Key}");
+            output.WriteLine($"{group.Count(), 5} x {group.Key}");
         }
 
         foreach (var kind in FaultSoak.Kinds)
@@ -56,7 +60,10 @@ internal static class SoakChecks
 
         // The operator was told of every recovery, and each kind of fault was heard as what it is.
         Assert.Equal(r.Outcome.Faults, notes.Count(note => note.StartsWith("meter", StringComparison.Ordinal)));
-        Assert.Contains(notes, note => note.Contains("connection lost", StringComparison.Ordinal) || note.Contains("no answer in time", StringComparison.Ordinal));
+        Assert.Contains(notes, note =>
+            note.Contains("connection lost", StringComparison.Ordinal)
+            || note.Contains("no answer in time", StringComparison.Ordinal)
+        );
         Assert.Contains(notes, note => note.Contains("no answer in time", StringComparison.Ordinal));
         Assert.Contains(notes, note => note.Contains("garbled reply", StringComparison.Ordinal));
         Assert.Contains(notes, note => note.Contains("instrument error -310", StringComparison.Ordinal));

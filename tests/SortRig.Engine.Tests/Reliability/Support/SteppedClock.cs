@@ -14,7 +14,8 @@ internal sealed class SteppedClock : TimeProvider
     public override DateTimeOffset GetUtcNow() => System.GetUtcNow().AddTicks(Interlocked.Read(ref _offsetTicks));
 
     public override long GetTimestamp() =>
-        System.GetTimestamp() + (long)(Interlocked.Read(ref _offsetTicks) * (double)System.TimestampFrequency / TimeSpan.TicksPerSecond);
+        System.GetTimestamp()
+        + (long)(Interlocked.Read(ref _offsetTicks) * (double)System.TimestampFrequency / TimeSpan.TicksPerSecond);
 
     public override long TimestampFrequency => System.TimestampFrequency;
 

@@ -9,9 +9,14 @@ public sealed class LabFactAttribute : FactAttribute
 {
     public LabFactAttribute()
     {
-        if (string.IsNullOrWhiteSpace(Environment.GetEnvironmentVariable(LabStore.PgVariable)) && Environment.GetEnvironmentVariable("CI") != "true")
+        if (
+            string.IsNullOrWhiteSpace(Environment.GetEnvironmentVariable(LabStore.PgVariable))
+            && Environment.GetEnvironmentVariable("CI") != "true"
+        )
         {
-            Skip = $"lab test skipped: set {LabStore.PgVariable} (export {LabStore.PgVariable}=\"$(scripts/pg-test-server start)\").";
+            Skip =
+                $"lab test skipped: set {LabStore.PgVariable} (export "
+                + $"{LabStore.PgVariable}=\"$(scripts/pg-test-server start)\").";
         }
     }
 }

@@ -24,16 +24,20 @@ internal sealed class LabStore : IAsyncDisposable
 
     public LabRoleNames Names { get; }
 
-    /// <summary>The bench's --db: the writer role, its search path the lab schema (set by LabRoles), no password.</summary>
+    /// <summary>The bench's --db: the writer role, its search path the lab schema (set by LabRoles), no
+    /// password.</summary>
     public string Writer => With(_admin, Names.Writer);
 
     /// <summary>The writer's connection string through another host and port (a proxy).</summary>
-    public string WriterVia(int port) => new NpgsqlConnectionStringBuilder(Writer) { Host = "127.0.0.1", Port = port }.ConnectionString;
+    public string WriterVia(int port) =>
+        new NpgsqlConnectionStringBuilder(Writer) { Host = "127.0.0.1", Port = port }.ConnectionString;
 
     public static string ServerFromEnvironment() =>
         Environment.GetEnvironmentVariable(PgVariable) is { Length: > 0 } s
             ? s
-            : throw new InvalidOperationException($"{PgVariable} is not set: start a server with scripts/pg-test-server start and export its output.");
+            : throw new InvalidOperationException(
+                $"{PgVariable} is not set: start a server with scripts/pg-test-server start and export its output."
+            );
 
     /// <param name="admin">A superuser connection string; default the test server.</param>
     public static async Task<LabStore> CreateAsync(string? admin = null)
@@ -50,23 +54,57 @@ internal sealed class LabStore : IAsyncDisposable
         return store;
     }
 
-    public Task<IPrecisionLog> OpenAsync(PrecisionLogOptions? options = null) => PrecisionLogFactory.OpenAsync(Writer, options, CancellationToken.None);
+    public Task<IPrecisionLog> OpenAsync(PrecisionLogOptions? options = null) =>
+        PrecisionLogFactory.OpenAsync(Writer, options, CancellationToken.None);
 
-    /// <summary>Stocks the library: one finished session of <paramref name="count"/> 10 kOhm parts, returns their ids.</summary>
+    /// <summary>Stocks the library: one finished session of <paramref name="count"/> 10 kOhm parts, returns their
+    /// ids.</summary>
     public async Task<long[]> StockLibraryAsync(int count)
     {
         await using var log = await OpenAsync();
-        var session = await log.OpenOrResumeSessionAsync(new SessionRequest("lab-stock", "keeper"), CancellationToken.None);
-        var setup = new BatchSetup(10_000, 10_000, 500, 100_000, 10, true, "sim-dmm-6", "SORTRIG,SIM-DMM-6,0001,1.0", null);
+        var session = await log.OpenOrResumeSessionAsync(
+            new SessionRequest("lab-stock", "keeper"),
+            CancellationToken.None
+        );
+        var setup = new BatchSetup(
+            10_000,
+            10_000,
+            500,
+            100_000,
+            10,
+            true,
+            "sim-dmm-6",
+            "SORTRIG,SIM-DMM-6,0001,1.0",
+            null
+        );
         var batch = await log.StartBatchAsync(session.Session.Id, setup, CancellationToken.None);
         var at = new DateTimeOffset(2026, 3, 2, 8, 0, 0, TimeSpan.Zero);
         var ids = new List<long>();
         for (int i = 0; i < count; i++)
         {
             double value = 10_000 * (1 + ((i * 37 % 19) - 9) * 20e-6); // invented spread of deviations, ±180 ppm
-            var raw = Enumerable.Range(0, 8).Select(k => Reading.Finite(value + ((k - 4) * 0.001), at.AddSeconds(i * 30).AddMilliseconds(k * 100), 100_000)).ToArray();
-            var part = await log.CommitPartAsync(new PartCommit(Guid.NewGuid(), session.Session.Id, batch.Id, new MeasuredValue(value, value * 12e-6, value * 1.5e-6),
-                100_000, 10, 22.8, at.AddSeconds(i * 30), "A", null, raw), CancellationToken.None);
+            var raw = Enumerable
+                .Range(0, 8)
+                .Select(k =>
+                    Reading.Finite(value + ((k - 4) * 0.001), at.AddSeconds(i * 30).AddMilliseconds(k * 100), 100_000)
+                )
+                .ToArray();
+            var part = await log.CommitPartAsync(
+                new PartCommit(
+                    Guid.NewGuid(),
+                    session.Session.Id,
+                    batch.Id,
+                    new MeasuredValue(value, value * 12e-6, value * 1.5e-6),
+                    100_000,
+                    10,
+                    22.8,
+                    at.AddSeconds(i * 30),
+                    "A",
+                    null,
+                    raw
+                ),
+                CancellationToken.None
+            );
             ids.Add(part.Id);
         }
 
@@ -85,7 +123,8 @@ internal sealed class LabStore : IAsyncDisposable
         }
     }
 
-    private static string With(string admin, string role) => new NpgsqlConnectionStringBuilder(admin) { Username = role }.ConnectionString;
+    private static string With(string admin, string role) =>
+        new NpgsqlConnectionStringBuilder(admin) { Username = role }.ConnectionString;
 
     private static async Task ExecuteAsync(string connectionString, string sql)
     {

@@ -14,7 +14,8 @@ internal interface IOutage : IAsyncDisposable
     Task EndAsync();
 }
 
-/// <summary>The bench's own server is shut down (fast: sessions ended, connections dropped) and started again.</summary>
+/// <summary>The bench's own server is shut down (fast: sessions ended, connections dropped) and started
+/// again.</summary>
 internal sealed class ServerRestart(OwnServer server, LabStore lab) : IOutage
 {
     public string Database => lab.Writer;

@@ -8,12 +8,13 @@ namespace SortRig.Host.Tests.Lab.Support;
 /// </summary>
 internal sealed class OwnServer : IAsyncDisposable
 {
-    private readonly string _dir = Path.Combine(Path.GetTempPath(), "sortrig-lab-pg-" + Guid.NewGuid().ToString("N")[..8]);
+    private readonly string _dir = Path.Combine(
+        Path.GetTempPath(),
+        "sortrig-lab-pg-" + Guid.NewGuid().ToString("N")[..8]
+    );
     private int _port;
 
-    private OwnServer()
-    {
-    }
+    private OwnServer() { }
 
     /// <summary>The superuser connection string (trust auth, loopback).</summary>
     public string ConnectionString { get; private set; } = "";
@@ -39,7 +40,8 @@ internal sealed class OwnServer : IAsyncDisposable
     {
         await RunScriptAsync("stop");
 
-        // The test's own pooled connections to this server are dead now; a later server on the same port must not get them.
+        // The test's own pooled connections to this server are dead now; a later server on the same port must not get
+        // them.
         Npgsql.NpgsqlConnection.ClearAllPools();
     }
 
@@ -47,7 +49,10 @@ internal sealed class OwnServer : IAsyncDisposable
     public async Task StartAgainAsync()
     {
         var url = (await RunScriptAsync("start")).Trim();
-        var port = int.Parse(url.Split(';').Single(p => p.StartsWith("Port=", StringComparison.Ordinal))[5..], System.Globalization.CultureInfo.InvariantCulture);
+        var port = int.Parse(
+            url.Split(';').Single(p => p.StartsWith("Port=", StringComparison.Ordinal))[5..],
+            System.Globalization.CultureInfo.InvariantCulture
+        );
         Assert.True(_port == 0 || _port == port, $"the server came back on port {port}, not {_port}");
         _port = port;
         ConnectionString = url;
@@ -70,7 +75,12 @@ internal sealed class OwnServer : IAsyncDisposable
 
     private async Task<string> RunScriptAsync(string verb)
     {
-        var start = new ProcessStartInfo("bash") { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        var start = new ProcessStartInfo("bash")
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
         start.ArgumentList.Add(Script());
         start.ArgumentList.Add(verb);
         start.ArgumentList.Add(_dir);

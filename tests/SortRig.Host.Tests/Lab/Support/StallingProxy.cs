@@ -87,9 +87,13 @@ internal sealed class StallingProxy : IAsyncDisposable
         {
             await _open.Task.WaitAsync(_stop.Token);
             await upstream.ConnectAsync(IPAddress.Loopback, _targetPort, _stop.Token);
-            await Task.WhenAny(PumpAsync(client.GetStream(), upstream.GetStream()), PumpAsync(upstream.GetStream(), client.GetStream()));
+            await Task.WhenAny(
+                PumpAsync(client.GetStream(), upstream.GetStream()),
+                PumpAsync(upstream.GetStream(), client.GetStream())
+            );
         }
-        catch (Exception e) when (e is IOException or SocketException or OperationCanceledException or ObjectDisposedException)
+        catch (Exception e)
+            when (e is IOException or SocketException or OperationCanceledException or ObjectDisposedException)
         {
             // A side closed or the proxy stopped.
         }
@@ -116,7 +120,8 @@ internal sealed class StallingProxy : IAsyncDisposable
                 await to.WriteAsync(buffer.AsMemory(0, n), _stop.Token);
             }
         }
-        catch (Exception e) when (e is IOException or SocketException or OperationCanceledException or ObjectDisposedException)
+        catch (Exception e)
+            when (e is IOException or SocketException or OperationCanceledException or ObjectDisposedException)
         {
             // A side closed or the proxy stopped.
         }

@@ -23,26 +23,41 @@ internal static class CrashPlan
 
     /// <summary>One run: how it is killed.</summary>
     /// <param name="Kind">migration, read, commit, announce, random, or finish (no kill).</param>
-    /// <param name="N">Which write to the WAL (migration), which pass of the point (hooks), after which announcement (random).</param>
+    /// <param name="N">Which write to the WAL (migration), which pass of the point (hooks), after which announcement
+    /// (random).</param>
     internal sealed record Step(string Kind, int N)
     {
         public static Step Finish { get; } = new("finish", 0);
 
-        public string Detail => Kind switch
-        {
-            "migration" => $"wal write {N}",
-            "random" => $"after part {N}",
-            "finish" => "",
-            _ => $"pass {N}",
-        };
+        public string Detail =>
+            Kind switch
+            {
+                "migration" => $"wal write {N}",
+                "random" => $"after part {N}",
+                "finish" => "",
+                _ => $"pass {N}",
+            };
 
         public string? CrashAt => Kind is "read" or "commit" or "announce" ? $"{Kind}:{N}" : null;
 
-        /// <summary>strace stops the process at its N-th write to the WAL file, inside the migration's transaction.</summary>
-        public IReadOnlyList<string>? Strace(string db) => Kind == "migration"
-            ? ["-f", "-qq", "-o", "/dev/null", "-P", db + "-wal", "-e", "trace=pwrite64",
-               "-e", "inject=pwrite64:signal=KILL:when=" + N.ToString(CultureInfo.InvariantCulture)]
-            : null;
+        /// <summary>strace stops the process at its N-th write to the WAL file, inside the migration's
+        /// transaction.</summary>
+        public IReadOnlyList<string>? Strace(string db) =>
+            Kind == "migration"
+                ?
+                [
+                    "-f",
+                    "-qq",
+                    "-o",
+                    "/dev/null",
+                    "-P",
+                    db + "-wal",
+                    "-e",
+                    "trace=pwrite64",
+                    "-e",
+                    "inject=pwrite64:signal=KILL:when=" + N.ToString(CultureInfo.InvariantCulture),
+                ]
+                : null;
 
         /// <summary>Random kills: a random 0-300 ms after the N-th new announcement of the run.</summary>
         public Func<string, TimeSpan?>? KillAfter(Random rng)
@@ -54,9 +69,12 @@ internal static class CrashPlan
 
             var delay = TimeSpan.FromMilliseconds(rng.Next(0, 300));
             var seen = 0;
-            return line => line.StartsWith("part ", StringComparison.Ordinal) && !line.Contains("(repeated)", StringComparison.Ordinal) && ++seen == N
-                ? delay
-                : null;
+            return line =>
+                line.StartsWith("part ", StringComparison.Ordinal)
+                && !line.Contains("(repeated)", StringComparison.Ordinal)
+                && ++seen == N
+                    ? delay
+                    : null;
         }
     }
 }

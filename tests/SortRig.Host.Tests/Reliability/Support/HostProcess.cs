@@ -2,7 +2,8 @@ using System.Diagnostics;
 
 namespace SortRig.Host.Tests.Reliability.Support;
 
-/// <summary>One run of the built host as a separate process: its exit code, every stdout line (announcements) and its log (stderr).</summary>
+/// <summary>One run of the built host as a separate process: its exit code, every stdout line (announcements) and its
+/// log (stderr).</summary>
 internal sealed record HostRun(int ExitCode, IReadOnlyList<string> Lines, string Log)
 {
     /// <summary>128 + 9: the process died of SIGKILL.</summary>
@@ -24,10 +25,17 @@ internal static class HostProcess
     /// <param name="args">Arguments after the dll.</param>
     /// <param name="crashAt">SORTRIG_CRASH_AT for this run, or null.</param>
     /// <param name="strace">strace arguments to run the host under, or null.</param>
-    /// <param name="killAfter">Given each stdout line, a delay after which to SIGKILL the process, or null to let it run.</param>
+    /// <param name="killAfter">Given each stdout line, a delay after which to SIGKILL the process, or null to let it
+    /// run.</param>
     /// <param name="limit">Wall-time limit; the process is killed and the run fails past it.</param>
     public static async Task<HostRun> RunAsync(
-        string workDir, IReadOnlyList<string> args, string? crashAt, IReadOnlyList<string>? strace, Func<string, TimeSpan?>? killAfter, TimeSpan limit)
+        string workDir,
+        IReadOnlyList<string> args,
+        string? crashAt,
+        IReadOnlyList<string>? strace,
+        Func<string, TimeSpan?>? killAfter,
+        TimeSpan limit
+    )
     {
         var start = strace is null ? new ProcessStartInfo("dotnet") : new ProcessStartInfo("strace");
         foreach (var a in strace ?? [])
