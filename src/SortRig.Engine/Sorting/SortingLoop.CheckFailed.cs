@@ -95,25 +95,17 @@ public sealed partial class SortingLoop
                 PartState.Accepted,
                 acceptance.AcceptedBy
             );
+            // The new record and the old one marked measured again in one transaction: a crash between them
+            // can neither lose the part nor keep it twice.
+            var replaced = new PartCorrection(id, PartCorrectionKind.Remeasure, Note: RemeasuredAs);
             var stored = await DurablyAsync(
                     $"part {part.Number} measured again",
-                    c => _ctx.Log.CommitPartAsync(commit, c),
+                    c => _ctx.Log.CommitRemeasureAsync(commit, replaced, c),
                     ct
                 )
                 .ConfigureAwait(false);
             _extraPositions[stored.Number] = ReelPosition(part.Number);
-            var correction = new PartCorrection(
-                id,
-                PartCorrectionKind.Remeasure,
-                Note: Invariant($"{RemeasuredAs}{stored.Number}")
-            );
-            var old = await DurablyAsync(
-                    $"part {part.Number} marked measured again",
-                    c => _ctx.Log.UndoPartAsync(correction, c),
-                    ct
-                )
-                .ConfigureAwait(false);
-            _ctx.Snapshot.Upsert(ToView(old));
+            _ctx.Snapshot.Upsert(ToView(part with { State = PartState.Remeasured }));
             var kind = decision.IsReject ? AnnouncementKind.Reject : AnnouncementKind.Cup;
             await AnnounceStoredAsync(stored, kind, decision.CompletesSet, ct).ConfigureAwait(false);
             PublishCounts();

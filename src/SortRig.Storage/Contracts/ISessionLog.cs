@@ -22,6 +22,20 @@ public interface ISessionLog
     /// commit key.</summary>
     Task<PartRecord> CommitPartAsync(PartCommit commit, CancellationToken cancellationToken);
 
+    /// <summary>Writes a part measured again and marks the part it replaces <see cref="PartState.Remeasured"/> in one
+    /// transaction (so a crash between the two neither loses the part nor keeps it twice); idempotent by commit key.
+    /// The replaced part's history note is <paramref name="replaced"/>'s note followed by the new part
+    /// number.</summary>
+    /// <param name="commit">The new record.</param>
+    /// <param name="replaced">The correction of the old record; its kind must be
+    /// <see cref="PartCorrectionKind.Remeasure"/>.</param>
+    /// <param name="cancellationToken">Stops the write; nothing is written then.</param>
+    Task<PartRecord> CommitRemeasureAsync(
+        PartCommit commit,
+        PartCorrection replaced,
+        CancellationToken cancellationToken
+    );
+
     /// <summary>Marks a part as announced to the operator (state Accepted becomes Announced). Idempotent.</summary>
     Task<PartRecord> MarkAnnouncedAsync(long partId, CancellationToken cancellationToken);
 

@@ -14,56 +14,56 @@ internal abstract partial class AdoPrecisionLog
             Guard.Text(correction.NewCupLabel, nameof(correction.NewCupLabel));
         }
 
-        string operation = $"correct part ({correction.Kind})";
         return WriteAsync(
-            operation,
-            async (s, ct) =>
-            {
-                var part = await s.Sql($"SELECT {PartColumns} FROM parts p WHERE p.id = @id{ForUpdate}")
-                    .With("id", correction.PartId)
-                    .FirstOrDefaultAsync(ReadPart, ct)
-                    .ConfigureAwait(false)
-                    ?? throw NotFound(operation, $"Part {correction.PartId}");
-                var (allowed, newState, kind) = correction.Kind switch
-                {
-                    PartCorrectionKind.Undo => (
-                        part.IsLive || part.State == PartState.Unstable,
-                        PartState.Undone,
-                        PartEventKind.Undone
-                    ),
-                    PartCorrectionKind.Remeasure => (
-                        part.IsLive || part.State == PartState.Unstable,
-                        PartState.Remeasured,
-                        PartEventKind.Remeasured
-                    ),
-                    PartCorrectionKind.RemoveEarly => (part.IsLive, PartState.RemovedEarly, PartEventKind.RemovedEarly),
-                    _ => (part.IsLive, part.State, PartEventKind.CupCorrected),
-                };
-                if (!allowed)
-                {
-                    throw Conflict(
-                        operation,
-                        $"part {part.Id} (number {part.Number} of session {part.SessionId}) is {part.State}; "
-                            + $"{correction.Kind} needs a part that is Accepted or Announced."
-                    );
-                }
-
-                var newCup = correction.Kind == PartCorrectionKind.MoveToCup ? correction.NewCupLabel : part.CupLabel;
-                await s.Sql("UPDATE parts SET state = @state, cup_label = @cup WHERE id = @id")
-                    .With("state", newState.ToString())
-                    .With("cup", newCup)
-                    .With("id", part.Id)
-                    .ExecuteAsync(ct)
-                    .ConfigureAwait(false);
-                var (before, after) =
-                    kind == PartEventKind.CupCorrected
-                        ? (part.CupLabel, newCup)
-                        : (part.State.ToString(), newState.ToString());
-                await AddEventAsync(s, part.Id, kind, before, after, null, correction.Note, ct).ConfigureAwait(false);
-                return (await GetPartCoreAsync(s, part.Id, ct).ConfigureAwait(false))!;
-            },
+            $"correct part ({correction.Kind})",
+            (s, ct) => CorrectCoreAsync(s, correction, ct),
             cancellationToken
         );
+    }
+
+    private async Task<PartRecord> CorrectCoreAsync(DbScope s, PartCorrection correction, CancellationToken ct)
+    {
+        string operation = $"correct part ({correction.Kind})";
+        var part = await s.Sql($"SELECT {PartColumns} FROM parts p WHERE p.id = @id{ForUpdate}")
+            .With("id", correction.PartId)
+            .FirstOrDefaultAsync(ReadPart, ct)
+            .ConfigureAwait(false)
+            ?? throw NotFound(operation, $"Part {correction.PartId}");
+        var (allowed, newState, kind) = correction.Kind switch
+        {
+            PartCorrectionKind.Undo => (
+                part.IsLive || part.State == PartState.Unstable,
+                PartState.Undone,
+                PartEventKind.Undone
+            ),
+            PartCorrectionKind.Remeasure => (
+                part.IsLive || part.State == PartState.Unstable,
+                PartState.Remeasured,
+                PartEventKind.Remeasured
+            ),
+            PartCorrectionKind.RemoveEarly => (part.IsLive, PartState.RemovedEarly, PartEventKind.RemovedEarly),
+            _ => (part.IsLive, part.State, PartEventKind.CupCorrected),
+        };
+        if (!allowed)
+        {
+            throw Conflict(
+                operation,
+                $"part {part.Id} (number {part.Number} of session {part.SessionId}) is {part.State}; "
+                    + $"{correction.Kind} needs a part that is Accepted or Announced."
+            );
+        }
+
+        var newCup = correction.Kind == PartCorrectionKind.MoveToCup ? correction.NewCupLabel : part.CupLabel;
+        await s.Sql("UPDATE parts SET state = @state, cup_label = @cup WHERE id = @id")
+            .With("state", newState.ToString())
+            .With("cup", newCup)
+            .With("id", part.Id)
+            .ExecuteAsync(ct)
+            .ConfigureAwait(false);
+        var (before, after) =
+            kind == PartEventKind.CupCorrected ? (part.CupLabel, newCup) : (part.State.ToString(), newState.ToString());
+        await AddEventAsync(s, part.Id, kind, before, after, null, correction.Note, ct).ConfigureAwait(false);
+        return (await GetPartCoreAsync(s, part.Id, ct).ConfigureAwait(false))!;
     }
 
     public Task<IReadOnlyList<PartEvent>> GetPartHistoryAsync(long partId, CancellationToken cancellationToken) =>

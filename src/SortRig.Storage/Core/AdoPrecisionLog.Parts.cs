@@ -8,59 +8,99 @@ internal abstract partial class AdoPrecisionLog
     public async Task<PartRecord> CommitPartAsync(PartCommit commit, CancellationToken cancellationToken)
     {
         PartCommitRules.Check(commit);
-        const string operation = "commit part";
+        return await WriteAsync(CommitOperation, (s, ct) => CommitCoreAsync(s, commit, ct), cancellationToken)
+            .ConfigureAwait(false);
+    }
+
+    public async Task<PartRecord> CommitRemeasureAsync(
+        PartCommit commit,
+        PartCorrection replaced,
+        CancellationToken cancellationToken
+    )
+    {
+        PartCommitRules.Check(commit);
+        ArgumentNullException.ThrowIfNull(replaced);
+        Guard.Id(replaced.PartId, nameof(replaced.PartId));
+        if (replaced.Kind != PartCorrectionKind.Remeasure)
+        {
+            throw new ArgumentException("the replaced part's correction must be Remeasure", nameof(replaced));
+        }
+
         return await WriteAsync(
-                operation,
+                "commit part measured again",
                 async (s, ct) =>
                 {
-                    // A retried commit (after a crash or timeout) finds its first attempt and writes nothing.
-                    if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } earlier)
+                    // One transaction: the new record and the old one marked measured again land together or not
+                    // at all, so a crash between them can neither lose the part nor keep it twice. A retry finds the
+                    // first attempt by commit key; the old part is then already marked.
+                    var stored = await CommitCoreAsync(s, commit, ct).ConfigureAwait(false);
+                    var old = await GetPartCoreAsync(s, replaced.PartId, ct).ConfigureAwait(false);
+                    if (old is { State: not PartState.Remeasured })
                     {
-                        return Duplicate(s, earlier);
+                        var note = replaced.Note is { } n ? $"{n}{stored.Number}" : null;
+                        await CorrectCoreAsync(s, replaced with { Note = note }, ct).ConfigureAwait(false);
+                    }
+                    else if (old is null)
+                    {
+                        throw NotFound("commit part measured again", $"Part {replaced.PartId}");
                     }
 
-                    // Allocating the number locks the session row (PostgreSQL) inside the write transaction; a
-                    // rolled-back commit gives its number back, so numbers stay contiguous.
-                    var number = await s.Sql(
-                            "UPDATE sessions SET next_part_number = next_part_number + 1 WHERE id = @id AND "
-                                + "finished_at IS NULL "
-                                + "RETURNING next_part_number - 1"
-                        )
-                        .With("id", commit.SessionId)
-                        .ScalarLongAsync(ct)
-                        .ConfigureAwait(false);
-                    if (number is null)
-                    {
-                        var session = await GetSessionCoreAsync(s, commit.SessionId, ct).ConfigureAwait(false);
-                        throw session is null
-                            ? NotFound(operation, $"Session {commit.SessionId}")
-                            : Conflict(
-                                operation,
-                                $"session {commit.SessionId} '{session.Name}' is finished; no parts can be added."
-                            );
-                    }
-
-                    // Under PostgreSQL READ COMMITTED a concurrent retry with the same key may have committed while we
-                    // waited for the session row; this statement sees it.
-                    if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } raced)
-                    {
-                        return Duplicate(s, raced);
-                    }
-
-                    var batch = await GetBatchCoreAsync(s, commit.BatchId, ct).ConfigureAwait(false);
-                    if (batch is null || batch.SessionId != commit.SessionId)
-                    {
-                        throw NotFound(operation, $"Batch {commit.BatchId} of session {commit.SessionId}");
-                    }
-
-                    long partId = await InsertPartAsync(s, commit, (int)number.Value, batch.Setup.Nominal, ct)
-                        .ConfigureAwait(false);
-                    await InsertReadingsAsync(s, partId, commit, ct).ConfigureAwait(false);
-                    return (await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false))!;
+                    return stored;
                 },
                 cancellationToken
             )
             .ConfigureAwait(false);
+    }
+
+    private const string CommitOperation = "commit part";
+
+    private async Task<PartRecord> CommitCoreAsync(DbScope s, PartCommit commit, CancellationToken ct)
+    {
+        const string operation = CommitOperation;
+        // A retried commit (after a crash or timeout) finds its first attempt and writes nothing.
+        if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } earlier)
+        {
+            return Duplicate(s, earlier);
+        }
+
+        // Allocating the number locks the session row (PostgreSQL) inside the write transaction; a
+        // rolled-back commit gives its number back, so numbers stay contiguous.
+        var number = await s.Sql(
+                "UPDATE sessions SET next_part_number = next_part_number + 1 WHERE id = @id AND "
+                    + "finished_at IS NULL "
+                    + "RETURNING next_part_number - 1"
+            )
+            .With("id", commit.SessionId)
+            .ScalarLongAsync(ct)
+            .ConfigureAwait(false);
+        if (number is null)
+        {
+            var session = await GetSessionCoreAsync(s, commit.SessionId, ct).ConfigureAwait(false);
+            throw session is null
+                ? NotFound(operation, $"Session {commit.SessionId}")
+                : Conflict(
+                    operation,
+                    $"session {commit.SessionId} '{session.Name}' is finished; no parts can be added."
+                );
+        }
+
+        // Under PostgreSQL READ COMMITTED a concurrent retry with the same key may have committed while we
+        // waited for the session row; this statement sees it.
+        if (await FindByKeyAsync(s, commit.CommitKey, ct).ConfigureAwait(false) is { } raced)
+        {
+            return Duplicate(s, raced);
+        }
+
+        var batch = await GetBatchCoreAsync(s, commit.BatchId, ct).ConfigureAwait(false);
+        if (batch is null || batch.SessionId != commit.SessionId)
+        {
+            throw NotFound(operation, $"Batch {commit.BatchId} of session {commit.SessionId}");
+        }
+
+        long partId = await InsertPartAsync(s, commit, (int)number.Value, batch.Setup.Nominal, ct)
+            .ConfigureAwait(false);
+        await InsertReadingsAsync(s, partId, commit, ct).ConfigureAwait(false);
+        return (await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false))!;
     }
 
     public Task<PartRecord> MarkAnnouncedAsync(long partId, CancellationToken cancellationToken)
