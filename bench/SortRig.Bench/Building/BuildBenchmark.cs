@@ -5,6 +5,7 @@ using SortRig.Engine.Building;
 using SortRig.Planning.Assembly;
 using SortRig.Planning.Recipes;
 using SortRig.Storage.Contracts;
+using static System.FormattableString;
 
 namespace SortRig.Bench.Building;
 
@@ -227,8 +228,6 @@ internal static class BuildBenchmark
             LibraryStatus.Available,
             null
         );
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 
     private static string FindRoot()
     {

@@ -185,9 +185,4 @@ public sealed partial class SortingLoop
         await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
         return (value, acceptance.Readings[^1].Time);
     }
-
-    private ValueTask SayTextAsync(string text, CancellationToken ct) =>
-        _ctx.Announcer.AnnounceAsync(Announcing.Announcement.Info(text), ct);
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -3,6 +3,7 @@ using SortRig.Engine.Operator;
 using SortRig.Measurement.Control;
 using SortRig.Planning.Cups;
 using SortRig.Storage.Contracts;
+using static System.FormattableString;
 
 namespace SortRig.Engine.Sorting;
 
@@ -20,7 +21,7 @@ public sealed partial class SortingLoop
             Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts ")
             + "measured since the last good check are flagged: R to re-reference to the check and measure them again, "
             + "P to carry on leaving them flagged, F to finish";
-        await SayTextAsync(said, ct).ConfigureAwait(false);
+        await SayAsync(said, ct).ConfigureAwait(false);
         while (true)
         {
             var command = await _ctx.Commands.TakeAsync(ct).ConfigureAwait(false);
@@ -57,7 +58,7 @@ public sealed partial class SortingLoop
         _checkPoints.Clear();
         var why = Invariant($"re-referenced: the meter reads {shiftPpm:+0.0;-0.0} ppm against the check's centre");
         await RecordCheckAsync(_check!, value, at, null, "ReReferenced", why, ct).ConfigureAwait(false);
-        await SayTextAsync(why + "; values are put back on the check's scale", ct).ConfigureAwait(false);
+        await SayAsync(why + "; values are put back on the check's scale", ct).ConfigureAwait(false);
     }
 
     private async Task RemeasureFlaggedAsync(CancellationToken ct)

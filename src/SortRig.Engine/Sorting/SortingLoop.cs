@@ -3,6 +3,7 @@ using SortRig.Instruments.Drivers;
 using SortRig.Measurement.Readings;
 using SortRig.Measurement.Settling;
 using SortRig.Storage.Contracts;
+using static System.FormattableString;
 
 namespace SortRig.Engine.Sorting;
 

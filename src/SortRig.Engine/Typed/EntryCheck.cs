@@ -1,6 +1,7 @@
 using System.Globalization;
 using SortRig.Measurement.Readings;
 using SortRig.Measurement.Specs;
+using static System.FormattableString;
 
 namespace SortRig.Engine.Typed;
 
@@ -158,6 +159,4 @@ public static class EntryCheck
 
     private static string Example(DisplayRange range, double nominal) =>
         Invariant($"{range.Show(Math.Min(nominal, range.DisplayMax)).Split(' ')[0]} (in {range.UnitName})");
-
-    private static string Invariant(FormattableString s) => s.ToString(CultureInfo.InvariantCulture);
 }

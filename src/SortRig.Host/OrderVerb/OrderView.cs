@@ -1,6 +1,7 @@
 using System.Globalization;
 using SortRig.Planning.Ordering;
 using Spectre.Console;
+using static System.FormattableString;
 
 namespace SortRig.Host.OrderVerb;
 
@@ -94,6 +95,4 @@ internal static class OrderView
             >= 1e3 => Invariant($"{ohms / 1e3:0.###}k"),
             _ => Invariant($"{ohms:0.###}"),
         };
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

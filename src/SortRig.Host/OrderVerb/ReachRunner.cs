@@ -8,6 +8,7 @@ using SortRig.Planning.Reach;
 using SortRig.Planning.Recipes;
 using SortRig.Storage.Contracts;
 using Spectre.Console;
+using static System.FormattableString;
 
 namespace SortRig.Host.OrderVerb;
 
@@ -140,6 +141,4 @@ internal static class ReachRunner
 
         console.Write(table);
     }
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -103,6 +103,4 @@ public static class HandRangeRule
     }
 
     private static string Ohms(double ohms) => Readings.OhmsText.Format(ohms, 5);
-
-    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -2,6 +2,11 @@ using SortRig.Measurement.Control;
 
 namespace SortRig.Measurement.Tests.Control;
 
+/// <summary>
+/// The rules that judge a point: rule 1 (one point beyond 3 sigma), rule 2 (two of three beyond 2 sigma on one side)
+/// and rule 4 (eight in a row on one side) as the Western Electric Statistical Quality Control Handbook (1956) states
+/// them, and the moving-range limit D4 · MR-bar (NIST/SEMATECH e-Handbook sec. 6.3.2.2); both from memory.
+/// </summary>
 public sealed class ControlChartTests
 {
     // Limits of the hand-worked series in ChartLimitsTests: centre 10.1, sigma 0.33244681,

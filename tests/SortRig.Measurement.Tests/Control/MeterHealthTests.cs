@@ -2,6 +2,10 @@ using SortRig.Measurement.Control;
 
 namespace SortRig.Measurement.Tests.Control;
 
+/// <summary>
+/// A meter's accuracy stated as "% of reading + % of range" and the movement of a meter's gain judged against it:
+/// common practice, no source. The figures are our own invented ones, worked by hand in the comments.
+/// </summary>
 public sealed class MeterHealthTests
 {
     private static readonly DateTimeOffset s_t0 = new(2026, 3, 2, 8, 0, 0, TimeSpan.Zero);
