@@ -8,11 +8,13 @@ namespace SortRig.Engine.Picking;
 internal static class PlanParts
 {
     /// <summary>
-    /// Live (Accepted/Announced), library status Available, not in the reject cup (rejects sit mixed in one cup), and
-    /// of a nominal some position of the recipe takes, singly or as a series/parallel pair.
+    /// Live (Accepted/Announced), library status Available, not suspect after a check out of control, not in the
+    /// reject cup (rejects sit mixed in one cup), and of a nominal some position of the recipe takes, singly or as a
+    /// series/parallel pair.
     /// </summary>
     public static bool Offered(PartRecord part, Recipe recipe, AssemblyOptions options) =>
         part.IsLive
+        && !part.Suspect
         && part.LibraryStatus == LibraryStatus.Available
         && !PartWhere.InRejectCup(part)
         && Wanted(part.Nominal, recipe, options);

@@ -1,4 +1,3 @@
-using System.Globalization;
 using SortRig.Measurement.Readings;
 using SortRig.Measurement.Settling;
 using SortRig.Storage.Contracts;
@@ -22,37 +21,20 @@ public sealed partial class SortingLoop
             ? position
             : number - 1 - _extraPositions.Keys.Count(k => k < number);
 
-    // On resume: the records that measured flagged parts again are not reel parts.
-    private async Task LoadExtraNumbersAsync(IReadOnlyList<PartRecord> parts, CancellationToken ct)
+    // On resume: the records that measured flagged parts again are not reel parts. The old record names its
+    // replacement (schema version 6); numbers are taken in order so each reel position is worked out against the
+    // extra numbers before it.
+    private void LoadExtraNumbers(IReadOnlyList<PartRecord> parts)
     {
-        if (string.IsNullOrWhiteSpace(Options.Check))
-        {
-            return;
-        }
-
         var byId = parts.ToDictionary(p => p.Id);
-        foreach (var id in await _ctx.Log.GetFlaggedPartsAsync(_session.Id, ct).ConfigureAwait(false))
+        foreach (
+            var (old, number) in parts
+                .Where(p => p.State == PartState.Remeasured && p.ReplacedBy is { } r && byId.ContainsKey(r))
+                .Select(p => (Old: p, Number: byId[p.ReplacedBy!.Value].Number))
+                .OrderBy(x => x.Number)
+        )
         {
-            if (!byId.TryGetValue(id, out var old) || old.State != PartState.Remeasured)
-            {
-                continue;
-            }
-
-            var note = (await _ctx.Log.GetPartHistoryAsync(id, ct).ConfigureAwait(false))
-                .LastOrDefault(e => e.Note?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)
-                ?.Note;
-            if (
-                note is not null
-                && int.TryParse(
-                    note[RemeasuredAs.Length..],
-                    NumberStyles.None,
-                    CultureInfo.InvariantCulture,
-                    out var number
-                )
-            )
-            {
-                _extraPositions[number] = ReelPosition(old.Number);
-            }
+            _extraPositions[number] = ReelPosition(old.Number);
         }
     }
 

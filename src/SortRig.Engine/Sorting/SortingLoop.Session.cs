@@ -35,7 +35,7 @@ public sealed partial class SortingLoop
                 : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
 
         var parts = await log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
-        await LoadExtraNumbersAsync(parts, ct).ConfigureAwait(false);
+        LoadExtraNumbers(parts);
         _partsRecorded = parts.Count - _extraPositions.Count;
         var history = parts
             .Where(p => p.IsLive && (p.CupLabel ?? p.SlotLabel) is not null)

@@ -27,6 +27,10 @@ namespace SortRig.Storage.Contracts;
 /// <param name="Fit">The predictive rule's recovery fit when <paramref name="AcceptedBy"/> is Predictive (meter scale,
 /// before any range transfer); null otherwise. <see cref="RecoveryFit.RunsZ"/> reads back NaN when it was not
 /// finite.</param>
+/// <param name="ReplacedBy">Id of the record that measured this part again (schema version 6); null when the part was
+/// not measured again, or was measured again by an undo without a new record.</param>
+/// <param name="Suspect">True while a check out of control has flagged the part and it has not been measured again:
+/// it stays out of planning, picking and the library.</param>
 public sealed record PartRecord(
     long Id,
     Guid CommitKey,
@@ -47,7 +51,9 @@ public sealed record PartRecord(
     LibraryStatus LibraryStatus,
     string? TakenBy,
     SettleRule? AcceptedBy = null,
-    RecoveryFit? Fit = null
+    RecoveryFit? Fit = null,
+    long? ReplacedBy = null,
+    bool Suspect = false
 )
 {
     /// <summary>Accepted value, ohms.</summary>

@@ -39,6 +39,11 @@ internal abstract partial class AdoPrecisionLog
                     {
                         var note = replaced.Note is { } n ? $"{n}{stored.Number}" : null;
                         await CorrectCoreAsync(s, replaced with { Note = note }, ct).ConfigureAwait(false);
+                        await s.Sql("UPDATE parts SET replaced_by = @new WHERE id = @id")
+                            .With("new", stored.Id)
+                            .With("id", replaced.PartId)
+                            .ExecuteAsync(ct)
+                            .ConfigureAwait(false);
                     }
                     else if (old is null)
                     {

@@ -22,7 +22,13 @@ internal abstract partial class AdoPrecisionLog
         + "p.u_transfer_ohms, p.coverage_k, p.range_ohms, p.nplc, p.temperature_c, p.accepted_at, p.cup_label, "
         + "p.slot_label, "
         + "p.state, p.announced, p.location, p.library_status, p.taken_by, "
-        + SettleColumns;
+        + SettleColumns
+        + ", p.replaced_by, EXISTS (SELECT 1 FROM suspect_parts sp WHERE sp.part_id = p.id AND p.state IN "
+        + LiveStates
+        + ")";
+
+    /// <summary>Ordinal of replaced_by in a row read with the part columns (after the settle columns).</summary>
+    private const int ReplacedOrdinal = SettleOrdinal + 12;
 
     private protected const string EventColumns =
         "e.id, e.part_id, e.happened_at, e.kind, e.before_value, e.after_value, e.actor, e.note";
@@ -81,7 +87,9 @@ internal abstract partial class AdoPrecisionLog
             LibraryStatus: Enum.Parse<LibraryStatus>(r.GetString(19)),
             TakenBy: ReadText(r, 20),
             AcceptedBy: acceptedBy,
-            Fit: fit
+            Fit: fit,
+            ReplacedBy: r.IsDBNull(ReplacedOrdinal) ? null : r.GetInt64(ReplacedOrdinal),
+            Suspect: r.GetBoolean(ReplacedOrdinal + 1)
         );
     }
 

@@ -96,8 +96,9 @@ public sealed class CheckEndToEndTests : IDisposable
             var note = (await log.GetPartHistoryAsync(id, default))
                 .Select(e => e.Note)
                 .Single(n => n?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)!;
-            again[int.Parse(note[RemeasuredAs.Length..], System.Globalization.CultureInfo.InvariantCulture)] =
-                old.Number;
+            var newNumber = int.Parse(note[RemeasuredAs.Length..], System.Globalization.CultureInfo.InvariantCulture);
+            again[newNumber] = old.Number;
+            Assert.Equal(stored.Single(p => p.Number == newNumber).Id, old.ReplacedBy); // the column agrees
         }
 
         var position = new Dictionary<int, int>();

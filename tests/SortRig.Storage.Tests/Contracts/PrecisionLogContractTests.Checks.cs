@@ -69,10 +69,13 @@ public abstract partial class PrecisionLogContractTests
         Assert.Equal([p2.Id, p3.Id], await log.GetSuspectPartsAsync(id, CancellationToken.None));
         var library = await log.FindPartsAsync(new LibraryQuery(), CancellationToken.None);
         Assert.Equal([before.Id], library.Select(p => p.Id));
+        var read = await log.GetPartsAsync(id, CancellationToken.None);
+        Assert.Equal([p2.Id, p3.Id], read.Where(p => p.Suspect).Select(p => p.Id)); // the record says it too
 
         // Measured again: the flagged record becomes Remeasured and is no longer suspect.
         await log.UndoPartAsync(new PartCorrection(p2.Id, PartCorrectionKind.Remeasure), CancellationToken.None);
         Assert.Equal([p3.Id], await log.GetSuspectPartsAsync(id, CancellationToken.None));
+        Assert.False((await log.GetPartAsync(p2.Id, CancellationToken.None))!.Suspect);
         Assert.Equal([p2.Id, p3.Id], await log.GetFlaggedPartsAsync(id, CancellationToken.None));
 
         // A second check out of control flags nothing twice.

@@ -33,6 +33,10 @@ public abstract partial class PrecisionLogContractTests : IAsyncLifetime
     /// <summary>Asks the engine directly how many rows schema_version holds.</summary>
     protected abstract Task<long> SchemaVersionRowsAsync();
 
+    /// <summary>Runs SQL on a plain connection to the store, outside the code under test; returns the first
+    /// value.</summary>
+    protected abstract Task<object?> PlainScalarAsync(string sql);
+
     /// <summary>The embedded migration scripts of this engine.</summary>
     private protected abstract IReadOnlyList<Migration> EngineMigrations { get; }
 

@@ -93,6 +93,8 @@ public sealed partial class PostgresPrecisionLogTests : PrecisionLogContractTest
                 )
             )! > 0;
 
+    protected override Task<object?> PlainScalarAsync(string sql) => ScalarAsync(sql);
+
     protected override async Task<long> SchemaVersionRowsAsync() =>
         (long)(await ScalarAsync($"SELECT COUNT(*) FROM {_schema}.schema_version"))!;
 

@@ -34,6 +34,8 @@ public sealed partial class SqlitePrecisionLogTests : PrecisionLogContractTests
             is long n
         && n > 0;
 
+    protected override Task<object?> PlainScalarAsync(string sql) => ScalarAsync(sql);
+
     protected override async Task<long> SchemaVersionRowsAsync() =>
         (long)(await ScalarAsync("SELECT COUNT(*) FROM schema_version"))!;
 
