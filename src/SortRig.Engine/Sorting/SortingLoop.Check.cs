@@ -46,6 +46,13 @@ public sealed partial class SortingLoop
         _checkSchedule = new CheckSchedule(Options.CheckEvery, TimeSpan.FromMinutes(Options.CheckMinutes));
         var history = await _ctx.Log.GetCheckHistoryAsync(source.Name, CheckHistoryKept, ct).ConfigureAwait(false);
         _checkBaseline.AddRange(history.Where(c => c.Commit.InControl).Select(c => c.Commit.ScaledOhms));
+
+        // A resumed session keeps the scale of its last re-reference: the factor is stored with every check record.
+        var mine = await _ctx.Log.GetSessionChecksAsync(_session.Id, ct).ConfigureAwait(false);
+        if (mine.Count > 0)
+        {
+            _checkScale = mine[^1].Commit.ScaleFactor;
+        }
         if (_checkBaseline.Count >= Options.CheckBaseline)
         {
             SetCheckLimits();
@@ -61,8 +68,8 @@ public sealed partial class SortingLoop
     }
 
     // One check: while the history is short, the check is re-seated and read until the limits can be set (those
-    // readings are the baseline); then one reading judged on the chart.
-    private async Task RunCheckAsync(string when, bool resumeFeeding, CancellationToken ct)
+    // readings are the baseline); then one reading judged on the chart. True when the check ended in control.
+    private async Task<bool> RunCheckAsync(string when, bool resumeFeeding, CancellationToken ct)
     {
         var check = _check!;
         while (_checkLimits is null)
@@ -79,7 +86,7 @@ public sealed partial class SortingLoop
                 await SayAsync($"check limits set: {n} readings, centre {centre:F4} Ohm, sigma {sigmaPpm:0.0} ppm", ct)
                     .ConfigureAwait(false);
                 FinishCheck(resumeFeeding);
-                return;
+                return true;
             }
         }
 
@@ -107,6 +114,7 @@ public sealed partial class SortingLoop
         }
 
         FinishCheck(resumeFeeding);
+        return verdict.InControl;
     }
 
     private void FinishCheck(bool resumeFeeding)

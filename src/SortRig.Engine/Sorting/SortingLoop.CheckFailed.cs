@@ -48,6 +48,50 @@ public sealed partial class SortingLoop
         }
     }
 
+    // A resumed session whose start check is in control, with parts an earlier check flagged and nobody measured
+    // again: offer them at once (the meter reads true again, so no re-reference), or carry on leaving them flagged.
+    private async Task OfferWaitingFlaggedAsync(CancellationToken ct)
+    {
+        var waiting = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
+        if (waiting.Count == 0)
+        {
+            return;
+        }
+
+        _paused = true;
+        _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
+        var said =
+            Invariant($"{waiting.Count} parts flagged by an earlier check wait to be measured again. Paused. ")
+            + "R to measure them again now, P to carry on leaving them flagged, F to finish";
+        await SayAsync(said, ct).ConfigureAwait(false);
+        while (true)
+        {
+            var command = await _ctx.Commands.TakeAsync(ct).ConfigureAwait(false);
+            if (command == OperatorCommand.RemeasureFlagged)
+            {
+                await RemeasureFlaggedAsync(ct).ConfigureAwait(false);
+                _ctx.Hands.ResumeAt(_partsRecorded);
+            }
+            else if (command == OperatorCommand.TogglePause)
+            {
+                await SayAsync($"carrying on; {waiting.Count} parts stay flagged until measured again", ct)
+                    .ConfigureAwait(false);
+            }
+            else if (command == OperatorCommand.Finish)
+            {
+                _finishRequested = true;
+            }
+            else
+            {
+                continue; // nothing sits in the fixture while paused here
+            }
+
+            _paused = false;
+            _ctx.Snapshot.UpdateSession(s => s with { Paused = false });
+            return;
+        }
+    }
+
     // Reads the check again and puts the meter's values back on the check's scale from here on.
     private async Task ReReferenceAsync(CancellationToken ct)
     {
@@ -112,6 +156,12 @@ public sealed partial class SortingLoop
             PublishCounts();
             _ctx.Hands.RemoveBridgingPart();
             await WaitForBridgeRemovalAsync(ct).ConfigureAwait(false);
+        }
+
+        var left = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
+        if (_ctx.Snapshot.LastCheck is { } shown)
+        {
+            _ctx.Snapshot.SetCheck(shown with { Flagged = left.Count }); // the page's button goes with them
         }
 
         await SayAsync($"{suspects.Count} flagged parts measured again", ct).ConfigureAwait(false);

@@ -50,7 +50,10 @@ public sealed partial class SortingLoop
             await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
             if (_check is not null && !Done)
             {
-                await RunCheckAsync("start", resumeFeeding: true, cancellationToken).ConfigureAwait(false);
+                if (await RunCheckAsync("start", resumeFeeding: true, cancellationToken).ConfigureAwait(false))
+                {
+                    await OfferWaitingFlaggedAsync(cancellationToken).ConfigureAwait(false);
+                }
             }
 
             await AnnounceReadyAsync(cancellationToken).ConfigureAwait(false);

@@ -37,6 +37,7 @@ public sealed class WebActionTests
     [InlineData("remeasure", OperatorCommand.Remeasure)]
     [InlineData("pause", OperatorCommand.TogglePause)]
     [InlineData("finish", OperatorCommand.Finish)]
+    [InlineData("remeasure-flagged", OperatorCommand.RemeasureFlagged)]
     public async Task PostAction_Known_QueuesExactlyThatCommand(string action, OperatorCommand expected)
     {
         await using var web = await WebHarness.StartAsync();

@@ -68,6 +68,7 @@ function showCheck(c) {
     + " (" + c.sigmaScore.toFixed(1) + " σ)" + (c.flagged > 0 ? " · " + c.flagged + " parts flagged" : "")
     + (c.gainPpm != null ? " · gain " + c.gainPpm.toFixed(1) + " ppm" : "");
   box.className = c.inControl ? "" : "alarm";
+  $("remeasure-flagged").hidden = !(c.flagged > 0); // offered only while flagged parts wait
 }
 
 function showProgress() {

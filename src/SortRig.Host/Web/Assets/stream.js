@@ -19,14 +19,19 @@ function onEvent(e) {
     case "Counts": showCounts(e.counts ?? {}); scheduleRefresh(); break;
     case "Notice":
       addNotice(e.text ?? ""); getJson("/api/session").then(showSession); scheduleRefresh();
-      if ((e.text ?? "").startsWith("check ") || (e.text ?? "").startsWith("re-referenced")) getJson("/api/check").then(showCheck);
+      if (/^(check |re-referenced|\d+ flagged parts measured again|\d+ parts flagged)/.test(e.text ?? "")) {
+        getJson("/api/check").then(showCheck);
+      }
       break;
     case "Finished": onFinished(); break;
     case "Drift": onDrift(e); break;
   }
 }
 
-const actionWords = { undo: "undo last", remeasure: "measure again", pause: "pause", finish: "finish" };
+const actionWords = {
+  undo: "undo last", remeasure: "measure again", pause: "pause", finish: "finish",
+  "remeasure-flagged": "measure flagged parts again",
+};
 async function act(action) {
   const b = document.querySelector('button[data-action="' + action + '"]');
   let ok = false, status = "no answer";
@@ -45,7 +50,7 @@ document.querySelectorAll("button[data-action]").forEach((b) => b.addEventListen
 }));
 document.addEventListener("keydown", (k) => {
   if (k.ctrlKey || k.metaKey || k.altKey || k.repeat) return;
-  const map = { u: "undo", m: "remeasure", p: "pause", " ": "pause", f: "finish" };
+  const map = { u: "undo", m: "remeasure", p: "pause", " ": "pause", f: "finish", r: "remeasure-flagged" };
   const a = map[k.key.toLowerCase()];
   if (a) { k.preventDefault(); act(a); }
 });
