@@ -61,7 +61,10 @@ internal sealed class SortWorker(
 
         var services = new SortServices(time, hub, snapshot, commands, new CompositeAnnouncer(announcers), loggers);
         using var viewStop = CancellationTokenSource.CreateLinkedTokenSource(stoppingToken);
-        var view = live ? LiveView.RunAsync(AnsiConsole.Console, hub, sort.Parts, viewStop.Token) : Task.CompletedTask;
+        var view =
+            live ? LiveView.RunAsync(AnsiConsole.Console, hub, sort.Parts, viewStop.Token)
+            : typed ? Task.CompletedTask // the typed prompt owns the console
+            : PlainBuildLines.RunAsync(hub, Console.Out, viewStop.Token);
         try
         {
             var outcome = typed

@@ -62,6 +62,7 @@ public sealed class BuildCrashTests(ITestOutputHelper output) : IDisposable
             l.Contains("sets complete: 2 set(s) of quad-crash", StringComparison.Ordinal)
         );
         Assert.True(File.Exists(csv));
+        Assert.Contains(resumed.Lines, l => l.StartsWith("build: ", StringComparison.Ordinal)); // guidance in --plain
 
         await using var log = await PrecisionLogFactory.OpenAsync(db, null, default);
         var session = Assert.Single(await log.ListSessionsAsync(default));
