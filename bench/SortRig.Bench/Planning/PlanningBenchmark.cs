@@ -25,6 +25,13 @@ internal static class PlanningBenchmark
         var all = section == "all";
         var yield = all || section == "cups" ? YieldBench.Run(quad) : [];
         Console.WriteLine(string.Join('\n', yield));
+        var losses = all || section is "cups" or "cups-loss" ? CupLossBench.Run(quad) : [];
+        Console.WriteLine(string.Join('\n', losses));
+        if (section == "cups-loss")
+        {
+            return 0;
+        }
+
         if (section.StartsWith("show:", StringComparison.Ordinal))
         {
             var w = section.Split(':');
@@ -151,6 +158,8 @@ internal static class PlanningBenchmark
         md.AddRange(big);
         md.AddRange(["", "## Online cups vs their K-cup bound", "", .. YieldBench.Description]);
         md.AddRange(yield);
+        md.AddRange(["", .. CupLossBench.Description]);
+        md.AddRange(losses);
         md.AddRange([
             "",
             "## Sweep time",

@@ -167,13 +167,16 @@ internal static class YieldBench
     /// every part's centre then lies in a window of width ln(1 + tol) − 2 h (h its half-width, at least the smallest
     /// over the reel), so the point bound with that width is never below what K such cups can hold.
     /// </summary>
-    private static int WorstCaseBound(List<double> devs, int k)
+    internal static int WorstCaseBound(List<double> devs, int k)
     {
         static double Log(double ppm) => Math.Log(1 + (ppm * 1e-6)) * 1e6;
         var centres = devs.Select(d => (Log(d + s_uPpm) + Log(d - s_uPpm)) / 2).ToArray();
         var half = devs.Min(d => (Log(d + s_uPpm) - Log(d - s_uPpm)) / 2);
         return CoverBound(centres, k, Log(s_matchPpm) - (2 * half));
     }
+
+    /// <summary>The K-cup bound in parts: most parts K disjoint windows of the match tolerance can hold.</summary>
+    internal static int PointBound(List<double> devs, int k) => CoverBound([.. devs], k, s_matchPpm);
 
     /// <summary>Most points K disjoint windows of the width can hold (DP over the sorted reel).</summary>
     private static int CoverBound(double[] points, int k, double width)
