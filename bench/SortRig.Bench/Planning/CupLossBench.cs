@@ -17,19 +17,15 @@ internal static class CupLossBench
     /// <summary>The text above the table in docs/bench-planning.md.</summary>
     public static readonly string[] Description =
     [
-        "Where the adaptive planner's sets go, in sets (parts / 4), mean of the same 5 reels. 'worst-case bound' as "
-            + "above. 'placement' = parts",
-        "the bound's best windows hold that no band of the planner's final bands (those holding parts) can hold: "
-            + "bands in the wrong",
-        "place. 'before open' = parts of the reel that fit a final band but came before it was opened (rejected). "
-            + "'remainders' =",
-        "parts left in cups beyond whole sets (Σ count mod 4). 'known-distribution bands' = K disjoint worst-case "
-            + "bands placed once,",
-        "before the first part, by the exact window DP on the reel's TRUE distribution (the generator's), then filled "
-            + "from the reel: what a",
-        "planner that knew the distribution but not the draws gets. It is a reference, not a bound, but it shows what "
-            + "the K-cup",
-        "bound (which picks windows after seeing every draw) holds beyond any plan made in advance.",
+        "Where the adaptive planner's sets go, in sets (parts / 4), mean of the same 5 reels. 'worst-case bound'",
+        "as above. 'placement' = parts the bound's best windows hold that no band of the planner's final bands",
+        "(those holding parts) can hold: bands in the wrong place. 'before open' = parts of the reel that fit a",
+        "final band but came before it was opened (rejected). 'remainders' = parts left in cups beyond whole sets",
+        "(Σ count mod 4). 'known-distribution bands' = K disjoint worst-case bands placed once, before the first",
+        "part, by the exact window DP on the reel's TRUE distribution (the generator's), then filled from the",
+        "reel: what a planner that knew the distribution but not the draws gets. It is a reference, not a bound,",
+        "but it shows what the K-cup bound (which picks its windows after seeing every draw) holds beyond any",
+        "plan made in advance. `planning cups-write` rewrites only this section of the file.",
         "",
     ];
 

@@ -13,19 +13,17 @@ internal static class YieldBench
     /// <summary>The text above the table in docs/bench-planning.md.</summary>
     public static readonly string[] Description =
     [
-        "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad (4 "
-            + "parts within 0.1 %). 'normal' and 'bimodal' as above; seeds 1–5, mean of 5 reels. Sets from cups = Σ "
-            + "floor(count / 4).",
-        "'K-cup bound' = most parts K disjoint 1000 ppm windows of measured values can hold on that reel, / 4 (not",
-        "floored). 'worst-case K-cup bound' = the same for cups whose parts meet the recipe in the worst case, as the",
-        "adaptive planner's do: a part counts only when its whole interval x ± U is in the window, and the window's "
-            + "edges",
-        "are 1 + 0.1 % apart as a ratio; no such K-cup plan can beat it. 'fixed bands' are centred 1000 ppm bands of",
-        "measured values (their cups can exceed 0.1 % in the worst case). Both bounds know the whole reel in "
-            + "advance; the",
-        "online planner does not. 'lowest reel' is the worst of the 5 reels. The offline optimum is the assembler's.",
-        "Target: adaptive ≥ 98 % of the K-cup bound. A check on other reels: `planning cups-seeds` (seeds 101–120;",
-        "normal, bimodal, uniform and off-centre reels; not written).",
+        "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad",
+        "(4 parts within 0.1 %). 'normal' and 'bimodal' as above; seeds 1–5, mean of 5 reels. Sets from cups =",
+        "Σ floor(count / 4). 'K-cup bound' = most parts K disjoint 1000 ppm windows of measured values can hold on",
+        "that reel, / 4 (not floored). 'worst-case K-cup bound' = the same for cups whose parts meet the recipe in",
+        "the worst case, as the adaptive planner's do: a part counts only when its whole interval x ± U is in the",
+        "window, and the window's edges are 1 + 0.1 % apart as a ratio; no such K-cup plan can beat it. 'fixed",
+        "bands' are centred 1000 ppm bands of measured values (their cups can exceed 0.1 % in the worst case). Both",
+        "bounds know the whole reel in advance; the online planner does not. 'lowest reel' is the worst of the 5",
+        "reels. The offline optimum is the assembler's. Target: adaptive ≥ 98 % of the K-cup bound. A check on",
+        "other reels: `planning cups-seeds` (seeds 101–120; normal, bimodal, uniform and off-centre reels; not",
+        "written).",
         "",
     ];
 
