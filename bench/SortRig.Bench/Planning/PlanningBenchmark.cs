@@ -23,8 +23,21 @@ internal static class PlanningBenchmark
         );
 
         var all = section == "all";
-        var yield = all || section == "cups" ? YieldBench.Run(quad) : [];
+        var yield = all || section is "cups" or "cups-write" ? YieldBench.Run(quad) : [];
         Console.WriteLine(string.Join('\n', yield));
+        var losses = all || section is "cups" or "cups-loss" or "cups-write" ? CupLossBench.Run(quad) : [];
+        Console.WriteLine(string.Join('\n', losses));
+        if (section == "cups-write")
+        {
+            await RewriteSectionAsync(root, CupsSection(yield, losses), ct).ConfigureAwait(false);
+            return 0;
+        }
+
+        if (section == "cups-loss")
+        {
+            return 0;
+        }
+
         if (section.StartsWith("show:", StringComparison.Ordinal))
         {
             var w = section.Split(':');
@@ -149,8 +162,7 @@ internal static class PlanningBenchmark
         md.AddRange(reels);
         md.AddRange(["", "## 10 000 parts, matched quad", "", "Time limit 60 s; otherwise as above.", ""]);
         md.AddRange(big);
-        md.AddRange(["", "## Online cups vs their K-cup bound", "", .. YieldBench.Description]);
-        md.AddRange(yield);
+        md.AddRange(["", .. CupsSection(yield, losses)]);
         md.AddRange([
             "",
             "## Sweep time",
@@ -163,6 +175,30 @@ internal static class PlanningBenchmark
         md.AddRange(timing);
         await File.WriteAllLinesAsync(Path.Combine(root, "docs", "bench-planning.md"), md, ct).ConfigureAwait(false);
         return 0;
+    }
+
+    private static List<string> CupsSection(List<string> yield, List<string> losses) =>
+        [CupsHeading, "", .. YieldBench.Description, .. yield, "", .. CupLossBench.Description, .. losses];
+
+    private const string CupsHeading = "## Online cups vs their K-cup bound";
+
+    // `planning cups-write`: replaces only the cups section of docs/bench-planning.md (up to the next heading), so the
+    // cup planner's figures can be brought up to date without running the long assembler sections.
+    private static async Task RewriteSectionAsync(string root, List<string> section, CancellationToken ct)
+    {
+        var path = Path.Combine(root, "docs", "bench-planning.md");
+        var lines = (await File.ReadAllLinesAsync(path, ct).ConfigureAwait(false)).ToList();
+        var start = lines.IndexOf(CupsHeading);
+        if (start < 0)
+        {
+            throw new InvalidOperationException($"{path} has no '{CupsHeading}' section");
+        }
+
+        var end = lines.FindIndex(start + 1, l => l.StartsWith("## ", StringComparison.Ordinal));
+        end = end < 0 ? lines.Count : end;
+        lines.RemoveRange(start, end - start);
+        lines.InsertRange(start, [.. section, ""]);
+        await File.WriteAllLinesAsync(path, lines, ct).ConfigureAwait(false);
     }
 
     private static string FindRoot()

@@ -13,19 +13,17 @@ internal static class YieldBench
     /// <summary>The text above the table in docs/bench-planning.md.</summary>
     public static readonly string[] Description =
     [
-        "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad (4 "
-            + "parts within 0.1 %). 'normal' and 'bimodal' as above; seeds 1–5, mean of 5 reels. Sets from cups = Σ "
-            + "floor(count / 4).",
-        "'K-cup bound' = most parts K disjoint 1000 ppm windows of measured values can hold on that reel, / 4 (not",
-        "floored). 'worst-case K-cup bound' = the same for cups whose parts meet the recipe in the worst case, as the",
-        "adaptive planner's do: a part counts only when its whole interval x ± U is in the window, and the window's "
-            + "edges",
-        "are 1 + 0.1 % apart as a ratio; no such K-cup plan can beat it. 'fixed bands' are centred 1000 ppm bands of",
-        "measured values (their cups can exceed 0.1 % in the worst case). Both bounds know the whole reel in "
-            + "advance; the",
-        "online planner does not. 'lowest reel' is the worst of the 5 reels. The offline optimum is the assembler's.",
-        "Target: adaptive ≥ 98 % of the K-cup bound. A check on other reels: `planning cups-seeds` (seeds 101–120;",
-        "normal, bimodal, uniform and off-centre reels; not written).",
+        "Reels of 1000 parts of 10 kOhm, stock ±1 %, expanded transfer uncertainty 10 ppm; recipe matched-quad",
+        "(4 parts within 0.1 %). 'normal' and 'bimodal' as above; seeds 1–5, mean of 5 reels. Sets from cups =",
+        "Σ floor(count / 4). 'K-cup bound' = most parts K disjoint 1000 ppm windows of measured values can hold on",
+        "that reel, / 4 (not floored). 'worst-case K-cup bound' = the same for cups whose parts meet the recipe in",
+        "the worst case, as the adaptive planner's do: a part counts only when its whole interval x ± U is in the",
+        "window, and the window's edges are 1 + 0.1 % apart as a ratio; no such K-cup plan can beat it. 'fixed",
+        "bands' are centred 1000 ppm bands of measured values (their cups can exceed 0.1 % in the worst case). Both",
+        "bounds know the whole reel in advance; the online planner does not. 'lowest reel' is the worst of the 5",
+        "reels. The offline optimum is the assembler's. Target: adaptive ≥ 98 % of the K-cup bound. A check on",
+        "other reels: `planning cups-seeds` (seeds 101–120; normal, bimodal, uniform and off-centre reels; not",
+        "written).",
         "",
     ];
 
@@ -167,13 +165,16 @@ internal static class YieldBench
     /// every part's centre then lies in a window of width ln(1 + tol) − 2 h (h its half-width, at least the smallest
     /// over the reel), so the point bound with that width is never below what K such cups can hold.
     /// </summary>
-    private static int WorstCaseBound(List<double> devs, int k)
+    internal static int WorstCaseBound(List<double> devs, int k)
     {
         static double Log(double ppm) => Math.Log(1 + (ppm * 1e-6)) * 1e6;
         var centres = devs.Select(d => (Log(d + s_uPpm) + Log(d - s_uPpm)) / 2).ToArray();
         var half = devs.Min(d => (Log(d + s_uPpm) - Log(d - s_uPpm)) / 2);
         return CoverBound(centres, k, Log(s_matchPpm) - (2 * half));
     }
+
+    /// <summary>The K-cup bound in parts: most parts K disjoint windows of the match tolerance can hold.</summary>
+    internal static int PointBound(List<double> devs, int k) => CoverBound([.. devs], k, s_matchPpm);
 
     /// <summary>Most points K disjoint windows of the width can hold (DP over the sorted reel).</summary>
     private static int CoverBound(double[] points, int k, double width)

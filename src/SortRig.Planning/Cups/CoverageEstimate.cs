@@ -17,6 +17,8 @@ internal static class CoverageEstimate
     /// <param name="points">Grid points.</param>
     /// <param name="width">Band width, log ppm.</param>
     /// <param name="cap">Largest kernel bandwidth, log ppm.</param>
+    /// <param name="covered">Bands already holding parts (log ppm edges, ascending by low edge; they may overlap):
+    /// a part one of them would take is not counted again.</param>
     /// <returns>Expected share of the coming parts each band would take (0..1).</returns>
     public static double[] Gains(
         IReadOnlyList<(double Centre, double Half)> samples,
@@ -24,7 +26,8 @@ internal static class CoverageEstimate
         double step,
         int points,
         double width,
-        double cap
+        double cap,
+        IReadOnlyList<(double Lo, double Hi)>? covered = null
     )
     {
         var gains = new double[points];
@@ -46,6 +49,7 @@ internal static class CoverageEstimate
                 if (b > a)
                 {
                     gains[j] += Normal.CDF(c, h, b) - Normal.CDF(c, h, a);
+                    gains[j] -= Covered(x => Normal.CDF(c, h, x), a, b, half, covered ?? []);
                 }
             }
         }
@@ -56,6 +60,52 @@ internal static class CoverageEstimate
         }
 
         return gains;
+    }
+
+    /// <summary>
+    /// Probability (by <paramref name="cdf"/>) that a centre in [a, b] also fits one of the covered bands: a part of
+    /// half-width <paramref name="half"/> fits band [lo, hi] when its centre is in [lo + half, hi − half]; those
+    /// intervals are merged first, so overlapping bands are counted once.
+    /// </summary>
+    /// <param name="cdf">Distribution function of the centre.</param>
+    /// <param name="a">Low end, log ppm.</param>
+    /// <param name="b">High end, log ppm.</param>
+    /// <param name="half">Half-width of the part's uncertainty interval, log ppm.</param>
+    /// <param name="covered">Bands, ascending by low edge.</param>
+    public static double Covered(
+        Func<double, double> cdf,
+        double a,
+        double b,
+        double half,
+        IReadOnlyList<(double Lo, double Hi)> covered
+    )
+    {
+        var mass = 0.0;
+        var (lo, hi) = (double.NegativeInfinity, double.NegativeInfinity);
+        foreach (var band in covered.Append((double.PositiveInfinity, double.PositiveInfinity)))
+        {
+            var (l, h) = (band.Item1 + half, band.Item2 - half);
+            if (h <= l && !double.IsPositiveInfinity(l))
+            {
+                continue;
+            }
+
+            if (l <= hi)
+            {
+                hi = Math.Max(hi, h);
+                continue;
+            }
+
+            var (x, y) = (Math.Max(a, lo), Math.Min(b, hi));
+            if (y > x)
+            {
+                mass += cdf(y) - cdf(x);
+            }
+
+            (lo, hi) = (l, h);
+        }
+
+        return mass;
     }
 
     // Leave-one-out likelihood cross-validation over a geometric grid of bandwidths from a twentieth of the cap up to

@@ -68,33 +68,12 @@ internal sealed class NominalBands
             })
             .ToList();
         var first = _firstIndex * _step;
-        var gains = Estimate(centres, first);
-        var pinned = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).ToList();
-        // Beside bands with parts, a planned band either touches one of them or leaves room for a whole band on both
-        // sides: a narrower gap could never be used, and plans drawn from few parts would scatter such gaps.
-        var allowed = Enumerable
-            .Range(0, _points)
-            .Select(j =>
-            {
-                var s = first + (j * _step);
-                if (!pinned.All(p => p.Item1 >= s + _width - 1e-6 || p.Item2 <= s + 1e-6))
-                {
-                    return false;
-                }
-
-                var left = pinned
-                    .Select(p => s - p.Item2)
-                    .Where(g => g >= -1e-6)
-                    .DefaultIfEmpty(double.PositiveInfinity)
-                    .Min();
-                var right = pinned
-                    .Select(p => p.Item1 - s - _width)
-                    .Where(g => g >= -1e-6)
-                    .DefaultIfEmpty(double.PositiveInfinity)
-                    .Min();
-                return left <= 1e-6 || right <= 1e-6 || (left >= _width - 1e-6 && right >= _width - 1e-6);
-            })
-            .ToList();
+        var held = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).OrderBy(b => b.Item1).ToList();
+        // A planned band may overlap bands that hold parts: it is worth only the parts they would not take (the
+        // estimate leaves those out), so the DP moves it off them unless the ground it adds is worth more, e.g. a band
+        // opened from the first parts whose lattice left the dense edge of a hump half covered.
+        var gains = Estimate(centres, first, held);
+        var allowed = Enumerable.Repeat(true, _points).ToList();
         foreach (var j in WindowCover.Best(gains, StepsPerBand, allowed, free).Starts)
         {
             var s = first + (j * _step);
@@ -129,12 +108,12 @@ internal sealed class NominalBands
     // count + n)) the same parts mirrored about the nominal, since a lot is made about its nominal and tighter parts
     // are binned out of it symmetrically (common practice, no source), and for the very first parts a prior of 5 parts
     // about the nominal with σ = a third of the tolerance (no source).
-    private double[] Estimate(List<(double Centre, double Half)> centres, double first)
+    private double[] Estimate(List<(double Centre, double Half)> centres, double first, List<(double, double)> held)
     {
         var n = centres.Count;
-        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3);
+        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3, held);
         List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
-        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3);
+        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3, held);
         var half = n > 0 ? centres.Min(c => c.Half) : 0;
         var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
         const double Prior = 5;
@@ -145,6 +124,12 @@ internal sealed class NominalBands
                 _width > 2 * half
                     ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half)
                     : 0;
+            if (prior > 0)
+            {
+                var (a, b) = (s + half, s + _width - half);
+                prior -= CoverageEstimate.Covered(x => Normal.CDF(0, _range / 3, x), a, b, half, held);
+            }
+
             gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
         }
 

@@ -62,7 +62,7 @@ public sealed class AdaptiveCupPlannerTests
     }
 
     [Fact]
-    public void Bands_AreDisjoint_NoWiderThanTheTolerance_AndCupsHoldMatchedParts()
+    public void Bands_NoWiderThanTheTolerance_AndCupsHoldMatchedParts()
     {
         var reel = Reel(2, 800, 1500, gap: 0, offset: -6000);
         var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad));
@@ -78,12 +78,38 @@ public sealed class AdaptiveCupPlannerTests
 
         var bands = planner.Bands(10e3);
         Assert.All(bands, b => Assert.True(b.HighPpm - b.LowPpm <= 1000 + 1e-9));
-        Assert.All(bands.Zip(bands.Skip(1)), t => Assert.True(t.First.HighPpm <= t.Second.LowPpm + 1e-9));
         Assert.All(byCup.Values, l => Assert.True(l.Max() - l.Min() < 1000));
         Assert.True(
             bands.Average(b => (b.LowPpm + b.HighPpm) / 2) < -3000,
             "bands follow the reel's offset out of the centred layout"
         );
+    }
+
+    [Fact]
+    public void GapNarrowerThanABand_BetweenBandsWithParts_GetsABandOverlappingThem()
+    {
+        // Cups A [3000, 4000] and C [4500, 5500] ppm hold parts; 60 of 100 parts came between them. No 1000 ppm band
+        // fits the 500 ppm gap without overlapping A or C (arithmetic), so only an overlapping band can take them; the
+        // planned band is worth just the parts A and C would not take, and here that is the most.
+        var options = new AdaptiveCupOptions(3, 1000, 1.0, s_quad);
+        var state = new NominalBands(10e3, options);
+        state.Bands.Add(new NominalBands.Band(0, "A", 3000, 4000));
+        state.Bands.Add(new NominalBands.Band(2, "C", 4500, 5500));
+        var rng = new Random(7);
+        for (var i = 0; i < 100; i++)
+        {
+            var dev =
+                i < 60 ? 4020 + (460 * rng.NextDouble())
+                : i < 80 ? 3100 + (800 * rng.NextDouble())
+                : 4600 + (800 * rng.NextDouble());
+            state.Samples.Add((i + 1, dev, 10));
+        }
+
+        state.Replan(label => label == "B");
+
+        var planned = Assert.Single(state.Bands, b => b.Label == "B");
+        Assert.True(planned.Fits(4030, 10) && planned.Fits(4470, 10), $"B [{planned.Lo:0}, {planned.Hi:0}]");
+        Assert.Contains(state.Bands, b => b.Label == "A" && b.Lo == 3000 && b.Hi == 4000);
     }
 
     [Fact]
