@@ -61,6 +61,7 @@ internal static class SettleDiagnosis
                             + (a.Fit is { } f ? FitText(f, ins.Truth) : "")
                             + PartText(source.Part(ins.Index), ins)
                     );
+                    Console.WriteLine("   excess ppm per 0.5 s: " + ExcessText(ins, k));
                 }
 
                 break;
@@ -111,6 +112,31 @@ internal static class SettleDiagnosis
                 }
             }
         }
+    }
+
+    /// <summary>Mean of reading minus noise-free value (the part's excess noise plus the meter's), per 0.5 s block up
+    /// to reading k, ppm of the truth: shows a popcorn step or a 1/f wander inside the record.</summary>
+    private static string ExcessText(Insertion ins, int k)
+    {
+        var blocks = new List<string>();
+        var (sum, count, edge) = (0.0, 0, 0.5);
+        for (var i = 0; i <= k; i++)
+        {
+            var r = ins.Reading(i);
+            if (r.Value < 1e30)
+            {
+                sum += (r.Value - ins.Clean(i)) / ins.Truth * 1e6;
+                count++;
+            }
+
+            if (ins.Since(i).TotalSeconds >= edge || i == k)
+            {
+                blocks.Add(count > 0 ? Inv($"{sum / count:0.0}") : "-");
+                (sum, count, edge) = (0, 0, edge + 0.5);
+            }
+        }
+
+        return string.Join(" ", blocks);
     }
 
     private static string Inv(FormattableString text) => FormattableString.Invariant(text);
