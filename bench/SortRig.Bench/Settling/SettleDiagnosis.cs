@@ -7,7 +7,7 @@ namespace SortRig.Bench.Settling;
 /// <summary>
 /// `settle-diag [parts] [case]`: runs the predictive rule on one benchmark case and prints each accepted value outside
 /// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
-/// `settle-diag [parts] [case] trace` prints the fits of the first six parts every 0.5 s.
+/// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the fits of the first six parts every 0.5 s.
 /// </summary>
 internal static class SettleDiagnosis
 {
@@ -20,10 +20,16 @@ internal static class SettleDiagnosis
         var range = profile.FindRange(SettleCase.Range)!;
         var options = SettleCase.SortOptions() with { Predictive = PredictiveOptions.Default };
         var c = SettleCase.All(parts, [("p", options)])[which];
+        if (args.Length > 3 && int.TryParse(args[3], out var seed))
+        {
+            // Another seed for the same case: a change must hold beyond the benchmark's own seeds.
+            c = c with { Seed = seed };
+        }
+
         var nplc = profile.FindNplc(c.Nplc)!;
         var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
         Console.WriteLine(c.Name);
-        if (args.Length > 3 && args[3] == "trace")
+        if (args.Length > 3 && args[^1] == "trace")
         {
             Trace(source, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale);
             return 0;
