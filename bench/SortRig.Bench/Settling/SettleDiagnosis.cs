@@ -7,7 +7,8 @@ namespace SortRig.Bench.Settling;
 /// <summary>
 /// `settle-diag [parts] [case]`: runs the predictive rule on one benchmark case and prints each accepted value outside
 /// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
-/// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the fits of the first six parts every 0.5 s.
+/// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the
+/// fits of the first six parts every 0.5 s.
 /// </summary>
 internal static class SettleDiagnosis
 {
