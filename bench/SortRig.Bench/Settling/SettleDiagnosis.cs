@@ -7,7 +7,8 @@ namespace SortRig.Bench.Settling;
 /// <summary>
 /// `settle-diag [parts] [case]`: runs the predictive rule on one benchmark case and prints each accepted value outside
 /// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
-/// `settle-diag [parts] [case] trace` prints the fits of the first six parts every 0.5 s.
+/// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the
+/// fits of the first six parts every 0.5 s.
 /// </summary>
 internal static class SettleDiagnosis
 {
@@ -20,10 +21,16 @@ internal static class SettleDiagnosis
         var range = profile.FindRange(SettleCase.Range)!;
         var options = SettleCase.SortOptions() with { Predictive = PredictiveOptions.Default };
         var c = SettleCase.All(parts, [("p", options)])[which];
+        if (args.Length > 3 && int.TryParse(args[3], out var seed))
+        {
+            // Another seed for the same case: a change must hold beyond the benchmark's own seeds.
+            c = c with { Seed = seed };
+        }
+
         var nplc = profile.FindNplc(c.Nplc)!;
         var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
         Console.WriteLine(c.Name);
-        if (args.Length > 3 && args[3] == "trace")
+        if (args.Length > 3 && args[^1] == "trace")
         {
             Trace(source, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale);
             return 0;
@@ -61,6 +68,7 @@ internal static class SettleDiagnosis
                             + (a.Fit is { } f ? FitText(f, ins.Truth) : "")
                             + PartText(source.Part(ins.Index), ins)
                     );
+                    Console.WriteLine("   excess ppm per 0.5 s: " + ExcessText(ins, k));
                 }
 
                 break;
@@ -111,6 +119,31 @@ internal static class SettleDiagnosis
                 }
             }
         }
+    }
+
+    /// <summary>Mean of reading minus noise-free value (the part's excess noise plus the meter's), per 0.5 s block up
+    /// to reading k, ppm of the truth: shows a popcorn step or a 1/f wander inside the record.</summary>
+    private static string ExcessText(Insertion ins, int k)
+    {
+        var blocks = new List<string>();
+        var (sum, count, edge) = (0.0, 0, 0.5);
+        for (var i = 0; i <= k; i++)
+        {
+            var r = ins.Reading(i);
+            if (r.Value < 1e30)
+            {
+                sum += (r.Value - ins.Clean(i)) / ins.Truth * 1e6;
+                count++;
+            }
+
+            if (ins.Since(i).TotalSeconds >= edge || i == k)
+            {
+                blocks.Add(count > 0 ? Inv($"{sum / count:0.0}") : "-");
+                (sum, count, edge) = (0, 0, edge + 0.5);
+            }
+        }
+
+        return string.Join(" ", blocks);
     }
 
     private static string Inv(FormattableString text) => FormattableString.Invariant(text);

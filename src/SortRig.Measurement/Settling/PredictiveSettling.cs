@@ -9,13 +9,23 @@ namespace SortRig.Measurement.Settling;
 /// weights, Burnham and Anderson 2002, from memory). Its fit uncertainty is the wider side of the union, over both
 /// models, of the profile-likelihood interval (see <see cref="ExponentialFitter.ProfileInterval"/>) and the
 /// linearised interval, over 1.96, with s² inflated by (1 + ρ)/(1 − ρ) for a lag-one residual correlation ρ &gt; 0
-/// (the AR(1) effective-sample-size factor, common practice, no source). The model-misfit term is a rectangular
+/// (the AR(1) effective-sample-size factor, common practice, no source) or by the batch-means factor of quarter-second
+/// blocks (<see cref="BatchMeans"/>), whichever is larger: the part's 1/f-like noise hides from lag one under the
+/// meter's white noise but not from blocks. The model-misfit term is a rectangular
 /// allowance of MisfitFraction times the recovery still to come. A fit accepts only when its residuals pass the runs
 /// test, no level shift is significant (<see cref="StepTest"/>), and the combined uncertainty meets the target.
 /// </summary>
 internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {
     private const double MinTimeConstantSeconds = 0.02;
+
+    /// <summary>
+    /// Block length of the batch-means check, s: a quarter of a second is shorter than the fastest path a fit must
+    /// resolve (a lead path of about half a second and up) and long enough that the meter's white noise averages down
+    /// in a block at a fast reading rate, so a wander of the part's own noise over the seconds the extrapolation leans
+    /// on stands out, while a record of a few seconds still holds a dozen blocks.
+    /// </summary>
+    private const double BlockSeconds = 0.25;
     private readonly List<Reading> _readings = [];
     private readonly double _floor = resolutionOhms * resolutionOhms / 12;
     private DateTimeOffset? _lastFit;
@@ -89,6 +99,20 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         }
     }
 
+    /// <summary>
+    /// The batch-means inflation of the residuals (see <see cref="BatchMeans"/>) over blocks of
+    /// <see cref="BlockSeconds"/>, at least two readings; 1 when the record holds too few blocks to judge.
+    /// </summary>
+    private static double SlowNoiseInflation(double[] residuals, double span, ExponentialFit best)
+    {
+        var n = residuals.Length;
+        var period = span / Math.Max(1, n - 1);
+        var block = Math.Max(2, (int)Math.Round(BlockSeconds / period));
+        var s2 = n > best.Parameters ? residuals.Sum(r => r * r) / (n - best.Parameters) : 0;
+        var factor = BatchMeans.Inflation(residuals, block, best.Parameters, s2);
+        return double.IsFinite(factor) ? factor : 1;
+    }
+
     /// <summary>The model-weighed fit of the readings held, or null when no model converges.</summary>
     internal RecoveryFit? Fit(out bool white)
     {
@@ -143,7 +167,8 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         }
 
         var rho = sumSquares > 0 ? Math.Clamp(lagProducts / sumSquares, 0, 0.95) : 0;
-        var inflation = (1 + rho) / (1 - rho);
+        var lagOne = (1 + rho) / (1 - rho);
+        var inflation = Math.Max(lagOne, SlowNoiseInflation(residuals, t[^1], best));
         var final = candidates.Select((c, i) => weights[i] * c.Final).Sum();
 
         // The interval of the final value: the union, over both models (whether or not the data favour the second
@@ -190,7 +215,7 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
                 StepCandidates(one, two, maxTau),
                 candidates.Min(c => c.Rss),
                 _floor,
-                inflation,
+                lagOne, // the step model explains a step that the batch means would read as wander
                 options.WhitenessAlpha
             );
         return new RecoveryFit(
