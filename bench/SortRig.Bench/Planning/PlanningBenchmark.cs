@@ -61,6 +61,13 @@ internal static class PlanningBenchmark
             );
         }
 
+        if (section.StartsWith("colbound", StringComparison.Ordinal))
+        {
+            var steps = section.Length > 9 ? int.Parse(section[9..], CultureInfo.InvariantCulture) : 32;
+            ColumnBoundProbe.Run(every, steps);
+            return 0;
+        }
+
         if (section == "probe")
         {
             var some = every.Where(e => e.Item1 is "ratio-set" or "diff-amp-g10" or "decade-divider").ToList();

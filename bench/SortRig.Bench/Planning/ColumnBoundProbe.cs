@@ -1,0 +1,43 @@
+using System.Diagnostics;
+using SortRig.Planning.Assembly;
+using SortRig.Planning.Assembly.ColumnBound;
+using SortRig.Planning.Recipes;
+
+namespace SortRig.Bench.Planning;
+
+/// <summary>
+/// `planning colbound`: the column LP bound alone on the 1 000-part reels of the matched recipes (no time limit, so
+/// the LP optimum over the priced family is reached), beside the part-count bound; not written to docs.
+/// </summary>
+internal static class ColumnBoundProbe
+{
+    public static void Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int gridSteps)
+    {
+        foreach (var (file, recipe) in recipes.Where(r =>
+                r.Recipe.Form == RecipeForm.Matched
+                && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
+            ))
+        {
+            foreach (var (shape, devs) in new[] { ("normal", Reels.Normal(1, 1000)), ("bimodal", Reels.Bimodal(1, 1000)) })
+            {
+                var parts = ReelBench.Draw(recipe, devs, 1);
+                var options = new AssemblyOptions();
+                var pool = new CandidatePool(recipe, parts, options, withPairs: false);
+                var rule = new MatchedRule(recipe);
+                var count = PartCountBound.Compute(recipe, pool.Usable, rule, options);
+                var sw = Stopwatch.StartNew();
+                var found = new SetAssembler(new AssemblyOptions(neighbourhoodParts: 0)).Assemble(recipe, parts).Sets.Count;
+                sw.Restart();
+                var r = ColumnBoundStep.Run(recipe, pool.Usable, options, [], () => false, gridSteps);
+                Console.WriteLine(
+                    string.Create(
+                        System.Globalization.CultureInfo.InvariantCulture,
+                        $"{file} {shape}: sweep {found}, part count {count}, column LP {r?.Value:0.000} → {r?.Bound} "
+                            + $"(m = {r?.MinSetCost:0.000000}, {r?.Rounds} rounds, {r?.Columns} columns, "
+                            + $"converged {r?.Converged}) in {sw.Elapsed.TotalSeconds:0.00} s, grid 1/{gridSteps}"
+                    )
+                );
+            }
+        }
+    }
+}

@@ -1,0 +1,67 @@
+using SortRig.Planning.Recipes;
+
+namespace SortRig.Planning.Assembly.ColumnBound;
+
+/// <summary>
+/// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
+/// fits: matched form (exact pricing, <see cref="MatchedPricing"/>), the part-count bound above the sets found, at most
+/// <see cref="MaxParts"/> usable parts (the master keeps a dense basis inverse). Anytime: the best bound proven
+/// before the stop is kept. The smaller of the two bounds is returned with its name.
+/// </summary>
+internal static class ColumnBoundStep
+{
+    /// <summary>Largest number of usable parts the column bound runs on.</summary>
+    public const int MaxParts = 2500;
+
+    /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
+    public const int GridSteps = 32;
+
+    public static (int Bound, string Name) Tighten(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options,
+        IReadOnlyList<(Option[] Fills, SetVerdict Verdict)> found,
+        (int Bound, string Name) current,
+        Func<bool> stop
+    )
+    {
+        if (
+            recipe.Form != RecipeForm.Matched
+            || current.Bound <= found.Count
+            || usable.Count > MaxParts
+            || usable.Count == 0
+            || stop()
+        )
+        {
+            return current;
+        }
+
+        var result = Run(recipe, usable, options, found, stop);
+        return result is not null && result.Bound < current.Bound
+            ? (
+                result.Bound,
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"column LP (set packing over {result.Family}; {result.Rounds} pricing round(s), "
+                        + $"{result.Columns} columns{(result.Converged ? ", LP optimum" : ", stopped early")}; "
+                        + $"LP duality with exact pricing); part count gave {current.Bound}"
+                )
+            )
+            : current;
+    }
+
+    /// <summary>The column bound with its certificate, or null when none was proven in time.</summary>
+    public static ColumnBoundResult? Run(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options,
+        IReadOnlyList<(Option[] Fills, SetVerdict Verdict)> found,
+        Func<bool> stop,
+        int gridSteps = GridSteps
+    )
+    {
+        var pricing = new MatchedPricing(recipe, usable, options, gridSteps);
+        var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
+        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop);
+    }
+}
