@@ -6,19 +6,23 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Bench.Planning;
 
 /// <summary>
-/// `planning colbound`: the column LP bound alone on the 1 000-part reels of the matched recipes (no time limit, so
-/// the LP optimum over the priced family is reached), beside the part-count bound; not written to docs.
+/// `planning colbound`: the column LP bound alone on the 1 000-part reels of the matched recipes (up to 120 s each,
+/// from the sweep's sets), beside the part-count bound; not written to docs.
 /// </summary>
 internal static class ColumnBoundProbe
 {
     public static void Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int gridSteps)
     {
-        foreach (var (file, recipe) in recipes.Where(r =>
+        foreach (
+            var (file, recipe) in recipes.Where(r =>
                 r.Recipe.Form == RecipeForm.Matched
                 && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
-            ))
+            )
+        )
         {
-            foreach (var (shape, devs) in new[] { ("normal", Reels.Normal(1, 1000)), ("bimodal", Reels.Bimodal(1, 1000)) })
+            foreach (
+                var (shape, devs) in new[] { ("normal", Reels.Normal(1, 1000)), ("bimodal", Reels.Bimodal(1, 1000)) }
+            )
             {
                 var parts = ReelBench.Draw(recipe, devs, 1);
                 var options = new AssemblyOptions();
@@ -26,9 +30,19 @@ internal static class ColumnBoundProbe
                 var rule = new MatchedRule(recipe);
                 var count = PartCountBound.Compute(recipe, pool.Usable, rule, options);
                 var sw = Stopwatch.StartNew();
-                var found = new SetAssembler(new AssemblyOptions(neighbourhoodParts: 0)).Assemble(recipe, parts).Sets.Count;
+                var found = new SetAssembler(new AssemblyOptions(neighbourhoodParts: 0))
+                    .Assemble(recipe, parts)
+                    .Sets.Count;
                 sw.Restart();
-                var r = ColumnBoundStep.Run(recipe, pool.Usable, options, [], () => false, gridSteps);
+                var swept = new SweepPlanner(recipe, pool, rule, options).Run();
+                var r = ColumnBoundStep.Run(
+                    recipe,
+                    pool.Usable,
+                    options,
+                    swept,
+                    () => sw.Elapsed > TimeSpan.FromSeconds(120),
+                    gridSteps
+                );
                 Console.WriteLine(
                     string.Create(
                         System.Globalization.CultureInfo.InvariantCulture,

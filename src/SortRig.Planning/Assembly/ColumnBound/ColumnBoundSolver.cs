@@ -52,10 +52,6 @@ internal static class ColumnBoundSolver
                 : priced.Min > 0 ? sum / priced.Min
                 : double.PositiveInfinity;
             var converged = priced.Columns.Count == 0;
-            if (Environment.GetEnvironmentVariable("COLDEBUG") is not null)
-            {
-                Console.Error.WriteLine($"round {round}: master {master.Value:0.000} cols {master.ColumnCount} pivots {master.Pivots} sum {sum:0.000} m {priced.Min:0.0000} new {priced.Columns.Count} {TimeProvider.System.GetUtcNow():HH:mm:ss.fff}");
-            }
             if (double.IsFinite(value) && (best is null || value < best.Value))
             {
                 var bound = (int)Math.Floor(value + 1e-6);

@@ -5,13 +5,15 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// <summary>
 /// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
 /// fits: matched form (exact pricing, <see cref="MatchedPricing"/>), the part-count bound above the sets found, at most
-/// <see cref="MaxParts"/> usable parts (the master keeps a dense basis inverse). Anytime: the best bound proven
-/// before the stop is kept. The smaller of the two bounds is returned with its name.
+/// <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
+/// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
+/// no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best bound
+/// proven before the stop is kept. The smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
     /// <summary>Largest number of usable parts the column bound runs on.</summary>
-    public const int MaxParts = 2500;
+    public const int MaxParts = 400;
 
     /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
     public const int GridSteps = 32;

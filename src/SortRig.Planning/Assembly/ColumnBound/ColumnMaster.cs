@@ -31,14 +31,12 @@ internal sealed class ColumnMaster
         {
             _binv[i] = new double[rows];
             _binv[i][i] = 1;
-            _xb[i] = 1 + (1e-7 * rng.NextDouble());
+            _xb[i] = 1 + (1e-4 * rng.NextDouble());
             _basis[i] = -1 - i;
         }
     }
 
     public int ColumnCount => _columns.Count;
-
-    public int Pivots { get; private set; }
 
     /// <summary>Master objective Σ x over the basic columns.</summary>
     public double Value
@@ -127,7 +125,6 @@ internal sealed class ColumnMaster
 
             if (enter < 0 && slackRow < 0)
             {
-                Pivots = pivot;
                 return true;
             }
 
@@ -156,9 +153,9 @@ internal sealed class ColumnMaster
                 return false; // cannot happen for a packing programme; stop rather than loop
             }
 
-            var before = Value;
+            // The objective rises by θ times the reduced cost.
+            stalled = _xb[leave] / col[leave] * best > 1e-9 ? 0 : stalled + 1;
             Pivot(leave, col, enter >= 0 ? enter : -1 - slackRow, best);
-            stalled = Value > before + 1e-9 ? 0 : stalled + 1;
         }
 
         RefreshDuals();

@@ -139,7 +139,10 @@ internal sealed class MatchedPricing : IColumnPricing
     // of new sets per round rather than many variants of one.
     private static List<int[]> Spread(List<(double Cost, int[] Parts)> found, int maxColumns)
     {
-        var sorted = found.OrderBy(f => f.Cost).Select(f => f.Parts).DistinctBy(p => string.Join(',', p.Order()))
+        var sorted = found
+            .OrderBy(f => f.Cost)
+            .Select(f => f.Parts)
+            .DistinctBy(p => string.Join(',', p.Order()))
             .ToList();
         var taken = new HashSet<int>();
         var first = new List<int[]>();
@@ -176,7 +179,8 @@ internal sealed class MatchedPricing : IColumnPricing
         return [.. parts];
     }
 
-    private static double Cost(OptionList list, int o, double[] y) => y[list.A[o]] + (list.B[o] >= 0 ? y[list.B[o]] : 0);
+    private static double Cost(OptionList list, int o, double[] y) =>
+        y[list.A[o]] + (list.B[o] >= 0 ? y[list.B[o]] : 0);
 
     private void Search(
         int depth,

@@ -59,7 +59,9 @@ internal sealed class OptionList
             }
 
             var nominal = PositionSpec.PartNominal(position.Nominal, build);
-            var idx = Enumerable.Range(0, usable.Count).Where(i => options.SameNominal(usable[i].Nominal, nominal))
+            var idx = Enumerable
+                .Range(0, usable.Count)
+                .Where(i => options.SameNominal(usable[i].Nominal, nominal))
                 .ToArray();
             for (var x = 0; x < idx.Length; x++)
             {
