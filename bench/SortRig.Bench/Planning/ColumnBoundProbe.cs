@@ -6,12 +6,12 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Bench.Planning;
 
 /// <summary>
-/// `planning colbound`: the column LP bound alone on the 1 000-part reels of the matched recipes (up to 120 s each,
-/// from the sweep's sets), beside the part-count bound; not written to docs.
+/// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes (up to 120 s
+/// each, from the sweep's sets), beside the part-count bound; not written to docs.
 /// </summary>
 internal static class ColumnBoundProbe
 {
-    public static void Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int gridSteps)
+    public static void Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int gridSteps, int size)
     {
         foreach (
             var (file, recipe) in recipes.Where(r =>
@@ -21,7 +21,7 @@ internal static class ColumnBoundProbe
         )
         {
             foreach (
-                var (shape, devs) in new[] { ("normal", Reels.Normal(1, 1000)), ("bimodal", Reels.Bimodal(1, 1000)) }
+                var (shape, devs) in new[] { ("normal", Reels.Normal(1, size)), ("bimodal", Reels.Bimodal(1, size)) }
             )
             {
                 var parts = ReelBench.Draw(recipe, devs, 1);
@@ -46,7 +46,8 @@ internal static class ColumnBoundProbe
                 Console.WriteLine(
                     string.Create(
                         System.Globalization.CultureInfo.InvariantCulture,
-                        $"{file} {shape}: sweep {found}, part count {count}, column LP {r?.Value:0.000} → {r?.Bound} "
+                        $"{file} {shape} {size} parts: sweep {found}, part count {count}, column LP {r?.Value:0.000} "
+                            + $"→ {r?.Bound} "
                             + $"(m = {r?.MinSetCost:0.000000}, {r?.Rounds} rounds, {r?.Columns} columns, "
                             + $"converged {r?.Converged}) in {sw.Elapsed.TotalSeconds:0.00} s, grid 1/{gridSteps}"
                     )

@@ -63,8 +63,11 @@ internal static class PlanningBenchmark
 
         if (section.StartsWith("colbound", StringComparison.Ordinal))
         {
-            var steps = section.Length > 9 ? int.Parse(section[9..], CultureInfo.InvariantCulture) : 32;
-            ColumnBoundProbe.Run(every, steps);
+            // colbound[:parts[:grid steps]]
+            var w = section.Split(':');
+            var size = w.Length > 1 ? int.Parse(w[1], CultureInfo.InvariantCulture) : 1000;
+            var steps = w.Length > 2 ? int.Parse(w[2], CultureInfo.InvariantCulture) : 32;
+            ColumnBoundProbe.Run(every, steps, size);
             return 0;
         }
 
@@ -130,7 +133,8 @@ internal static class PlanningBenchmark
                 + "0–39; expanded",
             "uncertainty uniform up to the stated ppm. 'bound sum' is the reel-scale path's proven upper bound "
                 + "summed over the instances;",
-            "'bound < exact' counts instances where it fell below the exact optimum (must be 0).",
+            "'bound < exact' counts instances where it fell below the exact optimum (must be 0). For the matched "
+                + "families it includes the column LP (docs/planning.md).",
             "",
         };
         md.AddRange(gap);
