@@ -4,7 +4,8 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 
 /// <summary>
 /// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
-/// fits: matched form (exact pricing, <see cref="MatchedPricing"/>), the part-count bound above the sets found, at most
+/// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
+/// matched form (exact pricing, <see cref="MatchedPricing"/>); the part-count bound above the sets found; at most
 /// <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
 /// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
 /// no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best bound
@@ -14,6 +15,10 @@ internal static class ColumnBoundStep
 {
     /// <summary>Largest number of usable parts the column bound runs on.</summary>
     public const int MaxParts = 400;
+
+    /// <summary>Up to this many usable parts every feasible set is enumerated (<see cref="EnumeratedPricing"/>, any
+    /// form); above it only the matched form is priced.</summary>
+    public const int EnumerateParts = 40;
 
     /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
     public const int GridSteps = 32;
@@ -28,10 +33,10 @@ internal static class ColumnBoundStep
     )
     {
         if (
-            recipe.Form != RecipeForm.Matched
-            || current.Bound <= found.Count
+            current.Bound <= found.Count
             || usable.Count > MaxParts
             || usable.Count == 0
+            || (recipe.Form != RecipeForm.Matched && usable.Count > EnumerateParts)
             || stop()
         )
         {
@@ -59,10 +64,19 @@ internal static class ColumnBoundStep
         AssemblyOptions options,
         IReadOnlyList<(Option[] Fills, SetVerdict Verdict)> found,
         Func<bool> stop,
-        int gridSteps = GridSteps
+        int gridSteps = GridSteps,
+        int enumerateParts = EnumerateParts
     )
     {
-        var pricing = new MatchedPricing(recipe, usable, options, gridSteps);
+        ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
+        IColumnPricing? pricing =
+            usable.Count <= enumerateParts ? EnumeratedPricing.TryCreate(recipe, usable, rule, options) : null;
+        pricing ??= recipe.Form == RecipeForm.Matched ? new MatchedPricing(recipe, usable, options, gridSteps) : null;
+        if (pricing is null)
+        {
+            return null;
+        }
+
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
         return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop);
     }

@@ -137,7 +137,7 @@ internal sealed class MatchedPricing : IColumnPricing
 
     // Cheapest first, but sets disjoint from those already taken before the rest: the master then gains a packing
     // of new sets per round rather than many variants of one.
-    private static List<int[]> Spread(List<(double Cost, int[] Parts)> found, int maxColumns)
+    internal static List<int[]> Spread(List<(double Cost, int[] Parts)> found, int maxColumns)
     {
         var sorted = found
             .OrderBy(f => f.Cost)

@@ -57,7 +57,15 @@ public sealed class ColumnBoundTests
 
     [Theory]
     [MemberData(nameof(Seeds))]
-    public void Bound_NeverBelowBruteForceOptimum_AndCertificateIsDualFeasible(int seed)
+    public void WindowPricing_NeverBelowBruteForceOptimum_AndCertificateIsDualFeasible(int seed) =>
+        MatchedCase(seed, enumerate: false);
+
+    [Theory]
+    [MemberData(nameof(Seeds))]
+    public void EnumeratedPricing_NeverBelowBruteForceOptimum_AndCertificateIsDualFeasible(int seed) =>
+        MatchedCase(seed, enumerate: true);
+
+    private static void MatchedCase(int seed, bool enumerate)
     {
         // Every matched shape of the referee tests, pairs included; parts crowded (σ 400 ppm) for a 500 ppm match so
         // that crowding, not counting, limits the sets.
@@ -73,7 +81,7 @@ public sealed class ColumnBoundTests
         var judge = BruteForce.Matched(recipe);
         var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
         var usable = new CandidatePool(recipe, parts, Defaults, withPairs: false).Usable;
-        var r = ColumnBoundStep.Run(recipe, usable, Defaults, [], () => false);
+        var r = ColumnBoundStep.Run(recipe, usable, Defaults, [], () => false, enumerateParts: enumerate ? 64 : 0);
         Assert.NotNull(r);
         Assert.True(r.Bound >= optimum, $"seed {seed}: column bound {r.Bound} < optimum {optimum}");
 
@@ -94,20 +102,45 @@ public sealed class ColumnBoundTests
         Assert.True(assembled.UpperBound >= optimum, $"seed {seed}: bound {assembled.UpperBound} < {optimum}");
     }
 
-    [Fact]
-    public void NetworkRecipe_KeepsThePartCountBound()
+    public static TheoryData<int> DividerSeeds => new(Enumerable.Range(0, 20));
+
+    [Theory]
+    [MemberData(nameof(DividerSeeds))]
+    public void Divider_ErrorsCancel_NeverBelowBruteForceOptimum_AndCertificateIsDualFeasible(int seed)
     {
-        // The column bound prices the matched form only; a divider (network form, errors cancel) keeps its bound.
-        var recipe = RandomInstances.Divider(seriesTop: false, tolPpm: 300);
-        var parts = RandomInstances.Parts(new Random(5), 30, [10e3], sigma: 1e-3, maxRelU: 20e-6);
-        var r = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
-        Assert.DoesNotContain("column LP", r.BoundMethod, StringComparison.Ordinal);
+        // Network form: a two-leg divider judged on its ratio in the worst case, so two parts off together make a good
+        // set (error cancellation); the top leg may be a series pair on odd seeds. Every feasible set is enumerated.
+        var rng = new Random(93_000 + seed);
+        var seriesTop = seed % 2 == 1;
+        const double tolPpm = 300;
+        var recipe = RandomInstances.Divider(seriesTop, tolPpm);
+        double[] nominals = seriesTop ? [10e3, 5e3] : [10e3];
+        var parts = RandomInstances.Parts(rng, rng.Next(5, 9), nominals, sigma: 1.5e-3, maxRelU: 30e-6);
+        var judge = BruteForce.Divider(recipe, tolPpm);
+        var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
+        var usable = new CandidatePool(recipe, parts, Defaults, withPairs: false).Usable;
+        var r = ColumnBoundStep.Run(recipe, usable, Defaults, [], () => false);
+        Assert.NotNull(r);
+        Assert.True(r.Bound >= optimum, $"seed {seed}: column bound {r.Bound} < optimum {optimum}");
+        // Certificate (LP duality, textbook), checked against every block the brute force can arrange into a set.
+        Assert.All(r.Duals, y => Assert.True(y >= 0));
+        for (var mask = 1; mask < 1 << usable.Count; mask++)
+        {
+            if (BruteForce.BlockScore(recipe, usable, mask, judge) is not null)
+            {
+                var cost = Enumerable.Range(0, usable.Count).Where(i => (mask >> i & 1) == 1).Sum(i => r.Duals[i]);
+                Assert.True(cost >= r.MinSetCost - 1e-9, $"seed {seed}: set {mask} costs {cost} < m {r.MinSetCost}");
+            }
+        }
+
+        var assembled = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
+        Assert.True(assembled.UpperBound >= optimum, $"seed {seed}: bound {assembled.UpperBound} < {optimum}");
     }
 
     private static ColumnBoundResult Run(Recipe recipe, IReadOnlyList<PartCandidate> parts)
     {
         var usable = new CandidatePool(recipe, parts, Defaults, withPairs: false).Usable;
-        var r = ColumnBoundStep.Run(recipe, usable, Defaults, [], () => false);
+        var r = ColumnBoundStep.Run(recipe, usable, Defaults, [], () => false, enumerateParts: 0);
         Assert.NotNull(r);
         return r;
     }
