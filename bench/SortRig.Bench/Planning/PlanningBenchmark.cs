@@ -133,8 +133,9 @@ internal static class PlanningBenchmark
                 + "0–39; expanded",
             "uncertainty uniform up to the stated ppm. 'bound sum' is the reel-scale path's proven upper bound "
                 + "summed over the instances;",
-            "'bound < exact' counts instances where it fell below the exact optimum (must be 0). For the matched "
-                + "families it includes the column LP (docs/planning.md).",
+            "'bound < exact' counts instances where it fell below the exact optimum (must be 0). It includes the "
+                + "column "
+                + "LP (every feasible set enumerated at this size; docs/planning.md).",
             "",
         };
         md.AddRange(gap);
