@@ -43,8 +43,9 @@ internal static class ReelBench
                     list
                 );
                 sw.Stop();
-                var bound = r.BoundMethod.StartsWith("part-count", StringComparison.Ordinal)
-                    ? "part count"
+                var bound =
+                    r.BoundMethod.StartsWith("part-count", StringComparison.Ordinal) ? "part count"
+                    : r.BoundMethod.StartsWith("column LP", StringComparison.Ordinal) ? "column LP"
                     : r.BoundMethod;
                 rows.Add(
                     string.Create(

@@ -134,6 +134,15 @@ public sealed class SetAssembler(
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
             _time.GetElapsedTime(started) > filterBudget
         );
+        // The column LP may take up to three tenths of the time limit (anytime; skipped when it cannot help).
+        (bound, boundName) = ColumnBound.ColumnBoundStep.Tighten(
+            recipe,
+            pool.Usable,
+            _options,
+            found,
+            (bound, boundName),
+            () => _time.GetElapsedTime(started) > _options.TimeLimit * 0.3
+        );
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;
         var tieBreak = "none: the sweep's sets are kept as found";

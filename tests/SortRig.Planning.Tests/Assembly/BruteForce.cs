@@ -58,7 +58,7 @@ internal static class BruteForce
         }
     }
 
-    private static double? BlockScore(Recipe recipe, IReadOnlyList<PartCandidate> parts, int mask, Judge judge)
+    internal static double? BlockScore(Recipe recipe, IReadOnlyList<PartCandidate> parts, int mask, Judge judge)
     {
         double? best = null;
         var fills = new (double, double)[recipe.Positions.Count];

@@ -1,0 +1,25 @@
+namespace SortRig.Planning.Assembly.ColumnBound;
+
+/// <summary>
+/// A proven bound from the set-packing LP with its certificate: duals y ≥ 0 and m, a proven lower bound on
+/// min Σ_{i∈S} y_i over a family holding every feasible set. Then y / m is dual feasible, so LP ≤ Σ y / m and the
+/// number of disjoint feasible sets is at most ⌊Σ y / m⌋.
+/// </summary>
+/// <param name="Bound">⌊Value⌋ (with a 1e-6 allowance for rounding).</param>
+/// <param name="Value">Σ y / m.</param>
+/// <param name="Duals">y, one per usable part.</param>
+/// <param name="MinSetCost">m.</param>
+/// <param name="Columns">Columns in the restricted master at the end.</param>
+/// <param name="Rounds">Pricing rounds.</param>
+/// <param name="Converged">True when pricing found no set below 1 (the LP optimum over the family was reached).</param>
+/// <param name="Family">The priced family, in words.</param>
+internal sealed record ColumnBoundResult(
+    int Bound,
+    double Value,
+    double[] Duals,
+    double MinSetCost,
+    int Columns,
+    int Rounds,
+    bool Converged,
+    string Family
+);

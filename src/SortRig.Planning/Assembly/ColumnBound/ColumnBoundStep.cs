@@ -1,0 +1,83 @@
+using SortRig.Planning.Recipes;
+
+namespace SortRig.Planning.Assembly.ColumnBound;
+
+/// <summary>
+/// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
+/// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
+/// matched form (exact pricing, <see cref="MatchedPricing"/>); the part-count bound above the sets found; at most
+/// <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
+/// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
+/// no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best bound
+/// proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// </summary>
+internal static class ColumnBoundStep
+{
+    /// <summary>Largest number of usable parts the column bound runs on.</summary>
+    public const int MaxParts = 400;
+
+    /// <summary>Up to this many usable parts every feasible set is enumerated (<see cref="EnumeratedPricing"/>, any
+    /// form); above it only the matched form is priced.</summary>
+    public const int EnumerateParts = 40;
+
+    /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
+    public const int GridSteps = 32;
+
+    public static (int Bound, string Name) Tighten(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options,
+        IReadOnlyList<(Option[] Fills, SetVerdict Verdict)> found,
+        (int Bound, string Name) current,
+        Func<bool> stop
+    )
+    {
+        if (
+            current.Bound <= found.Count
+            || usable.Count > MaxParts
+            || usable.Count == 0
+            || (recipe.Form != RecipeForm.Matched && usable.Count > EnumerateParts)
+            || stop()
+        )
+        {
+            return current;
+        }
+
+        var result = Run(recipe, usable, options, found, stop);
+        return result is not null && result.Bound < current.Bound
+            ? (
+                result.Bound,
+                string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"column LP (set packing over {result.Family}; {result.Rounds} pricing round(s), "
+                        + $"{result.Columns} columns{(result.Converged ? ", LP optimum" : ", stopped early")}; "
+                        + $"LP duality with exact pricing); part count gave {current.Bound}"
+                )
+            )
+            : current;
+    }
+
+    /// <summary>The column bound with its certificate, or null when none was proven in time.</summary>
+    public static ColumnBoundResult? Run(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        AssemblyOptions options,
+        IReadOnlyList<(Option[] Fills, SetVerdict Verdict)> found,
+        Func<bool> stop,
+        int gridSteps = GridSteps,
+        int enumerateParts = EnumerateParts
+    )
+    {
+        ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
+        IColumnPricing? pricing =
+            usable.Count <= enumerateParts ? EnumeratedPricing.TryCreate(recipe, usable, rule, options) : null;
+        pricing ??= recipe.Form == RecipeForm.Matched ? new MatchedPricing(recipe, usable, options, gridSteps) : null;
+        if (pricing is null)
+        {
+            return null;
+        }
+
+        var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
+        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop);
+    }
+}
