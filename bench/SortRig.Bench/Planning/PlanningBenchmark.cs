@@ -73,6 +73,20 @@ internal static class PlanningBenchmark
             return 0;
         }
 
+        // `limit=SECONDS:a,b` runs the reel section for the named recipes with another time limit (normal reels).
+        if (section.StartsWith("limit=", StringComparison.Ordinal))
+        {
+            var w = section["limit=".Length..].Split(':');
+            var names = w[1].Split(',');
+            ReelBench.Run(
+                every.Where(e => names.Contains(e.Item1)).ToList(),
+                1000,
+                TimeSpan.FromSeconds(double.Parse(w[0], CultureInfo.InvariantCulture)),
+                seed: 1
+            );
+            return 0;
+        }
+
         // `reels=a,b` runs the reel section for the named recipes only (a quick check while working on one recipe).
         var only = section.StartsWith("reels=", StringComparison.Ordinal)
             ? section["reels=".Length..].Split(',')

@@ -54,6 +54,7 @@ internal static class ReelBench
                     )
                 );
                 Console.WriteLine(rows[^1]);
+                Console.WriteLine($"  ({r.Note})");
             }
         }
 
