@@ -73,6 +73,22 @@ internal static class PlanningBenchmark
             return 0;
         }
 
+        var reference =
+            all || section == "reference"
+                ? SliceReference.Run(
+                    [
+                        ("decade-divider", every.Single(e => e.Item1 == "decade-divider").Item2, 1000),
+                        ("diff-amp-g10", every.Single(e => e.Item1 == "diff-amp-g10").Item2, 400),
+                    ],
+                    seed: 1,
+                    TimeSpan.FromSeconds(2)
+                )
+                : [];
+        if (section == "reference")
+        {
+            return 0;
+        }
+
         // `limit=SECONDS:a,b` runs the reel section for the named recipes with another time limit (normal reels).
         if (section.StartsWith("limit=", StringComparison.Ordinal))
         {
