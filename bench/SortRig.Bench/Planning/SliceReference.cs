@@ -80,6 +80,7 @@ internal static class SliceReference
                     optimal += proven ? 1 : 0;
                     search += found.Sets.Count;
                     worse += found.Sets.Count < count ? 1 : 0;
+                    Console.Error.WriteLine($"  slice of {slice.Count}: {sets.Count} sets, exact {count}, search {found.Sets.Count}");
                 }
 
                 rows.Add(
