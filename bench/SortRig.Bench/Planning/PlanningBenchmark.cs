@@ -73,18 +73,22 @@ internal static class PlanningBenchmark
             return 0;
         }
 
-        var reference =
-            section == "reference"
-                ? SliceReference.Run(
-                    [
-                        ("decade-divider", every.Single(e => e.Item1 == "decade-divider").Item2, 500),
-                        ("diff-amp-g10", every.Single(e => e.Item1 == "diff-amp-g10").Item2, 250),
-                    ],
-                    seed: 1,
-                    TimeSpan.FromSeconds(2)
-                )
-                : [];
-        if (section == "reference")
+        // `reference` (or `reference=name,…`): sub-reels solved exactly by CP-SAT against the search; not part of
+        // `planning`.
+        var refNames = section.StartsWith("reference", StringComparison.Ordinal)
+            ? section.Split('=') is [_, var named]
+                ? named.Split(',')
+                : ["decade-divider", "diff-amp-g10"]
+            : [];
+        var reference = SliceReference.Run(
+            new (string File, double Width)[] { ("decade-divider", 500), ("diff-amp-g10", 250) }
+                .Where(c => refNames.Contains(c.File))
+                .Select(c => (c.File, every.Single(e => e.Item1 == c.File).Item2, c.Width))
+                .ToList(),
+            seed: 1,
+            TimeSpan.FromSeconds(2)
+        );
+        if (refNames.Length > 0)
         {
             return 0;
         }
