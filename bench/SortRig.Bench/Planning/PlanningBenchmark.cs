@@ -96,6 +96,40 @@ internal static class PlanningBenchmark
             return 0;
         }
 
+        // `reference` (or `reference=name,…`): sub-reels solved exactly by CP-SAT against the search; not part of
+        // `planning`.
+        var refNames = section.StartsWith("reference", StringComparison.Ordinal)
+            ? section.Split('=') is [_, var named]
+                ? named.Split(',')
+                : ["decade-divider", "diff-amp-g10"]
+            : [];
+        var reference = SliceReference.Run(
+            new (string File, double Width)[] { ("decade-divider", 500), ("diff-amp-g10", 250) }
+                .Where(c => refNames.Contains(c.File))
+                .Select(c => (c.File, every.Single(e => e.Item1 == c.File).Item2, c.Width))
+                .ToList(),
+            seed: 1,
+            TimeSpan.FromSeconds(2)
+        );
+        if (refNames.Length > 0)
+        {
+            return 0;
+        }
+
+        // `limit=SECONDS:a,b` runs the reel section for the named recipes with another time limit (normal reels).
+        if (section.StartsWith("limit=", StringComparison.Ordinal))
+        {
+            var w = section["limit=".Length..].Split(':');
+            var names = w[1].Split(',');
+            ReelBench.Run(
+                every.Where(e => names.Contains(e.Item1)).ToList(),
+                1000,
+                TimeSpan.FromSeconds(double.Parse(w[0], CultureInfo.InvariantCulture)),
+                seed: 1
+            );
+            return 0;
+        }
+
         // `reels=a,b` runs the reel section for the named recipes only (a quick check while working on one recipe).
         var only = section.StartsWith("reels=", StringComparison.Ordinal)
             ? section["reels=".Length..].Split(',')

@@ -55,6 +55,7 @@ internal static class ReelBench
                     )
                 );
                 Console.WriteLine(rows[^1]);
+                Console.WriteLine($"  ({r.Note})");
             }
         }
 

@@ -9,7 +9,10 @@ namespace SortRig.Planning.Assembly;
 /// cref="AssemblyOptions.NeighbourhoodParts"/> parts is re-packed by the exact search (<see cref="ExactPacker"/>, every
 /// feasible assignment judged by the real worst-case rule, so error cancellation counts); the window's sets are
 /// replaced when the exact packing has more sets, or as many with a smaller sum of scores. Windows slide by half their
-/// length; passes repeat until one changes nothing or the time runs out. Deterministic.
+/// length; passes repeat until one changes nothing or the time runs out. Sets come first: while a window's parts cannot
+/// make more sets than it holds (<see cref="PartCountBound"/> over the window's parts, filters included), it is not
+/// re-packed; re-packs for a smaller sum of scores run only once no window can gain a set, and after each such pass
+/// the count-first passes run again. Deterministic.
 /// </summary>
 internal sealed partial class NeighbourhoodSearch(
     Recipe recipe,
@@ -20,7 +23,7 @@ internal sealed partial class NeighbourhoodSearch(
 {
     private readonly AssemblyOptions _limits = new(
         exactPartLimit: 64,
-        exactSetLimit: 200_000,
+        exactSetLimit: 50_000,
         exactStateLimit: 400_000,
         nominalMatchPpm: options.NominalMatchPpm,
         neighbourhoodParts: 0
@@ -30,6 +33,15 @@ internal sealed partial class NeighbourhoodSearch(
     public int Passes { get; private set; }
 
     public int Replaced { get; private set; }
+
+    /// <summary>Re-packs that exceeded the exact search's limits and were tried again on fewer parts.</summary>
+    public int Shrunk { get; private set; }
+
+    /// <summary>Windows left alone because their parts cannot make more sets than they hold.</summary>
+    public int Skipped { get; private set; }
+
+    // True while only re-packs that gain a set are sought (windows whose part-count bound shows no gain are skipped).
+    private bool _countFirst = true;
 
     /// <summary>True when a window can hold two sets, so a re-pack can gain one.</summary>
     public bool Applies => options.NeighbourhoodParts >= 2 * recipe.Positions.Count;
@@ -48,7 +60,45 @@ internal sealed partial class NeighbourhoodSearch(
             return sets;
         }
 
-        for (var pass = 1; sets.Count < bound || pass == 1; pass++)
+        while (true)
+        {
+            _countFirst = true;
+            Passes = Sweeps(sets, bound, outOfTime, passDone, cancellationToken);
+            if (sets.Count < bound && !outOfTime())
+            {
+                Scatter(sets, bound, outOfTime, cancellationToken);
+                passDone(++Passes, sets.Count);
+            }
+
+            if (sets.Count >= bound || outOfTime())
+            {
+                return sets;
+            }
+
+            // No window gains a set: one pass for a smaller sum of scores (it moves parts between sets and leftovers,
+            // which may open a gain), then count first again.
+            _countFirst = false;
+            var before = Replaced;
+            Passes = Sweeps(sets, bound, outOfTime, passDone, cancellationToken, onePass: true);
+            if (Replaced == before || outOfTime())
+            {
+                return sets;
+            }
+        }
+    }
+
+    // Passes of sliding windows until one changes nothing (or only one when onePass); returns the pass count so far.
+    private int Sweeps(
+        List<(Option[] Fills, SetVerdict Verdict)> sets,
+        int bound,
+        Func<bool> outOfTime,
+        Action<int, int> passDone,
+        CancellationToken cancellationToken,
+        bool onePass = false
+    )
+    {
+        var pass = Passes + 1;
+        for (; sets.Count < bound || pass == Passes + 1; pass++)
         {
             var changed = false;
             var items = Items(sets);
@@ -58,7 +108,7 @@ internal sealed partial class NeighbourhoodSearch(
                 if (outOfTime())
                 {
                     passDone(pass, sets.Count);
-                    return sets;
+                    return pass;
                 }
 
                 var (e, parts) = (s, 0);
@@ -88,17 +138,14 @@ internal sealed partial class NeighbourhoodSearch(
                 s = next;
             }
 
-            Passes = pass;
             passDone(pass, sets.Count);
-            if (!changed)
+            if (!changed || onePass)
             {
-                break;
+                return pass;
             }
         }
 
-        Scatter(sets, bound, outOfTime, cancellationToken);
-        passDone(Passes + 1, sets.Count);
-        return sets;
+        return pass - 1;
     }
 
     private bool TryRepack(List<(Option[] Fills, SetVerdict Verdict)> sets, List<Item> window)
@@ -106,10 +153,26 @@ internal sealed partial class NeighbourhoodSearch(
         var sub = window.SelectMany(i => i.Parts).ToArray();
         var old = window.Where(i => i.Set >= 0).Select(i => i.Set).ToArray();
         var oldScore = old.Sum(k => sets[k].Verdict.Score);
-        var pool = new CandidatePool(recipe, sub.Select(i => usable[i]).ToList(), _limits, withPairs: true);
-        if (pool.Usable.Count != sub.Length || new ExactPacker(recipe, pool, rule, _limits).Solve() is not { } found)
+        var parts = sub.Select(i => usable[i]).ToList();
+        // The window's own part-count bound (a proven bound on what its parts can make): no gain, no re-pack.
+        if (_countFirst && PartCountBound.Compute(recipe, parts, rule, _limits) <= old.Length)
+        {
+            Skipped++;
+            return false;
+        }
+
+        var pool = new CandidatePool(recipe, parts, _limits, withPairs: true);
+        if (pool.Usable.Count != sub.Length)
         {
             return false;
+        }
+
+        if (new ExactPacker(recipe, pool, rule, _limits).Solve() is not { } found)
+        {
+            // Too many assignments (many pairs among parts that all fit one window): try again with the leftovers
+            // and the items nearest to them, two thirds of the parts, while that still holds two sets.
+            Shrunk++;
+            return Smaller(window, sub.Length) is { } smaller && TryRepack(sets, smaller);
         }
 
         var better =
@@ -131,6 +194,35 @@ internal sealed partial class NeighbourhoodSearch(
         }
 
         return true;
+    }
+
+    private List<Item>? Smaller(List<Item> window, int parts)
+    {
+        var limit = parts * 2 / 3;
+        if (limit < 2 * recipe.Positions.Count)
+        {
+            return null;
+        }
+
+        var leftovers = window.Where(i => i.Set < 0).ToList();
+        if (leftovers.Count == 0)
+        {
+            return null;
+        }
+
+        var centre = leftovers.Average(i => i.Key);
+        var kept = new List<Item>();
+        var count = 0;
+        foreach (var item in leftovers.Concat(window.Where(i => i.Set >= 0).OrderBy(i => Math.Abs(i.Key - centre))))
+        {
+            if (count + item.Parts.Length <= limit)
+            {
+                kept.Add(item);
+                count += item.Parts.Length;
+            }
+        }
+
+        return kept.Count(i => i.Set < 0) == leftovers.Count && kept.Count < window.Count ? kept : null;
     }
 
     private List<Item> Items(List<(Option[] Fills, SetVerdict Verdict)> sets)

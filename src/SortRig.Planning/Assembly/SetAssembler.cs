@@ -169,6 +169,8 @@ public sealed class SetAssembler(
             note += string.Create(
                 System.Globalization.CultureInfo.InvariantCulture,
                 $"; neighbourhood search: {search.Passes} pass(es), {search.Replaced} window(s) re-packed, "
+                    + $"{search.Skipped} skipped (their parts could not make another set), "
+                    + $"{search.Shrunk} re-packed on fewer parts (too many assignments), "
                     + $"{_options.NeighbourhoodParts} parts per window{stopped}"
             );
         }
