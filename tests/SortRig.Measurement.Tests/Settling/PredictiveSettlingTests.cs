@@ -76,6 +76,29 @@ public sealed class PredictiveSettlingTests
         );
     }
 
+    [Theory]
+    [InlineData(5)]
+    [InlineData(6)]
+    public void BodyFasterThanHalfTheAssumedConstant_IsNotBelievedEarly(int seed)
+    {
+        // The body prior (common practice, no source): a fitted slow path below half of AssumedTimeConstant must
+        // agree with a fit whose slow path is held at that floor before the fit may accept. A part cooling with
+        // 1.2 s is accepted sooner when the sort assumes 2 s (floor 1 s: the fit is believed) than when it assumes
+        // 5 s (floor 2.5 s: the record must first rule the slow body out).
+        var noise = Gaussian(seed, 0.005);
+        var readings = Sampled(0, 0.041, 1200, t => R * (1 + (60e-6 * Math.Exp(-t / 1.2))) + noise()).ToList();
+
+        var believed = Accept(Predictive with { AssumedTimeConstant = TimeSpan.FromSeconds(2) }, readings);
+        var doubted = Accept(Predictive with { AssumedTimeConstant = TimeSpan.FromSeconds(5) }, readings);
+
+        Assert.Equal(SettleRule.Predictive, believed.AcceptedBy);
+        Assert.True(
+            doubted.TimeToSettle > believed.TimeToSettle + TimeSpan.FromSeconds(0.5),
+            $"{doubted.TimeToSettle} vs {believed.TimeToSettle}"
+        );
+        Assert.InRange(doubted.Value.Value, R * (1 - (2 * TargetPpm * 1e-6)), R * (1 + (2 * TargetPpm * 1e-6)));
+    }
+
     [Fact]
     public void Flicker_ClearsTheFit()
     {
