@@ -101,7 +101,7 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
     /// record so that a too-fast body fits better than the true one (fourth pass: fitted 1.4-2.5 s against a body of
     /// 3.3-4.8 s, the prediction 10-20 ppm short), and only more record, not more confidence, settles that.
     /// </summary>
-    private static double? SlowBodyFinal(double[] t, double[] y, ExponentialFit best, double maxTau)
+    internal static double? SlowBodyFinal(double[] t, double[] y, ExponentialFit best, double maxTau)
     {
         var floor = BodyPriorFraction * maxTau;
         if (best.TimeConstants.Max() >= floor)
