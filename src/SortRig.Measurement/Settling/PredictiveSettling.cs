@@ -146,19 +146,19 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
     /// The batch-means inflation of the residuals (see <see cref="BatchMeans"/>) over blocks of
     /// <see cref="BlockSeconds"/>, at least two readings; 1 when the record holds too few blocks to judge.
     /// </summary>
-    private static double SlowNoiseInflation(double[] residuals, double span, ExponentialFit best)
+    internal static double SlowNoiseInflation(double[] residuals, double span, int parameters)
     {
         var n = residuals.Length;
         var period = span / Math.Max(1, n - 1);
         var block = Math.Max(2, (int)Math.Round(BlockSeconds / period));
-        var s2 = n > best.Parameters ? residuals.Sum(r => r * r) / (n - best.Parameters) : 0;
+        var s2 = n > parameters ? residuals.Sum(r => r * r) / (n - parameters) : 0;
         var factor = 1.0;
         // The blocking analysis proper (Flyvbjerg and Petersen 1989, from memory): the block length doubles for as
         // long as enough blocks remain, and the largest factor read is taken, since a 1/f-like noise keeps growing
         // with the block (its power rises towards the seconds the extrapolation leans on) instead of levelling off.
-        for (; n / block >= best.Parameters + 4; block *= 2)
+        for (; n / block >= parameters + 4; block *= 2)
         {
-            var f = BatchMeans.Inflation(residuals, block, best.Parameters, s2);
+            var f = BatchMeans.Inflation(residuals, block, parameters, s2);
             factor = double.IsFinite(f) ? Math.Max(factor, f) : factor;
         }
 
@@ -220,7 +220,7 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
 
         var rho = sumSquares > 0 ? Math.Clamp(lagProducts / sumSquares, 0, 0.95) : 0;
         var lagOne = (1 + rho) / (1 - rho);
-        var inflation = Math.Max(lagOne, SlowNoiseInflation(residuals, t[^1], best));
+        var inflation = Math.Max(lagOne, SlowNoiseInflation(residuals, t[^1], best.Parameters));
         var final = candidates.Select((c, i) => weights[i] * c.Final).Sum();
 
         // The interval of the final value: the union, over both models (whether or not the data favour the second
