@@ -57,4 +57,24 @@ public sealed class BatchMeansTests
         // Six blocks of two readings with a five-parameter model leave one block's worth of freedom: no estimate.
         Assert.True(double.IsNaN(BatchMeans.Inflation(new double[12], 2, 5, 1)));
     }
+
+    [Theory]
+    [InlineData(7)]
+    [InlineData(8)]
+    public void SlowWander_IsReadByTheLongerBlocksOfTheBlockingAnalysis(int seed)
+    {
+        // Blocking analysis (Flyvbjerg and Petersen 1989, from memory): for white noise σ² plus a square wave of
+        // amplitude a and half-period P readings, m Var(block mean) ≈ σ² + m a² for blocks m ≪ P: the factor grows
+        // with the block. 600 readings 41 ms apart, σ = 1, a = 0.3, P = 150: the quarter-second block (6 readings)
+        // reads about 1 + 6 × 0.09 ≈ 1.5, the doubled blocks up to 48 readings about 1 + 48 × 0.09 ≈ 5.
+        var noise = ReadingScript.Gaussian(seed, 1);
+        var r = Enumerable.Range(0, 600).Select(i => noise() + ((i / 150) % 2 == 0 ? 0.3 : -0.3)).ToArray();
+        var s2 = r.Sum(x => x * x) / (r.Length - 5);
+
+        var quarterSecond = BatchMeans.Inflation(r, 6, 5, s2);
+        var blocking = PredictiveSettling.SlowNoiseInflation(r, 599 * 0.041, 5);
+
+        Assert.InRange(quarterSecond, 0.8, 2.5);
+        Assert.True(blocking > 3, $"blocking {blocking}, quarter second {quarterSecond}");
+    }
 }

@@ -77,6 +77,37 @@ public sealed class PredictiveSettlingTests
     }
 
     [Fact]
+    public void BodyPrior_FastFittedBody_IntervalHoldsTheSlowBodyFit()
+    {
+        // The body prior (common practice, no source): a record that one 1.2 s exponential fits exactly (60 ppm, 3 s,
+        // noise-free) is believed when the floor (half of the assumed longest) is below 1.2 s; under an assumed 5 s
+        // the best fit whose slow path is held at 2.5 s or more ends elsewhere (the record is one exponential exactly,
+        // so any other model's asymptote differs from the true 0), and the rule's 95 % interval (1.96 u of the fit)
+        // must reach that value.
+        var t = Enumerable.Range(0, 74).Select(i => i * 0.041).ToArray();
+        var y = t.Select(x => 60e-6 * R * Math.Exp(-x / 1.2)).ToArray();
+        var one = ExponentialFitter.One(t, y, 0.02, 5, 1e-12);
+
+        Assert.InRange(one.TimeConstants[0], 1.19, 1.21);
+        Assert.Null(PredictiveSettling.SlowBodyFinal(t, y, one, 2));
+        var body = PredictiveSettling.SlowBodyFinal(t, y, one, 5);
+        Assert.NotNull(body);
+        Assert.True(Math.Abs(body!.Value) > 1e-6 * R, $"{body / R * 1e6} ppm");
+
+        var settling = new PredictiveSettling(PredictiveOptions.Default, 1e-6, TimeSpan.FromSeconds(5));
+        foreach (var (x, v) in t.Zip(y))
+        {
+            settling.Add(At(x, R + v));
+        }
+
+        var fit = settling.Fit(out _)!;
+        Assert.True(
+            Math.Abs(fit.FinalValue - (R + body.Value)) <= (1.959963984540054 * fit.FitUncertainty) + (1e-9 * R),
+            $"final {(fit.FinalValue - R) / R * 1e6} ppm, u {fit.FitUncertainty / R * 1e6} ppm, body {body / R * 1e6}"
+        );
+    }
+
+    [Fact]
     public void Flicker_ClearsTheFit()
     {
         var readings = Recovery(4).Take(40).ToList();
