@@ -100,17 +100,7 @@ public sealed class ResumeFlaggedTests : IDisposable
             waiting.Select(id => byId[byId[id].ReplacedBy!.Value].Number).Order()
         );
 
-        // Reel position of each record: reel parts in order, a record measured again maps to the part it replaced.
-        var replacedBy = stored
-            .Where(p => p.ReplacedBy is not null)
-            .ToDictionary(p => byId[p.ReplacedBy!.Value].Number);
-        var position = new Dictionary<int, int>();
-        var next = 0;
-        foreach (var p in stored.OrderBy(p => p.Number))
-        {
-            position[p.Number] = replacedBy.TryGetValue(p.Number, out var old) ? position[old.Number] : next++;
-        }
-
+        var position = ReelPositions.Of(stored);
         var live = stored.Where(p => p.IsLive).ToList();
         Assert.Equal(Enumerable.Range(0, parts), live.Select(p => position[p.Number]).Order());
         var (misplaced, excused) = TruthCheck.Compare(options, live, n => second.Bench.Truth(position[n]));

@@ -87,8 +87,7 @@ public sealed class CheckEndToEndTests : IDisposable
         Assert.InRange(shiftPpm, 40, 60);
         Assert.All(checks.Where(c => c.Seq > reReference.Seq), c => Assert.True(c.Commit.InControl, c.Commit.Reason));
 
-        // Reel position of each live record: reel parts in order, records measured again map to their first record.
-        var again = new Dictionary<int, int>(); // new number -> old number
+        // The link is a column (schema version 6) and agrees with the history note the operator reads.
         foreach (var id in flagged)
         {
             var old = stored.Single(p => p.Id == id);
@@ -97,17 +96,10 @@ public sealed class CheckEndToEndTests : IDisposable
                 .Select(e => e.Note)
                 .Single(n => n?.StartsWith(RemeasuredAs, StringComparison.Ordinal) == true)!;
             var newNumber = int.Parse(note[RemeasuredAs.Length..], System.Globalization.CultureInfo.InvariantCulture);
-            again[newNumber] = old.Number;
-            Assert.Equal(stored.Single(p => p.Number == newNumber).Id, old.ReplacedBy); // the column agrees
+            Assert.Equal(stored.Single(p => p.Number == newNumber).Id, old.ReplacedBy);
         }
 
-        var position = new Dictionary<int, int>();
-        var next = 0;
-        foreach (var p in stored.OrderBy(p => p.Number))
-        {
-            position[p.Number] = again.TryGetValue(p.Number, out var first) ? position[first] : next++;
-        }
-
+        var position = ReelPositions.Of(stored);
         var live = stored.Where(p => p.IsLive).ToList();
         Assert.Equal(parts, live.Count);
         Assert.Equal(Enumerable.Range(0, parts), live.Select(p => position[p.Number]).Order());
