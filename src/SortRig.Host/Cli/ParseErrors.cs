@@ -27,6 +27,14 @@ internal static class ParseErrors
         }
 
         var verb = string.Concat(path.Select(n => " " + n));
+        if (path.Count == 0 && parse.UnmatchedTokens.FirstOrDefault(t => !t.StartsWith('-')) is { } typed)
+        {
+            // A misspelt verb: say so and list the verbs, rather than "Required command was not provided".
+            var verbs = string.Join(", ", parse.CommandResult.Command.Subcommands.Select(c => c.Name));
+            error.WriteLine($"error: '{typed}' is not a verb of sortrig; the verbs are {verbs} (sortrig --help)");
+            return true;
+        }
+
         error.WriteLine($"error: {parse.Errors[0].Message} (sortrig{verb} --help lists the options)");
         return true;
     }

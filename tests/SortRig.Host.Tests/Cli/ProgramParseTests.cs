@@ -27,6 +27,24 @@ public sealed class ProgramParseTests
         Assert.EndsWith(hint, line.TrimEnd(), StringComparison.Ordinal);
     }
 
+    // A misspelt verb is named as typed, with the verbs there are (the bad-input rule: one line naming what was
+    // written). Common practice, no source.
+    [Fact]
+    public void ParseError_UnknownVerb_NamesItAndListsTheVerbs()
+    {
+        var error = new StringWriter();
+
+        Assert.True(SortRig.Host.Cli.ParseErrors.Report(Program.Parse(["srot", "--parts", "4"]), error));
+
+        var line = Assert.Single(error.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries));
+        Assert.StartsWith(
+            "error: 'srot' is not a verb of sortrig; the verbs are sort, ",
+            line,
+            StringComparison.Ordinal
+        );
+        Assert.Contains(" plan", line, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Plan_TakesThePickedPartsWithByAsLibraryTakeDoes()
     {
