@@ -68,8 +68,9 @@ public sealed partial class SortingLoop
     }
 
     // One check: while the history is short, the check is re-seated and read until the limits can be set (those
-    // readings are the baseline); then one reading judged on the chart. True when the check ended in control.
-    private async Task<bool> RunCheckAsync(string when, bool resumeFeeding, CancellationToken ct)
+    // readings are the baseline); then one reading judged on the chart. At the start of a resumed session a check in
+    // control is followed by the offer of any parts an earlier check flagged.
+    private async Task RunCheckAsync(string when, bool resumeFeeding, bool atStart, CancellationToken ct)
     {
         var check = _check!;
         while (_checkLimits is null)
@@ -86,7 +87,7 @@ public sealed partial class SortingLoop
                 await SayAsync($"check limits set: {n} readings, centre {centre:F4} Ohm, sigma {sigmaPpm:0.0} ppm", ct)
                     .ConfigureAwait(false);
                 FinishCheck(resumeFeeding);
-                return true;
+                return;
             }
         }
 
@@ -107,6 +108,10 @@ public sealed partial class SortingLoop
         {
             await SayAsync($"check {record.Seq} in control ({verdict.SigmaScore:+0.0;-0.0} sigma)", ct)
                 .ConfigureAwait(false);
+            if (atStart)
+            {
+                await OfferWaitingFlaggedAsync(ct).ConfigureAwait(false);
+            }
         }
         else
         {
@@ -114,7 +119,6 @@ public sealed partial class SortingLoop
         }
 
         FinishCheck(resumeFeeding);
-        return verdict.InControl;
     }
 
     private void FinishCheck(bool resumeFeeding)

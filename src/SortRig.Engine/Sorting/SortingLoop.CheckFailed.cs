@@ -15,37 +15,11 @@ public sealed partial class SortingLoop
     private async Task OutOfControlAsync(CheckRecord record, ControlVerdict verdict, CancellationToken ct)
     {
         var suspects = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
-        _paused = true;
-        _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
         var said =
             Invariant($"check {record.Seq} out of control: {verdict.Reason}. Paused. {suspects.Count} parts ")
             + "measured since the last good check are flagged: R to re-reference to the check and measure them again, "
             + "P to carry on leaving them flagged, F to finish";
-        await SayAsync(said, ct).ConfigureAwait(false);
-        while (true)
-        {
-            var command = await _ctx.Commands.TakeAsync(ct).ConfigureAwait(false);
-            switch (command)
-            {
-                case OperatorCommand.RemeasureFlagged:
-                    await ReReferenceAsync(ct).ConfigureAwait(false);
-                    await RemeasureFlaggedAsync(ct).ConfigureAwait(false);
-                    break;
-                case OperatorCommand.TogglePause:
-                    await SayAsync($"carrying on; {suspects.Count} parts stay flagged until measured again", ct)
-                        .ConfigureAwait(false);
-                    break;
-                case OperatorCommand.Finish:
-                    _finishRequested = true;
-                    break;
-                default:
-                    continue; // undo and measure-again concern a part in the fixture: there is none while paused here
-            }
-
-            _paused = false;
-            _ctx.Snapshot.UpdateSession(s => s with { Paused = false });
-            return;
-        }
+        await AskAboutFlaggedAsync(said, suspects.Count, reReference: true, ct).ConfigureAwait(false);
     }
 
     // A resumed session whose start check is in control, with parts an earlier check flagged and nobody measured
@@ -53,37 +27,44 @@ public sealed partial class SortingLoop
     private async Task OfferWaitingFlaggedAsync(CancellationToken ct)
     {
         var waiting = await _ctx.Log.GetSuspectPartsAsync(_session.Id, ct).ConfigureAwait(false);
-        if (waiting.Count == 0)
+        if (waiting.Count > 0)
         {
-            return;
+            var said =
+                Invariant($"{waiting.Count} parts flagged by an earlier check wait to be measured again. Paused. ")
+                + "R to measure them again now, P to carry on leaving them flagged, F to finish";
+            await AskAboutFlaggedAsync(said, waiting.Count, reReference: false, ct).ConfigureAwait(false);
         }
+    }
 
+    // Pauses, says what waits, and takes the operator's answer: R measures the flagged parts again (after reading the
+    // check once more when the meter moved), P carries on leaving them flagged, F finishes.
+    private async Task AskAboutFlaggedAsync(string said, int flagged, bool reReference, CancellationToken ct)
+    {
         _paused = true;
         _ctx.Snapshot.UpdateSession(s => s with { Paused = true });
-        var said =
-            Invariant($"{waiting.Count} parts flagged by an earlier check wait to be measured again. Paused. ")
-            + "R to measure them again now, P to carry on leaving them flagged, F to finish";
         await SayAsync(said, ct).ConfigureAwait(false);
         while (true)
         {
             var command = await _ctx.Commands.TakeAsync(ct).ConfigureAwait(false);
-            if (command == OperatorCommand.RemeasureFlagged)
+            switch (command)
             {
-                await RemeasureFlaggedAsync(ct).ConfigureAwait(false);
-                _ctx.Hands.ResumeAt(_partsRecorded);
-            }
-            else if (command == OperatorCommand.TogglePause)
-            {
-                await SayAsync($"carrying on; {waiting.Count} parts stay flagged until measured again", ct)
-                    .ConfigureAwait(false);
-            }
-            else if (command == OperatorCommand.Finish)
-            {
-                _finishRequested = true;
-            }
-            else
-            {
-                continue; // nothing sits in the fixture while paused here
+                case OperatorCommand.RemeasureFlagged:
+                    if (reReference)
+                    {
+                        await ReReferenceAsync(ct).ConfigureAwait(false);
+                    }
+
+                    await RemeasureFlaggedAsync(ct).ConfigureAwait(false);
+                    break;
+                case OperatorCommand.TogglePause:
+                    await SayAsync($"carrying on; {flagged} parts stay flagged until measured again", ct)
+                        .ConfigureAwait(false);
+                    break;
+                case OperatorCommand.Finish:
+                    _finishRequested = true;
+                    break;
+                default:
+                    continue; // undo and measure-again concern a part in the fixture: there is none while paused here
             }
 
             _paused = false;

@@ -50,10 +50,8 @@ public sealed partial class SortingLoop
             await OpenSessionAsync(cancellationToken).ConfigureAwait(false);
             if (_check is not null && !Done)
             {
-                if (await RunCheckAsync("start", resumeFeeding: true, cancellationToken).ConfigureAwait(false))
-                {
-                    await OfferWaitingFlaggedAsync(cancellationToken).ConfigureAwait(false);
-                }
+                await RunCheckAsync("start", resumeFeeding: true, atStart: true, cancellationToken)
+                    .ConfigureAwait(false);
             }
 
             await AnnounceReadyAsync(cancellationToken).ConfigureAwait(false);
@@ -73,7 +71,8 @@ public sealed partial class SortingLoop
 
                 if (CheckDue)
                 {
-                    await RunCheckAsync(CheckWhen, resumeFeeding: true, cancellationToken).ConfigureAwait(false);
+                    await RunCheckAsync(CheckWhen, resumeFeeding: true, atStart: false, cancellationToken)
+                        .ConfigureAwait(false);
                     continue;
                 }
 
@@ -86,7 +85,8 @@ public sealed partial class SortingLoop
 
             if (Done && _check is not null && _partsRecorded > _partsAtLastCheck)
             {
-                await RunCheckAsync("end", resumeFeeding: false, cancellationToken).ConfigureAwait(false);
+                await RunCheckAsync("end", resumeFeeding: false, atStart: false, cancellationToken)
+                    .ConfigureAwait(false);
             }
 
             if (Done)

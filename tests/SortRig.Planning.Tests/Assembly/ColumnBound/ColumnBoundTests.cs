@@ -87,15 +87,7 @@ public sealed class ColumnBoundTests
 
         // Certificate (LP duality, textbook): y ≥ 0 and Σ_{i∈S} y_i ≥ m for every feasible set S, here every block of
         // parts the brute force (written apart from the assembler) can arrange into a set; then LP ≤ Σ y / m.
-        Assert.All(r.Duals, y => Assert.True(y >= 0));
-        for (var mask = 1; mask < 1 << usable.Count; mask++)
-        {
-            if (BruteForce.BlockScore(recipe, usable, mask, judge) is not null)
-            {
-                var cost = Enumerable.Range(0, usable.Count).Where(i => (mask >> i & 1) == 1).Sum(i => r.Duals[i]);
-                Assert.True(cost >= r.MinSetCost - 1e-9, $"seed {seed}: set {mask} costs {cost} < m {r.MinSetCost}");
-            }
-        }
+        AssertDualFeasible(recipe, usable, judge, r, seed);
 
         Assert.Equal((int)Math.Floor((r.Duals.Sum() / r.MinSetCost) + 1e-6), r.Bound);
         var assembled = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
@@ -123,15 +115,7 @@ public sealed class ColumnBoundTests
         Assert.NotNull(r);
         Assert.True(r.Bound >= optimum, $"seed {seed}: column bound {r.Bound} < optimum {optimum}");
         // Certificate (LP duality, textbook), checked against every block the brute force can arrange into a set.
-        Assert.All(r.Duals, y => Assert.True(y >= 0));
-        for (var mask = 1; mask < 1 << usable.Count; mask++)
-        {
-            if (BruteForce.BlockScore(recipe, usable, mask, judge) is not null)
-            {
-                var cost = Enumerable.Range(0, usable.Count).Where(i => (mask >> i & 1) == 1).Sum(i => r.Duals[i]);
-                Assert.True(cost >= r.MinSetCost - 1e-9, $"seed {seed}: set {mask} costs {cost} < m {r.MinSetCost}");
-            }
-        }
+        AssertDualFeasible(recipe, usable, judge, r, seed);
 
         var assembled = new SetAssembler(new AssemblyOptions(exactPartLimit: 0)).Assemble(recipe, parts);
         Assert.True(assembled.UpperBound >= optimum, $"seed {seed}: bound {assembled.UpperBound} < {optimum}");
@@ -149,5 +133,25 @@ public sealed class ColumnBoundTests
     {
         var v = 10e3 * (1 + deviation);
         return new(i + 1, 10e3, new MeasuredValue(v, v * 5e-6, v * 2.5e-6), null);
+    }
+
+    // y ≥ 0 and Σ_{i∈S} y_i ≥ m for every block S of the usable parts the brute force can arrange into a set.
+    private static void AssertDualFeasible(
+        Recipe recipe,
+        IReadOnlyList<PartCandidate> usable,
+        BruteForce.Judge judge,
+        ColumnBoundResult r,
+        int seed
+    )
+    {
+        Assert.All(r.Duals, y => Assert.True(y >= 0));
+        for (var mask = 1; mask < 1 << usable.Count; mask++)
+        {
+            if (BruteForce.BlockScore(recipe, usable, mask, judge) is not null)
+            {
+                var cost = Enumerable.Range(0, usable.Count).Where(i => (mask >> i & 1) == 1).Sum(i => r.Duals[i]);
+                Assert.True(cost >= r.MinSetCost - 1e-9, $"seed {seed}: set {mask} costs {cost} < m {r.MinSetCost}");
+            }
+        }
     }
 }
