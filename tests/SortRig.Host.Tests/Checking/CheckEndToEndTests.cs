@@ -12,7 +12,8 @@ namespace SortRig.Host.Tests.Checking;
 /// The check standard end to end on the embedded simulator (real TCP socket, SQLite file): the meter's gain steps by
 /// 50 ppm in the middle of a 200-part sort; the session pauses at the next check, the parts since the last good check
 /// are flagged, measured again after the operator's answer, and no part ends in the wrong cup against the simulator's
-/// truth (its side channel, the outside reference). Self-contained: one file, the shared harness only.
+/// truth (its side channel, the outside reference). Test-driven virtual clock
+/// (tests/Support/VirtualSort.cs). Self-contained: one file, the shared harness only.
 /// </summary>
 [Collection(ReliabilityCollection.Name)]
 public sealed class CheckEndToEndTests : IDisposable
@@ -34,16 +35,23 @@ public sealed class CheckEndToEndTests : IDisposable
             Session = "check-e2e",
             Parts = parts,
             Seed = 4242,
-            Speed = 30,
             Speech = false,
             Live = false,
             Check = "fixture:10000",
             CheckEvery = every,
         };
-        var sort = new InProcessSort(options);
+        var ears = new ListeningAnnouncer();
+        var sort = new VirtualSort(ears);
         var pauses = 0;
-        sort.Ears.OnLine = line =>
+        var stepped = false;
+        ears.OnLine = line =>
         {
+            if (!stepped && sort.Services.Snapshot.Parts().Count >= stepAt)
+            {
+                sort.Bench.StepGain(50); // the fault: every range reads 50 ppm high from the next conversion on
+                stepped = true;
+            }
+
             if (line.Contains("out of control", StringComparison.Ordinal))
             {
                 pauses++;
@@ -51,16 +59,8 @@ public sealed class CheckEndToEndTests : IDisposable
                 sort.Services.Commands.Post(OperatorCommand.RemeasureFlagged); // the operator's answer
             }
         };
-        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(9));
-        var run = sort.RunAsync(null, timeout.Token);
-        var bench = await sort.Bench;
-        await InProcessSort.UntilAsync(
-            () => sort.Services.Snapshot.Parts().Count >= stepAt || run.IsCompleted,
-            TimeSpan.FromMinutes(6),
-            "part 110"
-        );
-        bench.StepGain(50); // the fault: every range reads 50 ppm high from the next conversion on
-        var outcome = await run;
+        var outcome = await sort.RunAsync(options, limit: TimeSpan.FromMinutes(9));
+        var bench = sort.Bench;
 
         Assert.Equal(parts, outcome.PartsRecorded);
         Assert.Equal(50, bench.GainStepPpm);

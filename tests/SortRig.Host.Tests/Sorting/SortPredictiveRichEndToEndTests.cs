@@ -19,8 +19,9 @@ namespace SortRig.Host.Tests.Sorting;
 /// <summary>
 /// Issue #13's end-to-end check: 200 parts sorted with the predictive settle rule on the simulator's rich physics
 /// (two thermal paths, self-heating, ambient wander, 1/f noise, popcorn) over its real TCP socket, into the SQLite
-/// log. The simulator's truth (its side channel) is the outside reference the cups are checked against; the
-/// session summary's pace (parts per hour) is printed to the test output.
+/// log, on a test-driven virtual clock (tests/Support/VirtualSort.cs). The simulator's truth (its side channel) is the
+/// outside reference the cups are checked against; the session summary's pace (parts per hour) is printed to the test
+/// output.
 /// </summary>
 [Collection(ReliabilityCollection.Name)]
 public sealed class SortPredictiveRichEndToEndTests(ITestOutputHelper output) : IDisposable
@@ -41,24 +42,14 @@ public sealed class SortPredictiveRichEndToEndTests(ITestOutputHelper output) : 
             Physics = PhysicsModel.Rich,
             Parts = parts,
             Seed = 1313,
-            Speed = 20,
             Speech = false,
             Live = false,
         };
-        var time = new ScaledTimeProvider(options.Speed);
         var snapshot = new BenchSnapshot();
-        var services = new SortServices(
-            time,
-            new BenchEventHub(time),
-            snapshot,
-            new OperatorCommands(),
-            new PlainTextAnnouncer(new StringWriter()),
-            NullLoggerFactory.Instance
-        );
-        SimulatedBench? bench = null;
-        using var timeout = new CancellationTokenSource(TimeSpan.FromMinutes(20));
+        var sort = new VirtualSort(new PlainTextAnnouncer(new StringWriter()), snapshot);
 
-        var outcome = await SortRunner.RunAsync(options, services, b => bench = b, timeout.Token);
+        var outcome = await sort.RunAsync(options, limit: TimeSpan.FromMinutes(15));
+        var bench = sort.Bench;
 
         Assert.Equal(parts, outcome.PartsRecorded);
         await using var log = await PrecisionLogFactory.OpenAsync(options.Database, null, default);
@@ -68,7 +59,7 @@ public sealed class SortPredictiveRichEndToEndTests(ITestOutputHelper output) : 
 
         // Simulator truth is the outside reference: each value within its stated U (k = 2), each part in the cup its
         // true value calls for unless a band edge lies within that U.
-        var (misplaced, excused) = TruthCheck.Compare(options, stored, number => bench!.Truth(number - 1));
+        var (misplaced, excused) = TruthCheck.Compare(options, stored, number => bench.Truth(number - 1));
         Assert.Empty(misplaced);
         Assert.True(excused <= parts / 8, $"{excused} parts sat on a band edge");
 
