@@ -38,7 +38,7 @@ internal static class PickPlanner
 
         if (mode == PickMode.Cups || (mode == PickMode.Auto && allInCups && recipe.Form == RecipeForm.Matched))
         {
-            return ByCup(recipe, offered, options, qualify);
+            return Explained(ByCup(recipe, offered, options, qualify), recipe, parts, options);
         }
 
         var result = assembler.Assemble(recipe, offered.Select(p => PlanParts.Candidate(p, qualify)).ToList());
@@ -54,8 +54,27 @@ internal static class PickPlanner
             note += "; the parts share cups, so telling them apart by id needs each one measured again";
         }
 
-        return new PlanOutcome(list, offered, picked, new Dictionary<(double, string), (double, double)>(), note);
+        return Explained(
+            new PlanOutcome(list, offered, picked, new Dictionary<(double, string), (double, double)>(), note),
+            recipe,
+            parts,
+            options
+        );
     }
+
+    // No set and a position nothing offered can fill: say so, and what the parts on hand are.
+    private static PlanOutcome Explained(
+        PlanOutcome outcome,
+        Recipe recipe,
+        IReadOnlyList<PartRecord> parts,
+        AssemblyOptions options
+    ) =>
+        outcome.List.Sets.Count == 0 && MissingNominals.Explain(recipe, parts, outcome.Offered, options) is { } why
+            ? outcome with
+            {
+                Note = outcome.Note + "\n" + why,
+            }
+            : outcome;
 
     private static PlanOutcome ByCup(Recipe recipe, List<PartRecord> offered, AssemblyOptions options, bool qualify)
     {

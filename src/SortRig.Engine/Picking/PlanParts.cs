@@ -21,16 +21,19 @@ internal static class PlanParts
 
     /// <summary>True when some position takes a part of this nominal.</summary>
     public static bool Wanted(double nominal, Recipe recipe, AssemblyOptions options) =>
-        recipe.Positions.Any(pos =>
-            options.SameNominal(nominal, pos.Nominal)
-            || (
-                pos.Pairs.HasFlag(PairBuilds.Series)
-                && options.SameNominal(nominal, PositionSpec.PartNominal(pos.Nominal, PositionBuild.Series))
-            )
-            || (
-                pos.Pairs.HasFlag(PairBuilds.Parallel)
-                && options.SameNominal(nominal, PositionSpec.PartNominal(pos.Nominal, PositionBuild.Parallel))
-            )
+        recipe.Positions.Any(pos => Takes(pos, nominal, options));
+
+    /// <summary>True when the position takes a part of this nominal, singly or as one of a series/parallel
+    /// pair.</summary>
+    public static bool Takes(PositionSpec position, double nominal, AssemblyOptions options) =>
+        options.SameNominal(nominal, position.Nominal)
+        || (
+            position.Pairs.HasFlag(PairBuilds.Series)
+            && options.SameNominal(nominal, PositionSpec.PartNominal(position.Nominal, PositionBuild.Series))
+        )
+        || (
+            position.Pairs.HasFlag(PairBuilds.Parallel)
+            && options.SameNominal(nominal, PositionSpec.PartNominal(position.Nominal, PositionBuild.Parallel))
         );
 
     /// <summary>The part as the assembler sees it: id, nominal, value with uncertainties, and where to find
