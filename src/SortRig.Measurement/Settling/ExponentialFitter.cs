@@ -241,7 +241,7 @@ internal static partial class ExponentialFitter
     }
 
     /// <summary>Gaussian elimination with partial pivoting on a small m × m system; false when singular.</summary>
-    private static bool Solve(Span<double> g, Span<double> h, double[] x, int m)
+    internal static bool Solve(Span<double> g, Span<double> h, double[] x, int m)
     {
         var scale = 0.0;
         for (var i = 0; i < m; i++)

@@ -11,9 +11,11 @@ namespace SortRig.Measurement.Settling;
 /// linearised interval, over 1.96, with s² inflated by (1 + ρ)/(1 − ρ) for a lag-one residual correlation ρ &gt; 0
 /// (the AR(1) effective-sample-size factor, common practice, no source) or by the batch-means factor of quarter-second
 /// blocks (<see cref="BatchMeans"/>), whichever is larger: the part's 1/f-like noise hides from lag one under the
-/// meter's white noise but not from blocks. The model-misfit term is a rectangular
-/// allowance of MisfitFraction times the recovery still to come. A fit accepts only when its residuals pass the runs
-/// test, no level shift is significant (<see cref="StepTest"/>), and the combined uncertainty meets the target.
+/// meter's white noise but not from blocks. When the chosen fit's body is faster than the body prior's floor, the
+/// interval also holds the asymptotes of the body held across the prior's range (<see cref="SlowBodyRange"/>). The
+/// model-misfit term is a rectangular allowance of MisfitFraction times the recovery still to come. A fit accepts only
+/// when its residuals pass the runs test, no level shift is significant (<see cref="StepTest"/>), and the combined
+/// uncertainty meets the target.
 /// </summary>
 internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {
@@ -94,14 +96,17 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
 
     /// <summary>
     /// The body prior: when the chosen fit's slowest time constant is below <see cref="BodyPriorFraction"/> of the
-    /// assumed longest, the final value of the best two-exponential fit whose slow path is held at or above that floor
-    /// (slow τ on {1, 1.5, 2} × floor up to the longest, fast τ on a log grid from 0.05 s up to the floor; amplitudes
-    /// by least squares). Null when the chosen fit's slow path already is that slow. The rule's interval must hold
-    /// this value whatever the likelihood says: a slow wander of the part's 1/f noise over a few seconds can bend a
-    /// record so that a too-fast body fits better than the true one (fourth pass: fitted 1.4-2.5 s against a body of
-    /// 3.3-4.8 s, the prediction 10-20 ppm short), and only more record, not more confidence, settles that.
+    /// assumed longest (the floor), the lowest and highest of the final values of the best two-exponential fits with
+    /// the slow path held at each of five steps from the floor up to the longest (fast τ on a log grid from 0.05 s up
+    /// to the floor, best by residual sum at each step). A fitted body below the floor says that the record has not
+    /// separated the body from the lead path (or that the part's own noise bent it): the prior then bounds the body to
+    /// [floor, longest] and the record does not say where in that range it lies, so every step's asymptote must lie
+    /// inside the rule's interval. (The fifth pass took only the best held fit, which sits at the floor whenever the
+    /// record pulls the body faster; its asymptote then still fell short of a body near the longest: settle-diag seed
+    /// 4030, fitted 1.9-2.5 s against bodies of 3.2-4.7 s, 10-23 ppm short.) Null when the chosen fit's slow path
+    /// already is that slow.
     /// </summary>
-    internal static double? SlowBodyFinal(double[] t, double[] y, ExponentialFit best, double maxTau)
+    internal static (double Low, double High)? SlowBodyRange(double[] t, double[] y, ExponentialFit best, double maxTau)
     {
         var floor = BodyPriorFraction * maxTau;
         if (best.TimeConstants.Max() >= floor)
@@ -109,20 +114,27 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
             return null;
         }
 
-        var (bestRss, bestFinal) = (double.PositiveInfinity, double.NaN);
-        foreach (var slow in new[] { floor, Math.Min(maxTau, 1.5 * floor), Math.Min(maxTau, 2 * floor) })
+        var (low, high) = (double.PositiveInfinity, double.NegativeInfinity);
+        for (var step = 0; step <= 4; step++)
         {
+            var slow = floor + ((maxTau - floor) * step / 4);
+            var (bestRss, final) = (double.PositiveInfinity, double.NaN);
             for (var fast = 0.05; fast < floor; fast *= 1.5)
             {
                 var rss = ExponentialFitter.Project(t, y, [fast, slow], out var beta);
                 if (rss < bestRss)
                 {
-                    (bestRss, bestFinal) = (rss, beta[0]);
+                    (bestRss, final) = (rss, beta[0]);
                 }
+            }
+
+            if (double.IsFinite(final))
+            {
+                (low, high) = (Math.Min(low, final), Math.Max(high, final));
             }
         }
 
-        return double.IsFinite(bestFinal) ? bestFinal : null;
+        return double.IsFinite(low) ? (low, high) : null;
     }
 
     /// <summary>Time constants the step alternative tries: around the fitted ones, and the assumed longest.</summary>
@@ -255,9 +267,9 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
             );
         }
 
-        if (SlowBodyFinal(t, y, best, maxTau) is { } bodyFinal)
+        if (SlowBodyRange(t, y, best, maxTau) is { } body)
         {
-            (low, high) = (Math.Min(low, bodyFinal), Math.Max(high, bodyFinal));
+            (low, high) = (Math.Min(low, body.Low), Math.Max(high, body.High));
         }
 
         var fitUncertainty = Math.Max(final - low, high - final) / 1.959963984540054;

@@ -40,6 +40,9 @@ internal sealed class ResidualSettling(SettleOptions options, double resolutionO
 
     public void Clear() => _span.Clear();
 
+    /// <summary>Readings held in the span.</summary>
+    internal int Count => _span.Count;
+
     /// <summary>
     /// The half-width a, ohms, for the mean of <paramref name="values"/>: from the span fit in span mode (∞ when it
     /// cannot be fitted), else from the window's own fit. A span fit's slope belongs to the span's mean time; the
@@ -66,7 +69,65 @@ internal sealed class ResidualSettling(SettleOptions options, double resolutionO
         }
 
         var lag = (MeanTime(values) - MeanTime(span)).TotalSeconds;
-        return (Math.Abs(fit.Slope) + (t * SlopeError(fit))) * _tau * Math.Exp(-Math.Max(0, lag) / _tau);
+        var error = SlopeError(fit) * Math.Sqrt(SlowNoiseInflation(span, fit));
+        return (Math.Abs(fit.Slope) + (t * error)) * _tau * Math.Exp(-Math.Max(0, lag) / _tau);
+    }
+
+    /// <summary>
+    /// Restarts the span after a level shift (<see cref="ChangePoint"/>, at <paramref name="alpha"/> over all
+    /// positions): the readings before the step are dropped, so the slope that bounds the recovery still to come is
+    /// read from one level of the part only. True when readings were dropped. Nothing in window mode.
+    /// </summary>
+    public bool RestartAfterStep(double alpha)
+    {
+        if (!SpanMode || _span.Count < (2 * ChangePoint.MinSegment) + 4)
+        {
+            return false;
+        }
+
+        var span = _span.ToArray();
+        var t = new double[span.Length];
+        var y = new double[span.Length];
+        for (var i = 0; i < span.Length; i++)
+        {
+            t[i] = (span[i].Time - span[0].Time).TotalSeconds;
+            y[i] = span[i].Value - span[0].Value;
+        }
+
+        var k = ChangePoint.Locate(t, y, _scatterFloor * _scatterFloor, alpha);
+        for (var i = 0; i < k; i++)
+        {
+            _span.Dequeue();
+        }
+
+        return k > 0;
+    }
+
+    /// <summary>
+    /// The batch-means factor (≥ 1) of the span line's residuals (<see cref="PredictiveSettling.SlowNoiseInflation"/>,
+    /// blocks of a quarter second and up): SE(b) of a straight line assumes white scatter, but a part's 1/f-like
+    /// noise wanders over the seconds of the span and tilts the line by more than that; the slope's variance is a
+    /// smooth functional of the record and grows by the same factor.
+    /// </summary>
+    private static double SlowNoiseInflation(Reading[] span, WindowStatistics fit)
+    {
+        var t0 = span[0].Time;
+        var x = new double[span.Length];
+        var xMean = 0.0;
+        for (var i = 0; i < span.Length; i++)
+        {
+            x[i] = (span[i].Time - t0).TotalSeconds;
+            xMean += x[i];
+        }
+
+        xMean /= span.Length;
+        var residuals = new double[span.Length];
+        for (var i = 0; i < span.Length; i++)
+        {
+            residuals[i] = span[i].Value - fit.Mean - (fit.Slope * (x[i] - xMean));
+        }
+
+        return Math.Max(1, PredictiveSettling.SlowNoiseInflation(residuals, x[^1], 2));
     }
 
     private double SlopeError(WindowStatistics fit) =>

@@ -142,6 +142,18 @@ public sealed partial class SettleTracker
                 return false;
             }
 
+            // A step of the part's level inside the span (popcorn) can flatten the line against a recovery still
+            // under way: the span restarts after it, and the bound is read again from the readings after the step.
+            if (_residual.RestartAfterStep(_options.SlopeAlpha))
+            {
+                residual = _residual.HalfWidth(s, _criticalT, window);
+                if (residual > target)
+                {
+                    _slopeFailures++;
+                    return false;
+                }
+            }
+
             return true;
         }
 
