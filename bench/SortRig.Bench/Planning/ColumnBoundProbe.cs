@@ -11,11 +11,16 @@ namespace SortRig.Bench.Planning;
 /// </summary>
 internal static class ColumnBoundProbe
 {
+    private static readonly double s_limit = double.Parse(
+        Environment.GetEnvironmentVariable("COLSECONDS") ?? "120",
+        System.Globalization.CultureInfo.InvariantCulture
+    );
+
     public static void Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int gridSteps, int size)
     {
         foreach (
             var (file, recipe) in recipes.Where(r =>
-                r.Recipe.Form == RecipeForm.Matched
+                (r.Recipe.Form == RecipeForm.Matched || r.Recipe.Positions.Count <= NetworkPricing.MaxPositions)
                 && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
             )
         )
@@ -27,7 +32,7 @@ internal static class ColumnBoundProbe
                 var parts = ReelBench.Draw(recipe, devs, 1);
                 var options = new AssemblyOptions();
                 var pool = new CandidatePool(recipe, parts, options, withPairs: false);
-                var rule = new MatchedRule(recipe);
+                ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
                 var count = PartCountBound.Compute(recipe, pool.Usable, rule, options);
                 var sw = Stopwatch.StartNew();
                 var found = new SetAssembler(new AssemblyOptions(neighbourhoodParts: 0))
@@ -35,12 +40,23 @@ internal static class ColumnBoundProbe
                     .Sets.Count;
                 sw.Restart();
                 var swept = new SweepPlanner(recipe, pool, rule, options).Run();
+                if (recipe.Form == RecipeForm.Network)
+                {
+                    var built = NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false);
+                    Console.WriteLine(
+                        $"{file} {shape}: pricing built in {sw.Elapsed.TotalSeconds:0.00} s, {built?.Leaves} leaves"
+                    );
+                    var zero = built?.Price(new double[pool.Usable.Count], 200, () => false);
+                    Console.WriteLine($"zero duals: min {zero?.Min}, {zero?.Columns.Count} columns");
+                    sw.Restart();
+                }
+
                 var r = ColumnBoundStep.Run(
                     recipe,
                     pool.Usable,
                     options,
                     swept,
-                    () => sw.Elapsed > TimeSpan.FromSeconds(120),
+                    () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
                     gridSteps
                 );
                 Console.WriteLine(

@@ -20,6 +20,11 @@ internal static class ColumnBoundStep
     /// form); above it only the matched form is priced.</summary>
     public const int EnumerateParts = 40;
 
+    /// <summary>Largest number of usable parts of a network recipe of at most
+    /// <see cref="NetworkPricing.MaxPositions"/> positions the column bound runs on (<see cref="NetworkPricing"/>).
+    /// </summary>
+    public const int MaxNetworkParts = 1_500;
+
     /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
     public const int GridSteps = 32;
 
@@ -34,9 +39,13 @@ internal static class ColumnBoundStep
     {
         if (
             current.Bound <= found.Count
-            || usable.Count > MaxParts
             || usable.Count == 0
-            || (recipe.Form != RecipeForm.Matched && usable.Count > EnumerateParts)
+            || (recipe.Form == RecipeForm.Matched && usable.Count > MaxParts)
+            || (
+                recipe.Form != RecipeForm.Matched
+                && usable.Count > EnumerateParts
+                && (usable.Count > MaxNetworkParts || recipe.Positions.Count > NetworkPricing.MaxPositions)
+            )
             || stop()
         )
         {
@@ -71,7 +80,10 @@ internal static class ColumnBoundStep
         ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
         IColumnPricing? pricing =
             usable.Count <= enumerateParts ? EnumeratedPricing.TryCreate(recipe, usable, rule, options) : null;
-        pricing ??= recipe.Form == RecipeForm.Matched ? new MatchedPricing(recipe, usable, options, gridSteps) : null;
+        pricing ??=
+            recipe.Form == RecipeForm.Matched
+                ? new MatchedPricing(recipe, usable, options, gridSteps)
+                : NetworkPricing.TryCreate(recipe, usable, options, stop);
         if (pricing is null)
         {
             return null;
