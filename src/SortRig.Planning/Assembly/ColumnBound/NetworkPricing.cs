@@ -100,19 +100,48 @@ internal sealed class NetworkPricing : IColumnPricing
         return pricing.Build(stop) ? pricing : null;
     }
 
-    /// <summary>True when the assignment (options per position, recipe order) is in the priced family.</summary>
-    public bool InFamily(ReadOnlySpan<double> values)
+    /// <summary>
+    /// True when some member of the searched family (a leaf's prefix with an option of its interval) uses exactly these
+    /// parts (indices into the usable parts): the family must hold every feasible set. For tests; O(leaves × options).
+    /// </summary>
+    public bool Covers(IReadOnlyCollection<int> parts)
     {
-        var e = _network.Evaluate(values);
-        for (var o = 0; o < e.Length; o++)
+        var set = parts.ToHashSet();
+        foreach (var leaf in _leaves)
         {
-            if (!(Math.Abs(e[o].Error) <= _tolerance[o]))
+            var used = new HashSet<int>();
+            for (var d = 0; d < _order.Length - 1; d++)
             {
-                return false;
+                var o = _options[_order[d]][leaf[d]];
+                used.Add(o.A);
+                if (o.B >= 0)
+                {
+                    used.Add(o.B);
+                }
+            }
+
+            if (!used.IsSubsetOf(set))
+            {
+                continue;
+            }
+
+            for (var j = leaf[^2]; j <= leaf[^1]; j++)
+            {
+                var o = _options[_last][j];
+                var all = new HashSet<int>(used) { o.A };
+                if (o.B >= 0)
+                {
+                    all.Add(o.B);
+                }
+
+                if (all.Count == used.Count + (o.B >= 0 ? 2 : 1) && all.SetEquals(set))
+                {
+                    return true;
+                }
             }
         }
 
-        return true;
+        return false;
     }
 
     private bool Build(Func<bool> stop)
