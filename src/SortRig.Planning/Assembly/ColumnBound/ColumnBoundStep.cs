@@ -5,15 +5,17 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// <summary>
 /// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
 /// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
-/// matched form (exact pricing, <see cref="MatchedPricing"/>); the part-count bound above the sets found; at most
-/// <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
+/// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
+/// <see cref="NetworkPricing.MaxPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
+/// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
+/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
 /// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
 /// no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best bound
 /// proven before the stop is kept. The smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
-    /// <summary>Largest number of usable parts the column bound runs on.</summary>
+    /// <summary>Largest number of usable parts the column bound runs on for the matched form.</summary>
     public const int MaxParts = 400;
 
     /// <summary>Up to this many usable parts every feasible set is enumerated (<see cref="EnumeratedPricing"/>, any
@@ -27,6 +29,20 @@ internal static class ColumnBoundStep
 
     /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
     public const int GridSteps = 32;
+
+    /// <summary>
+    /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.5 for a network recipe
+    /// priced by <see cref="NetworkPricing"/> (above <see cref="EnumerateParts"/> parts), whose bound is proven only
+    /// once the LP converges (the pricing's minimum stays 0 until then) and which needs about 3–9 s on a loaded
+    /// 1 000-part divider reel (docs/planning.md).
+    /// </summary>
+    public static double TimeShare(Recipe recipe, int usable) =>
+        recipe.Form == RecipeForm.Network
+        && usable > EnumerateParts
+        && usable <= MaxNetworkParts
+        && recipe.Positions.Count <= NetworkPricing.MaxPositions
+            ? 0.5
+            : 0.3;
 
     public static (int Bound, string Name) Tighten(
         Recipe recipe,
@@ -90,6 +106,7 @@ internal static class ColumnBoundStep
         }
 
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
-        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop);
+        // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
+        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
     }
 }

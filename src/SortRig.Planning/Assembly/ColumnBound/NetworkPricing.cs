@@ -28,13 +28,18 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// </summary>
 internal sealed class NetworkPricing : IColumnPricing
 {
-    /// <summary>Most positions priced this way (the prefix is enumerated: the divider has 3, the amplifiers 4).</summary>
-    public const int MaxPositions = 4;
+    /// <summary>Most positions priced this way: the prefix is enumerated, so a 4-position recipe (the amplifiers) has
+    /// |R1| × |R2| × |R3| prefixes, about 10^8 on a 1 000-part reel, which the vertex test hardly prunes (docs/planning.md).
+    /// </summary>
+    public const int MaxPositions = 3;
 
     private const double Slack = 1 + 1e-9;
 
     /// <summary>Options judged per leaf and pricing before the leaf's minimum is replaced by a lower bound.</summary>
     private const int Tries = 48;
+
+    /// <summary>Leaves judged in full per pricing only to find columns (not to lower the minimum).</summary>
+    private const int MaxScans = 40;
     private readonly RecipeNetwork _network;
     private readonly NetworkRule _rule;
     private readonly int[] _order;
@@ -42,6 +47,9 @@ internal sealed class NetworkPricing : IColumnPricing
     private readonly double[][] _values;
     private readonly List<int[]> _leaves = [];
     private readonly Dictionary<int, int[]> _feasible = [];
+
+    // Verdicts of the real rule per (leaf, option), kept across pricing rounds (they do not depend on the duals).
+    private readonly Dictionary<long, bool> _judged = [];
     private readonly double[] _tolerance;
     private readonly int _last;
     private readonly int _maxLeaves;
@@ -222,6 +230,7 @@ internal sealed class NetworkPricing : IColumnPricing
         Span<double> max = stackalloc double[outputs];
         min.Fill(double.PositiveInfinity);
         max.Fill(double.NegativeInfinity);
+        Span<double> e = stackalloc double[outputs];
         var x = new double[lo.Length];
         for (var vertex = 0; vertex < 1 << free.Length; vertex++)
         {
@@ -231,11 +240,11 @@ internal sealed class NetworkPricing : IColumnPricing
                 x[free[f]] = (vertex >> f & 1) == 1 ? hi[free[f]] : lo[free[f]];
             }
 
-            var e = _network.Evaluate(x);
+            _network.Errors(x, e);
             for (var o = 0; o < outputs; o++)
             {
-                min[o] = Math.Min(min[o], e[o].Error);
-                max[o] = Math.Max(max[o], e[o].Error);
+                min[o] = Math.Min(min[o], e[o]);
+                max[o] = Math.Max(max[o], e[o]);
             }
         }
 
@@ -356,9 +365,10 @@ internal sealed class NetworkPricing : IColumnPricing
     {
         var saved = x[_last];
         x[_last] = last;
-        var e = _network.Evaluate(x);
+        var e = new double[_tolerance.Length];
+        _network.Errors(x, e);
         x[_last] = saved;
-        return [.. e.Select(v => v.Error)];
+        return e;
     }
 
     public PricingResult Price(ReadOnlySpan<double> duals, int maxColumns, Func<bool> stop)
@@ -389,12 +399,15 @@ internal sealed class NetworkPricing : IColumnPricing
         lower.Sort((p, q) => p.Bound.CompareTo(q.Bound));
         var min = double.PositiveInfinity;
         var found = new List<(double Cost, int[] Parts)>();
+        var scans = 0;
         for (var i = 0; i < lower.Count; i++)
         {
             var (bound, prefix, l) = lower[i];
-            if (bound >= min && bound >= 1 - 1e-9)
+            if (bound >= min && (bound >= 1 - 1e-9 || found.Count >= maxColumns))
             {
-                break; // every later leaf costs at least this: neither the minimum nor a column can come from it
+                // Every later leaf costs at least this: the minimum cannot fall, and no column can come from it or
+                // enough are held.
+                break;
             }
 
             if ((i & 255) == 0 && stop())
@@ -402,7 +415,11 @@ internal sealed class NetworkPricing : IColumnPricing
                 return new PricingResult(double.NaN, []);
             }
 
-            var (leafMin, set) = LeafMin(table, l, prefix, duals);
+            // A leaf is judged in full (cached) only when it could lower the minimum, or, a few per round, when
+            // columns are still wanted; otherwise its cheapest untried option stands as a lower bound.
+            var mayScan = bound < min || (found.Count < maxColumns && scans < MaxScans);
+            var (leafMin, set, scanned) = LeafMin(table, l, prefix, duals, mayScan);
+            scans += scanned ? 1 : 0;
             min = Math.Min(min, leafMin);
             if (set is not null && leafMin < 1 - 1e-9 && found.Count < 4 * maxColumns)
             {
@@ -436,7 +453,13 @@ internal sealed class NetworkPricing : IColumnPricing
     /// the options of its interval in increasing cost; after <see cref="Tries"/> options judged, a lower bound (the
     /// cost of the cheapest option not yet judged) and no set.
     /// </summary>
-    private (double Min, int[]? Set) LeafMin(RangeMin table, int leafIndex, double prefix, ReadOnlySpan<double> duals)
+    private (double Min, int[]? Set, bool Scanned) LeafMin(
+        RangeMin table,
+        int leafIndex,
+        double prefix,
+        ReadOnlySpan<double> duals,
+        bool mayScan
+    )
     {
         var leaf = _leaves[leafIndex];
         if (_feasible.ContainsKey(leafIndex))
@@ -447,7 +470,8 @@ internal sealed class NetworkPricing : IColumnPricing
                 f[_order[d]] = _options[_order[d]][leaf[d]];
             }
 
-            return Scanned(leafIndex, prefix, duals, f);
+            var (m, set) = Scanned(leafIndex, prefix, duals, f);
+            return (m, set, false);
         }
 
         var last = _options[_last];
@@ -477,13 +501,26 @@ internal sealed class NetworkPricing : IColumnPricing
             {
                 if (tries++ == Tries)
                 {
-                    return Scanned(leafIndex, prefix, duals, fills);
+                    if (!mayScan)
+                    {
+                        return (prefix + cost, null, false);
+                    }
+
+                    var (m, set) = Scanned(leafIndex, prefix, duals, fills);
+                    return (m, set, true);
                 }
 
                 fills[_last] = o;
-                if (_rule.Judge(fills).Meets)
+                var key = ((long)leafIndex << 32) | (uint)r.At;
+                if (!_judged.TryGetValue(key, out var meets))
                 {
-                    return (prefix + cost, [.. fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A])]);
+                    meets = _rule.Judge(fills).Meets;
+                    _judged[key] = meets;
+                }
+
+                if (meets)
+                {
+                    return (prefix + cost, [.. fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A])], false);
                 }
             }
 
@@ -491,7 +528,7 @@ internal sealed class NetworkPricing : IColumnPricing
             Push(r.At + 1, r.B);
         }
 
-        return (double.PositiveInfinity, null);
+        return (double.PositiveInfinity, null, false);
     }
 
     // Every option of the leaf's interval judged once (dual-independent, cached): the exact minimum over the leaf's
