@@ -20,7 +20,7 @@ internal static class ColumnBoundProbe
     {
         foreach (
             var (file, recipe) in recipes.Where(r =>
-                (r.Recipe.Form == RecipeForm.Matched || r.Recipe.Positions.Count <= NetworkPricing.MaxPositions)
+                (r.Recipe.Form == RecipeForm.Matched || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions)
                 && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
             )
         )

@@ -6,7 +6,7 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
 /// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
-/// <see cref="NetworkPricing.MaxPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
+/// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
 /// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
 /// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
 /// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
@@ -22,8 +22,17 @@ internal static class ColumnBoundStep
     /// form); above it only the matched form is priced.</summary>
     public const int EnumerateParts = 40;
 
+    /// <summary>
+    /// Most positions of a network recipe the column LP runs on above <see cref="EnumerateParts"/> parts: the pricing
+    /// enumerates every prefix of all positions but one, and with 4 positions (the amplifiers) that is
+    /// |R1| × |R2| × |R3|, about 10^8 on a 1 000-part reel, which the box test hardly prunes (their common-mode spec
+    /// couples R1/R2 with R3/R4, and a box of ±1 % on R3, R4 lets every R1, R2 pass); the build did not finish within
+    /// 5 min there (docs/planning.md).
+    /// </summary>
+    public const int MaxNetworkPositions = 3;
+
     /// <summary>Largest number of usable parts of a network recipe of at most
-    /// <see cref="NetworkPricing.MaxPositions"/> positions the column bound runs on (<see cref="NetworkPricing"/>).
+    /// <see cref="MaxNetworkPositions"/> positions the column bound runs on (<see cref="NetworkPricing"/>).
     /// </summary>
     public const int MaxNetworkParts = 1_500;
 
@@ -40,7 +49,7 @@ internal static class ColumnBoundStep
         recipe.Form == RecipeForm.Network
         && usable > EnumerateParts
         && usable <= MaxNetworkParts
-        && recipe.Positions.Count <= NetworkPricing.MaxPositions
+        && recipe.Positions.Count <= MaxNetworkPositions
             ? 0.5
             : 0.3;
 
@@ -60,7 +69,7 @@ internal static class ColumnBoundStep
             || (
                 recipe.Form != RecipeForm.Matched
                 && usable.Count > EnumerateParts
-                && (usable.Count > MaxNetworkParts || recipe.Positions.Count > NetworkPricing.MaxPositions)
+                && (usable.Count > MaxNetworkParts || recipe.Positions.Count > MaxNetworkPositions)
             )
             || stop()
         )

@@ -28,10 +28,9 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// </summary>
 internal sealed class NetworkPricing : IColumnPricing
 {
-    /// <summary>Most positions priced this way: the prefix is enumerated, so a 4-position recipe (the amplifiers) has
-    /// |R1| × |R2| × |R3| prefixes, about 10^8 on a 1 000-part reel, which the vertex test hardly prunes (docs/planning.md).
-    /// </summary>
-    public const int MaxPositions = 3;
+    /// <summary>Most positions priced this way (the prefix is enumerated; see
+    /// <see cref="ColumnBoundStep.MaxNetworkPositions"/> for what the assembler uses at reel scale).</summary>
+    public const int MaxPositions = 4;
 
     private const double Slack = 1 + 1e-9;
 
