@@ -6,9 +6,9 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Bench.Planning;
 
 /// <summary>
-/// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes and of the network
-/// recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions (up to 120 s each, or COLSECONDS;
-/// COLONLY=name for one recipe; from the sweep's sets), beside the part-count bound; not written to docs.
+/// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes and of the
+/// network recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions (up to 120 s each, or
+/// COLSECONDS; COLONLY=name for one recipe; from the sweep's sets), beside the part-count bound; not written to docs.
 /// </summary>
 internal static class ColumnBoundProbe
 {

@@ -58,7 +58,8 @@ internal sealed class RecipeNetwork
     private double RatioError(MnaFactor f, VoltageRatioSpec s, double t)
     {
         var x = f.Solve(s.Drive);
-        var y = (_system.Probe(s.Numerator.Plus, s.Numerator.Minus) * x)
+        var y =
+            (_system.Probe(s.Numerator.Plus, s.Numerator.Minus) * x)
             / (_system.Probe(s.Denominator.Plus, s.Denominator.Minus) * x);
         return (y - t) * 1e6 / Math.Abs(t);
     }

@@ -8,10 +8,10 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
 /// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
 /// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
-/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
-/// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
-/// no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best bound
-/// proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the
+/// ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing
+/// finds no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best
+/// bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {

@@ -5,11 +5,12 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 
 /// <summary>
 /// Pricing of the column bound for network recipes of few positions at reel scale, exact over a family that holds
-/// every feasible set: the <b>relaxed family</b> of assignments (one option per position, single or pair, no part twice)
-/// whose every output error at the parts' measured values is within its tolerance, uncertainty dropped. A feasible set
-/// is in it, because the real rule adds Σ_k |∂error/∂R_k| U_k ≥ 0 to |error| (docs/planning.md); so the minimum over
-/// the family is at most the minimum over the feasible sets, and Σ y / min is a proven bound (LP duality; Farley 1990,
-/// from memory). Columns handed to the master are judged by the real rule (<see cref="NetworkRule"/>) first.
+/// every feasible set: the <b>relaxed family</b> of assignments (one option per position, single or pair, no part
+/// twice) whose every output error at the parts' measured values is within its tolerance, uncertainty dropped. A
+/// feasible set is in it, because the real rule adds Σ_k |∂error/∂R_k| U_k ≥ 0 to |error| (docs/planning.md); so the
+/// minimum over the family is at most the minimum over the feasible sets, and Σ y / min is a proven bound (LP duality;
+/// Farley 1990, from memory). Columns handed to the master are judged by the real rule (<see cref="NetworkRule"/>)
+/// first.
 /// <para>
 /// Structure. One position, the one with the most options (the divider's R3 with its parallel pairs), is the
 /// <i>last</i>; the others form the prefix. The prefix is enumerated depth first; a prefix value is kept only when
@@ -250,7 +251,11 @@ internal sealed class NetworkPricing : IColumnPricing
         for (var o = 0; o < outputs; o++)
         {
             // A non-finite error (a singular vertex) keeps the box: the family may only grow.
-            if (double.IsFinite(min[o]) && double.IsFinite(max[o]) && !(min[o] <= _tolerance[o] && max[o] >= -_tolerance[o]))
+            if (
+                double.IsFinite(min[o])
+                && double.IsFinite(max[o])
+                && !(min[o] <= _tolerance[o] && max[o] >= -_tolerance[o])
+            )
             {
                 return false;
             }

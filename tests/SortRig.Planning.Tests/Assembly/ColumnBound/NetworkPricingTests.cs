@@ -88,10 +88,7 @@ public sealed class NetworkPricingTests
         {
             // Only when some position has no part at all (then no set exists).
             Assert.Empty(exact.Sets);
-            Assert.Contains(
-                recipe.Positions,
-                p => !usable.Any(u => CandidatePool.Wanted(p, u.Nominal, Defaults))
-            );
+            Assert.Contains(recipe.Positions, p => !usable.Any(u => CandidatePool.Wanted(p, u.Nominal, Defaults)));
             return;
         }
 
