@@ -42,8 +42,8 @@ internal static class ColumnBoundStep
     /// <summary>
     /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.5 for a network recipe
     /// priced by <see cref="NetworkPricing"/> (above <see cref="EnumerateParts"/> parts), whose bound is proven only
-    /// once the LP converges (the pricing's minimum stays 0 until then) and which needs about 3–9 s on a loaded
-    /// 1 000-part divider reel (docs/planning.md).
+    /// once the LP converges (the pricing's minimum stays 0 until then) and which needs about 3–8 s on a
+    /// 1 000-part divider reel (docs/planning.md); 0.7 was tried and did not bring the normal reel within it.
     /// </summary>
     public static double TimeShare(Recipe recipe, int usable) =>
         recipe.Form == RecipeForm.Network

@@ -36,7 +36,7 @@ internal sealed class NetworkPricing : IColumnPricing
     private const double Slack = 1 + 1e-9;
 
     /// <summary>Options judged per leaf and pricing before the leaf's minimum is replaced by a lower bound.</summary>
-    private const int Tries = 48;
+    private const int Tries = 200;
 
     /// <summary>Leaves judged in full per pricing only to find columns (not to lower the minimum).</summary>
     private const int MaxScans = 40;
