@@ -134,8 +134,8 @@ public sealed class SetAssembler(
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
             _time.GetElapsedTime(started) > filterBudget
         );
-        // The column LP may take up to three tenths of the time limit, half for a network at reel scale (anytime;
-        // skipped when it cannot help).
+        // The column LP may take up to three tenths of the time limit, seven tenths for a network at reel scale
+        // (anytime; skipped when it cannot help).
         var share = ColumnBound.ColumnBoundStep.TimeShare(recipe, pool.Usable.Count);
         (bound, boundName) = ColumnBound.ColumnBoundStep.Tighten(
             recipe,

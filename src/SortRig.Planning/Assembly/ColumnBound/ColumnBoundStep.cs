@@ -40,17 +40,18 @@ internal static class ColumnBoundStep
     public const int GridSteps = 32;
 
     /// <summary>
-    /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.5 for a network recipe
+    /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.7 for a network recipe
     /// priced by <see cref="NetworkPricing"/> (above <see cref="EnumerateParts"/> parts), whose bound is proven only
-    /// once the LP converges (the pricing's minimum stays 0 until then) and which needs about 3–8 s on a
-    /// 1 000-part divider reel (docs/planning.md); 0.7 was tried and did not bring the normal reel within it.
+    /// once the LP converges (the pricing's minimum stays 0 until then): on the 1 000-part divider reels it needs about
+    /// 2–4.5 s after the sweep and the part filter, and with 0.5 the normal reel did not converge in the benchmark,
+    /// while the search still found as many sets in the time left (docs/planning.md).
     /// </summary>
     public static double TimeShare(Recipe recipe, int usable) =>
         recipe.Form == RecipeForm.Network
         && usable > EnumerateParts
         && usable <= MaxNetworkParts
         && recipe.Positions.Count <= MaxNetworkPositions
-            ? 0.5
+            ? 0.7
             : 0.3;
 
     public static (int Bound, string Name) Tighten(

@@ -488,12 +488,15 @@ internal sealed class NetworkPricing : IColumnPricing
         }
 
         var heap = new PriorityQueue<(int A, int B, int At), double>();
+        // A sub-range's middle option when it ties with the sub-range's minimum (zero duals tie often): options near
+        // the middle of a leaf's interval meet the specs with their uncertainty more often than those at its edges.
         void Push(int a, int b)
         {
             if (a <= b)
             {
                 var at = table.ArgMin(a, b);
-                heap.Enqueue((a, b, at), table.Values[at]);
+                var mid = (a + b) / 2;
+                heap.Enqueue((a, b, table.Values[mid] <= table.Values[at] ? mid : at), table.Values[at]);
             }
         }
 
