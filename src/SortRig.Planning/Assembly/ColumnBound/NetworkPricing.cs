@@ -4,13 +4,14 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Planning.Assembly.ColumnBound;
 
 /// <summary>
-/// Pricing of the column bound for network recipes of few positions at reel scale, exact over a family that holds
-/// every feasible set: the <b>relaxed family</b> of assignments (one option per position, single or pair, no part
-/// twice) whose every output error at the parts' measured values is within its tolerance, uncertainty dropped. A
-/// feasible set is in it, because the real rule adds Σ_k |∂error/∂R_k| U_k ≥ 0 to |error| (docs/planning.md); so the
-/// minimum over the family is at most the minimum over the feasible sets, and Σ y / min is a proven bound (LP duality;
-/// Farley 1990, from memory). Columns handed to the master are judged by the real rule (<see cref="NetworkRule"/>)
-/// first.
+/// Pricing of the column bound for network recipes of few positions at reel scale, exact over the feasible sets (or a
+/// proven lower bound on their minimum). The search runs within the <b>relaxed family</b> of assignments (one option
+/// per position, single or pair, no part twice) whose every output error at the parts' measured values is within its
+/// tolerance, uncertainty dropped: every feasible set is in it, because the real rule adds Σ_k |∂error/∂R_k| U_k ≥ 0
+/// to |error| (docs/planning.md). Within it, members are judged by the real rule (<see cref="NetworkRule"/>) in
+/// increasing cost, so the first that meets every spec gives a leaf's exact minimum over feasible sets and a column;
+/// a leaf cut short reports the cost of its cheapest member not judged, a lower bound. Then Σ y / min is a proven
+/// bound (LP duality; Farley 1990, from memory).
 /// <para>
 /// Structure. One position, the one with the most options (the divider's R3 with its parallel pairs), is the
 /// <i>last</i>; the others form the prefix. The prefix is enumerated depth first; a prefix value is kept only when
@@ -23,7 +24,7 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// with that prefix are exactly the options in the intersection of those intervals. These (prefix, interval) leaves do
 /// not depend on the duals and are built once; each pricing is then, per leaf, the prefix's cost plus the cheapest
 /// option of the interval not sharing a part with the prefix (a sparse table for range minima, split around an option
-/// that shares a part), so the minimum over the family is exact.
+/// that shares a part) as a lower bound, leaves in its order, and the options of a leaf by a heap over sub-ranges.
 /// </para>
 /// Comparisons are widened by 1e-9 of the tolerance so that rounding can only add members to the family.
 /// </summary>
@@ -75,8 +76,8 @@ internal sealed class NetworkPricing : IColumnPricing
     }
 
     public string Family =>
-        "assignments meeting every output at the measured values (uncertainty dropped), a superset of the feasible "
-        + "sets, priced exactly by interval search";
+        "every feasible set (the real rule), searched by interval within the assignments meeting every output at "
+        + "the measured values";
 
     /// <summary>Leaves (prefix assignments with a non-empty interval of the last position).</summary>
     public int Leaves => _leaves.Count;
