@@ -6,16 +6,22 @@ using SortRig.Planning.Recipes;
 namespace SortRig.Bench.Planning;
 
 /// <summary>
-/// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes (up to 120 s
-/// each, from the sweep's sets), beside the part-count bound; not written to docs.
+/// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes and of the
+/// network recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions (up to 120 s each, or
+/// COLSECONDS; COLONLY=name for one recipe; from the sweep's sets), beside the part-count bound; not written to docs.
 /// </summary>
 internal static class ColumnBoundProbe
 {
+    private static readonly double s_limit = double.Parse(
+        Environment.GetEnvironmentVariable("COLSECONDS") ?? "120",
+        System.Globalization.CultureInfo.InvariantCulture
+    );
+
     public static void Run(IReadOnlyList<(string File, Recipe Recipe)> recipes, int gridSteps, int size)
     {
         foreach (
             var (file, recipe) in recipes.Where(r =>
-                r.Recipe.Form == RecipeForm.Matched
+                (r.Recipe.Form == RecipeForm.Matched || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions)
                 && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
             )
         )
@@ -27,7 +33,7 @@ internal static class ColumnBoundProbe
                 var parts = ReelBench.Draw(recipe, devs, 1);
                 var options = new AssemblyOptions();
                 var pool = new CandidatePool(recipe, parts, options, withPairs: false);
-                var rule = new MatchedRule(recipe);
+                ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
                 var count = PartCountBound.Compute(recipe, pool.Usable, rule, options);
                 var sw = Stopwatch.StartNew();
                 var found = new SetAssembler(new AssemblyOptions(neighbourhoodParts: 0))
@@ -35,12 +41,21 @@ internal static class ColumnBoundProbe
                     .Sets.Count;
                 sw.Restart();
                 var swept = new SweepPlanner(recipe, pool, rule, options).Run();
+                if (recipe.Form == RecipeForm.Network)
+                {
+                    var built = NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false);
+                    Console.WriteLine(
+                        $"{file} {shape}: pricing built in {sw.Elapsed.TotalSeconds:0.00} s, {built?.Leaves} leaves"
+                    );
+                    sw.Restart();
+                }
+
                 var r = ColumnBoundStep.Run(
                     recipe,
                     pool.Usable,
                     options,
                     swept,
-                    () => sw.Elapsed > TimeSpan.FromSeconds(120),
+                    () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
                     gridSteps
                 );
                 Console.WriteLine(

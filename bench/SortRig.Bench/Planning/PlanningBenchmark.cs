@@ -200,7 +200,12 @@ internal static class PlanningBenchmark
                 + "part in a pair",
             "gives half a fill; docs/planning.md); for the matched form parts that fit no common window are not "
                 + "counted, for networks",
-            "of at most 7 positions parts that no set within the reel's range can hold. Time includes the bound; a "
+            "of at most 7 positions parts that no set within the reel's range can hold. 'column LP' = the set-packing "
+                + "LP over every",
+            "feasible set by column generation, shown where it converged within its share of the time limit and beat "
+                + "the part count",
+            "(3-position networks such as the divider: seven tenths of the limit; docs/planning.md). Time includes "
+                + "the bound; a "
                 + "search that stops",
             "at the time limit shows about 10 s.",
             "",

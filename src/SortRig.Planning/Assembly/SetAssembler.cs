@@ -134,14 +134,16 @@ public sealed class SetAssembler(
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
             _time.GetElapsedTime(started) > filterBudget
         );
-        // The column LP may take up to three tenths of the time limit (anytime; skipped when it cannot help).
+        // The column LP may take up to three tenths of the time limit, seven tenths for a network at reel scale
+        // (anytime; skipped when it cannot help).
+        var share = ColumnBound.ColumnBoundStep.TimeShare(recipe, pool.Usable.Count);
         (bound, boundName) = ColumnBound.ColumnBoundStep.Tighten(
             recipe,
             pool.Usable,
             _options,
             found,
             (bound, boundName),
-            () => _time.GetElapsedTime(started) > _options.TimeLimit * 0.3
+            () => _time.GetElapsedTime(started) > _options.TimeLimit * share
         );
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
         var method = AssemblyMethod.Sweep;

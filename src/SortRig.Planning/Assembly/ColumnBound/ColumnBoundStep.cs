@@ -5,23 +5,54 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// <summary>
 /// Tightens the assembler's proven bound with the column LP (<see cref="ColumnBoundSolver"/>) where it can help and
 /// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
-/// matched form (exact pricing, <see cref="MatchedPricing"/>); the part-count bound above the sets found; at most
-/// <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the ratio
-/// set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing finds
-/// no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best bound
-/// proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
+/// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
+/// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
+/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the
+/// ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing
+/// finds no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best
+/// bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
-    /// <summary>Largest number of usable parts the column bound runs on.</summary>
+    /// <summary>Largest number of usable parts the column bound runs on for the matched form.</summary>
     public const int MaxParts = 400;
 
     /// <summary>Up to this many usable parts every feasible set is enumerated (<see cref="EnumeratedPricing"/>, any
     /// form); above it only the matched form is priced.</summary>
     public const int EnumerateParts = 40;
 
+    /// <summary>
+    /// Most positions of a network recipe the column LP runs on above <see cref="EnumerateParts"/> parts: the pricing
+    /// enumerates every prefix of all positions but one, and with 4 positions (the amplifiers) that is
+    /// |R1| × |R2| × |R3|, about 10^8 on a 1 000-part reel, which the box test hardly prunes (their common-mode spec
+    /// couples R1/R2 with R3/R4, and a box of ±1 % on R3, R4 lets every R1, R2 pass); the build did not finish within
+    /// 5 min there (docs/planning.md).
+    /// </summary>
+    public const int MaxNetworkPositions = 3;
+
+    /// <summary>Largest number of usable parts of a network recipe of at most
+    /// <see cref="MaxNetworkPositions"/> positions the column bound runs on (<see cref="NetworkPricing"/>).
+    /// </summary>
+    public const int MaxNetworkParts = 1_500;
+
     /// <summary>Grid steps per match window of the pricing sweep (the family is widened by 1/GridSteps).</summary>
     public const int GridSteps = 32;
+
+    /// <summary>
+    /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.7 for a network recipe
+    /// priced by <see cref="NetworkPricing"/> (above <see cref="EnumerateParts"/> parts), whose bound is proven only
+    /// once the LP converges (the pricing's minimum stays 0 until then): on the 1 000-part divider reels it needs about
+    /// 2–4.5 s after the sweep and the part filter, and with 0.5 the normal reel did not converge in the benchmark,
+    /// while the search still found as many sets in the time left (docs/planning.md).
+    /// </summary>
+    public static double TimeShare(Recipe recipe, int usable) =>
+        recipe.Form == RecipeForm.Network
+        && usable > EnumerateParts
+        && usable <= MaxNetworkParts
+        && recipe.Positions.Count <= MaxNetworkPositions
+            ? 0.7
+            : 0.3;
 
     public static (int Bound, string Name) Tighten(
         Recipe recipe,
@@ -34,9 +65,13 @@ internal static class ColumnBoundStep
     {
         if (
             current.Bound <= found.Count
-            || usable.Count > MaxParts
             || usable.Count == 0
-            || (recipe.Form != RecipeForm.Matched && usable.Count > EnumerateParts)
+            || (recipe.Form == RecipeForm.Matched && usable.Count > MaxParts)
+            || (
+                recipe.Form != RecipeForm.Matched
+                && usable.Count > EnumerateParts
+                && (usable.Count > MaxNetworkParts || recipe.Positions.Count > MaxNetworkPositions)
+            )
             || stop()
         )
         {
@@ -71,13 +106,17 @@ internal static class ColumnBoundStep
         ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
         IColumnPricing? pricing =
             usable.Count <= enumerateParts ? EnumeratedPricing.TryCreate(recipe, usable, rule, options) : null;
-        pricing ??= recipe.Form == RecipeForm.Matched ? new MatchedPricing(recipe, usable, options, gridSteps) : null;
+        pricing ??=
+            recipe.Form == RecipeForm.Matched
+                ? new MatchedPricing(recipe, usable, options, gridSteps)
+                : NetworkPricing.TryCreate(recipe, usable, options, stop);
         if (pricing is null)
         {
             return null;
         }
 
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
-        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop);
+        // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
+        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
     }
 }

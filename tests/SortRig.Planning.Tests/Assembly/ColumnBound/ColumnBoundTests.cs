@@ -136,7 +136,7 @@ public sealed class ColumnBoundTests
     }
 
     // y ≥ 0 and Σ_{i∈S} y_i ≥ m for every block S of the usable parts the brute force can arrange into a set.
-    private static void AssertDualFeasible(
+    internal static void AssertDualFeasible(
         Recipe recipe,
         IReadOnlyList<PartCandidate> usable,
         BruteForce.Judge judge,
