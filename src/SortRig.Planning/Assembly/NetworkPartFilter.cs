@@ -35,6 +35,9 @@ internal sealed class NetworkPartFilter
     public const int MaxPositions = 7;
     private const int Rounds = 6;
     private readonly RecipeNetwork _network;
+
+    // Each output's tolerance widened by 1e-9 of itself, so that rounding can only keep parts.
+    private readonly double[] _tolerance;
     private readonly (double Value, int Part)[][] _singles;
     private readonly bool[] _pairs;
     private readonly double[] _pairLo;
@@ -51,6 +54,8 @@ internal sealed class NetworkPartFilter
     )
     {
         _network = rule.Network;
+        var nominal = recipe.Positions.Select(p => p.Nominal).ToArray();
+        _tolerance = [.. _network.Evaluate(nominal).Select(o => o.Tolerance * (1 + 1e-9))];
         _usable = usable;
         _classOf = geo.ClassOf;
         var n = recipe.Positions.Count;
@@ -190,55 +195,19 @@ internal sealed class NetworkPartFilter
     }
 
     // Does some point of the box, with position l (if ≥ 0) at v, bring every output's error within its tolerance
-    // (each output on its own)? Decided at the vertices (see the class comment).
+    // (each output on its own)? Decided at the vertices (BoxVertices).
     private bool Meets(double[] lo, double[] hi, int l, double v)
     {
-        var free = Enumerable.Range(0, lo.Length).Where(i => i != l && lo[i] < hi[i]).ToArray();
-        var outputs = _network.Outputs.Count;
-        var min = Enumerable.Repeat(double.PositiveInfinity, outputs).ToArray();
-        var max = Enumerable.Repeat(double.NegativeInfinity, outputs).ToArray();
-        var tolerance = new double[outputs];
-        var x = new double[lo.Length];
-        for (var vertex = 0; vertex < 1 << free.Length; vertex++)
+        if (l < 0)
         {
-            for (var i = 0; i < x.Length; i++)
-            {
-                x[i] = lo[i];
-            }
-
-            for (var f = 0; f < free.Length; f++)
-            {
-                x[free[f]] = (vertex >> f & 1) == 1 ? hi[free[f]] : lo[free[f]];
-            }
-
-            if (l >= 0)
-            {
-                x[l] = v;
-            }
-
-            var result = _network.Evaluate(x);
-            for (var o = 0; o < outputs; o++)
-            {
-                min[o] = Math.Min(min[o], result[o].Error);
-                max[o] = Math.Max(max[o], result[o].Error);
-                tolerance[o] = result[o].Tolerance;
-            }
+            return BoxVertices.CanMeet(_network, lo, hi, _tolerance);
         }
 
-        for (var o = 0; o < outputs; o++)
-        {
-            var slack = tolerance[o] * (1 + 1e-9);
-            if (!(min[o] <= slack && max[o] >= -slack))
-            {
-                // NaN (a singular vertex) keeps the part: the comparison above is false only for finite misses.
-                if (double.IsFinite(min[o]) && double.IsFinite(max[o]))
-                {
-                    return false;
-                }
-            }
-        }
-
-        return true;
+        var fixedLo = (double[])lo.Clone();
+        var fixedHi = (double[])hi.Clone();
+        fixedLo[l] = v;
+        fixedHi[l] = v;
+        return BoxVertices.CanMeet(_network, fixedLo, fixedHi, _tolerance);
     }
 
     private static int LowerIndex((double Value, int Part)[] sorted, double x)

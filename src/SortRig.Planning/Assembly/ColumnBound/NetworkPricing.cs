@@ -182,7 +182,7 @@ internal sealed class NetworkPricing : IColumnPricing
             }
 
             (lo[k], hi[k]) = (o.Value, o.Value);
-            if (!BoxMeets(lo, hi))
+            if (!BoxVertices.CanMeet(_network, lo, hi, _tolerance))
             {
                 continue;
             }
@@ -223,48 +223,6 @@ internal sealed class NetworkPricing : IColumnPricing
     }
 
     // Can some point of the box meet every output, each on its own? Exact at the vertices (class comment).
-    private bool BoxMeets(double[] lo, double[] hi)
-    {
-        var free = Enumerable.Range(0, lo.Length).Where(i => lo[i] < hi[i]).ToArray();
-        var outputs = _tolerance.Length;
-        Span<double> min = stackalloc double[outputs];
-        Span<double> max = stackalloc double[outputs];
-        min.Fill(double.PositiveInfinity);
-        max.Fill(double.NegativeInfinity);
-        Span<double> e = stackalloc double[outputs];
-        var x = new double[lo.Length];
-        for (var vertex = 0; vertex < 1 << free.Length; vertex++)
-        {
-            Array.Copy(lo, x, x.Length);
-            for (var f = 0; f < free.Length; f++)
-            {
-                x[free[f]] = (vertex >> f & 1) == 1 ? hi[free[f]] : lo[free[f]];
-            }
-
-            _network.Errors(x, e);
-            for (var o = 0; o < outputs; o++)
-            {
-                min[o] = Math.Min(min[o], e[o]);
-                max[o] = Math.Max(max[o], e[o]);
-            }
-        }
-
-        for (var o = 0; o < outputs; o++)
-        {
-            // A non-finite error (a singular vertex) keeps the box: the family may only grow.
-            if (
-                double.IsFinite(min[o])
-                && double.IsFinite(max[o])
-                && !(min[o] <= _tolerance[o] && max[o] >= -_tolerance[o])
-            )
-            {
-                return false;
-            }
-        }
-
-        return true;
-    }
-
     // With every prefix position fixed in x, the indices [a, b] of the last position's options meeting every output.
     private (int A, int B) LastInterval(double[] x)
     {
