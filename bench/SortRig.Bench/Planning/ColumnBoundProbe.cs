@@ -67,6 +67,69 @@ internal static class ColumnBoundProbe
                             + $"converged {r?.Converged}) in {sw.Elapsed.TotalSeconds:0.00} s, grid 1/{gridSteps}"
                     )
                 );
+                if (r is not null)
+                {
+                    var tightPool = r.Pool.Where(c => c.Sum(i => r.Duals[i]) / r.MinSetCost <= 1 + 1e-6).ToList();
+                    var t0 = Stopwatch.StartNew();
+                    var (packed, how) = SortRig.Planning.Assembly.Packing.PoolPacker.Improve(
+                        recipe,
+                        pool.Usable,
+                        rule,
+                        options,
+                        r,
+                        swept,
+                        r.Bound,
+                        () => t0.Elapsed > TimeSpan.FromSeconds(30)
+                    );
+                    Console.WriteLine(
+                        $"  pool packing: {packed.Count} sets from {r.Pool.Count} columns (sweep {swept.Count}), "
+                            + $"{how} in {t0.Elapsed.TotalSeconds:0.00} s"
+                    );
+                    foreach (
+                        var (label, cols, exact) in new[]
+                        {
+                            ("pool", r.Pool, false),
+                            ("tight+cover", (IReadOnlyList<int[]>)tightPool, true),
+                        }
+                    )
+                    {
+                        foreach (var secs in new[] { 2, 5 })
+                        {
+                            var model = new Google.OrTools.Sat.CpModel();
+                            var x = cols.Select((_, j) => model.NewBoolVar($"c{j}")).ToArray();
+                            var byPart = new List<Google.OrTools.Sat.ILiteral>[pool.Usable.Count];
+                            for (var j = 0; j < cols.Count; j++)
+                            {
+                                foreach (var i in cols[j])
+                                {
+                                    (byPart[i] ??= []).Add(x[j]);
+                                }
+                            }
+
+                            for (var i = 0; i < byPart.Length; i++)
+                            {
+                                if (byPart[i] is not { } lits)
+                                    continue;
+                                if (exact && r.Duals[i] > 1e-9)
+                                    model.AddExactlyOne(lits);
+                                else if (lits.Count > 1)
+                                    model.AddAtMostOne(lits);
+                            }
+
+                            model.Maximize(Google.OrTools.Sat.LinearExpr.Sum(x));
+                            var solver = new Google.OrTools.Sat.CpSolver
+                            {
+                                StringParameters = $"num_workers:2,max_time_in_seconds:{secs}",
+                            };
+                            var t = Stopwatch.StartNew();
+                            var status = solver.Solve(model);
+                            Console.WriteLine(
+                                $"  CP-SAT {label} {cols.Count} columns, {secs} s: {status} {solver.ObjectiveValue} "
+                                    + $"(bound {solver.BestObjectiveBound}) in {t.Elapsed.TotalSeconds:0.00} s"
+                            );
+                        }
+                    }
+                }
             }
         }
     }

@@ -44,6 +44,11 @@ public enum AssemblyMethod
     /// <summary>The sweep, then single-part swap/repair moves between sets and leftovers that free room for new sets,
     /// for recipes whose sets do not fit the neighbourhood window (see docs/planning.md).</summary>
     SweepAndRepair,
+
+    /// <summary>The sweep, then the column LP's feasible sets packed again: an exact cover at the LP's minimum set
+    /// cost (optimal when it exists), else local search; the neighbourhood search may follow (see
+    /// docs/planning.md).</summary>
+    SweepAndColumnLp,
 }
 
 /// <summary>The sets found for a recipe.</summary>

@@ -137,7 +137,8 @@ public sealed class SetAssembler(
         // The column LP may take up to three tenths of the time limit, seven tenths for a network at reel scale
         // (anytime; skipped when it cannot help).
         var share = ColumnBound.ColumnBoundStep.TimeShare(recipe, pool.Usable.Count);
-        (bound, boundName) = ColumnBound.ColumnBoundStep.Tighten(
+        ColumnBound.ColumnBoundResult? lp;
+        (bound, boundName, lp) = ColumnBound.ColumnBoundStep.Tighten(
             recipe,
             pool.Usable,
             _options,
@@ -145,13 +146,26 @@ public sealed class SetAssembler(
             (bound, boundName),
             () => _time.GetElapsedTime(started) > _options.TimeLimit * share
         );
+        var packed = false;
+        if (lp is { Pool.Count: > 0 } && found.Count < bound)
+        {
+            // The LP's columns packed again, until the bound is met or most of the time is gone.
+            var before = found.Count;
+            (found, var how) = Packing.PoolPacker.Improve(recipe, pool.Usable, rule, _options, lp, found, bound, () =>
+                _time.GetElapsedTime(started) > _options.TimeLimit * PoolShare
+            );
+            note += $"; the column LP's {lp.Pool.Count} sets packed again ({how}): {found.Count} sets (had {before})";
+            packed = found.Count > before;
+        }
+
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
-        var method = AssemblyMethod.Sweep;
-        var tieBreak = "none: the sweep's sets are kept as found";
+        var method = packed ? AssemblyMethod.SweepAndColumnLp : AssemblyMethod.Sweep;
+        var tieBreak = packed ? "none: the packed sets are kept as found" : "none: the sweep's sets are kept as found";
         var search = new NeighbourhoodSearch(recipe, pool.Usable, rule, _options);
         if (found.Count < bound && search.Applies && _options.TimeLimit > TimeSpan.Zero)
         {
             var deadline = _options.TimeLimit;
+            var beforeSearch = found.Count;
             found = search.Improve(
                 found,
                 bound,
@@ -162,7 +176,8 @@ public sealed class SetAssembler(
                     ),
                 cancellationToken
             );
-            method = AssemblyMethod.SweepAndNeighbourhood;
+            // After a packing of the LP's sets the method names the search only when it added sets.
+            method = packed && found.Count == beforeSearch ? method : AssemblyMethod.SweepAndNeighbourhood;
             tieBreak = "smallest sum of set scores within each re-packed neighbourhood (not over the whole plan)";
             var stopped =
                 _time.GetElapsedTime(started) > deadline
@@ -213,6 +228,10 @@ public sealed class SetAssembler(
 
         return Result(recipe, pool, found, method, note, bound, boundName, tieBreak, _time.GetElapsedTime(started));
     }
+
+    /// <summary>Share of the time limit by which packing the column LP's sets again must end (the neighbourhood
+    /// search has the rest).</summary>
+    private const double PoolShare = 0.85;
 
     private const string ExactTieBreak =
         "smallest sum of set scores (worst-case error / tolerance per set) among plans with the most sets";

@@ -72,15 +72,19 @@ public sealed class NeighbourhoodSearchTests
             ))
             .ToList();
 
-        var sweep = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 0)).Assemble(
-            recipe,
-            parts
-        );
+        var options = new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 0);
+        var pool = new CandidatePool(recipe, parts, options, withPairs: false);
+        var sweep = new SweepPlanner(recipe, pool, new NetworkRule(recipe), options).Run();
+        // Without the neighbourhood search the column LP's sets, packed again, reach the optimum too.
+        var packed = new SetAssembler(options).Assemble(recipe, parts);
+        Assert.Equal(AssemblyMethod.SweepAndColumnLp, packed.Method);
+        Assert.Equal(4, packed.Sets.Count);
+        AssemblerRefereeTests.AssertSetsValid(recipe, parts, packed, ThreeLegJudge);
         var search = new SetAssembler(new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 6)).Assemble(
             recipe,
             parts
         );
-        Assert.Equal(3, sweep.Sets.Count);
+        Assert.Equal(3, sweep.Count);
         Assert.Equal(4, search.Sets.Count);
         Assert.Equal(4, search.UpperBound);
         Assert.True(search.ProvenOptimal);

@@ -22,4 +22,12 @@ internal sealed record ColumnBoundResult(
     int Rounds,
     bool Converged,
     string Family
-);
+)
+{
+    /// <summary>Every column of the restricted master at the end: the starting sets and the feasible sets pricing
+    /// found (each judged by the set rule), as part indices; a pool for packing, not part of the proof.</summary>
+    public IReadOnlyList<int[]> Pool { get; init; } = [];
+
+    /// <summary>The restricted master's last primal solution, one value per column of <see cref="Pool"/>.</summary>
+    public double[] PoolValues { get; init; } = [];
+}

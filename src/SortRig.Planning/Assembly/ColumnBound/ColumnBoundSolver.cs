@@ -66,10 +66,18 @@ internal static class ColumnBoundSolver
 
             if (converged || added == 0)
             {
-                return best is null ? null : best with { Rounds = round, Converged = converged };
+                return best is null
+                    ? null
+                    : best with
+                    {
+                        Rounds = round,
+                        Converged = converged,
+                        Pool = master.AllColumns,
+                        PoolValues = master.Primal(),
+                    };
             }
         }
 
-        return best;
+        return best is null ? null : best with { Pool = master.AllColumns, PoolValues = master.Primal() };
     }
 }

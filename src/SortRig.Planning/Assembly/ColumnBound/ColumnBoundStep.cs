@@ -54,7 +54,9 @@ internal static class ColumnBoundStep
             ? 0.7
             : 0.3;
 
-    public static (int Bound, string Name) Tighten(
+    /// <summary>The smaller of <paramref name="current"/> and the column bound, with its name, and the column
+    /// LP's result with its pool of sets (null when it did not run or proved nothing).</summary>
+    public static (int Bound, string Name, ColumnBoundResult? Lp) Tighten(
         Recipe recipe,
         IReadOnlyList<PartCandidate> usable,
         AssemblyOptions options,
@@ -75,7 +77,7 @@ internal static class ColumnBoundStep
             || stop()
         )
         {
-            return current;
+            return (current.Bound, current.Name, null);
         }
 
         var result = Run(recipe, usable, options, found, stop);
@@ -87,9 +89,10 @@ internal static class ColumnBoundStep
                     $"column LP (set packing over {result.Family}; {result.Rounds} pricing round(s), "
                         + $"{result.Columns} columns{(result.Converged ? ", LP optimum" : ", stopped early")}; "
                         + $"LP duality with exact pricing); part count gave {current.Bound}"
-                )
+                ),
+                result
             )
-            : current;
+            : (current.Bound, current.Name, result);
     }
 
     /// <summary>The column bound with its certificate, or null when none was proven in time.</summary>

@@ -38,6 +38,25 @@ internal sealed class ColumnMaster
 
     public int ColumnCount => _columns.Count;
 
+    /// <summary>Every column added so far (sorted part indices).</summary>
+    public IReadOnlyList<int[]> AllColumns => _columns;
+
+    /// <summary>The current primal solution, one value per column of <see cref="AllColumns"/> (0 for a nonbasic
+    /// column).</summary>
+    public double[] Primal()
+    {
+        var x = new double[_columns.Count];
+        for (var r = 0; r < _m; r++)
+        {
+            if (_basis[r] >= 0)
+            {
+                x[_basis[r]] = _xb[r];
+            }
+        }
+
+        return x;
+    }
+
     /// <summary>Master objective Σ x over the basic columns.</summary>
     public double Value
     {
