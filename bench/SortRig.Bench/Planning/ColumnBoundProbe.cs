@@ -7,7 +7,8 @@ namespace SortRig.Bench.Planning;
 
 /// <summary>
 /// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes and of the
-/// network recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions (up to 120 s each, or
+/// network recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions or with two
+/// scale-invariant position pairs (<see cref="RatioPairPricing"/>) (up to 120 s each, or
 /// COLSECONDS; COLONLY=name for one recipe; from the sweep's sets), beside the part-count bound; not written to docs.
 /// </summary>
 internal static class ColumnBoundProbe
@@ -21,7 +22,11 @@ internal static class ColumnBoundProbe
     {
         foreach (
             var (file, recipe) in recipes.Where(r =>
-                (r.Recipe.Form == RecipeForm.Matched || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions)
+                (
+                    r.Recipe.Form == RecipeForm.Matched
+                    || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions
+                    || RatioPairPricing.Applies(r.Recipe)
+                )
                 && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
             )
         )
@@ -43,11 +48,26 @@ internal static class ColumnBoundProbe
                 var swept = new SweepPlanner(recipe, pool, rule, options).Run();
                 if (recipe.Form == RecipeForm.Network)
                 {
-                    var built = NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false);
+                    var leaves = RatioPairPricing.Applies(recipe)
+                        ? RatioPairPricing.TryCreate(recipe, pool.Usable, options, () => false)?.Leaves
+                        : NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false)?.Leaves;
                     Console.WriteLine(
-                        $"{file} {shape}: pricing built in {sw.Elapsed.TotalSeconds:0.00} s, {built?.Leaves} leaves"
+                        $"{file} {shape}: pricing built in {sw.Elapsed.TotalSeconds:0.00} s, {leaves} leaves"
                     );
                     sw.Restart();
+                }
+
+                if (Environment.GetEnvironmentVariable("COLTRACE") is not null && recipe.Form == RecipeForm.Network)
+                {
+                    IColumnPricing? p = RatioPairPricing.Applies(recipe)
+                        ? RatioPairPricing.TryCreate(recipe, pool.Usable, options, () => false)
+                        : NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false);
+                    var initial = swept.Select(s =>
+                        s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray()
+                    );
+                    ColumnTrace.Run(p!, pool.Usable.Count, initial, () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
+                        int.Parse(Environment.GetEnvironmentVariable("COLPER") ?? "600", System.Globalization.CultureInfo.InvariantCulture));
+                    continue;
                 }
 
                 var r = ColumnBoundStep.Run(

@@ -7,7 +7,8 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
 /// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
-/// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
+/// interval search, <see cref="NetworkPricing"/>), and 4-position networks whose outputs depend on two position ratios
+/// (the difference amplifiers; <see cref="RatioPairPricing"/>) likewise; the part-count bound above the sets found; for the matched form at
 /// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the
 /// ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing
 /// finds no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best
@@ -50,7 +51,7 @@ internal static class ColumnBoundStep
         recipe.Form == RecipeForm.Network
         && usable > EnumerateParts
         && usable <= MaxNetworkParts
-        && recipe.Positions.Count <= MaxNetworkPositions
+        && (recipe.Positions.Count <= MaxNetworkPositions || RatioPairPricing.Applies(recipe))
             ? 0.7
             : 0.3;
 
@@ -70,7 +71,10 @@ internal static class ColumnBoundStep
             || (
                 recipe.Form != RecipeForm.Matched
                 && usable.Count > EnumerateParts
-                && (usable.Count > MaxNetworkParts || recipe.Positions.Count > MaxNetworkPositions)
+                && (
+                    usable.Count > MaxNetworkParts
+                    || (recipe.Positions.Count > MaxNetworkPositions && !RatioPairPricing.Applies(recipe))
+                )
             )
             || stop()
         )
@@ -109,6 +113,7 @@ internal static class ColumnBoundStep
         pricing ??=
             recipe.Form == RecipeForm.Matched
                 ? new MatchedPricing(recipe, usable, options, gridSteps)
+                : RatioPairPricing.Applies(recipe) ? RatioPairPricing.TryCreate(recipe, usable, options, stop)
                 : NetworkPricing.TryCreate(recipe, usable, options, stop);
         if (pricing is null)
         {
@@ -117,6 +122,6 @@ internal static class ColumnBoundStep
 
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
         // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
-        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
+        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing or RatioPairPricing ? 600 : 200);
     }
 }
