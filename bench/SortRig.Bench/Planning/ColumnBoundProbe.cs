@@ -70,6 +70,26 @@ internal static class ColumnBoundProbe
                     continue;
                 }
 
+                if (Environment.GetEnvironmentVariable("COLBINS") is { } bins && RatioPairPricing.Applies(recipe))
+                {
+                    var rp = RatioPairPricing.TryCreate(recipe, pool.Usable, options, () => false)!;
+                    var b = BinnedColumnBound.Solve(
+                        rp,
+                        pool.Usable,
+                        swept.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray()),
+                        () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
+                        binsPerNominal: int.Parse(bins, System.Globalization.CultureInfo.InvariantCulture)
+                    );
+                    Console.WriteLine(
+                        string.Create(
+                            System.Globalization.CultureInfo.InvariantCulture,
+                            $"  {bins} bins: {b?.Value:0.000} → {b?.Bound}, {b?.Rounds} rounds, converged {b?.Converged}, "
+                                + $"{sw.Elapsed.TotalSeconds:0.00} s"
+                        )
+                    );
+                    continue;
+                }
+
                 var r = ColumnBoundStep.Run(
                     recipe,
                     pool.Usable,

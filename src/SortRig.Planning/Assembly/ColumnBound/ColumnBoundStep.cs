@@ -121,7 +121,13 @@ internal static class ColumnBoundStep
         }
 
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
+        if (pricing is RatioPairPricing)
+        {
+            // The full master stalls on these reels (every new column enters at level 0); duals per bin of parts.
+            return BinnedColumnBound.Solve(pricing, usable, initial, stop);
+        }
+
         // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
-        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing or RatioPairPricing ? 600 : 200);
+        return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
     }
 }

@@ -19,7 +19,8 @@ internal sealed class PairList
 
     public int Count => R.Length;
 
-    public static PairList Build(Option[] first, Option[] second)
+    /// <summary>Every pair sharing no part whose ratio <paramref name="keep"/> accepts.</summary>
+    public static PairList Build(Option[] first, Option[] second, Func<double, bool> keep)
     {
         var x = new List<int>();
         var y = new List<int>();
@@ -30,7 +31,7 @@ internal sealed class PairList
             for (var j = 0; j < second.Length; j++)
             {
                 var q = second[j];
-                if (!o.Uses(q.A) && (q.B < 0 || !o.Uses(q.B)))
+                if (!o.Uses(q.A) && (q.B < 0 || !o.Uses(q.B)) && keep(q.Value / o.Value))
                 {
                     x.Add(i);
                     y.Add(j);

@@ -122,35 +122,57 @@ internal sealed partial class RatioPairPricing
             return (1, 0);
         }
 
-        int lo = 0,
-            hi = _b.Count - 1;
-        if (!Up(s0, t0))
+        // The interval moves little from one block to the next: gallop from the previous block's ends.
+        var n = _b.Count;
+        var from = Up(s0, t0) ? 0 : FirstTrue(j => Up(Errors(a0, _b.R[j]), Errors(a1, _b.R[j])), n, _guess.Lo);
+        var to = Down(s1, t1)
+            ? n - 1
+            : FirstTrue(j => !Down(Errors(a0, _b.R[j]), Errors(a1, _b.R[j])), n, _guess.Hi + 1) - 1;
+        _guess = (from, to);
+        return (from, to);
+    }
+
+    // Smallest j in [0, n) with p(j), for p false then true and p(n − 1) true: galloping from the guess, then bisection.
+    private static int FirstTrue(Func<int, bool> p, int n, int guess)
+    {
+        guess = Math.Clamp(guess, 0, n - 1);
+        int lo,
+            hi;
+        if (p(guess))
         {
-            while (hi - lo > 1)
+            // p(hi) true; widen to the left until p(lo) is false or lo falls off the start (then lo = −1).
+            hi = guess;
+            var step = 1;
+            lo = hi - step;
+            while (lo >= 0 && p(lo))
             {
-                var mid = (lo + hi) / 2;
-                var b = _b.R[mid];
-                (lo, hi) = Up(Errors(a0, b), Errors(a1, b)) ? (lo, mid) : (mid, hi);
+                (hi, step) = (lo, step * 2);
+                lo = hi - step;
             }
 
-            lo = hi;
+            lo = Math.Max(lo, -1);
         }
-
-        var from = lo;
-        (lo, hi) = (0, _b.Count - 1);
-        if (!Down(s1, t1))
+        else
         {
-            while (hi - lo > 1)
+            lo = guess;
+            var step = 1;
+            hi = lo + step;
+            while (hi < n - 1 && !p(hi))
             {
-                var mid = (lo + hi) / 2;
-                var b = _b.R[mid];
-                (lo, hi) = Down(Errors(a0, b), Errors(a1, b)) ? (mid, hi) : (lo, mid);
+                (lo, step) = (hi, step * 2);
+                hi = lo + step;
             }
 
-            hi = lo;
+            hi = Math.Min(hi, n - 1);
         }
 
-        return (from, hi);
+        while (hi - lo > 1)
+        {
+            var mid = lo + ((hi - lo) / 2);
+            (lo, hi) = p(mid) ? (lo, mid) : (mid, hi);
+        }
+
+        return hi;
     }
 
     private int Dir(double d, int o) =>

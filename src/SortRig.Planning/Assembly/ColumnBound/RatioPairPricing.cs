@@ -13,7 +13,7 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// <i>b-pair</i> with ratio b, both sorted by ratio. The searched family holds every assignment (an a-pair and a b-pair
 /// sharing no part) whose every output error at the measured values is within its tolerance, uncertainty dropped:
 /// every feasible set is in it, because the real rule adds Σ_k |∂error/∂R_k| U_k ≥ 0 to |error| (docs/planning.md).
-/// Leaves, built once: a-pairs are cut into blocks of consecutive ratios (at most 64, spanning at most 10 ppm); with
+/// Leaves, built once: a-pairs are cut into blocks of consecutive ratios (at most 512, spanning at most 10 ppm); with
 /// the outputs linear-fractional, so monotone, in each resistance (the argument of <see cref="NetworkPartFilter"/>),
 /// each output is monotone in a on the block and in b, so for a b-pair of ratio b some a of the block meets output o
 /// only if the range of its error at the block's two end ratios meets the tolerance, and those b form an interval of
@@ -38,7 +38,7 @@ internal sealed partial class RatioPairPricing : IColumnPricing
     private const int Tries = 200;
     private const int ScanLimit = 2_000;
     private const int MaxScans = 40;
-    private const int BlockSize = 64;
+    private const int BlockSize = 512;
     private const double BlockSpan = 1e-5;
 
     /// <summary>Most option pairs per side the pricing builds.</summary>
@@ -56,6 +56,7 @@ internal sealed partial class RatioPairPricing : IColumnPricing
     private PairList _a;
     private PairList _b;
     private readonly List<(int A, int Lo, int Hi)> _leaves = [];
+    private (int Lo, int Hi) _guess;
     private readonly Dictionary<int, int[]> _feasible = [];
     private readonly Dictionary<long, bool> _judged = [];
 
@@ -67,8 +68,10 @@ internal sealed partial class RatioPairPricing : IColumnPricing
         _nominal = [.. recipe.Positions.Select(p => p.Nominal)];
         _options = [.. pool.Options.Select(o => o.ToArray())];
         _tolerance = [.. _network.Evaluate(_nominal).Select(o => o.Tolerance * Slack)];
-        _a = PairList.Build(_options[_p.I], _options[_p.J]);
-        _b = PairList.Build(_options[_p.K], _options[_p.L]);
+        var (aLo, aHi) = Span(_options[_p.I], _options[_p.J]);
+        var (bLo, bHi) = Span(_options[_p.K], _options[_p.L]);
+        _a = PairList.Build(_options[_p.I], _options[_p.J], Admissible(aLo, aHi, bLo, bHi, sideA: true));
+        _b = PairList.Build(_options[_p.K], _options[_p.L], Admissible(bLo, bHi, aLo, aHi, sideA: false));
     }
 
     public string Family =>
