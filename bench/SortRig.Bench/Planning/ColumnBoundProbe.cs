@@ -26,8 +26,7 @@ internal static class ColumnBoundProbe
                     r.Recipe.Form == RecipeForm.Matched
                     || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions
                     || RatioPairPricing.Applies(r.Recipe)
-                )
-                && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
+                ) && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
             )
         )
         {
@@ -36,6 +35,12 @@ internal static class ColumnBoundProbe
             )
             {
                 var parts = ReelBench.Draw(recipe, devs, 1);
+                if (Environment.GetEnvironmentVariable("COLLEFT") is not null)
+                {
+                    Leftovers(file, shape, recipe, parts);
+                    continue;
+                }
+
                 var options = new AssemblyOptions();
                 var pool = new CandidatePool(recipe, parts, options, withPairs: false);
                 ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
@@ -65,8 +70,16 @@ internal static class ColumnBoundProbe
                     var initial = swept.Select(s =>
                         s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray()
                     );
-                    ColumnTrace.Run(p!, pool.Usable.Count, initial, () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
-                        int.Parse(Environment.GetEnvironmentVariable("COLPER") ?? "600", System.Globalization.CultureInfo.InvariantCulture));
+                    ColumnTrace.Run(
+                        p!,
+                        pool.Usable.Count,
+                        initial,
+                        () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
+                        int.Parse(
+                            Environment.GetEnvironmentVariable("COLPER") ?? "600",
+                            System.Globalization.CultureInfo.InvariantCulture
+                        )
+                    );
                     continue;
                 }
 
@@ -83,7 +96,8 @@ internal static class ColumnBoundProbe
                     Console.WriteLine(
                         string.Create(
                             System.Globalization.CultureInfo.InvariantCulture,
-                            $"  {bins} bins: {b?.Value:0.000} → {b?.Bound}, {b?.Rounds} rounds, converged {b?.Converged}, "
+                            $"  {bins} bins: {b?.Value:0.000} → {b?.Bound}, {b?.Rounds} rounds, converged "
+                                + $"{b?.Converged}, "
                                 + $"{sw.Elapsed.TotalSeconds:0.00} s"
                         )
                     );
@@ -108,6 +122,32 @@ internal static class ColumnBoundProbe
                     )
                 );
             }
+        }
+    }
+
+    // COLLEFT=1: where the search leaves its unused parts (deviation in 0.1 % buckets per nominal), and how many sets
+    // a second search over the unused parts alone still finds (sets the first left in the cups).
+    private static void Leftovers(string file, string shape, Recipe recipe, List<PartCandidate> parts)
+    {
+        var first = new SetAssembler().Assemble(recipe, parts);
+        var second = new SetAssembler().Assemble(recipe, first.Unused);
+        Console.WriteLine(
+            $"{file} {shape}: {first.Sets.Count} sets, {first.Unused.Count} unused; on the unused alone "
+                + $"{second.Sets.Count} more sets (bound {second.UpperBound})"
+        );
+        foreach (var g in first.Unused.GroupBy(p => p.Nominal).OrderBy(g => g.Key))
+        {
+            var buckets = g.GroupBy(p => (int)Math.Floor(((p.Value.Value / p.Nominal) - 1) * 1000))
+                .OrderBy(b => b.Key)
+                .Select(b =>
+                    string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{b.Key / 10.0:0.0}%:{b.Count()}")
+                );
+            var all = parts.Where(p => p.Nominal == g.Key).ToList();
+            Console.WriteLine(
+                $"  {g.Key} Ω: {g.Count()} unused of {all.Count} (low mode "
+                    + $"{all.Count(p => p.Value.Value < p.Nominal)}, "
+                    + $"high {all.Count(p => p.Value.Value >= p.Nominal)}): {string.Join(' ', buckets)}"
+            );
         }
     }
 }

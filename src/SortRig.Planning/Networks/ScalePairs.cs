@@ -62,6 +62,5 @@ internal static class ScalePairs
         return true;
     }
 
-    private static double[] Values(RecipeNetwork network, double[] x) =>
-        [.. network.Evaluate(x).Select(o => o.Value)];
+    private static double[] Values(RecipeNetwork network, double[] x) => [.. network.Evaluate(x).Select(o => o.Value)];
 }

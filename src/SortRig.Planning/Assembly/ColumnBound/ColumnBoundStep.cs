@@ -8,11 +8,11 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
 /// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
 /// interval search, <see cref="NetworkPricing"/>), and 4-position networks whose outputs depend on two position ratios
-/// (the difference amplifiers; <see cref="RatioPairPricing"/>) likewise; the part-count bound above the sets found; for the matched form at
-/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the
-/// ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing
-/// finds no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best
-/// bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// (the difference amplifiers; <see cref="RatioPairPricing"/>) likewise; the part-count bound above the sets found; for
+/// the matched form at most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1
+/// 000-part reel of the ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven
+/// only once pricing finds no set of zero dual cost, so time spent there would be taken from the search for nothing.
+/// Anytime: the best bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
@@ -28,7 +28,8 @@ internal static class ColumnBoundStep
     /// enumerates every prefix of all positions but one, and with 4 positions (the amplifiers) that is
     /// |R1| × |R2| × |R3|, about 10^8 on a 1 000-part reel, which the box test hardly prunes (their common-mode spec
     /// couples R1/R2 with R3/R4, and a box of ±1 % on R3, R4 lets every R1, R2 pass); the build did not finish within
-    /// 5 min there (docs/planning.md).
+    /// 5 min there (docs/planning.md). 4-position networks whose outputs depend on two position ratios (the
+    /// amplifiers) are priced by <see cref="RatioPairPricing"/> instead.
     /// </summary>
     public const int MaxNetworkPositions = 3;
 
@@ -111,10 +112,9 @@ internal static class ColumnBoundStep
         IColumnPricing? pricing =
             usable.Count <= enumerateParts ? EnumeratedPricing.TryCreate(recipe, usable, rule, options) : null;
         pricing ??=
-            recipe.Form == RecipeForm.Matched
-                ? new MatchedPricing(recipe, usable, options, gridSteps)
-                : RatioPairPricing.Applies(recipe) ? RatioPairPricing.TryCreate(recipe, usable, options, stop)
-                : NetworkPricing.TryCreate(recipe, usable, options, stop);
+            recipe.Form == RecipeForm.Matched ? new MatchedPricing(recipe, usable, options, gridSteps)
+            : RatioPairPricing.Applies(recipe) ? RatioPairPricing.TryCreate(recipe, usable, options, stop)
+            : NetworkPricing.TryCreate(recipe, usable, options, stop);
         if (pricing is null)
         {
             return null;

@@ -132,7 +132,8 @@ internal sealed partial class RatioPairPricing
         return (from, to);
     }
 
-    // Smallest j in [0, n) with p(j), for p false then true and p(n − 1) true: galloping from the guess, then bisection.
+    // Smallest j in [0, n) with p(j), for p false then true and p(n − 1) true: galloping from the guess, then
+    // bisection.
     private static int FirstTrue(Func<int, bool> p, int n, int guess)
     {
         guess = Math.Clamp(guess, 0, n - 1);

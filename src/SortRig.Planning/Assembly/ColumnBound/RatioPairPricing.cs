@@ -119,7 +119,8 @@ internal sealed partial class RatioPairPricing : IColumnPricing
         return pricing.Build(stop) ? pricing : null;
     }
 
-    /// <summary>Whether <paramref name="recipe"/> is priced this way (4 positions, two scale-invariant pairs).</summary>
+    /// <summary>Whether <paramref name="recipe"/> is priced this way (4 positions, two scale-invariant
+    /// pairs).</summary>
     public static bool Applies(Recipe recipe) =>
         recipe.Form == RecipeForm.Network
         && recipe.Positions.Count == 4

@@ -95,8 +95,7 @@ public sealed class RatioPairPricingTests
 
     [Theory]
     [MemberData(nameof(Seeds))]
-    public void GainOne_Bimodal(int seed) =>
-        Check(s_g1, Bimodal(new Random(98_500 + seed), 12, [10e3], 1500e-6), seed);
+    public void GainOne_Bimodal(int seed) => Check(s_g1, Bimodal(new Random(98_500 + seed), 12, [10e3], 1500e-6), seed);
 
     private static void Check(Recipe recipe, List<PartCandidate> parts, int seed)
     {
