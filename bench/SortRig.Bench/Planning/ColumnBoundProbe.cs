@@ -7,7 +7,8 @@ namespace SortRig.Bench.Planning;
 
 /// <summary>
 /// `planning colbound[:parts[:grid steps]]`: the column LP bound alone on reels of the matched recipes and of the
-/// network recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions (up to 120 s each, or
+/// network recipes of at most <see cref="ColumnBoundStep.MaxNetworkPositions"/> positions or with two
+/// scale-invariant position pairs (<see cref="RatioPairPricing"/>) (up to 120 s each, or
 /// COLSECONDS; COLONLY=name for one recipe; from the sweep's sets), beside the part-count bound; not written to docs.
 /// </summary>
 internal static class ColumnBoundProbe
@@ -21,8 +22,11 @@ internal static class ColumnBoundProbe
     {
         foreach (
             var (file, recipe) in recipes.Where(r =>
-                (r.Recipe.Form == RecipeForm.Matched || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions)
-                && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
+                (
+                    r.Recipe.Form == RecipeForm.Matched
+                    || r.Recipe.Positions.Count <= ColumnBoundStep.MaxNetworkPositions
+                    || RatioPairPricing.Applies(r.Recipe)
+                ) && (Environment.GetEnvironmentVariable("COLONLY") is not { } only || r.File == only)
             )
         )
         {
@@ -31,6 +35,12 @@ internal static class ColumnBoundProbe
             )
             {
                 var parts = ReelBench.Draw(recipe, devs, 1);
+                if (Environment.GetEnvironmentVariable("COLLEFT") is not null)
+                {
+                    Leftovers(file, shape, recipe, parts);
+                    continue;
+                }
+
                 var options = new AssemblyOptions();
                 var pool = new CandidatePool(recipe, parts, options, withPairs: false);
                 ISetRule rule = recipe.Form == RecipeForm.Matched ? new MatchedRule(recipe) : new NetworkRule(recipe);
@@ -43,11 +53,55 @@ internal static class ColumnBoundProbe
                 var swept = new SweepPlanner(recipe, pool, rule, options).Run();
                 if (recipe.Form == RecipeForm.Network)
                 {
-                    var built = NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false);
+                    var leaves = RatioPairPricing.Applies(recipe)
+                        ? RatioPairPricing.TryCreate(recipe, pool.Usable, options, () => false)?.Leaves
+                        : NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false)?.Leaves;
                     Console.WriteLine(
-                        $"{file} {shape}: pricing built in {sw.Elapsed.TotalSeconds:0.00} s, {built?.Leaves} leaves"
+                        $"{file} {shape}: pricing built in {sw.Elapsed.TotalSeconds:0.00} s, {leaves} leaves"
                     );
                     sw.Restart();
+                }
+
+                if (Environment.GetEnvironmentVariable("COLTRACE") is not null && recipe.Form == RecipeForm.Network)
+                {
+                    IColumnPricing? p = RatioPairPricing.Applies(recipe)
+                        ? RatioPairPricing.TryCreate(recipe, pool.Usable, options, () => false)
+                        : NetworkPricing.TryCreate(recipe, pool.Usable, options, () => false);
+                    var initial = swept.Select(s =>
+                        s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray()
+                    );
+                    ColumnTrace.Run(
+                        p!,
+                        pool.Usable.Count,
+                        initial,
+                        () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
+                        int.Parse(
+                            Environment.GetEnvironmentVariable("COLPER") ?? "600",
+                            System.Globalization.CultureInfo.InvariantCulture
+                        )
+                    );
+                    continue;
+                }
+
+                if (Environment.GetEnvironmentVariable("COLBINS") is { } bins && RatioPairPricing.Applies(recipe))
+                {
+                    var rp = RatioPairPricing.TryCreate(recipe, pool.Usable, options, () => false)!;
+                    var b = BinnedColumnBound.Solve(
+                        rp,
+                        pool.Usable,
+                        swept.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray()),
+                        () => sw.Elapsed > TimeSpan.FromSeconds(s_limit),
+                        binsPerNominal: int.Parse(bins, System.Globalization.CultureInfo.InvariantCulture)
+                    );
+                    Console.WriteLine(
+                        string.Create(
+                            System.Globalization.CultureInfo.InvariantCulture,
+                            $"  {bins} bins: {b?.Value:0.000} → {b?.Bound}, {b?.Rounds} rounds, converged "
+                                + $"{b?.Converged}, "
+                                + $"{sw.Elapsed.TotalSeconds:0.00} s"
+                        )
+                    );
+                    continue;
                 }
 
                 var r = ColumnBoundStep.Run(
@@ -131,6 +185,32 @@ internal static class ColumnBoundProbe
                     }
                 }
             }
+        }
+    }
+
+    // COLLEFT=1: where the search leaves its unused parts (deviation in 0.1 % buckets per nominal), and how many sets
+    // a second search over the unused parts alone still finds (sets the first left in the cups).
+    private static void Leftovers(string file, string shape, Recipe recipe, List<PartCandidate> parts)
+    {
+        var first = new SetAssembler().Assemble(recipe, parts);
+        var second = new SetAssembler().Assemble(recipe, first.Unused);
+        Console.WriteLine(
+            $"{file} {shape}: {first.Sets.Count} sets, {first.Unused.Count} unused; on the unused alone "
+                + $"{second.Sets.Count} more sets (bound {second.UpperBound})"
+        );
+        foreach (var g in first.Unused.GroupBy(p => p.Nominal).OrderBy(g => g.Key))
+        {
+            var buckets = g.GroupBy(p => (int)Math.Floor(((p.Value.Value / p.Nominal) - 1) * 1000))
+                .OrderBy(b => b.Key)
+                .Select(b =>
+                    string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{b.Key / 10.0:0.0}%:{b.Count()}")
+                );
+            var all = parts.Where(p => p.Nominal == g.Key).ToList();
+            Console.WriteLine(
+                $"  {g.Key} Ω: {g.Count()} unused of {all.Count} (low mode "
+                    + $"{all.Count(p => p.Value.Value < p.Nominal)}, "
+                    + $"high {all.Count(p => p.Value.Value >= p.Nominal)}): {string.Join(' ', buckets)}"
+            );
         }
     }
 }

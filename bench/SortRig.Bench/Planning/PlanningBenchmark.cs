@@ -204,7 +204,10 @@ internal static class PlanningBenchmark
                 + "LP over every",
             "feasible set by column generation, shown where it converged within its share of the time limit and beat "
                 + "the part count",
-            "(3-position networks such as the divider: seven tenths of the limit; docs/planning.md). Time includes "
+            "(3-position networks such as the divider, and the difference amplifiers, whose outputs depend on two "
+                + "position ratios, with duals equal within bins of parts: seven tenths of the limit; "
+                + "docs/planning.md). "
+                + "Time includes "
                 + "the bound; a "
                 + "search that stops",
             "at the time limit shows about 10 s.",

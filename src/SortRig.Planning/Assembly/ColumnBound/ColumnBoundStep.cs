@@ -7,11 +7,12 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
 /// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
-/// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
-/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the
-/// ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing
-/// finds no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best
-/// bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// interval search, <see cref="NetworkPricing"/>), and 4-position networks whose outputs depend on two position ratios
+/// (the difference amplifiers; <see cref="RatioPairPricing"/>) likewise; the part-count bound above the sets found; for
+/// the matched form at most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1
+/// 000-part reel of the ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven
+/// only once pricing finds no set of zero dual cost, so time spent there would be taken from the search for nothing.
+/// Anytime: the best bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
@@ -27,7 +28,8 @@ internal static class ColumnBoundStep
     /// enumerates every prefix of all positions but one, and with 4 positions (the amplifiers) that is
     /// |R1| × |R2| × |R3|, about 10^8 on a 1 000-part reel, which the box test hardly prunes (their common-mode spec
     /// couples R1/R2 with R3/R4, and a box of ±1 % on R3, R4 lets every R1, R2 pass); the build did not finish within
-    /// 5 min there (docs/planning.md).
+    /// 5 min there (docs/planning.md). 4-position networks whose outputs depend on two position ratios (the
+    /// amplifiers) are priced by <see cref="RatioPairPricing"/> instead.
     /// </summary>
     public const int MaxNetworkPositions = 3;
 
@@ -50,7 +52,7 @@ internal static class ColumnBoundStep
         recipe.Form == RecipeForm.Network
         && usable > EnumerateParts
         && usable <= MaxNetworkParts
-        && recipe.Positions.Count <= MaxNetworkPositions
+        && (recipe.Positions.Count <= MaxNetworkPositions || RatioPairPricing.Applies(recipe))
             ? 0.7
             : 0.3;
 
@@ -72,7 +74,10 @@ internal static class ColumnBoundStep
             || (
                 recipe.Form != RecipeForm.Matched
                 && usable.Count > EnumerateParts
-                && (usable.Count > MaxNetworkParts || recipe.Positions.Count > MaxNetworkPositions)
+                && (
+                    usable.Count > MaxNetworkParts
+                    || (recipe.Positions.Count > MaxNetworkPositions && !RatioPairPricing.Applies(recipe))
+                )
             )
             || stop()
         )
@@ -110,15 +115,21 @@ internal static class ColumnBoundStep
         IColumnPricing? pricing =
             usable.Count <= enumerateParts ? EnumeratedPricing.TryCreate(recipe, usable, rule, options) : null;
         pricing ??=
-            recipe.Form == RecipeForm.Matched
-                ? new MatchedPricing(recipe, usable, options, gridSteps)
-                : NetworkPricing.TryCreate(recipe, usable, options, stop);
+            recipe.Form == RecipeForm.Matched ? new MatchedPricing(recipe, usable, options, gridSteps)
+            : RatioPairPricing.Applies(recipe) ? RatioPairPricing.TryCreate(recipe, usable, options, stop)
+            : NetworkPricing.TryCreate(recipe, usable, options, stop);
         if (pricing is null)
         {
             return null;
         }
 
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
+        if (pricing is RatioPairPricing)
+        {
+            // The full master stalls on these reels (every new column enters at level 0); duals per bin of parts.
+            return BinnedColumnBound.Solve(pricing, usable, initial, stop);
+        }
+
         // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
         return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
     }
