@@ -27,8 +27,16 @@ internal static class BinnedColumnBound
         var (binOf, capacity) = Bins(usable, binsPerNominal);
         var vectors = new List<int[]>();
         var keys = new HashSet<string>();
+        var pool = new List<int[]>();
+        var inPool = new HashSet<string>();
         bool Add(int[] set)
         {
+            var sorted = set.Order().ToArray();
+            if (inPool.Add(string.Join(',', sorted)))
+            {
+                pool.Add(sorted);
+            }
+
             var v = new int[capacity.Length];
             foreach (var i in set)
             {
@@ -91,11 +99,19 @@ internal static class BinnedColumnBound
 
             if (converged || added == 0)
             {
-                return best is null ? null : best with { Rounds = round, Converged = converged };
+                return best is null
+                    ? null
+                    : best with
+                    {
+                        Rounds = round,
+                        Converged = converged,
+                        Pool = pool,
+                        PoolValues = new double[pool.Count],
+                    };
             }
         }
 
-        return best;
+        return best is null ? null : best with { Pool = pool, PoolValues = new double[pool.Count] };
     }
 
     // Bins of equal count per nominal, in order of value.
