@@ -129,11 +129,26 @@ public sealed class SetAssembler(
             );
         }
 
+        var (paired, pairBound) = RatioPairStart.Run(recipe, pool.Usable, rule, _options);
+        if (paired.Count > found.Count)
+        {
+            note += $"; ratio pairs matched over the whole reel: {paired.Count} sets (the sweep had {found.Count})";
+            found = paired;
+        }
+
         // The network filter of the bound may take a tenth of the time limit; parts left then are counted unfiltered.
         var filterBudget = _options.TimeLimit / 10;
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
             _time.GetElapsedTime(started) > filterBudget
         );
+        if (pairBound < bound)
+        {
+            (bound, boundName) = (
+                pairBound.Value,
+                $"ratio pairs: half the most disjoint pairs whose ratio some partner allows; part count gave {bound}"
+            );
+        }
+
         // The column LP may take up to three tenths of the time limit, seven tenths for a network at reel scale
         // (anytime; skipped when it cannot help).
         var share = ColumnBound.ColumnBoundStep.TimeShare(recipe, pool.Usable.Count);
