@@ -84,6 +84,28 @@ internal static class PlanningBenchmark
             return 0;
         }
 
+        if (section.StartsWith("mlpglop", StringComparison.Ordinal))
+        {
+            var w = section.Split(':');
+            MatchedLpGlop.Run(
+                every.First(e => e.Item1 == "ratio-set").Item2,
+                w.Length > 1 ? int.Parse(w[1], CultureInfo.InvariantCulture) : 1000,
+                w.Length > 2 ? double.Parse(w[2], CultureInfo.InvariantCulture) : 60
+            );
+            return 0;
+        }
+
+        if (section.StartsWith("mlp", StringComparison.Ordinal))
+        {
+            var w = section.Split(':');
+            MatchedLpProbe.Run(
+                every.First(e => e.Item1 == "ratio-set").Item2,
+                w.Length > 1 ? int.Parse(w[1], CultureInfo.InvariantCulture) : 1000,
+                w.Length > 2 ? double.Parse(w[2], CultureInfo.InvariantCulture) : 60
+            );
+            return 0;
+        }
+
         if (section == "probe")
         {
             var some = every.Where(e => e.Item1 is "ratio-set" or "diff-amp-g10" or "decade-divider").ToList();

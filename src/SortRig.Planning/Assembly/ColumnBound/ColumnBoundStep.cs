@@ -7,16 +7,20 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// fits: up to <see cref="EnumerateParts"/> usable parts any form (every feasible set enumerated), above that the
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
 /// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
-/// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form at
-/// most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1 000-part reel of the
-/// ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven only once pricing
-/// finds no set of zero dual cost, so time spent there would be taken from the search for nothing. Anytime: the best
-/// bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// interval search, <see cref="NetworkPricing"/>); the part-count bound above the sets found; for the matched form
+/// above <see cref="MaxParts"/> usable parts (up to <see cref="MaxMatchedParts"/>) the master pools the common parts
+/// by nominal (<see cref="AggregatedColumnBound"/>): with a row per part on a 1 000-part reel of the ratio set the LP
+/// had not converged after minutes (docs/planning.md). Anytime: the best bound proven before the stop is kept. The
+/// smaller of the two bounds is returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
-    /// <summary>Largest number of usable parts the column bound runs on for the matched form.</summary>
+    /// <summary>Largest number of usable parts of the matched form whose master has a row per part.</summary>
     public const int MaxParts = 400;
+
+    /// <summary>Largest number of usable parts the column bound runs on for the matched form (above
+    /// <see cref="MaxParts"/> with the pooled master; the 10 000-part quads keep the part count).</summary>
+    public const int MaxMatchedParts = 2_000;
 
     /// <summary>Up to this many usable parts every feasible set is enumerated (<see cref="EnumeratedPricing"/>, any
     /// form); above it only the matched form is priced.</summary>
@@ -66,7 +70,7 @@ internal static class ColumnBoundStep
         if (
             current.Bound <= found.Count
             || usable.Count == 0
-            || (recipe.Form == RecipeForm.Matched && usable.Count > MaxParts)
+            || (recipe.Form == RecipeForm.Matched && usable.Count > MaxMatchedParts)
             || (
                 recipe.Form != RecipeForm.Matched
                 && usable.Count > EnumerateParts
@@ -116,7 +120,35 @@ internal static class ColumnBoundStep
         }
 
         var initial = found.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
+        if (pricing is MatchedPricing && usable.Count > MaxParts)
+        {
+            var (z, classOf) = Pooling(usable, options);
+            return AggregatedColumnBound.Solve(pricing, z, classOf, new MatchedRule(recipe).Window, initial, stop);
+        }
+
         // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
         return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
+    }
+
+    // Per part, z = ln(value / nominal) and the index of its nominal (parts of one nominal are pooled).
+    internal static (double[] Z, int[] ClassOf) Pooling(IReadOnlyList<PartCandidate> usable, AssemblyOptions options)
+    {
+        var nominals = new List<double>();
+        var classOf = new int[usable.Count];
+        var z = new double[usable.Count];
+        for (var i = 0; i < usable.Count; i++)
+        {
+            var c = nominals.FindIndex(n => options.SameNominal(usable[i].Nominal, n));
+            if (c < 0)
+            {
+                c = nominals.Count;
+                nominals.Add(usable[i].Nominal);
+            }
+
+            classOf[i] = c;
+            z[i] = Math.Log(usable[i].Value.Value / usable[i].Nominal);
+        }
+
+        return (z, classOf);
     }
 }
