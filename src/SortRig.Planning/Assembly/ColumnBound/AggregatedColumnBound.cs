@@ -59,7 +59,7 @@ internal static class AggregatedColumnBound
 
         ColumnBoundResult? best = null;
         var rounds = 0;
-        for (var own = Math.Min(n, firstOwn); !stop(); own = Math.Min(n, 2 * own))
+        for (var own = Math.Min(n, firstOwn); !stop(); own = Math.Min(n, Math.Max(1, 2 * own)))
         {
             var rows = new PartAggregation(order, own, classOf);
             var master = new PackingMaster(rows.Rows);
