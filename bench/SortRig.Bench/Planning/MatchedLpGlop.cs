@@ -6,7 +6,8 @@ using SortRig.Planning.Recipes;
 
 namespace SortRig.Bench.Planning;
 
-/// <summary>`planning mlpglop[:parts]`: the matched column LP with GLOP (OR-Tools) as the master; bench reference.</summary>
+/// <summary>`planning mlpglop[:parts]`: the matched column LP with GLOP (OR-Tools) as the master; bench
+/// reference.</summary>
 internal static class MatchedLpGlop
 {
     public static void Run(Recipe recipe, int size, double seconds)
@@ -74,12 +75,56 @@ internal static class MatchedLpGlop
                 }
 
                 Console.WriteLine(
-                    $"  {shape} round {round}: GLOP {tm:0} ms value {obj.Value():0.0000} cols {cols}, pricing {tp:0} ms, "
+                    $"  {shape} round {round}: GLOP {tm:0} ms value {obj.Value():0.0000} cols {cols}, pricing {tp:0} "
+                        + $"ms, "
                         + $"m {p.Min:0.000000}, bound {bound:0.0000}, best {best:0.0000}"
                 );
                 if (cols == before)
                 {
                     break;
+                }
+            }
+
+            if (Environment.GetEnvironmentVariable("MLPWHERE") is not null)
+            {
+                // Where the LP's fractional sets lie against the search's sets, by the mean z of a set's parts.
+                solver.Solve();
+                var lpBy = new SortedDictionary<int, double>();
+                var vars = solver.variables();
+                var colParts = keys.Select(k => k.Split(',').Select(int.Parse).ToArray()).ToList();
+                int Bucket(IEnumerable<double> zs) => (int)Math.Floor(zs.Average() * 1e6 / 1000);
+                double Z(PartCandidate p) => Math.Log(p.Value.Value / p.Nominal);
+                for (var j = 0; j < vars.Count; j++)
+                {
+                    var x = vars[j].SolutionValue();
+                    if (x > 1e-9)
+                    {
+                        var b = Bucket(colParts[j].Select(i => Z(pool.Usable[i])));
+                        lpBy[b] = lpBy.GetValueOrDefault(b) + x;
+                    }
+                }
+
+                var found = new SetAssembler(new AssemblyOptions()).Assemble(recipe, parts);
+                var searchBy = new SortedDictionary<int, double>();
+                foreach (var set in found.Sets)
+                {
+                    var b = Bucket(set.Fills.SelectMany(f => f.Parts).Select(Z));
+                    searchBy[b] = searchBy.GetValueOrDefault(b) + 1;
+                }
+
+                Console.WriteLine(
+                    $"{shape}: search {found.Sets.Count} sets, LP {lpBy.Values.Sum():0.000}; by mean z of the set's "
+                        + $"parts (1000 ppm buckets):"
+                );
+                foreach (var b in lpBy.Keys.Union(searchBy.Keys).Order())
+                {
+                    Console.WriteLine(
+                        string.Create(
+                            System.Globalization.CultureInfo.InvariantCulture,
+                            $"  [{b * 1000}, {(b + 1) * 1000}) ppm: LP {lpBy.GetValueOrDefault(b):0.000}, search "
+                                + $"{searchBy.GetValueOrDefault(b)}"
+                        )
+                    );
                 }
             }
 
@@ -92,13 +137,17 @@ internal static class MatchedLpGlop
                         (u, i) =>
                             string.Create(
                                 System.Globalization.CultureInfo.InvariantCulture,
-                                $"{u.Nominal} {1e6 * ((u.Value.Value / u.Nominal) - 1):0.0} {1e6 * u.Value.ExpandedTransfer / u.Nominal:0.0} {Math.Max(0, rows[i].DualValue()):0.000000}"
+                                $"{u.Nominal} {1e6 * ((u.Value.Value / u.Nominal) - 1):0.0} "
+                                    + $"{1e6 * u.Value.ExpandedTransfer / u.Nominal:0.0} "
+                                    + $"{Math.Max(0, rows[i].DualValue()):0.000000}"
                             )
                     )
                 );
             }
 
-            Console.WriteLine($"{shape}: usable {n}, swept {swept.Count}, LP {best:0.0000} in {total.Elapsed.TotalSeconds:0.0} s");
+            Console.WriteLine(
+                $"{shape}: usable {n}, swept {swept.Count}, LP {best:0.0000} in {total.Elapsed.TotalSeconds:0.0} s"
+            );
         }
     }
 }

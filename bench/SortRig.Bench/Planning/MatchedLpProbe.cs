@@ -28,7 +28,8 @@ internal static class MatchedLpProbe
             var total = Stopwatch.StartNew();
             var pricing = new Timed(new MatchedPricing(recipe, pool.Usable, options, ColumnBoundStep.GridSteps), total);
             Console.WriteLine(
-                $"{shape}: {pool.Usable.Count} usable, swept {swept.Count}, pricing built {total.ElapsedMilliseconds} ms"
+                $"{shape}: {pool.Usable.Count} usable, swept {swept.Count}, pricing built "
+                    + $"{total.ElapsedMilliseconds} ms"
             );
             var (z, classOf) = ColumnBoundStep.Pooling(pool.Usable, options);
             var r = AggregatedColumnBound.Solve(

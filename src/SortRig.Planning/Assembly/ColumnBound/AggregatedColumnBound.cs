@@ -70,7 +70,8 @@ internal static class AggregatedColumnBound
 
             var family = string.Create(
                 System.Globalization.CultureInfo.InvariantCulture,
-                $"{pricing.Family}; pooled master: {own} of {n} parts on rows of their own, the rest one row per nominal"
+                $"{pricing.Family}; pooled master: {own} of {n} parts on rows of their own, the rest one row per "
+                    + $"nominal"
             );
             while (!stop())
             {

@@ -4,8 +4,8 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// A restricted master for packing programmes with general coefficients: max Σ_j x_j subject to A x ≤ 1, x ≥ 0, where
 /// a column holds non-negative entries on a few rows (an aggregated row carries a part count divided by the row's
 /// capacity, so every right-hand side is 1). A revised simplex with an explicit dense basis inverse, as
-/// <see cref="ColumnMaster"/> (Dantzig's rule, Bland's after a stall, a tiny seeded perturbation of the right-hand side);
-/// meant for a few hundred rows. Its duals are only a guide: the bound is proven from pricing.
+/// <see cref="ColumnMaster"/> (Dantzig's rule, Bland's after a stall, a tiny seeded perturbation of the right-hand
+/// side); meant for a few hundred rows. Its duals are only a guide: the bound is proven from pricing.
 /// </summary>
 internal sealed class PackingMaster
 {

@@ -123,7 +123,11 @@ internal sealed class PartAggregation
 
         return
         [
-            .. Enumerable.Range(0, n).OrderBy(i => score[i]).ThenByDescending(i => Math.Abs(z[i] - median)).ThenBy(i => i),
+            .. Enumerable
+                .Range(0, n)
+                .OrderBy(i => score[i])
+                .ThenByDescending(i => Math.Abs(z[i] - median))
+                .ThenBy(i => i),
         ];
     }
 

@@ -62,12 +62,24 @@ public sealed class AggregatedColumnBoundTests
             // LP, and its certificate holds over every feasible set.
             var pooled = AggregatedColumnBound.Solve(enumerated, z, classOf, window, [], () => false, own);
             Assert.NotNull(pooled);
-            Assert.True(pooled.Value >= partLp.Value - 1e-6, $"seed {seed}, own {own}: {pooled.Value} < {partLp.Value}");
+            Assert.True(
+                pooled.Value >= partLp.Value - 1e-6,
+                $"seed {seed}, own {own}: {pooled.Value} < {partLp.Value}"
+            );
             Assert.True(pooled.Bound >= optimum, $"seed {seed}, own {own}: bound {pooled.Bound} < optimum {optimum}");
             ColumnBoundTests.AssertDualFeasible(recipe, usable, judge, pooled, seed);
 
             // Up to every part on its own row the last stage is the part LP itself.
-            var all = AggregatedColumnBound.Solve(enumerated, z, classOf, window, [], () => false, own, allStages: true);
+            var all = AggregatedColumnBound.Solve(
+                enumerated,
+                z,
+                classOf,
+                window,
+                [],
+                () => false,
+                own,
+                allStages: true
+            );
             Assert.NotNull(all);
             Assert.True(all.Converged);
             Assert.Equal(partLp.Value, all.Value, 6);
