@@ -62,6 +62,7 @@ internal static class MatchedLpGlop
                 sw.Restart();
                 solver.Solve();
                 var tm = sw.Elapsed.TotalMilliseconds;
+                var lp = obj.Value();
                 var y = rows.Select(r => Math.Max(0, r.DualValue())).ToArray();
                 sw.Restart();
                 var p = pricing.Price(y, 2000, () => false);
@@ -75,7 +76,7 @@ internal static class MatchedLpGlop
                 }
 
                 Console.WriteLine(
-                    $"  {shape} round {round}: GLOP {tm:0} ms value {obj.Value():0.0000} cols {cols}, pricing {tp:0} "
+                    $"  {shape} round {round}: GLOP {tm:0} ms value {lp:0.0000} cols {cols}, pricing {tp:0} "
                         + $"ms, "
                         + $"m {p.Min:0.000000}, bound {bound:0.0000}, best {best:0.0000}"
                 );
