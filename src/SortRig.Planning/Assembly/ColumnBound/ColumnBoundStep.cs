@@ -8,16 +8,21 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// matched form (exact pricing, <see cref="MatchedPricing"/>) and network recipes of at most
 /// <see cref="MaxNetworkPositions"/> positions up to <see cref="MaxNetworkParts"/> parts (exact pricing by
 /// interval search, <see cref="NetworkPricing"/>), and 4-position networks whose outputs depend on two position ratios
-/// (the difference amplifiers; <see cref="RatioPairPricing"/>) likewise; the part-count bound above the sets found; for
-/// the matched form at most <see cref="MaxParts"/> usable parts: the master keeps a dense basis inverse, and on a 1
-/// 000-part reel of the ratio set the LP had not converged after minutes (docs/planning.md), while the bound is proven
-/// only once pricing finds no set of zero dual cost, so time spent there would be taken from the search for nothing.
-/// Anytime: the best bound proven before the stop is kept. The smaller of the two bounds is returned with its name.
+/// (the difference amplifiers; <see cref="RatioPairPricing"/>, duals per bin of parts) likewise; the part-count bound
+/// above the sets found; for the matched form above <see cref="MaxParts"/> usable parts (up to
+/// <see cref="MaxMatchedParts"/>) the master pools the common parts by nominal (<see cref="AggregatedColumnBound"/>):
+/// with a row per part on a 1 000-part reel of the ratio set the LP had not converged after minutes
+/// (docs/planning.md). Anytime: the best bound proven before the stop is kept. The smaller of the two bounds is
+/// returned with its name.
 /// </summary>
 internal static class ColumnBoundStep
 {
-    /// <summary>Largest number of usable parts the column bound runs on for the matched form.</summary>
+    /// <summary>Largest number of usable parts of the matched form whose master has a row per part.</summary>
     public const int MaxParts = 400;
+
+    /// <summary>Largest number of usable parts the column bound runs on for the matched form (above
+    /// <see cref="MaxParts"/> with the pooled master; the 10 000-part quads keep the part count).</summary>
+    public const int MaxMatchedParts = 2_000;
 
     /// <summary>Up to this many usable parts every feasible set is enumerated (<see cref="EnumeratedPricing"/>, any
     /// form); above it only the matched form is priced.</summary>
@@ -42,18 +47,20 @@ internal static class ColumnBoundStep
     public const int GridSteps = 32;
 
     /// <summary>
-    /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.7 for a network recipe
+    /// Share of the time limit the column LP may take from the start of the assembly: 0.3, or 0.85 for a network recipe
     /// priced by <see cref="NetworkPricing"/> (above <see cref="EnumerateParts"/> parts), whose bound is proven only
     /// once the LP converges (the pricing's minimum stays 0 until then): on the 1 000-part divider reels it needs about
-    /// 2–4.5 s after the sweep and the part filter, and with 0.5 the normal reel did not converge in the benchmark,
-    /// while the search still found as many sets in the time left (docs/planning.md).
+    /// 2–4.5 s after the sweep and the part filter (5.3 s plus a 1.3 s build at load 7), and with 0.5 the normal reel
+    /// did not converge in the benchmark; with 0.7 it fell back to the part count under load. Once it converges, the
+    /// exact cover over its sets (<see cref="Packing.PoolPacker"/>) reached the bound on both divider reels, so the
+    /// neighbourhood search is needed only when it does not (docs/planning.md).
     /// </summary>
     public static double TimeShare(Recipe recipe, int usable) =>
         recipe.Form == RecipeForm.Network
         && usable > EnumerateParts
         && usable <= MaxNetworkParts
         && (recipe.Positions.Count <= MaxNetworkPositions || RatioPairPricing.Applies(recipe))
-            ? 0.7
+            ? 0.85
             : 0.3;
 
     /// <summary>The smaller of <paramref name="current"/> and the column bound, with its name, and the column
@@ -70,7 +77,7 @@ internal static class ColumnBoundStep
         if (
             current.Bound <= found.Count
             || usable.Count == 0
-            || (recipe.Form == RecipeForm.Matched && usable.Count > MaxParts)
+            || (recipe.Form == RecipeForm.Matched && usable.Count > MaxMatchedParts)
             || (
                 recipe.Form != RecipeForm.Matched
                 && usable.Count > EnumerateParts
@@ -130,7 +137,35 @@ internal static class ColumnBoundStep
             return BinnedColumnBound.Solve(pricing, usable, initial, stop);
         }
 
+        if (pricing is MatchedPricing && usable.Count > MaxParts)
+        {
+            var (z, classOf) = Pooling(usable, options);
+            return AggregatedColumnBound.Solve(pricing, z, classOf, new MatchedRule(recipe).Window, initial, stop);
+        }
+
         // Network pricing at reel scale costs far more per round than the master: more columns per round, fewer rounds.
         return ColumnBoundSolver.Solve(pricing, usable.Count, initial, stop, pricing is NetworkPricing ? 600 : 200);
+    }
+
+    // Per part, z = ln(value / nominal) and the index of its nominal (parts of one nominal are pooled).
+    internal static (double[] Z, int[] ClassOf) Pooling(IReadOnlyList<PartCandidate> usable, AssemblyOptions options)
+    {
+        var nominals = new List<double>();
+        var classOf = new int[usable.Count];
+        var z = new double[usable.Count];
+        for (var i = 0; i < usable.Count; i++)
+        {
+            var c = nominals.FindIndex(n => options.SameNominal(usable[i].Nominal, n));
+            if (c < 0)
+            {
+                c = nominals.Count;
+                nominals.Add(usable[i].Nominal);
+            }
+
+            classOf[i] = c;
+            z[i] = Math.Log(usable[i].Value.Value / usable[i].Nominal);
+        }
+
+        return (z, classOf);
     }
 }

@@ -81,6 +81,8 @@ internal sealed class MatchedPricing : IColumnPricing
         var min = double.PositiveInfinity;
         var found = new List<(double Cost, int[] Parts)>();
         var order = Enumerable.Range(0, Positions).ToArray();
+        var partners = new Dictionary<int, HashSet<int>>();
+        var passed = new List<int>();
         for (var w = 0; w < _windows; w++)
         {
             if ((w & 255) == 0 && stop())
@@ -100,7 +102,7 @@ internal sealed class MatchedPricing : IColumnPricing
                     next[g]++;
                 }
 
-                Cheapest(list, heaps[g], left, _need[g], y, kept[g]);
+                Cheapest(list, heaps[g], left, _need[g], y, kept[g], partners, passed);
                 empty |= kept[g].Count == 0;
             }
 
@@ -245,17 +247,24 @@ internal sealed class MatchedPricing : IColumnPricing
     }
 
     // The cheapest admissible options in cost order until `need` of them are mutually disjoint (or none are left).
-    // Options whose Lo is below the window's left edge never come back (the edge only rises) and are dropped.
+    // Options whose Lo is below the window's left edge never come back (the edge only rises) and are dropped. A pair
+    // is passed over (but stays in the heap) once one of its parts is already in `need` kept options with distinct
+    // partners: a cheapest assignment using it could swap it for one of those, whose other part is free since the
+    // other positions use at most need − 1 parts (the exchange argument of the class comment, per part).
     private static void Cheapest(
         OptionList list,
         PriorityQueue<int, double> heap,
         double left,
         int need,
         double[] y,
-        List<int> kept
+        List<int> kept,
+        Dictionary<int, HashSet<int>> partners,
+        List<int> passed
     )
     {
         kept.Clear();
+        passed.Clear();
+        partners.Clear();
         var disjoint = 0;
         var taken = new HashSet<int>();
         while (disjoint < need && heap.TryDequeue(out var o, out _))
@@ -265,9 +274,21 @@ internal sealed class MatchedPricing : IColumnPricing
                 continue;
             }
 
-            kept.Add(o);
             var a = list.A[o];
             var b = list.B[o];
+            if (b >= 0 && (Saturated(partners, a, b, need) || Saturated(partners, b, a, need)))
+            {
+                passed.Add(o);
+                continue;
+            }
+
+            kept.Add(o);
+            if (b >= 0)
+            {
+                Partners(partners, a).Add(b);
+                Partners(partners, b).Add(a);
+            }
+
             if (!taken.Contains(a) && (b < 0 || !taken.Contains(b)))
             {
                 disjoint++;
@@ -279,9 +300,23 @@ internal sealed class MatchedPricing : IColumnPricing
             }
         }
 
-        foreach (var o in kept)
+        foreach (var o in kept.Concat(passed))
         {
             heap.Enqueue(o, Cost(list, o, y));
         }
+    }
+
+    private static bool Saturated(Dictionary<int, HashSet<int>> partners, int part, int other, int need) =>
+        partners.TryGetValue(part, out var set) && set.Count - (set.Contains(other) ? 1 : 0) >= need;
+
+    private static HashSet<int> Partners(Dictionary<int, HashSet<int>> partners, int part)
+    {
+        if (!partners.TryGetValue(part, out var set))
+        {
+            set = [];
+            partners[part] = set;
+        }
+
+        return set;
     }
 }
