@@ -132,7 +132,6 @@ internal static class ColumnBoundProbe
                         options,
                         r,
                         swept,
-                        r.Bound,
                         () => t0.Elapsed > TimeSpan.FromSeconds(30)
                     );
                     Console.WriteLine(

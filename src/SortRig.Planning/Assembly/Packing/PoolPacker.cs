@@ -7,21 +7,21 @@ namespace SortRig.Planning.Assembly.Packing;
 /// First an exact cover by complementary slackness (LP duality, textbook): with duals y ≥ 0 and m = min y(S) over
 /// every feasible set, any disjoint sets that use only columns with y(S) = m and cover every part with y_i &gt; 0
 /// number Σ y / m, the LP value itself, so they are optimal whenever the LP is integral; <see cref="ExactCover"/> looks
-/// for one among the pool's columns. When there is none (or time runs out) the sets found so far and every column are
-/// packed by local search (<see cref="ColumnPacking"/>). On the 1 000-part divider reels the converged LP's own
-/// columns hold such a cover (docs/planning.md).
+/// for one among the pool's columns. When there is none (or time runs out) the sets found so far stand: a local search
+/// over the pool (iterated (1,2)-swaps) was tried and dropped, as it found fewer sets than the neighbourhood search in
+/// the same time (docs/planning.md). On the 1 000-part divider reels the converged LP's own columns hold such a cover.
 /// </summary>
 internal static class PoolPacker
 {
-    /// <summary>The better of <paramref name="found"/> and the pool's packing.</summary>
+    /// <summary>The exact cover's sets when there is one with more sets than <paramref name="found"/>, else
+    /// <paramref name="found"/>.</summary>
     /// <param name="recipe">The recipe.</param>
     /// <param name="usable">The usable parts (the pool's indices point here).</param>
     /// <param name="rule">The set rule; each new set is assigned to positions and judged again.</param>
     /// <param name="options">Limits (nominal matching).</param>
     /// <param name="lp">The column LP's result: its pool of feasible sets (part indices), duals and minimum set cost.
     /// </param>
-    /// <param name="found">Disjoint sets found so far (the start).</param>
-    /// <param name="bound">A proven upper bound: the search stops when it is reached.</param>
+    /// <param name="found">Disjoint sets found so far.</param>
     /// <param name="stop">True when time is up.</param>
     /// <returns>The sets, and how they were packed, in words.</returns>
     public static (List<(Option[] Fills, SetVerdict Verdict)> Sets, string How) Improve(
@@ -31,7 +31,6 @@ internal static class PoolPacker
         AssemblyOptions options,
         ColumnBound.ColumnBoundResult lp,
         List<(Option[] Fills, SetVerdict Verdict)> found,
-        int bound,
         Func<bool> stop
     )
     {
@@ -39,12 +38,10 @@ internal static class PoolPacker
         var value = new List<double>();
         var index = new Dictionary<string, int>();
         var known = new Dictionary<int, (Option[] Fills, SetVerdict Verdict)>();
-        var start = new List<int>();
         foreach (var set in found)
         {
             var j = Add(set.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).ToArray());
             known[j] = set;
-            start.Add(j);
         }
 
         // By decreasing LP value, so that the cover search tries the LP's own columns first.
@@ -87,25 +84,13 @@ internal static class PoolPacker
                 ? "no exact cover of the parts with positive duals by sets at the LP's minimum cost"
                 : "the exact cover search stopped by the time limit"
             : $"exact cover by {tight.Count} sets at the LP's minimum cost";
-        List<int> chosen;
-        if (cover is not null && cover.Count > found.Count)
-        {
-            chosen = cover;
-        }
-        else
-        {
-            var packing = new ColumnPacking(columns, usable.Count);
-            chosen = packing.Solve(start, bound, stop);
-            how += $"; local search over every set, {packing.Rounds} round(s)";
-        }
-
-        if (chosen.Count <= found.Count)
+        if (cover is null || cover.Count <= found.Count)
         {
             return (found, how);
         }
 
         var sets = new List<(Option[] Fills, SetVerdict Verdict)>();
-        foreach (var j in chosen)
+        foreach (var j in cover)
         {
             if (known.TryGetValue(j, out var set))
             {

@@ -40,7 +40,7 @@ public sealed class PoolPackerTests
                 continue;
             }
 
-            var (sets, how) = PoolPacker.Improve(s_decade, usable, rule, Defaults, lp, [], lp.Bound, () => false);
+            var (sets, how) = PoolPacker.Improve(s_decade, usable, rule, Defaults, lp, [], () => false);
             var used = new HashSet<int>();
             foreach (var (fills, _) in sets)
             {
