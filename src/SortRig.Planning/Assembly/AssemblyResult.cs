@@ -49,6 +49,11 @@ public enum AssemblyMethod
     /// cost (optimal when it exists), else local search; the neighbourhood search may follow (see
     /// docs/planning.md).</summary>
     SweepAndColumnLp,
+
+    /// <summary>For networks whose outputs depend on two part ratios (the difference amplifiers): ratio pairs
+    /// matched over the whole reel and joined into sets, better than the sweep; the column LP's packing or the
+    /// neighbourhood search may follow (see docs/planning.md).</summary>
+    RatioPairs,
 }
 
 /// <summary>The sets found for a recipe.</summary>

@@ -6,17 +6,20 @@ namespace SortRig.Planning.Assembly;
 /// <summary>
 /// A start for networks whose outputs depend only on two ratios a = R_J / R_I and b = R_L / R_K (the difference
 /// amplifiers; <see cref="ScalePairs"/>), when both sides take the same two distinct nominals. Sets are then two
-/// ratio pairs with a and b near one centre, so: (1) pair parts of the two nominals into ratio pairs with
+/// ratio pairs whose ratios the specs allow together, so: (1) pair parts of the two nominals into ratio pairs with
 /// ln(R_J / R_I) within ±w of the centre, as many as possible (points in intervals of equal width, sorted: taking the
-/// lowest free point of each interval in order is a maximum matching, a textbook greedy); (2) sort the pairs by ratio
-/// and join neighbours into sets, each judged by the real rule (uncertainty and error cancellation). Several w are
-/// tried, up to the largest shift of a = b that the specs allow; the most sets are kept. It sees the whole reel at
-/// once, where the sweep's common window and the neighbourhood search's 20-part windows cannot move a pairing from
-/// one end of a mode to the other. Pure.
+/// lowest free point of each interval in order is a maximum matching, a textbook greedy); (2) judge every two pairs
+/// close enough in ratio by the real rule (uncertainty and error cancellation) and join them by a greedy matching
+/// (fewest partners first). Several w are tried, the most sets kept. It sees the whole reel at once, where the sweep's
+/// common window and the neighbourhood search's 20-part windows cannot move a pairing from one end of a mode to the
+/// other. Pure.
 /// </summary>
 internal static class RatioPairStart
 {
-    private static readonly double[] s_widths = [0.3, 0.45, 0.6, 0.75, 0.9];
+    // Pair windows as shares of the joint shift of a = b, in the order tried: above 1 the pairs lean on partners that
+    // compensate. On the 1 000-part g10 reels (share: sets, normal / bimodal) 0.45: 232 / 235, 0.9: 245 / 239,
+    // 1.5: 248 / 244, 2: 249 / 249 (the part count); about 1.5-2 s each at load 2-3.
+    private static readonly double[] s_widths = [2, 3, 1.5, 1];
 
     /// <summary>The sets, or an empty list when the recipe does not have this structure; and a proven upper bound on
     /// the number of sets (null then): every set holds a ratio pair a within the range some partner b allows, a pair
@@ -28,7 +31,9 @@ internal static class RatioPairStart
         Recipe recipe,
         IReadOnlyList<PartCandidate> usable,
         ISetRule rule,
-        AssemblyOptions options
+        AssemblyOptions options,
+        int target = int.MaxValue,
+        Func<bool>? stop = null
     )
     {
         if (rule is not NetworkRule network || recipe.Positions.Count != 4)
@@ -64,10 +69,17 @@ internal static class RatioPairStart
         var inB = Pairs(xs, ys, centre - b.Down, centre + b.Up).Count;
         var inEither = Pairs(xs, ys, centre - Math.Max(a.Down, b.Down), centre + Math.Max(a.Up, b.Up)).Count;
         var bound = Math.Min(Math.Min(inA, inB), inEither / 2);
+        // Two pairs of one set differ in ratio by at most the larger reach on each side.
+        var reach = Math.Max(a.Down, b.Down) + Math.Max(a.Up, b.Up);
         List<(Option[] Fills, SetVerdict Verdict)> best = [];
         foreach (var share in s_widths)
         {
-            var sets = Assemble(rule, (i, j, k, l), xs, ys, centre, share * shift);
+            if (best.Count >= target || (best.Count > 0 && stop?.Invoke() == true))
+            {
+                break;
+            }
+
+            var sets = Assemble(rule, (i, j, k, l), xs, ys, centre, share * shift, reach);
             if (sets.Count > best.Count)
             {
                 best = sets;
@@ -165,36 +177,70 @@ internal static class RatioPairStart
         List<(int Index, double Z, Option Fill)> xs,
         List<(int Index, double Z, Option Fill)> ys,
         double centre,
-        double w
+        double w,
+        double reach
     )
     {
         var pairs = Pairs(xs, ys, centre - w, centre + w);
 
-        // (2) neighbours by ratio into sets, either pair on either side.
+        // (2) pairs joined into sets: every two pairs within `reach` of each other in ratio judged by the real rule
+        // (either pair on either side), then a greedy matching that takes the pair with the fewest partners left and
+        // joins it to its partner with the fewest (a common heuristic for maximum matching, no source).
         pairs.Sort((a, b) => a.T.CompareTo(b.T));
-        var sets = new List<(Option[] Fills, SetVerdict Verdict)>();
+        var edges = new List<(int Other, Option[] Fills, SetVerdict Verdict)>[pairs.Count];
         var fills = new Option[4];
-        for (var n = 0; n + 1 < pairs.Count; )
+        for (var n = 0; n < pairs.Count; n++)
         {
-            (Option[] Fills, SetVerdict Verdict)? made = null;
-            foreach (var (a, b) in new[] { (pairs[n], pairs[n + 1]), (pairs[n + 1], pairs[n]) })
+            edges[n] ??= [];
+            for (var m = n + 1; m < pairs.Count && pairs[m].T - pairs[n].T <= reach; m++)
             {
-                (fills[p.I], fills[p.J], fills[p.K], fills[p.L]) = (a.X, a.Y, b.X, b.Y);
-                var verdict = rule.Judge(fills);
-                if (verdict.Meets && (made is null || verdict.Score < made.Value.Verdict.Score))
+                (Option[] Fills, SetVerdict Verdict)? made = null;
+                foreach (var (a, b) in new[] { (pairs[n], pairs[m]), (pairs[m], pairs[n]) })
                 {
-                    made = ((Option[])fills.Clone(), verdict);
+                    (fills[p.I], fills[p.J], fills[p.K], fills[p.L]) = (a.X, a.Y, b.X, b.Y);
+                    var verdict = rule.Judge(fills);
+                    if (verdict.Meets && (made is null || verdict.Score < made.Value.Verdict.Score))
+                    {
+                        made = ((Option[])fills.Clone(), verdict);
+                    }
+                }
+
+                if (made is { } set)
+                {
+                    edges[n].Add((m, set.Fills, set.Verdict));
+                    (edges[m] ??= []).Add((n, set.Fills, set.Verdict));
+                }
+            }
+        }
+
+        var sets = new List<(Option[] Fills, SetVerdict Verdict)>();
+        var taken = new bool[pairs.Count];
+        var degree = edges.Select(e => e.Count).ToArray();
+        while (true)
+        {
+            var v = -1;
+            for (var n = 0; n < pairs.Count; n++)
+            {
+                if (!taken[n] && degree[n] > 0 && (v < 0 || degree[n] < degree[v]))
+                {
+                    v = n;
                 }
             }
 
-            if (made is { } set)
+            if (v < 0)
             {
-                sets.Add(set);
-                n += 2;
+                break;
             }
-            else
+
+            var best = edges[v].Where(e => !taken[e.Other]).MinBy(e => degree[e.Other]);
+            sets.Add((best.Fills, best.Verdict));
+            foreach (var end in new[] { v, best.Other })
             {
-                n++;
+                taken[end] = true;
+                foreach (var e in edges[end])
+                {
+                    degree[e.Other]--;
+                }
             }
         }
 

@@ -129,18 +129,23 @@ public sealed class SetAssembler(
             );
         }
 
-        var (paired, pairBound) = RatioPairStart.Run(recipe, pool.Usable, rule, _options);
-        if (paired.Count > found.Count)
-        {
-            note += $"; ratio pairs matched over the whole reel: {paired.Count} sets (the sweep had {found.Count})";
-            found = paired;
-        }
-
         // The network filter of the bound may take a tenth of the time limit; parts left then are counted unfiltered.
         var filterBudget = _options.TimeLimit / 10;
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
             _time.GetElapsedTime(started) > filterBudget
         );
+        // The ratio-pair start: pair windows tried until the bound is met or 0.4 of the time limit is gone (each
+        // window about 1.5-2 s on a 1 000-part amplifier reel).
+        var (paired, pairBound) = RatioPairStart.Run(recipe, pool.Usable, rule, _options, bound, () =>
+            _time.GetElapsedTime(started) > _options.TimeLimit * 0.4
+        );
+        var byPairs = paired.Count > found.Count;
+        if (byPairs)
+        {
+            note += $"; ratio pairs matched over the whole reel: {paired.Count} sets (the sweep had {found.Count})";
+            found = paired;
+        }
+
         if (pairBound < bound)
         {
             (bound, boundName) = (
@@ -149,7 +154,7 @@ public sealed class SetAssembler(
             );
         }
 
-        // The column LP may take up to three tenths of the time limit, seven tenths for a network at reel scale
+        // The column LP may take up to three tenths of the time limit, 0.85 for a network at reel scale
         // (anytime; skipped when it cannot help).
         var share = ColumnBound.ColumnBoundStep.TimeShare(recipe, pool.Usable.Count);
         ColumnBound.ColumnBoundResult? lp;
@@ -176,8 +181,14 @@ public sealed class SetAssembler(
         }
 
         _options.Progress?.Report(new AssemblyProgress("sweep", found.Count, bound, _time.GetElapsedTime(started)));
-        var method = packed ? AssemblyMethod.SweepAndColumnLp : AssemblyMethod.Sweep;
-        var tieBreak = packed ? "none: the packed sets are kept as found" : "none: the sweep's sets are kept as found";
+        var method =
+            packed ? AssemblyMethod.SweepAndColumnLp
+            : byPairs ? AssemblyMethod.RatioPairs
+            : AssemblyMethod.Sweep;
+        var tieBreak =
+            packed ? "none: the packed sets are kept as found"
+            : byPairs ? "none: the matched pairs' sets are kept as found"
+            : "none: the sweep's sets are kept as found";
         var search = new NeighbourhoodSearch(recipe, pool.Usable, rule, _options);
         if (found.Count < bound && search.Applies && _options.TimeLimit > TimeSpan.Zero)
         {
@@ -193,8 +204,8 @@ public sealed class SetAssembler(
                     ),
                 cancellationToken
             );
-            // After a packing of the LP's sets the method names the search only when it added sets.
-            method = packed && found.Count == beforeSearch ? method : AssemblyMethod.SweepAndNeighbourhood;
+            // After a packing of the LP's sets or the ratio pairs the method names the search only when it added sets.
+            method = (packed || byPairs) && found.Count == beforeSearch ? method : AssemblyMethod.SweepAndNeighbourhood;
             tieBreak = "smallest sum of set scores within each re-packed neighbourhood (not over the whole plan)";
             var stopped =
                 _time.GetElapsedTime(started) > deadline
