@@ -198,7 +198,9 @@ internal static class PlanningBenchmark
             "",
             "The reel-scale path (exact search off: window sweep, then neighbourhood search with windows of 10 "
                 + "parts, smaller than",
-            "the instances) against the exact search; the sweep alone for comparison (the previous assembler). Seeds "
+            "the instances) against the exact search; 'without search' = the same with the neighbourhood search off "
+                + "(the sweep, and the",
+            "ratio-pair start and the column LP's exact cover where they apply: so on the divider it is exact). Seeds "
                 + "0–39; expanded",
             "uncertainty uniform up to the stated ppm. 'bound sum' is the reel-scale path's proven upper bound "
                 + "summed over the instances;",
