@@ -87,17 +87,8 @@ internal static class AggregatedColumnBound
                     return WithPool(best);
                 }
 
-                var sum = y.Sum();
-                var value =
-                    double.IsPositiveInfinity(priced.Min) ? 0
-                    : priced.Min > 0 ? sum / priced.Min
-                    : double.PositiveInfinity;
                 var converged = priced.Columns.Count == 0;
-                if (double.IsFinite(value) && (best is null || value < best.Value))
-                {
-                    var bound = (int)Math.Floor(value + 1e-6);
-                    best = new(bound, value, y, priced.Min, master.ColumnCount, rounds, converged, family);
-                }
+                best = ColumnBoundResult.Better(best, y, priced, master.ColumnCount, rounds, () => family);
 
                 var added = 0;
                 foreach (var c in priced.Columns)

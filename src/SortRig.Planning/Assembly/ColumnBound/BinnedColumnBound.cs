@@ -78,18 +78,10 @@ internal static class BinnedColumnBound
                 break;
             }
 
-            var sum = y.Sum();
-            var value =
-                double.IsPositiveInfinity(priced.Min) ? 0
-                : priced.Min > 0 ? sum / priced.Min
-                : double.PositiveInfinity;
             var converged = priced.Columns.Count == 0;
-            if (double.IsFinite(value) && (best is null || value < best.Value))
-            {
-                var bound = (int)Math.Floor(value + 1e-6);
-                var family = pricing.Family + $"; duals equal within {capacity.Length} bins of parts";
-                best = new(bound, value, y, priced.Min, vectors.Count, round, converged, family);
-            }
+            best = ColumnBoundResult.Better(best, y, priced, vectors.Count, round, () =>
+                pricing.Family + $"; duals equal within {capacity.Length} bins of parts"
+            );
 
             var added = 0;
             foreach (var c in priced.Columns)

@@ -28,6 +28,37 @@ internal sealed record ColumnBoundResult(
     /// found (each judged by the set rule), as part indices; a pool for packing, not part of the proof.</summary>
     public IReadOnlyList<int[]> Pool { get; init; } = [];
 
+    /// <summary>
+    /// The bound one pricing round proves, Σ y / m (LP duality; 0 when no feasible set exists, none while m = 0), as a
+    /// result when it beats <paramref name="best"/>; else <paramref name="best"/>.
+    /// </summary>
+    public static ColumnBoundResult? Better(
+        ColumnBoundResult? best,
+        double[] y,
+        PricingResult priced,
+        int columns,
+        int round,
+        Func<string> family
+    )
+    {
+        var value =
+            double.IsPositiveInfinity(priced.Min) ? 0
+            : priced.Min > 0 ? y.Sum() / priced.Min
+            : double.PositiveInfinity;
+        return double.IsFinite(value) && (best is null || value < best.Value)
+            ? new(
+                (int)Math.Floor(value + 1e-6),
+                value,
+                y,
+                priced.Min,
+                columns,
+                round,
+                priced.Columns.Count == 0,
+                family()
+            )
+            : best;
+    }
+
     /// <summary>The restricted master's last primal solution, one value per column of <see cref="Pool"/>.</summary>
     public double[] PoolValues { get; init; } = [];
 }

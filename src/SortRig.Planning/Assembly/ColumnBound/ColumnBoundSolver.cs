@@ -46,17 +46,8 @@ internal static class ColumnBoundSolver
                 break;
             }
 
-            var sum = y.Sum();
-            var value =
-                double.IsPositiveInfinity(priced.Min) ? 0
-                : priced.Min > 0 ? sum / priced.Min
-                : double.PositiveInfinity;
             var converged = priced.Columns.Count == 0;
-            if (double.IsFinite(value) && (best is null || value < best.Value))
-            {
-                var bound = (int)Math.Floor(value + 1e-6);
-                best = new(bound, value, y, priced.Min, master.ColumnCount, round, converged, pricing.Family);
-            }
+            best = ColumnBoundResult.Better(best, y, priced, master.ColumnCount, round, () => pricing.Family);
 
             var added = 0;
             foreach (var c in priced.Columns)

@@ -359,38 +359,10 @@ internal sealed class NetworkPricing : IColumnPricing
             }
         }
 
-        lower.Sort((p, q) => p.Bound.CompareTo(q.Bound));
-        var min = double.PositiveInfinity;
-        var found = new List<(double Cost, int[] Parts)>();
-        var scans = 0;
-        for (var i = 0; i < lower.Count; i++)
-        {
-            var (bound, prefix, l) = lower[i];
-            if (bound >= min && (bound >= 1 - 1e-9 || found.Count >= maxColumns))
-            {
-                // Every later leaf costs at least this: the minimum cannot fall, and no column can come from it or
-                // enough are held.
-                break;
-            }
-
-            if ((i & 255) == 0 && stop())
-            {
-                return new PricingResult(double.NaN, []);
-            }
-
-            // A leaf is judged in full (cached) only when it could lower the minimum, or, a few per round, when
-            // columns are still wanted; otherwise its cheapest untried option stands as a lower bound.
-            var mayScan = bound < min || (found.Count < maxColumns && scans < MaxScans);
-            var (leafMin, set, scanned) = LeafMin(table, l, prefix, duals, mayScan);
-            scans += scanned ? 1 : 0;
-            min = Math.Min(min, leafMin);
-            if (set is not null && leafMin < 1 - 1e-9 && found.Count < 4 * maxColumns)
-            {
-                found.Add((leafMin, set));
-            }
-        }
-
-        return new PricingResult(min, MatchedPricing.Spread(found, maxColumns));
+        var y = duals.ToArray(); // a span cannot enter the lambda
+        return LeafScan.Run(lower, maxColumns, MaxScans, stop, (l, prefix, mayScan) =>
+            LeafMin(table, l, prefix, y, mayScan)
+        );
     }
 
     private double PrefixParts(int[] leaf, ReadOnlySpan<double> duals, List<int> parts)
