@@ -138,50 +138,7 @@ internal static class ColumnBoundProbe
                         $"  pool packing: {packed.Count} sets from {r.Pool.Count} columns (sweep {swept.Count}), "
                             + $"{how} in {t0.Elapsed.TotalSeconds:0.00} s"
                     );
-                    foreach (
-                        var (label, cols, exact) in new[]
-                        {
-                            ("pool", r.Pool, false),
-                            ("tight+cover", (IReadOnlyList<int[]>)tightPool, true),
-                        }
-                    )
-                    {
-                        foreach (var secs in new[] { 2, 5 })
-                        {
-                            var model = new Google.OrTools.Sat.CpModel();
-                            var x = cols.Select((_, j) => model.NewBoolVar($"c{j}")).ToArray();
-                            var byPart = new List<Google.OrTools.Sat.ILiteral>[pool.Usable.Count];
-                            for (var j = 0; j < cols.Count; j++)
-                            {
-                                foreach (var i in cols[j])
-                                {
-                                    (byPart[i] ??= []).Add(x[j]);
-                                }
-                            }
-
-                            for (var i = 0; i < byPart.Length; i++)
-                            {
-                                if (byPart[i] is not { } lits)
-                                    continue;
-                                if (exact && r.Duals[i] > 1e-9)
-                                    model.AddExactlyOne(lits);
-                                else if (lits.Count > 1)
-                                    model.AddAtMostOne(lits);
-                            }
-
-                            model.Maximize(Google.OrTools.Sat.LinearExpr.Sum(x));
-                            var solver = new Google.OrTools.Sat.CpSolver
-                            {
-                                StringParameters = $"num_workers:2,max_time_in_seconds:{secs}",
-                            };
-                            var t = Stopwatch.StartNew();
-                            var status = solver.Solve(model);
-                            Console.WriteLine(
-                                $"  CP-SAT {label} {cols.Count} columns, {secs} s: {status} {solver.ObjectiveValue} "
-                                    + $"(bound {solver.BestObjectiveBound}) in {t.Elapsed.TotalSeconds:0.00} s"
-                            );
-                        }
-                    }
+                    PoolCpSat.Report(r, tightPool, pool.Usable.Count);
                 }
             }
         }

@@ -48,8 +48,8 @@ internal static class RatioPairStart
         }
 
         if (
-            nominal[i] != nominal[k]
-            || nominal[j] != nominal[l]
+            !options.SameNominal(nominal[i], nominal[k])
+            || !options.SameNominal(nominal[j], nominal[l])
             || options.SameNominal(nominal[i], nominal[j])
             || recipe.Positions.Any(pos => pos.Pairs != PairBuilds.None)
         )

@@ -134,10 +134,8 @@ public sealed class SetAssembler(
         var (bound, boundName) = PartCountBound.ComputeNamed(recipe, pool.Usable, rule, _options, () =>
             _time.GetElapsedTime(started) > filterBudget
         );
-        // The ratio-pair start: pair windows tried until the bound is met or 0.4 of the time limit is gone (each
-        // window about 1.5-2 s on a 1 000-part amplifier reel).
         var (paired, pairBound) = RatioPairStart.Run(recipe, pool.Usable, rule, _options, bound, () =>
-            _time.GetElapsedTime(started) > _options.TimeLimit * 0.4
+            _time.GetElapsedTime(started) > _options.TimeLimit * RatioPairShare
         );
         var byPairs = paired.Count > found.Count;
         if (byPairs)
@@ -256,6 +254,10 @@ public sealed class SetAssembler(
 
         return Result(recipe, pool, found, method, note, bound, boundName, tieBreak, _time.GetElapsedTime(started));
     }
+
+    /// <summary>Share of the time limit by which the ratio-pair start stops trying pair windows (each about 1.5–2 s on
+    /// a 1 000-part amplifier reel; it stops sooner when the bound is met).</summary>
+    private const double RatioPairShare = 0.4;
 
     /// <summary>Share of the time left after the column LP that the exact cover over its sets may take (the
     /// neighbourhood search has the rest; the cover, when there is one, took 0.05–0.5 s on the divider reels).

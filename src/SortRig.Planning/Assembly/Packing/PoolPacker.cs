@@ -83,7 +83,7 @@ internal static class PoolPacker
             ? complete
                 ? "no exact cover of the parts with positive duals by sets at the LP's minimum cost"
                 : "the exact cover search stopped by the time limit"
-            : $"exact cover by {tight.Count} sets at the LP's minimum cost";
+            : $"exact cover from the {tight.Count} sets at the LP's minimum cost";
         if (cover is null || cover.Count <= found.Count)
         {
             return (found, how);
