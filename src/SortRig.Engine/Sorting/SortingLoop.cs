@@ -83,6 +83,13 @@ public sealed partial class SortingLoop
                 }
             }
 
+            // A stop that lands where nothing awaited throws (a reading already in, a durable write past its start
+            // check) ends the loop at its head: it is still a stop, never a finished session (exit 130, resume hint).
+            if (!Done)
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+            }
+
             if (Done && _check is not null && _partsRecorded > _partsAtLastCheck)
             {
                 await RunCheckAsync("end", resumeFeeding: false, atStart: false, cancellationToken)

@@ -50,6 +50,12 @@ internal sealed partial class TypedSortingLoop(TypedContext context)
 
                 await OnLineAsync(line.Trim(), cancellationToken).ConfigureAwait(false);
             }
+
+            // A stop that lands between two lines still ends as a stop, never as a finished session.
+            if (!Done && !_inputEnded)
+            {
+                cancellationToken.ThrowIfCancellationRequested();
+            }
         }
 
         if (Done && !_inputEnded)
