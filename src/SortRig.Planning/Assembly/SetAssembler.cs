@@ -216,6 +216,7 @@ public sealed class SetAssembler(
                     + $"{search.Shrunk} re-packed on fewer parts (too many assignments), "
                     + $"{_options.NeighbourhoodParts} parts per window{stopped}"
             );
+            note += search.Released > 0 ? $" ({search.Released} pair(s) given back for leftover singles)" : "";
         }
         else if (
             found.Count < bound
