@@ -226,6 +226,17 @@ public sealed class SetAssembler(
         )
         {
             var deadline = _options.TimeLimit;
+            // Sets too large for a window: the sweep on each side of the widest empty stretch of z, kept when better.
+            if (GapSplitSweep.Run(recipe, pool, rule, _options) is { } split && split.Sets.Count > found.Count)
+            {
+                note += string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"; split at the widest gap in z ({split.Low * 1e6:0} to {split.High * 1e6:0} ppm): "
+                        + $"{split.Sets.Count} sets (had {found.Count})"
+                );
+                found = split.Sets;
+            }
+
             var repair = new RepairSearch(pool.Usable, rule, new SweepGeometry(recipe, rule), _options);
             var before = found.Count;
             found = repair.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline, cancellationToken);
