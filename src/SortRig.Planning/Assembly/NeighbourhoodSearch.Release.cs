@@ -77,8 +77,9 @@ internal sealed partial class NeighbourhoodSearch
         int q
     )
     {
-        // A set within a match window or two of the part in z; farther ones cannot take it (feasible sets are local
-        // in z). Four windows of the widest output tolerance leave room for pairs whose parts lie far apart.
+        // Only sets whose key (the mean z of their parts) lies within four match windows of the part: a set that can
+        // take it has every single within one window of it, and a pair's two parts average to a point in that window
+        // too, so the key is within about one window; four leave room for the parts' uncertainties.
         var reach = 4 * Math.Log(1 + (Math.Max(recipe.MatchTolerancePpm, 1) * 1e-6));
         var keys = sets.Select(s => s.Fills.SelectMany(f => f.B >= 0 ? new[] { f.A, f.B } : [f.A]).Average(i => _z[i]))
             .ToArray();
