@@ -84,6 +84,11 @@ internal sealed partial class NeighbourhoodSearch(
                 (releasedAt, idleReleases) = (sets.Count, 0);
             }
 
+            if (CompleteSets(sets, cancellationToken) > 0)
+            {
+                continue;
+            }
+
             if (idleReleases < MaxIdleReleases && ReleasePairs(sets, cancellationToken) > 0)
             {
                 idleReleases++;

@@ -217,6 +217,7 @@ public sealed class SetAssembler(
                     + $"{_options.NeighbourhoodParts} parts per window{stopped}"
             );
             note += search.Released > 0 ? $" ({search.Released} pair(s) given back for leftover singles)" : "";
+            note += search.Completed > 0 ? $" ({search.Completed} set(s) completed along chains)" : "";
         }
         else if (
             found.Count < bound
