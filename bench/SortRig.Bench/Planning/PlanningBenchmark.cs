@@ -106,6 +106,18 @@ internal static class PlanningBenchmark
             return 0;
         }
 
+        if (section == "ratio-seeds")
+        {
+            RatioSeedsProbe.Run(every.First(e => e.Item1 == "ratio-set").Item2);
+            return 0;
+        }
+
+        if (section == "ladder")
+        {
+            LadderProbe.Run(every.First(e => e.Item1 == "r2r-dac-8bit").Item2);
+            return 0;
+        }
+
         if (section == "probe")
         {
             var some = every.Where(e => e.Item1 is "ratio-set" or "diff-amp-g10" or "decade-divider").ToList();

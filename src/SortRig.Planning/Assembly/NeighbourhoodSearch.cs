@@ -60,6 +60,7 @@ internal sealed partial class NeighbourhoodSearch(
             return sets;
         }
 
+        var (releasedAt, idleReleases) = (sets.Count, 0);
         while (true)
         {
             _countFirst = true;
@@ -73,6 +74,25 @@ internal sealed partial class NeighbourhoodSearch(
             if (sets.Count >= bound || outOfTime())
             {
                 return sets;
+            }
+
+            // Leftover singles take the place of pairs (same sets, parts given back): count first again. The score
+            // pass below may form those pairs again (a smaller sum of scores), so a release that gained no set is
+            // tried at most twice in a row: the search still ends on its own.
+            if (sets.Count > releasedAt)
+            {
+                (releasedAt, idleReleases) = (sets.Count, 0);
+            }
+
+            if (CompleteSets(sets, cancellationToken) > 0)
+            {
+                continue;
+            }
+
+            if (idleReleases < MaxIdleReleases && ReleasePairs(sets, cancellationToken) > 0)
+            {
+                idleReleases++;
+                continue;
             }
 
             // No window gains a set: one pass for a smaller sum of scores (it moves parts between sets and leftovers,

@@ -216,6 +216,8 @@ public sealed class SetAssembler(
                     + $"{search.Shrunk} re-packed on fewer parts (too many assignments), "
                     + $"{_options.NeighbourhoodParts} parts per window{stopped}"
             );
+            note += search.Released > 0 ? $" ({search.Released} pair(s) given back for leftover singles)" : "";
+            note += search.Completed > 0 ? $" ({search.Completed} set(s) completed along chains)" : "";
         }
         else if (
             found.Count < bound
@@ -225,6 +227,17 @@ public sealed class SetAssembler(
         )
         {
             var deadline = _options.TimeLimit;
+            // Sets too large for a window: the sweep on each side of the widest empty stretch of z, kept when better.
+            if (GapSplitSweep.Run(recipe, pool, rule, _options) is { } split && split.Sets.Count > found.Count)
+            {
+                note += string.Create(
+                    System.Globalization.CultureInfo.InvariantCulture,
+                    $"; split at the widest gap in z ({split.Low * 1e6:0} to {split.High * 1e6:0} ppm): "
+                        + $"{split.Sets.Count} sets (had {found.Count})"
+                );
+                found = split.Sets;
+            }
+
             var repair = new RepairSearch(pool.Usable, rule, new SweepGeometry(recipe, rule), _options);
             var before = found.Count;
             found = repair.Improve(found, bound, () => _time.GetElapsedTime(started) > deadline, cancellationToken);

@@ -51,7 +51,7 @@ public sealed class RepairSearchTests
         Assert.True(gained > 0, "the repair added no set on any seed");
     }
 
-    private static double? Judge(IReadOnlyList<(double Value, double U)> fills)
+    internal static double? Judge(IReadOnlyList<(double Value, double U)> fills)
     {
         var names = s_ladder.Positions.Select(p => p.Name).ToList();
         var checks = NetworkEvaluator.Evaluate(
