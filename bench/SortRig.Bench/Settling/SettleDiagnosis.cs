@@ -168,10 +168,8 @@ internal static class SettleDiagnosis
         var taus = string.Join(",", f.TimeConstantsSeconds.Select(x => Inv($"{x:0.00}")));
         return Inv($"fit {f.Model} tau [{taus}] w {f.Weight:0.00} uFit {f.FitUncertainty / truth * 1e6:0.0} ")
             + Inv($"uMis {f.MisfitUncertainty / truth * 1e6:0.0} n {f.Readings} span {f.SpanSeconds:0.0} ")
-            + Inv(
-                $"runsZ {f.RunsZ:0.0} body {f.BodyTimeConstant:0.00}±{f.BodyStandardError:0.00} floor "
-                    + $"{f.BodyFloor:0.00}; "
-            );
+            + Inv($"runsZ {f.RunsZ:0.0} body {f.BodyTimeConstant:0.00}±{f.BodyStandardError:0.00} ")
+            + Inv($"floor {f.BodyFloor:0.00}; ");
     }
 
     private static string PartText(SimulatedPart part, Insertion ins) =>
