@@ -15,7 +15,10 @@ namespace SortRig.Measurement.Settling;
 /// interval also holds the asymptotes of the body held across the prior's range (<see cref="SlowBodyRange"/>). The
 /// model-misfit term is a rectangular allowance of MisfitFraction times the recovery still to come. A fit accepts only
 /// when its residuals pass the runs test, no level shift is significant (<see cref="StepTest"/>), and the combined
-/// uncertainty meets the target.
+/// uncertainty meets the target. With a reel-learned range of the body time constant (<see cref="BodyRange"/>,
+/// <see cref="ReelPrior"/>) the interval is taken under it (<see cref="ExponentialFitter.PriorInterval"/>) unless the
+/// record refuses it; a refused look, or one that would decide under the wide prior with the body fitted below the
+/// reel's floor, does not accept.
 /// </summary>
 internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {

@@ -43,7 +43,8 @@ public sealed record RecoveryFit(
     public bool BodyResolved { get; init; }
 
     /// <summary>The reel-learned floor of the body time constant the interval was taken under, s; null: the wide
-    /// prior (none learned yet, or the part's record refused the floor).</summary>
+    /// prior (none learned yet, a record too short for it, the part's record refused the range, or a one-path fit
+    /// whose own interval was the narrower).</summary>
     public double? BodyFloor { get; init; }
 
     /// <summary>Combined standard uncertainty of <see cref="FinalValue"/>, ohms.</summary>
