@@ -42,6 +42,7 @@ internal static class SettleBenchmark
             );
             var bounce = new SimulatedBenchOptions().ContactBounce;
             var outcomes = c.Variants.Select(_ => new List<RuleOutcome>()).ToList();
+            var priors = c.Variants.Select(_ => ReelPrior.Empty).ToArray();
             var fixedDelay = new MatchedFixedDelay(range, nplc);
             var limit = new List<RuleOutcome>();
             foreach (
@@ -51,7 +52,7 @@ internal static class SettleBenchmark
                 ct.ThrowIfCancellationRequested();
                 for (var v = 0; v < c.Variants.Count; v++)
                 {
-                    outcomes[v].Add(AdaptiveRule.Run(insertion, range, nplc, c.Variants[v].Options));
+                    outcomes[v].Add(AdaptiveRule.Run(insertion, range, nplc, c.Variants[v].Options, ref priors[v]));
                 }
 
                 fixedDelay.Add(insertion);

@@ -37,9 +37,11 @@ internal static class SettleDiagnosis
         }
 
         var (bad, predicted, seconds, n, predictedSeconds) = (0, 0, 0.0, 0, 0.0);
+        var (byPrior, priorSeconds) = (0, 0.0);
+        var prior = ReelPrior.Empty;
         foreach (var ins in source.Insertions())
         {
-            var tracker = new SettleTracker(range, nplc, options);
+            var tracker = new SettleTracker(range, nplc, options, prior);
             for (var k = 0; k < 200_000; k++)
             {
                 var verdict = tracker.Add(ins.Reading(k));
@@ -54,7 +56,19 @@ internal static class SettleDiagnosis
                 }
 
                 n++;
+                if (prior.BodyRange is null && tracker.Prior.BodyRange is { } fl)
+                {
+                    Console.WriteLine(
+                        Inv($"reel prior's body range {fl.Floor:0.00}-{fl.Ceiling:0.00} s from part {ins.Index}")
+                    );
+                }
+
+                prior = tracker.Prior;
                 seconds += ins.Since(k).TotalSeconds;
+                if (a.Fit?.BodyFloor is not null && a.AcceptedBy == SettleRule.Predictive)
+                {
+                    (byPrior, priorSeconds) = (byPrior + 1, priorSeconds + ins.Since(k).TotalSeconds);
+                }
                 var err = (a.Value.Value - ins.Truth) / ins.Truth * 1e6;
                 predicted += a.AcceptedBy == SettleRule.Predictive ? 1 : 0;
                 predictedSeconds += a.AcceptedBy == SettleRule.Predictive ? ins.Since(k).TotalSeconds : 0;
@@ -79,7 +93,8 @@ internal static class SettleDiagnosis
         Console.WriteLine(
             Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
                 + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
-                + Inv($"mean {seconds / n:0.00} s")
+                + Inv($"mean {seconds / n:0.00} s; {byPrior} by prediction under the reel prior ")
+                + Inv($"(mean {priorSeconds / byPrior:0.00} s), learned from {prior.Count} parts: {prior.BodyRange}")
         );
         return 0;
     }
@@ -153,7 +168,8 @@ internal static class SettleDiagnosis
         var taus = string.Join(",", f.TimeConstantsSeconds.Select(x => Inv($"{x:0.00}")));
         return Inv($"fit {f.Model} tau [{taus}] w {f.Weight:0.00} uFit {f.FitUncertainty / truth * 1e6:0.0} ")
             + Inv($"uMis {f.MisfitUncertainty / truth * 1e6:0.0} n {f.Readings} span {f.SpanSeconds:0.0} ")
-            + Inv($"runsZ {f.RunsZ:0.0}; ");
+            + Inv($"runsZ {f.RunsZ:0.0} body {f.BodyTimeConstant:0.00}±{f.BodyStandardError:0.00} ")
+            + Inv($"floor {f.BodyFloor:0.00}; ");
     }
 
     private static string PartText(SimulatedPart part, Insertion ins) =>

@@ -108,8 +108,8 @@ public sealed class SortOptions
     /// Which settle rule accepts parts: averaging (the mean of the last readings once they stopped moving) or
     /// predictive (also fits each part's thermal recovery and may accept earlier with the extrapolated final value;
     /// the averaging rule decides whenever no model fits); bound case-insensitively. Default
-    /// <see cref="SettleRule.Averaging"/>: the predictive rule has not yet held the false-accept bound on the rich
-    /// simulated bench (docs/bench-settle.md).
+    /// <see cref="SettleRule.Averaging"/>: the predictive rule holds the false-accept bound on the settle benchmark's
+    /// seeds but not yet on another seed of the rich simulated bench (docs/bench-settle.md).
     /// </summary>
     [EnumDataType(typeof(SettleRule), ErrorMessage = "Sort:Settle must be averaging or predictive.")]
     public SettleRule Settle { get; set; } = SettleRule.Averaging;

@@ -160,8 +160,8 @@ internal static class SortCommand
             {
                 Description =
                     "Settle rule: averaging (default) or predictive (fits each part's cooling and may accept "
-                    + "earlier; not the default because it has not yet held the false-accept bound on the rich "
-                    + "simulated bench, see docs/bench-settle.md)",
+                    + "earlier; not the default because it holds the false-accept bound on the benchmark's seeds but "
+                    + "not yet beyond them, see docs/bench-settle.md)",
             },
             "Sort:Settle"
         );

@@ -16,6 +16,9 @@ internal sealed record ExponentialFit(
     bool Converged
 )
 {
+    /// <summary>s² (JᵀJ)⁻¹ for the slowest time constant, s²; ∞ when the Jacobian is singular.</summary>
+    public double VarianceOfSlowest { get; init; } = double.PositiveInfinity;
+
     /// <summary>Number of fitted parameters p: A, and one amplitude and one time constant per exponential.</summary>
     public int Parameters => 1 + (2 * TimeConstants.Length);
 

@@ -152,6 +152,7 @@ internal static partial class ExponentialFitter
         var s2 = Math.Max(n > p ? rss / (n - p) : 0, floor);
         var amplitudes = beta[1..];
         var variance = double.PositiveInfinity;
+        var slowVariance = double.PositiveInfinity;
         if (n >= p && double.IsFinite(rss))
         {
             // Jacobian columns: ∂/∂A = 1, ∂/∂B_j = e^(−t/τ_j), ∂/∂τ_j = B_j t/τ_j² e^(−t/τ_j).
@@ -178,7 +179,11 @@ internal static partial class ExponentialFitter
 
             var inverse = jtj.Inverse();
             var c = inverse[0, 0];
-            variance = double.IsFinite(c) && c > 0 && jtj.ConditionNumber() < 1e14 ? s2 * c : double.PositiveInfinity;
+            var conditioned = jtj.ConditionNumber() < 1e14;
+            variance = double.IsFinite(c) && c > 0 && conditioned ? s2 * c : double.PositiveInfinity;
+            var slow = Array.IndexOf(taus, taus.Max());
+            var cs = inverse[2 + (2 * slow), 2 + (2 * slow)];
+            slowVariance = double.IsFinite(cs) && cs > 0 && conditioned ? s2 * cs : double.PositiveInfinity;
         }
 
         return new ExponentialFit(
@@ -190,7 +195,10 @@ internal static partial class ExponentialFitter
             rss,
             n,
             converged && double.IsFinite(variance)
-        );
+        )
+        {
+            VarianceOfSlowest = slowVariance,
+        };
     }
 
     private static double GridThenGolden(Func<double, double> f, double lo, double hi, int grid, double tolerance)

@@ -28,6 +28,25 @@ public sealed record RecoveryFit(
     double Weight
 )
 {
+    /// <summary>The slowest (body) time constant of the model the data favour, fitted without the reel's prior, s;
+    /// NaN when not fitted. What the reel-learned prior (<see cref="ReelPrior"/>) learns from.</summary>
+    public double BodyTimeConstant { get; init; } = double.NaN;
+
+    /// <summary>Standard error of <see cref="BodyTimeConstant"/> (linearised, s² inflated as the fit's), s.</summary>
+    public double BodyStandardError { get; init; } = double.PositiveInfinity;
+
+    /// <summary>
+    /// The record resolved the body: residuals passed the runs and step tests, the record covers at least twice the
+    /// assumed longest time constant, the body is fitted below that bound with a standard error at most 5 % of it.
+    /// What <see cref="ReelPrior"/> learns from.
+    /// </summary>
+    public bool BodyResolved { get; init; }
+
+    /// <summary>The reel-learned floor of the body time constant the interval was taken under, s; null: the wide
+    /// prior (none learned yet, a record too short for it, the part's record refused the range, or a one-path fit
+    /// whose own interval was the narrower).</summary>
+    public double? BodyFloor { get; init; }
+
     /// <summary>Combined standard uncertainty of <see cref="FinalValue"/>, ohms.</summary>
     public double StandardUncertainty =>
         Math.Sqrt((FitUncertainty * FitUncertainty) + (MisfitUncertainty * MisfitUncertainty));

@@ -75,6 +75,8 @@ public sealed partial class SettleTracker
             );
             var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
             _state = SettleState.AwaitingRemoval;
+            // The averaging rule's part teaches the prior only through a fit of its own record that is good.
+            Prior = _predictive is null ? Prior : Prior.Learn(_predictive.Latest);
             return verdict;
         }
 
@@ -117,6 +119,7 @@ public sealed partial class SettleTracker
         );
         var verdict = Verdict(SettleState.Accepted, reading) with { Acceptance = acceptance };
         _state = SettleState.AwaitingRemoval;
+        Prior = Prior.Learn(fit);
         return verdict;
     }
 

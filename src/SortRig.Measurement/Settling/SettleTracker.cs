@@ -35,7 +35,9 @@ public sealed partial class SettleTracker
     /// <param name="range">The range the readings come from (for the uncertainty of accepted values).</param>
     /// <param name="nplc">The integration time they are taken at.</param>
     /// <param name="options">Settle options; <see cref="SettleOptions.Default"/> when null.</param>
-    public SettleTracker(RangeSpec range, NplcSpec nplc, SettleOptions? options = null)
+    /// <param name="prior">What earlier parts of the session taught the predictive rule (<see cref="Prior"/>);
+    /// <see cref="ReelPrior.Empty"/> when null.</param>
+    public SettleTracker(RangeSpec range, NplcSpec nplc, SettleOptions? options = null, ReelPrior? prior = null)
     {
         _range = range ?? throw new ArgumentNullException(nameof(range));
         _nplc = nplc ?? throw new ArgumentNullException(nameof(nplc));
@@ -51,6 +53,7 @@ public sealed partial class SettleTracker
                 _options.AssumedTimeConstant
             )
             : null;
+        Prior = prior ?? ReelPrior.Empty;
         if (_predictive is not null && _options.AssumedTimeConstant < TimeSpan.FromSeconds(0.1))
         {
             throw new ArgumentException(
@@ -72,6 +75,25 @@ public sealed partial class SettleTracker
 
     /// <summary>The tracker's standing state: Empty, Bouncing, Settling or AwaitingRemoval.</summary>
     public SettleState State => _state;
+
+    /// <summary>
+    /// The reel-learned prior of the predictive rule: what the parts accepted so far in this session say about the body
+    /// time constant; updated on each acceptance (kept across <see cref="Reset"/>: it belongs to the reel, not to one
+    /// part). Unused without <see cref="SettleOptions.Predictive"/>.
+    /// </summary>
+    public ReelPrior Prior
+    {
+        get;
+        private set
+        {
+            field = value;
+            _predictive?.BodyRange = value.BodyRange;
+        }
+    }
+
+    /// <summary>The predictive rule's latest fit of the part in the fixture (accepted or not); null before the first
+    /// or without <see cref="SettleOptions.Predictive"/>.</summary>
+    public RecoveryFit? LatestFit => _predictive?.Latest;
 
     /// <summary>The options in force.</summary>
     public SettleOptions Options => _options;
