@@ -78,32 +78,11 @@ internal static partial class ExponentialFitter
 
         // Centred columns e^(−t/τ) − mean: the intercept is solved apart, which keeps the small systems well
         // conditioned.
-        var columns = new double[taus.Count][];
-        var means = new double[taus.Count];
-        var cross = new double[taus.Count];
-        var squares = new double[taus.Count];
-        for (var k = 0; k < taus.Count; k++)
-        {
-            var column = new double[n];
-            var mean = 0.0;
-            for (var i = 0; i < n; i++)
-            {
-                column[i] = Math.Exp(-t[i] / taus[k]);
-                mean += column[i];
-            }
-
-            mean /= n;
-            double sxy = 0,
-                sxx = 0;
-            for (var i = 0; i < n; i++)
-            {
-                column[i] -= mean;
-                sxy += column[i] * yc[i];
-                sxx += column[i] * column[i];
-            }
-
-            (columns[k], means[k], cross[k], squares[k]) = (column, mean, sxy, sxx);
-        }
+        var centred = Columns(t, yc, taus);
+        var columns = centred.Select(c => c.Column).ToArray();
+        var means = centred.Select(c => c.Mean).ToArray();
+        var cross = centred.Select(c => c.Cross).ToArray();
+        var squares = centred.Select(c => c.Squares).ToArray();
 
         // One exponential at each grid time constant; for two exponentials these are the boundary B₂ = 0.
         var points = new List<(double Rss, double A, double C)>();

@@ -17,14 +17,7 @@ public sealed class AssemblerRefereeTests
             var rng = new Random((seedBlock * 1000) + c);
             var shape = ((seedBlock * 8) + c) % RandomInstances.MatchedShapes.Length;
             var recipe = RandomInstances.Matched(shape);
-            var nominals = recipe
-                .Positions.SelectMany(p =>
-                    new[] { p.Nominal }
-                        .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
-                        .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])
-                )
-                .Distinct()
-                .ToArray();
+            var nominals = ReelScaleReferee.Nominals(recipe);
             var parts = RandomInstances.Parts(rng, rng.Next(5, 9), nominals, sigma: 700e-6, maxRelU: 150e-6);
             AssertMatchesReferee(
                 recipe,

@@ -61,15 +61,14 @@ public sealed class GapSplitSweepTests
         {
             var shape = 3 + (c % 3);
             var recipe = RandomInstances.Matched(shape);
-            var parts = Bimodal(new Random(97_000 + c), 10, Nominals(recipe), 500e-6, 800e-6, 100e-6);
-            var result = new SetAssembler(
-                new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: (2 * recipe.Positions.Count) - 1)
-            ).Assemble(recipe, parts);
-            var judge = BruteForce.Matched(recipe);
-            var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
-            Assert.True(result.Sets.Count <= optimum, $"case {c}: {result.Sets.Count} sets > optimum {optimum}");
-            Assert.True(result.UpperBound >= optimum, $"case {c}: bound {result.UpperBound} < optimum {optimum}");
-            AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
+            var parts = Bimodal(new Random(97_000 + c), 10, ReelScaleReferee.Nominals(recipe), 500e-6, 800e-6, 100e-6);
+            var result = ReelScaleReferee.Check(
+                recipe,
+                parts,
+                BruteForce.Matched(recipe),
+                (2 * recipe.Positions.Count) - 1,
+                $"case {c}"
+            );
             taken += result.Note.Contains("split at the widest gap", StringComparison.Ordinal) ? 1 : 0;
         }
 
@@ -110,14 +109,4 @@ public sealed class GapSplitSweepTests
                 return new PartCandidate(i + 1, n, new MeasuredValue(v, u, u / 2), $"T1-A{i + 1:00}");
             })
             .ToList();
-
-    private static double[] Nominals(Recipe recipe) =>
-        recipe
-            .Positions.SelectMany(p =>
-                new[] { p.Nominal }
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])
-            )
-            .Distinct()
-            .ToArray();
 }

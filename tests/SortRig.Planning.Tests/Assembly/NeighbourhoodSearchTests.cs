@@ -24,7 +24,13 @@ public sealed class NeighbourhoodSearchTests
             var rng = new Random(70_000 + (block * 100) + c);
             var shape = ((block * 8) + c) % RandomInstances.MatchedShapes.Length;
             var recipe = RandomInstances.Matched(shape);
-            var parts = RandomInstances.Parts(rng, 8, Nominals(recipe), sigma: 700e-6, maxRelU: 150e-6);
+            var parts = RandomInstances.Parts(
+                rng,
+                8,
+                ReelScaleReferee.Nominals(recipe),
+                sigma: 700e-6,
+                maxRelU: 150e-6
+            );
             Check(recipe, parts, BruteForce.Matched(recipe), $"block {block} case {c} shape {shape}");
         }
     }
@@ -123,7 +129,7 @@ public sealed class NeighbourhoodSearchTests
                 var parts = RandomInstances.Parts(
                     rng,
                     c.count,
-                    nominals ?? Nominals(recipe),
+                    nominals ?? ReelScaleReferee.Nominals(recipe),
                     sigma: 1500e-6,
                     maxRelU: 150e-6
                 );
@@ -145,7 +151,7 @@ public sealed class NeighbourhoodSearchTests
     {
         var rng = new Random(5);
         var recipe = RandomInstances.Matched(4);
-        var parts = RandomInstances.Parts(rng, 120, Nominals(recipe), sigma: 2000e-6, maxRelU: 150e-6);
+        var parts = RandomInstances.Parts(rng, 120, ReelScaleReferee.Nominals(recipe), sigma: 2000e-6, maxRelU: 150e-6);
         var seen = new List<AssemblyProgress>();
         var quick = new SetAssembler(
             new AssemblyOptions(exactPartLimit: 0, timeLimit: TimeSpan.Zero, progress: new Collect(seen))
@@ -166,30 +172,8 @@ public sealed class NeighbourhoodSearchTests
         Assert.Equal("timeLimit", e.ParamName);
     }
 
-    private static void Check(Recipe recipe, List<PartCandidate> parts, BruteForce.Judge judge, string label)
-    {
-        var result = new SetAssembler(
-            new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)
-        ).Assemble(recipe, parts);
-        var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
-        Assert.True(result.Sets.Count <= optimum, $"{label}: {result.Sets.Count} sets > optimum {optimum}");
-        Assert.True(
-            result.UpperBound >= optimum,
-            $"{label}: bound {result.UpperBound} < optimum {optimum} ({result.BoundMethod})"
-        );
-        Assert.Equal(result.Sets.Count == result.UpperBound, result.ProvenOptimal);
-        AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
-    }
-
-    private static double[] Nominals(Recipe recipe) =>
-        recipe
-            .Positions.SelectMany(p =>
-                new[] { p.Nominal }
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])
-            )
-            .Distinct()
-            .ToArray();
+    private static void Check(Recipe recipe, List<PartCandidate> parts, BruteForce.Judge judge, string label) =>
+        ReelScaleReferee.Check(recipe, parts, judge, 2 * recipe.Positions.Count, label);
 
     private sealed class Collect(List<AssemblyProgress> into) : IProgress<AssemblyProgress>
     {

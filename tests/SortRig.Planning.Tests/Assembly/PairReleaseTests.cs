@@ -91,7 +91,7 @@ public sealed class PairReleaseTests
             var parts = RandomInstances.Parts(
                 new Random(91_000 + seed),
                 60,
-                Nominals(recipe),
+                ReelScaleReferee.Nominals(recipe),
                 sigma: 1500e-6,
                 maxRelU: 150e-6
             );
@@ -123,18 +123,17 @@ public sealed class PairReleaseTests
             var parts = RandomInstances.Parts(
                 new Random(92_000 + c),
                 10,
-                Nominals(recipe),
+                ReelScaleReferee.Nominals(recipe),
                 sigma: 700e-6,
                 maxRelU: 150e-6
             );
-            var result = new SetAssembler(
-                new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)
-            ).Assemble(recipe, parts);
-            var judge = BruteForce.Matched(recipe);
-            var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
-            Assert.True(result.Sets.Count <= optimum, $"case {c}: {result.Sets.Count} sets > optimum {optimum}");
-            Assert.True(result.UpperBound >= optimum, $"case {c}: bound {result.UpperBound} < optimum {optimum}");
-            AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
+            var result = ReelScaleReferee.Check(
+                recipe,
+                parts,
+                BruteForce.Matched(recipe),
+                2 * recipe.Positions.Count,
+                $"case {c}"
+            );
             withRelease += result.Note.Contains("given back", StringComparison.Ordinal) ? 1 : 0;
         }
 
@@ -188,14 +187,4 @@ public sealed class PairReleaseTests
         var s2 = (r1 + r2) * (r1 + r2);
         return ((r1 * r2) / (r1 + r2), ((r2 * r2 * a.ExpandedTransfer) + (r1 * r1 * b.ExpandedTransfer)) / s2);
     }
-
-    private static double[] Nominals(Recipe recipe) =>
-        recipe
-            .Positions.SelectMany(p =>
-                new[] { p.Nominal }
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])
-            )
-            .Distinct()
-            .ToArray();
 }

@@ -47,7 +47,7 @@ public sealed class SetCompletionTests
             var parts = RandomInstances.Parts(
                 new Random(93_000 + seed),
                 60,
-                Nominals(recipe),
+                ReelScaleReferee.Nominals(recipe),
                 sigma: 1500e-6,
                 maxRelU: 300e-6
             );
@@ -71,18 +71,17 @@ public sealed class SetCompletionTests
             var parts = RandomInstances.Parts(
                 new Random(94_000 + c),
                 10,
-                Nominals(recipe),
+                ReelScaleReferee.Nominals(recipe),
                 sigma: 900e-6,
                 maxRelU: 200e-6
             );
-            var result = new SetAssembler(
-                new AssemblyOptions(exactPartLimit: 0, neighbourhoodParts: 2 * recipe.Positions.Count)
-            ).Assemble(recipe, parts);
-            var judge = BruteForce.Matched(recipe);
-            var (optimum, _) = BruteForce.Solve(recipe, parts, judge);
-            Assert.True(result.Sets.Count <= optimum, $"case {c}: {result.Sets.Count} sets > optimum {optimum}");
-            Assert.True(result.UpperBound >= optimum, $"case {c}: bound {result.UpperBound} < optimum {optimum}");
-            AssemblerRefereeTests.AssertSetsValid(recipe, parts, result, judge);
+            var result = ReelScaleReferee.Check(
+                recipe,
+                parts,
+                BruteForce.Matched(recipe),
+                2 * recipe.Positions.Count,
+                $"case {c}"
+            );
         }
     }
 
@@ -113,14 +112,4 @@ public sealed class SetCompletionTests
             Assert.True(judge(judged) is not null, "a set fails the referee's judge");
         }
     }
-
-    private static double[] Nominals(Recipe recipe) =>
-        recipe
-            .Positions.SelectMany(p =>
-                new[] { p.Nominal }
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Series) ? [p.Nominal / 2] : [])
-                    .Concat(p.Pairs.HasFlag(PairBuilds.Parallel) ? [p.Nominal * 2] : [])
-            )
-            .Distinct()
-            .ToArray();
 }
