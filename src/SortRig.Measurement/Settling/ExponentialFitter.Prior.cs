@@ -50,20 +50,7 @@ internal static partial class ExponentialFitter
             leads.Add(Math.Exp(u));
         }
 
-        var meanY = 0.0;
-        for (var i = 0; i < n; i++)
-        {
-            meanY += y[i];
-        }
-
-        meanY /= n;
-        var yc = new double[n];
-        var syy = 0.0;
-        for (var i = 0; i < n; i++)
-        {
-            yc[i] = y[i] - meanY;
-            syy += yc[i] * yc[i];
-        }
+        var (meanY, yc, syy) = Centred(y[..n]);
 
         var body = Columns(t, yc, bodies);
         var lead = Columns(t, yc, leads);
@@ -151,41 +138,5 @@ internal static partial class ExponentialFitter
         }
 
         return (low, high);
-    }
-
-    /// <summary>Centred columns e^(−t/τ) − mean, with their mean, cross product with the centred y and sum of
-    /// squares.</summary>
-    private static (double[] Column, double Mean, double Cross, double Squares)[] Columns(
-        ReadOnlySpan<double> t,
-        double[] yc,
-        List<double> taus
-    )
-    {
-        var n = t.Length;
-        var result = new (double[], double, double, double)[taus.Count];
-        for (var k = 0; k < taus.Count; k++)
-        {
-            var column = new double[n];
-            var mean = 0.0;
-            for (var i = 0; i < n; i++)
-            {
-                column[i] = Math.Exp(-t[i] / taus[k]);
-                mean += column[i];
-            }
-
-            mean /= n;
-            double sxy = 0,
-                sxx = 0;
-            for (var i = 0; i < n; i++)
-            {
-                column[i] -= mean;
-                sxy += column[i] * yc[i];
-                sxx += column[i] * column[i];
-            }
-
-            result[k] = (column, mean, sxy, sxx);
-        }
-
-        return result;
     }
 }

@@ -61,20 +61,7 @@ internal static partial class ExponentialFitter
         }
 
         taus.Add(tauMax);
-        var meanY = 0.0;
-        for (var i = 0; i < n; i++)
-        {
-            meanY += y[i];
-        }
-
-        meanY /= n;
-        var yc = new double[n];
-        var syy = 0.0;
-        for (var i = 0; i < n; i++)
-        {
-            yc[i] = y[i] - meanY;
-            syy += yc[i] * yc[i];
-        }
+        var (meanY, yc, syy) = Centred(y[..n]);
 
         // Centred columns e^(−t/τ) − mean: the intercept is solved apart, which keeps the small systems well
         // conditioned.
