@@ -23,7 +23,7 @@ internal sealed partial class PostgresPrecisionLog
         return fault;
     }
 
-    private static StorageFault ClassifyCore(DbException exception, out bool transient)
+    internal static StorageFault ClassifyCore(DbException exception, out bool transient)
     {
         transient = false;
         if (exception is PostgresException pg)
@@ -44,11 +44,20 @@ internal sealed partial class PostgresPrecisionLog
             };
         }
 
-        // A broken connection or a command timeout (the server or the link stopped answering).
-        return exception is NpgsqlException { InnerException: SocketException or IOException or TimeoutException }
+        // A broken connection or a command timeout (the server or the link stopped answering), also when it comes
+        // wrapped: a connection used again after it broke reports "previously broken" around the first failure.
+        return exception is NpgsqlException && LinkFailure(exception.InnerException)
             ? StorageFault.Unavailable
             : StorageFault.Other;
     }
+
+    private static bool LinkFailure(Exception? inner) =>
+        inner switch
+        {
+            SocketException or IOException or TimeoutException => true,
+            NpgsqlException wrapped => LinkFailure(wrapped.InnerException),
+            _ => false,
+        };
 
     /// <summary>INSERT ... SELECT FROM unnest(arrays) per chunk of 5000 samples: few round trips, memory bounded by the
     /// chunk.</summary>
