@@ -1,15 +1,31 @@
 namespace SortRig.Planning.Assembly;
 
 /// <summary>
-/// A small dense simplex for max cᵀx subject to Ax ≤ b, x ≥ 0 with b ≥ 0 (the origin is feasible), Bland's rule
-/// against cycling. Meant for the tiny linear programmes of the supply bound (tens of rows and columns).
+/// A small dense tableau simplex (textbook) for max cᵀx subject to Ax ≤ b, x ≥ 0 with b ≥ 0, so the origin is
+/// feasible: Dantzig's rule, Bland's (lowest index, which cannot cycle) after a run of degenerate pivots. Meant for
+/// the tiny linear programmes of the bounds (tens to a few hundred rows and columns).
 /// </summary>
 internal static class DenseSimplex
 {
     private const double Eps = 1e-10;
 
+    /// <summary>Degenerate pivots in a row before Bland's rule takes over.</summary>
+    private const int DegenerateRun = 50;
+
     /// <summary>The optimal objective value; +∞ when unbounded; NaN when the iteration cap is hit.</summary>
-    public static double Maximize(double[] c, double[][] a, double[] b)
+    public static double Maximize(double[] c, double[][] a, double[] b) => Solve(c, a, b, 50_000, stop: null).Value;
+
+    /// <summary>
+    /// Solves the programme. Value: the optimum, +∞ when unbounded, NaN when the cap or <paramref name="stop"/> (asked
+    /// every 64 pivots) ended it. Duals (one per row, the objective row under the slack columns): only at the optimum.
+    /// </summary>
+    public static (double Value, double[]? Duals) Solve(
+        double[] c,
+        double[][] a,
+        double[] b,
+        int maxIterations,
+        Func<bool>? stop
+    )
     {
         int m = b.Length,
             n = c.Length;
@@ -35,17 +51,18 @@ internal static class DenseSimplex
         }
 
         var basis = Enumerable.Range(n, m).ToArray();
-        for (var iteration = 0; iteration < 50_000; iteration++)
+        var degenerate = 0;
+        for (var iteration = 0; iteration < maxIterations; iteration++)
         {
-            var enter = -1;
-            for (var j = 0; j < n + m && enter < 0; j++)
+            if ((iteration & 63) == 0 && stop?.Invoke() == true)
             {
-                enter = t[m][j] < -Eps ? j : -1;
+                return (double.NaN, null);
             }
 
+            var enter = Entering(t[m], n + m, bland: degenerate > DegenerateRun);
             if (enter < 0)
             {
-                return t[m][n + m];
+                return (t[m][n + m], [.. Enumerable.Range(0, m).Select(i => t[m][n + i])]);
             }
 
             var leave = -1;
@@ -64,22 +81,45 @@ internal static class DenseSimplex
 
             if (leave < 0)
             {
-                return double.PositiveInfinity;
+                return (double.PositiveInfinity, null);
             }
 
+            degenerate = best <= Eps ? degenerate + 1 : 0;
             Pivot(t, leave, enter);
             basis[leave] = enter;
         }
 
-        return double.NaN;
+        return (double.NaN, null);
+    }
+
+    // Dantzig's rule (most negative reduced cost) or Bland's (the first negative one).
+    private static int Entering(double[] objective, int columns, bool bland)
+    {
+        var enter = -1;
+        var most = -Eps;
+        for (var j = 0; j < columns; j++)
+        {
+            if (objective[j] < most)
+            {
+                if (bland)
+                {
+                    return j;
+                }
+
+                (enter, most) = (j, objective[j]);
+            }
+        }
+
+        return enter;
     }
 
     private static void Pivot(double[][] t, int row, int col)
     {
-        var p = t[row][col];
-        for (var j = 0; j < t[row].Length; j++)
+        var pr = t[row];
+        var p = pr[col];
+        for (var j = 0; j < pr.Length; j++)
         {
-            t[row][j] /= p;
+            pr[j] /= p;
         }
 
         for (var i = 0; i < t.Length; i++)
@@ -90,9 +130,10 @@ internal static class DenseSimplex
                 continue;
             }
 
-            for (var j = 0; j < t[i].Length; j++)
+            var ti = t[i];
+            for (var j = 0; j < ti.Length; j++)
             {
-                t[i][j] -= f * t[row][j];
+                ti[j] -= f * pr[j];
             }
         }
     }

@@ -3,9 +3,11 @@ namespace SortRig.Planning.Assembly.ColumnBound;
 /// <summary>
 /// A restricted master for packing programmes with general coefficients: max Σ_j x_j subject to A x ≤ 1, x ≥ 0, where
 /// a column holds non-negative entries on a few rows (an aggregated row carries a part count divided by the row's
-/// capacity, so every right-hand side is 1). A revised simplex with an explicit dense basis inverse, as
-/// <see cref="ColumnMaster"/> (Dantzig's rule, Bland's after a stall, a tiny seeded perturbation of the right-hand
-/// side); meant for a few hundred rows. Its duals are only a guide: the bound is proven from pricing.
+/// capacity, so every right-hand side is 1). A revised simplex with an explicit dense basis inverse (one slack per
+/// row, so the all-slack basis is the identity and the origin is feasible); Dantzig's rule, Bland's after a stall,
+/// and a tiny seeded perturbation of the right-hand side against stalling on these very degenerate programmes. Its
+/// duals are only a guide for pricing: the bound is proven from any y ≥ 0 by pricing, so rounding in the inverse can
+/// cost tightness but never validity. <see cref="ColumnMaster"/> is its 0/1 case.
 /// </summary>
 internal sealed class PackingMaster
 {
@@ -36,6 +38,37 @@ internal sealed class PackingMaster
     }
 
     public int ColumnCount => _columns.Count;
+
+    /// <summary>The current primal solution, one value per column in the order added (0 for a nonbasic column).
+    /// </summary>
+    public double[] Primal()
+    {
+        var x = new double[_columns.Count];
+        for (var r = 0; r < _m; r++)
+        {
+            if (_basis[r] >= 0)
+            {
+                x[_basis[r]] = _xb[r];
+            }
+        }
+
+        return x;
+    }
+
+    /// <summary>Master objective Σ x over the basic columns.</summary>
+    public double Value
+    {
+        get
+        {
+            var v = 0.0;
+            for (var r = 0; r < _m; r++)
+            {
+                v += _basis[r] >= 0 ? _xb[r] : 0;
+            }
+
+            return v;
+        }
+    }
 
     /// <summary>Current duals, one per row (may be slightly negative through rounding; the caller clips).</summary>
     public ReadOnlySpan<double> Duals => _y;
