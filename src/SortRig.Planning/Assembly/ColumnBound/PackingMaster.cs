@@ -95,10 +95,9 @@ internal sealed class PackingMaster
     {
         var col = new double[_m];
         var stalled = 0;
-        RefreshDuals();
         for (var pivot = 0; pivot < maxPivots; pivot++)
         {
-            if ((pivot & 63) == 63)
+            if ((pivot & 63) == 0)
             {
                 RefreshDuals();
                 if (stop())
