@@ -53,6 +53,16 @@ internal static class FitLimit
         return RuleOutcome.Timed(insertion.Since(lo).TotalSeconds, lo + 1);
     }
 
+    /// <summary>Of two oracles' outcomes for one part, the one that stops first (an unstable one only when both
+    /// are).</summary>
+    public static RuleOutcome Earlier(RuleOutcome a, RuleOutcome b) =>
+        (a.Accepted, b.Accepted) switch
+        {
+            (true, false) => a,
+            (false, true) => b,
+            _ => a.Seconds <= b.Seconds ? a : b,
+        };
+
     /// <summary>The part's true paths: amplitude = value × tempco × handling warmth × the path's share (the steady
     /// self-heating, ≤ 0.01 K on the 10 kOhm range, left out: it moves an amplitude by well under 1 %).</summary>
     private static RecoveryPath[] Paths(Insertion insertion, SimulatedPart part, double bodyLogSd)

@@ -84,13 +84,19 @@ internal static class SettleBenchmark
                 fitLimitPrior,
                 SettleCase.TargetPpm
             );
+            var either = limit.Zip(fitLimit, FitLimit.Earlier).ToList();
+            var eitherSummary = RuleSummary.Of(
+                "either limit (per part the earlier of the two oracles)",
+                either,
+                SettleCase.TargetPpm
+            );
             var section = ResultsTable.Section(
                 c,
                 nplc,
                 summaries,
                 fixedSummary,
                 limitSummary,
-                [fitSummary, fitPriorSummary]
+                [fitSummary, fitPriorSummary, eitherSummary]
             );
             var caseOverview = new CaseOverview(
                 c.Name,
@@ -100,7 +106,8 @@ internal static class SettleBenchmark
                 delay is not null,
                 limitSummary,
                 fitSummary,
-                fitPriorSummary
+                fitPriorSummary,
+                eitherSummary
             );
             results[i] = (section, caseOverview);
             var elapsed = FormattableString.Invariant($"\n({clock.Elapsed.TotalSeconds:0} s so far)");
@@ -149,7 +156,8 @@ internal sealed record CaseOverview(
     bool FixedMatched,
     RuleSummary Limit,
     RuleSummary FitLimit,
-    RuleSummary FitLimitPrior
+    RuleSummary FitLimitPrior,
+    RuleSummary Either
 );
 
 /// <summary>Finds the repository root (the folder holding SortRig.sln) from the working directory up.</summary>

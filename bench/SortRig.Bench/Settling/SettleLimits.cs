@@ -27,12 +27,20 @@ internal static class SettleLimits
             );
             var bodyLogSd = SettleBenchmark.LogUniformSd(c.Reel.ThermalTimeConstantSpread);
             var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
-            var (avg, fit, prior) = (new List<double>(), new List<double>(), new List<double>());
+            var (avg, fit, prior, either) = (
+                new List<double>(),
+                new List<double>(),
+                new List<double>(),
+                new List<double>()
+            );
             foreach (var ins in source.Insertions())
             {
                 var part = source.Part(ins.Index);
-                avg.Add(InformationLimit.Run(ins, SettleCase.TargetPpm, sigma, bounce, horizon).Seconds);
-                fit.Add(FitLimit.Run(ins, part, SettleCase.TargetPpm, sigma, bounce, horizon).Seconds);
+                var a = InformationLimit.Run(ins, SettleCase.TargetPpm, sigma, bounce, horizon);
+                var f = FitLimit.Run(ins, part, SettleCase.TargetPpm, sigma, bounce, horizon);
+                avg.Add(a.Seconds);
+                fit.Add(f.Seconds);
+                either.Add(FitLimit.Earlier(a, f).Seconds);
                 prior.Add(FitLimit.Run(ins, part, SettleCase.TargetPpm, sigma, bounce, horizon, bodyLogSd).Seconds);
             }
 
@@ -42,7 +50,8 @@ internal static class SettleLimits
                     $"{c.Name}: averaging limit {avg.Average():0.00} s; fit limit {fit.Average():0.00} s "
                         + $"({fit.Average() / avg.Average():0.00} ×, p95 {Quantile(fit, 0.95):0.00}); with body prior "
                         + $"(ln τ sd {bodyLogSd:0.000}) {prior.Average():0.00} s ("
-                        + $"{prior.Average() / avg.Average():0.00} ×)"
+                        + $"{prior.Average() / avg.Average():0.00} ×); either {either.Average():0.00} s ("
+                        + $"{either.Average() / avg.Average():0.00} ×)"
                 )
             );
         }
