@@ -97,4 +97,15 @@ public sealed class AsymptoteBoundTests
         Assert.InRange(mid, known, free);
         Assert.True(free > 10 * known);
     }
+
+    [Fact]
+    public void ReadingsAllAtOneInstant_DoNotDetermineTheFinalValue()
+    {
+        // Common practice, no source: readings at one instant carry no information on the curve's shape, so the final
+        // value is not determined (a singular information matrix), however many there are.
+        var t = Enumerable.Repeat(1.5, 40).ToArray();
+
+        Assert.Equal(double.PositiveInfinity, AsymptoteBound.Variance(t, [new RecoveryPath(0.5, 4.0)], 0.007));
+        Assert.True(double.IsFinite(AsymptoteBound.Variance([1.5, 2.5, 3.5], [new RecoveryPath(0.5, 4.0)], 0.007)));
+    }
 }
