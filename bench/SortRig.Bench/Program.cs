@@ -17,6 +17,11 @@ if (args.Length > 0 && args[0] == "settle-diag")
     return SortRig.Bench.Settling.SettleDiagnosis.Run(args);
 }
 
+if (args.Length > 0 && args[0] == "settle-limits")
+{
+    return SortRig.Bench.Settling.SettleLimits.Run(args);
+}
+
 if (args.Length > 0 && args[0] == "order")
 {
     return await SortRig.Bench.Ordering.OrderBenchmark.RunAsync(

@@ -18,8 +18,10 @@ internal static class ResultsTable
             "",
             "| case | limit s | averaging s (× limit) | predictive s (× limit) | predictive parts/h | by prediction "
                 + "| predictive false accepts vs 2 × target: n / accepted, 95 % upper | matched fixed delay s | fixed "
-                + "/ predictive | targets |",
-            "|---|---|---|---|---|---|---|---|---|---|",
+                + "/ predictive | fit limit s (× limit) | fit limit, body τ prior s (× limit) | either limit s (× "
+                + "limit) "
+                + "| predictive × fit limit | predictive × either limit | targets |",
+            "|---|---|---|---|---|---|---|---|---|---|---|---|---|---|---|",
         };
         foreach (var c in cases)
         {
@@ -36,7 +38,13 @@ internal static class ResultsTable
                         + $"{ratio:0.00}) | {p.PartsPerHour:0} | "
                         + $"{100.0 * p.Predicted / Math.Max(1, p.Accepted):0.0} % | {p.FalseAcceptsTarget} / "
                         + $"{p.Accepted}, {100 * p.UpperTarget:0.###} % | {fixedText} | "
-                        + $"{(c.FixedMatched ? "" : "> ")}{speedup:0.0} | {Verdict(met)} |"
+                        + $"{(c.FixedMatched ? "" : "> ")}{speedup:0.0} | {c.FitLimit.Seconds.Mean:0.00} ("
+                        + $"{c.FitLimit.Seconds.Mean / c.Limit.Seconds.Mean:0.00}) | "
+                        + $"{c.FitLimitPrior.Seconds.Mean:0.00} ("
+                        + $"{c.FitLimitPrior.Seconds.Mean / c.Limit.Seconds.Mean:0.00}) | "
+                        + $"{c.Either.Seconds.Mean:0.00} ({c.Either.Seconds.Mean / c.Limit.Seconds.Mean:0.00}) | "
+                        + $"{p.Seconds.Mean / c.FitLimit.Seconds.Mean:0.00} | "
+                        + $"{p.Seconds.Mean / c.Either.Seconds.Mean:0.00} | {Verdict(met)} |"
                 )
             );
         }
@@ -50,7 +58,8 @@ internal static class ResultsTable
         NplcSpec nplc,
         IReadOnlyList<RuleSummary> adaptive,
         RuleSummary fixedDelay,
-        RuleSummary limit
+        RuleSummary limit,
+        IReadOnlyList<RuleSummary> fitLimits
     )
     {
         var lines = new List<string>
@@ -66,7 +75,7 @@ internal static class ResultsTable
                 + "median / p99 / max | median U ppm |",
             "|---|---|---|---|---|---|---|---|---|---|---|---|",
         };
-        lines.AddRange(adaptive.Append(fixedDelay).Append(limit).Select(s => Row(s, limit)));
+        lines.AddRange(adaptive.Append(fixedDelay).Append(limit).Concat(fitLimits).Select(s => Row(s, limit)));
         lines.Add("");
         return lines;
     }

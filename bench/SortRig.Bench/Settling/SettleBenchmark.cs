@@ -45,9 +45,11 @@ internal static class SettleBenchmark
             var priors = c.Variants.Select(_ => ReelPrior.Empty).ToArray();
             var fixedDelay = new MatchedFixedDelay(range, nplc);
             var limit = new List<RuleOutcome>();
-            foreach (
-                var insertion in new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc).Insertions()
-            )
+            var fitLimit = new List<RuleOutcome>();
+            var fitLimitPrior = new List<RuleOutcome>();
+            var bodyLogSd = LogUniformSd(c.Reel.ThermalTimeConstantSpread);
+            var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
+            foreach (var insertion in source.Insertions())
             {
                 ct.ThrowIfCancellationRequested();
                 for (var v = 0; v < c.Variants.Count; v++)
@@ -58,6 +60,12 @@ internal static class SettleBenchmark
                 fixedDelay.Add(insertion);
                 limit.Add(
                     InformationLimit.Run(insertion, SettleCase.TargetPpm, sigma, bounce, TimeSpan.FromSeconds(55))
+                );
+                var part = source.Part(insertion.Index);
+                var horizon = TimeSpan.FromSeconds(55);
+                fitLimit.Add(FitLimit.Run(insertion, part, SettleCase.TargetPpm, sigma, bounce, horizon));
+                fitLimitPrior.Add(
+                    FitLimit.Run(insertion, part, SettleCase.TargetPpm, sigma, bounce, horizon, bodyLogSd)
                 );
             }
 
@@ -70,14 +78,36 @@ internal static class SettleBenchmark
                 : "fixed delay: no delay up to 40 s keeps ≤ 0.1 % outside 2 × target (40 s shown)";
             var fixedSummary = RuleSummary.Of(delayName, matched, SettleCase.TargetPpm);
             var limitSummary = RuleSummary.Of("information limit (oracle)", limit, SettleCase.TargetPpm);
-            var section = ResultsTable.Section(c, nplc, summaries, fixedSummary, limitSummary);
+            var fitSummary = RuleSummary.Of("fit information limit (oracle, CRB)", fitLimit, SettleCase.TargetPpm);
+            var fitPriorSummary = RuleSummary.Of(
+                "fit information limit, body τ known to the reel's spread (Bayesian, approximate)",
+                fitLimitPrior,
+                SettleCase.TargetPpm
+            );
+            var either = limit.Zip(fitLimit, FitLimit.Earlier).ToList();
+            var eitherSummary = RuleSummary.Of(
+                "either limit (per part the earlier of the two oracles)",
+                either,
+                SettleCase.TargetPpm
+            );
+            var section = ResultsTable.Section(
+                c,
+                nplc,
+                summaries,
+                fixedSummary,
+                limitSummary,
+                [fitSummary, fitPriorSummary, eitherSummary]
+            );
             var caseOverview = new CaseOverview(
                 c.Name,
                 summaries[0],
                 summaries[1],
                 fixedSummary,
                 delay is not null,
-                limitSummary
+                limitSummary,
+                fitSummary,
+                fitPriorSummary,
+                eitherSummary
             );
             results[i] = (section, caseOverview);
             var elapsed = FormattableString.Invariant($"\n({clock.Elapsed.TotalSeconds:0} s so far)");
@@ -98,6 +128,23 @@ internal static class SettleBenchmark
         await ResultsTable.WriteAsync(Path.Combine(root, "docs", "bench-settle.md"), all, ct).ConfigureAwait(false);
         return 0;
     }
+
+    /// <summary>Standard deviation of ln(u) for u ~ U(1 − spread, 1 + spread): the reel's spread of ln τ_body
+    /// (τ = τ₀ u). E[ln u] and E[ln² u] from the antiderivatives u ln u − u and u (ln² u − 2 ln u + 2).</summary>
+    internal static double LogUniformSd(double spread)
+    {
+        if (spread <= 0)
+        {
+            return 1e-9;
+        }
+
+        var (a, b) = (1 - spread, 1 + spread);
+        double M1(double u) => (u * Math.Log(u)) - u;
+        double M2(double u) => u * ((Math.Log(u) * Math.Log(u)) - (2 * Math.Log(u)) + 2);
+        var mean = (M1(b) - M1(a)) / (b - a);
+        var square = (M2(b) - M2(a)) / (b - a);
+        return Math.Sqrt(Math.Max(0, square - (mean * mean)));
+    }
 }
 
 /// <summary>One case's figures for the overview table.</summary>
@@ -107,7 +154,10 @@ internal sealed record CaseOverview(
     RuleSummary Predictive,
     RuleSummary Fixed,
     bool FixedMatched,
-    RuleSummary Limit
+    RuleSummary Limit,
+    RuleSummary FitLimit,
+    RuleSummary FitLimitPrior,
+    RuleSummary Either
 );
 
 /// <summary>Finds the repository root (the folder holding SortRig.sln) from the working directory up.</summary>

@@ -8,7 +8,8 @@ namespace SortRig.Bench.Settling;
 /// `settle-diag [parts] [case]`: runs the predictive rule on one benchmark case and prints each accepted value outside
 /// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
 /// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the
-/// fits of the first six parts every 0.5 s.
+/// fits of the first six parts every 0.5 s; `settle-diag [parts] [case] [seed] losses` adds where the rule loses time
+/// against the oracles (<see cref="LossLedger"/>).
 /// </summary>
 internal static class SettleDiagnosis
 {
@@ -39,6 +40,13 @@ internal static class SettleDiagnosis
         var (bad, predicted, seconds, n, predictedSeconds) = (0, 0, 0.0, 0, 0.0);
         var (byPrior, priorSeconds) = (0, 0.0);
         var prior = ReelPrior.Empty;
+        var ledger = args[^1] == "losses" ? new LossLedger() : null;
+        var setting = SortRig.Simulator.Meter.NplcSetting.Find(c.Nplc)!;
+        var sigma = Math.Sqrt(
+            Math.Pow(setting.NoiseOhms(range.FullScale), 2) + (Math.Pow(setting.Step(range.FullScale), 2) / 12)
+        );
+        var bounce = new SortRig.Simulator.SimulatedBenchOptions().ContactBounce;
+        var horizon = TimeSpan.FromSeconds(55);
         foreach (var ins in source.Insertions())
         {
             var tracker = new SettleTracker(range, nplc, options, prior);
@@ -65,6 +73,15 @@ internal static class SettleDiagnosis
 
                 prior = tracker.Prior;
                 seconds += ins.Since(k).TotalSeconds;
+                ledger?.Add(
+                    ins.Index,
+                    ins.Since(k).TotalSeconds,
+                    a.AcceptedBy == SettleRule.Predictive,
+                    a.AcceptedBy == SettleRule.Predictive && a.Fit?.BodyFloor is not null,
+                    ins.TempcoPpmPerKelvin * ins.WarmKelvin,
+                    FitLimit.Run(ins, source.Part(ins.Index), SettleCase.TargetPpm, sigma, bounce, horizon),
+                    InformationLimit.Run(ins, SettleCase.TargetPpm, sigma, bounce, horizon)
+                );
                 if (a.Fit?.BodyFloor is not null && a.AcceptedBy == SettleRule.Predictive)
                 {
                     (byPrior, priorSeconds) = (byPrior + 1, priorSeconds + ins.Since(k).TotalSeconds);
@@ -89,6 +106,7 @@ internal static class SettleDiagnosis
             }
         }
 
+        ledger?.Print();
         var fallback = (seconds - predictedSeconds) / (n - predicted);
         Console.WriteLine(
             Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
