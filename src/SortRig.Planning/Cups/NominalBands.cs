@@ -117,17 +117,17 @@ internal sealed class NominalBands
         var half = n > 0 ? centres.Min(c => c.Half) : 0;
         var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
         const double Prior = 5;
+        var (lo, hi) = (LogPpm.From(-_range), LogPpm.From(_range));
+        var model = n >= 1 ? ReelModel.Fit([.. centres.Select(c => c.Centre)], lo, hi, (_range / 3, Prior)) : null;
+        Func<double, double> cdf = model is { Hole: > 0 } ? model.Cdf : x => Normal.CDF(0, _range / 3, x);
         for (var j = 0; j < _points; j++)
         {
             var s = first + (j * _step);
-            var prior =
-                _width > 2 * half
-                    ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half)
-                    : 0;
+            var prior = _width > 2 * half ? cdf(s + _width - half) - cdf(s + half) : 0;
             if (prior > 0)
             {
                 var (a, b) = (s + half, s + _width - half);
-                prior -= CoverageEstimate.Covered(x => Normal.CDF(0, _range / 3, x), a, b, half, held);
+                prior -= CoverageEstimate.Covered(cdf, a, b, half, held);
             }
 
             gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
