@@ -111,14 +111,15 @@ internal sealed class NominalBands
     private double[] Estimate(List<(double Centre, double Half)> centres, double first, List<(double, double)> held)
     {
         var n = centres.Count;
-        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3, held);
-        List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
-        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3, held);
-        var half = n > 0 ? centres.Min(c => c.Half) : 0;
-        var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
         const double Prior = 5;
         var (lo, hi) = (LogPpm.From(-_range), LogPpm.From(_range));
         var model = n >= 1 ? ReelModel.Fit([.. centres.Select(c => c.Centre)], lo, hi, (_range / 3, Prior)) : null;
+        var hole = model?.Hole ?? 0;
+        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3, held, hole);
+        List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
+        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3, held, hole);
+        var half = n > 0 ? centres.Min(c => c.Half) : 0;
+        var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
         Func<double, double> cdf = model is { Hole: > 0 } ? model.Cdf : x => Normal.CDF(0, _range / 3, x);
         for (var j = 0; j < _points; j++)
         {

@@ -11,7 +11,7 @@ namespace SortRig.Planning.Cups;
 /// maximum a posteriori (MathNet's Nelder–Mead on μ, ln σ), the prior worth a few parts of a lot centred on its
 /// nominal; the hole's edge by its maximum-likelihood value, the
 /// smallest |x| seen (the likelihood grows with g up to there). The hole is kept only when a likelihood-ratio test
-/// at the 1 % level says so (an endpoint parameter: the gain is ≈ Exp(1) without a hole, not χ², so an information
+/// at the 0.1 % level says so (an endpoint parameter: the gain is ≈ Exp(1) without a hole, not χ², so an information
 /// criterion such as BIC would keep a hole in a plain normal reel half the time at n = 4). The edge is uncertain by
 /// about one spacing of the parts at it, so the distribution function averages over its posterior (flat prior on g:
 /// the likelihood Z(g)^−n falls as g moves below the smallest |x|, ≈ exponential with rate n × the density at the
@@ -22,9 +22,11 @@ internal sealed class ReelModel
     private const int EdgePoints = 8;
 
     // The log-likelihood gain of a hole at the smallest |x| under the plain fit's μ, σ is −n ln(1 − P(|X| < g));
-    // without a hole n·P(|X| < smallest |x|) is the smallest of n uniforms times n, ≈ Exp(1), so a gain over ln 100
-    // keeps the hole at the 1 % level.
-    private const double HoleTest = 4.605170185988091; // ln 100
+    // without a hole n·P(|X| < smallest |x|) is the smallest of n uniforms times n, ≈ Exp(1), so a gain over ln 1000
+    // keeps the hole at the 0.1 % level. The planner tests again at every plan (about 60 per reel), so one test's
+    // level is a tenth of the 1 % it would be for a single test (Bonferroni's correction, textbook).
+    private const double HoleTest = 6.907755278982137; // ln 1000
+
     private readonly double _lo;
     private readonly double _hi;
     private readonly double[] _holes;

@@ -113,6 +113,34 @@ public sealed class AdaptiveCupPlannerTests
     }
 
     [Fact]
+    public void CentreBinnedOut_FromFewParts_PlansNoBandMostlyInTheHole()
+    {
+        // Referee: the generator, MathNet's N(0, 5000) ppm with |x| < 4000 removed (a 1 % lot whose tighter grades
+        // were taken out). From 15 parts the planned bands of 8 empty cups must not sit in the hole, where no part will
+        // ever come: each band at most a quarter inside it. A centred prior alone puts bands there.
+        var options = new AdaptiveCupOptions(8, 1000, 1.0, s_quad);
+        var normal = new MathNet.Numerics.Distributions.Normal(0, 5000, new Random(21));
+        var state = new NominalBands(10e3, options);
+        while (state.Samples.Count < 15)
+        {
+            var x = normal.Sample();
+            if (Math.Abs(x) is >= 4000 and <= 10_000)
+            {
+                state.Samples.Add((state.Samples.Count + 1, x, 10));
+            }
+        }
+
+        state.Replan(_ => true);
+
+        Assert.Equal(8, state.Bands.Count);
+        foreach (var b in state.Bands)
+        {
+            var inside = Math.Max(0, Math.Min(b.Hi, 4000) - Math.Max(b.Lo, -4000));
+            Assert.True(inside <= 250, $"band [{b.Lo:0}, {b.Hi:0}] is {inside:0} ppm inside the hole");
+        }
+    }
+
+    [Fact]
     public void CompletesSet_WhenACupReachesFourParts()
     {
         var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad, learnCount: 4));
