@@ -141,6 +141,33 @@ public sealed class AdaptiveCupPlannerTests
     }
 
     [Fact]
+    public void Restore_OfAReelWithAHole_ReproducesCountsAndTheNextDecision()
+    {
+        // The hole model and the reflected kernels are refitted from the replayed parts: same history, same plans.
+        // Parts uniform on 4000..9000 ppm either side (no part within ±4000, a hole the test finds in a few parts).
+        var options = new AdaptiveCupOptions(8, 1000, 1.0, s_quad, learnCount: 30);
+        var first = new AdaptiveCupPlanner(options);
+        var rng = new Random(23);
+        var history = new List<(CupRequest, string)>();
+        for (var n = 1; n <= 200; n++)
+        {
+            var dev = (rng.Next(2) == 0 ? -1 : 1) * (4000 + (5000 * rng.NextDouble()));
+            var req = Part(n, 10e3, dev);
+            history.Add((req, first.Assign(req).CupLabel));
+        }
+
+        var second = new AdaptiveCupPlanner(options);
+        second.Restore(history);
+
+        Assert.Equal(first.Counts, second.Counts);
+        var next = Part(999, 10e3, 4321);
+        Assert.Equal(first.Assign(next), second.Assign(next));
+        Assert.All(first.Bands(10e3), b =>
+            Assert.True(Math.Min(b.HighPpm, 4000) - Math.Max(b.LowPpm, -4000) <= 500, $"{b}")
+        );
+    }
+
+    [Fact]
     public void CompletesSet_WhenACupReachesFourParts()
     {
         var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad, learnCount: 4));
