@@ -107,7 +107,9 @@ internal sealed class NominalBands
     // The kernel density of the parts seen, plus while the sample is small (weights fading as learn count / (learn
     // count + n)) the same parts mirrored about the nominal, since a lot is made about its nominal and tighter parts
     // are binned out of it symmetrically (common practice, no source), and for the very first parts a prior of 5 parts
-    // about the nominal with σ = a third of the tolerance (no source).
+    // about the nominal with σ = a third of the tolerance (no source). Once a hole around the nominal is found
+    // (<see cref="ReelModel"/>) the prior is the fitted model instead, with the mirror's weight added, and each part's
+    // kernel is reflected at the hole's edge.
     private double[] Estimate(List<(double Centre, double Half)> centres, double first, List<(double, double)> held)
     {
         var n = centres.Count;
@@ -131,7 +133,9 @@ internal sealed class NominalBands
                 prior -= CoverageEstimate.Covered(cdf, a, b, half, held);
             }
 
-            gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
+            // A found hole's model is fitted to the same parts as the mirror, so it gets the mirror's weight too.
+            var w = model is { Hole: > 0 } ? Prior + m : Prior;
+            gains[j] = ((n * gains[j]) + (m * mirror[j]) + (w * prior)) / (n + m + w);
         }
 
         return gains;
