@@ -19,6 +19,8 @@ internal static class CoverageEstimate
     /// <param name="cap">Largest kernel bandwidth, log ppm.</param>
     /// <param name="covered">Bands already holding parts (log ppm edges, ascending by low edge; they may overlap):
     /// a part one of them would take is not counted again.</param>
+    /// <param name="hole">Half-width of a hole around the nominal with no parts (log ppm), 0 for none: kernels are
+    /// reflected at its edges (<see cref="Kernel"/>).</param>
     /// <returns>Expected share of the coming parts each band would take (0..1).</returns>
     public static double[] Gains(
         IReadOnlyList<(double Centre, double Half)> samples,
@@ -27,7 +29,8 @@ internal static class CoverageEstimate
         int points,
         double width,
         double cap,
-        IReadOnlyList<(double Lo, double Hi)>? covered = null
+        IReadOnlyList<(double Lo, double Hi)>? covered = null,
+        double hole = 0
     )
     {
         var gains = new double[points];
@@ -48,8 +51,9 @@ internal static class CoverageEstimate
                 var b = s + width - half;
                 if (b > a)
                 {
-                    gains[j] += Normal.CDF(c, h, b) - Normal.CDF(c, h, a);
-                    gains[j] -= Covered(x => Normal.CDF(c, h, x), a, b, half, covered ?? []);
+                    var cdf = Kernel(c, h, hole);
+                    gains[j] += cdf(b) - cdf(a);
+                    gains[j] -= Covered(cdf, a, b, half, covered ?? []);
                 }
             }
         }
@@ -60,6 +64,33 @@ internal static class CoverageEstimate
         }
 
         return gains;
+    }
+
+    /// <summary>
+    /// Distribution function of one part's kernel N(c, h). With a hole (no part has |x| &lt; g), the kernel of a part
+    /// at c ≥ g is reflected at the hole's edge, its mass below g folded back above it (the reflection method for a
+    /// density with a known boundary, Silverman 1986 sec. 2.10, from memory), so that the estimate neither leaks into
+    /// the hole nor thins out at its edge, where such a reel is densest; likewise at −g for c ≤ −g. The small mass
+    /// beyond the other edge is left as it is.
+    /// </summary>
+    /// <param name="c">The part's centre, log ppm.</param>
+    /// <param name="h">Bandwidth, log ppm.</param>
+    /// <param name="g">The hole's half-width, log ppm; 0 for none.</param>
+    internal static Func<double, double> Kernel(double c, double h, double g)
+    {
+        if (g <= 0 || Math.Abs(c) < g)
+        {
+            return x => Normal.CDF(c, h, x);
+        }
+
+        // Mass of N(c, h) reflected at g on (−∞, x], for c ≥ g.
+        double Upper(double cc, double x) =>
+            x <= -g ? Normal.CDF(cc, h, x)
+            : x < g ? Normal.CDF(cc, h, -g)
+            : Normal.CDF(cc, h, -g)
+                + (Normal.CDF(cc, h, x) - Normal.CDF(cc, h, g))
+                + (Normal.CDF((2 * g) - cc, h, x) - Normal.CDF((2 * g) - cc, h, g));
+        return c >= g ? x => Upper(c, x) : x => 1 - Upper(-c, -x);
     }
 
     /// <summary>

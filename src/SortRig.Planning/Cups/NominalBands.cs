@@ -107,30 +107,35 @@ internal sealed class NominalBands
     // The kernel density of the parts seen, plus while the sample is small (weights fading as learn count / (learn
     // count + n)) the same parts mirrored about the nominal, since a lot is made about its nominal and tighter parts
     // are binned out of it symmetrically (common practice, no source), and for the very first parts a prior of 5 parts
-    // about the nominal with σ = a third of the tolerance (no source).
+    // about the nominal with σ = a third of the tolerance (no source). Once a hole around the nominal is found
+    // (<see cref="ReelModel"/>) the prior is the fitted model instead, with the mirror's weight added, and each part's
+    // kernel is reflected at the hole's edge.
     private double[] Estimate(List<(double Centre, double Half)> centres, double first, List<(double, double)> held)
     {
         var n = centres.Count;
-        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3, held);
+        const double Prior = 5;
+        var (lo, hi) = (LogPpm.From(-_range), LogPpm.From(_range));
+        var model = n >= 1 ? ReelModel.Fit([.. centres.Select(c => c.Centre)], lo, hi, (_range / 3, Prior)) : null;
+        var hole = model?.Hole ?? 0;
+        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3, held, hole);
         List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
-        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3, held);
+        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3, held, hole);
         var half = n > 0 ? centres.Min(c => c.Half) : 0;
         var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
-        const double Prior = 5;
+        Func<double, double> cdf = model is { Hole: > 0 } ? model.Cdf : x => Normal.CDF(0, _range / 3, x);
         for (var j = 0; j < _points; j++)
         {
             var s = first + (j * _step);
-            var prior =
-                _width > 2 * half
-                    ? Normal.CDF(0, _range / 3, s + _width - half) - Normal.CDF(0, _range / 3, s + half)
-                    : 0;
+            var prior = _width > 2 * half ? cdf(s + _width - half) - cdf(s + half) : 0;
             if (prior > 0)
             {
                 var (a, b) = (s + half, s + _width - half);
-                prior -= CoverageEstimate.Covered(x => Normal.CDF(0, _range / 3, x), a, b, half, held);
+                prior -= CoverageEstimate.Covered(cdf, a, b, half, held);
             }
 
-            gains[j] = ((n * gains[j]) + (m * mirror[j]) + (Prior * prior)) / (n + m + Prior);
+            // A found hole's model is fitted to the same parts as the mirror, so it gets the mirror's weight too.
+            var w = model is { Hole: > 0 } ? Prior + m : Prior;
+            gains[j] = ((n * gains[j]) + (m * mirror[j]) + (w * prior)) / (n + m + w);
         }
 
         return gains;

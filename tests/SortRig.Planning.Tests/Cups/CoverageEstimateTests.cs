@@ -55,4 +55,27 @@ public sealed class CoverageEstimateTests
         Assert.Equal(Normal.CDF(0, 300, 995) - Normal.CDF(0, 300, 495), held[20], 12);
         Assert.True(held[20] < free[20]);
     }
+
+    [Fact]
+    public void Kernel_ReflectedAtAHole_PutsNoMassInIt_AndFoldsItsTailBack()
+    {
+        // Reflection method at a boundary (Silverman 1986 sec. 2.10, from memory): a kernel N(c, h) at c ≥ g is
+        // mirrored at g, so the mass in [g, g + t] is Φ((g + t − c)/h) − Φ((g − c)/h) plus the same for 2g − c.
+        // Referee: MathNet's normal distribution function, by hand here. c = 4100, h = 300, g = 4000.
+        const double G = 4000,
+            H = 300,
+            C = 4100;
+        var k = CoverageEstimate.Kernel(C, H, G);
+        double Phi(double z) => Normal.CDF(0, 1, z);
+
+        Assert.Equal(0, k(G - 1) - k(-G + 1), 12);
+        var expected = Phi((4300 - C) / H) - Phi((G - C) / H) + Phi((4300 - 3900) / H) - Phi((G - 3900) / H);
+        Assert.Equal(expected, k(4300) - k(G), 12);
+        Assert.Equal(1, k(20_000), 6);
+        // Mirrored on the other side: a part at −4100 gives the same mass to [−4300, −4000].
+        var m = CoverageEstimate.Kernel(-C, H, G);
+        Assert.Equal(expected, m(-G) - m(-4300), 12);
+        // Without a hole, or for a part inside it, the plain kernel.
+        Assert.Equal(Normal.CDF(C, H, 4300), CoverageEstimate.Kernel(C, H, 0)(4300), 12);
+    }
 }
