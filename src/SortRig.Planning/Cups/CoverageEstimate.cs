@@ -4,9 +4,9 @@ namespace SortRig.Planning.Cups;
 
 /// <summary>
 /// How many of the coming parts a band starting at each grid point would take, from the parts seen so far: a
-/// Gaussian kernel density of the part centres on the log scale (Silverman's rule-of-thumb bandwidth
-/// 0.9 min(σ, IQR/1.34) n^(−1/5), textbook kernel density estimation, capped at a quarter band so that a reel with
-/// its centre binned out keeps sharp edges), where a part counts only when its whole uncertainty interval
+/// Gaussian kernel density of the part centres on the log scale (bandwidth by leave-one-out likelihood
+/// cross-validation under the caller's cap, see <c>Bandwidth</c>; kernels reflected at a binned-out centre's edge
+/// when one is given), where a part counts only when its whole uncertainty interval
 /// [centre − h, centre + h] fits the band (the worst case of the matched rule).
 /// </summary>
 internal static class CoverageEstimate
