@@ -32,16 +32,35 @@ public sealed class LabDriftOutageLimitTests
         DateTimeOffset? stopped = null,
             last = null;
 
-        var error = await Assert.ThrowsAsync<StorageException>(() => DriftRuns.RunAsync(settings, (_, next) =>
+        var run = DriftRuns.RunAsync(settings, (_, next) =>
+        {
+            last = next;
+            if (stopped is null && next >= stopAt)
             {
-                last = next;
-                if (stopped is null && next >= stopAt)
-                {
-                    stopped = next;
-                    server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
-                }
-            }));
+                stopped = next;
+                server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
+            }
+        });
+        Exception? thrown;
+        try
+        {
+            await run;
+            thrown = null;
+        }
+        catch (Exception e)
+        {
+            thrown = e;
+        }
+        finally
+        {
+            // Back up before anything is asserted, so a failure reads as itself and not as the lab's clean-up failing.
+            if (stopped is not null)
+            {
+                await server.StartAgainAsync();
+            }
+        }
 
+        var error = Assert.IsType<StorageException>(thrown);
         Assert.Equal(StorageFault.Unavailable, error.Fault);
         Assert.NotNull(stopped);
         var waited = last!.Value - stopped!.Value;
@@ -49,12 +68,11 @@ public sealed class LabDriftOutageLimitTests
         Assert.True(waited < DriftStore.MaxOutage + TimeSpan.FromMinutes(5), $"waited {waited} of bench time");
 
         // Back up: the samples of the first 20 minutes are stored (120 scans x 4 readings), less what was still queued.
-        await server.StartAgainAsync();
         await using var log = await lab.OpenAsync();
-        var run = await log.GetDriftRunAsync(1, CancellationToken.None); // the first run in the fresh lab
-        Assert.Equal("lab-gone", run?.Name);
+        var stoppedRun = await log.GetDriftRunAsync(1, CancellationToken.None); // the first run in the fresh lab
+        Assert.Equal("lab-gone", stoppedRun?.Name);
         long stored = 0;
-        await foreach (var s in log.ReadDriftSamplesAsync(run!.Id, CancellationToken.None))
+        await foreach (var s in log.ReadDriftSamplesAsync(stoppedRun!.Id, CancellationToken.None))
         {
             Assert.True(s.Time <= stopped.Value, $"a sample at {s.Time} after the server stopped at {stopped}");
             stored++;
