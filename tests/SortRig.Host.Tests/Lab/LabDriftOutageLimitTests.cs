@@ -32,24 +32,18 @@ public sealed class LabDriftOutageLimitTests
         DateTimeOffset? stopped = null,
             last = null;
 
-        var run = DriftRuns.RunAsync(settings, (_, next) =>
-        {
-            last = next;
-            if (stopped is null && next >= stopAt)
-            {
-                stopped = next;
-                server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
-            }
-        });
         Exception? thrown;
         try
         {
-            await run;
-            thrown = null;
-        }
-        catch (Exception e)
-        {
-            thrown = e;
+            thrown = await Record.ExceptionAsync(() => DriftRuns.RunAsync(settings, (_, next) =>
+                {
+                    last = next;
+                    if (stopped is null && next >= stopAt)
+                    {
+                        stopped = next;
+                        server.StopAsync().GetAwaiter().GetResult(); // the clock waits while the server goes down
+                    }
+                }));
         }
         finally
         {
@@ -67,7 +61,7 @@ public sealed class LabDriftOutageLimitTests
         Assert.True(waited >= DriftStore.MaxOutage, $"gave up after {waited} of bench time");
         Assert.True(waited < DriftStore.MaxOutage + TimeSpan.FromMinutes(5), $"waited {waited} of bench time");
 
-        // Back up: the samples of the first 20 minutes are stored (120 scans x 4 readings), less what was still queued.
+        // The samples of the first 20 minutes are stored (120 scans x 4 readings), less what was still queued.
         await using var log = await lab.OpenAsync();
         var stoppedRun = await log.GetDriftRunAsync(1, CancellationToken.None); // the first run in the fresh lab
         Assert.Equal("lab-gone", stoppedRun?.Name);
