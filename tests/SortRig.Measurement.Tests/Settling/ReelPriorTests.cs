@@ -133,10 +133,10 @@ public sealed class ReelPriorTests
     {
         // Before the reel has taught a range (the first parts of a session), a two-path record is taken under the
         // sort's own range of the body: from half of AssumedTimeConstant (5 s here: a floor of 2.5 s) to 5 s. The part:
-        // lead 0.7 s (35 %), body 4.8 s (65 %) of an 80 ppm excess, 0.05 ppm white noise every 41 ms, 4 s of record:
+        // lead 0.7 s (35 %), body 4.8 s (65 %) of an 80 ppm excess, 0.3 ppm white noise every 41 ms, 4 s of record:
         // the body has not shown its curvature, so only the range's held fits reach its asymptote. Referee: the curve
         // is built by hand; its truth is R, and the body of 4.8 s lies inside the stated range.
-        var noise = Gaussian(11, 0.0005);
+        var noise = Gaussian(11, 0.003);
         var settling = new PredictiveSettling(PredictiveOptions.Default, 1e-6, TimeSpan.FromSeconds(5));
         foreach (
             var r in Sampled(0, 0.041, 98, x =>
