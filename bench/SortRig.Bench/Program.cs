@@ -17,6 +17,11 @@ if (args.Length > 0 && args[0] == "settle-diag")
     return SortRig.Bench.Settling.SettleDiagnosis.Run(args);
 }
 
+if (args.Length > 0 && args[0] == "settle-seeds")
+{
+    return await SortRig.Bench.Settling.SettleSeeds.RunAsync(args, CancellationToken.None);
+}
+
 if (args.Length > 0 && args[0] == "settle-limits")
 {
     return SortRig.Bench.Settling.SettleLimits.Run(args);
@@ -57,7 +62,8 @@ if (args.Length == 4 && args[0] == "lab-worker")
 
 Console.WriteLine(
     "usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning "
-        + "[gap|reels|big|cups|cups-write|cups-loss|cups-seeds|show:REEL:K:SEED|timing|probe], settle [parts], order "
+        + "[gap|reels|big|cups|cups-write|cups-loss|cups-seeds|show:REEL:K:SEED|timing|probe], settle [parts], "
+        + "settle-seeds [parts] [seeds], order "
         + "[quad], "
         + "drift, lab, "
         + "build [seeds])"

@@ -1,6 +1,7 @@
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Simulation;
 using SortRig.Engine.Sorting;
+using SortRig.Measurement.Settling;
 using SortRig.Simulator;
 
 namespace SortRig.Tests.Support;
@@ -28,6 +29,9 @@ internal sealed class RangeTransferSession(string database, double gainErrorPpm 
             Bridge = bridge,
             Speech = false,
             Live = false,
+            // The range-transfer checks read each stored value back as its window mean times the correction: an
+            // identity of the averaging rule, so these sessions pin it (the sort's default is the predictive rule).
+            Settle = SettleRule.Averaging,
         };
 
     /// <summary>

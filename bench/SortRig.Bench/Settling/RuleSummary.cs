@@ -1,4 +1,5 @@
 using MathNet.Numerics.Statistics;
+using SortRig.Measurement.Settling;
 
 namespace SortRig.Bench.Settling;
 

@@ -73,7 +73,8 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
             // Judge the slope over the last 4 s, not over a 0.3 s window that cannot see a cooling
             // curve of seconds (docs/bench-settle.md: no false accepts at 1.2x the information limit).
             SettlingSpan = TimeSpan.FromSeconds(4),
-            // Opt-in: the predictive rule runs beside the averaging rule (docs/measurement.md, "Predictive rule").
+            // By default the predictive rule runs beside the averaging rule (docs/measurement.md, "Predictive rule");
+            // --settle averaging leaves it out.
             Predictive = options.Settle == SettleRule.Predictive ? PredictiveOptions.Default : null,
         };
 

@@ -159,9 +159,9 @@ internal static class SortCommand
             new Option<string>("--settle")
             {
                 Description =
-                    "Settle rule: averaging (default) or predictive (fits each part's cooling and may accept "
-                    + "earlier; not the default because it holds the false-accept bound on the benchmark's seeds but "
-                    + "not yet beyond them, see docs/bench-settle.md)",
+                    "Settle rule: predictive (default: fits each part's cooling and may accept earlier; the averaging "
+                    + "rule decides when no fit does; holds the false-accept bound over many simulated reels, see "
+                    + "docs/bench-settle.md) or averaging (waits until the readings stop moving)",
             },
             "Sort:Settle"
         );

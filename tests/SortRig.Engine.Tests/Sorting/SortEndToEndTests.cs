@@ -10,9 +10,9 @@ namespace SortRig.Engine.Tests.Sorting;
 
 /// <summary>
 /// The main job end to end: the embedded simulated meter on a real TCP socket, a reel with handling warm-up, the
-/// settle rule (averaging, or predictive when chosen), the SQLite log and the cup assigner, on a test-driven virtual
-/// clock (<see cref="VirtualSort"/>). The simulator's truth (its side channel) is the outside reference the cups are
-/// checked against.
+/// settle rule (predictive by default, or averaging when chosen), the SQLite log and the cup assigner, on a test-driven
+/// virtual clock (<see cref="VirtualSort"/>). The simulator's truth (its side channel) is the outside reference the
+/// cups are checked against.
 /// </summary>
 public sealed class SortEndToEndTests : IDisposable
 {
@@ -48,14 +48,23 @@ public sealed class SortEndToEndTests : IDisposable
         Assert.Empty(misplaced);
         Assert.True(excused <= parts / 20, $"{excused} parts sat on a band edge");
 
-        // Every raw reading is kept, and the accepted value is the mean of the last readings logged.
+        // Every raw reading is kept; a value the averaging rule accepted is the mean of the last readings logged, one
+        // the predictive rule (the sort's default) accepted carries its fit.
         foreach (var part in stored)
         {
             var readings = await log.GetReadingsAsync(part.Id, default);
             Assert.True(readings.Count >= 8, $"part {part.Number} has {readings.Count} readings");
+            if (part.AcceptedBy == SettleRule.Predictive)
+            {
+                Assert.NotNull(part.Fit);
+                continue;
+            }
+
             var window = readings.TakeLast(8).Select(r => r.Value).Average();
             Assert.Equal(part.Value, window, 6);
         }
+
+        Assert.Contains(stored, p => p.AcceptedBy == SettleRule.Predictive);
 
         // Announcements went out once per part, in order.
         var said = Announcements.Cups(announced.ToString()).Select(h => $"{h.Part}:{h.Cup}");

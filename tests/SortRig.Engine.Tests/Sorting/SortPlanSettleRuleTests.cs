@@ -6,26 +6,35 @@ using SortRig.Measurement.Specs;
 namespace SortRig.Engine.Tests.Sorting;
 
 /// <summary>
-/// The settle rule the sort's plan hands the loop (--settle): the averaging rule alone by default, the predictive rule
-/// beside it only when asked, and the same settle target either way (the target is the match band's, not the rule's).
+/// The settle rule the sort's plan hands the loop (--settle): the predictive rule beside the averaging rule by default
+/// (docs/bench-settle.md, tenth pass: the rule holds the false-accept bound pooled over many reels), the averaging rule
+/// alone when asked, and the same settle target either way (the target is the match band's, not the rule's).
 /// </summary>
 public sealed class SortPlanSettleRuleTests
 {
     private static readonly MeterSpec s_meter = ProfileLocator.Load("simulator").Spec;
 
     [Fact]
-    public void Plan_Default_AveragingRuleOnly()
+    public void Plan_Default_PredictiveRuleBesideAveraging()
     {
         var plan = SortPlan.For(new SortOptions(), s_meter);
 
-        Assert.Equal(SettleRule.Averaging, plan.Options.Settle);
+        Assert.Equal(SettleRule.Predictive, plan.Options.Settle);
+        Assert.Equal(PredictiveOptions.Default, plan.Settle.Predictive);
+    }
+
+    [Fact]
+    public void Plan_Averaging_AveragingRuleOnly()
+    {
+        var plan = SortPlan.For(new SortOptions { Settle = SettleRule.Averaging }, s_meter);
+
         Assert.Null(plan.Settle.Predictive);
     }
 
     [Fact]
     public void Plan_Predictive_PredictiveRuleBesideAveraging_SameTarget()
     {
-        var averaging = SortPlan.For(new SortOptions(), s_meter);
+        var averaging = SortPlan.For(new SortOptions { Settle = SettleRule.Averaging }, s_meter);
         var predictive = SortPlan.For(new SortOptions { Settle = SettleRule.Predictive }, s_meter);
 
         Assert.Equal(PredictiveOptions.Default, predictive.Settle.Predictive);

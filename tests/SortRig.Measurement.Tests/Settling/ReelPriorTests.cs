@@ -129,6 +129,33 @@ public sealed class ReelPriorTests
     }
 
     [Fact]
+    public void NoRangeLearnedYet_TwoPathRecord_TakenUnderTheSortsOwnRange_IntervalHoldsTheTruth()
+    {
+        // Before the reel has taught a range (the first parts of a session), a two-path record is taken under the
+        // sort's own range of the body: from half of AssumedTimeConstant (5 s here: a floor of 2.5 s) to 5 s. The part:
+        // lead 0.7 s (35 %), body 4.8 s (65 %) of an 80 ppm excess, 0.3 ppm white noise every 41 ms, 4 s of record:
+        // the body has not shown its curvature, so only the range's held fits reach its asymptote. Referee: the curve
+        // is built by hand; its truth is R, and the body of 4.8 s lies inside the stated range.
+        var noise = Gaussian(11, 0.003);
+        var settling = new PredictiveSettling(PredictiveOptions.Default, 1e-6, TimeSpan.FromSeconds(5));
+        foreach (
+            var r in Sampled(0, 0.041, 98, x =>
+                R * (1 + (80e-6 * ((0.35 * Math.Exp(-x / 0.7)) + (0.65 * Math.Exp(-x / 4.8))))) + noise()
+            )
+        )
+        {
+            settling.Add(r);
+        }
+
+        var fit = settling.Fit(out _)!;
+
+        Assert.Null(settling.BodyRange);
+        Assert.Equal(2.5, fit.BodyFloor);
+        var half = 1.959963984540054 * fit.FitUncertainty;
+        Assert.InRange(R, fit.FinalValue - half, fit.FinalValue + half);
+    }
+
+    [Fact]
     public void Learn_SequenceOfParts_RangeAsComputedByHand()
     {
         // Hand computation (the order-statistics margin, from memory): 20 resolved bodies 3.30, 3.35, ..., 4.25 s

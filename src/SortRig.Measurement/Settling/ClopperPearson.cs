@@ -1,9 +1,10 @@
 using MathNet.Numerics.Distributions;
 
-namespace SortRig.Bench.Settling;
+namespace SortRig.Measurement.Settling;
 
-/// <summary>Exact (Clopper-Pearson, 1934) one-sided upper confidence bound of a binomial proportion.</summary>
-internal static class ClopperPearson
+/// <summary>Exact (Clopper-Pearson, 1934) one-sided upper confidence bound of a binomial proportion: what a settle
+/// rule's false-accept rate is bounded by, from its count of false accepts in a number of accepted parts.</summary>
+public static class ClopperPearson
 {
     /// <summary>The upper bound p_U with P(X ≤ x | n, p_U) = 1 − confidence: the confidence quantile of Beta(x + 1, n −
     /// x).</summary>
