@@ -16,25 +16,15 @@ public sealed record AdaptiveCupOptions
     /// default 40.</param>
     /// <param name="uncertaintyLimitPpm">Largest expanded transfer uncertainty accepted, ppm; default half the match
     /// tolerance.</param>
-    /// <param name="reelParts">Parts of each nominal the session expects to sort (the reel's count): while learning,
-    /// opening an empty cup is weighed against the parts still to come. 1 to 10 000 000, default 1000.</param>
     public AdaptiveCupOptions(
         int cupCount,
         double matchTolerancePpm,
         double stockTolerancePercent,
         IReadOnlyDictionary<double, int> partsPerSet,
         int learnCount = 40,
-        double? uncertaintyLimitPpm = null,
-        int reelParts = 1000
+        double? uncertaintyLimitPpm = null
     )
     {
-        ReelParts = reelParts is >= 1 and <= 10_000_000
-            ? reelParts
-            : throw new ArgumentOutOfRangeException(
-                nameof(reelParts),
-                reelParts,
-                "ReelParts must be 1 to 10 000 000"
-            );
         CupCount = cupCount is >= 1 and <= CupLabels.MaxCups
             ? cupCount
             : throw new ArgumentOutOfRangeException(
@@ -95,9 +85,6 @@ public sealed record AdaptiveCupOptions
     /// <summary>Largest expanded transfer uncertainty accepted, ppm.</summary>
     public double UncertaintyLimitPpm { get; }
 
-    /// <summary>Parts of each nominal the session expects to sort (default 1000, a reel of the bench's size).</summary>
-    public int ReelParts { get; }
-
     /// <summary>Options for a matched-form recipe: its match tolerance and its single-part demand per
     /// nominal.</summary>
     /// <exception cref="ArgumentException">The recipe is not in the matched form.</exception>
@@ -105,8 +92,7 @@ public sealed record AdaptiveCupOptions
         Recipe recipe,
         int cupCount,
         double stockTolerancePercent,
-        int learnCount = 40,
-        int reelParts = 1000
+        int learnCount = 40
     ) =>
         recipe.Form == RecipeForm.Matched
             ? new AdaptiveCupOptions(
@@ -114,8 +100,7 @@ public sealed record AdaptiveCupOptions
                 recipe.MatchTolerancePpm,
                 stockTolerancePercent,
                 recipe.SinglePartDemand,
-                learnCount,
-                reelParts: reelParts
+                learnCount
             )
             : throw new ArgumentException("cup bands need a matched-form recipe (a ratio tolerance)", nameof(recipe));
 }

@@ -11,18 +11,11 @@ namespace SortRig.Planning.Cups;
 /// parts, the bands of the empty cups are placed again where most of the coming parts are expected (a kernel density
 /// of the parts seen, <see cref="CoverageEstimate"/>, and the exact best disjoint windows, <see cref="WindowCover"/>),
 /// at every part while learning, then whenever the sample has grown by a tenth; the part opens the planned band it
-/// fits, if any; while learning, only if fixing that band now is expected to cost fewer of the parts still to come
-/// (<see cref="AdaptiveCupOptions.ReelParts"/>) than the one part that waiting loses (bootstrap regret,
-/// <c>NominalBands.CommitRegret</c>). No band moves once it holds a part. Each nominal has its own K cups; everything
-/// else goes to "R".
+/// fits, if any. No band moves once it holds a part. Each nominal has its own K cups; everything else goes to "R".
 /// </summary>
 public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null)
     : ICupAssigner
 {
-    // Bootstrap resamples behind each regret: enough to average the spread of plans from a few tens of parts (no
-    // source; each costs two kernel estimates, only while learning).
-    private const int RegretDraws = 8;
-
     private readonly CupLedger _ledger = new();
     private readonly Dictionary<double, NominalBands> _nominals = [];
     private readonly ILogger _logger = (ILogger?)logger ?? NullLogger.Instance;
@@ -118,27 +111,22 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         }
 
         state.Samples.Add((r.PartNumber, dev, u));
-        var band = Choose(state, dev, u, out var waited);
+        var band = Choose(state, dev, u);
         if (forcedLabel is not null && forcedLabel != (band?.Label ?? CupLabels.Reject))
         {
             band = Forced(state, forcedLabel, dev, u);
         }
 
-        var reason =
-            band is not null ? FormattableString.Invariant($"band {band.Lo:+0;-0}..{band.Hi:+0;-0} ppm")
-            : waited > 0
-                ? FormattableString.Invariant(
-                    $"{dev:+0;-0} ± {u:0} ppm waits: opening its band now would cost about {waited:0.0} later parts"
-                )
-            : FormattableString.Invariant($"{dev:+0;-0} ± {u:0} ppm fits no band");
+        var reason = band is null
+            ? FormattableString.Invariant($"{dev:+0;-0} ± {u:0} ppm fits no band")
+            : FormattableString.Invariant($"band {band.Lo:+0;-0}..{band.Hi:+0;-0} ppm");
         return Record(r, key, band, reason, forcedLabel);
     }
 
     // Among the bands the part fits, one already holding parts (the one nearest to completing a set), else a planned
     // band of an empty cup, placed again first when the sample has grown.
-    private NominalBands.Band? Choose(NominalBands state, double dev, double u, out double waited)
+    private NominalBands.Band? Choose(NominalBands state, double dev, double u)
     {
-        waited = 0;
         bool Empty(string label) => _ledger.Count(state.Nominal, label) == 0;
         var holding = state
             .Bands.Where(b => !Empty(b.Label) && b.Fits(dev, u))
@@ -166,22 +154,7 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
             );
         }
 
-        var planned = state.Bands.FirstOrDefault(b => Empty(b.Label) && b.Fits(dev, u));
-        var n = state.Samples.Count;
-        if (planned is null || n > options.LearnCount)
-        {
-            return planned;
-        }
-
-        // Opening the band now fixes it for the rest of the reel; waiting loses this part (it goes to "R") but lets
-        // the band be placed from one more part. The expected loss of fixing it now is the regret (a share of the
-        // coming parts, CommitRegret) times the parts still to come; near the best plan that loss is quadratic in the
-        // band's error, whose variance falls as 1/n, so one more part saves about regret / n of it (common
-        // statistical reasoning, no source). Wait while that saving is worth more than the one part.
-        var rest = Math.Max(0, options.ReelParts - n);
-        var cost = rest * state.CommitRegret(planned, Empty, RegretDraws) / n;
-        waited = cost > 1 ? cost : 0;
-        return waited > 0 ? null : planned;
+        return state.Bands.FirstOrDefault(b => Empty(b.Label) && b.Fits(dev, u));
     }
 
     // A restart replays the history: the recorded cup wins; a cup the replay has no band for gets one around the part.

@@ -60,7 +60,13 @@ internal sealed class NominalBands
             return;
         }
 
-        var centres = Centres();
+        var centres = Samples
+            .Select(s =>
+            {
+                var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
+                return ((lo + hi) / 2, (hi - lo) / 2);
+            })
+            .ToList();
         var first = _firstIndex * _step;
         var held = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).OrderBy(b => b.Item1).ToList();
         // A planned band may overlap bands that hold parts: it is worth only the parts they would not take (the
@@ -73,36 +79,6 @@ internal sealed class NominalBands
             var s = first + (j * _step);
             Open(LogPpm.ToPpm(s), LogPpm.ToPpm(s + _width));
         }
-    }
-
-    /// <summary>
-    /// Expected share of the coming parts lost by opening the planned band <paramref name="band"/> now rather than
-    /// keeping its cup free until the reel is known: the mean over bootstrap resamples of the parts seen of (best plan
-    /// of all empty cups) − (the band + best plan of the other empty cups), both judged on the resample's estimate.
-    /// </summary>
-    public double CommitRegret(Band band, Func<string, bool> isEmpty, int draws)
-    {
-        var centres = Centres();
-        var first = _firstIndex * _step;
-        var held = Bands.Where(b => !isEmpty(b.Label)).Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).ToList();
-        var locked = held.Append((LogPpm.From(band.Lo), LogPpm.From(band.Hi))).OrderBy(b => b.Item1).ToList();
-        held.Sort((x, y) => x.Item1.CompareTo(y.Item1));
-        var free = _options.CupCount - held.Count;
-        var j = (int)Math.Round((LogPpm.From(band.Lo) - first) / _step);
-        var allowed = Enumerable.Repeat(true, _points).ToList();
-        // Seeded from the sample itself, so a replay of the history reaches the same decision.
-        var rng = new Random(HashCode.Combine(Samples.Count, Samples.Sum(s => s.Part)));
-        var regret = 0.0;
-        for (var d = 0; d < draws; d++)
-        {
-            List<(double, double)> r = [.. centres.Select(_ => centres[rng.Next(centres.Count)])];
-            var all = WindowCover.Best(Estimate(r, first, held), StepsPerBand, allowed, free).Total;
-            var rest = Estimate(r, first, locked);
-            var withBand = Estimate(r, first, held)[Math.Clamp(j, 0, _points - 1)];
-            regret += Math.Max(0, all - withBand - WindowCover.Best(rest, StepsPerBand, allowed, free - 1).Total);
-        }
-
-        return regret / draws;
     }
 
     /// <summary>
@@ -164,15 +140,6 @@ internal sealed class NominalBands
 
         return gains;
     }
-
-    private List<(double Centre, double Half)> Centres() =>
-        [
-            .. Samples.Select(s =>
-            {
-                var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
-                return ((lo + hi) / 2, (hi - lo) / 2);
-            }),
-        ];
 
     private void Open(double lo, double hi)
     {
