@@ -62,8 +62,8 @@ if (args.Length == 4 && args[0] == "lab-worker")
 
 Console.WriteLine(
     "usage: dotnet run -c Release --project bench/SortRig.Bench -- <benchmark>   (benchmarks: planning "
-        + "[gap|reels|big|cups|cups-write|cups-loss|cups-seeds|show:REEL:K:SEED|timing|probe], settle [parts], "
-        + "settle-seeds [parts] [seeds], order "
+        + "[gap|reels|big|cups|cups-write|cups-loss|cups-seeds[:FIRST:COUNT]|show:REEL:K:SEED|timing|probe], settle "
+        + "[parts], settle-seeds [parts] [seeds], order "
         + "[quad], "
         + "drift, lab, "
         + "build [seeds])"

@@ -50,9 +50,19 @@ internal static class PlanningBenchmark
             return 0;
         }
 
-        if (section == "cups-seeds")
+        if (section == "cups-seeds" || section.StartsWith("cups-seeds:", StringComparison.Ordinal))
         {
-            Console.WriteLine(string.Join('\n', YieldBench.RunOtherSeeds(quad)));
+            // cups-seeds[:first seed:count], default 101:20
+            var w = section.Split(':');
+            var seeds =
+                w.Length == 3
+                    ? YieldBench.RunOtherSeeds(
+                        quad,
+                        int.Parse(w[1], CultureInfo.InvariantCulture),
+                        int.Parse(w[2], CultureInfo.InvariantCulture)
+                    )
+                    : YieldBench.RunOtherSeeds(quad);
+            Console.WriteLine(string.Join('\n', seeds));
             return 0;
         }
 

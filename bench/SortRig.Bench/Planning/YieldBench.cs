@@ -26,7 +26,8 @@ internal static class YieldBench
         "over the windows (a DP that may also leave parts of a crowded window to its neighbour): what a plan that",
         "knew the reel in advance would get, counted the way cups are counted; the unfloored bounds also credit",
         "the fractions of sets in each cup that no plan can use (about 1.5 parts a cup). A check on other reels:",
-        "`planning cups-seeds` (seeds 101–120; normal, bimodal, uniform and off-centre reels; not written).",
+        "`planning cups-seeds` (seeds 101–120, or `cups-seeds:FIRST:COUNT`; normal, bimodal, uniform and off-centre "
+            + "reels; not written).",
         "",
     ];
 
@@ -39,10 +40,10 @@ internal static class YieldBench
         );
 
     /// <summary>Seeds the written table does not use (101–120) and reel shapes it does not have; not written.</summary>
-    public static List<string> RunOtherSeeds(Recipe quad) =>
+    public static List<string> RunOtherSeeds(Recipe quad, int firstSeed = 101, int seeds = 20) =>
         Run(
             quad,
-            [.. Enumerable.Range(101, 20)],
+            [.. Enumerable.Range(firstSeed, seeds)],
             [
                 ("normal", s => Reels.Normal(s, 1000)),
                 ("bimodal", s => Reels.Bimodal(s, 1000)),
@@ -52,7 +53,8 @@ internal static class YieldBench
             optimum: false
         );
 
-    /// <summary>Debug: the bands and counts one reel ends with.</summary>
+    /// <summary>Debug: which part opened each cup and where (with the rejects among the first 60 parts), then the bands
+    /// and counts the reel ends with.</summary>
     public static void Show(Recipe quad, string kind, int k, int seed)
     {
         var devs = kind switch
@@ -66,12 +68,25 @@ internal static class YieldBench
         var firstReject = new List<int>();
         for (var i = 0; i < devs.Count; i++)
         {
-            if (
-                planner.Assign(new CupRequest(i + 1, 10e3, Reels.Part(i + 1, 10e3, devs[i], s_uPpm).Value)).IsReject
-                && Math.Abs(devs[i]) < 10_000
-            )
+            var before = planner.Counts.Where(c => !c.IsReject && c.Count > 0).Select(c => c.CupLabel).ToHashSet();
+            var d = planner.Assign(new CupRequest(i + 1, 10e3, Reels.Part(i + 1, 10e3, devs[i], s_uPpm).Value));
+            if (d.IsReject && Math.Abs(devs[i]) < 10_000)
             {
                 firstReject.Add(i);
+                if (i < 60)
+                {
+                    Console.WriteLine(FormattableString.Invariant($"  part {i + 1} at {devs[i]:0} rejected"));
+                }
+            }
+
+            if (!d.IsReject && !before.Contains(d.CupLabel))
+            {
+                var b = planner.Bands(10e3).First(x => x.Label == d.CupLabel);
+                Console.WriteLine(
+                    FormattableString.Invariant(
+                        $"  part {i + 1} at {devs[i]:0} opens {d.CupLabel} [{b.LowPpm:0},{b.HighPpm:0}]"
+                    )
+                );
             }
         }
 
