@@ -80,22 +80,34 @@ internal static class ResultsTable
         return lines;
     }
 
-    public static async Task WriteAsync(string path, IReadOnlyList<string> results, CancellationToken ct)
+    public static Task WriteAsync(string path, IReadOnlyList<string> results, CancellationToken ct) =>
+        ReplaceBlockAsync(path, Begin, End, results, ct);
+
+    /// <summary>Replaces the text between the markers <paramref name="begin"/> and <paramref name="end"/> of the page
+    /// at <paramref name="path"/> with <paramref name="lines"/> (a missing page is created with both
+    /// markers).</summary>
+    public static async Task ReplaceBlockAsync(
+        string path,
+        string begin,
+        string end,
+        IReadOnlyList<string> lines,
+        CancellationToken ct
+    )
     {
         var text = File.Exists(path)
             ? await File.ReadAllTextAsync(path, ct).ConfigureAwait(false)
-            : $"# Settle rule benchmark\n\n{Begin}\n{End}\n";
-        var begin = text.IndexOf(Begin, StringComparison.Ordinal);
-        var end = text.IndexOf(End, StringComparison.Ordinal);
-        if (begin < 0 || end < begin)
+            : $"# Settle rule benchmark\n\n{begin}\n{end}\n";
+        var from = text.IndexOf(begin, StringComparison.Ordinal);
+        var to = text.IndexOf(end, StringComparison.Ordinal);
+        if (from < 0 || to < from)
         {
             throw new InvalidDataException(
-                $"{path}: the markers '{Begin}' and '{End}' (in that order) are needed to place the results."
+                $"{path}: the markers '{begin}' and '{end}' (in that order) are needed to place the results."
             );
         }
 
-        var body = string.Join('\n', results).TrimEnd();
-        var updated = text[..(begin + Begin.Length)] + "\n\n" + body + "\n\n" + text[end..];
+        var body = string.Join('\n', lines).TrimEnd();
+        var updated = text[..(from + begin.Length)] + "\n\n" + body + "\n\n" + text[to..];
         await File.WriteAllTextAsync(path, updated, ct).ConfigureAwait(false);
     }
 

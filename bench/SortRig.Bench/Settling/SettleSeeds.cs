@@ -60,7 +60,7 @@ internal static class SettleSeeds
             Console.WriteLine(line);
         }
 
-        await WriteAsync(docs, lines, ct).ConfigureAwait(false);
+        await ResultsTable.ReplaceBlockAsync(docs, Begin, End, lines, ct).ConfigureAwait(false);
         return 0;
     }
 
@@ -248,23 +248,6 @@ internal static class SettleSeeds
         }
 
         return counts;
-    }
-
-    private static async Task WriteAsync(string path, IReadOnlyList<string> lines, CancellationToken ct)
-    {
-        var text = await File.ReadAllTextAsync(path, ct).ConfigureAwait(false);
-        var begin = text.IndexOf(Begin, StringComparison.Ordinal);
-        var end = text.IndexOf(End, StringComparison.Ordinal);
-        if (begin < 0 || end < begin)
-        {
-            throw new InvalidDataException(
-                $"{path}: the markers '{Begin}' and '{End}' are needed to place the results."
-            );
-        }
-
-        var body = string.Join('\n', lines).TrimEnd();
-        await File.WriteAllTextAsync(path, text[..(begin + Begin.Length)] + "\n\n" + body + "\n\n" + text[end..], ct)
-            .ConfigureAwait(false);
     }
 
     private static string Inv(FormattableString text) => FormattableString.Invariant(text);
