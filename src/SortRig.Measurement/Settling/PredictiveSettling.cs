@@ -19,7 +19,9 @@ namespace SortRig.Measurement.Settling;
 /// (<see cref="ExponentialFitter.PriorInterval"/>) unless the record refuses it: the reel-learned range
 /// (<see cref="BodyRange"/>, <see cref="ReelPrior"/>), or before the reel has taught one the sort's own, from the body
 /// prior's floor to the assumed longest time constant; a refused look, or one that would decide under the wide prior
-/// with the body fitted below the floor, does not accept.
+/// with the body fitted below the floor, does not accept. Once the reel has taught its distribution of the body
+/// (<see cref="BodyPrior"/>, <see cref="ReelPrior.Body"/>) that distribution takes the range's place in the interval,
+/// as a penalty on ln τ_body in the profile likelihood (<see cref="ExponentialFitter.PenalizedInterval"/>).
 /// </summary>
 internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {
