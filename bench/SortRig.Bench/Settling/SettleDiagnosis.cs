@@ -9,7 +9,8 @@ namespace SortRig.Bench.Settling;
 /// 2 × target with its fit and the part's hidden physics (read here only to explain, never by the rule);
 /// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the
 /// fits of the first six parts every 0.5 s; `settle-diag [parts] [case] [seed] losses` adds where the rule loses time
-/// against the oracles (<see cref="LossLedger"/>).
+/// against the oracles (<see cref="LossLedger"/>); `... oracle` holds every part under the simulator's true body range
+/// from the first part (<see cref="OraclePrior"/>, diagnosis only: is the rule or the learner the bottleneck?).
 /// </summary>
 internal static class SettleDiagnosis
 {
@@ -41,6 +42,8 @@ internal static class SettleDiagnosis
         var (byPrior, priorSeconds) = (0, 0.0);
         var prior = ReelPrior.Empty;
         var ledger = args[^1] == "losses" ? new LossLedger() : null;
+        var oracle = args[^1] == "oracle";
+        prior = oracle ? OraclePrior : prior;
         var setting = SortRig.Simulator.Meter.NplcSetting.Find(c.Nplc)!;
         var sigma = Math.Sqrt(
             Math.Pow(setting.NoiseOhms(range.FullScale), 2) + (Math.Pow(setting.Step(range.FullScale), 2) / 12)
@@ -71,7 +74,7 @@ internal static class SettleDiagnosis
                     );
                 }
 
-                prior = tracker.Prior;
+                prior = oracle ? OraclePrior : tracker.Prior;
                 seconds += ins.Since(k).TotalSeconds;
                 ledger?.Add(
                     ins.Index,
@@ -113,8 +116,37 @@ internal static class SettleDiagnosis
                 + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
                 + Inv($"mean {seconds / n:0.00} s; {byPrior} by prediction under the reel prior ")
                 + Inv($"(mean {priorSeconds / byPrior:0.00} s), learned from {prior.Count} parts: {prior.BodyRange}")
+                + (prior.Body is { } b ? Inv($", ln τ {b.LogMean:0.000} ± {b.LogScale:0.000} (t, {b.Dof:0} dof)") : "")
         );
         return 0;
+    }
+
+    /// <summary>
+    /// A prior whose learned range is the simulator's true spread of the body time constant (4 s × U(0.8, 1.2):
+    /// 3.2-4.8 s, docs/simulator.md): twenty estimates spanning 3.276-4.724 s with no error, widened by range / 19 on
+    /// each side. Diagnosis only: it reads the simulator's documented population, which no rule may.
+    /// Its learned distribution of ln τ is the uniform's own mean and variance, as if from a million parts (the
+    /// normal of the reel's spread, the fit limit's prior column).
+    /// </summary>
+    private static ReelPrior OraclePrior { get; } = Oracle();
+
+    private static ReelPrior Oracle()
+    {
+        // ln τ for τ ~ U(3.2, 4.8): E ln τ and E (ln τ)² by the midpoint rule over 10 000 cells.
+        var (m1, m2) = (0.0, 0.0);
+        for (var i = 0; i < 10_000; i++)
+        {
+            var u = Math.Log(3.2 + (1.6 * (i + 0.5) / 10_000));
+            (m1, m2) = (m1 + (u / 10_000), m2 + (u * u / 10_000));
+        }
+
+        const int N = 1_000_000;
+        return new ReelPrior(20, 4 - (0.8 * 19 / 21), 4 + (0.8 * 19 / 21), 0) with
+        {
+            Count = N,
+            SumLog = N * m1,
+            SumSquaresLog = N * m2,
+        };
     }
 
     private static void Trace(InsertionSource source, double resolution)

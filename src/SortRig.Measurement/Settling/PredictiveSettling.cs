@@ -19,7 +19,9 @@ namespace SortRig.Measurement.Settling;
 /// (<see cref="ExponentialFitter.PriorInterval"/>) unless the record refuses it: the reel-learned range
 /// (<see cref="BodyRange"/>, <see cref="ReelPrior"/>), or before the reel has taught one the sort's own, from the body
 /// prior's floor to the assumed longest time constant; a refused look, or one that would decide under the wide prior
-/// with the body fitted below the floor, does not accept.
+/// with the body fitted below the floor, does not accept. Once the reel has taught its distribution of the body
+/// (<see cref="BodyPrior"/>, <see cref="ReelPrior.Body"/>) that distribution takes the range's place in the interval,
+/// as a penalty on ln τ_body in the profile likelihood (<see cref="ExponentialFitter.PenalizedInterval"/>).
 /// </summary>
 internal sealed class PredictiveSettling(PredictiveOptions options, double resolutionOhms, TimeSpan longestTimeConstant)
 {
@@ -74,6 +76,11 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
     /// s; null: none learned yet (the sort's own range, the body prior's floor to the assumed longest time constant,
     /// stands in).</summary>
     public (double Floor, double Ceiling)? BodyRange { get; set; }
+
+    /// <summary>The reel-learned distribution of the body time constant (<see cref="ReelPrior.Body"/>); when set it
+    /// takes the place of <see cref="BodyRange"/> in the interval (a penalty on ln τ_body, see
+    /// <see cref="ExponentialFitter.PenalizedInterval"/>), and the range's floor is kept for the refusals.</summary>
+    public BodyPrior? BodyPrior { get; set; }
 
     /// <summary>The latest fit made (accepted or not); null before the first.</summary>
     public RecoveryFit? Latest { get; private set; }
@@ -331,7 +338,47 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         // above that floor but short of the truth decides on its free profile (settle-seeds, tenth pass: 7 of the 12
         // misses in 64 000 parts, all in the learning phase, two-path fits with the body at 1.5-3.1 s).
         var (floor, ceiling) = BodyRange ?? (BodyPriorFraction * maxTau, maxTau);
-        if (floor > MinTimeConstantSeconds && floor < maxTau && t[^1] >= PriorMinSpan)
+        if (BodyPrior is { } learned && t[^1] >= PriorMinSpan)
+        {
+            // Once the reel has taught it, the body's distribution enters as prior information that adds to the
+            // record's: a penalty on ln τ_body in the profile likelihood, not an envelope over the whole range.
+            var (pl, ph) = ExponentialFitter.PenalizedInterval(
+                t,
+                y,
+                s2Best,
+                MinTimeConstantSeconds,
+                maxTau,
+                learned,
+                RefusalChiSquare,
+                out var deviance,
+                out var priorFinal,
+                out _
+            );
+            // Prior-data conflict (Box 1980, from memory): the least penalised deviance exceeds the free fit's
+            // RSS / s² by about χ²₁ when the part is of the reel's kind; beyond its 5 % point the part's record refuses
+            // the reel's distribution, as the likelihood-ratio test refuses a range.
+            if (
+                double.IsFinite(pl)
+                && double.IsFinite(ph)
+                && deviance - (candidates.Min(c => c.Rss) / s2Best) <= RefusalChiSquare
+            )
+            {
+                // As under a range: a one-path fit keeps the record's own interval when that is the narrower.
+                if (
+                    best.Model == RecoveryModel.TwoExponentials
+                    || best.TimeConstants[0] < floor
+                    || Math.Max(priorFinal - pl, ph - priorFinal) < Math.Max(final - low, high - final)
+                )
+                {
+                    (final, low, high, usedPrior) = (priorFinal, pl, ph, floor);
+                }
+            }
+            else
+            {
+                _refused = true;
+            }
+        }
+        else if (floor > MinTimeConstantSeconds && floor < maxTau && t[^1] >= PriorMinSpan)
         {
             var (pl, ph) = ExponentialFitter.PriorInterval(
                 t,

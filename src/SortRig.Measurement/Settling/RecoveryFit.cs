@@ -42,9 +42,9 @@ public sealed record RecoveryFit(
     /// </summary>
     public bool BodyResolved { get; init; }
 
-    /// <summary>The reel-learned floor of the body time constant the interval was taken under, s; null: the wide
-    /// prior (none learned yet, a record too short for it, the part's record refused the range, or a one-path fit
-    /// whose own interval was the narrower).</summary>
+    /// <summary>The floor of the body range (or, under the reel's learned distribution, of the learned range beside
+    /// it) the interval was taken under, s; null: the wide prior (none learned yet, a record too short for it, the
+    /// part's record refused the range, or a one-path fit whose own interval was the narrower).</summary>
     public double? BodyFloor { get; init; }
 
     /// <summary>Combined standard uncertainty of <see cref="FinalValue"/>, ohms.</summary>

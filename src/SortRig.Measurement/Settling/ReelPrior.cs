@@ -20,7 +20,17 @@ namespace SortRig.Measurement.Settling;
 /// <param name="Highest">Highest resolved body time constant, s (−∞ when none).</param>
 /// <param name="LargestError">Largest standard error among them, s.</param>
 /// <param name="Seen">Parts accepted in the session, resolved or not.</param>
-public sealed record ReelPrior(int Count, double Lowest, double Highest, double LargestError, int Seen = 0)
+/// <param name="SumLog">Sum of the resolved estimates' ln τ.</param>
+/// <param name="SumSquaresLog">Sum of their squares.</param>
+public sealed record ReelPrior(
+    int Count,
+    double Lowest,
+    double Highest,
+    double LargestError,
+    int Seen = 0,
+    double SumLog = 0,
+    double SumSquaresLog = 0
+)
 {
     /// <summary>
     /// Resolved parts before the floor is used: with 20 exchangeable draws the chance that the next lies below the
@@ -52,6 +62,26 @@ public sealed record ReelPrior(int Count, double Lowest, double Highest, double 
     }
 
     /// <summary>
+    /// The learned distribution of the next part's ln τ_body (<see cref="BodyPrior"/>: Student's t of the resolved
+    /// estimates' mean and spread, n − 1 degrees of freedom); null before <see cref="MinParts"/> parts. The estimates'
+    /// spread holds their own errors as well as the reel's spread, which only widens it.
+    /// </summary>
+    public BodyPrior? Body
+    {
+        get
+        {
+            if (Count < MinParts)
+            {
+                return null;
+            }
+
+            var mean = SumLog / Count;
+            var variance = Math.Max(SumSquaresLog - (Count * mean * mean), 0) / (Count - 1);
+            return new BodyPrior(mean, Math.Sqrt(variance * (1 + (1.0 / Count))), Count - 1);
+        }
+    }
+
+    /// <summary>
     /// The prior after one more accepted part: its fit's body estimate is added when the record resolved it
     /// (<see cref="RecoveryFit.BodyResolved"/>); otherwise the prior is unchanged.
     /// </summary>
@@ -62,7 +92,9 @@ public sealed record ReelPrior(int Count, double Lowest, double Highest, double 
                 Math.Min(Lowest, tau),
                 Math.Max(Highest, tau),
                 Math.Max(LargestError, se),
-                Seen + 1
+                Seen + 1,
+                SumLog + Math.Log(tau),
+                SumSquaresLog + (Math.Log(tau) * Math.Log(tau))
             )
             : this with
             {

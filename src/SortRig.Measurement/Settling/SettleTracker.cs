@@ -88,6 +88,7 @@ public sealed partial class SettleTracker
         {
             field = value;
             _predictive?.BodyRange = value.BodyRange;
+            _predictive?.BodyPrior = value.Body;
         }
     }
 
