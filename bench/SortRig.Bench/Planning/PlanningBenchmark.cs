@@ -10,9 +10,9 @@ internal static class PlanningBenchmark
     public static async Task<int> RunAsync(string section, CancellationToken ct)
     {
         var root = FindRoot();
-        if (section.EndsWith("+follow", StringComparison.Ordinal))
+        if (section.EndsWith("+fixed", StringComparison.Ordinal))
         {
-            (YieldBench.FollowParts, section) = (true, section[..^"+follow".Length]);
+            (YieldBench.FollowParts, section) = (false, section[..^"+fixed".Length]);
         }
 
         async Task<Recipe> Load(string f) =>

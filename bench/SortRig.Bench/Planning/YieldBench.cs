@@ -31,13 +31,14 @@ internal static class YieldBench
         "",
     ];
 
-    /// <summary>The planner's options on the quad; <see cref="FollowParts"/> switches the option of that name on (a
-    /// section name ending in "+follow").</summary>
+    /// <summary>The planner's options on the quad; <see cref="FollowParts"/> false (a section name ending in
+    /// "+fixed") measures the bands that never move under parts.</summary>
     internal static AdaptiveCupOptions Options(Recipe quad, int k) =>
         AdaptiveCupOptions.ForRecipe(quad, k, 1.0, followParts: FollowParts);
 
-    /// <summary>Set from the section name ("+follow"): the adaptive planner's bands follow their parts.</summary>
-    internal static bool FollowParts { get; set; }
+    /// <summary>False from the section name ("+fixed"): the adaptive planner's bands do not follow their
+    /// parts.</summary>
+    internal static bool FollowParts { get; set; } = true;
 
     /// <summary>The reels of the written table (seeds 1–5, normal and bimodal).</summary>
     public static List<string> Run(Recipe quad) =>

@@ -17,7 +17,8 @@ public sealed record AdaptiveCupOptions
     /// <param name="uncertaintyLimitPpm">Largest expanded transfer uncertainty accepted, ppm; default half the match
     /// tolerance.</param>
     /// <param name="followParts">When true, the band of a cup that holds parts is placed again with the empty cups'
-    /// bands, anywhere that still holds every part of the cup (<see cref="FollowParts"/>); default false.</param>
+    /// bands, anywhere that still holds every part of the cup (<see cref="FollowParts"/>); default true (false: today's
+    /// fixed bands).</param>
     public AdaptiveCupOptions(
         int cupCount,
         double matchTolerancePpm,
@@ -25,7 +26,7 @@ public sealed record AdaptiveCupOptions
         IReadOnlyDictionary<double, int> partsPerSet,
         int learnCount = 40,
         double? uncertaintyLimitPpm = null,
-        bool followParts = false
+        bool followParts = true
     )
     {
         FollowParts = followParts;
@@ -106,7 +107,7 @@ public sealed record AdaptiveCupOptions
         int cupCount,
         double stockTolerancePercent,
         int learnCount = 40,
-        bool followParts = false
+        bool followParts = true
     ) =>
         recipe.Form == RecipeForm.Matched
             ? new AdaptiveCupOptions(

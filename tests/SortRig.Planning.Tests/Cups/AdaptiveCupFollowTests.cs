@@ -172,4 +172,23 @@ public sealed class AdaptiveCupFollowTests
             Assert.Equal(first.Assign(Part(n, 10e3, ppm)), second.Assign(Part(n, 10e3, ppm)));
         }
     }
+
+    [Fact]
+    public void PartAcrossTheBandsEdge_GoesIn_WhenTheCupsPartsLeaveRoom_AndTheBandMovesToHoldIt()
+    {
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(4, 1000, 1.0, s_quad, learnCount: 4));
+        var first = planner.Assign(Part(1, 10e3, 300, uPpm: 10));
+        var band = planner.Bands(10e3).Single(b => b.Label == first.CupLabel);
+        // 5 ppm inside the upper edge with 10 ppm of uncertainty: 5 ppm past the band, well within one band of part 1.
+        var edge = planner.Assign(Part(2, 10e3, band.HighPpm - 5, uPpm: 10));
+        Assert.Equal(first.CupLabel, edge.CupLabel);
+        // The cup's band (wherever the plan put it) holds both parts' whole intervals.
+        var moved = planner.Bands(10e3).Single(b => b.Label == first.CupLabel);
+        Assert.True(moved.HighPpm >= band.HighPpm + 5 && moved.LowPpm <= 290, $"{band} -> {moved}");
+        Assert.True((((1 + (moved.HighPpm * 1e-6)) / (1 + (moved.LowPpm * 1e-6))) - 1) * 1e6 <= 1000, $"{moved}");
+        // A part that the cup's parts leave no room for (its interval and part 1's more than a band apart) does not go
+        // in.
+        var far = planner.Assign(Part(3, 10e3, 300 - 1000, uPpm: 10));
+        Assert.NotEqual(first.CupLabel, far.CupLabel);
+    }
 }
