@@ -11,9 +11,10 @@ namespace SortRig.Planning.Cups;
 /// parts, the bands of the empty cups are placed again where most of the coming parts are expected (a kernel density
 /// of the parts seen, <see cref="CoverageEstimate"/>, and the exact best disjoint windows, <see cref="WindowCover"/>),
 /// at every part while learning, then whenever the sample has grown by a tenth; the part opens the planned band it
-/// fits, if any. No band moves once it holds a part, unless <see cref="AdaptiveCupOptions.FollowParts"/> is set: then
-/// a band holding parts may move at a plan to any lattice place that still holds every part of its cup. Each nominal
-/// has its own K cups; everything else goes to "R".
+/// fits, if any. With <see cref="AdaptiveCupOptions.FollowParts"/> (the default) a band holding parts may move at a
+/// plan to any lattice place that still holds every part of its cup, and a cup may take a part just across its edge
+/// when its parts leave room; without it no band moves once it holds a part. Each nominal has its own K cups;
+/// everything else goes to "R".
 /// </summary>
 public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null)
     : ICupAssigner
