@@ -53,7 +53,7 @@ internal static class CupLossBench
                 for (var seed = 1; seed <= 5; seed++)
                 {
                     var devs = Reel(kind, seed);
-                    var planner = new AdaptiveCupPlanner(AdaptiveCupOptions.ForRecipe(quad, k, 1.0));
+                    var planner = new AdaptiveCupPlanner(YieldBench.Options(quad, k));
                     for (var i = 0; i < devs.Count; i++)
                     {
                         planner.Assign(new CupRequest(i + 1, 10e3, Reels.Part(i + 1, 10e3, devs[i], UPpm).Value));

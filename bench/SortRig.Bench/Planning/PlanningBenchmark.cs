@@ -10,6 +10,11 @@ internal static class PlanningBenchmark
     public static async Task<int> RunAsync(string section, CancellationToken ct)
     {
         var root = FindRoot();
+        if (section.EndsWith("+fixed", StringComparison.Ordinal))
+        {
+            (YieldBench.FollowParts, section) = (false, section[..^"+fixed".Length]);
+        }
+
         async Task<Recipe> Load(string f) =>
             await RecipeLoader.LoadFileAsync(Path.Combine(root, "recipes", f), ct).ConfigureAwait(false);
         var quad = await Load("matched-quad.yaml").ConfigureAwait(false);

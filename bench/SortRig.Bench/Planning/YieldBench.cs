@@ -31,6 +31,15 @@ internal static class YieldBench
         "",
     ];
 
+    /// <summary>The planner's options on the quad; <see cref="FollowParts"/> false (a section name ending in
+    /// "+fixed") measures the bands that never move under parts.</summary>
+    internal static AdaptiveCupOptions Options(Recipe quad, int k) =>
+        AdaptiveCupOptions.ForRecipe(quad, k, 1.0, followParts: FollowParts);
+
+    /// <summary>False from the section name ("+fixed"): the adaptive planner's bands do not follow their
+    /// parts.</summary>
+    internal static bool FollowParts { get; set; } = true;
+
     /// <summary>The reels of the written table (seeds 1–5, normal and bimodal).</summary>
     public static List<string> Run(Recipe quad) =>
         Run(
@@ -64,7 +73,7 @@ internal static class YieldBench
             "offset" => Reels.Offset(seed, 1000),
             _ => Reels.Normal(seed, 1000),
         };
-        var planner = new AdaptiveCupPlanner(AdaptiveCupOptions.ForRecipe(quad, k, 1.0));
+        var planner = new AdaptiveCupPlanner(Options(quad, k));
         var firstReject = new List<int>();
         for (var i = 0; i < devs.Count; i++)
         {
@@ -134,7 +143,7 @@ internal static class YieldBench
                 {
                     var devs = reel(seed);
                     fixedSets += Sets(new BandCupAssigner(new BandCupOptions(k, s_matchPpm, 10e3, 1.0)), devs);
-                    var a = Sets(new AdaptiveCupPlanner(AdaptiveCupOptions.ForRecipe(quad, k, 1.0)), devs);
+                    var a = Sets(new AdaptiveCupPlanner(Options(quad, k)), devs);
                     adaptive += a;
                     bound += CoverBound([.. devs], k, s_matchPpm) / 4.0;
                     var s = WorstCaseBound(devs, k) / 4.0;

@@ -16,15 +16,20 @@ public sealed record AdaptiveCupOptions
     /// default 40.</param>
     /// <param name="uncertaintyLimitPpm">Largest expanded transfer uncertainty accepted, ppm; default half the match
     /// tolerance.</param>
+    /// <param name="followParts">When true, the band of a cup that holds parts is placed again with the empty cups'
+    /// bands, anywhere that still holds every part of the cup (<see cref="FollowParts"/>); default true (false: today's
+    /// fixed bands).</param>
     public AdaptiveCupOptions(
         int cupCount,
         double matchTolerancePpm,
         double stockTolerancePercent,
         IReadOnlyDictionary<double, int> partsPerSet,
         int learnCount = 40,
-        double? uncertaintyLimitPpm = null
+        double? uncertaintyLimitPpm = null,
+        bool followParts = true
     )
     {
+        FollowParts = followParts;
         CupCount = cupCount is >= 1 and <= CupLabels.MaxCups
             ? cupCount
             : throw new ArgumentOutOfRangeException(
@@ -85,6 +90,15 @@ public sealed record AdaptiveCupOptions
     /// <summary>Largest expanded transfer uncertainty accepted, ppm.</summary>
     public double UncertaintyLimitPpm { get; }
 
+    /// <summary>
+    /// When true, a band that holds parts is not fixed: at every plan it may move to any lattice place whose band still
+    /// holds the whole uncertainty interval of every part in its cup (the hull of the cup's parts), so the cup's parts
+    /// stay a matched set in the worst case while its band follows the learned distribution; and a cup may take a part
+    /// up to the part's own interval (2U) across its band's edge when the hull with the part still fits one band, the
+    /// band moving to hold it. Not used when the K bands tile the whole stock tolerance (nothing to choose).
+    /// </summary>
+    public bool FollowParts { get; }
+
     /// <summary>Options for a matched-form recipe: its match tolerance and its single-part demand per
     /// nominal.</summary>
     /// <exception cref="ArgumentException">The recipe is not in the matched form.</exception>
@@ -92,7 +106,8 @@ public sealed record AdaptiveCupOptions
         Recipe recipe,
         int cupCount,
         double stockTolerancePercent,
-        int learnCount = 40
+        int learnCount = 40,
+        bool followParts = true
     ) =>
         recipe.Form == RecipeForm.Matched
             ? new AdaptiveCupOptions(
@@ -100,7 +115,8 @@ public sealed record AdaptiveCupOptions
                 recipe.MatchTolerancePpm,
                 stockTolerancePercent,
                 recipe.SinglePartDemand,
-                learnCount
+                learnCount,
+                followParts: followParts
             )
             : throw new ArgumentException("cup bands need a matched-form recipe (a ratio tolerance)", nameof(recipe));
 }

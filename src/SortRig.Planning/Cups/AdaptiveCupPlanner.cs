@@ -11,7 +11,10 @@ namespace SortRig.Planning.Cups;
 /// parts, the bands of the empty cups are placed again where most of the coming parts are expected (a kernel density
 /// of the parts seen, <see cref="CoverageEstimate"/>, and the exact best disjoint windows, <see cref="WindowCover"/>),
 /// at every part while learning, then whenever the sample has grown by a tenth; the part opens the planned band it
-/// fits, if any. No band moves once it holds a part. Each nominal has its own K cups; everything else goes to "R".
+/// fits, if any. With <see cref="AdaptiveCupOptions.FollowParts"/> (the default) a band holding parts may move at a
+/// plan to any lattice place that still holds every part of its cup, and a cup may take a part just across its edge
+/// when its parts leave room; without it no band moves once it holds a part. Each nominal has its own K cups;
+/// everything else goes to "R".
 /// </summary>
 public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<AdaptiveCupPlanner>? logger = null)
     : ICupAssigner
@@ -117,6 +120,12 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
             band = Forced(state, forcedLabel, dev, u);
         }
 
+        if (state.Follows && band is not null && !band.Fits(dev, u))
+        {
+            var (lo, hi) = Hulls(state)[band.Label];
+            band = state.Cover(band.Label, Math.Min(lo, dev - u), Math.Max(hi, dev + u));
+        }
+
         var reason = band is null
             ? FormattableString.Invariant($"{dev:+0;-0} ± {u:0} ppm fits no band")
             : FormattableString.Invariant($"band {band.Lo:+0;-0}..{band.Hi:+0;-0} ppm");
@@ -128,8 +137,19 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
     private NominalBands.Band? Choose(NominalBands state, double dev, double u)
     {
         bool Empty(string label) => _ledger.Count(state.Nominal, label) == 0;
+        if (state.Follows && state.Stale)
+        {
+            state.Replan(Empty, Hulls(state));
+        }
+
+        // Following its parts, a cup may also take a part across its band's edge when its parts leave room: the band
+        // then moves to hold it (by at most the part's own interval, 2U, the width over which a part can straddle an
+        // edge; a wider reach was measured worse, docs/planning.md).
+        var hulls = state.Follows ? Hulls(state) : null;
+        bool Fits(NominalBands.Band b) =>
+            b.Fits(dev, u) || (hulls is not null && state.CanHold(b, hulls[b.Label], dev, u, 2 * u));
         var holding = state
-            .Bands.Where(b => !Empty(b.Label) && b.Fits(dev, u))
+            .Bands.Where(b => !Empty(b.Label) && Fits(b))
             .MaxBy(b =>
                 (_ledger.Count(state.Nominal, b.Label) % state.PartsPerSet, _ledger.Count(state.Nominal, b.Label))
             );
@@ -166,9 +186,33 @@ public sealed class AdaptiveCupPlanner(AdaptiveCupOptions options, ILogger<Adapt
         }
 
         var band = state.Bands.FirstOrDefault(b => b.Label == label);
+        if (state.Follows && band is not null && _ledger.Count(state.Nominal, label) > 0 && !band.Fits(dev, u))
+        {
+            // A band that follows its parts moves to hold this one too.
+            var (lo, hi) = Hulls(state)[label];
+            return state.Cover(label, Math.Min(lo, dev - u), Math.Max(hi, dev + u));
+        }
+
         return band is not null && (_ledger.Count(state.Nominal, label) > 0 || band.Fits(dev, u))
             ? band
             : state.OpenFor(label, dev, u);
+    }
+
+    // Lowest and highest edge (ppm) of the parts' uncertainty intervals in each cup of the nominal that holds parts.
+    private Dictionary<string, (double Lo, double Hi)> Hulls(NominalBands state)
+    {
+        var hulls = new Dictionary<string, (double Lo, double Hi)>();
+        foreach (var (part, dev, u) in state.Samples)
+        {
+            if (_ledger.LabelOf(part) is { } label && label != CupLabels.Reject)
+            {
+                hulls[label] = hulls.TryGetValue(label, out var h)
+                    ? (Math.Min(h.Lo, dev - u), Math.Max(h.Hi, dev + u))
+                    : (dev - u, dev + u);
+            }
+        }
+
+        return hulls;
     }
 
     private CupDecision Record(CupRequest r, double key, NominalBands.Band? band, string reason, string? forcedLabel)

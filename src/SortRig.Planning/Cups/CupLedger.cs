@@ -11,6 +11,9 @@ internal sealed class CupLedger
     public IEnumerable<((double Nominal, string Label) Key, int Count)> NonEmpty =>
         _counts.Where(kv => kv.Value > 0).Select(kv => (kv.Key, kv.Value));
 
+    /// <summary>The cup label of a part, or null when it is in no cup.</summary>
+    public string? LabelOf(long partNumber) => _parts.TryGetValue(partNumber, out var at) ? at.Label : null;
+
     public void EnsureNew(long partNumber)
     {
         if (_parts.TryGetValue(partNumber, out var at))

@@ -6,7 +6,8 @@ namespace SortRig.Planning.Cups;
 /// The bands of one nominal in the adaptive planner and the parts seen so far. Bands sit on a lattice of the log
 /// scale (<see cref="LogPpm"/>) with a step of 1/<see cref="StepsPerBand"/> band; each is exactly as wide as the
 /// match tolerance allows (ratio of its edges 1 + tolerance, less a hair for rounding). A band that holds parts never
-/// moves; the bands of empty cups are placed again (<see cref="Replan"/>) from the grown sample.
+/// moves (with <see cref="AdaptiveCupOptions.FollowParts"/> it may, but always holding every part of its cup); the
+/// bands of empty cups are placed again (<see cref="Replan"/>) from the grown sample.
 /// </summary>
 internal sealed class NominalBands
 {
@@ -43,30 +44,44 @@ internal sealed class NominalBands
     public List<Band> Bands { get; } = [];
 
     /// <summary>
+    /// True when bands holding parts may move (<see cref="AdaptiveCupOptions.FollowParts"/>). Not when the K bands can
+    /// tile the whole stock tolerance (to within a lattice step, the plan's resolution): then there is no choice of
+    /// where to cover, only the risk of leaving gaps between bands that moved, so the planner keeps today's rule.
+    /// </summary>
+    public bool Follows =>
+        _options.FollowParts && (_options.CupCount * _width) + _step < LogPpm.From(_range) - LogPpm.From(-_range);
+
+    /// <summary>
     /// True when the sample has grown enough since the last plan to place the empty cups' bands again: at every
     /// part up to the learn count, then each time it has grown by a tenth.
     /// </summary>
     public bool Stale =>
         Samples.Count <= _options.LearnCount ? Samples.Count != _plannedAt : Samples.Count >= _plannedAt * 1.1;
 
-    /// <summary>Places the empty cups' bands where most coming parts are expected; bands with parts stay.</summary>
-    public void Replan(Func<string, bool> isEmpty)
+    /// <summary>
+    /// Places the empty cups' bands where most coming parts are expected. Bands with parts stay, unless
+    /// <paramref name="hulls"/> is given (<see cref="AdaptiveCupOptions.FollowParts"/>): then such bands first move,
+    /// when that covers more of the coming parts, to lattice places that still hold every part of their cups.
+    /// </summary>
+    /// <param name="isEmpty">Whether a cup holds no part.</param>
+    /// <param name="hulls">Lowest and highest edge (ppm) of the parts' uncertainty intervals in each cup that holds
+    /// parts; null to keep those bands where they are.</param>
+    public void Replan(Func<string, bool> isEmpty, IReadOnlyDictionary<string, (double Lo, double Hi)>? hulls = null)
     {
         _plannedAt = Samples.Count;
         Bands.RemoveAll(b => isEmpty(b.Label));
         var free = _options.CupCount - Bands.Count;
+        if (hulls is not null && Follows)
+        {
+            MoveHeld(hulls, free);
+        }
+
         if (free == 0)
         {
             return;
         }
 
-        var centres = Samples
-            .Select(s =>
-            {
-                var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
-                return ((lo + hi) / 2, (hi - lo) / 2);
-            })
-            .ToList();
+        var centres = Centres();
         var first = _firstIndex * _step;
         var held = Bands.Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi))).OrderBy(b => b.Item1).ToList();
         // A planned band may overlap bands that hold parts: it is worth only the parts they would not take (the
@@ -80,6 +95,84 @@ internal sealed class NominalBands
             Open(LogPpm.ToPpm(s), LogPpm.ToPpm(s + _width));
         }
     }
+
+    // FollowParts: every band that holds parts, has a lattice place holding its cup's hull and shares no range of parts
+    // with another cup may move. The exact DP (WindowCover.BestAround) places these bands, each within the places
+    // that hold its hull, together with the free bands, none overlapping, on the estimate that leaves out what the
+    // other bands (pinned) take. They move only when that plan covers more of the coming parts than the same DP with
+    // them where they are; the free bands are then placed by today's rule (Replan goes on), which may overlap them.
+    private void MoveHeld(IReadOnlyDictionary<string, (double Lo, double Hi)> hulls, int free)
+    {
+        var first = _firstIndex * _step;
+        var movable = new List<(Band Band, int Lo, int Hi, int Here)>();
+        foreach (var band in Bands)
+        {
+            var (lo, hi) = hulls[band.Label];
+            var a = (int)Math.Ceiling(((LogPpm.From(hi) - _width - first) / _step) - 1e-9);
+            var b = (int)Math.Floor(((LogPpm.From(lo) - first) / _step) + 1e-9);
+            // The band's edges in ppm decide, as in Band.Fits: step inwards until they hold the hull exactly.
+            while (a <= b && LogPpm.ToPpm(first + (a * _step) + _width) < hi)
+            {
+                a++;
+            }
+
+            while (a <= b && LogPpm.ToPpm(first + (b * _step)) > lo)
+            {
+                b--;
+            }
+
+            // A band on the lattice whose parts no other cup's parts overlap can move (two cups holding parts in the
+            // same range, after bands were opened overlapping, stay where they are).
+            var here = (LogPpm.From(band.Lo) - first) / _step;
+            var overlaps = Bands.Any(o => o != band && hulls[o.Label].Lo < hi && lo < hulls[o.Label].Hi);
+            if (a <= b && a >= 0 && b < _points && Math.Abs(here - Math.Round(here)) < 1e-6 && !overlaps)
+            {
+                movable.Add((band, a, b, (int)Math.Round(here)));
+            }
+        }
+
+        if (movable.Count == 0)
+        {
+            return;
+        }
+
+        movable.Sort((x, y) => (x.Lo, x.Hi).CompareTo((y.Lo, y.Hi)));
+        var pinned = Bands
+            .Where(b => movable.All(m => m.Band != b))
+            .Select(b => (LogPpm.From(b.Lo), LogPpm.From(b.Hi)))
+            .OrderBy(b => b.Item1)
+            .ToList();
+        var centres = Centres();
+        var gains = Estimate(centres, first, pinned);
+        var plan = WindowCover.BestAround(gains, StepsPerBand, free, [.. movable.Select(m => (m.Lo, m.Hi))]);
+        // The plan of today's rule for comparison: the movable bands where they are (overlaps counted twice, which
+        // only favours staying) and the free bands clear of them.
+        var allowed = Enumerable
+            .Range(0, _points)
+            .Select(j => movable.All(m => j + StepsPerBand <= m.Here || j >= m.Here + StepsPerBand))
+            .ToList();
+        var stay = movable.Sum(m => gains[m.Here]) + WindowCover.Best(gains, StepsPerBand, allowed, free).Total;
+        // Moving is worth it only when the moved plan covers more of the coming parts than the bands where they are.
+        if (plan is null || plan.Value.Total <= stay)
+        {
+            return;
+        }
+
+        foreach (var (m, j) in movable.Zip(plan.Value.Required))
+        {
+            var s = first + (j * _step);
+            Bands[Bands.IndexOf(m.Band)] = m.Band with { Lo = LogPpm.ToPpm(s), Hi = LogPpm.ToPpm(s + _width) };
+        }
+    }
+
+    private List<(double Centre, double Half)> Centres() =>
+        [
+            .. Samples.Select(s =>
+            {
+                var (lo, hi) = (LogPpm.From(s.Dev - s.U), LogPpm.From(s.Dev + s.U));
+                return ((lo + hi) / 2, (hi - lo) / 2);
+            }),
+        ];
 
     /// <summary>
     /// A band for a cup the history names but the plan does not have (a restart after parts were taken back): the
@@ -102,6 +195,45 @@ internal sealed class NominalBands
         var band = new Band(index, label, LogPpm.ToPpm(s), LogPpm.ToPpm(s + _width));
         Bands.Add(band);
         return band;
+    }
+
+    /// <summary>
+    /// The band of <paramref name="label"/> moved as little as it must (on the log scale, off the lattice if need be)
+    /// to hold [<paramref name="lo"/>, <paramref name="hi"/>] ppm; a hull wider than a band cannot be held and leaves
+    /// the band where it is.
+    /// </summary>
+    public Band Cover(string label, double lo, double hi)
+    {
+        var i = Bands.FindIndex(b => b.Label == label);
+        var band = Bands[i];
+        var (a, b) = (LogPpm.From(lo), LogPpm.From(hi));
+        if (b - a > _width)
+        {
+            return band;
+        }
+
+        var s = Math.Clamp(LogPpm.From(band.Lo), b - _width, a);
+        // Rounding of the edges back to ppm must not leave either end of the hull outside.
+        // A millionth of a ppm outside the hull, so that a value recomputed from ohms still lies inside (the band
+        // stays within the tolerance: its width has a thousandth of a ppm to spare).
+        var moved = band with
+        {
+            Lo = Math.Min(lo, LogPpm.ToPpm(s)) - 1e-6,
+            Hi = Math.Max(hi, LogPpm.ToPpm(s + _width)) + 1e-6,
+        };
+        Bands[i] = moved;
+        return moved;
+    }
+
+    /// <summary>
+    /// Whether the cup of <paramref name="band"/>, holding parts over <paramref name="hull"/> (ppm), can take a part
+    /// outside its band: the hull with the part's interval no wider than a band, and within the band widened by
+    /// <paramref name="slack"/> ppm either side.
+    /// </summary>
+    public bool CanHold(Band band, (double Lo, double Hi) hull, double dev, double u, double slack)
+    {
+        var (lo, hi) = (Math.Min(hull.Lo, dev - u), Math.Max(hull.Hi, dev + u));
+        return LogPpm.From(hi) - LogPpm.From(lo) <= _width && lo >= band.Lo - slack && hi <= band.Hi + slack;
     }
 
     // The kernel density of the parts seen, plus while the sample is small (weights fading as learn count / (learn

@@ -48,4 +48,100 @@ internal static class WindowCover
 
         return (starts, best[0, count]);
     }
+
+    /// <summary>
+    /// The best windows when some must be placed: every required window r gets one start in its range
+    /// [<c>Lo</c>, <c>Hi</c>] (ranges ascending; the windows keep that order), and at most <paramref name="count"/>
+    /// free windows of positive gain go where they add most; no two windows overlap. A dynamic programme over the grid
+    /// (best from step i with f free windows left and required windows r.. still to place). Null when no placement
+    /// keeps every required window in its range without overlap.
+    /// </summary>
+    /// <returns>Starts of the free windows (ascending), the start of each required window (in order) and the total
+    /// gain.</returns>
+    public static (IReadOnlyList<int> Free, IReadOnlyList<int> Required, double Total)? BestAround(
+        IReadOnlyList<double> gain,
+        int span,
+        int count,
+        IReadOnlyList<(int Lo, int Hi)> required
+    )
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(span, 1);
+        ArgumentOutOfRangeException.ThrowIfNegative(count);
+        var (g, h) = (gain.Count, required.Count);
+        var size = g + span + 1;
+        var best = new double[size * (count + 1) * (h + 1)];
+        int At(int i, int f, int r) => (((i * (count + 1)) + f) * (h + 1)) + r;
+        for (var i = size - 1; i >= 0; i--)
+        {
+            for (var f = 0; f <= count; f++)
+            {
+                for (var r = 0; r <= h; r++)
+                {
+                    best[At(i, f, r)] = i >= g ? (r == h ? 0 : double.NegativeInfinity) : Step(i, f, r).Value;
+                }
+            }
+        }
+
+        if (double.IsNegativeInfinity(best[At(0, count, 0)]))
+        {
+            return null;
+        }
+
+        var (free, fixedStarts) = (new List<int>(), new List<int>());
+        for (int i = 0, f = count, r = 0; i < g; )
+        {
+            var (value, choice) = Step(i, f, r);
+            if (double.IsNegativeInfinity(value))
+            {
+                break;
+            }
+
+            if (choice == 1)
+            {
+                free.Add(i);
+                (i, f) = (i + span, f - 1);
+            }
+            else if (choice == 2)
+            {
+                fixedStarts.Add(i);
+                (i, r) = (i + span, r + 1);
+            }
+            else
+            {
+                i++;
+            }
+        }
+
+        return (free, fixedStarts, best[At(0, count, 0)]);
+
+        // The best from step i (and which move: 0 skip, 1 a free window, 2 the next required window).
+        (double Value, int Choice) Step(int i, int f, int r)
+        {
+            if (r < h && i > required[r].Hi)
+            {
+                return (double.NegativeInfinity, 0);
+            }
+
+            (double, int) result = (best[At(i + 1, f, r)], 0);
+            if (r < h && i >= required[r].Lo)
+            {
+                var v = Math.Max(0, gain[i]) + best[At(i + span, f, r + 1)];
+                if (v > result.Item1)
+                {
+                    result = (v, 2);
+                }
+            }
+
+            if (f > 0 && gain[i] > 0)
+            {
+                var v = gain[i] + best[At(i + span, f - 1, r)];
+                if (v > result.Item1)
+                {
+                    result = (v, 1);
+                }
+            }
+
+            return result;
+        }
+    }
 }

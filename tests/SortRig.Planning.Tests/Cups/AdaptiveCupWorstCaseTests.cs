@@ -6,7 +6,10 @@ using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
 
 namespace SortRig.Planning.Tests.Cups;
 
-/// <summary>The adaptive planner's cups hold matched parts in the worst case; bands never move under parts.</summary>
+/// <summary>
+/// The adaptive planner's cups hold matched parts in the worst case; with fixed bands (FollowParts off) bands never
+/// move under parts. The default, bands that follow their parts, is checked in <see cref="AdaptiveCupFollowTests"/>.
+/// </summary>
 public sealed class AdaptiveCupWorstCaseTests
 {
     private static readonly Dictionary<double, int> s_quad = new() { [10e3] = 4 };
@@ -46,7 +49,8 @@ public sealed class AdaptiveCupWorstCaseTests
         var k = 1 + (cups % 23);
         var tolPpm = 200 + (tolerance * 8);
         var reel = Reel(seed.Get, shape % 4, 300, uMax: tolPpm / 10);
-        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(k, tolPpm, 1.0, s_quad, learnCount: 20));
+        var options = new AdaptiveCupOptions(k, tolPpm, 1.0, s_quad, learnCount: 20, followParts: false);
+        var planner = new AdaptiveCupPlanner(options);
         var byCup = new Dictionary<string, List<(double Value, double U)>>();
         var edges = new Dictionary<string, (double, double)>();
         for (var i = 0; i < reel.Count; i++)
@@ -92,7 +96,8 @@ public sealed class AdaptiveCupWorstCaseTests
     [Fact]
     public void PartAtTheEdgeOfABand_WithItsUncertaintyOutside_DoesNotGoIn()
     {
-        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(4, 1000, 1.0, s_quad, learnCount: 4));
+        var options = new AdaptiveCupOptions(4, 1000, 1.0, s_quad, learnCount: 4, followParts: false);
+        var planner = new AdaptiveCupPlanner(options);
         var first = planner.Assign(Part(1, 10e3, 300, uPpm: 10));
         var band = planner.Bands(10e3).Single(b => b.Label == first.CupLabel);
         // 5 ppm inside the upper edge with 10 ppm of uncertainty: its worst case reaches past the band.

@@ -61,4 +61,101 @@ public sealed class WindowCoverTests
         Assert.Equal(10, total, 9);
         Assert.Equal([1, 4], starts);
     }
+
+    // Referee for BestAround: every set of pairwise non-overlapping starts (bit masks over the grid), and within it
+    // every increasing choice of one start per required window inside its range; the other starts are free windows (at
+    // most `count`, each of positive gain). The largest total, or null when no choice places every required window
+    // (exhaustive enumeration of a small constrained interval packing, textbook).
+    private static double? ExhaustiveAround(double[] gain, int span, int count, (int Lo, int Hi)[] required)
+    {
+        double? best = null;
+        for (var mask = 0; mask < 1 << gain.Length; mask++)
+        {
+            var starts = Enumerable.Range(0, gain.Length).Where(i => (mask & (1 << i)) != 0).ToList();
+            if (!starts.Zip(starts.Skip(1)).All(p => p.Second - p.First >= span))
+            {
+                continue;
+            }
+
+            foreach (var pick in Picks(starts, required, 0, 0))
+            {
+                var free = starts.Where(s => !pick.Contains(s)).ToList();
+                if (free.Count <= count && free.All(s => gain[s] > 0))
+                {
+                    var total = free.Sum(s => gain[s]) + pick.Sum(s => Math.Max(0, gain[s]));
+                    best = best is null ? total : Math.Max(best.Value, total);
+                }
+            }
+        }
+
+        return best;
+
+        static IEnumerable<List<int>> Picks(List<int> starts, (int Lo, int Hi)[] required, int r, int from)
+        {
+            if (r == required.Length)
+            {
+                yield return [];
+                yield break;
+            }
+
+            for (var k = from; k < starts.Count; k++)
+            {
+                if (starts[k] >= required[r].Lo && starts[k] <= required[r].Hi)
+                {
+                    foreach (var rest in Picks(starts, required, r + 1, k + 1))
+                    {
+                        yield return [starts[k], .. rest];
+                    }
+                }
+            }
+        }
+    }
+
+    [Fact]
+    public void BestAround_MatchesExhaustiveEnumeration_OnSmallGrids()
+    {
+        var rng = new Random(2027);
+        var (placed, infeasible) = (0, 0);
+        for (var trial = 0; trial < 400; trial++)
+        {
+            var n = rng.Next(1, 12);
+            var gain = Enumerable
+                .Range(0, n)
+                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2))
+                .ToArray();
+            var span = rng.Next(1, 4);
+            var count = rng.Next(0, 4);
+            var required = Enumerable
+                .Range(0, rng.Next(0, 3))
+                .Select(_ =>
+                {
+                    var lo = rng.Next(n);
+                    return (Lo: lo, Hi: Math.Min(n - 1, lo + rng.Next(0, 4)));
+                })
+                .OrderBy(r => r)
+                .ToArray();
+
+            var plan = WindowCover.BestAround(gain, span, count, required);
+
+            var expected = ExhaustiveAround(gain, span, count, required);
+            Assert.Equal(expected is null, plan is null);
+            if (plan is not { } p)
+            {
+                infeasible++;
+                continue;
+            }
+
+            placed++;
+            Assert.Equal(expected!.Value, p.Total, 9);
+            Assert.Equal(p.Total, p.Free.Sum(i => gain[i]) + p.Required.Sum(i => Math.Max(0, gain[i])), 9);
+            Assert.True(p.Free.Count <= count);
+            Assert.Equal(required.Length, p.Required.Count);
+            Assert.All(required.Zip(p.Required), x => Assert.InRange(x.Second, x.First.Lo, x.First.Hi));
+            var all = p.Free.Concat(p.Required).Order().ToList();
+            Assert.All(all.Zip(all.Skip(1)), q => Assert.True(q.Second - q.First >= span));
+        }
+
+        // Both outcomes were exercised.
+        Assert.True(placed > 100 && infeasible > 10, $"{placed} placed, {infeasible} infeasible");
+    }
 }
