@@ -3,6 +3,7 @@ using FsCheck.Fluent;
 using FsCheck.Xunit;
 using SortRig.Planning.Cups;
 using static SortRig.Planning.Tests.Cups.CupAssignerContractTests;
+using static SortRig.Planning.Tests.Cups.CupTestReels;
 
 namespace SortRig.Planning.Tests.Cups;
 
@@ -13,30 +14,6 @@ namespace SortRig.Planning.Tests.Cups;
 public sealed class AdaptiveCupFollowTests
 {
     private static readonly Dictionary<double, int> s_quad = new() { [10e3] = 4 };
-
-    /// <summary>A reel: shape 0 normal, 1 centre binned out, 2 uniform, 3 off-centre; uncertainty up to uMax.</summary>
-    private static List<(double Ppm, double U)> Reel(int seed, int shape, int n, double uMax)
-    {
-        var rng = new Random(seed);
-        double Gauss() => Math.Sqrt(-2 * Math.Log(1 - rng.NextDouble())) * Math.Cos(2 * Math.PI * rng.NextDouble());
-        var result = new List<(double, double)>();
-        while (result.Count < n)
-        {
-            var x = shape switch
-            {
-                0 => 3333 * Gauss(),
-                1 => 5000 * Gauss(),
-                2 => 20_000 * (rng.NextDouble() - 0.5),
-                _ => -4000 + (2500 * Gauss()),
-            };
-            if (Math.Abs(x) <= 10_000 && (shape != 1 || Math.Abs(x) >= 4000))
-            {
-                result.Add((x, uMax * rng.NextDouble()));
-            }
-        }
-
-        return result;
-    }
 
     // Referee, brute force: a cup's parts are a matched set in the worst case when some window [L, L (1 + tol)] holds
     // every part's whole interval [value − U, value + U]; if any window does, the one starting at the lowest interval
