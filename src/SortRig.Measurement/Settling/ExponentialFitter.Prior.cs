@@ -65,34 +65,9 @@ internal static partial class ExponentialFitter
                 continue;
             }
 
-            // The lead path carrying nothing: one exponential at the body's time constant.
-            var b = hl / ml;
-            points.Add((syy - (b * hl), meanY - (b * gl), (1.0 / n) + (gl * gl / ml), bodies[l]));
-            for (var k = 0; k < leads.Count && leads[k] * 1.5 <= bodies[l] * (1 + 1e-9); k++)
+            foreach (var (rss, a, c) in BodyProfile(n, meanY, syy, body[l], lead, leads, bodies[l]))
             {
-                var (ck, gk, hk, mk) = lead[k];
-                double m12 = 0;
-                for (var i = 0; i < n; i++)
-                {
-                    m12 += ck[i] * cl[i];
-                }
-
-                var det = (mk * ml) - (m12 * m12);
-                if (!(det > 1e-13 * mk * ml))
-                {
-                    continue;
-                }
-
-                var b1 = ((ml * hk) - (m12 * hl)) / det;
-                var b2 = ((mk * hl) - (m12 * hk)) / det;
-                if (b1 * b2 < 0)
-                {
-                    // Opposite signs are not a cooling part; the constrained optimum is the boundary B_lead = 0 above.
-                    continue;
-                }
-
-                var c = (1.0 / n) + (((ml * gk * gk) - (2 * m12 * gk * gl) + (mk * gl * gl)) / det);
-                points.Add((syy - (b1 * hk) - (b2 * hl), meanY - (b1 * gk) - (b2 * gl), c, bodies[l]));
+                points.Add((rss, a, c, bodies[l]));
             }
 
             if (bodies[l] <= heldHigh * (1 + 1e-9) && points.Count > first)
