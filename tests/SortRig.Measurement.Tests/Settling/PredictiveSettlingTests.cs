@@ -122,13 +122,29 @@ public sealed class PredictiveSettlingTests
     {
         var readings = Recovery(4).Take(40).ToList();
         readings.Add(OverloadAt(40 * 0.041));
-        readings.AddRange(Sampled(41 * 0.041, 0.041, 10, _ => R));
+        readings.AddRange(Sampled(41 * 0.041, 0.041, 9, _ => R));
         var tracker = Tracker(Predictive);
 
         var verdicts = tracker.Feed(readings);
 
-        // Ten readings after the flicker are fewer than the predictive rule's 12: nothing can be accepted yet.
+        // Nine readings after the flicker are fewer than the predictive rule's 10: nothing can be accepted yet.
         Assert.DoesNotContain(verdicts, v => v.State == SettleState.Accepted);
+    }
+
+    [Fact]
+    public void PredictiveOptions_DefaultMinReadings_IsTheLeastRecordWhoseRunsTestCanReject()
+    {
+        // Referee: the exact null distribution of the number of runs R (Wald and Wolfowitz 1940, from memory): with n₁
+        // and n₂ signs, P(R = 2) = 2 / C(n₁ + n₂, n₁), the least possible; a balanced record of 10 gives 2 / 252 =
+        // 0.79 % (hand-derived), at or below the 1 % of the whiteness check, one of 9 gives 2 / 126 = 1.6 %, above it.
+        var alpha = PredictiveOptions.Default.WhitenessAlpha;
+        static double LeastRunsProbability(int n) => 2 / MathNet.Numerics.SpecialFunctions.Binomial(n, n / 2);
+        Assert.Equal(2.0 / 252, LeastRunsProbability(10), 1e-15);
+        Assert.True(LeastRunsProbability(PredictiveOptions.Default.MinReadings) <= alpha);
+        Assert.True(LeastRunsProbability(PredictiveOptions.Default.MinReadings - 1) > alpha);
+        // The rule's runs test (normal approximation) rejects two runs of five at that level.
+        double[] twoRuns = [1, 1, 1, 1, 1, -1, -1, -1, -1, -1];
+        Assert.False(RunsTest.LooksWhite(twoRuns, alpha));
     }
 
     [Fact]
