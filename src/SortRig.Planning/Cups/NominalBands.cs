@@ -4,7 +4,8 @@ namespace SortRig.Planning.Cups;
 
 /// <summary>
 /// The bands of one nominal in the adaptive planner and the parts seen so far. Bands sit on a lattice of the log
-/// scale (<see cref="LogPpm"/>) with a step of 1/<see cref="StepsPerBand"/> band; each is exactly as wide as the
+/// scale (<see cref="LogPpm"/>) with a step of 1/<see cref="StepsPerBand"/> band (1/<see cref="TilingStepsPerBand"/>
+/// when the K bands tile the stock tolerance, <see cref="Tiles"/>); each is exactly as wide as the
 /// match tolerance allows (ratio of its edges 1 + tolerance, less a hair for rounding). A band that holds parts never
 /// moves (with <see cref="AdaptiveCupOptions.FollowParts"/> it may, but always holding every part of its cup); the
 /// bands of empty cups are placed again (<see cref="Replan"/>) from the grown sample.
@@ -12,6 +13,12 @@ namespace SortRig.Planning.Cups;
 internal sealed class NominalBands
 {
     private const int StepsPerBand = 20;
+
+    // When the bands tile the tolerance, neighbours overlap by a lattice step so that no part straddles the seam
+    // between them; a step of 1/50 band (20 ppm at 0.1 %) spends no more of the tolerance on each overlap than the 2U a
+    // part straddles (at 1/20, 50 ppm, a uniform reel lost 3.5 sets at K = 20; docs/planning.md).
+    private const int TilingStepsPerBand = 50;
+    private readonly int _steps;
     private readonly AdaptiveCupOptions _options;
     private readonly double _width;
     private readonly double _step;
@@ -27,8 +34,11 @@ internal sealed class NominalBands
         PartsPerSet = options.PartsPerSet[nominal];
         // A thousandth of a ppm below the limit, so that rounding in the edges never lets a cup exceed it.
         _width = LogPpm.From(options.MatchTolerancePpm) - 1e-3;
-        _step = _width / StepsPerBand;
         var range = _range = options.StockTolerancePercent * 1e4;
+        // Within a (coarse) lattice step of tiling the whole tolerance.
+        Tiles = (options.CupCount * _width) + (_width / StepsPerBand) >= LogPpm.From(range) - LogPpm.From(-range);
+        _steps = Tiles ? TilingStepsPerBand : StepsPerBand;
+        _step = _width / _steps;
         _firstIndex = (int)Math.Floor((LogPpm.From(-range) - _width) / _step);
         _points = (int)Math.Ceiling(LogPpm.From(range) / _step) - _firstIndex + 1;
     }
@@ -48,8 +58,15 @@ internal sealed class NominalBands
     /// tile the whole stock tolerance (to within a lattice step, the plan's resolution): then there is no choice of
     /// where to cover, only the risk of leaving gaps between bands that moved, so the planner keeps today's rule.
     /// </summary>
-    public bool Follows =>
-        _options.FollowParts && (_options.CupCount * _width) + _step < LogPpm.From(_range) - LogPpm.From(-_range);
+    public bool Follows => _options.FollowParts && !Tiles;
+
+    /// <summary>
+    /// True when the K bands can tile the whole stock tolerance (to within a twentieth of a band). Then the empty cups'
+    /// bands are planned on the finer lattice and neighbouring planned bands may overlap by one step
+    /// (<see cref="WindowCover.BestOverlapping"/>), where the parts the overlap saves from the seam are worth the
+    /// tolerance it spends (the estimate decides, e.g. yes at a normal reel's centre, no on a flat reel).
+    /// </summary>
+    public bool Tiles { get; }
 
     /// <summary>
     /// True when the sample has grown enough since the last plan to place the empty cups' bands again: at every
@@ -87,9 +104,13 @@ internal sealed class NominalBands
         // A planned band may overlap bands that hold parts: it is worth only the parts they would not take (the
         // estimate leaves those out), so the DP moves it off them unless the ground it adds is worth more, e.g. a band
         // opened from the first parts whose lattice left the dense edge of a hump half covered.
-        var gains = Estimate(centres, first, held);
+        var gains = Estimate(centres, first, held, _width);
         var allowed = Enumerable.Repeat(true, _points).ToList();
-        foreach (var j in WindowCover.Best(gains, StepsPerBand, allowed, free).Starts)
+        // Tiling: a band may overlap the previous one by a step; what fits that step would be counted twice.
+        var plan = Tiles
+            ? WindowCover.BestOverlapping(gains, Estimate(centres, first, held, _step), _steps, allowed, free)
+            : WindowCover.Best(gains, _steps, allowed, free);
+        foreach (var j in plan.Starts)
         {
             var s = first + (j * _step);
             Open(LogPpm.ToPpm(s), LogPpm.ToPpm(s + _width));
@@ -143,15 +164,15 @@ internal sealed class NominalBands
             .OrderBy(b => b.Item1)
             .ToList();
         var centres = Centres();
-        var gains = Estimate(centres, first, pinned);
-        var plan = WindowCover.BestAround(gains, StepsPerBand, free, [.. movable.Select(m => (m.Lo, m.Hi))]);
+        var gains = Estimate(centres, first, pinned, _width);
+        var plan = WindowCover.BestAround(gains, _steps, free, [.. movable.Select(m => (m.Lo, m.Hi))]);
         // The plan of today's rule for comparison: the movable bands where they are (overlaps counted twice, which
         // only favours staying) and the free bands clear of them.
         var allowed = Enumerable
             .Range(0, _points)
-            .Select(j => movable.All(m => j + StepsPerBand <= m.Here || j >= m.Here + StepsPerBand))
+            .Select(j => movable.All(m => j + _steps <= m.Here || j >= m.Here + _steps))
             .ToList();
-        var stay = movable.Sum(m => gains[m.Here]) + WindowCover.Best(gains, StepsPerBand, allowed, free).Total;
+        var stay = movable.Sum(m => gains[m.Here]) + WindowCover.Best(gains, _steps, allowed, free).Total;
         // Moving is worth it only when the moved plan covers more of the coming parts than the bands where they are.
         if (plan is null || plan.Value.Total <= stay)
         {
@@ -242,26 +263,31 @@ internal sealed class NominalBands
     // about the nominal with σ = a third of the tolerance (no source). Once a hole around the nominal is found
     // (<see cref="ReelModel"/>) the prior is the fitted model instead, with the mirror's weight added, and each part's
     // kernel is reflected at the hole's edge.
-    private double[] Estimate(List<(double Centre, double Half)> centres, double first, List<(double, double)> held)
+    private double[] Estimate(
+        List<(double Centre, double Half)> centres,
+        double first,
+        List<(double, double)> held,
+        double width
+    )
     {
         var n = centres.Count;
         const double Prior = 5;
         var (lo, hi) = (LogPpm.From(-_range), LogPpm.From(_range));
         var model = n >= 1 ? ReelModel.Fit([.. centres.Select(c => c.Centre)], lo, hi, (_range / 3, Prior)) : null;
         var hole = model?.Hole ?? 0;
-        var gains = CoverageEstimate.Gains(centres, first, _step, _points, _width, _range / 3, held, hole);
+        var gains = CoverageEstimate.Gains(centres, first, _step, _points, width, _range / 3, held, hole);
         List<(double, double)> mirrored = [.. centres.Select(c => (LogPpm.From(-LogPpm.ToPpm(c.Centre)), c.Half))];
-        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, _width, _range / 3, held, hole);
+        var mirror = CoverageEstimate.Gains(mirrored, first, _step, _points, width, _range / 3, held, hole);
         var half = n > 0 ? centres.Min(c => c.Half) : 0;
         var m = n * (double)_options.LearnCount / (_options.LearnCount + n);
         Func<double, double> cdf = model is { Hole: > 0 } ? model.Cdf : x => Normal.CDF(0, _range / 3, x);
         for (var j = 0; j < _points; j++)
         {
             var s = first + (j * _step);
-            var prior = _width > 2 * half ? cdf(s + _width - half) - cdf(s + half) : 0;
+            var prior = width > 2 * half ? cdf(s + width - half) - cdf(s + half) : 0;
             if (prior > 0)
             {
-                var (a, b) = (s + half, s + _width - half);
+                var (a, b) = (s + half, s + width - half);
                 prior -= CoverageEstimate.Covered(cdf, a, b, half, held);
             }
 

@@ -50,6 +50,75 @@ internal static class WindowCover
     }
 
     /// <summary>
+    /// As <see cref="Best"/>, but a window may also start one grid step before the previous window ends (the two
+    /// overlap by exactly one step); it is then worth <c>gain[j] − shared[j]</c>, <c>shared[j]</c> being what both
+    /// windows would count (what fits the one step at j). Best from step i with f windows left, and the value of a
+    /// window forced at j overlapping the previous one (chain): best[i, f] = max(best[i + 1, f], gain[i] +
+    /// max(best[i + span, f − 1], chain[i + span − 1, f − 1])).
+    /// </summary>
+    /// <returns>Start indices (ascending) and the total gain (shared parts counted once).</returns>
+    public static (IReadOnlyList<int> Starts, double Total) BestOverlapping(
+        IReadOnlyList<double> gain,
+        IReadOnlyList<double> shared,
+        int span,
+        IReadOnlyList<bool> allowed,
+        int count
+    )
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(span, 2);
+        ArgumentOutOfRangeException.ThrowIfNegative(count);
+        var g = gain.Count;
+        var best = new double[g + span + 1, count + 1];
+        var chain = new double[g + span + 1, count + 1];
+        for (var i = g + span; i >= 0; i--)
+        {
+            for (var f = 0; f <= count; f++)
+            {
+                chain[i, f] = double.NegativeInfinity;
+                if (i >= g || f == 0)
+                {
+                    continue;
+                }
+
+                best[i, f] = best[i + 1, f];
+                if (allowed[i] && gain[i] > 0)
+                {
+                    best[i, f] = Math.Max(best[i, f], gain[i] + Next(i, f - 1));
+                }
+
+                var own = gain[i] - shared[i];
+                if (allowed[i] && own > 0)
+                {
+                    chain[i, f] = own + Next(i, f - 1);
+                }
+            }
+        }
+
+        var starts = new List<int>();
+        var overlap = false;
+        for (int i = 0, f = count; i < g && f > 0; )
+        {
+            if (overlap || (allowed[i] && gain[i] > 0 && gain[i] + Next(i, f - 1) >= best[i + 1, f]))
+            {
+                starts.Add(i);
+                f--;
+                // Continue overlapping when that is the better of the two ways on (ties: no overlap).
+                overlap = f > 0 && chain[i + span - 1, f] > best[i + span, f];
+                i += overlap ? span - 1 : span;
+            }
+            else
+            {
+                i++;
+            }
+        }
+
+        return (starts, best[0, count]);
+
+        // The best after a window at i with f windows left: the next one clear of it, or overlapping it by a step.
+        double Next(int i, int f) => Math.Max(best[i + span, f], chain[i + span - 1, f]);
+    }
+
+    /// <summary>
     /// The best windows when some must be placed: every required window r gets one start in its range
     /// [<c>Lo</c>, <c>Hi</c>] (ranges ascending; the windows keep that order), and at most <paramref name="count"/>
     /// free windows of positive gain go where they add most; no two windows overlap. A dynamic programme over the grid

@@ -86,6 +86,36 @@ public sealed class AdaptiveCupPlannerTests
     }
 
     [Fact]
+    public void TilingBands_OnANormalReel_OverlapTheirNeighboursAtTheDenseCentre_AndHoldMatchedParts()
+    {
+        // K = 20 bands of 1000 ppm tile ±1 %: abutting bands would reject every part whose ±U interval straddles a
+        // seam, so at a normal reel's dense centre neighbours overlap by a lattice step (20 ppm), the tolerance that
+        // costs being taken from the sparse tails.
+        var reel = Reel(3, 1000, 10_000 / 3.0, gap: 0);
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(20, 1000, 1.0, s_quad));
+        var byCup = new Dictionary<string, List<double>>();
+        for (var i = 0; i < reel.Count; i++)
+        {
+            var d = planner.Assign(Part(i + 1, 10e3, reel[i]));
+            if (!d.IsReject)
+            {
+                (byCup.TryGetValue(d.CupLabel, out var l) ? l : byCup[d.CupLabel] = []).Add(reel[i]);
+            }
+        }
+
+        var bands = planner.Bands(10e3);
+        var shown = string.Join(" ", bands.Select(b => $"[{b.LowPpm:0},{b.HighPpm:0}]"));
+        // No seam within ±4000 ppm: each band there reaches at least 2U = 20 ppm (less rounding) into the next.
+        var seams = bands
+            .Zip(bands.Skip(1))
+            .Count(p => Math.Abs(p.First.HighPpm) < 4000 && p.Second.LowPpm > p.First.HighPpm - 19);
+        Assert.True(seams == 0, shown);
+        Assert.All(bands, b => Assert.True((((1 + (b.HighPpm * 1e-6)) / (1 + (b.LowPpm * 1e-6))) - 1) * 1e6 <= 1000));
+        // Worst case of the matched rule with U = 10 ppm (common practice for matched sets, no source).
+        Assert.All(byCup.Values, l => Assert.True(l.Max() - l.Min() + 20 < 1000));
+    }
+
+    [Fact]
     public void GapNarrowerThanABand_BetweenBandsWithParts_GetsABandOverlappingThem()
     {
         // Cups A [3000, 4000] and C [4500, 5500] ppm hold parts; 60 of 100 parts came between them. No 1000 ppm band

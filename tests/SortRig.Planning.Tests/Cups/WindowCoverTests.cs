@@ -52,6 +52,58 @@ public sealed class WindowCoverTests
         }
     }
 
+    // Referee for BestOverlapping: every set of allowed starts with consecutive starts at least `span` apart or exactly
+    // `span` − 1 apart (one step of overlap), at most `count` of them; a window overlapping the previous one is worth
+    // its gain less its shared part (exhaustive enumeration, textbook).
+    private static double ExhaustiveOverlapping(double[] gain, double[] shared, int span, bool[] allowed, int count)
+    {
+        var best = 0.0;
+        for (var mask = 0; mask < 1 << gain.Length; mask++)
+        {
+            var starts = Enumerable.Range(0, gain.Length).Where(i => (mask & (1 << i)) != 0).ToList();
+            var pairs = starts.Zip(starts.Skip(1)).ToList();
+            if (starts.Count <= count && starts.All(i => allowed[i]) && pairs.All(p => p.Second - p.First >= span - 1))
+            {
+                var total =
+                    starts.Sum(i => gain[i])
+                    - pairs.Where(p => p.Second - p.First == span - 1).Sum(p => shared[p.Second]);
+                best = Math.Max(best, total);
+            }
+        }
+
+        return best;
+    }
+
+    [Fact]
+    public void BestOverlapping_MatchesExhaustiveEnumeration_OnSmallGrids()
+    {
+        var rng = new Random(2027);
+        for (var trial = 0; trial < 400; trial++)
+        {
+            var n = rng.Next(1, 13);
+            var gain = Enumerable
+                .Range(0, n)
+                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2))
+                .ToArray();
+            var shared = gain.Select(g => Math.Round(g * rng.NextDouble(), 2)).ToArray();
+            var allowed = Enumerable.Range(0, n).Select(_ => rng.Next(5) != 0).ToArray();
+            var span = rng.Next(2, 5);
+            var count = rng.Next(0, 5);
+
+            var (starts, total) = WindowCover.BestOverlapping(gain, shared, span, allowed, count);
+
+            var expected = ExhaustiveOverlapping(gain, shared, span, allowed, count);
+            Assert.Equal(expected, total, 9);
+            var pairs = starts.Zip(starts.Skip(1)).ToList();
+            var found =
+                starts.Sum(i => gain[i]) - pairs.Where(p => p.Second - p.First == span - 1).Sum(p => shared[p.Second]);
+            Assert.Equal(expected, found, 9);
+            Assert.True(starts.Count <= count);
+            Assert.All(starts, i => Assert.True(allowed[i]));
+            Assert.All(pairs, p => Assert.True(p.Second - p.First >= span - 1));
+        }
+    }
+
     [Fact]
     public void Best_PrefersTwoGoodWindows_ToTheLargestSingleStart()
     {
