@@ -26,14 +26,14 @@ internal static class YieldBench
         "over the windows (a DP that may also leave parts of a crowded window to its neighbour): what a plan that",
         "knew the reel in advance would get, counted the way cups are counted; the unfloored bounds also credit",
         "the fractions of sets in each cup that no plan can use (about 1.5 parts a cup). A check on other reels:",
-        "`planning cups-seeds` (seeds 101–120, or `cups-seeds:FIRST:COUNT`; normal, bimodal, uniform and off-centre "
-            + "reels; not written). 'ceiling' = best worst-case K-cup plan / K-cup bound: the largest share of the",
-        "K-cup bound that ANY K-cup plan whose cups meet the recipe in the worst case can reach, online or with",
-        "hindsight. Why it bounds every such plan: a cup's parts have centres within the window's width less two of",
-        "the reel's smallest half-widths; two cups whose centre ranges interleave can swap parts so that the lower",
-        "cup keeps its count of the lowest parts and each new range lies inside an old one, so some plan of disjoint",
-        "windows holds the same counts, and the DP is exact over those. Where the ceiling is below 98 % no planner "
-            + "can meet the target.",
+        "`planning cups-seeds` (seeds 101–120, or `cups-seeds:FIRST:COUNT`; normal, bimodal, uniform and off-centre",
+        "reels; not written). 'ceiling' = best worst-case K-cup plan / K-cup bound: the largest share of the K-cup",
+        "bound that ANY K-cup plan whose cups meet the recipe in the worst case can reach, online or with hindsight.",
+        "Why it bounds every such plan: a cup's parts have centres within the window's width less two of the reel's",
+        "smallest half-widths; two cups whose centre ranges interleave can swap parts so that the lower cup keeps its",
+        "count of the lowest parts and each new range lies inside an old one, so some plan of disjoint windows holds",
+        "the same counts, and the DP is exact over those. Where the ceiling is below 98 % no planner can meet the",
+        "target.",
         "",
     ];
 
