@@ -61,11 +61,9 @@ public sealed class AdaptiveCupPlannerTests
         );
     }
 
-    [Fact]
-    public void Bands_NoWiderThanTheTolerance_AndCupsHoldMatchedParts()
+    // Every part of the reel through the planner; the deviations (ppm) each cup received, by label.
+    private static Dictionary<string, List<double>> SortInto(AdaptiveCupPlanner planner, List<double> reel)
     {
-        var reel = Reel(2, 800, 1500, gap: 0, offset: -6000);
-        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad));
         var byCup = new Dictionary<string, List<double>>();
         for (var i = 0; i < reel.Count; i++)
         {
@@ -75,6 +73,16 @@ public sealed class AdaptiveCupPlannerTests
                 (byCup.TryGetValue(d.CupLabel, out var l) ? l : byCup[d.CupLabel] = []).Add(reel[i]);
             }
         }
+
+        return byCup;
+    }
+
+    [Fact]
+    public void Bands_NoWiderThanTheTolerance_AndCupsHoldMatchedParts()
+    {
+        var reel = Reel(2, 800, 1500, gap: 0, offset: -6000);
+        var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(8, 1000, 1.0, s_quad));
+        var byCup = SortInto(planner, reel);
 
         var bands = planner.Bands(10e3);
         Assert.All(bands, b => Assert.True(b.HighPpm - b.LowPpm <= 1000 + 1e-9));
@@ -93,15 +101,7 @@ public sealed class AdaptiveCupPlannerTests
         // costs being taken from the sparse tails.
         var reel = Reel(3, 1000, 10_000 / 3.0, gap: 0);
         var planner = new AdaptiveCupPlanner(new AdaptiveCupOptions(20, 1000, 1.0, s_quad));
-        var byCup = new Dictionary<string, List<double>>();
-        for (var i = 0; i < reel.Count; i++)
-        {
-            var d = planner.Assign(Part(i + 1, 10e3, reel[i]));
-            if (!d.IsReject)
-            {
-                (byCup.TryGetValue(d.CupLabel, out var l) ? l : byCup[d.CupLabel] = []).Add(reel[i]);
-            }
-        }
+        var byCup = SortInto(planner, reel);
 
         var bands = planner.Bands(10e3);
         var shown = string.Join(" ", bands.Select(b => $"[{b.LowPpm:0},{b.HighPpm:0}]"));

@@ -4,15 +4,31 @@ namespace SortRig.Planning.Tests.Cups;
 
 public sealed class WindowCoverTests
 {
+    // A small random grid of window gains: 1 to 12 points, a quarter of them worthless.
+    private static double[] RandomGains(Random rng) =>
+        [
+            .. Enumerable
+                .Range(0, rng.Next(1, 13))
+                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2)),
+        ];
+
+    // Every subset of the grid's starts, ascending (bit masks).
+    private static IEnumerable<List<int>> AllStarts(int n)
+    {
+        for (var mask = 0; mask < 1 << n; mask++)
+        {
+            yield return [.. Enumerable.Range(0, n).Where(i => (mask & (1 << i)) != 0)];
+        }
+    }
+
     // Referee: exhaustive enumeration of every set of window starts (bit masks over the grid), keeping the sets with
     // at most `count` windows, all allowed and pairwise at least `span` apart (textbook: the exact optimum of a small
     // weighted interval packing by enumeration).
     private static double Exhaustive(double[] gain, int span, bool[] allowed, int count)
     {
         var best = 0.0;
-        for (var mask = 0; mask < 1 << gain.Length; mask++)
+        foreach (var starts in AllStarts(gain.Length))
         {
-            var starts = Enumerable.Range(0, gain.Length).Where(i => (mask & (1 << i)) != 0).ToList();
             if (
                 starts.Count <= count
                 && starts.All(i => allowed[i])
@@ -32,11 +48,8 @@ public sealed class WindowCoverTests
         var rng = new Random(2026);
         for (var trial = 0; trial < 400; trial++)
         {
-            var n = rng.Next(1, 13);
-            var gain = Enumerable
-                .Range(0, n)
-                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2))
-                .ToArray();
+            var gain = RandomGains(rng);
+            var n = gain.Length;
             var allowed = Enumerable.Range(0, n).Select(_ => rng.Next(5) != 0).ToArray();
             var span = rng.Next(1, 5);
             var count = rng.Next(0, 5);
@@ -58,9 +71,8 @@ public sealed class WindowCoverTests
     private static double ExhaustiveOverlapping(double[] gain, double[] shared, int span, bool[] allowed, int count)
     {
         var best = 0.0;
-        for (var mask = 0; mask < 1 << gain.Length; mask++)
+        foreach (var starts in AllStarts(gain.Length))
         {
-            var starts = Enumerable.Range(0, gain.Length).Where(i => (mask & (1 << i)) != 0).ToList();
             var pairs = starts.Zip(starts.Skip(1)).ToList();
             if (starts.Count <= count && starts.All(i => allowed[i]) && pairs.All(p => p.Second - p.First >= span - 1))
             {
@@ -80,11 +92,8 @@ public sealed class WindowCoverTests
         var rng = new Random(2027);
         for (var trial = 0; trial < 400; trial++)
         {
-            var n = rng.Next(1, 13);
-            var gain = Enumerable
-                .Range(0, n)
-                .Select(_ => rng.Next(4) == 0 ? 0 : Math.Round(rng.NextDouble() * 10, 2))
-                .ToArray();
+            var gain = RandomGains(rng);
+            var n = gain.Length;
             var shared = gain.Select(g => Math.Round(g * rng.NextDouble(), 2)).ToArray();
             var allowed = Enumerable.Range(0, n).Select(_ => rng.Next(5) != 0).ToArray();
             var span = rng.Next(2, 5);
@@ -121,9 +130,8 @@ public sealed class WindowCoverTests
     private static double? ExhaustiveAround(double[] gain, int span, int count, (int Lo, int Hi)[] required)
     {
         double? best = null;
-        for (var mask = 0; mask < 1 << gain.Length; mask++)
+        foreach (var starts in AllStarts(gain.Length))
         {
-            var starts = Enumerable.Range(0, gain.Length).Where(i => (mask & (1 << i)) != 0).ToList();
             if (!starts.Zip(starts.Skip(1)).All(p => p.Second - p.First >= span))
             {
                 continue;
