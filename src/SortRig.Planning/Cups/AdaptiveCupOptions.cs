@@ -30,27 +30,9 @@ public sealed record AdaptiveCupOptions
     )
     {
         FollowParts = followParts;
-        CupCount = cupCount is >= 1 and <= CupLabels.MaxCups
-            ? cupCount
-            : throw new ArgumentOutOfRangeException(
-                nameof(cupCount),
-                cupCount,
-                $"CupCount must be 1 to {CupLabels.MaxCups}"
-            );
-        MatchTolerancePpm = matchTolerancePpm is >= 1 and <= 100_000
-            ? matchTolerancePpm
-            : throw new ArgumentOutOfRangeException(
-                nameof(matchTolerancePpm),
-                matchTolerancePpm,
-                "MatchTolerancePpm must be 1 to 100 000"
-            );
-        StockTolerancePercent = stockTolerancePercent is >= 0.001 and <= 50
-            ? stockTolerancePercent
-            : throw new ArgumentOutOfRangeException(
-                nameof(stockTolerancePercent),
-                stockTolerancePercent,
-                "StockTolerancePercent must be 0.001 to 50"
-            );
+        CupCount = CupOptionRules.CupCount(cupCount);
+        MatchTolerancePpm = CupOptionRules.MatchTolerancePpm(matchTolerancePpm);
+        StockTolerancePercent = CupOptionRules.StockTolerancePercent(stockTolerancePercent);
         PartsPerSet =
             partsPerSet.Count > 0 && partsPerSet.All(kv => kv.Key > 0 && kv.Value is >= 1 and <= 100)
                 ? new Dictionary<double, int>(partsPerSet)
@@ -61,15 +43,7 @@ public sealed record AdaptiveCupOptions
         LearnCount = learnCount is >= 4 and <= 10_000
             ? learnCount
             : throw new ArgumentOutOfRangeException(nameof(learnCount), learnCount, "LearnCount must be 4 to 10 000");
-        UncertaintyLimitPpm = uncertaintyLimitPpm ?? (matchTolerancePpm / 2);
-        if (UncertaintyLimitPpm is < 0 or > 100_000)
-        {
-            throw new ArgumentOutOfRangeException(
-                nameof(uncertaintyLimitPpm),
-                uncertaintyLimitPpm,
-                "UncertaintyLimitPpm must be 0 to 100 000"
-            );
-        }
+        UncertaintyLimitPpm = CupOptionRules.UncertaintyLimitPpm(uncertaintyLimitPpm, matchTolerancePpm);
     }
 
     /// <summary>Regular cups per nominal (1–23).</summary>

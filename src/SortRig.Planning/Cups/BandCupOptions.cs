@@ -22,20 +22,8 @@ public sealed record BandCupOptions
         double? uncertaintyLimitPpm = null
     )
     {
-        CupCount = cupCount is >= 1 and <= CupLabels.MaxCups
-            ? cupCount
-            : throw new ArgumentOutOfRangeException(
-                nameof(cupCount),
-                cupCount,
-                $"CupCount must be 1 to {CupLabels.MaxCups}"
-            );
-        MatchTolerancePpm = matchTolerancePpm is >= 1 and <= 100_000
-            ? matchTolerancePpm
-            : throw new ArgumentOutOfRangeException(
-                nameof(matchTolerancePpm),
-                matchTolerancePpm,
-                "MatchTolerancePpm must be 1 to 100 000"
-            );
+        CupCount = CupOptionRules.CupCount(cupCount);
+        MatchTolerancePpm = CupOptionRules.MatchTolerancePpm(matchTolerancePpm);
         Nominal =
             nominal > 0 && double.IsFinite(nominal)
                 ? nominal
@@ -44,25 +32,11 @@ public sealed record BandCupOptions
                     nominal,
                     "Nominal must be a finite resistance > 0 ohms"
                 );
-        StockTolerancePercent = stockTolerancePercent is >= 0.001 and <= 50
-            ? stockTolerancePercent
-            : throw new ArgumentOutOfRangeException(
-                nameof(stockTolerancePercent),
-                stockTolerancePercent,
-                "StockTolerancePercent must be 0.001 to 50"
-            );
+        StockTolerancePercent = CupOptionRules.StockTolerancePercent(stockTolerancePercent);
         PartsPerSet = partsPerSet is >= 1 and <= 100
             ? partsPerSet
             : throw new ArgumentOutOfRangeException(nameof(partsPerSet), partsPerSet, "PartsPerSet must be 1 to 100");
-        UncertaintyLimitPpm = uncertaintyLimitPpm ?? (matchTolerancePpm / 2);
-        if (UncertaintyLimitPpm is < 0 or > 100_000)
-        {
-            throw new ArgumentOutOfRangeException(
-                nameof(uncertaintyLimitPpm),
-                uncertaintyLimitPpm,
-                "UncertaintyLimitPpm must be 0 to 100 000"
-            );
-        }
+        UncertaintyLimitPpm = CupOptionRules.UncertaintyLimitPpm(uncertaintyLimitPpm, matchTolerancePpm);
     }
 
     /// <summary>Regular cups K (1–23).</summary>

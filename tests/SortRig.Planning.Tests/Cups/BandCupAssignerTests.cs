@@ -66,4 +66,35 @@ public sealed class BandCupAssignerTests
             Assert.Throws<ArgumentOutOfRangeException>(() => new BandCupOptions(8, 1000, -1, 1)).ParamName
         );
     }
+
+    [Theory]
+    [InlineData(double.NaN)]
+    [InlineData(-1.0)]
+    [InlineData(100_001.0)]
+    public void Options_UncertaintyLimitOutsideItsRange_IsRefusedByBothPlanners(double limit)
+    {
+        // Both planners check the shared ranges in one place (CupOptionRules): a NaN limit is refused too.
+        Assert.Equal(
+            "uncertaintyLimitPpm",
+            Assert
+                .Throws<ArgumentOutOfRangeException>(() =>
+                    new BandCupOptions(8, 1000, 10e3, 1, uncertaintyLimitPpm: limit)
+                )
+                .ParamName
+        );
+        Assert.Equal(
+            "uncertaintyLimitPpm",
+            Assert
+                .Throws<ArgumentOutOfRangeException>(() =>
+                    new AdaptiveCupOptions(
+                        8,
+                        1000,
+                        1,
+                        new Dictionary<double, int> { [10e3] = 4 },
+                        uncertaintyLimitPpm: limit
+                    )
+                )
+                .ParamName
+        );
+    }
 }
