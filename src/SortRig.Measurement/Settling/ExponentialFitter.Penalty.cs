@@ -32,11 +32,12 @@ internal static partial class ExponentialFitter
         double conflictChiSquare,
         out double bestDeviance,
         out double bestFinal,
-        out double bestBody
+        out double bestBody,
+        double looks = DefaultLooks
     )
     {
         var n = t.Length;
-        var threshold = Threshold(n - 5);
+        var threshold = Threshold(n - 5, looks);
         var reach = prior.Reach(threshold + conflictChiSquare) * prior.LogScale;
         var (lowBody, highBody) = (
             Math.Max(prior.LogMean - reach, Math.Log(tauMin * 1.5)),

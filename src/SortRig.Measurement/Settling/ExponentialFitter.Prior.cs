@@ -33,7 +33,8 @@ internal static partial class ExponentialFitter
         double heldHigh,
         out double bestRss,
         out double bestFinal,
-        out double bestBody
+        out double bestBody,
+        double looks = DefaultLooks
     )
     {
         var n = t.Length;
@@ -93,7 +94,7 @@ internal static partial class ExponentialFitter
             return (double.NegativeInfinity, double.PositiveInfinity);
         }
 
-        var threshold = bestRss + (Threshold(n - 5) * s2);
+        var threshold = bestRss + (Threshold(n - 5, looks) * s2);
         var (low, high) = (bestFinal, bestFinal);
         foreach (var a in held)
         {

@@ -15,8 +15,8 @@ namespace SortRig.Measurement.Settling;
 internal static partial class ExponentialFitter
 {
     /// <summary>
-    /// χ²₁ at 1 − 0.05/20: the rule looks at a recovery about 20 times before it accepts, so each look's interval is
-    /// widened by Bonferroni's correction to keep 95 % coverage over the looks (z = 3.02).
+    /// χ²₁ at 1 − 0.05/20 (<see cref="DefaultLooks"/> looks): each look's interval is widened by Bonferroni's
+    /// correction to keep 95 % coverage over the looks (z = 3.02).
     /// </summary>
     public const double ChiSquareThreshold = 9.141;
 
@@ -29,10 +29,16 @@ internal static partial class ExponentialFitter
     /// degrees of freedom (s² is itself estimated; Bates and Watts 1988 sec. 6.1, from memory). Tends to 9.14 for
     /// large ν; 16.0 for ν = 7 (twelve readings, two exponentials).
     /// </summary>
-    public static double Threshold(int degreesOfFreedom) =>
+    public static double Threshold(int degreesOfFreedom, double looks = DefaultLooks) =>
         degreesOfFreedom <= 0
             ? double.PositiveInfinity
-            : Math.Pow(StudentT.InvCDF(0, 1, degreesOfFreedom, 1 - (0.05 / 40)), 2);
+            : Math.Pow(StudentT.InvCDF(0, 1, degreesOfFreedom, 1 - (0.05 / (2 * Math.Max(1, looks)))), 2);
+
+    /// <summary>
+    /// Looks over which the Bonferroni correction spreads the 5 %: 20, the looks the predictive rule takes in one
+    /// assumed longest time constant (5 s) at its fit interval (0.25 s), when readings come faster than that.
+    /// </summary>
+    public const double DefaultLooks = 20;
 
     /// <summary>Grid step of the time constants in ln τ.</summary>
     private const double GridStep = 0.1;
@@ -50,7 +56,8 @@ internal static partial class ExponentialFitter
         double s2,
         double tauMin,
         double tauMax,
-        bool sameSign = true
+        bool sameSign = true,
+        double looks = DefaultLooks
     )
     {
         var n = t.Length;
@@ -133,7 +140,7 @@ internal static partial class ExponentialFitter
         }
 
         var parameters = best.Model == RecoveryModel.TwoExponentials ? 5 : 3;
-        var threshold = Math.Min(best.Rss, points.Min(q => q.Rss)) + (Threshold(n - parameters) * s2);
+        var threshold = Math.Min(best.Rss, points.Min(q => q.Rss)) + (Threshold(n - parameters, looks) * s2);
         var (low, high) = (best.Final, best.Final);
         foreach (var (rss, a, c) in points)
         {

@@ -77,6 +77,18 @@ public sealed class ExponentialFitterTests
         Assert.InRange(spread, 0.7, 1.4);
     }
 
+    [Theory]
+    // Two-sided normal quantiles z at 1 − 0.05 / (2 × looks), squared (standard normal table, e.g. Abramowitz and
+    // Stegun table 26.1, from memory): one look, z(0.975) = 1.95996; 12.5 looks, z(0.998) = 2.87816; 20 looks,
+    // z(0.99875) = 3.02334.
+    [InlineData(1, 3.8415)]
+    [InlineData(12.5, 8.2838)]
+    [InlineData(20, 9.1406)]
+    public void Threshold_ForManyDegreesOfFreedom_IsTheBonferroniNormalQuantileSquared(double looks, double expected)
+    {
+        Assert.Equal(expected, ExponentialFitter.Threshold(1_000_000, looks), 0.002);
+    }
+
     [Fact]
     public void Profile_AtOneFixedTimeConstant_IsTheLinearLeastSquaresInterval()
     {
