@@ -1,6 +1,7 @@
 using SortRig.Engine.Announcing;
 using SortRig.Engine.Operator;
 using SortRig.Measurement.Control;
+using SortRig.Measurement.Uncertainty;
 using SortRig.Planning.Cups;
 using SortRig.Storage.Contracts;
 using static System.FormattableString;
@@ -73,16 +74,31 @@ public sealed partial class SortingLoop
         }
     }
 
-    // Reads the check again and puts the meter's values back on the check's scale from here on.
+    // Reads the check again, re-seated as often as the baseline was (one reading would carry its own noise into every
+    // later value and tilt the chart by it), and puts the meter's values back on the check's scale from the mean.
     private async Task ReReferenceAsync(CancellationToken ct)
     {
-        var (value, at) = await ReadCheckAsync("re-reference", ct).ConfigureAwait(false);
+        var readings = new List<(MeasuredValue Value, DateTimeOffset At)>(Options.CheckBaseline);
+        for (var i = 0; i < Options.CheckBaseline; i++)
+        {
+            readings.Add(await ReadCheckAsync("re-reference", ct).ConfigureAwait(false));
+        }
+
+        var mean = readings.Average(r => r.Value.Value);
         var centre = _checkLimits!.Centre;
-        _checkScale = centre / value.Value;
-        var shiftPpm = ((value.Value / centre) - 1) * 1e6;
+        _checkScale = centre / mean;
+        var shiftPpm = ((mean / centre) - 1) * 1e6;
         _checkPoints.Clear();
-        var why = Invariant($"re-referenced: the meter reads {shiftPpm:+0.0;-0.0} ppm against the check's centre");
-        await RecordCheckAsync(_check!, value, at, null, "ReReferenced", why, ct).ConfigureAwait(false);
+        var why = string.Create(
+            System.Globalization.CultureInfo.InvariantCulture,
+            $"re-referenced on {readings.Count} readings: the meter reads {shiftPpm:+0.0;-0.0} ppm against the "
+                + $"check's centre"
+        );
+        foreach (var (value, at) in readings)
+        {
+            await RecordCheckAsync(_check!, value, at, null, "ReReferenced", why, ct).ConfigureAwait(false);
+        }
+
         await SayAsync(why + "; values are put back on the check's scale", ct).ConfigureAwait(false);
     }
 
