@@ -24,7 +24,7 @@ internal static class SettleBenchmark
         var variants = new (string, SettleOptions)[]
         {
             ("averaging (sort's rule until now: span 4 s)", averaging),
-            ("predictive (+ averaging fallback)", averaging with { Predictive = PredictiveOptions.Default }),
+            ("predictive (+ averaging fallback)", averaging with { Predictive = SettleCase.Predictive }),
         };
         var clock = Stopwatch.StartNew();
         var cases = SettleCase.All(parts, variants, simpleParts);

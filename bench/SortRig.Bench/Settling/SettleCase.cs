@@ -20,7 +20,15 @@ internal sealed record SettleCase(
     /// <summary>The 10 kOhm range: every part of a 10 kOhm ±1 % reel reads on it.</summary>
     public const double Range = 10_000;
 
-    /// <summary>The averaging rule as the sort verb builds it (src/SortRig.Host/Sorting/SortPlan.cs: 4 s settling
+    /// <summary>The predictive rule as the sort builds it for a long reel (src/SortRig.Engine/Sorting/SortPlan.cs: the
+    /// first parts held to teach the reel's prior, <see cref="PredictiveOptions.TeachingFailures"/>).</summary>
+    public static PredictiveOptions Predictive { get; } =
+        PredictiveOptions.Default with
+        {
+            TeachingFailures = PredictiveOptions.ReelTeachingFailures,
+        };
+
+    /// <summary>The averaging rule as the sort verb builds it (src/SortRig.Engine/Sorting/SortPlan.cs: 4 s settling
     /// span), here measured 4-wire.</summary>
     public static SettleOptions SortOptions(bool fourWire = true) =>
         SettleOptions.Default with

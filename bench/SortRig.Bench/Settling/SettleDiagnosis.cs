@@ -21,7 +21,7 @@ internal static class SettleDiagnosis
         var root = RepositoryRoot.Find();
         var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
         var range = profile.FindRange(SettleCase.Range)!;
-        var options = SettleCase.SortOptions() with { Predictive = PredictiveOptions.Default };
+        var options = SettleCase.SortOptions() with { Predictive = SettleCase.Predictive };
         var c = SettleCase.All(parts, [("p", options)])[which];
         if (args.Length > 3 && int.TryParse(args[3], out var seed))
         {

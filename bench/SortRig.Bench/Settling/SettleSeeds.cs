@@ -31,7 +31,7 @@ internal static class SettleSeeds
         var docs = Path.Combine(root, "docs", "bench-settle.md");
         var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
         var range = profile.FindRange(SettleCase.Range)!;
-        var options = SettleCase.SortOptions() with { Predictive = PredictiveOptions.Default };
+        var options = SettleCase.SortOptions() with { Predictive = SettleCase.Predictive };
         var cases = SettleCase.All(parts, [("predictive", options)]);
         var jobs = cases.SelectMany((c, i) => Enumerable.Range(0, seeds).Select(r => (Case: i, Reel: r))).ToList();
         var reels = new ReelRun[jobs.Count];

@@ -75,7 +75,7 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
             SettlingSpan = TimeSpan.FromSeconds(4),
             // By default the predictive rule runs beside the averaging rule (docs/measurement.md, "Predictive rule");
             // --settle averaging leaves it out.
-            Predictive = options.Settle == SettleRule.Predictive ? PredictiveOptions.Default : null,
+            Predictive = options.Settle == SettleRule.Predictive ? Predictive(options.Parts) : null,
         };
 
         // The settle target: small against the match band, yet reachable on this range and NPLC
@@ -122,5 +122,21 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
                 $"loosen the match to {r.Setting * 100:0.####} % (--match {r.Setting:G4})"
             ),
             _ => r.Kind.ToString(),
+        };
+
+    /// <summary>The least session, in parts, for which the predictive rule holds its first parts to teach the
+    /// reel.</summary>
+    public const int TeachingLeastParts = 400;
+
+    /// <summary>
+    /// The predictive rule's options for a session of <paramref name="parts"/> (0: until the operator finishes, a
+    /// reel of unknown length): the first parts are held to teach the reel's prior only when the session is long
+    /// enough for the hold to pay (PredictiveOptions.TeachingFailures): 20-35 held parts cost a few seconds each,
+    /// paid back at a few tenths of a second on each later part.
+    /// </summary>
+    private static PredictiveOptions Predictive(int parts) =>
+        PredictiveOptions.Default with
+        {
+            TeachingFailures = parts is > 0 and < TeachingLeastParts ? 0 : PredictiveOptions.ReelTeachingFailures,
         };
 }

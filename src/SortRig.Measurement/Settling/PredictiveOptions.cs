@@ -14,9 +14,14 @@ public sealed record PredictiveOptions
     private readonly TimeSpan _minSpan = TimeSpan.FromSeconds(1);
     private readonly double _misfitFraction = 0.1;
     private readonly double _whitenessAlpha = 0.01;
+    private readonly int _teachingFailures;
 
-    /// <summary>The default options.</summary>
+    /// <summary>The default options (no hold to teach the reel: <see cref="TeachingFailures"/> 0).</summary>
     public static PredictiveOptions Default { get; } = new();
+
+    /// <summary>The <see cref="TeachingFailures"/> a long reel is sorted with (the sort's and the
+    /// benchmark's).</summary>
+    public const int ReelTeachingFailures = 15;
 
     /// <summary>Least time between two fits (the fit is the costly part). Default 0.25 s; valid [0, 60 s]; 0 fits on
     /// every reading.</summary>
@@ -94,6 +99,35 @@ public sealed record PredictiveOptions
                     nameof(WhitenessAlpha),
                     value,
                     "WhitenessAlpha must be in (0, 0.5]."
+                );
+    }
+
+    /// <summary>
+    /// How long the first parts of a session are held to teach the reel's prior (<see cref="ReelPrior"/>): while
+    /// fewer than <see cref="ReelPrior.MinParts"/> parts have resolved their body and fewer than this many accepted
+    /// parts have not, a fit does not accept before its record covers twice the assumed longest time constant, the
+    /// record on which a body resolves. Without the hold the reel learns only from parts that happen to wait that
+    /// long, which a fast rule leaves few of: on the simple bench at NPLC 10 the prior came after part 2 251 of 3 000
+    /// (settle-diag 3000 1 5127) and the rule took 5.64 s a part; held, the prior came at part 27 and the rule took
+    /// 5.32 s (5.23 s under the reel's true prior from the first part). The count of parts that did not resolve ends
+    /// the hold on a reel whose records seldom resolve in that time (two thermal paths and slow noise: on the rich
+    /// bench 32 parts of 391 resolved, and holding 40 parts taught nothing, settle-diag 3000 6 5133): with 20 parts
+    /// to learn and a share p resolving, the parts that do not resolve first number 20 (1 − p) / p on average, about
+    /// 7 ± 3 on the simple bench (p about 3/4), so 15 rarely ends a hold that teaches and ends one that does not
+    /// after about 15 parts (<see cref="ReelTeachingFailures"/>). The hold costs a few seconds on each held part and
+    /// pays on a long reel only: the sort holds for a session of 400 parts or more, or of unknown length. Default 0
+    /// (none held); valid [0, 100 000].
+    /// </summary>
+    public int TeachingFailures
+    {
+        get => _teachingFailures;
+        init =>
+            _teachingFailures = value is >= 0 and <= 100_000
+                ? value
+                : throw new ArgumentOutOfRangeException(
+                    nameof(TeachingFailures),
+                    value,
+                    "TeachingFailures must be in [0, 100000]."
                 );
     }
 

@@ -107,6 +107,13 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         Latest = null;
     }
 
+    /// <summary>
+    /// The reel still needs teaching (<see cref="PredictiveOptions.TeachingFailures"/>): no acceptance by prediction
+    /// before the record covers <see cref="ResolvingSpans"/> assumed longest time constants, the record on which a
+    /// part's body resolves and the reel's prior learns it. The averaging rule may still accept meanwhile.
+    /// </summary>
+    public bool Teaching { get; set; }
+
     /// <summary>Fits when one is due; returns the fit when it accepts the part at the target, else null.</summary>
     public RecoveryFit? TryAccept(SettleTarget target)
     {
@@ -131,6 +138,11 @@ internal sealed class PredictiveSettling(PredictiveOptions options, double resol
         }
 
         Latest = fit;
+        if (Teaching && fit.SpanSeconds < ResolvingSpans * longestTimeConstant.TotalSeconds)
+        {
+            return null; // held: a record that resolves the body teaches the reel's prior (ReelPrior)
+        }
+
         return white && !_refused && fit.StandardUncertainty <= target.InOhms(fit.FinalValue) ? fit : null;
     }
 

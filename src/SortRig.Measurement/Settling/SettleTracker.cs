@@ -89,6 +89,9 @@ public sealed partial class SettleTracker
             field = value;
             _predictive?.BodyRange = value.BodyRange;
             _predictive?.BodyPrior = value.Body;
+            _predictive?.Teaching =
+                value.Count < ReelPrior.MinParts
+                && value.Seen - value.Count < (_options.Predictive?.TeachingFailures ?? 0);
         }
     }
 

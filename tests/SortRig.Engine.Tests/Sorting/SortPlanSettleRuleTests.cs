@@ -14,13 +14,18 @@ public sealed class SortPlanSettleRuleTests
 {
     private static readonly MeterSpec s_meter = ProfileLocator.Load("simulator").Spec;
 
+    private static readonly PredictiveOptions s_reel = PredictiveOptions.Default with
+    {
+        TeachingFailures = PredictiveOptions.ReelTeachingFailures,
+    };
+
     [Fact]
     public void Plan_Default_PredictiveRuleBesideAveraging()
     {
         var plan = SortPlan.For(new SortOptions(), s_meter);
 
         Assert.Equal(SettleRule.Predictive, plan.Options.Settle);
-        Assert.Equal(PredictiveOptions.Default, plan.Settle.Predictive);
+        Assert.Equal(s_reel, plan.Settle.Predictive); // a session of unknown length: a reel
     }
 
     [Fact]
@@ -37,7 +42,20 @@ public sealed class SortPlanSettleRuleTests
         var averaging = SortPlan.For(new SortOptions { Settle = SettleRule.Averaging }, s_meter);
         var predictive = SortPlan.For(new SortOptions { Settle = SettleRule.Predictive }, s_meter);
 
-        Assert.Equal(PredictiveOptions.Default, predictive.Settle.Predictive);
-        Assert.Equal(averaging.Settle with { Predictive = PredictiveOptions.Default }, predictive.Settle);
+        Assert.Equal(s_reel, predictive.Settle.Predictive);
+        Assert.Equal(averaging.Settle with { Predictive = s_reel }, predictive.Settle);
+    }
+
+    [Theory]
+    [InlineData(0, PredictiveOptions.ReelTeachingFailures)] // until the operator finishes: a reel of unknown length
+    [InlineData(40, 0)] // the demo: the hold could not pay back
+    [InlineData(SortPlan.TeachingLeastParts - 1, 0)]
+    [InlineData(SortPlan.TeachingLeastParts, PredictiveOptions.ReelTeachingFailures)]
+    [InlineData(3000, PredictiveOptions.ReelTeachingFailures)]
+    public void Plan_Predictive_HoldsFirstPartsToTeachTheReel_OnlyOnALongSession(int parts, int failures)
+    {
+        var plan = SortPlan.For(new SortOptions { Parts = parts }, s_meter);
+
+        Assert.Equal(PredictiveOptions.Default with { TeachingFailures = failures }, plan.Settle.Predictive);
     }
 }

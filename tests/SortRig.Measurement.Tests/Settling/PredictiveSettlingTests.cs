@@ -19,6 +19,22 @@ public sealed class PredictiveSettlingTests
 
     private static SettleOptions Predictive => Averaging with { Predictive = PredictiveOptions.Default };
 
+    private static PredictiveOptions Teaching =>
+        PredictiveOptions.Default with
+        {
+            TeachingFailures = PredictiveOptions.ReelTeachingFailures,
+        };
+
+    /// <summary>A fit whose record resolved a body time constant of <paramref name="tau"/> s (what the prior
+    /// learns).</summary>
+    private static RecoveryFit Resolved(double tau) =>
+        new(RecoveryModel.OneExponential, R, 1e-3, 1e-4, [tau], 250, 10.5, 5e-3, 0, 1)
+        {
+            BodyTimeConstant = tau,
+            BodyStandardError = 0.02 * tau,
+            BodyResolved = true,
+        };
+
     /// <summary>A warm 10 kOhm part: 60 ppm excess decaying with 4 s, 0.5 ppm noise, a reading every 41 ms.</summary>
     private static List<SortRig.Measurement.Readings.Reading> Recovery(int seed, Func<double, double>? extra = null)
     {
@@ -145,6 +161,54 @@ public sealed class PredictiveSettlingTests
         // The rule's runs test (normal approximation) rejects two runs of five at that level.
         double[] twoRuns = [1, 1, 1, 1, 1, -1, -1, -1, -1, -1];
         Assert.False(RunsTest.LooksWhite(twoRuns, alpha));
+    }
+
+    [Theory]
+    [InlineData(1)]
+    [InlineData(2)]
+    [InlineData(3)]
+    public void TeachingHold_FirstPartOfAReel_AcceptsByPredictionOnARecordOfTwoAssumedTimeConstants_AndTeachesIt(
+        int seed
+    )
+    {
+        // Referee: the generating curve R (1 + 60 ppm e^(−t/4 s)): its asymptote R and its time constant 4 s are
+        // known by construction (a first-order recovery, textbook identity), so the taught estimate is checked
+        // against the curve, not against the rule's own output.
+        var options = Averaging with { Predictive = Teaching };
+        var readings = Recovery(seed);
+        var tracker = Tracker(options);
+
+        var held = tracker.Feed(readings).Single(v => v.State == SettleState.Accepted).Acceptance!;
+        var free = Accept(Predictive, readings);
+
+        var resolving = 2 * options.AssumedTimeConstant.TotalSeconds;
+        Assert.Equal(SettleRule.Predictive, held.AcceptedBy);
+        Assert.InRange(held.Fit!.SpanSeconds, resolving, resolving + 0.5); // the first look on a resolving record
+        Assert.True(free.TimeToSettle.TotalSeconds < resolving / 2, $"{free.TimeToSettle}"); // not held: far earlier
+        Assert.InRange(held.Value.Value, R * (1 - (TargetPpm * 1e-6)), R * (1 + (TargetPpm * 1e-6)));
+        Assert.Equal(1, tracker.Prior.Count); // the record resolved the body and the reel learned it
+        Assert.Equal(4, tracker.Prior.Lowest, 4 * 0.05); // within the 5 % a resolved estimate may be off
+    }
+
+    [Theory]
+    [InlineData(ReelPrior.MinParts, ReelPrior.MinParts)] // the reel has taught its prior
+    [InlineData(3, 3 + PredictiveOptions.ReelTeachingFailures)] // parts that did not resolve ended the hold
+    public void TeachingHold_EndsWhenTheReelIsTaughtOrItsPartsDoNotResolve(int resolved, int seen)
+    {
+        var prior = Enumerable
+            .Range(0, seen)
+            .Aggregate(ReelPrior.Empty, (p, i) => p.Learn(i < resolved ? Resolved(4 * (1 + (0.01 * (i % 5)))) : null));
+        Assert.Equal((resolved, seen), (prior.Count, prior.Seen));
+        var options = Averaging with { Predictive = Teaching };
+        var tracker = new SettleTracker(InventedMeter.R10k, InventedMeter.One, options, prior);
+
+        var accepted = tracker.Feed(Recovery(1)).Single(v => v.State == SettleState.Accepted).Acceptance!;
+
+        Assert.Equal(SettleRule.Predictive, accepted.AcceptedBy);
+        Assert.True(
+            accepted.Fit!.SpanSeconds < options.AssumedTimeConstant.TotalSeconds,
+            $"{accepted.Fit.SpanSeconds}"
+        );
     }
 
     [Fact]
