@@ -51,14 +51,7 @@ public sealed record PredictiveOptions
     public int MinReadings
     {
         get => _minReadings;
-        init =>
-            _minReadings = value is >= 6 and <= 100_000
-                ? value
-                : throw new ArgumentOutOfRangeException(
-                    nameof(MinReadings),
-                    value,
-                    "MinReadings must be in [6, 100000]."
-                );
+        init => _minReadings = InRange(value, 6, 100_000, nameof(MinReadings));
     }
 
     /// <summary>Least time covered by the fitted readings before a fit may accept. Default 1 s; valid [0, 10
@@ -121,15 +114,13 @@ public sealed record PredictiveOptions
     public int TeachingFailures
     {
         get => _teachingFailures;
-        init =>
-            _teachingFailures = value is >= 0 and <= 100_000
-                ? value
-                : throw new ArgumentOutOfRangeException(
-                    nameof(TeachingFailures),
-                    value,
-                    "TeachingFailures must be in [0, 100000]."
-                );
+        init => _teachingFailures = InRange(value, 0, 100_000, nameof(TeachingFailures));
     }
+
+    private static int InRange(int value, int min, int max, string name) =>
+        value >= min && value <= max
+            ? value
+            : throw new ArgumentOutOfRangeException(name, value, $"{name} must be in [{min}, {max}].");
 
     private static TimeSpan InRange(TimeSpan value, TimeSpan min, TimeSpan max, string name) =>
         value >= min && value <= max
