@@ -93,9 +93,11 @@ internal static class HostSetup
         builder.Services.AddSystemd();
     }
 
-    // Event ids of failures the verbs print themselves ("sorting stopped: ..."): Host 7001.
+    // Event ids of failures the verbs print themselves: Host 7001 ("sorting stopped: ..."), Engine 6101 (a meter fault
+    // of a sort, each told to the operator as "meter: ...; trying again in ..." or "...; reconnecting"). The log file
+    // keeps them.
     private static bool IsToldByTheVerb(Serilog.Events.LogEvent e) =>
         e.Properties.TryGetValue("EventId", out var id)
         && id is Serilog.Events.StructureValue s
-        && s.Properties.Any(p => p.Name == "Id" && p.Value is Serilog.Events.ScalarValue { Value: 7001 });
+        && s.Properties.Any(p => p.Name == "Id" && p.Value is Serilog.Events.ScalarValue { Value: 7001 or 6101 });
 }

@@ -20,7 +20,7 @@ public sealed class SortUnreachableMeterTests
         var port = ((IPEndPoint)probe.LocalEndpoint).Port;
         probe.Stop();
 
-        var run = await RunAsync($"TCPIP::127.0.0.1::{port}::SOCKET");
+        var (run, logFile) = await RunAsync($"TCPIP::127.0.0.1::{port}::SOCKET");
 
         Assert.Equal(1, run.ExitCode);
         var said = string.Join(' ', run.Lines);
@@ -28,12 +28,17 @@ public sealed class SortUnreachableMeterTests
         Assert.Contains("4 attempts", said, StringComparison.Ordinal);
         Assert.DoesNotContain("connection lost", said, StringComparison.Ordinal);
         AssertNoStackTrace(run);
+        // Each failed attempt is told once, in the operator's words; the log's warning of it goes to the log file only.
+        var retries = run.Lines.Count(l => l.Contains("trying again in", StringComparison.Ordinal));
+        Assert.InRange(retries, 1, 4);
+        Assert.DoesNotContain("Meter fault", run.Log, StringComparison.Ordinal);
+        Assert.Equal(retries, logFile.Split('\n').Count(l => l.Contains("Meter fault", StringComparison.Ordinal)));
     }
 
     [Fact]
     public async Task Sort_SerialDeviceThatIsNotThere_SaysNoSuchDevice()
     {
-        var run = await RunAsync("ASRL::/dev/ttyUSB-absent-42::INSTR");
+        var (run, _) = await RunAsync("ASRL::/dev/ttyUSB-absent-42::INSTR");
 
         Assert.Equal(1, run.ExitCode);
         var said = string.Join(' ', run.Lines);
@@ -42,12 +47,12 @@ public sealed class SortUnreachableMeterTests
         AssertNoStackTrace(run);
     }
 
-    private static async Task<HostRun> RunAsync(string resource)
+    private static async Task<(HostRun Run, string LogFile)> RunAsync(string resource)
     {
         var dir = Directory.CreateTempSubdirectory("sortrig-unreached-");
         try
         {
-            return await HostProcess.RunAsync(
+            var run = await HostProcess.RunAsync(
                 dir.FullName,
                 ["sort", "--resource", resource, "--plain", "--no-speech", "--profile", "bench-5half", "--nplc", "2"],
                 null,
@@ -55,6 +60,11 @@ public sealed class SortUnreachableMeterTests
                 null,
                 TimeSpan.FromSeconds(90)
             );
+            var logs = Path.Combine(dir.FullName, "logs");
+            var logFile = Directory.Exists(logs)
+                ? string.Concat(Directory.GetFiles(logs).Order().Select(File.ReadAllText))
+                : "";
+            return (run, logFile);
         }
         finally
         {
