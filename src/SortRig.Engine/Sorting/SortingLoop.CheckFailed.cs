@@ -89,11 +89,9 @@ public sealed partial class SortingLoop
         _checkScale = centre / mean;
         var shiftPpm = ((mean / centre) - 1) * 1e6;
         _checkPoints.Clear();
-        var why = string.Create(
-            System.Globalization.CultureInfo.InvariantCulture,
-            $"re-referenced on {readings.Count} readings: the meter reads {shiftPpm:+0.0;-0.0} ppm against the "
-                + $"check's centre"
-        );
+        var why =
+            Invariant($"re-referenced on {readings.Count} readings: the meter reads {shiftPpm:+0.0;-0.0} ppm ")
+            + "against the check's centre";
         foreach (var (value, at) in readings)
         {
             await RecordCheckAsync(_check!, value, at, null, "ReReferenced", why, ct).ConfigureAwait(false);
