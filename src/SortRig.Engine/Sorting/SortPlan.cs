@@ -124,6 +124,18 @@ public sealed record SortPlan(SortOptions Options, RangeDecision Decision, Settl
             _ => r.Kind.ToString(),
         };
 
+    /// <summary>
+    /// The settle options of a part settled on a tracker of its own (the check standard, a part measured again, a
+    /// bridging part): the batch's, without the hold that teaches the reel's prior, since that tracker teaches no reel.
+    /// </summary>
+    public SettleOptions SettleOnePart =>
+        Settle.Predictive is { } predictive
+            ? Settle with
+            {
+                Predictive = predictive with { TeachingFailures = 0 },
+            }
+            : Settle;
+
     /// <summary>The least session, in parts, for which the predictive rule holds its first parts to teach the
     /// reel.</summary>
     public const int TeachingLeastParts = 400;

@@ -22,7 +22,7 @@ public sealed partial class SortingLoop
         SetActiveRange(range.FullScale);
         await ApplySetupAsync(ct).ConfigureAwait(false);
         var nplc = _ctx.Plan.Decision.Nplc;
-        var settle = _ctx.Plan.Settle;
+        var settle = _ctx.Plan.SettleOnePart;
         var halfStepPpm = nplc.Resolution(range.FullScale) / 2 / bridgeNominal * 1e6;
         if (settle.Target.Unit == SettleTargetUnit.Ppm && settle.Target.Value < halfStepPpm)
         {

@@ -45,7 +45,7 @@ public sealed partial class SortingLoop
         CancellationToken ct
     )
     {
-        var tracker = new SettleTracker(_ctx.Plan.Decision.Range, _ctx.Plan.Decision.Nplc, _ctx.Plan.Settle);
+        var tracker = new SettleTracker(_ctx.Plan.Decision.Range, _ctx.Plan.Decision.Nplc, _ctx.Plan.SettleOnePart);
         var readings = new List<Reading>();
         while (true)
         {

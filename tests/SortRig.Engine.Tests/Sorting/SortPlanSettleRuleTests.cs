@@ -57,5 +57,7 @@ public sealed class SortPlanSettleRuleTests
         var plan = SortPlan.For(new SortOptions { Parts = parts }, s_meter);
 
         Assert.Equal(PredictiveOptions.Default with { TeachingFailures = failures }, plan.Settle.Predictive);
+        // A part settled on its own tracker (the check, a part measured again, a bridging part) teaches no reel.
+        Assert.Equal(plan.Settle with { Predictive = PredictiveOptions.Default }, plan.SettleOnePart);
     }
 }
