@@ -27,14 +27,26 @@ internal sealed class InsertionSource
     private readonly TimeSpan _period;
     private readonly double _range;
 
-    public InsertionSource(ReelSpec reel, PhysicsModel physics, int seed, double range, double nplc)
+    /// <param name="popcornShare">Share of parts with popcorn noise on the rich model; null: the simulator's default.
+    /// Diagnosis only (settle-diag's no-popcorn): the draw that decides it is made either way, so every other noise
+    /// stream is the same as in the default run.</param>
+    public InsertionSource(
+        ReelSpec reel,
+        PhysicsModel physics,
+        int seed,
+        double range,
+        double nplc,
+        double? popcornShare = null
+    )
     {
         _clock = new VirtualClock(new DateTimeOffset(2026, 1, 5, 8, 0, 0, TimeSpan.Zero));
         var options = new SimulatedBenchOptions
         {
             Seed = seed,
             Reel = reel,
-            Physics = new PhysicsSpec { Model = physics },
+            Physics = popcornShare is { } share
+                ? new PhysicsSpec { Model = physics, PopcornShare = share }
+                : new PhysicsSpec { Model = physics },
             Operator = new OperatorOptions { Mode = OperatorMode.Manual },
             TcpPort = null,
         };

@@ -10,7 +10,9 @@ namespace SortRig.Bench.Settling;
 /// `settle-diag [parts] [case] [seed]` uses another seed for the case; `settle-diag [parts] [case] trace` prints the
 /// fits of the first six parts every 0.5 s; `settle-diag [parts] [case] [seed] losses` adds where the rule loses time
 /// against the oracles (<see cref="LossLedger"/>); `... oracle` holds every part under the simulator's true body range
-/// from the first part (<see cref="OraclePrior"/>, diagnosis only: is the rule or the learner the bottleneck?).
+/// from the first part (<see cref="OraclePrior"/>, diagnosis only: is the rule or the learner the bottleneck?);
+/// `... teach` prints why the first 400 parts' records do or do not resolve the body at 10-20 s
+/// (<see cref="Teach"/>); a last `no-popcorn` runs any of these on the same reel without popcorn parts.
 /// </summary>
 internal static class SettleDiagnosis
 {
@@ -30,8 +32,17 @@ internal static class SettleDiagnosis
         }
 
         var nplc = profile.FindNplc(c.Nplc)!;
-        var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
-        Console.WriteLine(c.Name);
+        // `... no-popcorn` (last): the same reel with no popcorn parts, what the rule loses to them (diagnosis only).
+        var noPopcorn = args[^1] == "no-popcorn";
+        args = noPopcorn ? args[..^1] : args;
+        var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc, noPopcorn ? 0 : null);
+        Console.WriteLine(c.Name + (noPopcorn ? ", no popcorn parts" : ""));
+        if (args.Length > 3 && args[^1] == "teach")
+        {
+            Teach(source, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale, options.AssumedTimeConstant);
+            return 0;
+        }
+
         if (args.Length > 3 && args[^1] == "trace")
         {
             Trace(source, nplc.ResolutionPpmOfRange * 1e-6 * range.FullScale);
@@ -147,6 +158,109 @@ internal static class SettleDiagnosis
             SumLog = N * m1,
             SumSquaresLog = N * m2,
         };
+    }
+
+    /// <summary>
+    /// `... teach`: why records do or do not resolve the body (<see cref="RecoveryFit.BodyResolved"/>): for each part,
+    /// the fit on records of 10, 12.5, 15 and 20 s with each condition (white, body below the assumed longest, body's
+    /// relative standard error), and counts over the parts.
+    /// </summary>
+    private static void Teach(InsertionSource source, double resolution, TimeSpan assumed)
+    {
+        double[] spans = [10, 12.5, 15, 20];
+        var (resolved, notWhite, tooSlow, tooWide) = (new int[4], new int[4], new int[4], new int[4]);
+        var parts = 0;
+        var zs = new List<(double D, double Z, double Rel)>[4];
+        for (var j = 0; j < 4; j++)
+        {
+            zs[j] = [];
+        }
+
+        var errs = new List<double>[4];
+        for (var j = 0; j < 4; j++)
+        {
+            errs[j] = [];
+        }
+
+        foreach (var ins in source.Insertions().Take(400))
+        {
+            parts++;
+            var part = source.Part(ins.Index);
+            var settling = new PredictiveSettling(PredictiveOptions.Default, resolution, assumed);
+            var line = Inv($"#{ins.Index, 3} {PartText(part, ins)} |");
+            var j = 0;
+            for (var k = 0; j < spans.Length && k < 100_000; k++)
+            {
+                var r = ins.Reading(k);
+                if (r.Value > 1e30)
+                {
+                    settling.Clear();
+                    continue;
+                }
+
+                settling.Add(r);
+                if (ins.Since(k).TotalSeconds < spans[j])
+                {
+                    continue;
+                }
+
+                if (settling.Fit(out var white) is { } f)
+                {
+                    var rel = f.BodyStandardError / f.BodyTimeConstant;
+                    resolved[j] += f.BodyResolved ? 1 : 0;
+                    notWhite[j] += white ? 0 : 1;
+                    tooSlow[j] += f.BodyTimeConstant >= assumed.TotalSeconds ? 1 : 0;
+                    tooWide[j] += rel > 0.05 ? 1 : 0;
+                    if (white && f.BodyTimeConstant < 0.99 * assumed.TotalSeconds && rel < 0.5)
+                    {
+                        var d = Math.Log(f.BodyTimeConstant / part.ThermalTimeConstant.TotalSeconds);
+                        zs[j].Add((d, d / rel, rel));
+                    }
+
+                    if (f.BodyResolved)
+                    {
+                        errs[j].Add(f.BodyTimeConstant / part.ThermalTimeConstant.TotalSeconds - 1);
+                    }
+
+                    line +=
+                        Inv($" {spans[j]:0.0}s {f.Model} body {f.BodyTimeConstant:0.00}±{rel * 100:0}% ")
+                        + Inv($"z {f.RunsZ:0.0}{(white ? "" : " NW")}{(f.BodyResolved ? " R" : "")} |");
+                }
+
+                j++;
+            }
+
+            Console.WriteLine(line);
+        }
+
+        for (var j = 0; j < spans.Length; j++)
+        {
+            var e = errs[j];
+            Console.WriteLine(
+                Inv($"{spans[j]:0.0} s: resolved {resolved[j]} / {parts}; not white {notWhite[j]}, ")
+                    + Inv($"body >= assumed {tooSlow[j]}, SE > 5 % {tooWide[j]}; resolved body error ")
+                    + (
+                        e.Count > 0
+                            ? Inv($"mean {e.Average() * 100:0.0} %, rms {Math.Sqrt(e.Average(x => x * x)) * 100:0.0} %")
+                            : "-"
+                    )
+            );
+            var z = zs[j];
+            if (z.Count > 1)
+            {
+                var w = z.Sum(x => 1 / (x.Rel * x.Rel));
+                var mean = z.Average(x => x.D);
+                var sd = Math.Sqrt(z.Average(x => x.D * x.D) - (mean * mean));
+                var zRms = Math.Sqrt(z.Average(x => x.Z * x.Z));
+                var weighted = z.Sum(x => x.D / (x.Rel * x.Rel)) / w;
+                var median = z.Select(x => x.Rel).Order().ElementAt(z.Count / 2);
+                Console.WriteLine(
+                    Inv($"   white, body < 0.99 assumed, rel SE < 50 %: {z.Count}; ln error mean {mean:0.000} ")
+                        + Inv($"sd {sd:0.000}; z mean {z.Average(x => x.Z):0.00} rms {zRms:0.00}; ")
+                        + Inv($"weighted ln error {weighted:0.000}, median rel SE {median:0.000}")
+                );
+            }
+        }
     }
 
     private static void Trace(InsertionSource source, double resolution)

@@ -27,6 +27,7 @@ internal static class SettleLimits
             );
             var bodyLogSd = SettleBenchmark.LogUniformSd(c.Reel.ThermalTimeConstantSpread);
             var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
+            var (floored, eitherFloored) = (new List<double>(), new List<double>());
             var (avg, fit, prior, either) = (
                 new List<double>(),
                 new List<double>(),
@@ -41,7 +42,13 @@ internal static class SettleLimits
                 avg.Add(a.Seconds);
                 fit.Add(f.Seconds);
                 either.Add(FitLimit.Earlier(a, f).Seconds);
-                prior.Add(FitLimit.Run(ins, part, SettleCase.TargetPpm, sigma, bounce, horizon, bodyLogSd).Seconds);
+                var withPrior = FitLimit.Run(ins, part, SettleCase.TargetPpm, sigma, bounce, horizon, bodyLogSd);
+                prior.Add(withPrior.Seconds);
+                // The predictive rule's least record: a fit may accept from its MinReadings-th reading after the
+                // bounce, the fewest on which its runs test can reject (PredictiveOptions.MinReadings).
+                var least = ins.Since(ins.FirstEndingAtOrAfter(bounce) + MinReadings - 1).TotalSeconds;
+                floored.Add(Math.Max(withPrior.Seconds, least));
+                eitherFloored.Add(Math.Min(a.Seconds, Math.Max(withPrior.Seconds, least)));
             }
 
             Console.WriteLine(
@@ -51,13 +58,18 @@ internal static class SettleLimits
                         + $"({fit.Average() / avg.Average():0.00} ×, p95 {Quantile(fit, 0.95):0.00}); with body prior "
                         + $"(ln τ sd {bodyLogSd:0.000}) {prior.Average():0.00} s ("
                         + $"{prior.Average() / avg.Average():0.00} ×); either {either.Average():0.00} s ("
-                        + $"{either.Average() / avg.Average():0.00} ×)"
+                        + $"{either.Average() / avg.Average():0.00} ×); with body prior from reading {MinReadings} "
+                        + $"{floored.Average():0.00} s ({floored.Average() / avg.Average():0.00} ×), or the averaging "
+                        + $"limit if earlier {eitherFloored.Average():0.00} s ("
+                        + $"{eitherFloored.Average() / avg.Average():0.00} ×)"
                 )
             );
         }
 
         return 0;
     }
+
+    private static int MinReadings => SortRig.Measurement.Settling.PredictiveOptions.Default.MinReadings;
 
     private static double Quantile(List<double> values, double q) =>
         MathNet.Numerics.Statistics.Statistics.Quantile(values, q);
