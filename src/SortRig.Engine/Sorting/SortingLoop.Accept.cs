@@ -36,7 +36,8 @@ public sealed partial class SortingLoop
             [.. _partReadings],
             PartState.Accepted,
             acceptance.AcceptedBy,
-            acceptance.AcceptedBy == SettleRule.Predictive ? acceptance.Fit : null
+            acceptance.AcceptedBy == SettleRule.Predictive ? acceptance.Fit : null,
+            _ctx.Plan.Settle.Predictive is null ? null : _tracker.Prior
         );
         PartRecord stored;
         try

@@ -33,6 +33,11 @@ public sealed partial class SortingLoop
             state.CurrentBatch is { } current && SameBatch(current.Setup, setup)
                 ? current
                 : await log.StartBatchAsync(_session.Id, setup, ct).ConfigureAwait(false);
+        // The same reel goes on: the settle rule keeps what its parts taught it (a new batch learns afresh).
+        if (_batch.ReelPrior is { } learned)
+        {
+            _tracker.Prior = learned;
+        }
 
         var parts = await log.GetPartsAsync(_session.Id, ct).ConfigureAwait(false);
         LoadExtraNumbers(parts);

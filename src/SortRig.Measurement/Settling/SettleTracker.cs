@@ -79,13 +79,15 @@ public sealed partial class SettleTracker
     /// <summary>
     /// The reel-learned prior of the predictive rule: what the parts accepted so far in this session say about the body
     /// time constant; updated on each acceptance (kept across <see cref="Reset"/>: it belongs to the reel, not to one
-    /// part). Unused without <see cref="SettleOptions.Predictive"/>.
+    /// part). Unused without <see cref="SettleOptions.Predictive"/>. Set it to go on from what an earlier run of the
+    /// same reel learned (a resumed session); the teaching hold then follows the prior set.
     /// </summary>
     public ReelPrior Prior
     {
         get;
-        private set
+        set
         {
+            ArgumentNullException.ThrowIfNull(value);
             field = value;
             _predictive?.BodyRange = value.BodyRange;
             _predictive?.BodyPrior = value.Body;

@@ -6,12 +6,16 @@ namespace SortRig.Storage.Contracts;
 /// <param name="StartedAt">When the batch was started (UTC).</param>
 /// <param name="Setup">The measurement setup given when the batch was started.</param>
 /// <param name="RangeTransfer">Correction between two ranges, once recorded; null until then.</param>
+/// <param name="ReelPrior">What the predictive settle rule had learned of the batch's reel after its latest part
+/// (schema version 7, <see cref="PartCommit.ReelPrior"/>); null before the first part that carried one. A resumed
+/// session goes on from it.</param>
 public sealed record BatchInfo(
     long Id,
     long SessionId,
     DateTimeOffset StartedAt,
     BatchSetup Setup,
-    RangeTransferCorrection? RangeTransfer
+    RangeTransferCorrection? RangeTransfer,
+    SortRig.Measurement.Settling.ReelPrior? ReelPrior = null
 );
 
 /// <summary>The measurement setup of a batch. Checked by <see cref="ISessionLog.StartBatchAsync"/>.</summary>

@@ -26,6 +26,9 @@ namespace SortRig.Storage.Contracts;
 /// known).</param>
 /// <param name="Fit">The recovery fit when <paramref name="AcceptedBy"/> is Predictive (values on the meter's own
 /// scale, before any range transfer); null otherwise. Its figures must be finite and its uncertainties &gt;= 0.</param>
+/// <param name="ReelPrior">What the settle rule has learned of the batch's reel after this part
+/// (<see cref="SortRig.Measurement.Settling.ReelPrior"/>); stored with the batch in the part's transaction
+/// (<see cref="BatchInfo.ReelPrior"/>); null leaves the batch's as it was. Counts &gt;= 0, sums finite.</param>
 public sealed record PartCommit(
     Guid CommitKey,
     long SessionId,
@@ -40,7 +43,8 @@ public sealed record PartCommit(
     IReadOnlyList<Reading> Readings,
     PartState State = PartState.Accepted,
     SettleRule? AcceptedBy = null,
-    RecoveryFit? Fit = null
+    RecoveryFit? Fit = null,
+    ReelPrior? ReelPrior = null
 );
 
 /// <summary>A raw meter reading stored with its part.</summary>

@@ -105,6 +105,16 @@ internal abstract partial class AdoPrecisionLog
         long partId = await InsertPartAsync(s, commit, (int)number.Value, batch.Setup.Nominal, ct)
             .ConfigureAwait(false);
         await InsertReadingsAsync(s, partId, commit, ct).ConfigureAwait(false);
+        if (commit.ReelPrior is { } prior)
+        {
+            // With the part, in its transaction: a resumed session never goes on from a prior ahead of its parts.
+            await s.Sql("UPDATE batches SET reel_prior = @prior WHERE id = @id")
+                .With("prior", ReelPriorText.Write(prior))
+                .With("id", commit.BatchId)
+                .ExecuteAsync(ct)
+                .ConfigureAwait(false);
+        }
+
         return (await GetPartCoreAsync(s, partId, ct).ConfigureAwait(false))!;
     }
 

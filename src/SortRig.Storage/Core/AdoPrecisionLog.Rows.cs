@@ -15,7 +15,7 @@ internal abstract partial class AdoPrecisionLog
         "b.id, b.session_id, b.started_at, b.nominal_ohms, b.stock_tolerance_ppm, b.match_tolerance_ppm, b.range_ohms, "
         + "b.nplc, b.four_wire, b.meter_family, b.meter_identity, b.recipe_name, b.rt_from_range_ohms, "
         + "b.rt_to_range_ohms, "
-        + "b.rt_correction_ppm, b.rt_uncertainty_ppm, b.rt_measured_at";
+        + "b.rt_correction_ppm, b.rt_uncertainty_ppm, b.rt_measured_at, b.reel_prior";
 
     private protected const string PartColumns =
         "p.id, p.commit_key, p.session_id, p.batch_id, p.part_number, p.nominal_ohms, p.value_ohms, p.u_standard_ohms, "
@@ -61,7 +61,14 @@ internal abstract partial class AdoPrecisionLog
                 r.GetDouble(15),
                 ReadTime(r, 16)
             );
-        return new BatchInfo(r.GetInt64(0), r.GetInt64(1), ReadTime(r, 2), setup, transfer);
+        return new BatchInfo(
+            r.GetInt64(0),
+            r.GetInt64(1),
+            ReadTime(r, 2),
+            setup,
+            transfer,
+            ReelPriorText.Read(ReadText(r, 17))
+        );
     }
 
     private protected PartRecord ReadPart(DbDataReader r)

@@ -38,6 +38,15 @@ internal static class PartCommitRules
         }
 
         SettleFitRules.Check(commit);
+        if (commit.ReelPrior is { } prior)
+        {
+            Guard.NonNegative(prior.Count, "ReelPrior.Count");
+            Guard.NonNegative(prior.Seen, "ReelPrior.Seen");
+            Guard.NonNegative(prior.LargestError, "ReelPrior.LargestError");
+            Guard.Finite(prior.SumLog, "ReelPrior.SumLog");
+            Guard.Finite(prior.SumSquaresLog, "ReelPrior.SumSquaresLog");
+        }
+
         ArgumentNullException.ThrowIfNull(commit.Readings, nameof(commit.Readings));
         for (int i = 0; i < commit.Readings.Count; i++)
         {

@@ -17,13 +17,21 @@ public abstract partial class PrecisionLogContractTests
         var report = await second.VerifyAsync(CancellationToken.None);
 
         // Scripts shipped so far: 0001_initial.sql, 0002_drift_by_part.sql, 0003_settle_record.sql,
-        // 0004_build_target.sql, 0005_check_standard.sql, 0006_replaced_by.sql.
+        // 0004_build_target.sql, 0005_check_standard.sql, 0006_replaced_by.sql, 0007_reel_prior.sql.
         Assert.Equal(
-            ["initial", "drift_by_part", "settle_record", "build_target", "check_standard", "replaced_by"],
+            [
+                "initial",
+                "drift_by_part",
+                "settle_record",
+                "build_target",
+                "check_standard",
+                "replaced_by",
+                "reel_prior",
+            ],
             EngineMigrations.Select(m => m.Name)
         );
-        Assert.Equal(6, report.SchemaVersion);
-        Assert.Equal(6, await SchemaVersionRowsAsync());
+        Assert.Equal(7, report.SchemaVersion);
+        Assert.Equal(7, await SchemaVersionRowsAsync());
         Assert.True(report.IsOk, string.Join("; ", report.Problems));
         Assert.Equal(part, await second.GetPartAsync(part.Id, CancellationToken.None));
     }
