@@ -51,6 +51,7 @@ internal static class SettleDiagnosis
 
         var (bad, predicted, seconds, n, predictedSeconds) = (0, 0, 0.0, 0, 0.0);
         var (byPrior, priorSeconds) = (0, 0.0);
+        var (late, lateSeconds) = (0, 0.0); // parts from 400 on: past the learning phase of a learned prior
         var prior = ReelPrior.Empty;
         var ledger = args[^1] == "losses" ? new LossLedger() : null;
         var oracle = args[^1] == "oracle";
@@ -87,6 +88,8 @@ internal static class SettleDiagnosis
 
                 prior = oracle ? OraclePrior : tracker.Prior;
                 seconds += ins.Since(k).TotalSeconds;
+                (late, lateSeconds) =
+                    ins.Index >= 400 ? (late + 1, lateSeconds + ins.Since(k).TotalSeconds) : (late, lateSeconds);
                 ledger?.Add(
                     ins.Index,
                     ins.Since(k).TotalSeconds,
@@ -125,7 +128,8 @@ internal static class SettleDiagnosis
         Console.WriteLine(
             Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
                 + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
-                + Inv($"mean {seconds / n:0.00} s; {byPrior} by prediction under the reel prior ")
+                + Inv($"mean {seconds / n:0.00} s (from part 400 on {lateSeconds / late:0.00} s); ")
+                + Inv($"{byPrior} by prediction under the reel prior ")
                 + Inv($"(mean {priorSeconds / byPrior:0.00} s), learned from {prior.Count} parts: {prior.BodyRange}")
                 + (prior.Body is { } b ? Inv($", ln τ {b.LogMean:0.000} ± {b.LogScale:0.000} (t, {b.Dof:0} dof)") : "")
         );
