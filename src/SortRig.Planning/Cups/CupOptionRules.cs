@@ -6,45 +6,36 @@ internal static class CupOptionRules
 {
     /// <summary>Regular cups K: 1 to <see cref="CupLabels.MaxCups"/>.</summary>
     public static int CupCount(int cupCount) =>
-        cupCount is >= 1 and <= CupLabels.MaxCups
-            ? cupCount
-            : throw new ArgumentOutOfRangeException(
-                nameof(cupCount),
-                cupCount,
-                $"CupCount must be 1 to {CupLabels.MaxCups}"
-            );
+        InRange(cupCount, 1, CupLabels.MaxCups, nameof(cupCount), $"1 to {CupLabels.MaxCups}");
 
     /// <summary>Band width, ppm of nominal: 1 to 100 000.</summary>
     public static double MatchTolerancePpm(double matchTolerancePpm) =>
-        matchTolerancePpm is >= 1 and <= 100_000
-            ? matchTolerancePpm
-            : throw new ArgumentOutOfRangeException(
-                nameof(matchTolerancePpm),
-                matchTolerancePpm,
-                "MatchTolerancePpm must be 1 to 100 000"
-            );
+        InRange(matchTolerancePpm, 1, 100_000, nameof(matchTolerancePpm), "1 to 100 000");
 
     /// <summary>Marked tolerance of the reel, percent: 0.001 to 50.</summary>
     public static double StockTolerancePercent(double stockTolerancePercent) =>
-        stockTolerancePercent is >= 0.001 and <= 50
-            ? stockTolerancePercent
-            : throw new ArgumentOutOfRangeException(
-                nameof(stockTolerancePercent),
-                stockTolerancePercent,
-                "StockTolerancePercent must be 0.001 to 50"
-            );
+        InRange(stockTolerancePercent, 0.001, 50, nameof(stockTolerancePercent), "0.001 to 50");
 
     /// <summary>Largest expanded transfer uncertainty accepted, ppm: 0 to 100 000, default half the band
     /// width.</summary>
-    public static double UncertaintyLimitPpm(double? uncertaintyLimitPpm, double matchTolerancePpm)
-    {
-        var limit = uncertaintyLimitPpm ?? (matchTolerancePpm / 2);
-        return limit is >= 0 and <= 100_000
-            ? limit
+    public static double UncertaintyLimitPpm(double? uncertaintyLimitPpm, double matchTolerancePpm) =>
+        InRange(
+            uncertaintyLimitPpm ?? (matchTolerancePpm / 2),
+            0,
+            100_000,
+            nameof(uncertaintyLimitPpm),
+            "0 to 100 000"
+        );
+
+    /// <summary>The value when it lies in [min, max] (NaN does not), else the exception naming the parameter and the
+    /// range as the message says it ("CupCount must be 1 to 8").</summary>
+    private static T InRange<T>(T value, T min, T max, string parameter, string range)
+        where T : IComparable<T> =>
+        value.CompareTo(min) >= 0 && value.CompareTo(max) <= 0
+            ? value
             : throw new ArgumentOutOfRangeException(
-                nameof(uncertaintyLimitPpm),
-                uncertaintyLimitPpm,
-                "UncertaintyLimitPpm must be 0 to 100 000"
+                parameter,
+                value,
+                $"{char.ToUpperInvariant(parameter[0])}{parameter[1..]} must be {range}"
             );
-    }
 }
