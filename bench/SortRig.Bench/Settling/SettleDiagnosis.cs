@@ -172,19 +172,12 @@ internal static class SettleDiagnosis
     private static void Teach(InsertionSource source, double resolution, TimeSpan assumed)
     {
         double[] spans = [10, 12.5, 15, 20];
-        var (resolved, notWhite, tooSlow, tooWide) = (new int[4], new int[4], new int[4], new int[4]);
+        var count = spans.Length;
+        var (resolved, notWhite, tooSlow, tooWide) = (new int[count], new int[count], new int[count], new int[count]);
         var parts = 0;
-        var zs = new List<(double D, double Z, double Rel)>[4];
-        for (var j = 0; j < 4; j++)
-        {
-            zs[j] = [];
-        }
-
-        var errs = new List<double>[4];
-        for (var j = 0; j < 4; j++)
-        {
-            errs[j] = [];
-        }
+        // Per span: the white fits' ln τ errors (z = error / relative SE), and the resolved fits' relative errors.
+        var zs = spans.Select(_ => new List<(double D, double Z, double Rel)>()).ToArray();
+        var errs = spans.Select(_ => new List<double>()).ToArray();
 
         foreach (var ins in source.Insertions().Take(400))
         {
