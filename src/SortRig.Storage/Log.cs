@@ -48,4 +48,13 @@ internal static partial class Log
         Message = "Opened {Engine} precision log {Target} at schema version {Version}"
     )]
     public static partial void Opened(ILogger logger, string engine, string target, int version);
+
+    [LoggerMessage(
+        EventId = 3007,
+        Level = LogLevel.Warning,
+        Message = "Batch {BatchId}: the stored reel prior (batches.reel_prior) does not read ({Reason}); the settle "
+            + "rule "
+            + "learns the reel afresh"
+    )]
+    public static partial void UnreadableReelPrior(ILogger logger, long batchId, string reason);
 }

@@ -61,14 +61,12 @@ internal abstract partial class AdoPrecisionLog
                 r.GetDouble(15),
                 ReadTime(r, 16)
             );
-        return new BatchInfo(
-            r.GetInt64(0),
-            r.GetInt64(1),
-            ReadTime(r, 2),
-            setup,
-            transfer,
-            ReelPriorText.Read(ReadText(r, 17))
-        );
+        if (!ReelPriorText.TryRead(ReadText(r, 17), out var prior, out var reason))
+        {
+            Log.UnreadableReelPrior(Logger, r.GetInt64(0), reason!);
+        }
+
+        return new BatchInfo(r.GetInt64(0), r.GetInt64(1), ReadTime(r, 2), setup, transfer, prior);
     }
 
     private protected PartRecord ReadPart(DbDataReader r)

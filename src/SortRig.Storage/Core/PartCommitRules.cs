@@ -40,11 +40,7 @@ internal static class PartCommitRules
         SettleFitRules.Check(commit);
         if (commit.ReelPrior is { } prior)
         {
-            Guard.NonNegative(prior.Count, "ReelPrior.Count");
-            Guard.NonNegative(prior.Seen, "ReelPrior.Seen");
-            Guard.NonNegative(prior.LargestError, "ReelPrior.LargestError");
-            Guard.Finite(prior.SumLog, "ReelPrior.SumLog");
-            Guard.Finite(prior.SumSquaresLog, "ReelPrior.SumSquaresLog");
+            ReelPriorText.Check(prior);
         }
 
         ArgumentNullException.ThrowIfNull(commit.Readings, nameof(commit.Readings));

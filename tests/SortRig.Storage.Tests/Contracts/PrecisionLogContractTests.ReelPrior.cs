@@ -74,4 +74,34 @@ public abstract partial class PrecisionLogContractTests
         Assert.Empty(await log.GetPartsAsync(session.Session.Id, default));
         Assert.Null(Assert.Single(await log.GetBatchesAsync(session.Session.Id, default)).ReelPrior);
     }
+
+    [SkippableTheory]
+    [InlineData("not a prior")]
+    [InlineData("null")]
+    [InlineData("{\"count\": 20, \"seen\": 27}")]
+    [InlineData(
+        "{\"count\": 20, \"lowest\": 3.3, \"highest\": 4.6, \"largest_error\": 0.19, \"seen\": -4, \"sum_log\": 27.7, "
+            + "\"sum_squares_log\": 38.6}"
+    )]
+    public async Task ResumeSession_ReelPriorUnreadable_OpensWithoutIt_PartsKept(string stored)
+    {
+        // Common practice, no source: what the reel taught is derived from the parts; text that does not read as a
+        // prior (a hand edit: not JSON, JSON null, figures missing, a count below zero) costs the learning, not the
+        // batch: the session resumes, its parts are all there.
+        var log = await CreateLogAsync();
+        var (session, batch) = await Bench.StartAsync(log);
+        var id = session.Session.Id;
+        await log.CommitPartAsync(Bench.Part(id, batch, 10_000.1) with { ReelPrior = Learned }, default);
+        await log.CommitPartAsync(Bench.Part(id, batch, 10_000.2, index: 1) with { ReelPrior = Learned }, default);
+        await PlainScalarAsync($"UPDATE batches SET reel_prior = '{stored}' WHERE id = {batch.Id}");
+        await log.DisposeAsync();
+
+        var reopened = await CreateLogAsync();
+        var state = await reopened.OpenOrResumeSessionAsync(new SessionRequest(session.Session.Name), default);
+
+        Assert.True(state.Resumed);
+        Assert.Null(state.CurrentBatch!.ReelPrior);
+        Assert.Equal(3, state.NextPartNumber);
+        Assert.Equal(2, (await reopened.GetPartsAsync(id, default)).Count);
+    }
 }
