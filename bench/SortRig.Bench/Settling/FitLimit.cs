@@ -53,6 +53,60 @@ internal static class FitLimit
         return RuleOutcome.Timed(insertion.Since(lo).TotalSeconds, lo + 1);
     }
 
+    /// <summary>
+    /// The same oracle under the bench's own reading noise (<paramref name="noise"/>: the meter's white noise plus, on
+    /// the rich physics, the part's 1/f-like excess noise, whose covariance the simulator states exactly:
+    /// <see cref="AsymptoteBound.Variances"/>), stopping no earlier than the <paramref name="leastReading"/>-th
+    /// reading after the bounce. Popcorn and the ambient wander are left out (independent noise added to the
+    /// readings, they could only lower the information), so it remains a bound of the same kind.
+    /// </summary>
+    public static RuleOutcome RunUnder(
+        Insertion insertion,
+        SimulatedPart part,
+        double targetPpm,
+        ReadingNoise noise,
+        TimeSpan bounce,
+        TimeSpan horizon,
+        double bodyLogSd = double.PositiveInfinity,
+        int leastReading = 1
+    )
+    {
+        var limit = 2 * targetPpm * 1e-6 * insertion.Truth / Z;
+        var first = insertion.FirstEndingAtOrAfter(bounce);
+        var last = insertion.FirstEndingAtOrAfter(horizon);
+        var times = Enumerable.Range(first, last - first + 1).Select(k => insertion.Since(k).TotalSeconds).ToArray();
+        var bounds = AsymptoteBound.Variances(times, Paths(insertion, part, bodyLogSd), noise);
+        for (var i = Math.Max(leastReading - 1, 0); i < bounds.Length; i++)
+        {
+            if (bounds[i] <= limit * limit)
+            {
+                return RuleOutcome.Timed(insertion.Since(first + i).TotalSeconds, first + i + 1);
+            }
+        }
+
+        return RuleOutcome.Unstable(insertion.Since(last).TotalSeconds, last + 1);
+    }
+
+    /// <summary>The bench's reading noise in ohms for a part of value <paramref name="truth"/>: white noise of
+    /// <paramref name="readingSigmaOhms"/> and, under rich physics, the excess noise's four components
+    /// (<see cref="PhysicsSpec.FlickerTimeConstants"/>, a quarter of <see cref="PhysicsSpec.FlickerPpm"/>'s variance
+    /// each).</summary>
+    public static ReadingNoise BenchNoise(PhysicsModel physics, double readingSigmaOhms, double truth)
+    {
+        if (physics != PhysicsModel.Rich)
+        {
+            return ReadingNoise.White(readingSigmaOhms);
+        }
+
+        var spec = new PhysicsSpec { Model = physics };
+        var ohms = spec.FlickerPpm * 1e-6 * truth;
+        var count = PhysicsSpec.FlickerTimeConstants.Count;
+        return new ReadingNoise(
+            readingSigmaOhms,
+            [.. PhysicsSpec.FlickerTimeConstants.Select(tau => new CorrelatedNoise(ohms * ohms / count, tau))]
+        );
+    }
+
     /// <summary>Of two oracles' outcomes for one part, the one that stops first (an unstable one only when both
     /// are).</summary>
     public static RuleOutcome Earlier(RuleOutcome a, RuleOutcome b) =>

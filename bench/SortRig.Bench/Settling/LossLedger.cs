@@ -6,8 +6,10 @@ namespace SortRig.Bench.Settling;
 /// `settle-diag [parts] [case] [seed] losses`: where the predictive rule loses time against the either limit (per part
 /// the earlier of the averaging and fit oracles): seconds a part over the reel, by which rule accepted, in the first
 /// 300 parts, under the reel-learned range; and the rule against the fit limit by the part's excess (tempco × handling
-/// warmth). The averaging oracle reads the noise-free values further than the rule did, which draws readings: the
-/// noise of later parts differs from a run without it (counts compare, parts do not).
+/// warmth), there also the earlier of the averaging limit and the fit limit under the bench's own noise with the body
+/// prior from the rule's least record (<see cref="FitLimit.RunUnder"/>). The averaging oracle reads the noise-free
+/// values further than the rule did, which draws readings: the noise of later parts differs from a run without it
+/// (counts compare, parts do not).
 /// </summary>
 internal sealed class LossLedger
 {
@@ -19,7 +21,8 @@ internal sealed class LossLedger
         bool UnderPrior,
         double Excess,
         double Fit,
-        double Either
+        double Either,
+        double Floor
     )> _rows = [];
 
     public void Add(
@@ -29,10 +32,20 @@ internal sealed class LossLedger
         bool underPrior,
         double excessPpm,
         RuleOutcome fit,
-        RuleOutcome averaging
+        RuleOutcome averaging,
+        RuleOutcome priorFit
     ) =>
         _rows.Add(
-            (index, seconds, predicted, underPrior, excessPpm, fit.Seconds, FitLimit.Earlier(averaging, fit).Seconds)
+            (
+                index,
+                seconds,
+                predicted,
+                underPrior,
+                excessPpm,
+                fit.Seconds,
+                FitLimit.Earlier(averaging, fit).Seconds,
+                FitLimit.Earlier(averaging, priorFit).Seconds
+            )
         );
 
     public void Print()
@@ -45,7 +58,16 @@ internal sealed class LossLedger
 
         double Loss(
             Func<
-                (int Index, double Seconds, bool Predicted, bool UnderPrior, double Excess, double Fit, double Either),
+                (
+                    int Index,
+                    double Seconds,
+                    bool Predicted,
+                    bool UnderPrior,
+                    double Excess,
+                    double Fit,
+                    double Either,
+                    double Floor
+                ),
                 bool
             > which
         ) => _rows.Where(which).Sum(r => r.Seconds - r.Either) / n;
@@ -72,7 +94,8 @@ internal sealed class LossLedger
                         CultureInfo.InvariantCulture,
                         $"  excess {lo:0}-{hi:0} ppm: {bin.Count} parts, rule {bin.Average(r => r.Seconds):0.00} s "
                             + $"({100.0 * bin.Count(r => r.Predicted) / bin.Count:0} % by prediction), fit limit "
-                            + $"{bin.Average(r => r.Fit):0.00} s, either limit {bin.Average(r => r.Either):0.00} s"
+                            + $"{bin.Average(r => r.Fit):0.00} s, either limit {bin.Average(r => r.Either):0.00} s, "
+                            + $"under the bench's noise with the body prior {bin.Average(r => r.Floor):0.00} s"
                     )
                 );
             }

@@ -1,3 +1,4 @@
+using System.Globalization;
 using SortRig.Instruments.Profiles;
 using SortRig.Measurement.Settling;
 using SortRig.Simulator.Physics;
@@ -24,6 +25,15 @@ internal static class SettleDiagnosis
         var profile = MeterProfileLoader.Load(Path.Combine(root, "instruments", "simulator.yaml"));
         var range = profile.FindRange(SettleCase.Range)!;
         var options = SettleCase.SortOptions() with { Predictive = SettleCase.Predictive };
+        // `misfit=f` anywhere: the rule with another MisfitFraction (diagnosis only: what the allowance costs).
+        if (args.FirstOrDefault(a => a.StartsWith("misfit=", StringComparison.Ordinal)) is { } misfitArg)
+        {
+            var fraction = double.Parse(misfitArg["misfit=".Length..], CultureInfo.InvariantCulture);
+            options = options with { Predictive = options.Predictive! with { MisfitFraction = fraction } };
+            args = [.. args.Where(a => a != misfitArg)];
+            Console.WriteLine(Inv($"MisfitFraction {fraction}"));
+        }
+
         var c = SettleCase.All(parts, [("p", options)])[which];
         if (args.Length > 3 && int.TryParse(args[3], out var seed))
         {
@@ -97,7 +107,17 @@ internal static class SettleDiagnosis
                     a.AcceptedBy == SettleRule.Predictive && a.Fit?.BodyFloor is not null,
                     ins.TempcoPpmPerKelvin * ins.WarmKelvin,
                     FitLimit.Run(ins, source.Part(ins.Index), SettleCase.TargetPpm, sigma, bounce, horizon),
-                    InformationLimit.Run(ins, SettleCase.TargetPpm, sigma, bounce, horizon)
+                    InformationLimit.Run(ins, SettleCase.TargetPpm, sigma, bounce, horizon),
+                    FitLimit.RunUnder(
+                        ins,
+                        source.Part(ins.Index),
+                        SettleCase.TargetPpm,
+                        FitLimit.BenchNoise(c.Physics, sigma, ins.Truth),
+                        bounce,
+                        horizon,
+                        SettleBenchmark.LogUniformSd(c.Reel.ThermalTimeConstantSpread),
+                        options.Predictive!.MinReadings
+                    )
                 );
                 if (a.Fit?.BodyFloor is not null && a.AcceptedBy == SettleRule.Predictive)
                 {

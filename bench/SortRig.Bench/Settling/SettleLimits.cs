@@ -1,6 +1,7 @@
 using SortRig.Instruments.Profiles;
 using SortRig.Simulator;
 using SortRig.Simulator.Meter;
+using SortRig.Simulator.Physics;
 
 namespace SortRig.Bench.Settling;
 
@@ -28,6 +29,9 @@ internal static class SettleLimits
             var bodyLogSd = SettleBenchmark.LogUniformSd(c.Reel.ThermalTimeConstantSpread);
             var source = new InsertionSource(c.Reel, c.Physics, c.Seed, range.FullScale, c.Nplc);
             var (floored, eitherFloored) = (new List<double>(), new List<double>());
+            var bench = new BenchNoiseColumns();
+            var spec = new PhysicsSpec { Model = c.Physics };
+            var popcornShare = c.Physics == PhysicsModel.Rich ? spec.PopcornShare : 0;
             var (avg, fit, prior, either) = (
                 new List<double>(),
                 new List<double>(),
@@ -49,6 +53,19 @@ internal static class SettleLimits
                 var least = ins.Since(ins.FirstEndingAtOrAfter(bounce) + MinReadings - 1).TotalSeconds;
                 floored.Add(Math.Max(withPrior.Seconds, least));
                 eitherFloored.Add(Math.Min(a.Seconds, Math.Max(withPrior.Seconds, least)));
+                var noise = FitLimit.BenchNoise(c.Physics, sigma, ins.Truth);
+                var under = FitLimit.RunUnder(ins, part, SettleCase.TargetPpm, noise, bounce, horizon);
+                var underPrior = FitLimit.RunUnder(
+                    ins,
+                    part,
+                    SettleCase.TargetPpm,
+                    noise,
+                    bounce,
+                    horizon,
+                    bodyLogSd,
+                    MinReadings
+                );
+                bench.Add(a, under, underPrior, eitherFloored[^1], floored[^1], popcornShare, spec.PopcornDwell);
             }
 
             Console.WriteLine(
@@ -64,6 +81,7 @@ internal static class SettleLimits
                         + $"{eitherFloored.Average() / avg.Average():0.00} ×)"
                 )
             );
+            Console.WriteLine(bench.Line(c.Name, avg.Average()));
         }
 
         return 0;

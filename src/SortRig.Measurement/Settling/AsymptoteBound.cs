@@ -27,7 +27,7 @@ public sealed record RecoveryPath(
 /// (ln τ or τ, a or a·c(τ)): a bijective change of them leaves the asymptote's block of the inverse unchanged.
 /// Used by the benchmark as an oracle (the settle rules never call it).
 /// </summary>
-public static class AsymptoteBound
+public static partial class AsymptoteBound
 {
     /// <summary>The bound on var(final); +∞ when the readings do not determine the parameters (too few, or a singular
     /// information matrix).</summary>
@@ -64,6 +64,13 @@ public static class AsymptoteBound
             }
         }
 
+        AddPriors(info, paths);
+        return InverseCorner(info);
+    }
+
+    /// <summary>Adds each prior's information 1 / sd² to its ln τ column.</summary>
+    private static void AddPriors(Matrix<double> info, IReadOnlyList<RecoveryPath> paths)
+    {
         var column = 1;
         foreach (var path in paths)
         {
@@ -80,8 +87,6 @@ public static class AsymptoteBound
 
             column += 2;
         }
-
-        return InverseCorner(info);
     }
 
     private static void Gradient(double t, IReadOnlyList<RecoveryPath> paths, double[] g)

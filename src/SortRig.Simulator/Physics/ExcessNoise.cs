@@ -13,7 +13,7 @@ namespace SortRig.Simulator.Physics;
 /// </summary>
 internal sealed class ExcessNoise(PhysicsSpec physics, int seed)
 {
-    private static readonly double[] s_timeConstants = [0.1, 1, 10, 100];
+    private static readonly double[] s_timeConstants = [.. PhysicsSpec.FlickerTimeConstants];
     private readonly Random _rng = new MersenneTwister(seed, threadSafe: false);
     private readonly Lock _gate = new();
     private readonly double[] _state = new double[s_timeConstants.Length];

@@ -34,6 +34,11 @@ public sealed record PhysicsSpec
     /// 100. Default 0.3.</summary>
     public double FlickerPpm { get; init; } = 0.3;
 
+    /// <summary>The correlation times of the excess noise's four Ornstein-Uhlenbeck components, s, each carrying a
+    /// quarter of <see cref="FlickerPpm"/>'s variance (a sum of Lorentzians one decade apart; common practice, no
+    /// source).</summary>
+    public static IReadOnlyList<double> FlickerTimeConstants { get; } = [0.1, 1, 10, 100];
+
     /// <summary>Share of parts that show popcorn (burst) noise; 0 to 1. Default 0.1.</summary>
     public double PopcornShare { get; init; } = 0.1;
 
