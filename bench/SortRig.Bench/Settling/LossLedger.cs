@@ -14,16 +14,7 @@ namespace SortRig.Bench.Settling;
 internal sealed class LossLedger
 {
     private static readonly double[] s_edges = [0, 10, 20, 40, 80, 160, double.PositiveInfinity];
-    private readonly List<(
-        int Index,
-        double Seconds,
-        bool Predicted,
-        bool UnderPrior,
-        double Excess,
-        double Fit,
-        double Either,
-        double Floor
-    )> _rows = [];
+    private readonly List<Row> _rows = [];
 
     public void Add(
         int index,
@@ -36,7 +27,7 @@ internal sealed class LossLedger
         RuleOutcome priorFit
     ) =>
         _rows.Add(
-            (
+            new Row(
                 index,
                 seconds,
                 predicted,
@@ -56,21 +47,7 @@ internal sealed class LossLedger
             return;
         }
 
-        double Loss(
-            Func<
-                (
-                    int Index,
-                    double Seconds,
-                    bool Predicted,
-                    bool UnderPrior,
-                    double Excess,
-                    double Fit,
-                    double Either,
-                    double Floor
-                ),
-                bool
-            > which
-        ) => _rows.Where(which).Sum(r => r.Seconds - r.Either) / n;
+        double Loss(Func<Row, bool> which) => _rows.Where(which).Sum(r => r.Seconds - r.Either) / n;
         Console.WriteLine(
             string.Create(
                 CultureInfo.InvariantCulture,
@@ -101,4 +78,17 @@ internal sealed class LossLedger
             }
         }
     }
+
+    /// <summary>One accepted part: its index and seconds, how it was accepted, its excess (ppm) and the oracles'
+    /// times (the fit limit, the either limit, the either limit under the bench's noise with the body prior).</summary>
+    private readonly record struct Row(
+        int Index,
+        double Seconds,
+        bool Predicted,
+        bool UnderPrior,
+        double Excess,
+        double Fit,
+        double Either,
+        double Floor
+    );
 }
