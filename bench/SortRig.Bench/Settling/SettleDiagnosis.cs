@@ -148,7 +148,8 @@ internal static class SettleDiagnosis
         Console.WriteLine(
             Inv($"{bad} / {n} outside 2 x target; {predicted} by prediction ")
                 + Inv($"(mean {predictedSeconds / predicted:0.00} s, fallback {fallback:0.00} s); ")
-                + Inv($"mean {seconds / n:0.00} s (from part 400 on {lateSeconds / late:0.00} s); ")
+                + Inv($"mean {seconds / n:0.00} s (from part 400 on ")
+                + (late > 0 ? Inv($"{lateSeconds / late:0.00} s); ") : "none); ")
                 + Inv($"{byPrior} by prediction under the reel prior ")
                 + Inv($"(mean {priorSeconds / byPrior:0.00} s), learned from {prior.Count} parts: {prior.BodyRange}")
                 + (prior.Body is { } b ? Inv($", ln τ {b.LogMean:0.000} ± {b.LogScale:0.000} (t, {b.Dof:0} dof)") : "")
