@@ -12,7 +12,8 @@ public static partial class AsymptoteBound
     /// reading with a Kalman filter whose state is the components (their Markov property): each column of G is run
     /// through the filter as if it were data, and its innovations, divided by their variance, are the whitened rows.
     /// The gains depend on the reading times alone, so one pass serves every n. With no components the elements equal
-    /// <see cref="Variance"/> of the same readings.
+    /// <see cref="Variance"/> of the same readings. Every element is +∞ when the white part's sigma is not positive or
+    /// a component's variance is negative or its correlation time not positive.
     /// </summary>
     public static double[] Variances(ReadOnlySpan<double> times, IReadOnlyList<RecoveryPath> paths, ReadingNoise noise)
     {
@@ -28,6 +29,7 @@ public static partial class AsymptoteBound
             return result;
         }
 
+        var priors = paths.Count(p => !p.TimeConstantKnown && double.IsFinite(p.LogTimeConstantSd));
         var m = components.Count;
         var covariance = Matrix<double>.Build.DenseOfDiagonalArray(components.Select(c => c.Variance).ToArray());
         var state = Matrix<double>.Build.Dense(m, columns); // the filter's estimate of the components, per column
@@ -77,7 +79,6 @@ public static partial class AsymptoteBound
                 }
             }
 
-            var priors = paths.Count(p => !p.TimeConstantKnown && double.IsFinite(p.LogTimeConstantSd));
             if (i + 1 + priors >= columns)
             {
                 var withPriors = info.Clone();
