@@ -52,9 +52,8 @@ internal static partial class Log
     [LoggerMessage(
         EventId = 3007,
         Level = LogLevel.Warning,
-        Message = "Batch {BatchId}: the stored reel prior (batches.reel_prior) does not read ({Reason}); the settle "
-            + "rule "
-            + "learns the reel afresh"
+        Message = "Batch {BatchId}: the stored reel prior (batches.reel_prior) does not read ({Reason}); "
+            + "the settle rule learns the reel afresh"
     )]
     public static partial void UnreadableReelPrior(ILogger logger, long batchId, string reason);
 }

@@ -1,5 +1,6 @@
 using SortRig.Measurement.Settling;
 using SortRig.Storage.Contracts;
+using SortRig.Storage.Tests.Lab;
 
 namespace SortRig.Storage.Tests.Contracts;
 
@@ -96,11 +97,16 @@ public abstract partial class PrecisionLogContractTests
         await PlainScalarAsync($"UPDATE batches SET reel_prior = '{stored}' WHERE id = {batch.Id}");
         await log.DisposeAsync();
 
-        var reopened = await CreateLogAsync();
+        var logs = new CapturingLoggerFactory();
+        var reopened = await CreateLogAsync(new PrecisionLogOptions { TimeProvider = Clock, LoggerFactory = logs });
         var state = await reopened.OpenOrResumeSessionAsync(new SessionRequest(session.Session.Name), default);
 
         Assert.True(state.Resumed);
         Assert.Null(state.CurrentBatch!.ReelPrior);
+        Assert.Contains(logs.Lines, l =>
+            l.StartsWith("Warning", StringComparison.Ordinal)
+            && l.Contains($"Batch {batch.Id}:", StringComparison.Ordinal)
+        );
         Assert.Equal(3, state.NextPartNumber);
         Assert.Equal(2, (await reopened.GetPartsAsync(id, default)).Count);
     }
