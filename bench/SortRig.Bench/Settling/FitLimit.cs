@@ -27,31 +27,7 @@ internal static class FitLimit
         TimeSpan bounce,
         TimeSpan horizon,
         double bodyLogSd = double.PositiveInfinity
-    )
-    {
-        var limit = 2 * targetPpm * 1e-6 * insertion.Truth / Z;
-        var paths = Paths(insertion, part, bodyLogSd);
-        var first = insertion.FirstEndingAtOrAfter(bounce);
-        var last = insertion.FirstEndingAtOrAfter(horizon);
-        var times = Enumerable.Range(first, last - first + 1).Select(k => insertion.Since(k).TotalSeconds).ToArray();
-        bool Enough(int n) =>
-            AsymptoteBound.Variance(times.AsSpan(0, n - first + 1), paths, readingSigmaOhms) <= limit * limit;
-        if (!Enough(last))
-        {
-            return RuleOutcome.Unstable(insertion.Since(last).TotalSeconds, last + 1);
-        }
-
-        // The bound never grows as readings are added (each adds a positive semi-definite term to the information):
-        // bisect for the first reading that meets it.
-        var (lo, hi) = (first, last);
-        while (lo < hi)
-        {
-            var mid = (lo + hi) / 2;
-            (lo, hi) = Enough(mid) ? (lo, mid) : (mid + 1, hi);
-        }
-
-        return RuleOutcome.Timed(insertion.Since(lo).TotalSeconds, lo + 1);
-    }
+    ) => RunUnder(insertion, part, targetPpm, ReadingNoise.White(readingSigmaOhms), bounce, horizon, bodyLogSd);
 
     /// <summary>
     /// The same oracle under the bench's own reading noise (<paramref name="noise"/>: the meter's white noise plus, on

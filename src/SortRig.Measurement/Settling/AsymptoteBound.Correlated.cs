@@ -45,14 +45,14 @@ public static partial class AsymptoteBound
             }
 
             Gradient(times[i], paths, g);
-            var spread = white + covariance.RowSums().Sum(); // 1ᵀP1 + σ²: the innovation's variance
+            var rowSums = covariance.RowSums(); // P1
+            var spread = white + rowSums.Sum(); // 1ᵀP1 + σ²: the innovation's variance
             var columnSums = state.ColumnSums();
             for (var j = 0; j < columns; j++)
             {
                 innovation[j] = g[j] - columnSums[j];
             }
 
-            var rowSums = covariance.RowSums(); // P1
             for (var k = 0; k < m; k++)
             {
                 gain[k] = rowSums[k] / spread;
